@@ -1,0 +1,44 @@
+import { fileURLToPath } from 'node:url';
+import { defineConfig } from 'vitest/config';
+
+const alias = {
+  '@shared': fileURLToPath(new URL('./shared', import.meta.url)),
+  '@core-data': fileURLToPath(new URL('./core-data', import.meta.url)),
+};
+
+// Three suites: pure unit tests (engine, catalogue, units), API tests against a real
+// PostgreSQL database, and browser tests driving Debian's Chromium. scripts/test.ts
+// prepares the database and browser and runs all three.
+export default defineConfig({
+  resolve: { alias },
+  test: {
+    projects: [
+      {
+        resolve: { alias },
+        test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], environment: 'node' },
+      },
+      {
+        resolve: { alias },
+        test: {
+          name: 'api',
+          include: ['tests/api/**/*.test.ts'],
+          environment: 'node',
+          fileParallelism: false,
+          testTimeout: 20_000,
+          hookTimeout: 60_000,
+        },
+      },
+      {
+        resolve: { alias },
+        test: {
+          name: 'browser',
+          include: ['tests/browser/**/*.test.ts'],
+          environment: 'node',
+          fileParallelism: false,
+          testTimeout: 60_000,
+          hookTimeout: 180_000,
+        },
+      },
+    ],
+  },
+});
