@@ -1,0 +1,100 @@
+import express, { type Request } from 'express';
+import type pg from 'pg';
+import type { Logger } from 'pino';
+import { pinoHttp } from 'pino-http';
+import { accountRouter } from './account/account.router.ts';
+import { auditRouter } from './audit/audit.router.ts';
+import { AuditRepository } from './audit/audit.repository.ts';
+import { AuditService } from './audit/audit.service.ts';
+import { authRouter } from './auth/auth.router.ts';
+import { createCsrf } from './auth/csrf.ts';
+import { createPassport } from './auth/passport.ts';
+import { absoluteLifetime, createSessionMiddleware } from './auth/session.ts';
+import type { Config } from './config.ts';
+import type { Db } from './db/client.ts';
+import { healthRouter } from './health/health.router.ts';
+import type { AppError } from './http/errors.ts';
+import { apiNotFound, errorMiddleware } from './http/errors.ts';
+import { securityHeaders } from './http/security-headers.ts';
+import { staticAppRouter } from './http/static-app.ts';
+import { adminUsersRouter } from './users/admin-users.router.ts';
+import { UsersRepository } from './users/users.repository.ts';
+import { UsersService } from './users/users.service.ts';
+
+export interface AppDeps {
+  config: Config;
+  pool: pg.Pool;
+  db: Db;
+  logger: Logger;
+}
+
+export interface Services {
+  audit: AuditService;
+  users: UsersService;
+}
+
+export function createServices({ config, db }: Pick<AppDeps, 'config' | 'db'>): Services {
+  const audit = new AuditService(new AuditRepository(db));
+  const users = new UsersService(new UsersRepository(db), audit, config.bcryptCost);
+  return { audit, users };
+}
+
+export function createApp(deps: AppDeps) {
+  const { config, pool, logger } = deps;
+  const services = createServices(deps);
+  const { audit, users } = services;
+  const passport = createPassport(users);
+  const sessions = createSessionMiddleware(config, pool);
+  const csrf = createCsrf(config);
+
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', config.trustProxy);
+  app.locals['recordDenial'] = (req: Request, err: AppError) => {
+    audit
+      .record({
+        actorId: req.user?.id ?? null,
+        action: 'access.denied',
+        target: `${req.method} ${req.originalUrl.split('?')[0]}`.slice(0, 200),
+        details: { status: err.status, role: req.user?.role ?? 'anonymous' },
+        ip: req.ip,
+      })
+      .catch((e: unknown) => logger.warn({ err: e }, 'could not record an access denial'));
+  };
+
+  app.use(
+    pinoHttp({
+      logger,
+      redact: ['req.headers.cookie', 'req.headers["x-xsrf-token"]', 'res.headers["set-cookie"]'],
+      customLogLevel: (_req, res, err) => (err || res.statusCode >= 500 ? 'error' : 'info'),
+      autoLogging: { ignore: (req) => !req.url?.startsWith('/api') },
+    }),
+  );
+  app.use(securityHeaders(config));
+
+  // Health answers even when the session store (the database) is down.
+  app.use('/api/health', healthRouter(pool));
+
+  const api = express.Router();
+  api.use(express.json({ limit: '1mb', strict: true }));
+  api.use(sessions.middleware);
+  api.use(absoluteLifetime(config));
+  api.use(passport.initialize());
+  api.use(passport.session());
+  api.use(csrf.protection);
+  api.use('/auth', authRouter({ config, passport, users, audit, issueCsrfToken: csrf.issueToken }));
+  api.use('/account', accountRouter(users));
+  api.use('/admin/users', adminUsersRouter(users));
+  api.use('/admin/audit', auditRouter(audit));
+  api.use(apiNotFound);
+  app.use('/api', api);
+
+  app.use(staticAppRouter(config.staticDir));
+  app.use(
+    errorMiddleware((err, status) => {
+      if (status >= 500) logger.error({ err }, 'request failed');
+    }),
+  );
+
+  return { app, services, close: () => sessions.close() };
+}

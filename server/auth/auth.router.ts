@@ -1,0 +1,83 @@
+import { Router, type NextFunction, type Request, type Response } from 'express';
+import { rateLimit } from 'express-rate-limit';
+import { signInRequestSchema } from '@shared/schemas/auth';
+import type { AuditService } from '../audit/audit.service.ts';
+import type { Config } from '../config.ts';
+import { AppError } from '../http/errors.ts';
+import { parseBody } from '../http/validate.ts';
+import type { Actor } from '../http/access.ts';
+import type { UsersService } from '../users/users.service.ts';
+import { toUserView } from '../users/user-view.ts';
+import type { AppPassport } from './passport.ts';
+import { sessionCookieName } from './session.ts';
+
+interface AuthDeps {
+  config: Config;
+  passport: AppPassport;
+  users: UsersService;
+  audit: AuditService;
+  issueCsrfToken: (req: Request, res: Response, overwrite?: boolean) => void;
+}
+
+function authenticate(passport: AppPassport, req: Request, res: Response, next: NextFunction): Promise<Actor | null> {
+  return new Promise((resolve, reject) => {
+    passport.authenticate('local', (err: unknown, user: Actor | false) => (err ? reject(err) : resolve(user || null)))(
+      req,
+      res,
+      next,
+    );
+  });
+}
+
+export function authRouter({ config, passport, users, audit, issueCsrfToken }: AuthDeps): Router {
+  const router = Router();
+
+  // Failed attempts only: a user who signs in correctly is never locked out by their own successes.
+  const signInLimiter = rateLimit({
+    windowMs: config.signInWindowMs,
+    limit: config.signInLimit,
+    skipSuccessfulRequests: true,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    handler: (_req, _res, next) => {
+      const minutes = Math.ceil(config.signInWindowMs / 60_000);
+      next(new AppError(429, 'rate_limited', `Too many sign-in attempts. Wait ${minutes} minutes and try again.`));
+    },
+  });
+
+  router.get('/session', async (req, res) => {
+    issueCsrfToken(req, res);
+    const row = req.user ? await users.findActive(req.user.id) : null;
+    res.json({ user: row ? toUserView(row) : null });
+  });
+
+  router.post('/sign-in', signInLimiter, async (req, res, next) => {
+    const { username } = parseBody(signInRequestSchema, req);
+    const actor = await authenticate(passport, req, res, next);
+    if (!actor) {
+      await audit.record({ action: 'auth.sign_in_failed', target: `user:${username.toLowerCase()}`, ip: req.ip });
+      throw new AppError(401, 'invalid_credentials', 'Wrong username or password, or the account is disabled.');
+    }
+    // passport ≥ 0.6 regenerates the session id here (session fixation defence).
+    await new Promise<void>((resolve, reject) => req.logIn(actor, (err) => (err ? reject(err) : resolve())));
+    req.session.signedInAt = Date.now();
+    issueCsrfToken(req, res, true);
+    await users.touchSignIn(actor.id);
+    await audit.record({ actorId: actor.id, action: 'auth.signed_in', target: `user:${actor.username}`, ip: req.ip });
+    const row = await users.findActive(actor.id);
+    res.json({ user: row ? toUserView(row) : null });
+  });
+
+  router.post('/sign-out', async (req, res) => {
+    const actor = req.user;
+    if (actor) {
+      await audit.record({ actorId: actor.id, action: 'auth.signed_out', target: `user:${actor.username}`, ip: req.ip });
+    }
+    await new Promise<void>((resolve, reject) => req.logOut((err) => (err ? reject(err) : resolve())));
+    await new Promise<void>((resolve, reject) => req.session.destroy((err) => (err ? reject(err) : resolve())));
+    res.clearCookie(sessionCookieName(config), { path: '/' });
+    res.status(204).end();
+  });
+
+  return router;
+}

@@ -1,0 +1,67 @@
+import { z } from 'zod';
+
+// The only place that reads process.env: everything else receives a validated Config.
+const envSchema = z.object({
+  NODE_ENV: z.enum(['development', 'production', 'test']).default('production'),
+  HOST: z.string().default('127.0.0.1'),
+  PORT: z.coerce.number().int().min(0).max(65535).default(4300),
+  DATABASE_URL: z.url({ error: 'DATABASE_URL must be a postgres:// URL' }),
+  SESSION_SECRET: z.string().min(32, { error: 'SESSION_SECRET must be at least 32 characters' }),
+  COOKIE_SECURE: z.enum(['true', 'false']).default('false').transform((v) => v === 'true'),
+  TRUST_PROXY: z.coerce.number().int().min(0).max(5).default(0),
+  LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+  SEED_DEMO: z.enum(['true', 'false']).default('true').transform((v) => v === 'true'),
+  STATIC_DIR: z.string().default('dist/gapwright/browser'),
+  SIGN_IN_LIMIT: z.coerce.number().int().min(1).default(10),
+  SIGN_IN_WINDOW_MINUTES: z.coerce.number().int().min(1).default(15),
+  SESSION_IDLE_MINUTES: z.coerce.number().int().min(1).default(120),
+  SESSION_ABSOLUTE_HOURS: z.coerce.number().int().min(1).default(12),
+  BCRYPT_COST: z.coerce.number().int().min(4).max(15).default(12),
+  DB_CONNECT_TIMEOUT_MS: z.coerce.number().int().min(100).default(3000),
+});
+
+export interface Config {
+  env: 'development' | 'production' | 'test';
+  host: string;
+  port: number;
+  databaseUrl: string;
+  sessionSecret: string;
+  cookieSecure: boolean;
+  trustProxy: number;
+  logLevel: string;
+  seedDemo: boolean;
+  staticDir: string;
+  signInLimit: number;
+  signInWindowMs: number;
+  sessionIdleMs: number;
+  sessionAbsoluteMs: number;
+  bcryptCost: number;
+  dbConnectTimeoutMs: number;
+}
+
+export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
+  const parsed = envSchema.safeParse(env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`);
+    throw new Error(`Invalid configuration:\n${lines.join('\n')}`);
+  }
+  const e = parsed.data;
+  return {
+    env: e.NODE_ENV,
+    host: e.HOST,
+    port: e.PORT,
+    databaseUrl: e.DATABASE_URL,
+    sessionSecret: e.SESSION_SECRET,
+    cookieSecure: e.COOKIE_SECURE,
+    trustProxy: e.TRUST_PROXY,
+    logLevel: e.LOG_LEVEL,
+    seedDemo: e.SEED_DEMO,
+    staticDir: e.STATIC_DIR,
+    signInLimit: e.SIGN_IN_LIMIT,
+    signInWindowMs: e.SIGN_IN_WINDOW_MINUTES * 60_000,
+    sessionIdleMs: e.SESSION_IDLE_MINUTES * 60_000,
+    sessionAbsoluteMs: e.SESSION_ABSOLUTE_HOURS * 3_600_000,
+    bcryptCost: e.BCRYPT_COST,
+    dbConnectTimeoutMs: e.DB_CONNECT_TIMEOUT_MS,
+  };
+}

@@ -1,0 +1,9 @@
+import { drizzle, type NodePgDatabase } from 'drizzle-orm/node-postgres';
+import type pg from 'pg';
+import * as schema from './schema.ts';
+
+export type Db = NodePgDatabase<typeof schema>;
+
+export function createDb(pool: pg.Pool): Db {
+  return drizzle({ client: pool, schema });
+}

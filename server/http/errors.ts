@@ -1,0 +1,96 @@
+import type { ErrorRequestHandler, RequestHandler } from 'express';
+import { ZodError } from 'zod';
+
+export type FieldErrors = Record<string, string>;
+
+/** An error the client should see as it is: status, a stable code and a plain message. */
+export class AppError extends Error {
+  constructor(
+    readonly status: number,
+    readonly code: string,
+    message: string,
+    readonly fields?: FieldErrors,
+  ) {
+    super(message);
+  }
+}
+
+export const badRequest = (message: string, fields?: FieldErrors) => new AppError(400, 'invalid_input', message, fields);
+export const unauthorized = (message = 'Sign in to continue.') => new AppError(401, 'unauthenticated', message);
+export const forbidden = (message = 'Your role may not do this.') => new AppError(403, 'forbidden', message);
+export const notFound = (message = 'Not found.') => new AppError(404, 'not_found', message);
+export const conflict = (message: string, fields?: FieldErrors) => new AppError(409, 'conflict', message, fields);
+
+export function fieldErrorsFromZod(error: ZodError): FieldErrors {
+  const fields: FieldErrors = {};
+  for (const issue of error.issues) {
+    const key = issue.path.length ? issue.path.join('.') : '(body)';
+    fields[key] ??= issue.message;
+  }
+  return fields;
+}
+
+export function describeFieldErrors(fields: FieldErrors): string {
+  const entries = Object.entries(fields);
+  const shown = entries.slice(0, 3).map(([k, v]) => `${k}: ${v}`);
+  const more = entries.length > 3 ? ` (and ${entries.length - 3} more)` : '';
+  return `Invalid input. ${shown.join('; ')}${more}`;
+}
+
+export const apiNotFound: RequestHandler = (req, _res, next) => {
+  next(new AppError(404, 'not_found', `No API route ${req.method} ${req.path}.`));
+};
+
+interface HttpishError {
+  status?: number;
+  statusCode?: number;
+  type?: string;
+  code?: string;
+  expose?: boolean;
+}
+
+const PG_CONNECTION_CODES = new Set(['ECONNREFUSED', 'ECONNRESET', '57P01', '57P02', '57P03', '08006', '08001', '08003']);
+
+function isDatabaseUnavailable(err: unknown): boolean {
+  if (!(err instanceof Error)) return false;
+  const code = (err as { code?: string }).code;
+  if (code && PG_CONNECTION_CODES.has(code)) return true;
+  return /timeout exceeded when trying to connect|Connection terminated|connect ECONNREFUSED/i.test(err.message);
+}
+
+/** The one error shape: { error: { code, message, fields? } }. Never a stack trace. */
+export function errorMiddleware(log: (err: unknown, status: number) => void): ErrorRequestHandler {
+  return (err, _req, res, _next) => {
+    let status = 500;
+    let body: { code: string; message: string; fields?: FieldErrors };
+    const h = err as HttpishError;
+    if (err instanceof AppError) {
+      status = err.status;
+      body = { code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}) };
+    } else if (err instanceof ZodError) {
+      status = 400;
+      const fields = fieldErrorsFromZod(err);
+      body = { code: 'invalid_input', message: describeFieldErrors(fields), fields };
+    } else if (h?.type === 'entity.parse.failed') {
+      status = 400;
+      body = { code: 'malformed_json', message: 'The request body is not valid JSON.' };
+    } else if (h?.type === 'entity.too.large') {
+      status = 413;
+      body = { code: 'payload_too_large', message: 'The request body is too large.' };
+    } else if (h?.code === 'EBADCSRFTOKEN') {
+      status = 403;
+      body = { code: 'csrf_failed', message: 'The request is missing its security token. Reload the page and try again.' };
+    } else if (isDatabaseUnavailable(err)) {
+      status = 503;
+      body = { code: 'database_unavailable', message: 'The database is not reachable. Try again in a moment.' };
+    } else if (typeof (h?.status ?? h?.statusCode) === 'number' && (h.status ?? h.statusCode)! < 500 && h.expose) {
+      status = (h.status ?? h.statusCode)!;
+      body = { code: 'bad_request', message: (err as Error).message };
+    } else {
+      body = { code: 'internal_error', message: 'Something went wrong on the server. It has been logged.' };
+    }
+    log(err, status);
+    if (res.headersSent) return;
+    res.status(status).json({ error: body });
+  };
+}

@@ -1,0 +1,45 @@
+import type { AddressInfo } from 'node:net';
+import type { Server } from 'node:http';
+import { createApp } from './app.ts';
+import type { Config } from './config.ts';
+import { createDb } from './db/client.ts';
+import { applyMigrations } from './db/migrate.ts';
+import { createPool } from './db/pool.ts';
+import { createLogger } from './logger.ts';
+import { seedDemoOnce } from './seed/seed-demo.ts';
+
+export interface RunningServer {
+  server: Server;
+  url: string;
+  /** Stop accepting, let in-flight requests finish, then close the session store and the pool. */
+  stop: () => Promise<void>;
+}
+
+export async function startServer(config: Config): Promise<RunningServer> {
+  const logger = createLogger(config.logLevel);
+  const pool = createPool(config.databaseUrl, config.dbConnectTimeoutMs, logger);
+  const db = createDb(pool);
+  await applyMigrations(db);
+  if (config.seedDemo && (await seedDemoOnce(db, config.bcryptCost))) logger.info('demo scenario seeded');
+  const { app, close } = createApp({ config, pool, db, logger });
+
+  const server = await new Promise<Server>((resolve, reject) => {
+    const s = app.listen(config.port, config.host, (err?: Error) => (err ? reject(err) : resolve(s)));
+  });
+  const { port } = server.address() as AddressInfo;
+  const url = `http://${config.host}:${port}`;
+  logger.info({ url }, 'Gapwright is listening');
+
+  let stopping: Promise<void> | undefined;
+  const stop = () =>
+    (stopping ??= (async () => {
+      await new Promise<void>((resolve) => {
+        server.close(() => resolve());
+        server.closeIdleConnections();
+      });
+      await close();
+      await pool.end();
+      logger.info('Gapwright stopped');
+    })());
+  return { server, url, stop };
+}
