@@ -78,6 +78,8 @@ export interface CoreMaterial {
   rollOff?: RollOffFit;
   /** Density (kg/m³). */
   density: number;
+  /** Highest hot-spot temperature the material tolerates (°C): Curie point with margin, or a powder binder limit. */
+  maxTemperature?: number;
 }
 
 export type WireKind = 'awg' | 'metric' | 'litz';

@@ -1,0 +1,60 @@
+import { dowellProximityTerm, dowellSkinTerm, proximityFactor } from './dowell';
+import type { HarmonicWeights } from './harmonics';
+
+/** A harmonic sum stops once the envelope of the next term is below this fraction of the running sum. */
+const RELATIVE_TOLERANCE = 1e-6;
+
+/**
+ * Σ I_n²/2·skinTerm(Δ1√n) and Σ I_n²/2·proximityTerm(Δ1√n): the layer count enters only as a weight on the
+ * second sum, so one pair of sums serves every layer count of the same wire.
+ */
+export interface AcLossSums {
+  skin: number;
+  proximity: number;
+  /** Σ I_n²/2 over the same harmonics (the ripple mean square, → ΔI²/12). */
+  meanSquare: number;
+  harmonicsUsed: number;
+}
+
+export function acLossSums(firstHarmonicDelta: number, weights: HarmonicWeights): AcLossSums {
+  let skin = 0;
+  let proximity = 0;
+  let meanSquare = 0;
+  const count = weights.meanSquare.length;
+  let n = 1;
+  for (; n <= count; n++) {
+    const delta = firstHarmonicDelta * Math.sqrt(n);
+    const skinTerm = dowellSkinTerm(delta);
+    const proximityTerm = dowellProximityTerm(delta);
+    const w = weights.meanSquare[n - 1]!;
+    skin += w * skinTerm;
+    proximity += w * proximityTerm;
+    meanSquare += w;
+    const bound = weights.envelope[n - 1]!;
+    if (bound * skinTerm < RELATIVE_TOLERANCE * skin && bound * proximityTerm <= RELATIVE_TOLERANCE * proximity) break;
+  }
+  return { skin, proximity, meanSquare, harmonicsUsed: Math.min(n, count) };
+}
+
+/** Ripple copper loss Pac = Rdc·Σ Fr(Δ1√n, m)·I_n²/2 from precomputed sums (W). */
+export function acCopperLoss(resistance: number, sums: AcLossSums, layers: number): number {
+  return resistance * (sums.skin + proximityFactor(layers) * sums.proximity);
+}
+
+/** Effective Rac/Rdc of the ripple current: Σ Fr·I_n²/2 over Σ I_n²/2. */
+export function effectiveAcFactor(sums: AcLossSums, layers: number): number {
+  return (sums.skin + proximityFactor(layers) * sums.proximity) / sums.meanSquare;
+}
+
+export interface CopperLoss {
+  dc: number;
+  ac: number;
+  total: number;
+}
+
+/** Pdc = Rdc·Iout² and Pac from the ripple harmonics, reported separately (W). */
+export function copperLoss(resistance: number, dcCurrent: number, sums: AcLossSums, layers: number): CopperLoss {
+  const dc = resistance * dcCurrent * dcCurrent;
+  const ac = acCopperLoss(resistance, sums, layers);
+  return { dc, ac, total: dc + ac };
+}

@@ -1,0 +1,97 @@
+import { logGamma } from './gamma';
+import type { CoreMaterial } from './types';
+
+export interface SteinmetzCoefficients {
+  k: number;
+  alpha: number;
+  beta: number;
+}
+
+/** Steinmetz Pv = k·f^α·B̂^β (W/m³) with B̂ the peak AC flux, i.e. half the peak-to-peak swing. */
+export function steinmetzLoss(m: SteinmetzCoefficients, frequency: number, peakFlux: number): number {
+  return m.k * Math.pow(frequency, m.alpha) * Math.pow(peakFlux, m.beta);
+}
+
+/** ∫₀^{2π} |cos θ|^α dθ = 2·√π·Γ((α+1)/2)/Γ(α/2 + 1). */
+export function cosinePowerIntegral(alpha: number): number {
+  return 2 * Math.sqrt(Math.PI) * Math.exp(logGamma((alpha + 1) / 2) - logGamma(alpha / 2 + 1));
+}
+
+/** iGSE coefficient ki = k / [(2π)^(α−1)·2^(β−α)·∫|cos θ|^α dθ]. */
+export function igseCoefficient(m: SteinmetzCoefficients): number {
+  return m.k / (Math.pow(2 * Math.PI, m.alpha - 1) * Math.pow(2, m.beta - m.alpha) * cosinePowerIntegral(m.alpha));
+}
+
+/** The duty-cycle bracket D^(1−α) + (1 − D)^(1−α) of the triangular iGSE. */
+export function triangleDutyFactor(duty: number, alpha: number): number {
+  return Math.pow(duty, 1 - alpha) + Math.pow(1 - duty, 1 - alpha);
+}
+
+/** iGSE for triangular (PWM) flux with peak-to-peak ΔB and rise fraction D (W/m³). */
+export function igseTriangleLoss(m: SteinmetzCoefficients, frequency: number, fluxSwing: number, duty: number): number {
+  return (
+    igseCoefficient(m) * Math.pow(fluxSwing, m.beta) * Math.pow(frequency, m.alpha) * triangleDutyFactor(duty, m.alpha)
+  );
+}
+
+/**
+ * iGSE for any periodic flux given as a piecewise-linear waveform over one period: times (s, ascending, first 0,
+ * last = period) and flux values (T) with the last equal to the first. ΔB is the peak-to-peak of the samples.
+ */
+export function igsePiecewiseLinearLoss(m: SteinmetzCoefficients, times: ArrayLike<number>, flux: ArrayLike<number>): number {
+  const count = times.length;
+  if (count < 2 || flux.length !== count) throw new RangeError('times and flux need the same length, at least 2');
+  let min = flux[0]!;
+  let max = flux[0]!;
+  for (let i = 1; i < count; i++) {
+    min = Math.min(min, flux[i]!);
+    max = Math.max(max, flux[i]!);
+  }
+  const period = times[count - 1]! - times[0]!;
+  const swing = max - min;
+  let integral = 0;
+  for (let i = 1; i < count; i++) {
+    const dt = times[i]! - times[i - 1]!;
+    if (dt <= 0) continue;
+    const slope = Math.abs(flux[i]! - flux[i - 1]!) / dt;
+    integral += Math.pow(slope, m.alpha) * dt;
+  }
+  return (igseCoefficient(m) * Math.pow(swing, m.beta - m.alpha) * integral) / period;
+}
+
+/** Temperature factor ct2·T² − ct1·T + ct0 (1 where the material has no correction). */
+export function coreLossTemperatureFactor(material: CoreMaterial, temperature: number): number {
+  const c = material.tempCoefficients;
+  if (!c) return 1;
+  return c.ct2 * temperature * temperature - c.ct1 * temperature + c.ct0;
+}
+
+/**
+ * Coefficients of a parabolic temperature correction with its minimum (= 1) at `minimumTemperature` and
+ * curvature ct2 (1/K²).
+ */
+export function parabolicTemperatureCoefficients(minimumTemperature: number, ct2: number): { ct0: number; ct1: number; ct2: number } {
+  return { ct2, ct1: 2 * ct2 * minimumTemperature, ct0: 1 + ct2 * minimumTemperature * minimumTemperature };
+}
+
+/** k given for mW/cm³, kHz and mT converted to W/m³, Hz and T: k_SI = k′·10^(3·(1 − α + β)). */
+export function steinmetzKToSi(kMilliwattPerCm3: number, alpha: number, beta: number): number {
+  return kMilliwattPerCm3 * Math.pow(10, 3 * (1 - alpha + beta));
+}
+
+/** The inverse of {@link steinmetzKToSi}. */
+export function steinmetzKFromSi(kSi: number, alpha: number, beta: number): number {
+  return kSi / Math.pow(10, 3 * (1 - alpha + beta));
+}
+
+export interface FitRangeCheck {
+  frequencyInRange: boolean;
+  fluxInRange: boolean;
+}
+
+export function fitRangeCheck(material: CoreMaterial, frequency: number, peakFlux: number): FitRangeCheck {
+  return {
+    frequencyInRange: frequency >= material.fitFrequencyMin && frequency <= material.fitFrequencyMax,
+    fluxInRange: peakFlux >= material.fitFluxMin && peakFlux <= material.fitFluxMax,
+  };
+}

@@ -1,0 +1,288 @@
+import { availableAreaProduct, availableGeometryConstant, requiredAreaProduct } from './area-product';
+import { HOT_SPOT_ALLOWANCE } from './constants';
+import { EngineInputError } from './errors';
+import type { ConverterSpec, DesignLimits, EngineIssue } from './inputs';
+import { describeIssues } from './issues';
+import {
+  CandidateFigures,
+  designMagnetics,
+  evaluateCandidate,
+  prepareCore,
+  prepareMaterial,
+  prepareSpec,
+  prepareWire,
+  type MagneticDesign,
+  type SpecContext,
+  type TurnsInput,
+  type WireContext,
+} from './kernel';
+import type { OperatingPoint } from './operating-point';
+import type { CoreMaterial, CoreShape, WireOption } from './types';
+
+export interface EvaluateInput {
+  spec: ConverterSpec;
+  limits?: Partial<DesignLimits>;
+  core: CoreShape;
+  material: CoreMaterial;
+  turns: TurnsInput;
+  /** Total gap in the magnetic path (m), or 'auto'; ignored for distributed-gap cores. */
+  gap: TurnsInput;
+  wire: WireOption;
+}
+
+export interface EvaluationResult {
+  feasible: boolean;
+  issues: EngineIssue[];
+  operatingPoint: OperatingPoint;
+  core: {
+    id: string;
+    family: string;
+    gapKind: string;
+    ae: number;
+    le: number;
+    ve: number;
+    windowArea: number;
+    areaProductAvailable: number;
+    areaProductRequired: number;
+    /** Erickson's Kg = Ae²·Wa/MLT (m⁵). */
+    geometryConstant: number;
+  };
+  material: { id: string; name: string; family: string };
+  wire: { id: string; kind: string; strandDiameter: number; strands: number; copperArea: number; currentDensity: number };
+  turns: number;
+  gap: {
+    /** Total gap in the path (m); 0 for distributed-gap cores. */
+    total: number;
+    /** Spacer thickness for a spacer gap across all legs (m). */
+    spacer: number;
+    fringingFactor: number;
+    /** lg/√Ae; the fringing formula is trusted below 0.3. */
+    relativeToCore: number;
+  };
+  inductanceFactor: { withoutFringing: number; withFringing: number };
+  inductance: {
+    required: number;
+    targetNominal: number;
+    nominal: number;
+    minimum: number;
+    atLoad: number;
+    atPeak: number;
+    /** L(peak)/L(0): the permeability left at the saturation-check current. */
+    permeabilityAtPeak: number;
+  };
+  flux: {
+    dc: number;
+    acPeak: number;
+    swing: number;
+    peak: number;
+    checkCurrent: number;
+    saturationAtHotSpot: number;
+    saturationMargin: number;
+    requiredMargin: number;
+  };
+  winding: {
+    turnsPerLayer: number;
+    layers: number;
+    buildHeight: number;
+    buildAvailable: number;
+    copperFill: number;
+    meanTurnLength: number;
+    wireLength: number;
+  };
+  copper: {
+    resistance20: number;
+    resistanceHot: number;
+    /** Σ Fr·I_n²/2 over Σ I_n²/2: the ripple's Rac/Rdc. */
+    acFactor: number;
+    skinDepth: number;
+    penetrationRatio: number;
+    dcLoss: number;
+    acLoss: number;
+  };
+  coreLoss: {
+    steinmetzDensity: number;
+    igseDensity: number;
+    temperatureFactor: number;
+    /** iGSE at the operating temperature (W). */
+    loss: number;
+  };
+  totalLoss: number;
+  thermal: {
+    riseBySurface: number;
+    riseByVolume: number;
+    rise: number;
+    surfaceTemperature: number;
+    hotSpot: number;
+    hotSpotAllowance: number;
+    passes: number;
+  };
+}
+
+export function assembleResult(
+  ctx: SpecContext,
+  core: CoreShape,
+  material: CoreMaterial,
+  mag: MagneticDesign,
+  wireCtx: WireContext,
+  f: CandidateFigures,
+): EvaluationResult {
+  const { op, limits } = ctx;
+  const wire = wireCtx.wire;
+  return {
+    feasible: f.failures === 0,
+    issues: describeIssues({ ctx, core, material, mag, figures: f }),
+    operatingPoint: op,
+    core: {
+      id: core.id,
+      family: core.family,
+      gapKind: core.gapKind,
+      ae: core.ae,
+      le: core.le,
+      ve: core.ve,
+      windowArea: core.windowArea,
+      areaProductAvailable: availableAreaProduct(core),
+      areaProductRequired: requiredAreaProduct(
+        op.inductanceNominal,
+        op.saturationCheckCurrent,
+        op.rmsCurrent,
+        limits.bMax,
+        limits.currentDensity,
+        limits.windowUtilisation,
+      ),
+      geometryConstant: availableGeometryConstant(core),
+    },
+    material: { id: material.id, name: material.name, family: material.family },
+    wire: {
+      id: wire.id,
+      kind: wire.kind,
+      strandDiameter: wire.strandDiameter,
+      strands: wire.strands,
+      copperArea: wireCtx.copperArea,
+      currentDensity: op.rmsCurrent / wireCtx.copperArea,
+    },
+    turns: mag.turns,
+    gap: {
+      total: mag.totalGap,
+      spacer: mag.spacer,
+      fringingFactor: mag.fringingFactor,
+      relativeToCore: mag.totalGap / Math.sqrt(core.ae),
+    },
+    inductanceFactor: { withoutFringing: mag.inductanceFactorWithoutFringing, withFringing: mag.inductanceFactor },
+    inductance: {
+      required: op.inductanceMin,
+      targetNominal: op.inductanceNominal,
+      nominal: mag.inductanceZeroBias,
+      minimum: mag.inductanceAtPeak * (1 - limits.inductanceTolerance),
+      atLoad: mag.inductanceAtLoad,
+      atPeak: mag.inductanceAtPeak,
+      permeabilityAtPeak: mag.permeabilityAtPeak,
+    },
+    flux: {
+      dc: f.fluxDc,
+      acPeak: f.fluxSwing / 2,
+      swing: f.fluxSwing,
+      peak: f.fluxPeak,
+      checkCurrent: op.saturationCheckCurrent,
+      saturationAtHotSpot: f.saturationFluxHot,
+      saturationMargin: f.saturationMargin,
+      requiredMargin: limits.saturationMargin,
+    },
+    winding: {
+      turnsPerLayer: f.turnsPerLayer,
+      layers: f.layers,
+      buildHeight: f.buildHeight,
+      buildAvailable: core.bobbinHeight,
+      copperFill: f.copperFill,
+      meanTurnLength: f.meanTurnLength,
+      wireLength: mag.turns * f.meanTurnLength,
+    },
+    copper: {
+      resistance20: f.resistance20,
+      resistanceHot: f.resistanceHot,
+      acFactor: f.acFactor,
+      skinDepth: ctx.skinDepth,
+      penetrationRatio: wireCtx.firstHarmonicDelta,
+      dcLoss: f.copperLossDc,
+      acLoss: f.copperLossAc,
+    },
+    coreLoss: {
+      steinmetzDensity: f.coreLossDensitySteinmetz * f.temperatureFactor,
+      igseDensity: f.coreLossDensityIgse * f.temperatureFactor,
+      temperatureFactor: f.temperatureFactor,
+      loss: f.coreLoss,
+    },
+    totalLoss: f.totalLoss,
+    thermal: {
+      riseBySurface: f.riseBySurface,
+      riseByVolume: f.riseByVolume,
+      rise: f.rise,
+      surfaceTemperature: limits.ambient + f.rise,
+      hotSpot: f.hotSpot,
+      hotSpotAllowance: HOT_SPOT_ALLOWANCE,
+      passes: f.thermalPasses,
+    },
+  };
+}
+
+function checkExplicitInputs(input: EvaluateInput): void {
+  if (input.turns !== 'auto' && !(Number.isInteger(input.turns) && input.turns >= 1)) {
+    throw new EngineInputError('turns', `Turns must be a whole number of at least 1, got ${input.turns}.`);
+  }
+  if (input.gap !== 'auto' && !(input.gap >= 0 && Number.isFinite(input.gap))) {
+    throw new EngineInputError('gap', `Gap must be zero or positive (m), got ${input.gap}.`);
+  }
+  if (input.core.gapKind === 'air-gap' && input.material.family === 'powder') {
+    throw new EngineInputError('materialId', `${input.material.name} is a distributed-gap material; ${input.core.id} needs a gapped material.`);
+  }
+}
+
+/** One fully explicit design → every figure, feasibility and plain-word issues. */
+export function evaluateDesign(input: EvaluateInput): EvaluationResult {
+  checkExplicitInputs(input);
+  const ctx = prepareSpec(input.spec, input.limits);
+  const mag = designMagnetics(input.core, input.material, ctx, input.turns, input.gap);
+  const wireCtx = prepareWire(input.wire, ctx);
+  const figures = new CandidateFigures();
+  evaluateCandidate(ctx, prepareCore(input.core), prepareMaterial(input.material, ctx), mag, wireCtx, figures);
+  return assembleResult(ctx, input.core, input.material, mag, wireCtx, figures);
+}
+
+export interface LossAtFrequency {
+  frequency: number;
+  copperDc: number;
+  copperAc: number;
+  core: number;
+  total: number;
+  rise: number;
+}
+
+/**
+ * The same built part (turns, gap, wire and the inductance it achieved) run at other switching frequencies, for a
+ * loss-versus-frequency chart. Frequencies where the converter would leave CCM are skipped.
+ */
+export function lossVersusFrequency(input: EvaluateInput, frequencies: readonly number[]): LossAtFrequency[] {
+  const base = evaluateDesign(input);
+  const { rippleRatio: _r, rippleCurrent: _c, inductance: _l, ...rest } = input.spec;
+  const points: LossAtFrequency[] = [];
+  for (const frequency of frequencies) {
+    try {
+      const result = evaluateDesign({
+        ...input,
+        spec: { ...rest, frequency, inductance: base.inductance.minimum },
+        turns: base.turns,
+        gap: input.core.gapKind === 'distributed' ? 'auto' : base.gap.total,
+      });
+      points.push({
+        frequency,
+        copperDc: result.copper.dcLoss,
+        copperAc: result.copper.acLoss,
+        core: result.coreLoss.loss,
+        total: result.totalLoss,
+        rise: result.thermal.rise,
+      });
+    } catch (error) {
+      if (!(error instanceof EngineInputError)) throw error;
+    }
+  }
+  return points;
+}

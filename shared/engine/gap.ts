@@ -1,0 +1,103 @@
+import { FRINGING_VALIDITY_LIMIT, MU0 } from './constants';
+
+/** Turns from the flux limit: N = ceil(L·Ipk/(Bmax·Ae)). */
+export function turnsForFluxLimit(inductance: number, peakCurrent: number, bMax: number, area: number): number {
+  // The small allowance keeps an exact integer from rounding up through floating-point noise.
+  return Math.max(1, Math.ceil((inductance * peakCurrent) / (bMax * area) - 1e-9));
+}
+
+/** Total gap without fringing: lg = μ0·N²·Ae/L − le/μr (negative: the core cannot reach L with N turns). */
+export function gapWithoutFringing(turns: number, inductance: number, area: number, pathLength: number, permeability: number): number {
+  return (MU0 * turns * turns * area) / inductance - pathLength / permeability;
+}
+
+/** McLyman's fringing factor F = 1 + (lg/√Ae)·ln(2G/lg), never below 1. */
+export function fringingFactor(gap: number, area: number, windowHeight: number): number {
+  if (gap <= 0) return 1;
+  return Math.max(1, 1 + (gap / Math.sqrt(area)) * Math.log((2 * windowHeight) / gap));
+}
+
+/** L = μ0·N²·Ae·F/(lg + le/μr). */
+export function gappedInductance(
+  turns: number,
+  gap: number,
+  area: number,
+  pathLength: number,
+  permeability: number,
+  windowHeight: number,
+  withFringing = true,
+): number {
+  const f = withFringing ? fringingFactor(gap, area, windowHeight) : 1;
+  return (MU0 * turns * turns * area * f) / (Math.max(gap, 0) + pathLength / permeability);
+}
+
+/** AL = μ0·Ae·F/(lg + le/μr) (H/turn²). */
+export function gappedInductanceFactor(
+  gap: number,
+  area: number,
+  pathLength: number,
+  permeability: number,
+  windowHeight: number,
+  withFringing: boolean,
+): number {
+  return gappedInductance(1, gap, area, pathLength, permeability, windowHeight, withFringing);
+}
+
+/** Spacer thickness giving total gap lg when the flux crosses the centre and outer legs in series. */
+export function spacerThickness(totalGap: number, centreToOuterLegAreaRatio = 1): number {
+  return totalGap / (1 + centreToOuterLegAreaRatio);
+}
+
+export interface GapGeometry {
+  area: number;
+  pathLength: number;
+  windowHeight: number;
+  permeability: number;
+}
+
+const GAP_TOLERANCE = 1e-9;
+const MAX_FIXED_POINT_STEPS = 100;
+
+/**
+ * Keep N and widen the gap until L is met with fringing: lg ← μ0·N²·Ae·F(lg)/L − le/μr. Falls back to
+ * bisection if the fixed point converges slowly (large gaps, where the map's slope approaches 1).
+ */
+export function gapWithFringing(turns: number, inductance: number, g: GapGeometry): number {
+  const start = gapWithoutFringing(turns, inductance, g.area, g.pathLength, g.permeability);
+  if (start <= 0) return start;
+  const numerator = (MU0 * turns * turns * g.area) / inductance;
+  const reluctanceLength = g.pathLength / g.permeability;
+  let gap = start;
+  for (let step = 0; step < MAX_FIXED_POINT_STEPS; step++) {
+    const next = numerator * fringingFactor(gap, g.area, g.windowHeight) - reluctanceLength;
+    if (Math.abs(next - gap) <= GAP_TOLERANCE * next) return next;
+    gap = next;
+  }
+  // L(gap) falls as the gap widens; bracket and bisect.
+  let low = start;
+  let high = Math.max(gap, start) * 2;
+  const excess = (x: number) => gappedInductance(turns, x, g.area, g.pathLength, g.permeability, g.windowHeight) - inductance;
+  while (excess(high) > 0 && high < 1) high *= 2;
+  for (let i = 0; i < 200 && high - low > GAP_TOLERANCE * high; i++) {
+    const mid = (low + high) / 2;
+    if (excess(mid) > 0) low = mid;
+    else high = mid;
+  }
+  return (low + high) / 2;
+}
+
+/** Turns for a given gap with fringing: N = sqrt(L·(lg + le/μr)/(μ0·Ae·F)), rounded up. */
+export function turnsForGap(inductance: number, gap: number, g: GapGeometry): number {
+  const f = fringingFactor(gap, g.area, g.windowHeight);
+  const exact = Math.sqrt((inductance * (Math.max(gap, 0) + g.pathLength / g.permeability)) / (MU0 * g.area * f));
+  return Math.max(1, Math.ceil(exact - 1e-9));
+}
+
+/** Smallest N for which an ungapped core reaches L (below it the required gap is negative). */
+export function minimumTurnsUngapped(inductance: number, g: GapGeometry): number {
+  return Math.max(1, Math.ceil(Math.sqrt((inductance * g.pathLength) / (MU0 * g.permeability * g.area)) - 1e-9));
+}
+
+export function fringingOutOfRange(gap: number, area: number): boolean {
+  return gap / Math.sqrt(area) > FRINGING_VALIDITY_LIMIT;
+}

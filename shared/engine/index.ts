@@ -1,0 +1,25 @@
+export const ENGINE_VERSION = '1.0.0';
+
+export * from './area-product';
+export * from './constants';
+export * from './copper';
+export * from './copper-loss';
+export * from './core-loss';
+export * from './dowell';
+export * from './errors';
+export * from './evaluate';
+export * from './gamma';
+export * from './gap';
+export * from './harmonics';
+export * from './inputs';
+export * from './issues';
+export * from './kernel';
+export * from './operating-point';
+export * from './powder';
+export * from './saturation';
+export * from './search';
+export * from './skin-depth';
+export * from './thermal';
+export * from './types';
+export * from './winding';
+export * from './wire-choice';

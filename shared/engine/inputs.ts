@@ -1,0 +1,79 @@
+// Inputs every engine entry point shares. SI units; temperatures in °C.
+
+export type Rectifier = 'ideal' | 'diode' | 'synchronous';
+
+/** A buck converter in continuous conduction. Give exactly one of rippleRatio, rippleCurrent or inductance. */
+export interface ConverterSpec {
+  vinMin: number;
+  vinNom?: number;
+  vinMax: number;
+  vout: number;
+  ioutMax: number;
+  ioutMin?: number;
+  frequency: number;
+  /** Peak-to-peak ripple over full-load current, at Vin max. */
+  rippleRatio?: number;
+  /** Peak-to-peak ripple current (A), at Vin max. */
+  rippleCurrent?: number;
+  /** Required (minimum) inductance (H). */
+  inductance?: number;
+  rectifier: Rectifier;
+  /** Diode forward drop (V), non-synchronous rectifier. */
+  diodeDrop?: number;
+  /** High-side switch drop (V), non-synchronous rectifier. */
+  switchDrop?: number;
+  highSideResistance?: number;
+  lowSideResistance?: number;
+  inductorResistance?: number;
+  /** Controller current limit (A); the saturation check uses the larger of this and the ripple peak. */
+  currentLimit?: number;
+}
+
+export type RankBy = 'loss' | 'volume' | 'temperature';
+
+export interface DesignLimits {
+  ambient: number;
+  maxRise: number;
+  lossBudget?: number;
+  inductanceTolerance: number;
+  bMax: number;
+  saturationMargin: number;
+  currentDensity: number;
+  windowUtilisation: number;
+  insulationClass: number;
+  maxStrands: number;
+  /** Smallest allowed L(Ipk)/L0 of a powder core. */
+  minPermeabilityAtPeak: number;
+  allowedFamilies?: readonly string[];
+  allowedMaterials?: readonly string[];
+}
+
+export const DEFAULT_LIMITS: DesignLimits = {
+  ambient: 40,
+  maxRise: 50,
+  inductanceTolerance: 0.1,
+  bMax: 0.3,
+  saturationMargin: 0.2,
+  currentDensity: 4e6,
+  windowUtilisation: 0.4,
+  insulationClass: 130,
+  maxStrands: 8,
+  minPermeabilityAtPeak: 0.5,
+};
+
+export function resolveLimits(limits: Partial<DesignLimits> | undefined): DesignLimits {
+  const resolved: DesignLimits = { ...DEFAULT_LIMITS };
+  if (!limits) return resolved;
+  for (const [key, value] of Object.entries(limits)) {
+    if (value !== undefined) (resolved as unknown as Record<string, unknown>)[key] = value;
+  }
+  return resolved;
+}
+
+export type IssueSeverity = 'error' | 'warning';
+
+export interface EngineIssue {
+  code: string;
+  severity: IssueSeverity;
+  message: string;
+}

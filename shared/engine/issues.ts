@@ -1,0 +1,111 @@
+// Plain-word issue texts, built only for candidates that are shown to someone.
+import { HOT_SPOT_ALLOWANCE } from './constants';
+import { FAILURE, WARNING, type CandidateFigures, type MagneticDesign, type SpecContext } from './kernel';
+import type { EngineIssue } from './inputs';
+import type { CoreMaterial, CoreShape } from './types';
+
+const fmt = (value: number, digits = 2) => (Number.isFinite(value) ? value.toFixed(digits) : '∞');
+const mm = (metres: number) => fmt(metres * 1e3, 2);
+const uH = (henry: number) => fmt(henry * 1e6, 2);
+
+export interface IssueSubject {
+  ctx: SpecContext;
+  core: CoreShape;
+  material: CoreMaterial;
+  mag: MagneticDesign;
+  figures: CandidateFigures;
+}
+
+export function describeIssues({ ctx, core, material, mag, figures: f }: IssueSubject): EngineIssue[] {
+  const { limits, op } = ctx;
+  const issues: EngineIssue[] = [];
+  const error = (code: string, message: string) => issues.push({ code, severity: 'error', message });
+  const warning = (code: string, message: string) => issues.push({ code, severity: 'warning', message });
+  const failed = (bit: number) => (f.failures & bit) !== 0;
+  const warned = (bit: number) => (f.warnings & bit) !== 0;
+
+  if (failed(FAILURE.powderLimit)) {
+    error(
+      'powder-turns',
+      `No turn count up to the window limit reaches ${uH(op.inductanceNominal)} µH at ${fmt(op.saturationCheckCurrent)} A: ` +
+        `the best is ${uH(mag.inductanceAtPeak)} µH with ${mag.turns} turns (more turns push the core deeper into roll-off).`,
+    );
+  }
+  if (failed(FAILURE.negativeGap)) {
+    error(
+      'negative-gap',
+      `${mag.turns} turns on the ungapped core give only ${uH(mag.inductanceZeroBias)} µH, below the ${uH(op.inductanceNominal)} µH target: raise the turns.`,
+    );
+  }
+  if (failed(FAILURE.inductanceShort)) {
+    error(
+      'inductance-short',
+      `Inductance ${uH(mag.inductanceAtPeak)} µH nominal, ${uH(mag.inductanceAtPeak * (1 - limits.inductanceTolerance))} µH at −${fmt(limits.inductanceTolerance * 100, 0)} % tolerance, is below the required ${uH(op.inductanceMin)} µH.`,
+    );
+  }
+  if (failed(FAILURE.saturation)) {
+    const allowed = 1 - limits.saturationMargin;
+    error(
+      'saturation',
+      `Peak flux ${fmt(f.fluxPeak)} T at ${fmt(f.hotSpot, 0)} °C exceeds ${fmt(allowed * 100, 0)} % of Bsat (${fmt(allowed * f.saturationFluxHot)} T of ${fmt(f.saturationFluxHot)} T).`,
+    );
+  }
+  if (failed(FAILURE.permeabilityDrop)) {
+    error(
+      'permeability-drop',
+      `Permeability falls to ${fmt(mag.permeabilityAtPeak * 100, 0)} % of its initial value at ${fmt(op.saturationCheckCurrent)} A; at least ${fmt(limits.minPermeabilityAtPeak * 100, 0)} % is required.`,
+    );
+  }
+  if (failed(FAILURE.build)) {
+    error(
+      'build',
+      Number.isFinite(f.buildHeight)
+        ? `Winding needs ${mm(f.buildHeight)} mm build height (${f.layers} layers), ${core.ring ? 'the ring' : 'the bobbin'} allows ${mm(core.bobbinHeight)} mm.`
+        : `The wire is too thick to lay even one turn per layer on ${core.id}.`,
+    );
+  }
+  if (failed(FAILURE.fill)) {
+    error('fill', `Copper fill ${fmt(f.copperFill)} of the window exceeds the utilisation limit ${fmt(limits.windowUtilisation)}.`);
+  }
+  if (failed(FAILURE.temperatureRise)) {
+    error('temperature-rise', `Temperature rise ${fmt(f.rise, 1)} K exceeds the ${fmt(limits.maxRise, 0)} K limit (total loss ${fmt(f.totalLoss)} W).`);
+  }
+  if (failed(FAILURE.insulation)) {
+    error(
+      'insulation',
+      `Hot spot ${fmt(f.hotSpot, 0)} °C (surface + ${HOT_SPOT_ALLOWANCE} K) exceeds the insulation class ${fmt(limits.insulationClass, 0)} °C.`,
+    );
+  }
+  if (failed(FAILURE.materialTemperature)) {
+    error('material-temperature', `Hot spot ${fmt(f.hotSpot, 0)} °C exceeds the ${material.name} limit of ${fmt(material.maxTemperature ?? 0, 0)} °C.`);
+  }
+  if (failed(FAILURE.lossBudget)) {
+    error('loss-budget', `Total loss ${fmt(f.totalLoss)} W exceeds the budget of ${fmt(limits.lossBudget ?? 0)} W.`);
+  }
+  if (warned(WARNING.fringingRange)) {
+    warning(
+      'fringing-range',
+      `Gap ${mm(mag.totalGap)} mm is ${fmt(mag.totalGap / Math.sqrt(core.ae))}·√Ae: the fringing formula is only trusted below 0.3·√Ae.`,
+    );
+  }
+  if (warned(WARNING.fluxAboveLimit)) {
+    warning('flux-limit', `Peak flux ${fmt(f.fluxPeak)} T is above the design limit of ${fmt(limits.bMax)} T.`);
+  }
+  if (warned(WARNING.frequencyFit)) {
+    warning(
+      'loss-fit-frequency',
+      `${fmt(ctx.spec.frequency / 1e3, 0)} kHz is outside the ${fmt(material.fitFrequencyMin / 1e3, 0)}–${fmt(material.fitFrequencyMax / 1e3, 0)} kHz range the ${material.name} loss coefficients were fitted on.`,
+    );
+  }
+  if (warned(WARNING.fluxFit)) {
+    warning(
+      'loss-fit-flux',
+      `AC flux ${fmt((f.fluxSwing / 2) * 1e3, 1)} mT peak is outside the ${fmt(material.fitFluxMin * 1e3, 0)}–${fmt(material.fitFluxMax * 1e3, 0)} mT fitted range of ${material.name}.`,
+    );
+  }
+  if (warned(WARNING.thermalNotConverged)) {
+    warning('thermal-iteration', 'The loss–temperature iteration did not settle within 6 passes; the temperature is approximate.');
+  }
+  issues.push(...op.warnings);
+  return issues;
+}
