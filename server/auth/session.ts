@@ -47,7 +47,8 @@ export function absoluteLifetime(config: Config): RequestHandler {
   return (req, _res, next) => {
     const started = req.session?.signedInAt;
     if (started && Date.now() - started > config.sessionAbsoluteMs) {
-      req.session.destroy((err) => next(err));
+      // Regenerate rather than destroy: later middleware still expects a session object.
+      req.session.regenerate((err) => next(err));
       return;
     }
     next();

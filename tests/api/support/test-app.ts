@@ -1,0 +1,65 @@
+import { sql } from 'drizzle-orm';
+import type { Express } from 'express';
+import pg from 'pg';
+import { pino } from 'pino';
+import { createApp } from '../../../server/app.ts';
+import { loadConfig, type Config } from '../../../server/config.ts';
+import { createDb, type Db } from '../../../server/db/client.ts';
+import { applyMigrations } from '../../../server/db/migrate.ts';
+import { seedDemoOnce } from '../../../server/seed/seed-demo.ts';
+
+export interface TestApp {
+  app: Express;
+  db: Db;
+  pool: pg.Pool;
+  config: Config;
+  close: () => Promise<void>;
+}
+
+export function testDatabaseUrl(): string {
+  const url = process.env['TEST_DATABASE_URL'];
+  if (!url) throw new Error('TEST_DATABASE_URL is not set: run the API tests through "npm test" (tests/run.ts).');
+  return url;
+}
+
+export function testConfig(overrides: Record<string, string> = {}): Config {
+  return loadConfig({
+    NODE_ENV: 'test',
+    DATABASE_URL: testDatabaseUrl(),
+    SESSION_SECRET: 'test-session-secret-that-is-long-enough-0123456789',
+    LOG_LEVEL: 'silent',
+    STATIC_DIR: 'dist/gapwright/browser',
+    ...overrides,
+  });
+}
+
+/** Every table emptied and the demo scenario seeded again: each test file starts from the same state. */
+export async function resetDatabase(db: Db, config: Config): Promise<void> {
+  await applyMigrations(db);
+  await db.execute(sql`truncate table audit_log, session, app_settings, users restart identity cascade`);
+  await seedDemoOnce(db, config.bcryptCost);
+}
+
+export async function createTestApp(overrides: Record<string, string> = {}): Promise<TestApp> {
+  const config = testConfig(overrides);
+  const pool = new pg.Pool({ connectionString: config.databaseUrl, max: 5, connectionTimeoutMillis: 3000 });
+  pool.on('error', () => {});
+  const db = createDb(pool);
+  await resetDatabase(db, config);
+  const { app, close } = createApp({ config, pool, db, logger: pino({ level: 'silent' }) });
+  return {
+    app,
+    db,
+    pool,
+    config,
+    close: async () => {
+      await close();
+      await pool.end();
+    },
+  };
+}
+
+export async function tableCount(db: Db, table: string): Promise<number> {
+  const result = await db.execute(sql`select count(*)::int as n from ${sql.identifier(table)}`);
+  return (result.rows[0] as { n: number }).n;
+}

@@ -1,0 +1,147 @@
+import { execFileSync, spawn } from 'node:child_process';
+import { existsSync, mkdirSync, readFileSync, rmSync } from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { ensureClientBuild } from '../server/ops/client-build.ts';
+import { dropDatabase, ensureCluster, ensureDatabase } from '../server/ops/postgres.ts';
+
+// `npm test`: every suite, each with what it needs (a throwaway database per run, Debian's
+// Chromium, a fresh web build), ending with one "passed, failed" line.
+const repoRoot = fileURLToPath(new URL('..', import.meta.url));
+const resultsDir = path.join(repoRoot, 'test-results');
+const SUITES = ['unit', 'component', 'api', 'browser'] as const;
+type Suite = (typeof SUITES)[number];
+
+const requested = process.argv.slice(2).filter((a): a is Suite => (SUITES as readonly string[]).includes(a));
+const suites: Suite[] = requested.length ? requested : [...SUITES];
+
+interface Counts {
+  passed: number;
+  failed: number;
+  skipped: number;
+}
+const totals: Record<string, Counts> = {};
+
+function run(cmd: string, args: string[], env: NodeJS.ProcessEnv = {}): Promise<{ code: number; output: string }> {
+  return new Promise((resolve) => {
+    const child = spawn(cmd, args, { cwd: repoRoot, env: { ...process.env, ...env }, stdio: ['ignore', 'pipe', 'pipe'] });
+    let output = '';
+    const forward = (chunk: Buffer, to: NodeJS.WriteStream) => {
+      output += chunk.toString();
+      to.write(chunk);
+    };
+    child.stdout.on('data', (c: Buffer) => forward(c, process.stdout));
+    child.stderr.on('data', (c: Buffer) => forward(c, process.stderr));
+    child.on('close', (code) => resolve({ code: code ?? 1, output }));
+  });
+}
+
+function countsFromVitestJson(file: string): Counts | undefined {
+  if (!existsSync(file)) return undefined;
+  const report = JSON.parse(readFileSync(file, 'utf8')) as {
+    numPassedTests: number;
+    numFailedTests: number;
+    numPendingTests: number;
+    numTodoTests: number;
+    testResults?: { status: string; assertionResults: unknown[] }[];
+  };
+  // A file that fails to load has no assertions; count it as a failure so it cannot hide.
+  const brokenFiles = (report.testResults ?? []).filter((f) => f.status === 'failed' && f.assertionResults.length === 0).length;
+  return {
+    passed: report.numPassedTests,
+    failed: report.numFailedTests + brokenFiles,
+    skipped: report.numPendingTests + report.numTodoTests,
+  };
+}
+
+async function vitestProject(project: string, env: NodeJS.ProcessEnv = {}): Promise<void> {
+  const jsonFile = path.join(resultsDir, `${project}.json`);
+  rmSync(jsonFile, { force: true });
+  const { code } = await run(
+    process.execPath,
+    [path.join(repoRoot, 'node_modules/vitest/vitest.mjs'), 'run', '--project', project, '--reporter=default', '--reporter=json', `--outputFile.json=${jsonFile}`],
+    env,
+  );
+  const counts = countsFromVitestJson(jsonFile) ?? { passed: 0, failed: 1, skipped: 0 };
+  if (code !== 0 && counts.failed === 0) counts.failed = 1; // the runner itself failed
+  totals[project] = counts;
+}
+
+async function componentTests(): Promise<void> {
+  const { code, output } = await run(process.execPath, [path.join(repoRoot, 'node_modules/@angular/cli/bin/ng.js'), 'test', '--watch=false'], {
+    NG_CLI_ANALYTICS: 'false',
+  });
+  // Strip colour codes, then read vitest's own summary line ("Tests  12 passed (12)").
+  const plain = output.replace(/\u001b\[[0-9;]*m/g, '');
+  const line = plain.split('\n').find((l) => /^\s*Tests\s+/.test(l)) ?? '';
+  const passed = Number(/(\d+) passed/.exec(line)?.[1] ?? 0);
+  const failed = Number(/(\d+) failed/.exec(line)?.[1] ?? 0) || (code !== 0 ? 1 : 0);
+  totals['component'] = { passed, failed, skipped: Number(/(\d+) skipped/.exec(line)?.[1] ?? 0) };
+}
+
+function ensureChromium(): void {
+  if (existsSync('/usr/bin/chromium')) return;
+  if (process.getuid?.() !== 0) throw new Error('Chromium is missing: install it with "sudo apt-get install -y chromium".');
+  process.stdout.write('[browser] installing Debian\'s chromium package (about a minute)…\n');
+  const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
+  execFileSync('apt-get', ['update', '-qq'], { stdio: 'inherit', env });
+  execFileSync('apt-get', ['install', '-y', '-qq', 'chromium'], { stdio: 'inherit', env });
+}
+
+/** A fresh database for one suite, dropped afterwards. DATABASE_URL, if set, names the server to use. */
+function throwawayDatabase(suite: string): { url: string; drop: () => void } {
+  const name = `gapwright_test_${suite}_${Date.now().toString(36)}_${process.pid}`;
+  const given = process.env['DATABASE_URL'];
+  if (given) {
+    const admin = new URL(given);
+    const url = new URL(given);
+    url.pathname = `/${name}`;
+    const psql = (sql: string) => execFileSync('psql', [admin.toString(), '-X', '-q', '-c', sql], { stdio: 'inherit' });
+    psql(`create database ${name}`);
+    return { url: url.toString(), drop: () => psql(`drop database if exists ${name} with (force)`) };
+  }
+  const cluster = ensureCluster();
+  ensureDatabase(name);
+  return { url: cluster.urlFor(name), drop: () => dropDatabase(name) };
+}
+
+mkdirSync(resultsDir, { recursive: true });
+const started = Date.now();
+const cleanups: (() => void)[] = [];
+try {
+  for (const suite of suites) {
+    process.stdout.write(`\n=== ${suite} tests ===\n`);
+    if (suite === 'unit') await vitestProject('unit');
+    if (suite === 'component') await componentTests();
+    if (suite === 'api' || suite === 'browser') {
+      if (suite === 'browser') {
+        ensureChromium();
+        ensureClientBuild(repoRoot, 'dist/gapwright/browser/index.html');
+      }
+      const db = throwawayDatabase(suite);
+      cleanups.push(db.drop);
+      await vitestProject(suite, { TEST_DATABASE_URL: db.url, TEST_RESULTS_DIR: resultsDir });
+    }
+  }
+} finally {
+  for (const drop of cleanups) {
+    try {
+      drop();
+    } catch (err) {
+      process.stderr.write(`could not drop a test database: ${String(err)}\n`);
+    }
+  }
+}
+
+const sum = Object.values(totals).reduce((a, c) => ({ passed: a.passed + c.passed, failed: a.failed + c.failed, skipped: a.skipped + c.skipped }), {
+  passed: 0,
+  failed: 0,
+  skipped: 0,
+});
+process.stdout.write('\n');
+for (const [suite, c] of Object.entries(totals)) {
+  process.stdout.write(`  ${suite.padEnd(10)} ${c.passed} passed, ${c.failed} failed${c.skipped ? `, ${c.skipped} skipped` : ''}\n`);
+}
+process.stdout.write(`  (${((Date.now() - started) / 1000).toFixed(0)} s)\n`);
+process.stdout.write(`Summary: ${sum.passed} passed, ${sum.failed} failed${sum.skipped ? `, ${sum.skipped} skipped` : ''}\n`);
+process.exit(sum.failed > 0 || sum.passed === 0 ? 1 : 0);
