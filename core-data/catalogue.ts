@@ -5,8 +5,6 @@
 import { readFileSync } from 'node:fs';
 import { basename } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { parse } from 'csv-parse/sync';
-import type { z } from 'zod';
 import type { CoreFamily, CoreShape } from '@shared/engine/types';
 import {
   RING_CORE_COLUMNS,
@@ -21,6 +19,9 @@ import {
   ringCoreFromRow,
   shapedCoreFromRow,
 } from '@shared/catalogue/core-rows';
+import { TableError, readCsvRecords, rowError } from './csv-table';
+
+export { TableError } from './csv-table';
 
 /** Table file name → core family it holds. */
 export const CORE_TABLE_FILES: Readonly<Record<string, CoreFamily>> = {
@@ -34,80 +35,30 @@ export const CORE_TABLE_FILES: Readonly<Record<string, CoreFamily>> = {
   'powder-toroid.csv': 'POWDER_TOROID',
 };
 
-export class CoreTableError extends Error {
-  constructor(
-    readonly fileName: string,
-    readonly row: number | undefined,
-    readonly line: number | undefined,
-    readonly column: string | undefined,
-    problem: string,
-  ) {
-    const rowText =
-      row === undefined ? (line === undefined ? undefined : `line ${line}`) : line === undefined ? `row ${row}` : `row ${row} (line ${line})`;
-    const where = [fileName, rowText, column && `column "${column}"`]
-      .filter(Boolean)
-      .join(', ');
-    super(`${where}: ${problem}`);
-    this.name = 'CoreTableError';
-  }
-}
-
-interface ParsedRecord {
-  record: Record<string, string>;
-  info: { lines: number };
-}
-
-function describeIssues(issues: z.core.$ZodIssue[], columnOf: (field: string) => string) {
-  const first = issues[0]!;
-  const column = columnOf(String(first.path[0] ?? ''));
-  const rest = issues.slice(1).map((issue) => `${columnOf(String(issue.path[0] ?? ''))}: ${issue.message}`);
-  return { column, problem: [first.message, ...rest].join('; also ') };
-}
-
 /** Parses and validates one core table. `fileName` selects the family (see CORE_TABLE_FILES). */
 export function parseCoreRows(text: string, fileName: string): CoreShape[] {
   const family = CORE_TABLE_FILES[basename(fileName)];
   if (!family) {
-    throw new CoreTableError(fileName, undefined, undefined, undefined, `unknown core table; expected one of ${Object.keys(CORE_TABLE_FILES).join(', ')}`);
+    throw new TableError(fileName, undefined, undefined, undefined, `unknown core table; expected one of ${Object.keys(CORE_TABLE_FILES).join(', ')}`);
   }
   const isRing = family === 'RING' || family === 'POWDER_TOROID';
-  const expectedColumns: readonly string[] = isRing ? RING_CORE_COLUMNS : SHAPED_CORE_COLUMNS;
+  const records = readCsvRecords(text, fileName, isRing ? RING_CORE_COLUMNS : SHAPED_CORE_COLUMNS);
+  const fieldColumns: Partial<Record<string, string>> = isRing ? RING_CORE_FIELD_COLUMNS : SHAPED_CORE_FIELD_COLUMNS;
+  const derivedColumn = (field: string) => fieldColumns[field] ?? `${field} (derived)`;
 
-  let records: ParsedRecord[];
-  try {
-    records = parse(text, { columns: true, info: true, skip_empty_lines: true, trim: true }) as ParsedRecord[];
-  } catch (error) {
-    const line = (error as { lines?: number }).lines;
-    throw new CoreTableError(fileName, undefined, line, undefined, `not a readable CSV table (${(error as Error).message})`);
-  }
-  const header = text.split(/\r?\n/, 1)[0]!.split(',').map((name) => name.trim());
-  const missing = expectedColumns.filter((name) => !header.includes(name));
-  const unknown = header.filter((name) => !expectedColumns.includes(name));
-  if (missing.length > 0 || unknown.length > 0) {
-    throw new CoreTableError(fileName, undefined, 1, missing[0] ?? unknown[0], missing.length > 0 ? 'column missing from the header' : 'unknown column in the header');
-  }
-
-  return records.map(({ record, info }, index) => {
-    const row = index + 1;
-    const fail = (issues: z.core.$ZodIssue[], columnOf: (field: string) => string): never => {
-      const { column, problem } = describeIssues(issues, columnOf);
-      throw new CoreTableError(fileName, row, info.lines, column, problem);
-    };
-    const fieldColumns: Partial<Record<string, string>> = isRing ? RING_CORE_FIELD_COLUMNS : SHAPED_CORE_FIELD_COLUMNS;
-    const derivedColumn = (field: string) => fieldColumns[field] ?? `${field} (derived)`;
-
+  return records.map((record) => {
     let shape: CoreShape;
     if (isRing) {
-      const parsed = ringCoreRowSchema.safeParse(record);
-      if (!parsed.success) return fail(parsed.error.issues, (column) => column);
+      const parsed = ringCoreRowSchema.safeParse(record.cells);
+      if (!parsed.success) throw rowError(fileName, record, parsed.error.issues);
       shape = ringCoreFromRow(parsed.data, family);
     } else {
-      const parsed = shapedCoreRowSchema.safeParse(record);
-      if (!parsed.success) return fail(parsed.error.issues, (column) => column);
+      const parsed = shapedCoreRowSchema.safeParse(record.cells);
+      if (!parsed.success) throw rowError(fileName, record, parsed.error.issues);
       shape = shapedCoreFromRow(parsed.data, family);
     }
     const validated = coreShapeSchema.safeParse(shape);
-    if (!validated.success) return fail(validated.error.issues, derivedColumn);
+    if (!validated.success) throw rowError(fileName, record, validated.error.issues, derivedColumn);
     return shape;
   });
 }
@@ -121,7 +72,7 @@ export function assertUniqueCoreIds(tables: { fileName: string; cores: CoreShape
     cores.forEach((core, index) => {
       const earlier = seen.get(core.id);
       if (earlier) {
-        throw new CoreTableError(fileName, index + 1, undefined, 'designation', `"${core.id}" is already used in ${earlier}`);
+        throw new TableError(fileName, index + 1, undefined, 'designation', `"${core.id}" is already used in ${earlier}`);
       }
       seen.set(core.id, fileName);
     });
