@@ -1,0 +1,15 @@
+import type { Routes } from '@angular/router';
+
+export default [
+  { path: '', pathMatch: 'full', redirectTo: 'users' },
+  {
+    path: 'users',
+    title: 'Users · Gapwright',
+    loadComponent: () => import('./users/user-list').then((m) => m.UserList),
+  },
+  {
+    path: 'audit',
+    title: 'Audit log · Gapwright',
+    loadComponent: () => import('./audit/audit-log').then((m) => m.AuditLog),
+  },
+] satisfies Routes;

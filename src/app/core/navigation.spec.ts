@@ -1,0 +1,35 @@
+import { describe, expect, it } from 'vitest';
+
+import { NAVIGATION, navigationFor } from './navigation';
+
+const labelsFor = (role: Parameters<typeof navigationFor>[0]) => navigationFor(role).map((item) => item.label);
+
+describe('navigationFor', () => {
+  it('gives an engineer Home but not Users or Audit log', () => {
+    const labels = labelsFor('engineer');
+
+    expect(labels).toContain('Home');
+    expect(labels).not.toContain('Users');
+    expect(labels).not.toContain('Audit log');
+  });
+
+  it('gives an admin Home, Users and Audit log', () => {
+    expect(labelsFor('admin')).toEqual(['Home', 'Users', 'Audit log']);
+  });
+
+  it('gives reviewers and winders only what every role may use', () => {
+    expect(labelsFor('reviewer')).toEqual(['Home']);
+    expect(labelsFor('winder')).toEqual(['Home']);
+  });
+
+  it('gives a signed-out visitor nothing', () => {
+    expect(navigationFor(null)).toEqual([]);
+  });
+
+  it('keeps an item only for the roles it names', () => {
+    const items = [...NAVIGATION, { label: 'Shop queue', icon: 'build', path: '/shop', roles: ['winder'] as const }];
+
+    expect(navigationFor('winder', items).map((item) => item.label)).toEqual(['Home', 'Shop queue']);
+    expect(navigationFor('engineer', items).map((item) => item.label)).toEqual(['Home']);
+  });
+});

@@ -1,0 +1,24 @@
+import { ROLES, type Role } from '@shared/schemas/auth';
+
+export interface NavigationItem {
+  readonly label: string;
+  /** Material Symbols ligature name. */
+  readonly icon: string;
+  readonly path: string;
+  readonly roles: readonly Role[];
+}
+
+/** Every destination in the side navigation; a feature adds its line here. */
+export const NAVIGATION: readonly NavigationItem[] = [
+  { label: 'Home', icon: 'home', path: '/', roles: ROLES },
+  { label: 'Users', icon: 'group', path: '/admin/users', roles: ['admin'] },
+  { label: 'Audit log', icon: 'history', path: '/admin/audit', roles: ['admin'] },
+];
+
+export function navigationFor(
+  role: Role | null,
+  items: readonly NavigationItem[] = NAVIGATION,
+): readonly NavigationItem[] {
+  if (role === null) return [];
+  return items.filter((item) => item.roles.includes(role));
+}

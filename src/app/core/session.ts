@@ -1,0 +1,67 @@
+import { HttpClient } from '@angular/common/http';
+import { Injectable, computed, inject, signal } from '@angular/core';
+import {
+  sessionResponseSchema,
+  userSchema,
+  type SignInRequest,
+  type User,
+} from '@shared/schemas/auth';
+import { firstValueFrom, from, map, switchMap, tap, type Observable } from 'rxjs';
+import * as z from 'zod';
+
+import { errorsShownByCaller } from './error-display';
+
+export const userResponseSchema = z.object({ user: userSchema });
+
+/** Who is signed in, as the server last told us. */
+@Injectable({ providedIn: 'root' })
+export class Session {
+  private readonly http = inject(HttpClient);
+  private readonly currentUser = signal<User | null>(null);
+
+  readonly user = this.currentUser.asReadonly();
+  readonly role = computed(() => this.currentUser()?.role ?? null);
+  readonly signedIn = computed(() => this.currentUser() !== null);
+
+  /** Asks the server for the current session; this also gives the browser its XSRF cookie. */
+  async restore(): Promise<void> {
+    try {
+      const body = await firstValueFrom(this.http.get('/api/auth/session'));
+      this.currentUser.set(sessionResponseSchema.parse(body).user);
+    } catch {
+      // The interceptor has already told the person; the app still starts, signed out.
+      this.currentUser.set(null);
+    }
+  }
+
+  signIn(request: SignInRequest): Observable<User> {
+    return this.http
+      .post('/api/auth/sign-in', request, errorsShownByCaller())
+      .pipe(
+        map((body) => {
+          const { user } = sessionResponseSchema.parse(body);
+          if (!user) throw new Error('Sign-in did not complete. Please try again.');
+          return user;
+        }),
+        tap((user) => this.currentUser.set(user)),
+      );
+  }
+
+  /** Ends the session, then fetches a fresh one so the next sign-in has a valid XSRF token. */
+  signOut(): Observable<void> {
+    return this.http.post<void>('/api/auth/sign-out', null).pipe(
+      tap(() => this.currentUser.set(null)),
+      switchMap(() => from(this.restore())),
+    );
+  }
+
+  /** Takes a fresher copy of the signed-in user, e.g. after saving preferences. */
+  replaceUser(user: User): void {
+    this.currentUser.set(user);
+  }
+
+  /** Forgets the user locally when the server says the session has ended. */
+  clear(): void {
+    this.currentUser.set(null);
+  }
+}
