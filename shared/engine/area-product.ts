@@ -31,7 +31,13 @@ export function requiredGeometryConstant(
 
 /** Available geometry constant Kg = Ae²·Wa/MLT (m⁵). */
 export function availableGeometryConstant(core: CoreShape): number {
-  return (core.ae * core.ae * core.windowArea) / core.mlt;
+  return (core.ae * core.ae * core.windowArea) / nominalMeanTurnLength(core);
+}
+
+/** The core's MLT, or for a ring without one the bare section perimeter (OD − ID) + 2·h. */
+export function nominalMeanTurnLength(core: CoreShape): number {
+  if (core.mlt > 0 || !core.ring) return core.mlt;
+  return core.ring.od - core.ring.id + 2 * core.ring.height;
 }
 
 export interface AreaProductRow {
