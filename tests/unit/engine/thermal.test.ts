@@ -1,0 +1,41 @@
+import { describe, expect, it } from 'vitest';
+import { coreVolumeThermalResistance, solveTemperature, surfaceDissipationRise, temperatureRise } from '@shared/engine/thermal';
+
+describe('surface-dissipation law ΔT = 450·ψ^0.826', () => {
+  it('gives ≈25 °C at 0.03 W/cm² and ≈50 °C at 0.07 W/cm² (McLyman, from memory; anchor points [C] in magnetics.md §9.1)', () => {
+    // At = 1e-4 m² = 1 cm², so ψ = P
+    expect(Math.abs(surfaceDissipationRise(0.03, 1e-4) - 25)).toBeLessThan(0.5);
+    expect(Math.abs(surfaceDissipationRise(0.07, 1e-4) - 50)).toBeLessThan(0.5);
+  });
+
+  it('takes the surface in cm² (a 1 W part with 50 cm² gives 450·0.02^0.826 = 17.9 K [C])', () => {
+    expect(surfaceDissipationRise(1, 50e-4)).toBeCloseTo(450 * 0.02 ** 0.826, 9);
+  });
+});
+
+describe('core-volume thermal resistance Rth = 53·Ve^−0.54', () => {
+  it('matches the Encyclopedia Magnetica table for E25, E32, E42, E55 (Maniktala via Encyclopedia Magnetica [S], magnetics.md §12.2)', () => {
+    const cases: [number, number][] = [
+      [3.02e-6, 29],
+      [6.14e-6, 20],
+      [17.3e-6, 11],
+      [43.7e-6, 7],
+    ];
+    for (const [ve, rth] of cases) expect(Math.abs(coreVolumeThermalResistance(ve) - rth)).toBeLessThan(0.5);
+  });
+});
+
+describe('loss ↔ temperature iteration', () => {
+  it('uses the larger rise of the two laws', () => {
+    const rise = temperatureRise(2, 40e-4, 7.64e-6);
+    expect(rise.design).toBe(Math.max(rise.bySurface, rise.byVolume));
+  });
+
+  it('settles to a self-consistent rise within 0.1 K', () => {
+    const lossAt = (t: number) => 1.2 * (1 + 0.00393 * (t - 20)) + 0.3;
+    const solution = solveTemperature(40, lossAt, 60e-4, 7.64e-6);
+    expect(solution.converged).toBe(true);
+    const again = temperatureRise(lossAt(40 + solution.rise.design), 60e-4, 7.64e-6).design;
+    expect(Math.abs(again - solution.rise.design)).toBeLessThan(0.1);
+  });
+});
