@@ -38,6 +38,8 @@ export interface SearchCandidate {
   rank: number;
   /** On the loss-versus-volume Pareto front of all feasible candidates. */
   pareto: boolean;
+  /** The wire option as evaluated (it may be an n-in-hand variant the catalogue lists only singly). */
+  wire: WireOption;
   result: EvaluationResult;
 }
 
@@ -213,6 +215,7 @@ export function searchCandidates(input: SearchInput): SearchResult {
     return {
       rank: rankOf[i]!,
       pareto: pareto[i] === 1,
+      wire: wireCtxs[wireOf[i]!]!.wire,
       result: assembleResult(ctx, cores[c]!, materials[m]!, pairDesign[pair]!, wireCtxs[wireOf[i]!]!, figures),
     };
   };

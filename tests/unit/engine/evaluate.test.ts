@@ -1,0 +1,122 @@
+import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
+import { evaluateDesign, lossVersusFrequency, type EvaluateInput } from '@shared/engine/evaluate';
+import { EngineInputError } from '@shared/engine/errors';
+import { COPPER_RESISTIVITY_20C } from '@shared/engine/constants';
+import { copperResistivity } from '@shared/engine/copper';
+import { e25Like, etd34Like, ferriteA, powderP, powderRing, roundWire, sectionOneSpec } from './fixtures';
+
+const base: EvaluateInput = {
+  spec: sectionOneSpec,
+  limits: { inductanceTolerance: 0 },
+  core: etd34Like,
+  material: ferriteA,
+  turns: 'auto',
+  gap: 'auto',
+  wire: roundWire(0.8e-3, 3),
+};
+
+describe('evaluateDesign on a gapped ferrite core', () => {
+  const result = evaluateDesign(base);
+
+  it('chooses 11 turns and a gap that meets 26.67 µH with fringing', () => {
+    expect(result.turns).toBe(11);
+    expect(result.inductance.nominal / (8e-5 / 3)).toBeCloseTo(1, 3);
+    // fringing widens the 0.518 mm unfringed gap (magnetics.md §3.3)
+    expect(result.gap.total).toBeGreaterThan(0.5179e-3);
+    expect(result.gap.fringingFactor).toBeGreaterThan(1);
+    expect(result.gap.spacer).toBeCloseTo(result.gap.total / 2, 15);
+  });
+
+  it('computes flux from volt-seconds and L·I/(N·Ae) (magnetics.md §3.1 [C])', () => {
+    // ΔB = (Vin − Vout)·D/(fs·N·Ae) = 24·(1/3)/(1e5·11·97.1e-6) = 74.9 mT
+    expect(result.flux.swing * 1e3).toBeCloseTo(74.9, 1);
+    // Bpk = L·Ipk/(N·Ae) = 26.67e-6·11.5/(11·97.1e-6) = 0.2871 T
+    expect(result.flux.peak).toBeCloseTo(0.2871, 3);
+    expect(result.flux.acPeak).toBeCloseTo(result.flux.swing / 2, 15);
+  });
+
+  it('computes Rdc from ρ20·N·MLT/A and scales it with ρ(T) (IEC 60028 ρ20; α20 from memory)', () => {
+    const area = (3 * Math.PI * 0.8e-3 ** 2) / 4;
+    expect(result.copper.resistance20).toBeCloseTo((COPPER_RESISTIVITY_20C * 11 * 60e-3) / area, 12);
+    const winding = result.thermal.surfaceTemperature;
+    expect(result.copper.resistanceHot / result.copper.resistance20).toBeCloseTo(copperResistivity(winding) / COPPER_RESISTIVITY_20C, 3);
+    expect(result.copper.dcLoss).toBeCloseTo(result.copper.resistanceHot * 100, 9);
+  });
+
+  it('reports the iGSE below Steinmetz at D = 1/3 for α = 1.4 and adds the losses up', () => {
+    expect(result.coreLoss.igseDensity).toBeLessThan(result.coreLoss.steinmetzDensity);
+    expect(result.totalLoss).toBeCloseTo(result.copper.dcLoss + result.copper.acLoss + result.coreLoss.loss, 12);
+    expect(result.thermal.rise).toBe(Math.max(result.thermal.riseBySurface, result.thermal.riseByVolume));
+    expect(result.thermal.hotSpot).toBeCloseTo(40 + result.thermal.rise + 5, 12);
+  });
+
+  it('is feasible with no errors', () => {
+    expect(result.feasible).toBe(true);
+    expect(result.issues.filter((i) => i.severity === 'error')).toEqual([]);
+  });
+});
+
+describe('evaluateDesign issues', () => {
+  it('explains saturation in plain words when turns are too few', () => {
+    const result = evaluateDesign({ ...base, turns: 7 });
+    expect(result.feasible).toBe(false);
+    const saturation = result.issues.find((i) => i.code === 'saturation');
+    expect(saturation?.message).toMatch(/^Peak flux 0\.\d\d T at \d+ °C exceeds 80 % of Bsat \(0\.\d\d T of 0\.\d\d T\)\.$/);
+  });
+
+  it('explains a winding that does not fit the bobbin', () => {
+    const result = evaluateDesign({ ...base, core: e25Like, turns: 60, wire: roundWire(1.0e-3) });
+    const build = result.issues.find((i) => i.code === 'build');
+    expect(build?.message).toMatch(/^Winding needs \d+\.\d\d mm build height \(\d+ layers\), the bobbin allows 4\.20 mm\.$/);
+  });
+
+  it('rejects a fixed turn count whose ungapped inductance is too low', () => {
+    const lowPermeability = { ...ferriteA, permeability: 20 };
+    const result = evaluateDesign({ ...base, material: lowPermeability, turns: 11 });
+    expect(result.issues.map((i) => i.code)).toContain('negative-gap');
+  });
+
+  it('names the field of an impossible input', () => {
+    expect(() => evaluateDesign({ ...base, turns: 0 })).toThrow(EngineInputError);
+    try {
+      evaluateDesign({ ...base, spec: { ...sectionOneSpec, vout: 30 } });
+    } catch (error) {
+      expect((error as EngineInputError).field).toBe('vout');
+    }
+  });
+
+  it('never raises peak flux with more turns (gap re-solved each time)', () => {
+    fc.assert(
+      fc.property(fc.integer({ min: 11, max: 40 }), fc.integer({ min: 1, max: 10 }), (turns, extra) => {
+        const fewer = evaluateDesign({ ...base, turns });
+        const more = evaluateDesign({ ...base, turns: turns + extra });
+        expect(more.flux.peak).toBeLessThanOrEqual(fewer.flux.peak * (1 + 1e-12));
+      }),
+      { numRuns: 40 },
+    );
+  });
+});
+
+describe('evaluateDesign on a powder toroid', () => {
+  const result = evaluateDesign({ ...base, limits: {}, core: powderRing, material: powderP });
+
+  it('meets L_min at the check peak with the smallest N and reports L at zero bias, load and peak', () => {
+    expect(result.inductance.minimum).toBeGreaterThanOrEqual(result.inductance.required);
+    const fewer = evaluateDesign({ ...base, limits: {}, core: powderRing, material: powderP, turns: result.turns - 1 });
+    expect(fewer.inductance.minimum).toBeLessThan(result.inductance.required);
+    expect(result.inductance.nominal).toBeGreaterThan(result.inductance.atLoad);
+    expect(result.inductance.atLoad).toBeGreaterThan(result.inductance.atPeak);
+    expect(result.inductance.permeabilityAtPeak).toBeCloseTo(result.inductance.atPeak / result.inductance.nominal, 12);
+  });
+});
+
+describe('loss versus frequency', () => {
+  it('keeps the built part and shows core loss rising with frequency at fixed ripple current', () => {
+    const points = lossVersusFrequency(base, [50e3, 100e3, 200e3]);
+    expect(points).toHaveLength(3);
+    expect(points[1]!.total).toBeCloseTo(evaluateDesign(base).totalLoss, 6);
+    // lower frequency → more ripple (ΔI ∝ 1/f) and larger flux swing → more core loss
+    expect(points[0]!.core).toBeGreaterThan(points[1]!.core);
+  });
+});
