@@ -1,0 +1,291 @@
+// Request schemas of the four calculation endpoints. SI units throughout (V, A, Hz, H, T, m, A/m², °C).
+// Every number is finite (zod 4 rejects NaN and ±Infinity); messages name the field and the allowed range.
+import { z } from 'zod';
+import { CORE_FAMILIES, MATERIAL_FAMILIES } from '@shared/engine/types';
+
+function rangeNumber(field: string, min: number, max: number, unit: string, description: string) {
+  const range = `${field} must be between ${min} and ${max}${unit ? ` ${unit}` : ''}`;
+  return z
+    .number({ error: `${field} must be a finite number` })
+    .min(min, { error: range })
+    .max(max, { error: range })
+    .meta({ description: `${description} (${min}…${max}${unit ? ` ${unit}` : ''})` });
+}
+
+function positiveNumber(field: string, max: number, unit: string, description: string) {
+  return z
+    .number({ error: `${field} must be a finite number` })
+    .positive({ error: `${field} must be greater than 0` })
+    .max(max, { error: `${field} must be at most ${max} ${unit}` })
+    .meta({ description: `${description} (> 0, at most ${max} ${unit})` });
+}
+
+function nonNegativeNumber(field: string, max: number, unit: string, description: string) {
+  return rangeNumber(field, 0, max, unit, description);
+}
+
+export const rectifierSchema = z
+  .enum(['ideal', 'diode', 'synchronous'])
+  .meta({ description: 'Freewheeling element: ideal switches, a diode, or a synchronous switch' });
+
+const converterSpecShape = {
+  vinMin: rangeNumber('vinMin', 0.5, 1000, 'V', 'Minimum input voltage'),
+  vinNom: rangeNumber('vinNom', 0.5, 1000, 'V', 'Nominal input voltage').optional(),
+  vinMax: rangeNumber('vinMax', 0.5, 1000, 'V', 'Maximum input voltage'),
+  vout: rangeNumber('vout', 0.1, 1000, 'V', 'Output voltage'),
+  ioutMax: rangeNumber('ioutMax', 0.001, 500, 'A', 'Full-load output current'),
+  ioutMin: nonNegativeNumber('ioutMin', 500, 'A', 'Minimum load current, for the DCM warning').optional(),
+  frequency: rangeNumber('frequency', 1e3, 10e6, 'Hz', 'Switching frequency'),
+  rippleRatio: rangeNumber('rippleRatio', 0.01, 2, '', 'Peak-to-peak ripple over full-load current at Vin max').optional(),
+  rippleCurrent: positiveNumber('rippleCurrent', 1000, 'A', 'Peak-to-peak ripple current at Vin max').optional(),
+  inductance: rangeNumber('inductance', 1e-9, 1, 'H', 'Required minimum inductance').optional(),
+  rectifier: rectifierSchema.default('ideal'),
+  diodeDrop: nonNegativeNumber('diodeDrop', 5, 'V', 'Diode forward drop (diode rectifier)').optional(),
+  switchDrop: nonNegativeNumber('switchDrop', 10, 'V', 'High-side switch drop (diode rectifier)').optional(),
+  highSideResistance: nonNegativeNumber('highSideResistance', 10, 'Ω', 'High-side on-resistance (synchronous)').optional(),
+  lowSideResistance: nonNegativeNumber('lowSideResistance', 10, 'Ω', 'Low-side on-resistance (synchronous)').optional(),
+  inductorResistance: nonNegativeNumber('inductorResistance', 10, 'Ω', 'Inductor resistance used in the duty cycle').optional(),
+  currentLimit: positiveNumber('currentLimit', 2000, 'A', 'Controller current limit; saturation is checked there').optional(),
+};
+
+interface SpecFields {
+  vinMin: number;
+  vinMax: number;
+  vinNom?: number | undefined;
+  vout: number;
+  ioutMax: number;
+  ioutMin?: number | undefined;
+  rippleRatio?: number | undefined;
+  rippleCurrent?: number | undefined;
+  inductance?: number | undefined;
+}
+
+function checkSpec(spec: SpecFields, ctx: z.RefinementCtx): void {
+  if (spec.vout >= spec.vinMin) {
+    ctx.addIssue({ code: 'custom', path: ['vout'], message: `vout must be below vinMin (${spec.vinMin} V) for a buck converter` });
+  }
+  if (spec.vinMin > spec.vinMax) {
+    ctx.addIssue({ code: 'custom', path: ['vinMin'], message: `vinMin must not exceed vinMax (${spec.vinMax} V)` });
+  }
+  if (spec.vinNom !== undefined && (spec.vinNom < spec.vinMin || spec.vinNom > spec.vinMax)) {
+    ctx.addIssue({ code: 'custom', path: ['vinNom'], message: `vinNom must lie between vinMin and vinMax` });
+  }
+  if (spec.ioutMin !== undefined && spec.ioutMin > spec.ioutMax) {
+    ctx.addIssue({ code: 'custom', path: ['ioutMin'], message: `ioutMin must not exceed ioutMax (${spec.ioutMax} A)` });
+  }
+  const given = (['rippleRatio', 'rippleCurrent', 'inductance'] as const).filter((key) => spec[key] !== undefined);
+  if (given.length !== 1) {
+    ctx.addIssue({
+      code: 'custom',
+      path: [given[1] ?? 'rippleRatio'],
+      message: 'Give exactly one of rippleRatio, rippleCurrent or inductance',
+    });
+  }
+}
+
+export const converterSpecSchema = z
+  .object(converterSpecShape)
+  .strict()
+  .superRefine(checkSpec)
+  .meta({ description: 'Buck converter in continuous conduction; exactly one of rippleRatio, rippleCurrent, inductance' });
+export type ConverterSpecRequest = z.infer<typeof converterSpecSchema>;
+
+export const designLimitsSchema = z
+  .object({
+    ambient: rangeNumber('ambient', -40, 125, '°C', 'Ambient temperature').optional(),
+    maxRise: rangeNumber('maxRise', 1, 150, 'K', 'Largest allowed temperature rise').optional(),
+    lossBudget: positiveNumber('lossBudget', 1000, 'W', 'Largest allowed total loss').optional(),
+    inductanceTolerance: rangeNumber('inductanceTolerance', 0, 0.5, '', 'Inductance tolerance; L is designed to its minimum').optional(),
+    bMax: rangeNumber('bMax', 0.01, 2, 'T', 'Peak flux density limit for choosing turns').optional(),
+    saturationMargin: rangeNumber('saturationMargin', 0, 0.9, '', 'Required margin below Bsat at the hot spot').optional(),
+    currentDensity: rangeNumber('currentDensity', 0.5e6, 20e6, 'A/m²', 'RMS current density target').optional(),
+    windowUtilisation: rangeNumber('windowUtilisation', 0.05, 0.9, '', 'Largest copper fill of the window (Ku)').optional(),
+    insulationClass: rangeNumber('insulationClass', 90, 250, '°C', 'Insulation class temperature').optional(),
+    maxStrands: z
+      .number({ error: 'maxStrands must be a whole number' })
+      .int({ error: 'maxStrands must be a whole number' })
+      .min(1, { error: 'maxStrands must be between 1 and 50' })
+      .max(50, { error: 'maxStrands must be between 1 and 50' })
+      .meta({ description: 'Most round wires in hand before litz is used (1…50)' })
+      .optional(),
+    minPermeabilityAtPeak: rangeNumber('minPermeabilityAtPeak', 0, 1, '', 'Smallest L(Ipk)/L0 of a powder core').optional(),
+    allowedFamilies: z.array(z.enum(CORE_FAMILIES)).max(CORE_FAMILIES.length).meta({ description: 'Core families to consider' }).optional(),
+    allowedMaterials: z.array(z.string().min(1).max(80)).max(200).meta({ description: 'Material ids to consider' }).optional(),
+  })
+  .strict()
+  .meta({ description: 'Design limits; omitted fields take the engine defaults' });
+export type DesignLimitsRequest = z.infer<typeof designLimitsSchema>;
+
+/** The operating-point request: a converter spec plus the inductance tolerance. */
+export const operatingPointRequestSchema = z
+  .object({
+    ...converterSpecShape,
+    inductanceTolerance: rangeNumber('inductanceTolerance', 0, 0.5, '', 'Inductance tolerance').optional(),
+  })
+  .strict()
+  .superRefine(checkSpec)
+  .meta({ description: 'Buck operating point: duty, inductance, ripple, peak and RMS current' });
+export type OperatingPointRequest = z.infer<typeof operatingPointRequestSchema>;
+
+export const steinmetzSchema = z
+  .object({
+    k: positiveNumber('k', 1e12, 'W/m³ (Hz, T)', 'Steinmetz k in SI units'),
+    alpha: rangeNumber('alpha', 1, 3, '', 'Steinmetz frequency exponent α'),
+    beta: rangeNumber('beta', 1.5, 4, '', 'Steinmetz flux exponent β'),
+  })
+  .strict();
+
+export const coreLossRequestSchema = z
+  .object({
+    material: steinmetzSchema,
+    frequency: rangeNumber('frequency', 1e3, 10e6, 'Hz', 'Excitation frequency'),
+    deltaB: rangeNumber('deltaB', 1e-4, 2, 'T', 'Peak-to-peak flux swing ΔB'),
+    duty: z
+      .number({ error: 'duty must be a finite number' })
+      .gt(0, { error: 'duty must be between 0 and 1 (exclusive)' })
+      .lt(1, { error: 'duty must be between 0 and 1 (exclusive)' })
+      .meta({ description: 'Rise fraction of the triangular flux (0…1 exclusive)' }),
+    waveform: z.enum(['triangle', 'sine']).meta({ description: 'Flux waveform' }),
+  })
+  .strict()
+  .meta({ description: 'Core-loss density by Steinmetz and iGSE → { steinmetz, igse } in W/m³' });
+export type CoreLossRequest = z.infer<typeof coreLossRequestSchema>;
+
+const rollOffSchema = z
+  .object({
+    a: rangeNumber('rollOff.a', 0.1, 10, '', 'Roll-off fit a'),
+    b: rangeNumber('rollOff.b', 0, 1e3, '', 'Roll-off fit b (H in A/m)'),
+    c: rangeNumber('rollOff.c', 0.1, 5, '', 'Roll-off fit exponent c'),
+  })
+  .strict();
+
+/** An inline (user-supplied) material, SI units, same meaning as CoreMaterial. */
+export const inlineMaterialSchema = z
+  .object({
+    id: z.string().trim().min(1).max(80).optional(),
+    name: z.string().trim().min(1).max(80),
+    family: z.enum(MATERIAL_FAMILIES),
+    k: positiveNumber('k', 1e12, 'W/m³ (Hz, T)', 'Steinmetz k in SI units'),
+    alpha: rangeNumber('alpha', 1, 3, '', 'Steinmetz α'),
+    beta: rangeNumber('beta', 1.5, 4, '', 'Steinmetz β'),
+    fitFrequencyMin: rangeNumber('fitFrequencyMin', 1, 10e6, 'Hz', 'Lowest fitted frequency'),
+    fitFrequencyMax: rangeNumber('fitFrequencyMax', 1, 100e6, 'Hz', 'Highest fitted frequency'),
+    fitFluxMin: rangeNumber('fitFluxMin', 0, 2, 'T', 'Lowest fitted peak AC flux'),
+    fitFluxMax: rangeNumber('fitFluxMax', 1e-4, 2, 'T', 'Highest fitted peak AC flux'),
+    tempCoefficients: z
+      .object({
+        ct0: rangeNumber('ct0', -100, 100, '', 'Temperature factor constant'),
+        ct1: rangeNumber('ct1', -10, 10, '1/K', 'Temperature factor linear coefficient'),
+        ct2: rangeNumber('ct2', -1, 1, '1/K²', 'Temperature factor quadratic coefficient'),
+      })
+      .strict()
+      .optional(),
+    bsat25: rangeNumber('bsat25', 0.05, 3, 'T', 'Saturation flux density at 25 °C'),
+    bsat100: rangeNumber('bsat100', 0.05, 3, 'T', 'Saturation flux density at 100 °C'),
+    permeability: rangeNumber('permeability', 1, 200000, '', 'Initial relative permeability'),
+    rollOff: rollOffSchema.optional(),
+    density: rangeNumber('density', 500, 20000, 'kg/m³', 'Density').optional(),
+    maxTemperature: rangeNumber('maxTemperature', 50, 400, '°C', 'Highest tolerated hot-spot temperature').optional(),
+  })
+  .strict()
+  .superRefine((m, ctx) => {
+    if (m.fitFrequencyMin > m.fitFrequencyMax) {
+      ctx.addIssue({ code: 'custom', path: ['fitFrequencyMin'], message: 'fitFrequencyMin must not exceed fitFrequencyMax' });
+    }
+    if (m.fitFluxMin > m.fitFluxMax) {
+      ctx.addIssue({ code: 'custom', path: ['fitFluxMin'], message: 'fitFluxMin must not exceed fitFluxMax' });
+    }
+  });
+export type InlineMaterial = z.infer<typeof inlineMaterialSchema>;
+
+export const rankBySchema = z.enum(['loss', 'volume', 'temperature']).meta({ description: 'Ranking of feasible candidates' });
+
+const idSchema = z.string().trim().min(1).max(80);
+
+export const searchRequestSchema = z
+  .object({
+    spec: converterSpecSchema,
+    limits: designLimitsSchema.optional(),
+    materialIds: z.array(idSchema).max(200).meta({ description: 'Catalogue material ids' }).optional(),
+    materials: z.array(inlineMaterialSchema).max(20).meta({ description: 'Inline materials' }).optional(),
+    coreIds: z.array(idSchema).max(2000).meta({ description: 'Restrict to these cores' }).optional(),
+    families: z.array(z.enum(CORE_FAMILIES)).max(CORE_FAMILIES.length).meta({ description: 'Restrict to these core families' }).optional(),
+    rankBy: rankBySchema.default('loss'),
+    limit: z
+      .number({ error: 'limit must be a whole number' })
+      .int({ error: 'limit must be a whole number' })
+      .min(1, { error: 'limit must be between 1 and 200' })
+      .max(200, { error: 'limit must be between 1 and 200' })
+      .default(20)
+      .meta({ description: 'Feasible candidates to return (1…200)' }),
+  })
+  .strict()
+  .superRefine((request, ctx) => {
+    if (!request.materialIds?.length && !request.materials?.length) {
+      ctx.addIssue({ code: 'custom', path: ['materialIds'], message: 'Give materialIds, inline materials, or both' });
+    }
+  })
+  .meta({ description: 'Design search over cores × materials × wire options' });
+export type SearchRequest = z.infer<typeof searchRequestSchema>;
+
+export const wireRequestSchema = z
+  .object({
+    kind: z.enum(['awg', 'metric', 'litz']).meta({ description: 'Wire kind' }),
+    strandDiameter: rangeNumber('strandDiameter', 0.01e-3, 6e-3, 'm', 'Bare diameter of one strand').optional(),
+    awg: z
+      .number({ error: 'awg must be a whole number' })
+      .int({ error: 'awg must be a whole number' })
+      .min(-3, { error: 'awg must be between -3 (4/0) and 46' })
+      .max(46, { error: 'awg must be between -3 (4/0) and 46' })
+      .meta({ description: 'AWG gauge; 0/0 … 4/0 as 0 … −3' })
+      .optional(),
+    strands: z
+      .number({ error: 'strands must be a whole number' })
+      .int({ error: 'strands must be a whole number' })
+      .min(1, { error: 'strands must be between 1 and 5000' })
+      .max(5000, { error: 'strands must be between 1 and 5000' })
+      .meta({ description: 'Wires in hand, or strands of a litz bundle (1…5000)' }),
+  })
+  .strict()
+  .superRefine((wire, ctx) => {
+    const given = (wire.strandDiameter !== undefined ? 1 : 0) + (wire.awg !== undefined ? 1 : 0);
+    if (given !== 1) {
+      ctx.addIssue({ code: 'custom', path: ['strandDiameter'], message: 'Give exactly one of strandDiameter or awg' });
+    }
+    if (wire.awg !== undefined && wire.kind !== 'awg') {
+      ctx.addIssue({ code: 'custom', path: ['awg'], message: 'awg is only valid with kind "awg"' });
+    }
+  });
+export type WireRequest = z.infer<typeof wireRequestSchema>;
+
+const autoOr = <T extends z.ZodType>(schema: T) => z.union([schema, z.literal('auto')]);
+
+export const evaluateRequestSchema = z
+  .object({
+    spec: converterSpecSchema,
+    limits: designLimitsSchema.optional(),
+    coreId: idSchema.meta({ description: 'Catalogue core id' }),
+    materialId: idSchema.meta({ description: 'Catalogue material id' }).optional(),
+    material: inlineMaterialSchema.optional(),
+    turns: autoOr(
+      z
+        .number({ error: 'turns must be a whole number' })
+        .int({ error: 'turns must be a whole number' })
+        .min(1, { error: 'turns must be between 1 and 2000' })
+        .max(2000, { error: 'turns must be between 1 and 2000' }),
+    )
+      .default('auto')
+      .meta({ description: 'Turns (1…2000) or "auto"' }),
+    gap: autoOr(nonNegativeNumber('gap', 0.02, 'm', 'Total air gap in the magnetic path'))
+      .default('auto')
+      .meta({ description: 'Total gap in the path (0…0.02 m) or "auto"' }),
+    wire: wireRequestSchema,
+  })
+  .strict()
+  .superRefine((request, ctx) => {
+    if ((request.materialId === undefined) === (request.material === undefined)) {
+      ctx.addIssue({ code: 'custom', path: ['materialId'], message: 'Give exactly one of materialId or an inline material' });
+    }
+  })
+  .meta({ description: 'Evaluate one explicit design' });
+export type EvaluateRequest = z.infer<typeof evaluateRequestSchema>;
