@@ -30,7 +30,7 @@ export interface SearchInput {
   rankBy?: RankBy;
   /** Feasible candidates to return (default 20). */
   limit?: number;
-  /** Infeasible core × material pairs to explain (default 30). */
+  /** Infeasible core × material pairs to explain, closest to feasible first (default 30); every prefiltered core follows. */
   infeasibleLimit?: number;
 }
 
@@ -116,6 +116,7 @@ export function searchCandidates(input: SearchInput): SearchResult {
   const pairMaterial: number[] = [];
   const pairDesign: MagneticDesign[] = [];
   const coreCtxs: CoreContext[] = [];
+  const prefilteredCores: InfeasibleCandidate[] = [];
   const infeasible: InfeasibleCandidate[] = [];
   const infeasiblePairs: { pair: number; wire: number; failures: number; loss: number }[] = [];
   const figures = new CandidateFigures();
@@ -132,7 +133,7 @@ export function searchCandidates(input: SearchInput): SearchResult {
     const available = availableAreaProduct(core);
     if (available < AREA_PRODUCT_PREFILTER * required) {
       prefiltered++;
-      infeasible.push({
+      prefilteredCores.push({
         coreId: core.id,
         reasons: [
           {
@@ -225,7 +226,7 @@ export function searchCandidates(input: SearchInput): SearchResult {
 
   infeasiblePairs.sort((a, b) => a.failures - b.failures || a.loss - b.loss);
   const infeasibleLimit = input.infeasibleLimit ?? 30;
-  for (const entry of infeasiblePairs.slice(0, Math.max(0, infeasibleLimit - infeasible.length))) {
+  for (const entry of infeasiblePairs.slice(0, infeasibleLimit)) {
     const c = pairCore[entry.pair]!;
     const m = pairMaterial[entry.pair]!;
     const mag = pairDesign[entry.pair]!;
@@ -244,7 +245,7 @@ export function searchCandidates(input: SearchInput): SearchResult {
     rankBy,
     candidates,
     paretoFront,
-    infeasible: infeasible.slice(0, Math.max(infeasibleLimit, prefiltered)),
+    infeasible: [...infeasible, ...prefilteredCores],
     counts: {
       cores: cores.length,
       materials: materials.length,
