@@ -75,6 +75,8 @@ export interface EvaluationResult {
     acPeak: number;
     swing: number;
     peak: number;
+    /** Peak flux in the minimum section Amin (equals peak when Amin is not given). */
+    peakAtMinimumSection: number;
     checkCurrent: number;
     saturationAtHotSpot: number;
     saturationMargin: number;
@@ -182,6 +184,7 @@ export function assembleResult(
       acPeak: f.fluxSwing / 2,
       swing: f.fluxSwing,
       peak: f.fluxPeak,
+      peakAtMinimumSection: f.fluxPeakLocal,
       checkCurrent: op.saturationCheckCurrent,
       saturationAtHotSpot: f.saturationFluxHot,
       saturationMargin: f.saturationMargin,

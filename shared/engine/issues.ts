@@ -1,6 +1,6 @@
 // Plain-word issue texts, built only for candidates that are shown to someone.
 import { HOT_SPOT_ALLOWANCE } from './constants';
-import { FAILURE, WARNING, type CandidateFigures, type MagneticDesign, type SpecContext } from './kernel';
+import { FAILURE, WARNING, materialTemperatureLimit, type CandidateFigures, type MagneticDesign, type SpecContext } from './kernel';
 import type { EngineIssue } from './inputs';
 import type { CoreMaterial, CoreShape } from './types';
 
@@ -47,7 +47,7 @@ export function describeIssues({ ctx, core, material, mag, figures: f }: IssueSu
     const allowed = 1 - limits.saturationMargin;
     error(
       'saturation',
-      `Peak flux ${fmt(f.fluxPeak)} T at ${fmt(f.hotSpot, 0)} °C exceeds ${fmt(allowed * 100, 0)} % of Bsat (${fmt(allowed * f.saturationFluxHot)} T of ${fmt(f.saturationFluxHot)} T).`,
+      `Peak flux ${fmt(f.fluxPeakLocal)} T${f.fluxPeakLocal > f.fluxPeak ? ' (in the narrowest section)' : ''} at ${fmt(f.hotSpot, 0)} °C exceeds ${fmt(allowed * 100, 0)} % of Bsat (${fmt(allowed * f.saturationFluxHot)} T of ${fmt(f.saturationFluxHot)} T).`,
     );
   }
   if (failed(FAILURE.permeabilityDrop)) {
@@ -77,7 +77,7 @@ export function describeIssues({ ctx, core, material, mag, figures: f }: IssueSu
     );
   }
   if (failed(FAILURE.materialTemperature)) {
-    error('material-temperature', `Hot spot ${fmt(f.hotSpot, 0)} °C exceeds the ${material.name} limit of ${fmt(material.maxTemperature ?? 0, 0)} °C.`);
+    error('material-temperature', `Hot spot ${fmt(f.hotSpot, 0)} °C exceeds the ${material.name} limit of ${fmt(materialTemperatureLimit(material), 0)} °C.`);
   }
   if (failed(FAILURE.lossBudget)) {
     error('loss-budget', `Total loss ${fmt(f.totalLoss)} W exceeds the budget of ${fmt(limits.lossBudget ?? 0)} W.`);

@@ -24,6 +24,13 @@ import { THERMAL_MAX_PASSES, THERMAL_TOLERANCE, coreVolumeThermalResistance } fr
 import type { CoreMaterial, CoreShape, WireOption } from './types';
 import { conductorCopperArea } from './winding';
 
+/** Ferrite without a stated limit: Curie temperature typically ≥ 200 °C (common practice, no source). */
+export const DEFAULT_FERRITE_TEMPERATURE_LIMIT = 200;
+
+export function materialTemperatureLimit(material: CoreMaterial): number {
+  return material.maxTemperature ?? (material.family === 'ferrite' ? DEFAULT_FERRITE_TEMPERATURE_LIMIT : Number.POSITIVE_INFINITY);
+}
+
 /** Failure reasons, one bit each, so the inner loop records them without building text. */
 export const FAILURE = {
   inductanceShort: 1 << 0,
@@ -279,6 +286,8 @@ export class CandidateFigures {
   fluxDc = 0;
   fluxSwing = 0;
   fluxPeak = 0;
+  /** Peak flux in the narrowest section (Amin where the core gives it), used for the saturation margin. */
+  fluxPeakLocal = 0;
   coreLossDensityIgse = 0;
   coreLossDensitySteinmetz = 0;
   temperatureFactor = 1;
@@ -357,6 +366,7 @@ export function evaluateCandidate(
   out.fluxSwing = op.voltSeconds / areaTurns;
   out.fluxDc = (mag.inductanceAtLoad * op.ioutMax) / areaTurns;
   out.fluxPeak = (mag.inductanceAtPeak * op.saturationCheckCurrent) / areaTurns;
+  out.fluxPeakLocal = core.amin !== undefined && core.amin < core.ae ? (out.fluxPeak * core.ae) / core.amin : out.fluxPeak;
   const swingPowBeta = Math.pow(out.fluxSwing, material.beta);
   out.coreLossDensityIgse = matCtx.igsePerSwing * swingPowBeta;
   out.coreLossDensitySteinmetz = matCtx.steinmetzPerSwing * swingPowBeta;
@@ -397,12 +407,12 @@ export function evaluateCandidate(
   out.hotSpot = limits.ambient + rise + HOT_SPOT_ALLOWANCE;
 
   out.saturationFluxHot = material.bsat25 + ((material.bsat100 - material.bsat25) * (out.hotSpot - 25)) / 75;
-  out.saturationMargin = 1 - out.fluxPeak / out.saturationFluxHot;
+  out.saturationMargin = 1 - out.fluxPeakLocal / out.saturationFluxHot;
   if (out.saturationMargin < limits.saturationMargin) failures |= FAILURE.saturation;
   if (mag.kind === 'air-gap' && out.fluxPeak > limits.bMax * (1 + 1e-9)) warnings |= WARNING.fluxAboveLimit;
   if (rise > limits.maxRise) failures |= FAILURE.temperatureRise;
   if (out.hotSpot > limits.insulationClass) failures |= FAILURE.insulation;
-  if (material.maxTemperature !== undefined && out.hotSpot > material.maxTemperature) failures |= FAILURE.materialTemperature;
+  if (out.hotSpot > materialTemperatureLimit(material)) failures |= FAILURE.materialTemperature;
   if (limits.lossBudget !== undefined && totalLoss > limits.lossBudget) failures |= FAILURE.lossBudget;
   if (!matCtx.frequencyInFit) warnings |= WARNING.frequencyFit;
   const peakAcFlux = out.fluxSwing / 2;
