@@ -71,9 +71,9 @@ export function chooseWire(
   }
   if (useLitz || strands > 1) for (const litz of litzOptions(wires, requiredCopperArea)) add(litz);
   if (useLitz) {
-    // Without enough litz, accept thicker strands: the thinnest gauge that fits in maxStrands, and the next.
+    // Without enough litz, accept thicker strands: the thinnest gauge that fits in maxStrands, and the next two.
     const index = diameters.findIndex((d) => strandsFor(d) <= maxStrands);
-    for (const d of index >= 0 ? diameters.slice(index, index + 2) : diameters.slice(-1)) {
+    for (const d of index >= 0 ? diameters.slice(index, index + 3) : diameters.slice(-1)) {
       add(roundWireInHand(wires, d, Math.min(strandsFor(d), maxStrands)));
     }
   }
