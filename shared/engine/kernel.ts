@@ -1,7 +1,7 @@
 // The numeric core shared by evaluateDesign and searchCandidates. Everything that depends only on the spec, a
 // wire, a material or a core × material pair is prepared once; evaluateCandidate then runs without allocating.
 import { acLossSums, type AcLossSums } from './copper-loss';
-import { COPPER_RESISTIVITY_20C, COPPER_TEMPERATURE_COEFFICIENT, HOT_SPOT_ALLOWANCE } from './constants';
+import { COPPER_RESISTIVITY_20C, COPPER_TEMPERATURE_COEFFICIENT, HOT_SPOT_ALLOWANCE, MU0 } from './constants';
 import { igseCoefficient, triangleDutyFactor } from './core-loss';
 import { proximityFactor, roundWireDelta } from './dowell';
 import {
@@ -260,7 +260,7 @@ function designAirGap(
     totalGap: gap,
     spacer: spacerThickness(gap, core.centreToOuterLegAreaRatio ?? 1),
     fringingFactor: fringing,
-    inductanceFactorWithoutFringing: (4e-7 * Math.PI * core.ae) / reluctanceLength,
+    inductanceFactorWithoutFringing: (MU0 * core.ae) / reluctanceLength,
     inductanceFactor: inductance / (turns * turns),
     inductanceZeroBias: inductance,
     inductanceAtLoad: inductance,
@@ -382,6 +382,7 @@ export function evaluateCandidate(
   let riseByVolume = 0;
   let resistance = 0;
   let tempFactor = 1;
+  // The iteration of thermal.ts solveTemperature, inlined so no closure is made per candidate.
   while (passes < THERMAL_MAX_PASSES && !(Math.abs(rise - previous) < THERMAL_TOLERANCE)) {
     previous = rise;
     const temperature = limits.ambient + rise;

@@ -10,6 +10,8 @@ export interface WindingLayout {
   meanTurnLength: number;
   wireLength: number;
   fitsBuild: boolean;
+  /** Why it does not fit, in plain words; absent when it fits. */
+  reason?: string;
 }
 
 /** Copper area of one turn (m²). */
@@ -63,13 +65,20 @@ export function windingLayout(turns: number, wire: WireOption, core: CoreShape):
   }
   const buildHeight = layers * wire.overallDiameter;
   if (core.ring && Number.isFinite(buildHeight)) meanTurnLength = ringMeanTurnLength(core.ring, buildHeight);
-  return {
+  const fitsBuild = Number.isFinite(buildHeight) && buildHeight <= core.bobbinHeight;
+  const layout: WindingLayout = {
     turnsPerLayer,
     layers,
     buildHeight,
     copperFill,
     meanTurnLength,
     wireLength: turns * meanTurnLength,
-    fitsBuild: Number.isFinite(buildHeight) && buildHeight <= core.bobbinHeight,
+    fitsBuild,
   };
+  if (!fitsBuild) {
+    layout.reason = Number.isFinite(buildHeight)
+      ? `Winding needs ${(buildHeight * 1e3).toFixed(2)} mm build height (${layers} layers), ${core.ring ? 'the ring' : 'the bobbin'} allows ${(core.bobbinHeight * 1e3).toFixed(2)} mm.`
+      : `The wire is too thick to lay even one turn per layer on ${core.id}.`;
+  }
+  return layout;
 }

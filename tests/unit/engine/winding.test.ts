@@ -32,6 +32,8 @@ describe('winding layout', () => {
     const layout = windingLayout(200, roundWire(1.0e-3), etd34Like);
     expect(layout.fitsBuild).toBe(false);
     expect(layout.buildHeight).toBeGreaterThan(etd34Like.bobbinHeight);
+    expect(layout.reason).toMatch(/^Winding needs \d+\.\d\d mm build height \(\d+ layers\), the bobbin allows 6\.00 mm\.$/);
+    expect(windingLayout(20, roundWire(0.5e-3), etd34Like).reason).toBeUndefined();
   });
 });
 
