@@ -10,9 +10,16 @@ import { authRouter } from './auth/auth.router.ts';
 import { createCsrf } from './auth/csrf.ts';
 import { createPassport } from './auth/passport.ts';
 import { absoluteLifetime, createSessionMiddleware } from './auth/session.ts';
+import { calcRouter } from './calc/calc.router.ts';
+import { CalcService } from './calc/calc.service.ts';
+import { catalogueRouter } from './catalogue/catalogue.router.ts';
+import { CatalogueService } from './catalogue/catalogue.service.ts';
 import type { Config } from './config.ts';
 import type { Db } from './db/client.ts';
 import { healthRouter } from './health/health.router.ts';
+import { MaterialsRepository } from './materials/materials.repository.ts';
+import { materialsRouter } from './materials/materials.router.ts';
+import { buildOpenApiDocument } from './openapi/openapi.ts';
 import type { AppError } from './http/errors.ts';
 import { apiNotFound, errorMiddleware } from './http/errors.ts';
 import { securityHeaders } from './http/security-headers.ts';
@@ -31,18 +38,25 @@ export interface AppDeps {
 export interface Services {
   audit: AuditService;
   users: UsersService;
+  catalogue: CatalogueService;
+  materials: MaterialsRepository;
+  calc: CalcService;
 }
 
 export function createServices({ config, db }: Pick<AppDeps, 'config' | 'db'>): Services {
   const audit = new AuditService(new AuditRepository(db));
   const users = new UsersService(new UsersRepository(db), audit, config.bcryptCost);
-  return { audit, users };
+  const catalogue = new CatalogueService();
+  const materials = new MaterialsRepository(db);
+  const calc = new CalcService(catalogue, materials);
+  return { audit, users, catalogue, materials, calc };
 }
 
 export function createApp(deps: AppDeps) {
   const { config, pool, logger } = deps;
   const services = createServices(deps);
-  const { audit, users } = services;
+  const { audit, users, catalogue, materials, calc } = services;
+  const openApiDocument = buildOpenApiDocument();
   const passport = createPassport(users);
   const sessions = createSessionMiddleware(config, pool);
   const csrf = createCsrf(config);
@@ -74,6 +88,9 @@ export function createApp(deps: AppDeps) {
 
   // Health answers even when the session store (the database) is down.
   app.use('/api/health', healthRouter(pool));
+  app.get('/api/openapi.json', (_req, res) => {
+    res.json(openApiDocument);
+  });
 
   const api = express.Router();
   api.use(express.json({ limit: '1mb', strict: true }));
@@ -86,6 +103,9 @@ export function createApp(deps: AppDeps) {
   api.use('/account', accountRouter(users));
   api.use('/admin/users', adminUsersRouter(users));
   api.use('/admin/audit', auditRouter(audit));
+  api.use('/calc', calcRouter(calc));
+  api.use('/catalogue', catalogueRouter(catalogue));
+  api.use('/materials', materialsRouter(materials));
   api.use(apiNotFound);
   app.use('/api', api);
 

@@ -1,5 +1,19 @@
 import { sql } from 'drizzle-orm';
-import { boolean, check, index, integer, json, jsonb, pgTable, serial, text, timestamp, varchar } from 'drizzle-orm/pg-core';
+import {
+  boolean,
+  check,
+  doublePrecision,
+  index,
+  integer,
+  json,
+  jsonb,
+  pgTable,
+  serial,
+  text,
+  timestamp,
+  uniqueIndex,
+  varchar,
+} from 'drizzle-orm/pg-core';
 
 export const users = pgTable('users', {
   id: serial('id').primaryKey(),
@@ -49,3 +63,51 @@ export const appSettings = pgTable('app_settings', {
   value: jsonb('value').notNull(),
   updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().default(sql`now()`),
 });
+
+/**
+ * Core materials, versioned: every edit or re-upload adds a row with the same `lineage` and the next
+ * `version`, and only the newest row is `current`. Designs point at the exact row they used.
+ * Steinmetz k is kept as uploaded (with its unit set) and converted to SI (W/m³, Hz, T) for the engine.
+ */
+export const materials = pgTable(
+  'materials',
+  {
+    id: serial('id').primaryKey(),
+    lineage: varchar('lineage', { length: 80 }).notNull(),
+    version: integer('version').notNull(),
+    current: boolean('current').notNull().default(true),
+    retired: boolean('retired').notNull().default(false),
+    name: varchar('name', { length: 80 }).notNull(),
+    family: varchar('family', { length: 20, enum: ['ferrite', 'powder', 'amorphous', 'nanocrystalline', 'other'] }).notNull(),
+    unitSet: varchar('unit_set', { length: 20, enum: ['W/m3-Hz-T', 'mW/cm3-kHz-mT'] }).notNull(),
+    kUploaded: doublePrecision('k_uploaded').notNull(),
+    k: doublePrecision('k').notNull(),
+    alpha: doublePrecision('alpha').notNull(),
+    beta: doublePrecision('beta').notNull(),
+    fitFrequencyMin: doublePrecision('fit_frequency_min').notNull(),
+    fitFrequencyMax: doublePrecision('fit_frequency_max').notNull(),
+    fitFluxMin: doublePrecision('fit_flux_min').notNull(),
+    fitFluxMax: doublePrecision('fit_flux_max').notNull(),
+    ct0: doublePrecision('ct0'),
+    ct1: doublePrecision('ct1'),
+    ct2: doublePrecision('ct2'),
+    referenceTemperature: doublePrecision('reference_temperature'),
+    bsat25: doublePrecision('bsat_25').notNull(),
+    bsat100: doublePrecision('bsat_100').notNull(),
+    permeability: doublePrecision('permeability').notNull(),
+    rollOffA: doublePrecision('roll_off_a'),
+    rollOffB: doublePrecision('roll_off_b'),
+    rollOffC: doublePrecision('roll_off_c'),
+    density: doublePrecision('density').notNull(),
+    provenance: text('provenance').notNull(),
+    createdBy: integer('created_by').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    uniqueIndex('materials_lineage_version_idx').on(t.lineage, t.version),
+    uniqueIndex('materials_current_name_idx').on(sql`lower(${t.name})`).where(sql`${t.current}`),
+    check('materials_alpha_check', sql`${t.alpha} > 0 and ${t.alpha} < 4`),
+    check('materials_beta_check', sql`${t.beta} > 0 and ${t.beta} < 5`),
+    check('materials_k_check', sql`${t.k} > 0`),
+  ],
+);

@@ -1,0 +1,175 @@
+import {
+  ENGINE_VERSION,
+  EngineInputError,
+  evaluateDesign,
+  igsePiecewiseLinearLoss,
+  igseTriangleLoss,
+  lossVersusFrequency,
+  operatingPoint,
+  rippleHarmonics,
+  searchCandidates,
+  steinmetzLoss,
+  type ConverterSpec,
+  type DesignLimits,
+} from '@shared/engine/index';
+import type { CoreMaterial } from '@shared/engine/types';
+import type {
+  CoreLossRequest,
+  EvaluateRequest,
+  InlineMaterial,
+  OperatingPointRequest,
+  SearchRequest,
+} from '@shared/schemas/calc';
+import type { CatalogueService } from '../catalogue/catalogue.service.ts';
+import { badRequest } from '../http/errors.ts';
+import { toCoreMaterial } from '../materials/material-view.ts';
+import type { MaterialsRepository } from '../materials/materials.repository.ts';
+
+const HARMONICS_REPORTED = 15;
+const SINE_SAMPLES = 720;
+// Used only for mass figures when an inline material gives no density (common practice, no source).
+const TYPICAL_DENSITY: Record<InlineMaterial['family'], number> = {
+  ferrite: 4800,
+  powder: 6500,
+  amorphous: 7200,
+  nanocrystalline: 7300,
+  other: 5000,
+};
+
+/** Engine refusals become 400s that name the offending field. */
+function engineCall<T>(fn: () => T, fieldPrefix = ''): T {
+  try {
+    return fn();
+  } catch (error) {
+    if (error instanceof EngineInputError) {
+      throw badRequest(error.message, { [`${fieldPrefix}${error.field}`]: error.message });
+    }
+    throw error;
+  }
+}
+
+export class CalcService {
+  constructor(
+    private readonly catalogue: CatalogueService,
+    private readonly materials: MaterialsRepository,
+  ) {}
+
+  operatingPoint(request: OperatingPointRequest) {
+    const { inductanceTolerance, ...spec } = request;
+    const op = engineCall(() => operatingPoint(spec as ConverterSpec, inductanceTolerance ?? 0.1));
+    const amplitudes = rippleHarmonics(op.rippleAtVinMax, op.dutyAtVinMax, HARMONICS_REPORTED);
+    return {
+      engineVersion: ENGINE_VERSION,
+      dutyAtVinMin: op.dutyAtVinMin,
+      dutyAtVinMax: op.dutyAtVinMax,
+      inductance: op.inductanceMin,
+      inductanceNominal: op.inductanceNominal,
+      ripplePeakToPeak: op.rippleAtVinMax,
+      rippleAtVinMin: op.rippleAtVinMin,
+      rippleRatio: op.rippleRatio,
+      peakCurrent: op.peakCurrent,
+      valleyCurrent: op.valleyCurrent,
+      rmsCurrent: op.rmsCurrent,
+      energy: op.storedEnergy,
+      ccmBoundaryCurrent: op.ccmBoundaryCurrent,
+      saturationCheckCurrent: op.saturationCheckCurrent,
+      harmonics: Array.from(amplitudes, (amplitude, i) => ({ n: i + 1, amplitude })),
+      warnings: op.warnings,
+    };
+  }
+
+  coreLoss({ material, frequency, deltaB, duty, waveform }: CoreLossRequest) {
+    const steinmetz = steinmetzLoss(material, frequency, deltaB / 2);
+    let igse: number;
+    if (waveform === 'triangle') {
+      igse = igseTriangleLoss(material, frequency, deltaB, duty);
+    } else {
+      // Through the general iGSE, not by assumption: a sampled sinusoid of the same peak.
+      const times = new Float64Array(SINE_SAMPLES + 1);
+      const flux = new Float64Array(SINE_SAMPLES + 1);
+      for (let i = 0; i <= SINE_SAMPLES; i++) {
+        times[i] = i / SINE_SAMPLES / frequency;
+        flux[i] = (deltaB / 2) * Math.sin((2 * Math.PI * i) / SINE_SAMPLES);
+      }
+      igse = igsePiecewiseLinearLoss(material, times, flux);
+    }
+    return { steinmetz, igse };
+  }
+
+  async search(request: SearchRequest) {
+    const materials = await this.resolveMaterials(request.materialIds ?? [], request.materials ?? []);
+    let cores = this.catalogue.cores();
+    if (request.coreIds?.length) {
+      const wanted = new Set(request.coreIds);
+      cores = cores.filter((c) => wanted.has(c.id));
+    }
+    const families = request.families ?? request.limits?.allowedFamilies;
+    if (families?.length) cores = cores.filter((c) => families.includes(c.family));
+    if (!cores.length) throw badRequest('No catalogue core matches the requested ids and families.', { coreIds: 'No matching core' });
+    const result = engineCall(() =>
+      searchCandidates({
+        spec: request.spec as ConverterSpec,
+        limits: request.limits as Partial<DesignLimits> | undefined,
+        cores,
+        materials,
+        wires: this.catalogue.standardWires(),
+        rankBy: request.rankBy,
+        limit: request.limit,
+      }),
+      'spec.',
+    );
+    return { engineVersion: ENGINE_VERSION, ...result };
+  }
+
+  async evaluate(request: EvaluateRequest, options: { withFrequencySweep?: boolean } = {}) {
+    const core = this.catalogue.core(request.coreId);
+    const [material] = request.material
+      ? await this.resolveMaterials([], [request.material])
+      : await this.resolveMaterials([request.materialId!], [], 'materialId');
+    const wire = this.catalogue.wire(request.wire);
+    const input = {
+      spec: request.spec as ConverterSpec,
+      limits: request.limits as Partial<DesignLimits> | undefined,
+      core,
+      material,
+      turns: request.turns,
+      gap: request.gap,
+      wire,
+    };
+    const result = engineCall(() => evaluateDesign(input), 'spec.');
+    const sweep = options.withFrequencySweep
+      ? lossVersusFrequency(input, frequencySweepAround(request.spec.frequency))
+      : undefined;
+    return { engineVersion: ENGINE_VERSION, wire, result, ...(sweep ? { lossVersusFrequency: sweep } : {}) };
+  }
+
+  /** Stored materials by id (string ids as the API carries them) plus inline ones, in the engine's form. */
+  private async resolveMaterials(ids: string[], inline: InlineMaterial[], field = 'materialIds'): Promise<CoreMaterial[]> {
+    const numeric = ids.map((raw, i) => {
+      const id = Number(raw);
+      if (!Number.isInteger(id) || id < 1) throw badRequest(`Material id "${raw}" is not valid.`, { [ids.length > 1 || field === 'materialIds' ? `${field}.${i}` : field]: 'Not a material id' });
+      return id;
+    });
+    const rows = await this.materials.findByIds(numeric);
+    const byId = new Map(rows.map((r) => [r.id, r]));
+    numeric.forEach((id, i) => {
+      if (!byId.has(id)) {
+        const key = field === 'materialIds' ? `${field}.${i}` : field;
+        throw badRequest(`No material with id ${id}.`, { [key]: `Unknown material ${id}` });
+      }
+    });
+    const stored = numeric.map((id) => toCoreMaterial(byId.get(id)!));
+    const given = inline.map((m, i) => ({
+      ...m,
+      id: m.id ?? `inline-${i + 1}`,
+      density: m.density ?? TYPICAL_DENSITY[m.family],
+    })) as CoreMaterial[];
+    return [...stored, ...given];
+  }
+}
+
+/** Twelve frequencies from a quarter to four times the switching frequency, evenly spaced on a log scale. */
+export function frequencySweepAround(frequency: number): number[] {
+  const points = 12;
+  return Array.from({ length: points }, (_, i) => frequency * 0.25 * 16 ** (i / (points - 1)));
+}

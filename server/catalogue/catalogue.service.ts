@@ -1,0 +1,33 @@
+import { loadCoreCatalogue } from '@core-data/catalogue';
+import { loadStandardWireOptions, loadWireTables } from '@core-data/wire-catalogue';
+import type { CoreShape, WireOption } from '@shared/engine/types';
+import { wireOptionFromChoice, type WireChoice } from '@shared/catalogue/wire-from-request';
+import { badRequest } from '../http/errors.ts';
+
+/** The shipped core and wire catalogues, loaded and validated once on first use. */
+export class CatalogueService {
+  private coresById?: Map<string, CoreShape>;
+  private wireOptions?: WireOption[];
+
+  cores(): CoreShape[] {
+    return [...this.coreIndex().values()];
+  }
+
+  core(id: string): CoreShape {
+    const core = this.coreIndex().get(id);
+    if (!core) throw badRequest(`No core "${id}" in the catalogue.`, { coreId: `Unknown core "${id}"` });
+    return core;
+  }
+
+  standardWires(): WireOption[] {
+    return (this.wireOptions ??= loadStandardWireOptions());
+  }
+
+  wire(choice: WireChoice): WireOption {
+    return wireOptionFromChoice(choice, loadWireTables());
+  }
+
+  private coreIndex(): Map<string, CoreShape> {
+    return (this.coresById ??= new Map(loadCoreCatalogue().map((c) => [c.id, c])));
+  }
+}

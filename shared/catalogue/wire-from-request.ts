@@ -1,0 +1,61 @@
+import type { WireOption } from '../engine/types';
+import {
+  awgDiameter,
+  awgLabel,
+  enamelledDiameter,
+  formatNominalMillimetres,
+  litzBundleDiameter,
+  LITZ_STRAND_GRADE,
+  type EnamelGrade,
+  type WireTables,
+} from './wire';
+
+/** A wire as a person names it: a kind, a bare strand size (or AWG gauge) and a count. */
+export interface WireChoice {
+  kind: 'awg' | 'metric' | 'litz';
+  strandDiameter?: number;
+  awg?: number;
+  strands: number;
+  grade?: EnamelGrade;
+}
+
+// Serving thickness per side assumed for a litz bundle named only by its strands (common practice, no source).
+const DEFAULT_LITZ_SERVING = 0.03e-3;
+
+/** Turns a named wire into the engine's WireOption, taking overall diameters from the IEC 60317 table. */
+export function wireOptionFromChoice(choice: WireChoice, tables: WireTables): WireOption {
+  const grade = choice.grade ?? 2;
+  if (choice.kind === 'litz') {
+    const strandDiameter = choice.strandDiameter ?? awgDiameter(choice.awg ?? 38);
+    const overallDiameter = litzBundleDiameter(
+      { strandDiameter, strandCount: choice.strands, servingThickness: DEFAULT_LITZ_SERVING, source: 'named by the user' },
+      tables.metric,
+    );
+    return {
+      id: `litz ${choice.strands} × ${formatNominalMillimetres(strandDiameter)} mm`,
+      kind: 'litz',
+      strandDiameter,
+      strands: choice.strands,
+      overallDiameter,
+      conductorsPerTurn: 1,
+      grade: LITZ_STRAND_GRADE,
+    };
+  }
+  const bare = choice.kind === 'awg' && choice.awg !== undefined ? awgDiameter(choice.awg) : choice.strandDiameter!;
+  const listed = tables.metric.find((size) => Math.abs(size.nominalDiameter - bare) < 1e-9);
+  const overallDiameter = listed
+    ? grade === 1
+      ? listed.grade1MaxDiameter
+      : listed.grade2MaxDiameter
+    : enamelledDiameter(bare, grade, tables.metric);
+  const label = choice.kind === 'awg' && choice.awg !== undefined ? `AWG ${awgLabel(choice.awg)}` : `${formatNominalMillimetres(bare)} mm`;
+  return {
+    id: `${label} ×${choice.strands} G${grade}`,
+    kind: choice.kind,
+    strandDiameter: bare,
+    strands: choice.strands,
+    overallDiameter,
+    conductorsPerTurn: choice.strands,
+    grade,
+  };
+}
