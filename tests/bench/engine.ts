@@ -1,6 +1,6 @@
 // Engine benchmark: candidate evaluations per second on one core, and search latency over the core catalogue
 // (1×, 4× and 16× with perturbed copies) × 20 invented materials × the proposed wire options.
-// Run directly: node --import tsx scripts/bench/engine.ts
+// Run directly: node --import tsx tests/bench/engine.ts (or npm run bench for the whole report)
 import { pathToFileURL } from 'node:url';
 import { performance } from 'node:perf_hooks';
 import {
