@@ -7,7 +7,6 @@ import {
   provideZonelessChangeDetection,
   type ApplicationConfig,
 } from '@angular/core';
-import { MAT_FORM_FIELD_DEFAULT_OPTIONS, type MatFormFieldDefaultOptions } from '@angular/material/form-field';
 import { MatIconRegistry } from '@angular/material/icon';
 import { provideRouter, withComponentInputBinding } from '@angular/router';
 
@@ -16,8 +15,6 @@ import { AppErrorHandler } from './core/app-error-handler';
 import { httpErrorInterceptor } from './core/http-error-interceptor';
 import { Session } from './core/session';
 import { ThemeSwitcher } from './core/theme-switcher';
-
-const formFieldDefaults: MatFormFieldDefaultOptions = { appearance: 'outline' };
 
 export const appConfig: ApplicationConfig = {
   providers: [
@@ -30,7 +27,6 @@ export const appConfig: ApplicationConfig = {
       withInterceptors([httpErrorInterceptor]),
     ),
     { provide: ErrorHandler, useClass: AppErrorHandler },
-    { provide: MAT_FORM_FIELD_DEFAULT_OPTIONS, useValue: formFieldDefaults },
     provideAppInitializer(() => {
       inject(MatIconRegistry).setDefaultFontSetClass('material-symbols-outlined');
       // Created now so the stored theme is on <html> before the first screen paints.
