@@ -1,0 +1,68 @@
+import { provideHttpClient } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { provideZonelessChangeDetection } from '@angular/core';
+import { TestBed, type ComponentFixture } from '@angular/core/testing';
+import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+
+import { PasswordForm } from './password-form';
+
+describe('PasswordForm', () => {
+  let fixture: ComponentFixture<PasswordForm>;
+  let http: HttpTestingController;
+  let page: HTMLElement;
+
+  beforeEach(async () => {
+    TestBed.configureTestingModule({
+      providers: [provideZonelessChangeDetection(), provideHttpClient(), provideHttpClientTesting()],
+    });
+    http = TestBed.inject(HttpTestingController);
+    fixture = TestBed.createComponent(PasswordForm);
+    page = fixture.nativeElement as HTMLElement;
+    await fixture.whenStable();
+  });
+
+  afterEach(() => http.verify());
+
+  function type(label: string, value: string): void {
+    const labelElement = [...page.querySelectorAll('label')].find((each) => each.textContent?.trim() === label);
+    const input = page.querySelector<HTMLInputElement>(`#${labelElement?.htmlFor}`);
+    if (!input) throw new Error(`No field labelled ${label}`);
+    input.value = value;
+    input.dispatchEvent(new Event('input'));
+  }
+
+  async function submit(current: string, fresh: string, confirmation: string): Promise<void> {
+    type('Current password', current);
+    type('New password', fresh);
+    type('Confirm new password', confirmation);
+    page.querySelector<HTMLButtonElement>('button[type="submit"]')!.click();
+    await fixture.whenStable();
+  }
+
+  const errorTexts = () => [...page.querySelectorAll('mat-error')].map((each) => each.textContent?.trim());
+
+  it('names what is wrong under each field and sends nothing', async () => {
+    await submit('', 'short', 'different');
+
+    http.expectNone('/api/account/password');
+    expect(errorTexts()).toEqual([
+      'Enter your current password',
+      'At least 8 characters',
+      'Does not match the new password',
+    ]);
+  });
+
+  it("shows the server's field message under the current-password field", async () => {
+    await submit('not-my-old-one', 'a long new passphrase', 'a long new passphrase');
+
+    const request = http.expectOne('/api/account/password');
+    expect(request.request.body).toEqual({ currentPassword: 'not-my-old-one', newPassword: 'a long new passphrase' });
+    request.flush(
+      { error: { code: 'validation_failed', message: 'Check the fields.', fields: { currentPassword: 'Current password is wrong' } } },
+      { status: 400, statusText: 'Bad Request' },
+    );
+    await fixture.whenStable();
+
+    expect(errorTexts()).toEqual(['Current password is wrong']);
+  });
+});
