@@ -1,5 +1,6 @@
 import { sql } from 'drizzle-orm';
 import {
+  type AnyPgColumn,
   boolean,
   check,
   doublePrecision,
@@ -100,6 +101,7 @@ export const materials = pgTable(
     rollOffC: doublePrecision('roll_off_c'),
     density: doublePrecision('density').notNull(),
     provenance: text('provenance').notNull(),
+    importId: integer('import_id').references((): AnyPgColumn => materialImports.id, { onDelete: 'set null' }),
     createdBy: integer('created_by').references(() => users.id, { onDelete: 'set null' }),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   },
@@ -111,3 +113,94 @@ export const materials = pgTable(
     check('materials_k_check', sql`${t.k} > 0`),
   ],
 );
+
+/** One CSV upload of materials: who uploaded what and when, and what it did. */
+export const materialImports = pgTable('material_imports', {
+  id: serial('id').primaryKey(),
+  fileName: varchar('file_name', { length: 200 }).notNull(),
+  uploadedBy: integer('uploaded_by').references(() => users.id, { onDelete: 'set null' }),
+  uploadedAt: timestamp('uploaded_at', { withTimezone: true }).notNull().defaultNow(),
+  rowCount: integer('row_count').notNull(),
+  createdCount: integer('created_count').notNull(),
+  versionedCount: integer('versioned_count').notNull(),
+  skippedCount: integer('skipped_count').notNull(),
+});
+
+/**
+ * Cores added by users, versioned like materials. `shape` holds the engine's CoreShape in SI units,
+ * validated with the shared core schema before it is stored.
+ */
+export const userCores = pgTable(
+  'user_cores',
+  {
+    id: serial('id').primaryKey(),
+    lineage: varchar('lineage', { length: 80 }).notNull(),
+    version: integer('version').notNull(),
+    current: boolean('current').notNull().default(true),
+    retired: boolean('retired').notNull().default(false),
+    name: varchar('name', { length: 80 }).notNull(),
+    family: varchar('family', { length: 20 }).notNull(),
+    shape: jsonb('shape').notNull(),
+    createdBy: integer('created_by').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex('user_cores_lineage_version_idx').on(t.lineage, t.version)],
+);
+
+export const REVISION_STATUSES = ['draft', 'in_review', 'approved', 'released', 'superseded'] as const;
+
+/** A design: a numbered inductor for one converter, owned by the engineer who created it. */
+export const designs = pgTable('designs', {
+  id: serial('id').primaryKey(),
+  number: varchar('number', { length: 20 }).notNull().unique(),
+  title: varchar('title', { length: 120 }).notNull(),
+  ownerId: integer('owner_id')
+    .notNull()
+    .references(() => users.id),
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
+});
+
+/**
+ * A revision of a design: the spec, the chosen construction, and a snapshot of every computed figure
+ * with the engine version that produced it. Only drafts change; later states are frozen.
+ */
+export const designRevisions = pgTable(
+  'design_revisions',
+  {
+    id: serial('id').primaryKey(),
+    designId: integer('design_id')
+      .notNull()
+      .references(() => designs.id, { onDelete: 'cascade' }),
+    revision: integer('revision').notNull(),
+    status: varchar('status', { length: 12, enum: REVISION_STATUSES }).notNull().default('draft'),
+    spec: jsonb('spec').notNull(),
+    construction: jsonb('construction'),
+    result: jsonb('result'),
+    engineVersion: varchar('engine_version', { length: 20 }),
+    materialId: integer('material_id').references(() => materials.id),
+    note: text('note'),
+    createdBy: integer('created_by').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
+    approvedBy: integer('approved_by').references(() => users.id, { onDelete: 'set null' }),
+    releasedAt: timestamp('released_at', { withTimezone: true }),
+  },
+  (t) => [
+    uniqueIndex('design_revisions_design_revision_idx').on(t.designId, t.revision),
+    check('design_revisions_status_check', sql`${t.status} in ('draft', 'in_review', 'approved', 'released', 'superseded')`),
+  ],
+);
+
+/** Every state change of a revision (who, when, comment): the design's timeline. */
+export const revisionTransitions = pgTable('revision_transitions', {
+  id: serial('id').primaryKey(),
+  revisionId: integer('revision_id')
+    .notNull()
+    .references(() => designRevisions.id, { onDelete: 'cascade' }),
+  fromStatus: varchar('from_status', { length: 12 }),
+  toStatus: varchar('to_status', { length: 12 }).notNull(),
+  actorId: integer('actor_id').references(() => users.id, { onDelete: 'set null' }),
+  comment: text('comment'),
+  at: timestamp('at', { withTimezone: true }).notNull().defaultNow(),
+});
