@@ -2,11 +2,13 @@ import type { Routes } from '@angular/router';
 
 import { authGuard } from './core/auth-guard';
 import { roleGuard } from './core/role-guard';
+import { signedOutGuard } from './core/signed-out-guard';
 
 export const routes: Routes = [
   {
     path: 'sign-in',
     title: 'Sign in · Gapwright',
+    canActivate: [signedOutGuard],
     loadComponent: () => import('./sign-in/sign-in').then((m) => m.SignIn),
   },
   {

@@ -9,6 +9,7 @@ import { userWithRole } from '../testing/users';
 import { authGuard } from './auth-guard';
 import { roleGuard } from './role-guard';
 import { Session } from './session';
+import { signedOutGuard } from './signed-out-guard';
 
 const route = {} as ActivatedRouteSnapshot;
 const stateAt = (url: string) => ({ url }) as RouterStateSnapshot;
@@ -48,5 +49,25 @@ describe('guards', () => {
     signInAs('admin');
 
     expect(TestBed.runInInjectionContext(() => roleGuard(['admin'])(route, stateAt('/admin/users')))).toBe(true);
+  });
+});
+
+describe('signedOutGuard', () => {
+  beforeEach(() => {
+    TestBed.configureTestingModule({
+      providers: [provideZonelessChangeDetection(), provideRouter([]), provideHttpClient()],
+    });
+  });
+
+  it('sends a signed-in user away from the sign-in page to home', () => {
+    TestBed.inject(Session).replaceUser(userWithRole('reviewer'));
+
+    const result = TestBed.runInInjectionContext(() => signedOutGuard(route, stateAt('/sign-in')));
+
+    expect(result instanceof UrlTree ? TestBed.inject(Router).serializeUrl(result) : result).toBe('/');
+  });
+
+  it('shows the sign-in page to a signed-out visitor', () => {
+    expect(TestBed.runInInjectionContext(() => signedOutGuard(route, stateAt('/sign-in')))).toBe(true);
   });
 });
