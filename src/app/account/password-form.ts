@@ -6,10 +6,10 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { PASSWORD_MAX, PASSWORD_MIN } from '@shared/schemas/auth';
 
-import { apiErrorOf, errorMessageOf } from '../core/api-error';
+import { showServerFieldErrors } from '../core/server-field-errors';
 import { Notifier } from '../core/notifier';
 import { AccountApi } from './account-api';
-import { matchingSibling } from './matching-password';
+import { matchingSibling } from './matching-sibling';
 
 @Component({
   selector: 'gw-password-form',
@@ -62,21 +62,8 @@ export class PasswordForm {
       },
       error: (error: unknown) => {
         this.submitting.set(false);
-        this.showServerErrors(error);
+        this.failure.set(showServerFieldErrors(this.form, error));
       },
     });
-  }
-
-  private showServerErrors(error: unknown): void {
-    const fields = apiErrorOf(error)?.fields ?? {};
-    let shownOnAField = false;
-    for (const [name, message] of Object.entries(fields)) {
-      const control = this.form.get(name);
-      if (!control) continue;
-      control.setErrors({ server: message });
-      control.markAsTouched();
-      shownOnAField = true;
-    }
-    if (!shownOnAField) this.failure.set(errorMessageOf(error));
   }
 }

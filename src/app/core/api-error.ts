@@ -17,10 +17,6 @@ export function apiErrorOf(error: unknown): ApiError | null {
   return parsed.success ? parsed.data.error : null;
 }
 
-export function fieldErrorsOf(error: unknown): Readonly<Record<string, string>> {
-  return apiErrorOf(error)?.fields ?? {};
-}
-
 /** A sentence a person can act on, preferring the server's own message. */
 export function errorMessageOf(error: unknown): string {
   const apiError = apiErrorOf(error);

@@ -6,7 +6,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { PASSWORD_MAX, PASSWORD_MIN, ROLES, type Role, type User } from '@shared/schemas/auth';
 
-import { apiErrorOf, errorMessageOf } from '../../core/api-error';
+import { showServerFieldErrors } from '../../core/server-field-errors';
 import { ROLE_LABELS } from '../../core/roles';
 import { UsersApi } from './users-api';
 
@@ -63,21 +63,8 @@ export class UserCreateForm {
         },
         error: (error: unknown) => {
           this.submitting.set(false);
-          this.showServerErrors(error);
+          this.failure.set(showServerFieldErrors(this.form, error));
         },
       });
-  }
-
-  private showServerErrors(error: unknown): void {
-    const fields = apiErrorOf(error)?.fields ?? {};
-    let shownOnAField = false;
-    for (const [name, message] of Object.entries(fields)) {
-      const control = this.form.get(name);
-      if (!control) continue;
-      control.setErrors({ server: message });
-      control.markAsTouched();
-      shownOnAField = true;
-    }
-    if (!shownOnAField) this.failure.set(errorMessageOf(error));
   }
 }
