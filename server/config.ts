@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 
 // The only place that reads process.env: everything else receives a validated Config.
 const envSchema = z.object({

@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { z } from 'zod';
+import * as z from 'zod';
 import { parseQuery } from '../http/validate.ts';
 import { requireRole } from '../http/access.ts';
 import type { AuditService } from './audit.service.ts';

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 import { coreLossRequestSchema, evaluateRequestSchema, operatingPointRequestSchema, searchRequestSchema } from '@shared/schemas/calc';
 import { ENGINE_VERSION } from '@shared/engine/index';
 import { APP_VERSION } from '../health/health.router.ts';

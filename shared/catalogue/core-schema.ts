@@ -2,7 +2,7 @@
 // the shipped core tables (trade units: mm, mm², mm³). Pure zod, so the server can
 // validate user-added cores with the same rules.
 
-import { z } from 'zod';
+import * as z from 'zod';
 import { CORE_FAMILIES, type CoreFamily, type CoreShape } from '@shared/engine/types';
 
 /** Ve may differ from Ae·le by this fraction (published tables round each figure separately). */

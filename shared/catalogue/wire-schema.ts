@@ -1,6 +1,6 @@
 // Validation of the shipped wire tables (values in mm, as the trade quotes them).
 
-import { z } from 'zod';
+import * as z from 'zod';
 
 const positiveCell = z
   .string()

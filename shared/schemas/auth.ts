@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 
 export const ROLES = ['engineer', 'reviewer', 'winder', 'admin'] as const;
 export const roleSchema = z.enum(ROLES);

@@ -1,6 +1,6 @@
 // Request schemas of the four calculation endpoints. SI units throughout (V, A, Hz, H, T, m, A/m², °C).
 // Every number is finite (zod 4 rejects NaN and ±Infinity); messages name the field and the allowed range.
-import { z } from 'zod';
+import * as z from 'zod';
 import { CORE_FAMILIES, MATERIAL_FAMILIES } from '@shared/engine/types';
 
 function rangeNumber(field: string, min: number, max: number, unit: string, description: string) {

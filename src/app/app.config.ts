@@ -9,6 +9,7 @@ import {
 } from '@angular/core';
 import { MatIconRegistry } from '@angular/material/icon';
 import { provideRouter, withComponentInputBinding } from '@angular/router';
+import { provideEchartsCore } from 'ngx-echarts';
 
 import { routes } from './app.routes';
 import { AppErrorHandler } from './core/app-error-handler';
@@ -27,6 +28,7 @@ export const appConfig: ApplicationConfig = {
       withInterceptors([httpErrorInterceptor]),
     ),
     { provide: ErrorHandler, useClass: AppErrorHandler },
+    provideEchartsCore({ echarts: () => import('./charts/echarts-setup').then((m) => m.echarts) }),
     provideAppInitializer(() => {
       inject(MatIconRegistry).setDefaultFontSetClass('material-symbols-outlined');
       // Created now so the stored theme is on <html> before the first screen paints.
