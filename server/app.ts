@@ -8,6 +8,8 @@ import { AuditRepository } from './audit/audit.repository.ts';
 import { AuditService } from './audit/audit.service.ts';
 import { authRouter } from './auth/auth.router.ts';
 import { createCsrf } from './auth/csrf.ts';
+import { createDesignServices } from './designs/design-services.ts';
+import { designsRouter } from './designs/designs.router.ts';
 import { createPassport } from './auth/passport.ts';
 import { absoluteLifetime, createSessionMiddleware } from './auth/session.ts';
 import { calcRouter } from './calc/calc.router.ts';
@@ -19,6 +21,8 @@ import type { Db } from './db/client.ts';
 import { healthRouter } from './health/health.router.ts';
 import { MaterialsRepository } from './materials/materials.repository.ts';
 import { materialsRouter } from './materials/materials.router.ts';
+import { materialLibraryRouter } from './materials/material-library.router.ts';
+import { MaterialsService } from './materials/materials.service.ts';
 import { buildOpenApiDocument } from './openapi/openapi.ts';
 import type { AppError } from './http/errors.ts';
 import { apiNotFound, errorMiddleware } from './http/errors.ts';
@@ -41,6 +45,7 @@ export interface Services {
   catalogue: CatalogueService;
   materials: MaterialsRepository;
   calc: CalcService;
+  materialLibrary: MaterialsService;
 }
 
 export function createServices({ config, db }: Pick<AppDeps, 'config' | 'db'>): Services {
@@ -49,12 +54,14 @@ export function createServices({ config, db }: Pick<AppDeps, 'config' | 'db'>): 
   const catalogue = new CatalogueService();
   const materials = new MaterialsRepository(db);
   const calc = new CalcService(catalogue, materials);
-  return { audit, users, catalogue, materials, calc };
+  const materialLibrary = new MaterialsService(materials, audit);
+  return { audit, users, catalogue, materials, calc, materialLibrary };
 }
 
 export function createApp(deps: AppDeps) {
   const { config, pool, logger } = deps;
   const services = createServices(deps);
+  const designServices = createDesignServices(deps.db, services);
   const { audit, users, catalogue, materials, calc } = services;
   const openApiDocument = buildOpenApiDocument();
   const passport = createPassport(users);
@@ -105,6 +112,8 @@ export function createApp(deps: AppDeps) {
   api.use('/admin/audit', auditRouter(audit));
   api.use('/calc', calcRouter(calc));
   api.use('/catalogue', catalogueRouter(catalogue));
+  api.use('/designs', designsRouter(designServices.designs, designServices.exports));
+  api.use('/materials', materialLibraryRouter(services.materialLibrary));
   api.use('/materials', materialsRouter(materials));
   api.use(apiNotFound);
   app.use('/api', api);

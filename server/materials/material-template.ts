@@ -1,0 +1,57 @@
+import type { MaterialCsvColumn } from '@shared/schemas/materials';
+
+/**
+ * The downloadable template: two invented, illustrative materials, one in each unit set. Neither is any
+ * maker's grade. The ferrite's k gives about 80 kW/m³ at 100 kHz and 0.1 T peak, the powder's about
+ * 300 mW/cm³ at 100 kHz and 50 mT peak (plausible orders of magnitude; common practice, no source).
+ */
+export const TEMPLATE_ROWS: Record<MaterialCsvColumn, string>[] = [
+  {
+    name: 'Example ferrite EF-1 (illustrative)',
+    family: 'ferrite',
+    unit_set: 'W/m3-Hz-T',
+    k: '3.2',
+    alpha: '1.4',
+    beta: '2.6',
+    f_min: '50000',
+    f_max: '300000',
+    b_min: '0.02',
+    b_max: '0.25',
+    ct0: '1.81',
+    ct1: '0.018',
+    ct2: '0.0001',
+    t_ref: '90',
+    bsat_25: '0.5',
+    bsat_100: '0.4',
+    mu_i: '2300',
+    rolloff_a: '',
+    rolloff_b: '',
+    rolloff_c: '',
+    density: '4800',
+    provenance: 'Invented example, illustrative only',
+  },
+  {
+    name: 'Example powder EP-2 (illustrative)',
+    family: 'powder',
+    unit_set: 'mW/cm3-kHz-mT',
+    k: '0.00014',
+    alpha: '1.3',
+    beta: '2.2',
+    f_min: '20',
+    f_max: '200',
+    b_min: '10',
+    b_max: '200',
+    ct0: '',
+    ct1: '',
+    ct2: '',
+    t_ref: '',
+    bsat_25: '1000',
+    bsat_100: '950',
+    mu_i: '60',
+    rolloff_a: '1',
+    rolloff_b: '2.2e-7',
+    rolloff_c: '1.8',
+    density: '6500',
+    provenance: 'Invented example, illustrative only',
+  },
+];

@@ -1,0 +1,240 @@
+import {
+  importDecisionsSchema,
+  materialCellsFromValues,
+  validateMaterialCells,
+  type CellProblem,
+  type ImportDecision,
+  type ImportPreview,
+  type MaterialEdit,
+  type MaterialValues,
+  type PreviewRow,
+} from '@shared/schemas/materials';
+import type { AuditService } from '../audit/audit.service.ts';
+import type { Actor } from '../http/access.ts';
+import { AppError, badRequest, conflict, notFound } from '../http/errors.ts';
+import { parseWith } from '../http/validate.ts';
+import { decodeCsvText, parseMaterialCsv, stringifyMaterialCsv } from './material-csv.ts';
+import { TEMPLATE_ROWS } from './material-template.ts';
+import { toMaterialSummary } from './material-view.ts';
+import type { MaterialRow, MaterialsRepository, MaterialWithAuthor, Tx } from './materials.repository.ts';
+
+export interface UploadedFile {
+  originalname: string;
+  buffer: Buffer;
+}
+
+interface Analysis {
+  rows: PreviewRow[];
+  valid: { row: number; values: MaterialValues; existing?: MaterialRow }[];
+}
+
+export function lineageSlug(name: string): string {
+  return name.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '').slice(0, 70) || 'material';
+}
+
+function uniqueLineage(name: string, taken: Set<string>): string {
+  const base = lineageSlug(name);
+  let lineage = base;
+  for (let n = 2; taken.has(lineage); n++) lineage = `${base}-${n}`;
+  taken.add(lineage);
+  return lineage;
+}
+
+function valuesOf(row: MaterialRow): MaterialValues {
+  const { id: _id, lineage: _l, version: _v, current: _c, retired: _r, importId: _i, createdBy: _b, createdAt: _a, ...values } = row;
+  return values;
+}
+
+export function materialDetail(row: MaterialWithAuthor) {
+  return { ...toMaterialSummary(row), current: row.current, createdBy: row.createdByName, cells: materialCellsFromValues(valuesOf(row)) };
+}
+
+/** The rows of a file checked against each other and against the library. */
+function analyse(fileBuffer: Buffer, existing: Map<string, MaterialRow>): Analysis {
+  const records = parseMaterialCsv(decodeCsvText(fileBuffer));
+  const firstRowOfName = new Map<string, number>();
+  const analysis: Analysis = { rows: [], valid: [] };
+  for (const record of records) {
+    const { values, problems } = validateMaterialCells(record.cells);
+    const allProblems: CellProblem[] = record.shapeProblem ? [{ column: '(row)', message: `Row ${record.shapeProblem}` }, ...problems] : problems;
+    const name = (record.cells.name ?? '').trim();
+    const key = name.toLowerCase();
+    if (key) {
+      const first = firstRowOfName.get(key);
+      if (first !== undefined) allProblems.push({ column: 'name', message: `name "${name.slice(0, 80)}" already appears in row ${first}` });
+      else firstRowOfName.set(key, record.row);
+    }
+    const stored = key ? existing.get(key) : undefined;
+    const status = allProblems.length ? 'error' : stored ? 'exists' : 'new';
+    analysis.rows.push({ row: record.row, name: name.slice(0, 80), status, problems: allProblems });
+    if (values && !allProblems.length) analysis.valid.push({ row: record.row, values, ...(stored ? { existing: stored } : {}) });
+  }
+  return analysis;
+}
+
+function summarise(fileName: string, rows: PreviewRow[]): ImportPreview {
+  return {
+    fileName,
+    rows,
+    summary: {
+      rows: rows.length,
+      new: rows.filter((r) => r.status === 'new').length,
+      exists: rows.filter((r) => r.status === 'exists').length,
+      errors: rows.filter((r) => r.status === 'error').length,
+    },
+  };
+}
+
+function rowErrors(rows: PreviewRow[]): AppError {
+  const fields: Record<string, string> = {};
+  for (const row of rows) for (const p of row.problems) fields[`row ${row.row}.${p.column}`] ??= p.message;
+  const count = rows.filter((r) => r.problems.length).length;
+  const first = Object.entries(fields).slice(0, 3).map(([k, v]) => `${k}: ${v}`).join('; ');
+  return new AppError(400, 'invalid_rows', `${count} row${count === 1 ? '' : 's'} cannot be imported; nothing was written. ${first}`, fields);
+}
+
+export class MaterialsService {
+  constructor(
+    private readonly repo: MaterialsRepository,
+    private readonly audit: AuditService,
+  ) {}
+
+  async list() {
+    return (await this.repo.listWithAuthors()).map(materialDetail);
+  }
+
+  async history(id: number) {
+    const row = await this.repo.findById(id);
+    if (!row) throw notFound(`No material with id ${id}.`);
+    return (await this.repo.history(row.lineage)).map(materialDetail);
+  }
+
+  async imports() {
+    return (await this.repo.listImports()).map(({ entry, uploadedByName }) => ({
+      id: entry.id,
+      fileName: entry.fileName,
+      uploadedBy: uploadedByName,
+      uploadedAt: entry.uploadedAt.toISOString(),
+      rowCount: entry.rowCount,
+      createdCount: entry.createdCount,
+      versionedCount: entry.versionedCount,
+      skippedCount: entry.skippedCount,
+    }));
+  }
+
+  template(): string {
+    return stringifyMaterialCsv(TEMPLATE_ROWS);
+  }
+
+  async exportCsv(ids?: number[]): Promise<string> {
+    const rows = ids ? await this.repo.findByIds(ids) : await this.repo.listCurrent(true);
+    if (ids && rows.length !== new Set(ids).size) throw badRequest('Some material ids do not exist.', { ids: 'Unknown material id' });
+    return stringifyMaterialCsv(rows.sort((a, b) => a.name.localeCompare(b.name)).map((r) => materialCellsFromValues(valuesOf(r))));
+  }
+
+  async preview(file: UploadedFile): Promise<ImportPreview> {
+    const analysis = analyse(file.buffer, await this.repo.currentByLowerName());
+    return summarise(file.originalname, analysis.rows);
+  }
+
+  /** All or nothing: any row problem or missing decision refuses the whole file. */
+  async commit(file: UploadedFile, rawDecisions: unknown, actor: Actor) {
+    const decisions = parseWith(importDecisionsSchema, rawDecisions ?? {});
+    const byLowerName = new Map(Object.entries(decisions).map(([name, d]) => [name.trim().toLowerCase(), d] as [string, ImportDecision]));
+    const result = await this.repo.db.transaction(async (tx) => {
+      const existing = await this.repo.currentByLowerName(tx);
+      const analysis = analyse(file.buffer, existing);
+      if (analysis.rows.some((r) => r.status === 'error')) throw rowErrors(analysis.rows);
+      const undecided: Record<string, string> = {};
+      for (const v of analysis.valid) {
+        if (v.existing && !byLowerName.has(v.values.name.toLowerCase())) {
+          undecided[`row ${v.row}.name`] = `"${v.values.name}" already exists: choose "new-version" or "skip"`;
+        }
+      }
+      if (Object.keys(undecided).length) throw badRequest('Choose what to do with the names that already exist; nothing was written.', undecided);
+      return this.write(tx, file, analysis, byLowerName, actor);
+    });
+    await this.audit.record({
+      actorId: actor.id,
+      action: 'materials.imported',
+      target: file.originalname.slice(0, 200),
+      details: { importId: result.importId, created: result.created, versioned: result.versioned, skipped: result.skipped },
+    });
+    return result;
+  }
+
+  private async write(tx: Tx, file: UploadedFile, analysis: Analysis, decisions: Map<string, ImportDecision>, actor: Actor) {
+    const taken = await this.repo.lineages(tx);
+    const toInsert = [];
+    const superseded: number[] = [];
+    let created = 0;
+    let versioned = 0;
+    let skipped = 0;
+    for (const { values, existing } of analysis.valid) {
+      if (existing) {
+        if (decisions.get(values.name.toLowerCase()) === 'skip') {
+          skipped++;
+          continue;
+        }
+        superseded.push(existing.id);
+        toInsert.push({ ...values, lineage: existing.lineage, version: existing.version + 1 });
+        versioned++;
+      } else {
+        toInsert.push({ ...values, lineage: uniqueLineage(values.name, taken), version: 1 });
+        created++;
+      }
+    }
+    const entry = await this.repo.insertImport(tx, {
+      fileName: file.originalname.slice(0, 200) || 'upload.csv',
+      uploadedBy: actor.id,
+      rowCount: analysis.rows.length,
+      createdCount: created,
+      versionedCount: versioned,
+      skippedCount: skipped,
+    });
+    await this.repo.retireCurrentVersions(tx, superseded);
+    const inserted = await this.repo.insertVersions(
+      tx,
+      toInsert.map((r) => ({ ...r, importId: entry.id, createdBy: actor.id })),
+    );
+    return { importId: entry.id, created, versioned, skipped, materialIds: inserted.map((r) => r.id) };
+  }
+
+  /** An edit makes a new version; designs keep the id of the version they used. */
+  async edit(id: number, edit: MaterialEdit, actor: Actor) {
+    const result = await this.repo.db.transaction(async (tx) => {
+      const existing = await this.repo.currentByLowerName(tx);
+      const row = [...existing.values()].find((r) => r.id === id);
+      if (!row) {
+        if (await this.repo.findById(id)) throw conflict('Only the current version of a material can be edited.', { id: 'Not the current version' });
+        throw notFound(`No material with id ${id}.`);
+      }
+      const cells: Record<string, string> = { ...materialCellsFromValues(valuesOf(row)) };
+      for (const [column, value] of Object.entries(edit)) if (value !== undefined) cells[column] = String(value);
+      const { values, problems } = validateMaterialCells(cells);
+      if (!values) {
+        const fields = Object.fromEntries(problems.map((p) => [p.column, p.message]));
+        throw badRequest(`The edit is not valid: ${problems.map((p) => p.message).slice(0, 3).join('; ')}`, fields);
+      }
+      const clash = existing.get(values.name.toLowerCase());
+      if (clash && clash.id !== row.id) throw conflict(`Another material is already called "${values.name}".`, { name: 'Name already used' });
+      await this.repo.retireCurrentVersions(tx, [row.id]);
+      const [inserted] = await this.repo.insertVersions(tx, [
+        { ...values, lineage: row.lineage, version: row.version + 1, retired: row.retired, importId: null, createdBy: actor.id },
+      ]);
+      return inserted!;
+    });
+    await this.audit.record({ actorId: actor.id, action: 'material.edited', target: result.name, details: { id: result.id, version: result.version } });
+    return materialDetail({ ...result, createdByName: actor.displayName });
+  }
+
+  async setRetired(id: number, retired: boolean, actor: Actor) {
+    const row = await this.repo.setRetired(id, retired);
+    if (!row) {
+      if (await this.repo.findById(id)) throw conflict('Only the current version of a material can be retired or restored.', { id: 'Not the current version' });
+      throw notFound(`No material with id ${id}.`);
+    }
+    await this.audit.record({ actorId: actor.id, action: retired ? 'material.retired' : 'material.unretired', target: row.name, details: { id } });
+    return materialDetail({ ...row, createdByName: null });
+  }
+}
