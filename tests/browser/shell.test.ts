@@ -87,8 +87,8 @@ describe('the shell', () => {
 
 describe('accessibility (axe): no serious or critical findings', () => {
   const screens: { name: string; role: Role | null; path: string; ready: string }[] = [
-    { name: 'sign-in', role: null, path: '/sign-in', ready: 'Sign in' },
-    { name: 'home', role: 'engineer', path: '/', ready: 'Home' },
+    { name: 'sign-in', role: null, path: '/sign-in', ready: 'Sign in to Gapwright' },
+    { name: 'home', role: 'engineer', path: '/', ready: 'Welcome, Erin Calder' },
     { name: 'account', role: 'engineer', path: '/account', ready: 'My account' },
     { name: 'users', role: 'admin', path: '/admin/users', ready: 'Users' },
     { name: 'audit', role: 'admin', path: '/admin/audit', ready: 'Audit log' },

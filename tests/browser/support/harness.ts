@@ -1,5 +1,4 @@
-import { mkdirSync, mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import { AxeBuilder } from '@axe-core/playwright';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
@@ -36,8 +35,8 @@ export async function startHarness(): Promise<Harness> {
   await resetDatabase(createDb(pool), config);
   await pool.end();
   const server: RunningServer = await startServer(config);
-  const userDataDir = mkdtempSync(path.join(tmpdir(), 'gapwright-chromium-'));
-  const browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: [...CHROMIUM_ARGS, `--user-data-dir=${userDataDir}`] });
+  // playwright-core starts Chromium with a fresh, throwaway profile directory of its own.
+  const browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: CHROMIUM_ARGS });
   mkdirSync(RESULTS_DIR, { recursive: true });
   return {
     baseUrl: server.url,
@@ -49,7 +48,6 @@ export async function startHarness(): Promise<Harness> {
     close: async () => {
       await browser.close();
       await server.stop();
-      rmSync(userDataDir, { recursive: true, force: true });
     },
   };
 }
