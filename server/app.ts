@@ -10,6 +10,8 @@ import { authRouter } from './auth/auth.router.ts';
 import { createCsrf } from './auth/csrf.ts';
 import { createDesignServices } from './designs/design-services.ts';
 import { designsRouter } from './designs/designs.router.ts';
+import { createDesignServices } from './designs/design-services.ts';
+import { designsRouter } from './designs/designs.router.ts';
 import { createPassport } from './auth/passport.ts';
 import { absoluteLifetime, createSessionMiddleware } from './auth/session.ts';
 import { calcRouter } from './calc/calc.router.ts';
@@ -62,6 +64,7 @@ export function createApp(deps: AppDeps) {
   const { config, pool, logger } = deps;
   const services = createServices(deps);
   const designServices = createDesignServices(deps.db, services);
+  const designServices = createDesignServices(deps.db, services);
   const { audit, users, catalogue, materials, calc } = services;
   const openApiDocument = buildOpenApiDocument();
   const passport = createPassport(users);
@@ -112,6 +115,7 @@ export function createApp(deps: AppDeps) {
   api.use('/admin/audit', auditRouter(audit));
   api.use('/calc', calcRouter(calc));
   api.use('/catalogue', catalogueRouter(catalogue));
+  api.use('/designs', designsRouter(designServices.designs, designServices.exports));
   api.use('/designs', designsRouter(designServices.designs, designServices.exports));
   api.use('/materials', materialLibraryRouter(services.materialLibrary));
   api.use('/materials', materialsRouter(materials));

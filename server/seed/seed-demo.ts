@@ -2,6 +2,7 @@ import bcrypt from 'bcryptjs';
 import { eq } from 'drizzle-orm';
 import type { Db } from '../db/client.ts';
 import { appSettings, auditLog, materials, users } from '../db/schema.ts';
+import { seedDemoDesigns } from './demo-designs.ts';
 import { DEMO_MATERIALS, kFromAnchor } from './demo-materials.ts';
 import { DEMO_COMPANY, DEMO_USERS } from './demo-scenario.ts';
 
@@ -53,6 +54,7 @@ export async function seedDemoOnce(db: Db, bcryptCost: number): Promise<boolean>
         };
       }),
     );
+    await seedDemoDesigns(tx);
     await tx.insert(appSettings).values({ key: SEEDED_KEY, value: { company: DEMO_COMPANY, at: new Date().toISOString() } });
     await tx.insert(auditLog).values({ action: 'demo.seeded', target: DEMO_COMPANY });
   });

@@ -1,9 +1,10 @@
 // Reads what a person types into a number field ("4.7 µH", "250kHz", "85 °C", "30 %", "3 A/mm^2") as SI.
 // Only the unit machinery of mathjs is loaded, to keep the browser bundle small.
-import { create, unitDependencies } from 'mathjs';
+import { create, unitDependencies, type Unit } from 'mathjs';
 import { QUANTITIES, type QuantityKind } from './quantities';
 
 const math = create({ unitDependencies });
+const toUnit = (text: string): Unit => math.unit(text) as Unit;
 
 export type ParseResult = { ok: true; value: number } | { ok: false; error: string };
 
@@ -45,13 +46,13 @@ export function parseQuantity(text: string, kind: QuantityKind): ParseResult {
   }
   if (kind === 'count') return { ok: false, error: `Expected ${info.expected}` };
 
-  let unit: ReturnType<typeof math.unit>;
+  let unit: Unit;
   try {
-    unit = math.unit(cleaned);
+    unit = toUnit(cleaned);
   } catch {
     return { ok: false, error: `"${text.trim()}" is not a number with a unit; expected ${info.expected}` };
   }
-  const reference = math.unit(info.reference);
+  const reference = toUnit(info.reference);
   if (!unit.equalBase(reference)) {
     return { ok: false, error: `Expected ${info.expected}, not ${describeDimension(unit)}` };
   }
@@ -90,9 +91,9 @@ const DIMENSION_NAMES: [string, string][] = [
   ['kg', 'a mass'],
 ];
 
-function describeDimension(unit: ReturnType<typeof math.unit>): string {
+function describeDimension(unit: Unit): string {
   for (const [symbol, name] of DIMENSION_NAMES) {
-    if (unit.equalBase(math.unit(symbol))) return `${name} (${symbol.replace('ohm', 'Ω')})`;
+    if (unit.equalBase(toUnit(symbol))) return `${name} (${symbol.replace('ohm', 'Ω')})`;
   }
   return `"${unit.formatUnits()}"`;
 }

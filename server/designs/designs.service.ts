@@ -1,0 +1,298 @@
+import type { EvaluationResult } from '@shared/engine/index';
+import type { Role } from '@shared/schemas/auth';
+import type {
+  Construction,
+  CopyDesignRequest,
+  CreateDesignRequest,
+  DesignDetail,
+  DesignFile,
+  DesignListQuery,
+  DesignListResponse,
+  DesignSpec,
+  NewRevisionRequest,
+  RevisionDetail,
+  RevisionDiff,
+  RevisionSummary,
+  StoredResult,
+  UpdateRevisionRequest,
+} from '@shared/schemas/designs';
+import { formatQuantity } from '@shared/units/index';
+import type { AuditService } from '../audit/audit.service.ts';
+import type { CalcService } from '../calc/calc.service.ts';
+import type { Actor } from '../http/access.ts';
+import { conflict, forbidden, notFound } from '../http/errors.ts';
+import type { MaterialsRepository } from '../materials/materials.repository.ts';
+import { diffObjects } from './flatten.ts';
+import type { DesignWithOwner, DesignsRepository, NewRevisionRow, RevisionRow } from './designs.repository.ts';
+
+/** Roles that may create and edit designs of their own. */
+export const DESIGNER_ROLES: readonly Role[] = ['engineer', 'admin'];
+
+export interface EvaluatedConstruction {
+  construction: Construction;
+  result: StoredResult;
+  engineVersion: string;
+  materialId: number;
+}
+
+export function converterSummary(spec: DesignSpec | undefined): string {
+  const c = spec?.converter;
+  if (!c) return '';
+  const vin = c.vinMin === c.vinMax ? formatQuantity(c.vinMin, 'voltage', 3) : `${formatQuantity(c.vinMin, 'voltage', 3).replace(/ .*$/, '')}–${formatQuantity(c.vinMax, 'voltage', 3)}`;
+  return `${vin} → ${formatQuantity(c.vout, 'voltage', 3)}, ${formatQuantity(c.ioutMax, 'current', 3)}, ${formatQuantity(c.frequency, 'frequency', 3)}`;
+}
+
+export class DesignsService {
+  constructor(
+    private readonly repo: DesignsRepository,
+    private readonly calc: CalcService,
+    private readonly materials: MaterialsRepository,
+    private readonly audit: AuditService,
+  ) {}
+
+  async list(actor: Actor, query: DesignListQuery): Promise<DesignListResponse> {
+    const { rows, total } = await this.repo.list(query, actor.id);
+    return {
+      total,
+      page: query.page,
+      pageSize: query.pageSize,
+      items: rows.map((r) => ({
+        id: r.id,
+        number: r.number,
+        title: r.title,
+        owner: { id: r.ownerId, displayName: r.ownerName },
+        status: r.status,
+        revision: r.revision,
+        summary: converterSummary(r.spec as DesignSpec),
+        updatedAt: r.updatedAt.toISOString(),
+      })),
+    };
+  }
+
+  async get(actor: Actor, id: number): Promise<DesignDetail> {
+    const design = await this.mustFind(id);
+    const revisions = await this.repo.revisions(id);
+    return this.detail(actor, design, revisions);
+  }
+
+  async revision(id: number, revision: number): Promise<RevisionDetail & { design: { id: number; number: string; title: string } }> {
+    const design = await this.mustFind(id);
+    const row = await this.repo.revision(id, revision);
+    if (!row) throw notFound(`Design ${design.number} has no revision ${revision}.`);
+    return { ...revisionDetail(row), design: { id: design.id, number: design.number, title: design.title } };
+  }
+
+  async create(actor: Actor, request: CreateDesignRequest, action = 'design.created'): Promise<DesignDetail> {
+    this.mustDesign(actor);
+    const evaluated = request.construction ? await this.evaluate(request.spec, request.construction) : undefined;
+    const { design, revision } = await this.repo.db.transaction(async (tx) => {
+      const design = await this.repo.insertDesign(tx, request.title, actor.id);
+      const revision = await this.repo.insertRevision(tx, revisionValues(design.id, 1, actor.id, request.spec, evaluated, request.note));
+      return { design, revision };
+    });
+    await this.audit.record({ actorId: actor.id, action, target: design.number, details: { title: design.title } });
+    return this.detail(actor, { ...design, ownerName: actor.displayName }, [revision]);
+  }
+
+  async copy(actor: Actor, id: number, request: CopyDesignRequest): Promise<DesignDetail> {
+    this.mustDesign(actor);
+    const source = await this.mustFind(id);
+    const revisions = await this.repo.revisions(id);
+    const from = request.revision ? revisions.find((r) => r.revision === request.revision) : revisions.at(-1);
+    if (!from) throw notFound(`Design ${source.number} has no revision ${request.revision}.`);
+    const construction = (from.construction as Construction | null) ?? undefined;
+    return this.create(
+      actor,
+      { title: request.title ?? `Copy of ${source.title}`.slice(0, 120), spec: from.spec as DesignSpec, construction, note: `Copied from ${source.number} revision ${from.revision}` },
+      'design.copied',
+    );
+  }
+
+  importFile(actor: Actor, file: DesignFile): Promise<DesignDetail> {
+    return this.create(actor, { title: file.title, spec: file.spec, construction: file.construction ?? undefined, note: 'Imported from a design file' }, 'design.imported');
+  }
+
+  async update(actor: Actor, id: number, revision: number, request: UpdateRevisionRequest): Promise<RevisionDetail> {
+    this.mustDesign(actor);
+    const design = await this.mustFind(id);
+    this.mustOwn(actor, design);
+    const row = await this.repo.revision(id, revision);
+    if (!row) throw notFound(`Design ${design.number} has no revision ${revision}.`);
+    if (row.status !== 'draft') throw conflict(`Revision ${revision} of ${design.number} is ${row.status.replace('_', ' ')} and can no longer change; start a new revision.`);
+    const spec = request.spec ?? (row.spec as DesignSpec);
+    const construction = request.construction === undefined ? (row.construction as Construction | null) : request.construction;
+    const evaluated = construction ? await this.evaluate(spec, construction) : undefined;
+    const values = revisionValues(id, revision, actor.id, spec, evaluated, request.note === undefined ? row.note : request.note);
+    const updated = await this.repo.db.transaction(async (tx) => {
+      const changed = await this.repo.updateRevision(tx, row.id, {
+        spec: values.spec,
+        construction: values.construction,
+        result: values.result,
+        engineVersion: values.engineVersion,
+        materialId: values.materialId,
+        note: values.note,
+      });
+      if (!changed) throw conflict(`Revision ${revision} of ${design.number} left the draft state while it was being saved.`);
+      await this.repo.touchDesign(tx, id, request.title);
+      return changed;
+    });
+    await this.audit.record({ actorId: actor.id, action: 'design.revision.updated', target: `${design.number} r${revision}`, details: { fields: Object.keys(request) } });
+    return revisionDetail(updated);
+  }
+
+  async newRevision(actor: Actor, id: number, request: NewRevisionRequest): Promise<RevisionDetail> {
+    this.mustDesign(actor);
+    const design = await this.mustFind(id);
+    this.mustOwn(actor, design);
+    const created = await this.repo.db.transaction(async (tx) => {
+      const revisions = await this.repo.revisions(id, tx);
+      const latest = revisions.at(-1)!;
+      const from = request.from ? revisions.find((r) => r.revision === request.from) : latest;
+      if (!from) throw notFound(`Design ${design.number} has no revision ${request.from}.`);
+      if (latest.status === 'draft') {
+        throw conflict(`Revision ${latest.revision} of ${design.number} is still a draft; change it instead of starting another.`, { from: 'The latest revision is a draft' });
+      }
+      const revision = await this.repo.insertRevision(tx, {
+        designId: id,
+        revision: latest.revision + 1,
+        status: 'draft',
+        spec: from.spec,
+        construction: from.construction,
+        result: from.result,
+        engineVersion: from.engineVersion,
+        materialId: from.materialId,
+        note: request.note ?? `Started from revision ${from.revision}`,
+        createdBy: actor.id,
+      });
+      await this.repo.touchDesign(tx, id);
+      return revision;
+    });
+    await this.audit.record({ actorId: actor.id, action: 'design.revision.created', target: `${design.number} r${created.revision}` });
+    return revisionDetail(created);
+  }
+
+  async diff(id: number, from: number, to: number): Promise<RevisionDiff> {
+    const design = await this.mustFind(id);
+    const [a, b] = await Promise.all([this.repo.revision(id, from), this.repo.revision(id, to)]);
+    if (!a) throw notFound(`Design ${design.number} has no revision ${from}.`);
+    if (!b) throw notFound(`Design ${design.number} has no revision ${to}.`);
+    return {
+      from,
+      to,
+      spec: diffObjects(a.spec, b.spec),
+      construction: diffObjects(a.construction, b.construction),
+      result: diffObjects((a.result as StoredResult | null)?.evaluation, (b.result as StoredResult | null)?.evaluation).filter((d) => !d.path.startsWith('issues')),
+    };
+  }
+
+  /** Runs the engine on a construction; turns and gap are stored as the engine resolved them. */
+  async evaluate(spec: DesignSpec, construction: Construction): Promise<EvaluatedConstruction> {
+    const evaluated = await this.calc.evaluate(
+      {
+        spec: spec.converter,
+        limits: spec.limits,
+        coreId: construction.coreId,
+        materialId: construction.materialId,
+        turns: construction.turns,
+        gap: construction.gap,
+        wire: construction.wire,
+      },
+      {},
+    );
+    const evaluation = evaluated.result as EvaluationResult;
+    return {
+      construction: {
+        ...construction,
+        turns: evaluation.turns,
+        gap: evaluation.gap.total,
+      },
+      result: { wire: evaluated.wire, evaluation },
+      engineVersion: evaluated.engineVersion,
+      materialId: Number(construction.materialId),
+    };
+  }
+
+  async materialNames(): Promise<Map<string, string>> {
+    const rows = await this.materials.listCurrent(true);
+    return new Map(rows.map((r) => [String(r.id), r.name]));
+  }
+
+  async searchMaterialIds(spec: DesignSpec): Promise<string[]> {
+    if (spec.materialIds?.length) return spec.materialIds;
+    return (await this.materials.listCurrent()).map((r) => String(r.id));
+  }
+
+  async mustFind(id: number): Promise<DesignWithOwner> {
+    const design = await this.repo.findDesign(id);
+    if (!design) throw notFound(`No design with id ${id}.`);
+    return design;
+  }
+
+  private mustDesign(actor: Actor): void {
+    if (!DESIGNER_ROLES.includes(actor.role)) throw forbidden(`Only engineers create and edit designs; you are signed in as ${actor.role}.`);
+  }
+
+  private mustOwn(actor: Actor, design: DesignWithOwner): void {
+    if (design.ownerId !== actor.id) throw forbidden(`Design ${design.number} belongs to ${design.ownerName}; copy it to make changes of your own.`);
+  }
+
+  private detail(actor: Actor, design: DesignWithOwner, revisions: RevisionRow[]): DesignDetail {
+    const latest = revisions.at(-1)!;
+    return {
+      id: design.id,
+      number: design.number,
+      title: design.title,
+      owner: { id: design.ownerId, displayName: design.ownerName },
+      createdAt: design.createdAt.toISOString(),
+      updatedAt: design.updatedAt.toISOString(),
+      canEdit: design.ownerId === actor.id && DESIGNER_ROLES.includes(actor.role),
+      revisions: revisions.map(revisionSummary),
+      latest: revisionDetail(latest),
+    };
+  }
+}
+
+function revisionValues(
+  designId: number,
+  revision: number,
+  actorId: number,
+  spec: DesignSpec,
+  evaluated: EvaluatedConstruction | undefined,
+  note: string | null | undefined,
+): NewRevisionRow {
+  return {
+    designId,
+    revision,
+    status: 'draft',
+    spec,
+    construction: evaluated?.construction ?? null,
+    result: evaluated?.result ?? null,
+    engineVersion: evaluated?.engineVersion ?? null,
+    materialId: evaluated?.materialId ?? null,
+    note: note ?? null,
+    createdBy: actorId,
+  };
+}
+
+function revisionSummary(row: RevisionRow): RevisionSummary {
+  const evaluation = (row.result as StoredResult | null)?.evaluation as EvaluationResult | undefined;
+  return {
+    revision: row.revision,
+    status: row.status,
+    engineVersion: row.engineVersion,
+    note: row.note,
+    createdAt: row.createdAt.toISOString(),
+    updatedAt: row.updatedAt.toISOString(),
+    totalLoss: evaluation?.totalLoss ?? null,
+  };
+}
+
+export function revisionDetail(row: RevisionRow): RevisionDetail {
+  return {
+    ...revisionSummary(row),
+    spec: row.spec as DesignSpec,
+    construction: (row.construction as Construction | null) ?? null,
+    result: (row.result as StoredResult | null) ?? null,
+    materialId: row.materialId,
+  };
+}

@@ -1,0 +1,76 @@
+// Bill of materials of one evaluated design. Pure: figures in, rows out.
+import type { EvaluationResult } from '@shared/engine/index';
+
+/** Each end of the winding is left this long for termination (common practice, no source). */
+export const LEAD_ALLOWANCE_PER_END = 0.075;
+/** Annealed copper density, kg/m³ (common practice, no source). */
+export const COPPER_DENSITY = 8890;
+/** Tape overlap on a wrap (common practice, no source). */
+const TAPE_OVERLAP = 1.2;
+
+export interface BomRow {
+  item: string;
+  description: string;
+  quantity: number;
+  unit: string;
+  note: string;
+}
+
+export interface BomInput {
+  result: EvaluationResult;
+  materialName: string;
+}
+
+const mm = (m: number, digits = 2) => (m * 1e3).toFixed(digits);
+
+export function wireLengthWithLeads(result: EvaluationResult): number {
+  return result.winding.wireLength + 2 * LEAD_ALLOWANCE_PER_END;
+}
+
+export function copperMass(result: EvaluationResult): number {
+  return result.wire.copperArea * wireLengthWithLeads(result) * COPPER_DENSITY;
+}
+
+export function buildBom({ result, materialName }: BomInput): BomRow[] {
+  const ring = result.core.family === 'RING' || result.core.family === 'POWDER_TOROID';
+  const rows: BomRow[] = [];
+  const gapNote =
+    result.core.gapKind === 'distributed'
+      ? 'distributed gap in the material; no ground gap'
+      : result.gap.total > 0
+        ? `total gap ${mm(result.gap.total, 3)} mm in the path: centre-leg ground gap ${mm(result.gap.total, 3)} mm, or a spacer of ${mm(result.gap.spacer, 3)} mm under each outer leg`
+        : 'ungapped';
+  rows.push({ item: 'Core set', description: `${result.core.id} in ${materialName}`, quantity: 1, unit: 'set', note: gapNote });
+  if (!ring) {
+    rows.push({ item: 'Bobbin', description: `coil former for ${result.core.id}, ${result.winding.layers} layer(s) of ${result.winding.turnsPerLayer} turns`, quantity: 1, unit: 'pc', note: 'pin count and orientation to the board layout' });
+    rows.push({ item: 'Clips', description: `clamps or clips for ${result.core.id}`, quantity: 2, unit: 'pc', note: 'or glue the halves; keep the gap free of stress' });
+  } else {
+    rows.push({ item: 'Edge insulation', description: 'coating or edge protection of the ring', quantity: 1, unit: 'pc', note: 'toroid: no bobbin' });
+  }
+  const length = wireLengthWithLeads(result);
+  const wireKind = result.wire.kind === 'litz' ? 'litz' : 'enamelled round copper wire (IEC 60317)';
+  rows.push({
+    item: 'Wire',
+    description: `${result.wire.id}: ${wireKind}, ${result.wire.strands} × ${mm(result.wire.strandDiameter, 3)} mm bare`,
+    quantity: Number(length.toFixed(3)),
+    unit: 'm',
+    note: `${result.turns} turns × ${mm(result.winding.meanTurnLength, 1)} mm mean turn = ${result.winding.wireLength.toFixed(3)} m plus ${mm(LEAD_ALLOWANCE_PER_END, 0)} mm lead at each end${result.wire.kind === 'litz' ? '' : ', per conductor in hand'}`,
+  });
+  rows.push({
+    item: 'Copper mass',
+    description: `copper in the winding and leads (density ${COPPER_DENSITY} kg/m³)`,
+    quantity: Number((copperMass(result) * 1e3).toFixed(2)),
+    unit: 'g',
+    note: 'copper only, without enamel',
+  });
+  const wrap = result.winding.meanTurnLength * TAPE_OVERLAP;
+  const tapeLayers = Math.max(0, result.winding.layers - 1) + 1;
+  rows.push({
+    item: 'Tape',
+    description: ring ? 'polyester or polyimide tape, outer wrap' : 'polyester tape, interlayer and outer wrap, bobbin width',
+    quantity: Number((wrap * tapeLayers).toFixed(3)),
+    unit: 'm',
+    note: `${tapeLayers} wrap(s) with ${Math.round((TAPE_OVERLAP - 1) * 100)} % overlap; class at least the insulation class of the design`,
+  });
+  return rows;
+}

@@ -1,0 +1,86 @@
+// Candidates of a search as CSV. Cells that a spreadsheet would run as formulas are escaped.
+import { stringify } from 'csv-stringify/sync';
+import type { SearchResult } from '@shared/engine/index';
+
+export const CANDIDATE_COLUMNS = [
+  'design',
+  'rank',
+  'pareto',
+  'feasible',
+  'core',
+  'material',
+  'wire',
+  'turns',
+  'gap_mm',
+  'inductance_uH',
+  'total_loss_W',
+  'copper_dc_loss_W',
+  'copper_ac_loss_W',
+  'core_loss_W',
+  'core_volume_cm3',
+  'temperature_rise_K',
+  'copper_fill',
+  'saturation_margin',
+  'reasons',
+] as const;
+
+const round = (x: number, digits: number) => Number(x.toFixed(digits));
+
+export function candidatesCsv(designLabel: string, search: SearchResult, materialNames: ReadonlyMap<string, string>): string {
+  const rows: (string | number | boolean)[][] = [];
+  for (const c of search.candidates) {
+    const r = c.result;
+    rows.push([
+      designLabel,
+      c.rank,
+      c.pareto,
+      true,
+      r.core.id,
+      materialNames.get(r.material.id) ?? r.material.name,
+      c.wire.id,
+      r.turns,
+      round(r.gap.total * 1e3, 4),
+      round(r.inductance.atLoad * 1e6, 4),
+      round(r.totalLoss, 4),
+      round(r.copper.dcLoss, 4),
+      round(r.copper.acLoss, 4),
+      round(r.coreLoss.loss, 4),
+      round(r.core.ve * 1e6, 4),
+      round(r.thermal.rise, 2),
+      round(r.winding.copperFill, 4),
+      round(r.flux.saturationMargin, 4),
+      r.issues.filter((i) => i.severity === 'warning').map((i) => i.message).join(' | '),
+    ]);
+  }
+  for (const x of search.infeasible) {
+    rows.push([
+      designLabel,
+      '',
+      false,
+      false,
+      x.coreId,
+      x.materialId ? (materialNames.get(x.materialId) ?? x.materialId) : '',
+      x.wireId ?? '',
+      x.turns ?? '',
+      '',
+      '',
+      x.totalLoss !== undefined ? round(x.totalLoss, 4) : '',
+      '',
+      '',
+      '',
+      '',
+      '',
+      '',
+      '',
+      x.reasons.map((i) => i.message).join(' | '),
+    ]);
+  }
+  return stringify(rows, { header: true, columns: [...CANDIDATE_COLUMNS], escape_formulas: true, cast: { boolean: (b) => (b ? 'yes' : 'no') } });
+}
+
+export function bomCsv(rows: readonly { item: string; description: string; quantity: number; unit: string; note: string }[]): string {
+  return stringify(
+    rows.map((r) => [r.item, r.description, r.quantity, r.unit, r.note]),
+    { header: true, columns: ['item', 'description', 'quantity', 'unit', 'note'], escape_formulas: true },
+  );
+}
