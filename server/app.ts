@@ -10,8 +10,6 @@ import { authRouter } from './auth/auth.router.ts';
 import { createCsrf } from './auth/csrf.ts';
 import { createDesignServices } from './designs/design-services.ts';
 import { designsRouter } from './designs/designs.router.ts';
-import { createDesignServices } from './designs/design-services.ts';
-import { designsRouter } from './designs/designs.router.ts';
 import { createPassport } from './auth/passport.ts';
 import { absoluteLifetime, createSessionMiddleware } from './auth/session.ts';
 import { calcRouter } from './calc/calc.router.ts';
@@ -25,6 +23,11 @@ import { MaterialsRepository } from './materials/materials.repository.ts';
 import { materialsRouter } from './materials/materials.router.ts';
 import { materialLibraryRouter } from './materials/material-library.router.ts';
 import { MaterialsService } from './materials/materials.service.ts';
+import { compareRouter } from './compare/compare.router.ts';
+import { CompareService } from './compare/compare.service.ts';
+import { UserCoresRepository } from './catalogue/user-cores.repository.ts';
+import { userCoresRouter } from './catalogue/user-cores.router.ts';
+import { UserCoresService } from './catalogue/user-cores.service.ts';
 import { buildOpenApiDocument } from './openapi/openapi.ts';
 import type { AppError } from './http/errors.ts';
 import { apiNotFound, errorMiddleware } from './http/errors.ts';
@@ -48,6 +51,8 @@ export interface Services {
   materials: MaterialsRepository;
   calc: CalcService;
   materialLibrary: MaterialsService;
+  userCores: UserCoresService;
+  compare: CompareService;
 }
 
 export function createServices({ config, db }: Pick<AppDeps, 'config' | 'db'>): Services {
@@ -57,13 +62,14 @@ export function createServices({ config, db }: Pick<AppDeps, 'config' | 'db'>): 
   const materials = new MaterialsRepository(db);
   const calc = new CalcService(catalogue, materials);
   const materialLibrary = new MaterialsService(materials, audit);
-  return { audit, users, catalogue, materials, calc, materialLibrary };
+  const userCores = new UserCoresService(new UserCoresRepository(db), catalogue, audit);
+  const compare = new CompareService(materials, { core: (id) => userCores.core(id), wire: (choice) => catalogue.wire(choice) });
+  return { audit, users, catalogue, materials, calc, materialLibrary, userCores, compare };
 }
 
 export function createApp(deps: AppDeps) {
   const { config, pool, logger } = deps;
   const services = createServices(deps);
-  const designServices = createDesignServices(deps.db, services);
   const designServices = createDesignServices(deps.db, services);
   const { audit, users, catalogue, materials, calc } = services;
   const openApiDocument = buildOpenApiDocument();
@@ -114,8 +120,9 @@ export function createApp(deps: AppDeps) {
   api.use('/admin/users', adminUsersRouter(users));
   api.use('/admin/audit', auditRouter(audit));
   api.use('/calc', calcRouter(calc));
+  api.use('/catalogue', userCoresRouter(services.userCores));
   api.use('/catalogue', catalogueRouter(catalogue));
-  api.use('/designs', designsRouter(designServices.designs, designServices.exports));
+  api.use('/compare', compareRouter(services.compare));
   api.use('/designs', designsRouter(designServices.designs, designServices.exports));
   api.use('/materials', materialLibraryRouter(services.materialLibrary));
   api.use('/materials', materialsRouter(materials));

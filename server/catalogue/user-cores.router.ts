@@ -1,0 +1,33 @@
+import { Router } from 'express';
+import { userCoreRequestSchema } from '@shared/schemas/cores';
+import { actorOf, requireRole, requireSignIn } from '../http/access.ts';
+import { parseBody, parseIdParam } from '../http/validate.ts';
+import type { UserCoresService } from './user-cores.service.ts';
+
+/** Shipped and user cores; mounted before the shipped-only catalogue router so GET /cores lists both. */
+export function userCoresRouter(cores: UserCoresService): Router {
+  const router = Router();
+  router.use(requireSignIn);
+  const authors = requireRole('engineer', 'reviewer', 'admin');
+  const curators = requireRole('reviewer', 'admin');
+
+  router.get('/cores', async (_req, res) => {
+    res.json({ cores: await cores.list() });
+  });
+  router.post('/cores', authors, async (req, res) => {
+    res.status(201).json(await cores.create(parseBody(userCoreRequestSchema, req), actorOf(req)));
+  });
+  router.get('/cores/:id/history', async (req, res) => {
+    res.json({ versions: await cores.history(parseIdParam(req)) });
+  });
+  router.put('/cores/:id', authors, async (req, res) => {
+    res.status(201).json(await cores.edit(parseIdParam(req), parseBody(userCoreRequestSchema, req), actorOf(req)));
+  });
+  router.post('/cores/:id/retire', curators, async (req, res) => {
+    res.json(await cores.setRetired(parseIdParam(req), true, actorOf(req)));
+  });
+  router.post('/cores/:id/unretire', curators, async (req, res) => {
+    res.json(await cores.setRetired(parseIdParam(req), false, actorOf(req)));
+  });
+  return router;
+}

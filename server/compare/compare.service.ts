@@ -1,0 +1,142 @@
+import {
+  ENGINE_VERSION,
+  EngineInputError,
+  compatible,
+  evaluateDesign,
+  fitRangeCheck,
+  igseTriangleLoss,
+  steinmetzLoss,
+  type ConverterSpec,
+  type DesignLimits,
+} from '@shared/engine/index';
+import type { CoreMaterial, CoreShape, WireOption } from '@shared/engine/types';
+import type {
+  CompareCurvesRequest,
+  CompareCurvesResponse,
+  CompareDesignRequest,
+  CompareDesignResponse,
+  CurvePoint,
+  DesignComparisonRow,
+} from '@shared/schemas/compare';
+import type { WireChoice } from '@shared/catalogue/wire-from-request';
+import { badRequest } from '../http/errors.ts';
+import { toCoreMaterial } from '../materials/material-view.ts';
+import type { MaterialRow, MaterialsRepository } from '../materials/materials.repository.ts';
+
+/** Logarithmically spaced points from min to max inclusive. */
+export function logSpace(min: number, max: number, points: number): number[] {
+  const ratio = Math.log(max / min) / (points - 1);
+  return Array.from({ length: points }, (_, i) => (i === points - 1 ? max : min * Math.exp(ratio * i)));
+}
+
+function lossPoint(material: CoreMaterial, x: number, frequency: number, deltaB: number, duty: number): CurvePoint {
+  const peak = deltaB / 2;
+  const fit = fitRangeCheck(material, frequency, peak);
+  return {
+    x,
+    steinmetz: steinmetzLoss(material, frequency, peak),
+    igse: igseTriangleLoss(material, frequency, deltaB, duty),
+    extrapolated: !fit.frequencyInRange || !fit.fluxInRange,
+  };
+}
+
+/** Where the comparison finds cores and wires (shipped catalogue plus user cores). */
+export interface CompareCatalogue {
+  core(id: string): Promise<CoreShape>;
+  wire(choice: WireChoice): WireOption;
+}
+
+function incompatibility(core: CoreShape, material: CoreMaterial): string {
+  return core.gapKind === 'distributed'
+    ? `${core.id} has no air gap to set: it takes a powder material`
+    : `a ${material.family} material has its gap distributed in the material: it needs a ring or toroid core, not ${core.id}`;
+}
+
+export class CompareService {
+  constructor(
+    private readonly materials: MaterialsRepository,
+    private readonly catalogue: CompareCatalogue,
+  ) {}
+
+  private async rows(ids: string[]): Promise<MaterialRow[]> {
+    const numeric = ids.map(Number);
+    const rows = await this.materials.findByIds(numeric);
+    const byId = new Map(rows.map((r) => [r.id, r]));
+    return numeric.map((id, i) => {
+      const row = byId.get(id);
+      if (!row) throw badRequest(`No material with id ${id}.`, { [`materialIds.${i}`]: `Unknown material ${id}` });
+      return row;
+    });
+  }
+
+  async curves(request: CompareCurvesRequest): Promise<CompareCurvesResponse> {
+    const rows = await this.rows(request.materialIds);
+    const frequencies = logSpace(request.frequencyRange.min, request.frequencyRange.max, request.points);
+    const swings = logSpace(request.fluxRange.min, request.fluxRange.max, request.points);
+    return {
+      deltaB: request.deltaB,
+      frequency: request.frequency,
+      duty: request.duty,
+      materials: rows.map((row) => {
+        const material = toCoreMaterial(row);
+        return {
+          id: material.id,
+          name: material.name,
+          family: material.family,
+          version: row.version,
+          fit: { frequencyMin: row.fitFrequencyMin, frequencyMax: row.fitFrequencyMax, fluxMin: row.fitFluxMin, fluxMax: row.fitFluxMax },
+          versusFrequency: frequencies.map((f) => lossPoint(material, f, f, request.deltaB, request.duty)),
+          versusFlux: swings.map((swing) => lossPoint(material, swing, request.frequency, swing, request.duty)),
+        };
+      }),
+    };
+  }
+
+  /** Same core, turns and wire with each material; the gap is solved again for each material's permeability. */
+  async design(request: CompareDesignRequest): Promise<CompareDesignResponse> {
+    const core = await this.catalogue.core(request.coreId);
+    const rows = request.materialIds?.length ? await this.rows(request.materialIds) : await this.materials.listCurrent();
+    let wire: WireOption;
+    try {
+      wire = this.catalogue.wire(request.wire);
+    } catch (error) {
+      throw badRequest((error as Error).message, { wire: (error as Error).message });
+    }
+    const result = rows.map((row): DesignComparisonRow => {
+      const material = toCoreMaterial(row);
+      const base = { materialId: material.id, name: material.name, family: material.family };
+      if (!compatible(core, material)) return { ...base, status: 'incompatible', reason: incompatibility(core, material) };
+      try {
+        const evaluation = evaluateDesign({
+          spec: request.spec as ConverterSpec,
+          limits: request.limits as Partial<DesignLimits> | undefined,
+          core,
+          material,
+          turns: request.turns,
+          gap: 'auto',
+          wire,
+        });
+        const fit = fitRangeCheck(material, request.spec.frequency, evaluation.flux.acPeak);
+        const errors = evaluation.issues.filter((i) => i.severity === 'error').map((i) => i.message);
+        return {
+          ...base,
+          status: 'ok',
+          feasible: evaluation.feasible,
+          gap: evaluation.gap.total,
+          coreLoss: evaluation.coreLoss.loss,
+          copperLoss: evaluation.copper.dcLoss + evaluation.copper.acLoss,
+          totalLoss: evaluation.totalLoss,
+          coreLossDensity: evaluation.coreLoss.igseDensity,
+          peakFlux: evaluation.flux.peak,
+          temperatureRise: evaluation.thermal.rise,
+          extrapolated: !fit.frequencyInRange || !fit.fluxInRange,
+          ...(errors.length ? { reason: errors.join(' ') } : {}),
+        };
+      } catch (error) {
+        if (error instanceof EngineInputError) return { ...base, status: 'error', reason: error.message };
+        throw error;
+      }
+    });
+    return { engineVersion: ENGINE_VERSION, coreId: core.id, turns: request.turns, rows: result };
+  }
+}

@@ -1,0 +1,91 @@
+// Requests of the material comparison: loss curves of several materials, and one design's losses
+// with every current material. SI units (Hz, T).
+import * as z from 'zod';
+import { converterSpecSchema, designLimitsSchema, wireRequestSchema } from './calc';
+
+const finite = (field: string) => z.number({ error: `${field} must be a finite number` });
+function range(field: string, min: number, max: number, unit: string) {
+  const message = `${field} must be between ${min} and ${max}${unit ? ` ${unit}` : ''}`;
+  return finite(field).min(min, { error: message }).max(max, { error: message });
+}
+const materialIdSchema = z.string().trim().regex(/^\d+$/, 'must be a stored material id').max(12);
+
+export const sweepRangeSchema = (field: string, min: number, max: number, unit: string) =>
+  z
+    .object({ min: range(`${field}.min`, min, max, unit), max: range(`${field}.max`, min, max, unit) })
+    .strict()
+    .refine((r) => r.min < r.max, { path: ['min'], message: `${field}.min must be below ${field}.max` });
+
+export const compareCurvesRequestSchema = z
+  .object({
+    materialIds: z.array(materialIdSchema).min(1, 'Choose at least one material').max(12, 'Compare at most 12 materials'),
+    deltaB: range('deltaB', 1e-4, 2, 'T').default(0.2).meta({ description: 'Peak-to-peak flux swing of the frequency sweep (T)' }),
+    frequency: range('frequency', 1e3, 10e6, 'Hz').default(100e3).meta({ description: 'Frequency of the flux sweep (Hz)' }),
+    duty: finite('duty').gt(0, { error: 'duty must be between 0 and 1 (exclusive)' }).lt(1, { error: 'duty must be between 0 and 1 (exclusive)' }).default(0.5),
+    frequencyRange: sweepRangeSchema('frequencyRange', 1e3, 10e6, 'Hz').default({ min: 10e3, max: 2e6 }),
+    fluxRange: sweepRangeSchema('fluxRange', 1e-4, 2, 'T').default({ min: 0.01, max: 0.6 }),
+    points: z.number().int('points must be a whole number').min(5, 'points must be between 5 and 200').max(200, 'points must be between 5 and 200').default(41),
+  })
+  .strict()
+  .meta({ description: 'Core-loss density of materials over a frequency sweep and a ΔB sweep (Steinmetz and triangular iGSE)' });
+export type CompareCurvesRequest = z.infer<typeof compareCurvesRequestSchema>;
+
+export interface CurvePoint {
+  /** Frequency (Hz) on the frequency sweep, peak-to-peak ΔB (T) on the flux sweep. */
+  x: number;
+  steinmetz: number;
+  igse: number;
+  /** Outside the range the coefficients were fitted on (frequency, or peak flux ΔB/2). */
+  extrapolated: boolean;
+}
+export interface MaterialCurves {
+  id: string;
+  name: string;
+  family: string;
+  version: number;
+  fit: { frequencyMin: number; frequencyMax: number; fluxMin: number; fluxMax: number };
+  versusFrequency: CurvePoint[];
+  versusFlux: CurvePoint[];
+}
+export interface CompareCurvesResponse {
+  deltaB: number;
+  frequency: number;
+  duty: number;
+  materials: MaterialCurves[];
+}
+
+export const compareDesignRequestSchema = z
+  .object({
+    spec: converterSpecSchema,
+    limits: designLimitsSchema.optional(),
+    coreId: z.string().trim().min(1).max(80).meta({ description: 'Catalogue or user core id' }),
+    turns: z.number({ error: 'turns must be a whole number' }).int('turns must be a whole number').min(1, 'turns must be between 1 and 2000').max(2000, 'turns must be between 1 and 2000'),
+    wire: wireRequestSchema,
+    materialIds: z.array(materialIdSchema).max(200).optional().meta({ description: 'Restrict to these materials (default: every current one)' }),
+  })
+  .strict()
+  .meta({ description: 'One design (same core, turns, wire) evaluated with every current material; gap re-solved per material' });
+export type CompareDesignRequest = z.infer<typeof compareDesignRequestSchema>;
+
+export interface DesignComparisonRow {
+  materialId: string;
+  name: string;
+  family: string;
+  status: 'ok' | 'incompatible' | 'error';
+  reason?: string;
+  feasible?: boolean;
+  gap?: number;
+  coreLoss?: number;
+  copperLoss?: number;
+  totalLoss?: number;
+  coreLossDensity?: number;
+  peakFlux?: number;
+  temperatureRise?: number;
+  extrapolated?: boolean;
+}
+export interface CompareDesignResponse {
+  engineVersion: string;
+  coreId: string;
+  turns: number;
+  rows: DesignComparisonRow[];
+}

@@ -1,0 +1,56 @@
+// User-added cores: a ring from its nominal dimensions (IEC 60205 effective parameters), or a gapped
+// set given by its effective parameters. SI units (m, m², m³); the form converts from mm.
+import * as z from 'zod';
+import { CORE_FAMILIES } from '@shared/engine/types';
+
+function dimension(field: string, max: number, unit: string) {
+  return z
+    .number({ error: `${field} must be a finite number` })
+    .positive({ error: `${field} must be greater than 0` })
+    .max(max, { error: `${field} must be at most ${max} ${unit}` });
+}
+
+const nameSchema = z
+  .string()
+  .trim()
+  .min(1, 'name is required')
+  .max(60, 'name must be at most 60 characters')
+  .regex(/^[^=+\-@]/, 'name must not start with =, +, - or @');
+const noteSchema = z.string().trim().max(300, 'source must be at most 300 characters');
+
+export const ringCoreRequestSchema = z
+  .object({
+    kind: z.literal('ring'),
+    name: nameSchema,
+    family: z.enum(['RING', 'POWDER_TOROID'], { error: 'family must be RING or POWDER_TOROID' }),
+    outerDiameter: dimension('outerDiameter', 0.5, 'm'),
+    innerDiameter: dimension('innerDiameter', 0.5, 'm'),
+    height: dimension('height', 0.5, 'm'),
+    source: noteSchema.default(''),
+  })
+  .strict()
+  .refine((r) => r.innerDiameter < r.outerDiameter, { path: ['innerDiameter'], message: 'innerDiameter must be smaller than outerDiameter' });
+
+export const GAPPED_CORE_FAMILIES = ['E', 'ETD', 'EFD', 'EQ', 'PQ', 'RM', 'POT'] as const satisfies readonly (typeof CORE_FAMILIES)[number][];
+
+export const shapedCoreRequestSchema = z
+  .object({
+    kind: z.literal('shape'),
+    name: nameSchema,
+    family: z.enum(GAPPED_CORE_FAMILIES, { error: `family must be one of ${GAPPED_CORE_FAMILIES.join(', ')}` }),
+    ae: dimension('ae', 0.1, 'm²'),
+    amin: dimension('amin', 0.1, 'm²').optional(),
+    le: dimension('le', 5, 'm'),
+    ve: dimension('ve', 0.1, 'm³'),
+    windowArea: dimension('windowArea', 0.1, 'm²'),
+    windowHeight: dimension('windowHeight', 1, 'm'),
+    bobbinWidth: dimension('bobbinWidth', 1, 'm'),
+    bobbinHeight: dimension('bobbinHeight', 1, 'm'),
+    mlt: dimension('mlt', 5, 'm'),
+    surfaceArea: dimension('surfaceArea', 10, 'm²'),
+    source: noteSchema.min(1, 'source must say where the numbers come from'),
+  })
+  .strict();
+
+export const userCoreRequestSchema = z.discriminatedUnion('kind', [ringCoreRequestSchema, shapedCoreRequestSchema]);
+export type UserCoreRequest = z.infer<typeof userCoreRequestSchema>;

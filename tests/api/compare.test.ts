@@ -1,0 +1,93 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { MATERIAL_CSV_COLUMNS } from '@shared/schemas/materials';
+import { signedInAs, type ApiClient } from './support/api-client.ts';
+import { createTestApp, type TestApp } from './support/test-app.ts';
+
+let t: TestApp;
+let engineer: ApiClient;
+let knownId: string;
+beforeAll(async () => {
+  t = await createTestApp();
+  engineer = await signedInAs(t.app, 'engineer');
+  // A material with round coefficients so the expected losses can be worked out by hand.
+  const cells: Record<string, string> = {
+    name: 'Round-number ferrite', family: 'ferrite', unit_set: 'W/m3-Hz-T', k: '1', alpha: '1.5', beta: '2.5',
+    f_min: '50000', f_max: '300000', b_min: '0.02', b_max: '0.2', bsat_25: '0.5', bsat_100: '0.4', mu_i: '2000',
+    density: '4800', provenance: 'Invented for a test',
+  };
+  const csv = `${MATERIAL_CSV_COLUMNS.join(',')}\n${MATERIAL_CSV_COLUMNS.map((c) => cells[c] ?? '').join(',')}\n`;
+  const res = await engineer.agent
+    .post('/api/materials/import/commit')
+    .set('X-XSRF-TOKEN', engineer.csrfToken ?? '')
+    .attach('file', Buffer.from(csv), 'round.csv');
+  knownId = String(res.body.materialIds[0]);
+});
+afterAll(() => t.close());
+
+const EXAMPLE_SPEC = { vinMin: 24, vinMax: 36, vout: 12, ioutMax: 10, frequency: 100e3, rippleRatio: 0.3 };
+
+describe('POST /api/compare/curves', () => {
+  it('gives Steinmetz with the peak flux ΔB/2 and flags points outside the fitted range', async () => {
+    const res = await engineer.post('/api/compare/curves', {
+      materialIds: [knownId], deltaB: 0.2, frequency: 100e3, duty: 0.5,
+      frequencyRange: { min: 10e3, max: 1e6 }, fluxRange: { min: 0.01, max: 1 }, points: 5,
+    });
+    expect(res.status).toBe(200);
+    const [curves] = res.body.materials;
+    // Steinmetz Pv = k·f^α·B̂^β (magnetics reference §8.1): 1·(1e5)^1.5·(0.1)^2.5 = 3.162e7·3.162e-3 = 1.000e5 W/m³, by hand
+    const at100k = curves.versusFrequency.find((p: { x: number }) => Math.abs(p.x - 1e5) < 1);
+    expect(at100k.steinmetz).toBeCloseTo(1e5, -1);
+    expect(at100k.extrapolated).toBe(false);
+    // 10 kHz and 1 MHz lie outside the 50–300 kHz fit
+    expect(curves.versusFrequency[0].extrapolated).toBe(true);
+    expect(curves.versusFrequency[4].extrapolated).toBe(true);
+    // ΔB = 1 T is B̂ = 0.5 T, above the 0.2 T fit
+    expect(curves.versusFlux[4].extrapolated).toBe(true);
+    // The log sweep is geometric: 10 k, 31.6 k, 100 k, 316 k, 1 M
+    expect(curves.versusFrequency[1].x).toBeCloseTo(31622.8, 0);
+    // Loss grows as f^α along the frequency sweep: ratio of a decade = 10^1.5
+    expect(curves.versusFrequency[4].igse / curves.versusFrequency[2].igse).toBeCloseTo(10 ** 1.5, 6);
+    expect(curves.fit).toEqual({ frequencyMin: 50000, frequencyMax: 300000, fluxMin: 0.02, fluxMax: 0.2 });
+  });
+
+  it('names the field of a bad request', async () => {
+    const empty = await engineer.post('/api/compare/curves', { materialIds: [] });
+    expect(empty.status).toBe(400);
+    expect(empty.body.error.fields.materialIds).toMatch(/at least one/);
+    const unknown = await engineer.post('/api/compare/curves', { materialIds: ['999999'] });
+    expect(unknown.status).toBe(400);
+    expect(unknown.body.error.fields['materialIds.0']).toMatch(/Unknown material/);
+    const range = await engineer.post('/api/compare/curves', { materialIds: [knownId], frequencyRange: { min: 2e6, max: 1e6 } });
+    expect(range.body.error.fields['frequencyRange.min']).toMatch(/below/);
+  });
+});
+
+describe('POST /api/compare/design', () => {
+  it('evaluates one design with every current material; powders are incompatible with a gapped set', async () => {
+    const res = await engineer.post('/api/compare/design', {
+      spec: EXAMPLE_SPEC, coreId: 'ETD34/17/11', turns: 20, wire: { kind: 'awg', awg: 18, strands: 2 },
+    });
+    expect(res.status).toBe(200);
+    const rows = res.body.rows as { name: string; family: string; status: string; reason?: string; coreLoss?: number; totalLoss?: number; gap?: number }[];
+    const materials = (await engineer.get('/api/materials')).body.materials as unknown[];
+    expect(rows).toHaveLength(materials.length);
+    const powder = rows.find((r) => r.family === 'powder')!;
+    expect(powder.status).toBe('incompatible');
+    expect(powder.reason).toMatch(/ring or toroid/);
+    const ferrites = rows.filter((r) => r.status === 'ok');
+    expect(ferrites.length).toBeGreaterThan(1);
+    for (const r of ferrites) {
+      expect(r.coreLoss).toBeGreaterThan(0);
+      expect(r.totalLoss).toBeGreaterThan(r.coreLoss!);
+      expect(r.gap).toBeGreaterThan(0);
+    }
+  });
+
+  it('refuses an unknown core by field', async () => {
+    const res = await engineer.post('/api/compare/design', {
+      spec: EXAMPLE_SPEC, coreId: 'NOPE', turns: 20, wire: { kind: 'awg', awg: 18, strands: 2 },
+    });
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields.coreId).toMatch(/Unknown core/);
+  });
+});
