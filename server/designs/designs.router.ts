@@ -62,8 +62,9 @@ export function designsRouter(designs: DesignsService, exports: ExportsService):
     const kind = String(req.params['kind']);
     if (!(EXPORT_KINDS as readonly string[]).includes(kind)) throw notFound(`No export "${kind}"; choose one of ${EXPORT_KINDS.join(', ')}.`);
     const file = await exports.export(parseIdParam(req), parseIdParam(req, 'rev'), kind as ExportKind);
-    res.setHeader('Content-Type', file.contentType);
+    // attachment() guesses a type from the extension; the server's own type is set after it.
     res.attachment(file.fileName);
+    res.setHeader('Content-Type', file.contentType);
     res.send(file.body);
   });
 

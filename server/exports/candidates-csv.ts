@@ -4,6 +4,7 @@ import type { SearchResult } from '@shared/engine/index';
 
 export const CANDIDATE_COLUMNS = [
   'design',
+  'title',
   'rank',
   'pareto',
   'feasible',
@@ -26,12 +27,13 @@ export const CANDIDATE_COLUMNS = [
 
 const round = (x: number, digits: number) => Number(x.toFixed(digits));
 
-export function candidatesCsv(designLabel: string, search: SearchResult, materialNames: ReadonlyMap<string, string>): string {
+export function candidatesCsv(design: { number: string; title: string }, search: SearchResult, materialNames: ReadonlyMap<string, string>): string {
   const rows: (string | number | boolean)[][] = [];
   for (const c of search.candidates) {
     const r = c.result;
     rows.push([
-      designLabel,
+      design.number,
+      design.title,
       c.rank,
       c.pareto,
       true,
@@ -54,7 +56,8 @@ export function candidatesCsv(designLabel: string, search: SearchResult, materia
   }
   for (const x of search.infeasible) {
     rows.push([
-      designLabel,
+      design.number,
+      design.title,
       '',
       false,
       false,

@@ -47,8 +47,7 @@ export class ExportsService {
         rankBy: 'loss',
         limit: 50,
       })) as SearchResult;
-      const label = `${revision.design.number} ${revision.design.title}`;
-      return { fileName: `${base}-candidates.csv`, contentType: 'text/csv; charset=utf-8', body: candidatesCsv(label, search, await this.designs.materialNames()) };
+      return { fileName: `${base}-candidates.csv`, contentType: 'text/csv; charset=utf-8', body: candidatesCsv(revision.design, search, await this.designs.materialNames()) };
     }
     const evaluation = (revision.result as StoredResult | null)?.evaluation as EvaluationResult | undefined;
     if (!evaluation) throw conflict(`Revision ${revision.revision} of ${revision.design.number} has no chosen construction yet; pick a candidate first.`);

@@ -1,0 +1,123 @@
+import { describe, expect, it } from 'vitest';
+import { evaluateDesign, type CoreMaterial } from '@shared/engine/index';
+import { parse } from 'csv-parse/sync';
+import { CatalogueService } from '../../../server/catalogue/catalogue.service.ts';
+import { buildBom, COPPER_DENSITY, copperMass, LEAD_ALLOWANCE_PER_END } from '../../../server/exports/bom.ts';
+import { bomCsv, candidatesCsv } from '../../../server/exports/candidates-csv.ts';
+import { buildSpiceSubcircuit, spiceSubcircuitName, spiceValues } from '../../../server/exports/spice.ts';
+
+// An invented ferrite for the test (illustrative coefficients, not a real material).
+const FERRITE: CoreMaterial = {
+  id: 'test-ferrite',
+  name: 'Test ferrite (invented)',
+  family: 'ferrite',
+  k: 2.0,
+  alpha: 1.4,
+  beta: 2.6,
+  fitFrequencyMin: 20e3,
+  fitFrequencyMax: 500e3,
+  fitFluxMin: 0.01,
+  fitFluxMax: 0.3,
+  bsat25: 0.48,
+  bsat100: 0.38,
+  permeability: 2300,
+  density: 4800,
+};
+
+const catalogue = new CatalogueService();
+const result = evaluateDesign({
+  spec: { vinMin: 24, vinMax: 36, vout: 12, ioutMax: 10, frequency: 100e3, rippleRatio: 0.3, rectifier: 'ideal' },
+  core: catalogue.core('ETD39/20/13'),
+  material: FERRITE,
+  turns: 'auto',
+  gap: 'auto',
+  wire: catalogue.wire({ kind: 'awg', awg: 16, strands: 2 }),
+});
+
+/** Ohm's law for a branch R ∥ jX: Z = R·jX/(R + jX); its real part is R·X²/(R² + X²) (circuit theory, from memory). */
+function parallelRealPart(r: number, x: number): number {
+  return (r * x * x) / (r * r + x * x);
+}
+
+describe('SPICE subcircuit', () => {
+  const v = spiceValues(result);
+  const text = buildSpiceSubcircuit({ designNumber: 'GW-0007', title: 'Test\nchoke', revision: 2, engineVersion: '1.0.0' }, result);
+  const element = (name: string) => Number(new RegExp(`^${name} \\S+ \\S+ (\\S+)$`, 'm').exec(text)![1]);
+
+  it('carries L and the hot DC resistance of the evaluation', () => {
+    expect(element('L1') / result.inductance.atLoad).toBeCloseTo(1, 5);
+    expect(element('RDC') / result.copper.resistanceHot).toBeCloseTo(1, 5);
+  });
+
+  it('has an AC branch whose real part at fs is (Fr − 1)·Rdc and zero at DC', () => {
+    const omega = 2 * Math.PI * result.operatingPoint.frequency;
+    const extra = parallelRealPart(element('RAC'), omega * element('LAC'));
+    expect(extra / ((result.copper.acFactor - 1) * result.copper.resistanceHot)).toBeCloseTo(1, 4);
+    expect(parallelRealPart(element('RAC'), 0)).toBe(0);
+  });
+
+  it('has a core-loss resistance that dissipates the iGSE core loss at the RMS inductor voltage', () => {
+    // Square wave across L at Vin max: Vin − Vout = 24 V for D = 1/3, −12 V for 2/3 (magnetics reference §1.1, ideal switches [C]).
+    expect(v.inductorVoltageRms).toBeCloseTo(Math.sqrt((24 ** 2) / 3 + (12 ** 2 * 2) / 3), 6);
+    expect(v.inductorVoltageRms ** 2 / element('RCORE') / result.coreLoss.loss).toBeCloseTo(1, 4);
+  });
+
+  it('names the subcircuit safely, explains each value and keeps the title on one comment line', () => {
+    expect(spiceSubcircuitName('GW-0007', 2)).toBe('GW_0007_R2');
+    expect(text).toMatch(/^\.SUBCKT GW_0007_R2 1 2$/m);
+    expect(text).toMatch(/^\.ENDS GW_0007_R2$/m);
+    expect(text).toContain('* GW_0007_R2: Test choke');
+    expect(text).toMatch(/Caution: a linear, single-frequency equivalent/);
+    for (const line of text.trim().split('\n')) expect(line).toMatch(/^(\*|\.SUBCKT|\.ENDS|L1 |RCORE |RDC |RAC |LAC )/);
+  });
+});
+
+describe('bill of materials', () => {
+  const rows = buildBom({ result, materialName: FERRITE.name });
+
+  it('lists core set, bobbin, wire with lead allowance, copper mass and tape', () => {
+    expect(rows.map((r) => r.item)).toEqual(['Core set', 'Bobbin', 'Clips', 'Wire', 'Copper mass', 'Tape']);
+    const wire = rows.find((r) => r.item === 'Wire')!;
+    expect(wire.quantity).toBeCloseTo(result.winding.wireLength + 2 * LEAD_ALLOWANCE_PER_END, 3);
+    expect(wire.note).toMatch(/75 mm lead at each end/);
+  });
+
+  it('weighs the copper as area × length × density', () => {
+    const mass = result.wire.copperArea * (result.winding.wireLength + 0.15) * COPPER_DENSITY;
+    expect(copperMass(result)).toBeCloseTo(mass, 12);
+    // Two AWG 16 wires: d = 0.127 mm × 92^((36 − 16)/39) = 1.291 mm (ASTM B258-02 via "American wire gauge" article, formula; value computed [C]).
+    expect(result.wire.copperArea * 1e6).toBeCloseTo(2 * (Math.PI / 4) * 1.291 ** 2, 2);
+  });
+
+  it('escapes formula cells in the CSV', () => {
+    const csv = bomCsv([{ item: '=SUM(A1)', description: '+1', quantity: 1, unit: 'pc', note: '@x' }]);
+    const [, row] = parse(csv) as string[][];
+    expect(row[0]).toBe("'=SUM(A1)");
+    expect(row[1]).toBe("'+1");
+    expect(row[4]).toBe("'@x");
+  });
+});
+
+describe('candidates CSV', () => {
+  it('escapes a formula in the design title and writes one row per candidate with reasons for infeasible ones', () => {
+    const search = {
+      rankBy: 'loss' as const,
+      candidates: [{ rank: 1, pareto: true, wire: catalogue.wire({ kind: 'awg', awg: 16, strands: 2 }), result }],
+      paretoFront: [],
+      infeasible: [{ coreId: 'E13/7/4', materialId: 'test-ferrite', reasons: [{ code: 'fill', severity: 'error' as const, message: 'Winding does not fit' }] }],
+      counts: { cores: 2, materials: 1, wireOptions: 1, evaluated: 2, feasible: 1, prefiltered: 0, incompatible: 0 },
+      requiredAreaProduct: 1e-8,
+      wireOptionIds: [],
+    };
+    const csv = candidatesCsv({ number: 'GW-0001', title: '=HYPERLINK("http://x")' }, search, new Map([['test-ferrite', 'Test ferrite (invented)']]));
+    const rows = parse(csv, { columns: true }) as Record<string, string>[];
+    expect(rows).toHaveLength(2);
+    expect(rows[0]['design']).toBe('GW-0001');
+    expect(rows[0]['title']).toBe(`'=HYPERLINK("http://x")`);
+    expect(rows[0]['feasible']).toBe('yes');
+    expect(Number(rows[0]['total_loss_W'])).toBeCloseTo(result.totalLoss, 3);
+    expect(rows[1]['feasible']).toBe('no');
+    expect(rows[1]['reasons']).toBe('Winding does not fit');
+    expect(rows[1]['material']).toBe('Test ferrite (invented)');
+  });
+});
