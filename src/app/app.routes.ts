@@ -27,6 +27,24 @@ export const routes: Routes = [
         loadComponent: () => import('./account/account').then((m) => m.Account),
       },
       {
+        path: 'materials',
+        title: 'Materials · Gapwright',
+        canActivate: [roleGuard(['engineer', 'reviewer', 'admin'])],
+        loadComponent: () => import('./materials/material-library').then((m) => m.MaterialLibrary),
+      },
+      {
+        path: 'cores',
+        title: 'Cores · Gapwright',
+        canActivate: [roleGuard(['engineer', 'reviewer', 'admin'])],
+        loadComponent: () => import('./cores/core-catalogue').then((m) => m.CoreCatalogue),
+      },
+      {
+        path: 'compare',
+        title: 'Compare materials · Gapwright',
+        canActivate: [roleGuard(['engineer', 'reviewer', 'admin'])],
+        loadComponent: () => import('./compare/material-compare').then((m) => m.MaterialCompare),
+      },
+      {
         path: 'admin',
         canActivate: [roleGuard(['admin'])],
         loadChildren: () => import('./admin/admin.routes'),

@@ -1,0 +1,60 @@
+import { HttpClient, httpResource } from '@angular/common/http';
+import { Injectable, inject } from '@angular/core';
+import type { CompareCurvesResponse, CompareDesignResponse } from '@shared/schemas/compare';
+import type { Observable } from 'rxjs';
+
+import { errorsShownByCaller } from '../core/error-display';
+
+export interface MaterialChoice {
+  id: string;
+  name: string;
+  family: string;
+  version: number;
+}
+
+export interface CoreChoice {
+  id: string;
+  family: string;
+  gapKind: string;
+}
+
+export interface CurvesRequest {
+  materialIds: string[];
+  deltaB: number;
+  frequency: number;
+  duty: number;
+}
+
+export interface DesignRequest {
+  spec: { vinMin: number; vinMax: number; vout: number; ioutMax: number; frequency: number; rippleRatio: number };
+  coreId: string;
+  turns: number;
+  wire: { kind: 'awg'; awg: number; strands: number };
+}
+
+@Injectable({ providedIn: 'root' })
+export class CompareApi {
+  private readonly http = inject(HttpClient);
+
+  materialsResource() {
+    return httpResource(() => '/api/materials', {
+      parse: (body) => (body as { materials: MaterialChoice[] }).materials,
+      defaultValue: [] as MaterialChoice[],
+    });
+  }
+
+  coresResource() {
+    return httpResource(() => '/api/catalogue/cores', {
+      parse: (body) => (body as { cores: CoreChoice[] }).cores,
+      defaultValue: [] as CoreChoice[],
+    });
+  }
+
+  curves(request: CurvesRequest): Observable<CompareCurvesResponse> {
+    return this.http.post<CompareCurvesResponse>('/api/compare/curves', request, errorsShownByCaller());
+  }
+
+  design(request: DesignRequest): Observable<CompareDesignResponse> {
+    return this.http.post<CompareDesignResponse>('/api/compare/design', request, errorsShownByCaller());
+  }
+}

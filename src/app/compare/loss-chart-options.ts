@@ -1,0 +1,84 @@
+import type { EChartsCoreOption } from 'echarts/core';
+import type { CurvePoint, MaterialCurves } from '@shared/schemas/compare';
+
+export type LossMethod = 'igse' | 'steinmetz';
+export type SweepAxis = 'frequency' | 'flux';
+
+const PALETTE = ['#b5562b', '#00796b', '#5e35b1', '#c62828', '#2e7d32', '#1565c0', '#6d4c41', '#ad1457', '#f9a825', '#37474f', '#00838f', '#8e24aa'];
+
+/**
+ * Split a curve into the fitted part (solid) and the extrapolated parts (dashed). Neighbouring points are
+ * repeated so the two lines meet at the edge of the fitted range.
+ */
+export function splitByFit(points: readonly CurvePoint[], method: LossMethod): { fitted: ([number, number] | null)[]; extrapolated: ([number, number] | null)[] } {
+  const fitted: ([number, number] | null)[] = [];
+  const extrapolated: ([number, number] | null)[] = [];
+  points.forEach((p, i) => {
+    const value: [number, number] = [p.x, p[method]];
+    const bordersExtrapolation = !!points[i + 1]?.extrapolated || !!points[i - 1]?.extrapolated;
+    fitted.push(p.extrapolated ? null : value);
+    extrapolated.push(p.extrapolated || bordersExtrapolation ? value : null);
+  });
+  return { fitted, extrapolated };
+}
+
+/** Log-log loss curves of several materials, fitted ranges solid and shaded, extrapolation dashed. */
+export function lossChartOptions(materials: readonly MaterialCurves[], axis: SweepAxis, method: LossMethod, dark: boolean): EChartsCoreOption {
+  const text = dark ? '#e6e1e5' : '#1d1b20';
+  const grid = dark ? '#49454f' : '#cac4d0';
+  const series = materials.flatMap((m, i) => {
+    const colour = PALETTE[i % PALETTE.length];
+    const { fitted, extrapolated } = splitByFit(axis === 'frequency' ? m.versusFrequency : m.versusFlux, method);
+    const [from, to] = axis === 'frequency' ? [m.fit.frequencyMin, m.fit.frequencyMax] : [2 * m.fit.fluxMin || 1e-4, 2 * m.fit.fluxMax];
+    return [
+      {
+        name: m.name,
+        type: 'line',
+        data: fitted,
+        showSymbol: false,
+        connectNulls: false,
+        lineStyle: { width: 2.5, color: colour },
+        itemStyle: { color: colour },
+        markArea: { silent: true, itemStyle: { color: colour, opacity: 0.06 }, data: [[{ xAxis: from }, { xAxis: to }]] },
+      },
+      {
+        name: m.name,
+        type: 'line',
+        data: extrapolated,
+        showSymbol: false,
+        connectNulls: false,
+        lineStyle: { width: 1.5, type: 'dashed', color: colour },
+        itemStyle: { color: colour },
+        tooltip: { show: true },
+      },
+    ];
+  });
+  return {
+    animation: false,
+    color: PALETTE,
+    textStyle: { color: text },
+    legend: { top: 0, textStyle: { color: text }, type: 'scroll' },
+    tooltip: {
+      trigger: 'axis',
+      valueFormatter: (v: unknown) => (typeof v === 'number' ? `${(v / 1e3).toPrecision(3)} kW/m³` : String(v)),
+    },
+    grid: { left: 72, right: 24, top: 48, bottom: 56 },
+    xAxis: {
+      type: 'log',
+      name: axis === 'frequency' ? 'Frequency (Hz)' : 'Peak-to-peak flux swing ΔB (T)',
+      nameLocation: 'middle',
+      nameGap: 32,
+      axisLine: { lineStyle: { color: text } },
+      splitLine: { show: true, lineStyle: { color: grid } },
+    },
+    yAxis: {
+      type: 'log',
+      name: 'Core-loss density (W/m³)',
+      nameLocation: 'middle',
+      nameGap: 56,
+      axisLine: { lineStyle: { color: text } },
+      splitLine: { show: true, lineStyle: { color: grid } },
+    },
+    series,
+  };
+}

@@ -1,0 +1,86 @@
+import { DecimalPipe } from '@angular/common';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, signal, viewChild } from '@angular/core';
+import { MatExpansionModule } from '@angular/material/expansion';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatInputModule } from '@angular/material/input';
+import { MatPaginator, MatPaginatorModule } from '@angular/material/paginator';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSelectModule } from '@angular/material/select';
+import { MatSort, MatSortModule } from '@angular/material/sort';
+import { MatTableDataSource, MatTableModule } from '@angular/material/table';
+
+import { Notifier } from '../core/notifier';
+import { CoreForm } from './core-form';
+import { CoresApi, type CatalogueCore } from './cores-api';
+
+interface CoreFilters {
+  text: string;
+  family: string;
+  aeMin: number | null;
+  apMin: number | null;
+}
+
+@Component({
+  selector: 'gw-core-catalogue',
+  imports: [
+    CoreForm,
+    DecimalPipe,
+    MatExpansionModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatPaginatorModule,
+    MatProgressBarModule,
+    MatSelectModule,
+    MatSortModule,
+    MatTableModule,
+  ],
+  templateUrl: './core-catalogue.html',
+  styleUrl: './core-catalogue.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class CoreCatalogue {
+  private readonly api = inject(CoresApi);
+  private readonly notifier = inject(Notifier);
+  private readonly sort = viewChild.required(MatSort);
+  private readonly paginator = viewChild.required(MatPaginator);
+
+  protected readonly cores = this.api.listResource();
+  protected readonly families = computed(() => [...new Set(this.cores.value().map((c) => c.family))]);
+  protected readonly columns = ['id', 'family', 'ae', 'le', 've', 'windowArea', 'areaProduct', 'origin', 'source'];
+  protected readonly dataSource = new MatTableDataSource<CatalogueCore>([]);
+  protected readonly filters = signal<CoreFilters>({ text: '', family: '', aeMin: null, apMin: null });
+
+  constructor() {
+    this.dataSource.filterPredicate = (core, serialised) => {
+      const f = JSON.parse(serialised) as CoreFilters;
+      if (f.family && core.family !== f.family) return false;
+      if (f.aeMin !== null && core.ae * 1e6 < f.aeMin) return false;
+      if (f.apMin !== null && core.areaProduct * 1e8 < f.apMin) return false;
+      const text = f.text.trim().toLowerCase();
+      return !text || [core.id, core.source, core.origin].join(' ').toLowerCase().includes(text);
+    };
+    effect(() => {
+      this.dataSource.data = this.cores.value();
+    });
+    effect(() => {
+      this.dataSource.sort = this.sort();
+      this.dataSource.paginator = this.paginator();
+    });
+  }
+
+  protected setFilter(change: Partial<CoreFilters>): void {
+    this.filters.update((f) => ({ ...f, ...change }));
+    this.dataSource.filter = JSON.stringify(this.filters());
+    this.dataSource.paginator?.firstPage();
+  }
+
+  protected numberOrNull(text: string): number | null {
+    const value = Number(text);
+    return text.trim() === '' || !Number.isFinite(value) ? null : value;
+  }
+
+  protected added(core: CatalogueCore): void {
+    this.notifier.info(`Core ${core.id} added: le ${(core.le * 1e3).toFixed(2)} mm, Ae ${(core.ae * 1e6).toFixed(2)} mm².`);
+    this.cores.reload();
+  }
+}

@@ -1,0 +1,116 @@
+import { DatePipe, DecimalPipe } from '@angular/common';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, signal, viewChild } from '@angular/core';
+import { MatButtonModule } from '@angular/material/button';
+import { MatCheckboxModule } from '@angular/material/checkbox';
+import { MatExpansionModule } from '@angular/material/expansion';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatInputModule } from '@angular/material/input';
+import { MatPaginator, MatPaginatorModule } from '@angular/material/paginator';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSort, MatSortModule } from '@angular/material/sort';
+import { MatTableDataSource, MatTableModule } from '@angular/material/table';
+
+import { Notifier } from '../core/notifier';
+import { Session } from '../core/session';
+import { MaterialUpload } from './material-upload';
+import { MaterialsApi, type CommitResult, type LibraryMaterial } from './materials-api';
+
+@Component({
+  selector: 'gw-material-library',
+  imports: [
+    DatePipe,
+    DecimalPipe,
+    MatButtonModule,
+    MatCheckboxModule,
+    MatExpansionModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatPaginatorModule,
+    MatProgressBarModule,
+    MatSortModule,
+    MatTableModule,
+    MaterialUpload,
+  ],
+  templateUrl: './material-library.html',
+  styleUrl: './material-library.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class MaterialLibrary {
+  private readonly api = inject(MaterialsApi);
+  private readonly notifier = inject(Notifier);
+  private readonly session = inject(Session);
+  private readonly sort = viewChild.required(MatSort);
+  private readonly paginator = viewChild.required(MatPaginator);
+
+  protected readonly materials = this.api.listResource();
+  protected readonly imports = this.api.importsResource();
+  protected readonly mayUpload = computed(() => ['engineer', 'reviewer', 'admin'].includes(this.session.user()?.role ?? ''));
+  protected readonly mayRetire = computed(() => ['reviewer', 'admin'].includes(this.session.user()?.role ?? ''));
+  protected readonly columns = computed(() => [
+    'select', 'name', 'family', 'version', 'steinmetz', 'fit', 'provenance', 'createdBy', 'createdAt', 'state',
+    ...(this.mayRetire() ? ['actions'] : []),
+  ]);
+  protected readonly importColumns = ['uploadedAt', 'fileName', 'uploadedBy', 'counts'];
+  protected readonly dataSource = new MatTableDataSource<LibraryMaterial>([]);
+  protected readonly filterText = signal('');
+  protected readonly selected = signal<ReadonlySet<string>>(new Set());
+  protected readonly exportHref = computed(() => {
+    const ids = [...this.selected()];
+    return ids.length ? `/api/materials/export.csv?ids=${ids.join(',')}` : '/api/materials/export.csv';
+  });
+
+  constructor() {
+    this.dataSource.filterPredicate = (m, filter) =>
+      [m.name, m.family, m.provenance, m.createdBy ?? '', m.unitSet, m.retired ? 'retired' : 'in use'].join(' ').toLowerCase().includes(filter);
+    this.dataSource.sortingDataAccessor = (m, column) => {
+      switch (column) {
+        case 'steinmetz':
+          return m.alpha;
+        case 'fit':
+          return m.fitFrequencyMin;
+        case 'state':
+          return m.retired ? 1 : 0;
+        default:
+          return (m as unknown as Record<string, string | number>)[column] ?? '';
+      }
+    };
+    effect(() => {
+      this.dataSource.data = this.materials.value();
+    });
+    effect(() => {
+      this.dataSource.sort = this.sort();
+      this.dataSource.paginator = this.paginator();
+    });
+  }
+
+  protected applyFilter(text: string): void {
+    this.filterText.set(text);
+    this.dataSource.filter = text.trim().toLowerCase();
+    this.dataSource.paginator?.firstPage();
+  }
+
+  protected toggle(id: string, on: boolean): void {
+    this.selected.update((set) => {
+      const next = new Set(set);
+      if (on) next.add(id);
+      else next.delete(id);
+      return next;
+    });
+  }
+
+  protected onImported(result: CommitResult): void {
+    this.notifier.info(`Imported: ${result.created} new, ${result.versioned} new versions, ${result.skipped} skipped.`);
+    this.materials.reload();
+    this.imports.reload();
+  }
+
+  protected setRetired(material: LibraryMaterial, retired: boolean): void {
+    this.api.setRetired(material.id, retired).subscribe({
+      next: () => {
+        this.notifier.info(`${material.name} ${retired ? 'retired' : 'back in use'}.`);
+        this.materials.reload();
+      },
+      error: () => this.materials.reload(),
+    });
+  }
+}
