@@ -204,3 +204,65 @@ export const revisionTransitions = pgTable('revision_transitions', {
   comment: text('comment'),
   at: timestamp('at', { withTimezone: true }).notNull().defaultNow(),
 });
+
+/** A released revision handed to the winding shop: the sheet is frozen at release and never recomputed. */
+export const buildOrders = pgTable('build_orders', {
+  id: serial('id').primaryKey(),
+  number: varchar('number', { length: 20 }).notNull().unique(),
+  revisionId: integer('revision_id')
+    .notNull()
+    .unique()
+    .references(() => designRevisions.id),
+  quantity: integer('quantity').notNull(),
+  status: varchar('status', { length: 12, enum: ['open', 'complete'] }).notNull().default('open'),
+  sheet: jsonb('sheet').notNull(),
+  createdBy: integer('created_by').references(() => users.id, { onDelete: 'set null' }),
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  completedAt: timestamp('completed_at', { withTimezone: true }),
+});
+
+/** One unit built and tested against the sheet's limits. */
+export const buildUnits = pgTable(
+  'build_units',
+  {
+    id: serial('id').primaryKey(),
+    orderId: integer('order_id')
+      .notNull()
+      .references(() => buildOrders.id, { onDelete: 'cascade' }),
+    unitNumber: integer('unit_number').notNull(),
+    inductance: doublePrecision('inductance').notNull(),
+    testFrequency: doublePrecision('test_frequency').notNull(),
+    resistance: doublePrecision('resistance').notNull(),
+    resistanceTemperature: doublePrecision('resistance_temperature').notNull(),
+    resistanceAt20: doublePrecision('resistance_at_20').notNull(),
+    hipot: varchar('hipot', { length: 12, enum: ['pass', 'fail', 'not_tested'] }).notNull(),
+    passed: boolean('passed').notNull(),
+    findings: jsonb('findings').notNull(),
+    notes: text('notes'),
+    recordedBy: integer('recorded_by').references(() => users.id, { onDelete: 'set null' }),
+    recordedAt: timestamp('recorded_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex('build_units_order_unit_idx').on(t.orderId, t.unitNumber)],
+);
+
+/** E-mails the app sends (the release hand-off), with their delivery state and retries. */
+export const mailDeliveries = pgTable('mail_deliveries', {
+  id: serial('id').primaryKey(),
+  orderId: integer('order_id').references(() => buildOrders.id, { onDelete: 'cascade' }),
+  recipient: varchar('recipient', { length: 200 }).notNull(),
+  subject: varchar('subject', { length: 200 }).notNull(),
+  status: varchar('status', { length: 10, enum: ['pending', 'sent', 'failed'] }).notNull().default('pending'),
+  attempts: integer('attempts').notNull().default(0),
+  lastError: text('last_error'),
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  sentAt: timestamp('sent_at', { withTimezone: true }),
+});
+
+/** Messages received by the built-in fake SMTP server (development and tests), shown in the admin outbox. */
+export const capturedMail = pgTable('captured_mail', {
+  id: serial('id').primaryKey(),
+  envelopeFrom: varchar('envelope_from', { length: 200 }),
+  envelopeTo: text('envelope_to').notNull(),
+  raw: text('raw').notNull(),
+  receivedAt: timestamp('received_at', { withTimezone: true }).notNull().defaultNow(),
+});

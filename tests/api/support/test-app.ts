@@ -36,7 +36,7 @@ export function testConfig(overrides: Record<string, string> = {}): Config {
 /** Every table emptied and the demo scenario seeded again: each test file starts from the same state. */
 export async function resetDatabase(db: Db, config: Config): Promise<void> {
   await applyMigrations(db);
-  await db.execute(sql`truncate table audit_log, session, app_settings, revision_transitions, design_revisions, designs, user_cores, material_imports, materials, users restart identity cascade`);
+  await db.execute(sql`truncate table audit_log, session, app_settings, captured_mail, mail_deliveries, build_units, build_orders, revision_transitions, design_revisions, designs, user_cores, material_imports, materials, users restart identity cascade`);
   await seedDemoOnce(db, config.bcryptCost);
 }
 
