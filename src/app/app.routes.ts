@@ -45,6 +45,10 @@ export const routes: Routes = [
         loadComponent: () => import('./compare/material-compare').then((m) => m.MaterialCompare),
       },
       {
+        path: 'designs',
+        loadChildren: () => import('./designs/designs.routes'),
+      },
+      {
         path: 'admin',
         canActivate: [roleGuard(['admin'])],
         loadChildren: () => import('./admin/admin.routes'),

@@ -33,13 +33,13 @@ describe('App shell', () => {
   it('shows an engineer Home but not Users or Audit log', async () => {
     const page = await renderSignedInAs('engineer');
 
-    expect(navigationLabels(page)).toEqual(['Home']);
+    expect(navigationLabels(page)).toEqual(['Home', 'Designs']);
   });
 
   it('shows an admin Users and Audit log', async () => {
     const page = await renderSignedInAs('admin');
 
-    expect(navigationLabels(page)).toEqual(['Home', 'Users', 'Audit log']);
+    expect(navigationLabels(page)).toEqual(['Home', 'Designs', 'Users', 'Audit log']);
   });
 
   it("puts the user's display name and role in the account menu button", async () => {

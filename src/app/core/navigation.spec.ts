@@ -14,11 +14,11 @@ describe('navigationFor', () => {
   });
 
   it('gives an admin Home, Users and Audit log', () => {
-    expect(labelsFor('admin')).toEqual(['Home', 'Users', 'Audit log']);
+    expect(labelsFor('admin')).toEqual(['Home', 'Designs', 'Users', 'Audit log']);
   });
 
   it('gives reviewers and winders only what every role may use', () => {
-    expect(labelsFor('reviewer')).toEqual(['Home']);
+    expect(labelsFor('reviewer')).toEqual(['Home', 'Designs']);
     expect(labelsFor('winder')).toEqual(['Home']);
   });
 
@@ -30,6 +30,6 @@ describe('navigationFor', () => {
     const items = [...NAVIGATION, { label: 'Shop queue', icon: 'build', path: '/shop', roles: ['winder'] as const }];
 
     expect(navigationFor('winder', items).map((item) => item.label)).toEqual(['Home', 'Shop queue']);
-    expect(navigationFor('engineer', items).map((item) => item.label)).toEqual(['Home']);
+    expect(navigationFor('engineer', items).map((item) => item.label)).toEqual(['Home', 'Designs']);
   });
 });

@@ -11,6 +11,7 @@ export interface NavigationItem {
 /** Every destination in the side navigation; a feature adds its line here. */
 export const NAVIGATION: readonly NavigationItem[] = [
   { label: 'Home', icon: 'home', path: '/', roles: ROLES },
+  { label: 'Designs', icon: 'design_services', path: '/designs', roles: ['engineer', 'reviewer', 'admin'] },
   { label: 'Users', icon: 'group', path: '/admin/users', roles: ['admin'] },
   { label: 'Audit log', icon: 'history', path: '/admin/audit', roles: ['admin'] },
 ];

@@ -1,0 +1,205 @@
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, output, signal, untracked } from '@angular/core';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatInputModule } from '@angular/material/input';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSelectModule } from '@angular/material/select';
+import type { Construction, DesignSpec } from '@shared/schemas/designs';
+import type { EChartsCoreOption } from 'echarts/core';
+import { NgxEchartsDirective } from 'ngx-echarts';
+import { Subject, catchError, debounceTime, map, of, switchMap, tap } from 'rxjs';
+
+import { CautionLine } from '../caution-line/caution-line';
+import { errorMessageOf } from '../core/api-error';
+import { QuantityInput } from '../units/quantity-input';
+import { DesignsApi, type EvaluateView, type MaterialView } from './designs-api';
+import { percent, show, showUnit } from './format';
+
+type WireKind = 'awg' | 'metric' | 'litz';
+
+/** The chosen design: every figure, three charts, warnings; turns, gap, wire and material re-evaluate live. */
+@Component({
+  selector: 'gw-design-panel',
+  imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatProgressBarModule, MatSelectModule, NgxEchartsDirective, QuantityInput, CautionLine],
+  templateUrl: './design-panel.html',
+  styleUrl: './design-panel.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class DesignPanel {
+  private readonly api = inject(DesignsApi);
+  readonly spec = input<DesignSpec | null>(null);
+  readonly construction = input<Construction | null>(null);
+  /** Figures already computed for that construction (a picked candidate or the saved snapshot). */
+  readonly known = input<EvaluateView | null>(null);
+  readonly materials = input<MaterialView[]>([]);
+  readonly editable = input(true);
+  readonly changed = output<{ construction: Construction; view: EvaluateView }>();
+
+  protected readonly form = new FormGroup({
+    materialId: new FormControl('', { nonNullable: true, validators: [Validators.required] }),
+    turns: new FormControl<number | null>(null, { validators: [Validators.required, Validators.min(1), Validators.max(2000)] }),
+    gap: new FormControl<number | null>(null),
+    wireKind: new FormControl<WireKind>('awg', { nonNullable: true }),
+    awg: new FormControl<number | null>(null, { validators: [Validators.min(-3), Validators.max(46)] }),
+    strandDiameter: new FormControl<number | null>(null),
+    strands: new FormControl<number | null>(1, { validators: [Validators.required, Validators.min(1), Validators.max(5000)] }),
+  });
+  protected readonly wireKind = signal<WireKind>('awg');
+  protected readonly view = signal<EvaluateView | null>(null);
+  protected readonly evaluating = signal(false);
+  protected readonly error = signal<string | null>(null);
+  private readonly edits = new Subject<void>();
+  private coreId = '';
+  private silent = false;
+
+  protected readonly fmt = show;
+  protected readonly unit = showUnit;
+  protected readonly pct = percent;
+  protected readonly result = computed(() => this.view()?.result ?? null);
+  protected readonly materialOptions = computed(() => {
+    const family = this.result()?.material.family;
+    return this.materials().filter((m) => !family || (m.family === 'powder') === (family === 'powder'));
+  });
+
+  constructor() {
+    effect(() => {
+      const construction = this.construction();
+      const known = this.known();
+      untracked(() => this.load(construction, known));
+    });
+    effect(() => {
+      const editable = this.editable();
+      untracked(() => (editable ? this.form.enable({ emitEvent: false }) : this.form.disable({ emitEvent: false })));
+    });
+    this.form.controls.wireKind.valueChanges.pipe(takeUntilDestroyed()).subscribe((kind) => this.wireKind.set(kind));
+    this.form.valueChanges.pipe(takeUntilDestroyed()).subscribe(() => {
+      if (!this.silent) this.edits.next();
+    });
+    this.edits
+      .pipe(
+        debounceTime(300),
+        map(() => this.constructionFromForm()),
+        switchMap((construction) => {
+          const spec = this.spec();
+          if (!construction || !spec) return of(null);
+          this.evaluating.set(true);
+          return this.api.evaluate(spec, construction).pipe(
+            map((view) => ({ construction, view })),
+            catchError((error: unknown) => {
+              this.error.set(errorMessageOf(error));
+              return of(null);
+            }),
+          );
+        }),
+        tap(() => this.evaluating.set(false)),
+        takeUntilDestroyed(),
+      )
+      .subscribe((outcome) => {
+        if (!outcome) return;
+        this.error.set(null);
+        this.view.set(outcome.view);
+        this.changed.emit({ construction: { ...outcome.construction, turns: outcome.view.result.turns, gap: outcome.view.result.gap.total }, view: outcome.view });
+      });
+  }
+
+  /** Re-evaluates with the current spec (the workspace calls this when the spec changes). */
+  reevaluate(): void {
+    this.edits.next();
+  }
+
+  private load(construction: Construction | null, known: EvaluateView | null): void {
+    if (!construction) {
+      this.view.set(null);
+      return;
+    }
+    this.coreId = construction.coreId;
+    this.silent = true;
+    const wire = construction.wire;
+    this.form.setValue({
+      materialId: construction.materialId,
+      turns: typeof construction.turns === 'number' ? construction.turns : (known?.result.turns ?? null),
+      gap: typeof construction.gap === 'number' ? construction.gap : (known?.result.gap.total ?? null),
+      wireKind: wire.kind,
+      awg: wire.awg ?? null,
+      strandDiameter: wire.strandDiameter ?? null,
+      strands: wire.strands,
+    });
+    this.wireKind.set(wire.kind);
+    this.silent = false;
+    if (known) this.view.set(known);
+    else this.edits.next();
+  }
+
+  private constructionFromForm(): Construction | null {
+    if (this.form.invalid) return null;
+    const v = this.form.getRawValue();
+    if (v.turns === null || v.strands === null) return null;
+    const wire: Construction['wire'] =
+      v.wireKind === 'awg' && v.awg !== null
+        ? { kind: 'awg', awg: v.awg, strands: v.strands }
+        : { kind: v.wireKind, strandDiameter: v.strandDiameter ?? 0, strands: v.strands };
+    if (wire.strandDiameter === 0) return null;
+    return { coreId: this.coreId, materialId: v.materialId, turns: v.turns, gap: v.gap ?? 'auto', wire };
+  }
+
+  protected readonly lossChart = computed<EChartsCoreOption>(() => {
+    const r = this.result();
+    if (!r) return {};
+    return {
+      animation: false,
+      grid: { left: 56, right: 16, top: 16, bottom: 32 },
+      tooltip: { trigger: 'axis' },
+      xAxis: { type: 'category', data: ['Copper DC', 'Copper AC', 'Core (iGSE)', 'Total'] },
+      yAxis: { type: 'value', name: 'W' },
+      series: [{ type: 'bar', data: [r.copper.dcLoss, r.copper.acLoss, r.coreLoss.loss, r.totalLoss], label: { show: true, position: 'top', formatter: (p: { value: number }) => p.value.toFixed(3) } }],
+    };
+  });
+
+  protected readonly fluxChart = computed<EChartsCoreOption>(() => {
+    const r = this.result();
+    if (!r) return {};
+    const f = r.flux;
+    return {
+      animation: false,
+      grid: { left: 56, right: 90, top: 16, bottom: 32 },
+      tooltip: { trigger: 'axis' },
+      xAxis: { type: 'category', data: ['DC', 'Valley', 'Peak (load)', 'Peak (limit)'] },
+      yAxis: { type: 'value', name: 'T', max: Math.max(f.saturationAtHotSpot, f.peakAtMinimumSection) * 1.1 },
+      series: [
+        {
+          type: 'bar',
+          name: 'Flux density',
+          data: [f.dc, Math.max(0, f.dc - f.swing / 2), f.dc + f.swing / 2, f.peakAtMinimumSection],
+          markLine: {
+            symbol: 'none',
+            data: [
+              { yAxis: f.saturationAtHotSpot, name: 'Bsat hot', label: { formatter: `Bsat at ${Math.round(r.thermal.hotSpot)} °C` } },
+              { yAxis: f.saturationAtHotSpot * (1 - f.requiredMargin), name: 'limit', label: { formatter: 'with margin' }, lineStyle: { type: 'dotted' } },
+            ],
+          },
+        },
+      ],
+    };
+  });
+
+  protected readonly frequencyChart = computed<EChartsCoreOption>(() => {
+    const sweep = this.view()?.lossVersusFrequency ?? [];
+    if (!sweep.length) return {};
+    const series = (name: string, pick: (p: (typeof sweep)[number]) => number) => ({ type: 'line', name, data: sweep.map((p) => [p.frequency / 1e3, pick(p)]) });
+    const fs = this.spec()?.converter.frequency;
+    return {
+      animation: false,
+      grid: { left: 56, right: 16, top: 32, bottom: 40 },
+      legend: { top: 0 },
+      tooltip: { trigger: 'axis' },
+      xAxis: { type: 'log', name: 'kHz', nameLocation: 'middle', nameGap: 24 },
+      yAxis: { type: 'value', name: 'W' },
+      series: [
+        { ...series('Total', (p) => p.total), markLine: fs ? { symbol: 'none', data: [{ xAxis: fs / 1e3 }], label: { formatter: 'fs' } } : undefined },
+        series('Copper', (p) => p.copperDc + p.copperAc),
+        series('Core', (p) => p.core),
+      ],
+    };
+  });
+}
