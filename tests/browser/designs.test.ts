@@ -1,0 +1,94 @@
+import { readFile } from 'node:fs/promises';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { DEMO_USERS } from '../../server/seed/demo-scenario.ts';
+import { screenshotPath, seriousAxeFindings, signIn, startHarness, type Harness } from './support/harness.ts';
+
+let h: Harness;
+beforeAll(async () => {
+  h = await startHarness();
+}, 120_000);
+afterAll(() => h?.close());
+
+const erin = DEMO_USERS.find((u) => u.username === 'erin')!;
+
+describe('design workspace', () => {
+  it('takes an engineer from a spec typed with units to a saved design and a SPICE file', async () => {
+    const { context, page } = await h.newPage();
+    await signIn(page, erin.username, erin.password);
+
+    await page.getByRole('navigation', { name: 'Main navigation' }).getByRole('link', { name: 'Designs' }).click();
+    await page.getByRole('cell', { name: /invented demo converter/ }).first().waitFor();
+    expect(await seriousAxeFindings(page)).toEqual([]);
+    await page.screenshot({ path: screenshotPath('designs-list'), fullPage: true });
+
+    await page.getByRole('link', { name: 'New design' }).click();
+    await page.waitForURL(/\/designs\/new$/);
+    const typeInto = async (label: string, text: string) => {
+      const field = page.getByRole('textbox', { name: label, exact: true });
+      await field.fill(text);
+      await field.blur();
+    };
+    await typeInto('Vin min', '36 V');
+    await typeInto('Vin max', '60V');
+    await typeInto('Vout', '3 A');
+    await page.getByText('Expected a voltage (V), not a current (A)').waitFor();
+    await typeInto('Vout', '12 V');
+    await typeInto('Iout max', '8 A');
+    await typeInto('Switching frequency', '250kHz');
+    expect(await page.getByRole('textbox', { name: 'Switching frequency', exact: true }).inputValue()).toBe('250 kHz');
+    await typeInto('Current limit', '11 A');
+
+    // L = Vout·(1 − Vout/Vin,max)/(fs·r·Iout) = 12·(1 − 12/60)/(250 kHz·0.3·8 A) = 16 µH (magnetics reference §1.2, computed [C]).
+    await page.locator('[data-figure="inductance"]', { hasText: '16 µH' }).waitFor();
+    expect(await seriousAxeFindings(page)).toEqual([]);
+    await page.screenshot({ path: screenshotPath('designs-spec'), fullPage: true });
+
+    await page.getByRole('button', { name: 'Search candidates' }).click();
+    await page.getByTestId('search-status').filter({ hasText: /feasible of/ }).waitFor({ timeout: 30_000 });
+    await page.locator('[data-testid="candidates-table"] tr.mat-mdc-row').first().waitFor();
+
+    // Pick a point of the Pareto front on the chart itself.
+    const point = page.locator('.gw-point').first();
+    await point.waitFor();
+    const x = Number(await point.getAttribute('data-x'));
+    const y = Number(await point.getAttribute('data-y'));
+    const chart = page.locator('gw-candidates-panel [echarts]');
+    await chart.click({ position: { x, y } });
+    await page.locator('tr.gw-selected').waitFor();
+    expect(await seriousAxeFindings(page)).toEqual([]);
+    await page.screenshot({ path: screenshotPath('designs-candidates'), fullPage: true });
+    await page.getByRole('button', { name: 'Use selected candidate' }).click();
+
+    const totalLoss = page.locator('[data-figure="total-loss"]');
+    await totalLoss.waitFor();
+    const turnsField = page.getByRole('spinbutton', { name: 'Turns' });
+    const turns = Number(await turnsField.inputValue());
+    const lossBefore = await totalLoss.innerText();
+    await turnsField.fill(String(turns + 4));
+    await page.locator('[data-figure="turns"]', { hasText: String(turns + 4) }).waitFor();
+    const lossAfter = await totalLoss.innerText();
+    expect(lossAfter).not.toBe(lossBefore);
+    const coreLossAfter = await page.locator('[data-figure="core-loss"]').innerText();
+
+    await page.getByRole('textbox', { name: 'Title', exact: true }).fill('Browser test 48 V rail inductor');
+    await page.getByRole('button', { name: 'Save as new design' }).click();
+    await page.waitForURL(/\/designs\/\d+$/);
+    await page.getByRole('heading', { level: 1, name: /GW-\d{4}/ }).waitFor();
+    await page.locator('[data-figure="turns"]', { hasText: String(turns + 4) }).waitFor();
+    expect(await totalLoss.innerText()).toBe(lossAfter);
+
+    await page.reload();
+    await page.locator('[data-figure="turns"]', { hasText: String(turns + 4) }).waitFor();
+    expect(await totalLoss.innerText()).toBe(lossAfter);
+    expect(await page.locator('[data-figure="core-loss"]').innerText()).toBe(coreLossAfter);
+    expect(await seriousAxeFindings(page)).toEqual([]);
+    await page.screenshot({ path: screenshotPath('designs-design'), fullPage: true });
+
+    const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('link', { name: 'SPICE subcircuit' }).click()]);
+    expect(download.suggestedFilename()).toMatch(/^GW-\d{4}-r1\.lib$/);
+    const spice = await readFile((await download.path())!, 'utf8');
+    expect(spice).toMatch(/^\.SUBCKT GW_\d{4}_R1 1 2$/m);
+    expect(spice).toMatch(/^\.ENDS GW_\d{4}_R1$/m);
+    await context.close();
+  }, 120_000);
+});
