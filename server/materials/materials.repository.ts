@@ -8,11 +8,13 @@ export type MaterialImportRow = typeof materialImports.$inferSelect;
 /** A transaction handle or the database itself. */
 export type Tx = Parameters<Parameters<Db['transaction']>[0]>[0] | Db;
 
+export type NewMaterialVersion = MaterialValues & { lineage: string; version: number; retired?: boolean; importId: number | null; createdBy: number | null };
+
 export interface MaterialWithAuthor extends MaterialRow {
   createdByName: string | null;
 }
 
-const INSERT_CHUNK = 1000;
+const UPDATE_CHUNK = 1000;
 
 export class MaterialsRepository {
   constructor(readonly db: Db) {}
@@ -27,8 +29,8 @@ export class MaterialsRepository {
     return this.db.select().from(materials).where(inArray(materials.id, ids));
   }
 
-  async findById(id: number): Promise<MaterialRow | undefined> {
-    const [row] = await this.db.select().from(materials).where(eq(materials.id, id));
+  async findById(id: number, tx: Tx = this.db): Promise<MaterialRow | undefined> {
+    const [row] = await tx.select().from(materials).where(eq(materials.id, id));
     return row;
   }
 
@@ -65,20 +67,35 @@ export class MaterialsRepository {
   }
 
   async retireCurrentVersions(tx: Tx, ids: number[]): Promise<void> {
-    for (let i = 0; i < ids.length; i += INSERT_CHUNK) {
-      await tx.update(materials).set({ current: false }).where(inArray(materials.id, ids.slice(i, i + INSERT_CHUNK)));
+    for (let i = 0; i < ids.length; i += UPDATE_CHUNK) {
+      await tx.update(materials).set({ current: false }).where(inArray(materials.id, ids.slice(i, i + UPDATE_CHUNK)));
     }
   }
 
-  async insertVersions(
-    tx: Tx,
-    rows: (MaterialValues & { lineage: string; version: number; retired?: boolean; importId: number | null; createdBy: number | null })[],
-  ): Promise<MaterialRow[]> {
-    const inserted: MaterialRow[] = [];
-    for (let i = 0; i < rows.length; i += INSERT_CHUNK) {
-      inserted.push(...(await tx.insert(materials).values(rows.slice(i, i + INSERT_CHUNK)).returning()));
-    }
-    return inserted;
+  /**
+   * Many versions in one statement: each column goes as one array parameter through unnest, which keeps
+   * a 10,000-row import to a few parameters instead of hundreds of thousands.
+   */
+  async insertVersions(tx: Tx, rows: NewMaterialVersion[]): Promise<number[]> {
+    if (!rows.length) return [];
+    const column = <K extends keyof NewMaterialVersion>(key: K) => rows.map((r) => r[key] ?? null);
+    const result = await tx.execute(sql`
+      insert into materials (lineage, version, retired, name, family, unit_set, k_uploaded, k, alpha, beta,
+        fit_frequency_min, fit_frequency_max, fit_flux_min, fit_flux_max, ct0, ct1, ct2, reference_temperature,
+        bsat_25, bsat_100, permeability, roll_off_a, roll_off_b, roll_off_c, density, provenance, import_id, created_by)
+      select * from unnest(
+        ${sql.param(column('lineage'))}::varchar[], ${sql.param(column('version'))}::int[], ${sql.param(rows.map((r) => r.retired ?? false))}::boolean[],
+        ${sql.param(column('name'))}::varchar[], ${sql.param(column('family'))}::varchar[], ${sql.param(column('unitSet'))}::varchar[],
+        ${sql.param(column('kUploaded'))}::float8[], ${sql.param(column('k'))}::float8[], ${sql.param(column('alpha'))}::float8[], ${sql.param(column('beta'))}::float8[],
+        ${sql.param(column('fitFrequencyMin'))}::float8[], ${sql.param(column('fitFrequencyMax'))}::float8[], ${sql.param(column('fitFluxMin'))}::float8[],
+        ${sql.param(column('fitFluxMax'))}::float8[], ${sql.param(column('ct0'))}::float8[], ${sql.param(column('ct1'))}::float8[], ${sql.param(column('ct2'))}::float8[],
+        ${sql.param(column('referenceTemperature'))}::float8[], ${sql.param(column('bsat25'))}::float8[], ${sql.param(column('bsat100'))}::float8[],
+        ${sql.param(column('permeability'))}::float8[], ${sql.param(column('rollOffA'))}::float8[], ${sql.param(column('rollOffB'))}::float8[],
+        ${sql.param(column('rollOffC'))}::float8[], ${sql.param(column('density'))}::float8[], ${sql.param(column('provenance'))}::text[],
+        ${sql.param(column('importId'))}::int[], ${sql.param(column('createdBy'))}::int[]
+      )
+      returning id`);
+    return (result.rows as { id: number }[]).map((r) => r.id);
   }
 
   async setRetired(id: number, retired: boolean): Promise<MaterialRow | undefined> {

@@ -197,7 +197,7 @@ export class MaterialsService {
       tx,
       toInsert.map((r) => ({ ...r, importId: entry.id, createdBy: actor.id })),
     );
-    return { importId: entry.id, created, versioned, skipped, materialIds: inserted.map((r) => r.id) };
+    return { importId: entry.id, created, versioned, skipped, materialIds: inserted };
   }
 
   /** An edit makes a new version; designs keep the id of the version they used. */
@@ -219,10 +219,10 @@ export class MaterialsService {
       const clash = existing.get(values.name.toLowerCase());
       if (clash && clash.id !== row.id) throw conflict(`Another material is already called "${values.name}".`, { name: 'Name already used' });
       await this.repo.retireCurrentVersions(tx, [row.id]);
-      const [inserted] = await this.repo.insertVersions(tx, [
+      const [insertedId] = await this.repo.insertVersions(tx, [
         { ...values, lineage: row.lineage, version: row.version + 1, retired: row.retired, importId: null, createdBy: actor.id },
       ]);
-      return inserted!;
+      return (await this.repo.findById(insertedId!, tx))!;
     });
     await this.audit.record({ actorId: actor.id, action: 'material.edited', target: result.name, details: { id: result.id, version: result.version } });
     return materialDetail({ ...result, createdByName: actor.displayName });
