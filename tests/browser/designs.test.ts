@@ -57,6 +57,7 @@ describe('design workspace', () => {
     await page.locator('tr.gw-selected').waitFor();
     expect(await seriousAxeFindings(page)).toEqual([]);
     await page.screenshot({ path: screenshotPath('designs-candidates'), fullPage: true });
+    await page.locator('gw-candidates-panel').screenshot({ path: screenshotPath('designs-candidates-panel') });
     await page.getByRole('button', { name: 'Use selected candidate' }).click();
 
     const totalLoss = page.locator('[data-figure="total-loss"]');
@@ -83,6 +84,7 @@ describe('design workspace', () => {
     expect(await page.locator('[data-figure="core-loss"]').innerText()).toBe(coreLossAfter);
     expect(await seriousAxeFindings(page)).toEqual([]);
     await page.screenshot({ path: screenshotPath('designs-design'), fullPage: true });
+    await page.locator('gw-design-panel').screenshot({ path: screenshotPath('designs-design-panel') });
 
     const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('link', { name: 'SPICE subcircuit' }).click()]);
     expect(download.suggestedFilename()).toMatch(/^GW-\d{4}-r1\.lib$/);

@@ -73,6 +73,8 @@ export class CandidatesPanel {
     { initialValue: { status: 'idle' } as SearchState },
   );
 
+  /** Finished searches so far, on the status line for anyone timing the search. */
+  protected readonly searchesDone = signal(0);
   protected readonly result = computed(() => {
     const s = this.state();
     return s.status === 'done' ? s.result : null;
@@ -110,6 +112,9 @@ export class CandidatesPanel {
       (!this.familyFilter() || row.family === this.familyFilter()) &&
       (!this.materialFilter() || row.materialId === this.materialFilter()) &&
       (this.feasibilityFilter() === 'all' || row.feasible === (this.feasibilityFilter() === 'feasible'));
+    effect(() => {
+      if (this.state().status === 'done') this.searchesDone.update((n) => n + 1);
+    });
     effect(() => {
       this.lastResult = this.result() ?? (this.state().status === 'stale' ? this.lastResult : null);
       this.dataSource.data = this.rows();

@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, input, signal, type OnInit } from '@angular/core';
+import { ChangeDetectionStrategy, ChangeDetectorRef, Component, DestroyRef, computed, inject, input, signal, type OnInit } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import {
   type AbstractControl,
@@ -59,6 +59,7 @@ let nextId = 0;
 export class QuantityInput implements ControlValueAccessor, OnInit {
   private readonly ngControl = inject(NgControl, { self: true, optional: true });
   private readonly destroyRef = inject(DestroyRef);
+  private readonly changeDetector = inject(ChangeDetectorRef);
 
   readonly label = input.required<string>();
   readonly kind = input.required<QuantityKind>();
@@ -143,6 +144,8 @@ export class QuantityInput implements ControlValueAccessor, OnInit {
   private show(text: string): void {
     this.text.set(text);
     this.inner.setValue(text, { emitEvent: false });
+    // The form wrote from outside: the field (label float, error state) must look at the new text.
+    this.changeDetector.markForCheck();
   }
 
   registerOnChange(fn: (value: number | null) => void): void {

@@ -1,0 +1,74 @@
+import { performance } from 'node:perf_hooks';
+import { ensureCluster, ensureDatabase } from '../../server/ops/postgres.ts';
+import { DEMO_USERS } from '../../server/seed/demo-scenario.ts';
+import { signIn, startHarness } from '../browser/support/harness.ts';
+import type { BenchRow } from './engine.ts';
+
+const DATABASE = 'gapwright_bench_workspace';
+const RUNS = 5;
+/** The design panel waits this long after the last keystroke before it asks the server (design-panel.ts). */
+const EDIT_DEBOUNCE_MS = 300;
+
+const median = (values: number[]) => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)];
+
+/**
+ * In Chromium against the real server (needs `npm run build` first): time from pressing "Search candidates" to the
+ * table drawn for the demo telecom spec, and from a turns change to the re-evaluated figures on screen.
+ */
+export async function runWorkspaceBench(): Promise<BenchRow[]> {
+  const cluster = ensureCluster();
+  ensureDatabase(DATABASE);
+  process.env['TEST_DATABASE_URL'] ??= cluster.urlFor(DATABASE);
+  const harness = await startHarness();
+  try {
+    const { page } = await harness.newPage();
+    const erin = DEMO_USERS.find((u) => u.username === 'erin')!;
+    await signIn(page, erin.username, erin.password);
+    await page.goto('/designs/new');
+    const spec: [string, string][] = [
+      ['Vin min', '36 V'],
+      ['Vin max', '60 V'],
+      ['Vout', '12 V'],
+      ['Iout max', '8 A'],
+      ['Switching frequency', '200 kHz'],
+      ['Current limit', '11 A'],
+    ];
+    for (const [label, text] of spec) {
+      const field = page.getByRole('textbox', { name: label, exact: true });
+      await field.fill(text);
+      await field.blur();
+    }
+    await page.locator('[data-figure="inductance"]').waitFor();
+
+    const searchTimes: number[] = [];
+    for (let run = 0; run < RUNS; run++) {
+      const started = performance.now();
+      await page.getByRole('button', { name: 'Search candidates' }).click();
+      await page.locator(`[data-testid="search-status"][data-searches-done="${run + 1}"]`).waitFor({ timeout: 60_000 });
+      await page.locator('[data-testid="candidates-table"] tr.mat-mdc-row').first().waitFor();
+      searchTimes.push(performance.now() - started);
+    }
+
+    await page.locator('[data-testid="candidates-table"] tr.mat-mdc-row').first().click();
+    await page.getByRole('button', { name: 'Use selected candidate' }).click();
+    const turnsField = page.getByRole('spinbutton', { name: 'Turns' });
+    await page.locator('[data-figure="total-loss"]').waitFor();
+    const base = Number(await turnsField.inputValue());
+    const evaluateTimes: number[] = [];
+    for (let run = 0; run < RUNS; run++) {
+      const turns = base + 1 + run;
+      const started = performance.now();
+      await turnsField.fill(String(turns));
+      await page.locator('[data-figure="turns"]', { hasText: new RegExp(`^${turns}$`) }).waitFor();
+      evaluateTimes.push(performance.now() - started);
+    }
+    const searchMs = median(searchTimes);
+    const evaluateMs = median(evaluateTimes);
+    return [
+      { name: 'workspace: "search" to candidates table (demo telecom spec, median of 5)', value: `${searchMs.toFixed(0)} ms` },
+      { name: 'workspace: turns change to figures on screen (median of 5)', value: `${evaluateMs.toFixed(0)} ms (${(evaluateMs - EDIT_DEBOUNCE_MS).toFixed(0)} ms after the ${EDIT_DEBOUNCE_MS} ms debounce)` },
+    ];
+  } finally {
+    await harness.close();
+  }
+}
