@@ -4,17 +4,30 @@ import type { CoreShape, WireOption } from '@shared/engine/types';
 import { wireOptionFromChoice, type WireChoice } from '@shared/catalogue/wire-from-request';
 import { badRequest } from '../http/errors.ts';
 
-/** The shipped core and wire catalogues, loaded and validated once on first use. */
+/**
+ * The shipped core and wire catalogues, loaded and validated once on first use, plus the current user
+ * cores (kept here by UserCoresService after every change, so searches and evaluations include them).
+ */
 export class CatalogueService {
   private coresById?: Map<string, CoreShape>;
   private wireOptions?: WireOption[];
+  private userCores: CoreShape[] = [];
 
+  /** Shipped cores and current, not retired user cores. */
   cores(): CoreShape[] {
+    return [...this.coreIndex().values(), ...this.userCores];
+  }
+
+  shippedCores(): CoreShape[] {
     return [...this.coreIndex().values()];
   }
 
+  setUserCores(cores: CoreShape[]): void {
+    this.userCores = cores.filter((c) => !this.coreIndex().has(c.id));
+  }
+
   core(id: string): CoreShape {
-    const core = this.coreIndex().get(id);
+    const core = this.coreIndex().get(id) ?? this.userCores.find((c) => c.id === id);
     if (!core) throw badRequest(`No core "${id}" in the catalogue.`, { coreId: `Unknown core "${id}"` });
     return core;
   }

@@ -63,17 +63,26 @@ export class UserCoresService {
     private readonly repo: UserCoresRepository,
     private readonly catalogue: CatalogueService,
     private readonly audit: AuditService,
-  ) {}
+  ) {
+    // Searches read the catalogue synchronously, so the stored user cores are handed over once at start-up;
+    // a database that is not up yet only delays them until the next change.
+    this.refresh().catch(() => undefined);
+  }
+
+  /** Hand the current user cores to the catalogue, so searches and evaluations see them. */
+  async refresh(): Promise<void> {
+    this.catalogue.setUserCores((await this.repo.listCurrent(false)).map((r) => r.shape as CoreShape));
+  }
 
   async list() {
-    const shipped = this.catalogue.cores().map((c) => listed(c, 'shipped'));
+    const shipped = this.catalogue.shippedCores().map((c) => listed(c, 'shipped'));
     const user = (await this.repo.listCurrent()).map((row) => listed(row.shape as CoreShape, 'user', row));
     return [...shipped, ...user];
   }
 
   /** A core by id for calculations: shipped first, then current user cores that are not retired. */
   async core(id: string): Promise<CoreShape> {
-    const shipped = this.catalogue.cores().find((c) => c.id === id);
+    const shipped = this.catalogue.shippedCores().find((c) => c.id === id);
     if (shipped) return shipped;
     const user = (await this.repo.listCurrent(false)).find((r) => (r.shape as CoreShape).id === id);
     if (!user) throw badRequest(`No core "${id}" in the catalogue.`, { coreId: `Unknown core "${id}"` });
@@ -88,7 +97,7 @@ export class UserCoresService {
 
   private async assertNameFree(name: string, exceptLineage?: string) {
     const lower = name.toLowerCase();
-    if (this.catalogue.cores().some((c) => c.id.toLowerCase() === lower)) {
+    if (this.catalogue.shippedCores().some((c) => c.id.toLowerCase() === lower)) {
       throw conflict(`"${name}" is a shipped core; choose another name.`, { name: 'Name of a shipped core' });
     }
     const clash = (await this.repo.listCurrent()).find((r) => r.name.toLowerCase() === lower && r.lineage !== exceptLineage);
@@ -100,6 +109,7 @@ export class UserCoresService {
     await this.assertNameFree(request.name);
     const lineage = `${lineageSlug(request.name)}-${Date.now().toString(36)}`;
     const row = await this.repo.addVersion({ lineage, version: 1, name: request.name, family: shape.family, shape, createdBy: actor.id, retired: false });
+    await this.refresh();
     await this.audit.record({ actorId: actor.id, action: 'core.added', target: request.name, details: { id: row.id } });
     return listed(shape, 'user', { ...row, createdByName: actor.displayName });
   }
@@ -114,6 +124,7 @@ export class UserCoresService {
       { lineage: previous.lineage, version: previous.version + 1, name: request.name, family: shape.family, shape, createdBy: actor.id, retired: previous.retired },
       previous.id,
     );
+    await this.refresh();
     await this.audit.record({ actorId: actor.id, action: 'core.edited', target: request.name, details: { id: row.id, version: row.version } });
     return listed(shape, 'user', { ...row, createdByName: actor.displayName });
   }
@@ -121,6 +132,7 @@ export class UserCoresService {
   async setRetired(id: number, retired: boolean, actor: Actor) {
     const row = await this.repo.setRetired(id, retired);
     if (!row) throw notFound(`No current user core with id ${id}.`);
+    await this.refresh();
     await this.audit.record({ actorId: actor.id, action: retired ? 'core.retired' : 'core.unretired', target: row.name, details: { id } });
     return listed(row.shape as CoreShape, 'user', { ...row, createdByName: null });
   }

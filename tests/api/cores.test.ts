@@ -64,3 +64,20 @@ describe('user cores', () => {
     expect(await tableCount(t.db, 'user_cores')).toBe(before);
   });
 });
+
+describe('user cores in the search', () => {
+  it('offers a current user core as a search candidate', async () => {
+    const ring = { ...RING, name: 'Search ring 40/24/16', outerDiameter: 40e-3, innerDiameter: 24e-3, height: 16e-3 };
+    expect((await engineer.post('/api/catalogue/cores', ring)).status).toBe(201);
+    const materials = (await engineer.get('/api/materials')).body.materials as { id: string; family: string }[];
+    const powder = materials.filter((m) => m.family === 'powder').map((m) => m.id);
+    const res = await engineer.post('/api/calc/search', {
+      spec: { vinMin: 24, vinMax: 36, vout: 12, ioutMax: 2, frequency: 100e3, rippleRatio: 0.4 },
+      materialIds: powder,
+      coreIds: ['Search ring 40/24/16'],
+      limit: 5,
+    });
+    expect(res.status).toBe(200);
+    expect(res.body.counts.cores).toBe(1);
+  });
+});
