@@ -21,6 +21,15 @@ import type { Db } from './db/client.ts';
 import { healthRouter } from './health/health.router.ts';
 import { MaterialsRepository } from './materials/materials.repository.ts';
 import { materialsRouter } from './materials/materials.router.ts';
+import { MailDeliveryService, type SmtpTarget } from './mail/mail-delivery.service.ts';
+import { outboxRouter, settingsRouter } from './mail/outbox.router.ts';
+import { OutboxService } from './mail/outbox.service.ts';
+import { ReviewRepository } from './review/review.repository.ts';
+import { inboxRouter, reviewRouter } from './review/review.router.ts';
+import { ReviewService } from './review/review.service.ts';
+import { ShopRepository } from './shop/shop.repository.ts';
+import { shopRouter } from './shop/shop.router.ts';
+import { ShopService } from './shop/shop.service.ts';
 import { materialLibraryRouter } from './materials/material-library.router.ts';
 import { MaterialsService } from './materials/materials.service.ts';
 import { compareRouter } from './compare/compare.router.ts';
@@ -42,6 +51,8 @@ export interface AppDeps {
   pool: pg.Pool;
   db: Db;
   logger: Logger;
+  /** Where release mails go: a real relay, or the local fake SMTP server started beside the app. */
+  mailTarget: SmtpTarget;
 }
 
 export interface Services {
@@ -53,9 +64,13 @@ export interface Services {
   materialLibrary: MaterialsService;
   userCores: UserCoresService;
   compare: CompareService;
+  mail: MailDeliveryService;
+  shop: ShopService;
+  review: ReviewService;
+  outbox: OutboxService;
 }
 
-export function createServices({ config, db }: Pick<AppDeps, 'config' | 'db'>): Services {
+export function createServices({ config, db, logger, mailTarget }: Pick<AppDeps, 'config' | 'db' | 'logger' | 'mailTarget'>): Services {
   const audit = new AuditService(new AuditRepository(db));
   const users = new UsersService(new UsersRepository(db), audit, config.bcryptCost);
   const catalogue = new CatalogueService();
@@ -64,14 +79,18 @@ export function createServices({ config, db }: Pick<AppDeps, 'config' | 'db'>): 
   const materialLibrary = new MaterialsService(materials, audit);
   const userCores = new UserCoresService(new UserCoresRepository(db), catalogue, audit);
   const compare = new CompareService(materials, { core: (id) => userCores.core(id), wire: (choice) => catalogue.wire(choice) });
-  return { audit, users, catalogue, materials, calc, materialLibrary, userCores, compare };
+  const mail = new MailDeliveryService(db, mailTarget, config.smtp.retryDelaysMs, logger);
+  const shop = new ShopService(new ShopRepository(db), catalogue, mail, audit);
+  const review = new ReviewService(new ReviewRepository(db), audit, shop);
+  const outbox = new OutboxService(db);
+  return { audit, users, catalogue, materials, calc, materialLibrary, userCores, compare, mail, shop, review, outbox };
 }
 
 export function createApp(deps: AppDeps) {
   const { config, pool, logger } = deps;
   const services = createServices(deps);
   const designServices = createDesignServices(deps.db, services);
-  const { audit, users, catalogue, materials, calc } = services;
+  const { audit, users, catalogue, materials, calc, shop, review, outbox } = services;
   const openApiDocument = buildOpenApiDocument();
   const passport = createPassport(users);
   const sessions = createSessionMiddleware(config, pool);
@@ -126,6 +145,11 @@ export function createApp(deps: AppDeps) {
   api.use('/designs', designsRouter(designServices.designs, designServices.exports));
   api.use('/materials', materialLibraryRouter(services.materialLibrary));
   api.use('/materials', materialsRouter(materials));
+  api.use('/revisions', reviewRouter(review));
+  api.use('/inbox', inboxRouter(review));
+  api.use('/shop', shopRouter(shop));
+  api.use('/admin/outbox', outboxRouter(outbox));
+  api.use('/admin/settings', settingsRouter(shop));
   api.use(apiNotFound);
   app.use('/api', api);
 
@@ -136,5 +160,12 @@ export function createApp(deps: AppDeps) {
     }),
   );
 
-  return { app, services, close: () => sessions.close() };
+  return {
+    app,
+    services,
+    close: async () => {
+      services.mail.close();
+      await sessions.close();
+    },
+  };
 }

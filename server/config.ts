@@ -18,6 +18,18 @@ const envSchema = z.object({
   SESSION_ABSOLUTE_HOURS: z.coerce.number().int().min(1).default(12),
   BCRYPT_COST: z.coerce.number().int().min(4).max(15).default(12),
   DB_CONNECT_TIMEOUT_MS: z.coerce.number().int().min(100).default(3000),
+  SMTP_HOST: z.string().optional(),
+  SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(587),
+  SMTP_SECURE: z.enum(['true', 'false']).default('false').transform((v) => v === 'true'),
+  SMTP_USER: z.string().optional(),
+  SMTP_PASSWORD: z.string().optional(),
+  MAIL_FROM: z.string().default('Gapwright <gapwright@localhost>'),
+  FAKE_SMTP_PORT: z.coerce.number().int().min(0).max(65535).default(2525),
+  MAIL_RETRY_DELAYS_MS: z
+    .string()
+    .default('2000,10000,60000,300000')
+    .transform((v) => v.split(',').map((n) => Number(n.trim())))
+    .refine((list) => list.every((n) => Number.isFinite(n) && n >= 0), { error: 'MAIL_RETRY_DELAYS_MS must be comma-separated milliseconds' }),
 });
 
 export interface Config {
@@ -37,6 +49,8 @@ export interface Config {
   sessionAbsoluteMs: number;
   bcryptCost: number;
   dbConnectTimeoutMs: number;
+  /** A real SMTP relay when host is set; otherwise the built-in fake on loopback (development and tests). */
+  smtp: { host?: string; port: number; secure: boolean; user?: string; password?: string; from: string; fakePort: number; retryDelaysMs: number[] };
 }
 
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
@@ -63,5 +77,15 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     sessionAbsoluteMs: e.SESSION_ABSOLUTE_HOURS * 3_600_000,
     bcryptCost: e.BCRYPT_COST,
     dbConnectTimeoutMs: e.DB_CONNECT_TIMEOUT_MS,
+    smtp: {
+      host: e.SMTP_HOST || undefined,
+      port: e.SMTP_PORT,
+      secure: e.SMTP_SECURE,
+      user: e.SMTP_USER,
+      password: e.SMTP_PASSWORD,
+      from: e.MAIL_FROM,
+      fakePort: e.FAKE_SMTP_PORT,
+      retryDelaysMs: e.MAIL_RETRY_DELAYS_MS,
+    },
   };
 }

@@ -6,6 +6,7 @@ import { createDb } from './db/client.ts';
 import { applyMigrations } from './db/migrate.ts';
 import { createPool } from './db/pool.ts';
 import { createLogger } from './logger.ts';
+import { startFakeSmtp } from './mail/fake-smtp.ts';
 import { seedDemoOnce } from './seed/seed-demo.ts';
 
 export interface RunningServer {
@@ -21,7 +22,13 @@ export async function startServer(config: Config): Promise<RunningServer> {
   const db = createDb(pool);
   await applyMigrations(db);
   if (config.seedDemo && (await seedDemoOnce(db, config.bcryptCost))) logger.info('demo scenario seeded');
-  const { app, close } = createApp({ config, pool, db, logger });
+  // Without a real relay configured, release mails go to a local fake SMTP server (admin outbox).
+  const fakeSmtp = config.smtp.host ? undefined : await startFakeSmtp(db, config.smtp.fakePort);
+  const mailTarget = config.smtp.host
+    ? { host: config.smtp.host, port: config.smtp.port, secure: config.smtp.secure, user: config.smtp.user, password: config.smtp.password, from: config.smtp.from }
+    : { host: '127.0.0.1', port: fakeSmtp!.port, secure: false, from: config.smtp.from };
+  if (fakeSmtp) logger.info({ port: fakeSmtp.port }, 'local fake SMTP server is capturing mail for the admin outbox');
+  const { app, close } = createApp({ config, pool, db, logger, mailTarget });
 
   const server = await new Promise<Server>((resolve, reject) => {
     const s = app.listen(config.port, config.host, (err?: Error) => (err ? reject(err) : resolve(s)));
@@ -38,6 +45,7 @@ export async function startServer(config: Config): Promise<RunningServer> {
         server.closeIdleConnections();
       });
       await close();
+      await fakeSmtp?.close();
       await pool.end();
       logger.info('Gapwright stopped');
     })());

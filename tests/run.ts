@@ -79,13 +79,20 @@ async function componentTests(): Promise<void> {
   totals['component'] = { passed, failed, skipped: Number(/(\d+) skipped/.exec(line)?.[1] ?? 0) };
 }
 
-function ensureChromium(): void {
-  if (existsSync('/usr/bin/chromium')) return;
-  if (process.getuid?.() !== 0) throw new Error('Chromium is missing: install it with "sudo apt-get install -y chromium".');
-  process.stdout.write('[browser] installing Debian\'s chromium package (about a minute)…\n');
+/** Debian packages the suites drive: Chromium for browser tests, poppler-utils to read and render PDFs. */
+const DEBIAN_TOOLS: { binary: string; pkg: string }[] = [
+  { binary: '/usr/bin/chromium', pkg: 'chromium' },
+  { binary: '/usr/bin/pdftotext', pkg: 'poppler-utils' },
+];
+
+function ensureDebianTools(): void {
+  const missing = DEBIAN_TOOLS.filter((t) => !existsSync(t.binary)).map((t) => t.pkg);
+  if (!missing.length) return;
+  if (process.getuid?.() !== 0) throw new Error(`Missing test tools: install them with "sudo apt-get install -y ${missing.join(' ')}".`);
+  process.stdout.write(`[tools] installing Debian packages: ${missing.join(', ')} (about a minute)…\n`);
   const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
   execFileSync('apt-get', ['update', '-qq'], { stdio: 'inherit', env });
-  execFileSync('apt-get', ['install', '-y', '-qq', 'chromium'], { stdio: 'inherit', env });
+  execFileSync('apt-get', ['install', '-y', '-qq', ...missing], { stdio: 'inherit', env });
 }
 
 /** A fresh database for one suite, dropped afterwards. DATABASE_URL, if set, names the server to use. */
@@ -114,10 +121,8 @@ try {
     if (suite === 'unit') await vitestProject('unit');
     if (suite === 'component') await componentTests();
     if (suite === 'api' || suite === 'browser') {
-      if (suite === 'browser') {
-        ensureChromium();
-        ensureClientBuild(repoRoot, 'dist/gapwright/browser/index.html');
-      }
+      ensureDebianTools();
+      if (suite === 'browser') ensureClientBuild(repoRoot, 'dist/gapwright/browser/index.html');
       const db = throwawayDatabase(suite);
       cleanups.push(db.drop);
       await vitestProject(suite, { TEST_DATABASE_URL: db.url, TEST_RESULTS_DIR: resultsDir });

@@ -40,6 +40,8 @@ export class ApiClient {
   get = (url: string) => this.send('get', url);
   post = (url: string, body?: unknown) => this.send('post', url, body);
   patch = (url: string, body?: unknown) => this.send('patch', url, body);
+  put = (url: string, body?: unknown) => this.send('put', url, body);
+  delete = (url: string) => this.send('delete', url);
 
   async signIn(username: string, password: string): Promise<request.Response> {
     if (!this.csrfToken) await this.session();

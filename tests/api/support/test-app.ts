@@ -2,14 +2,16 @@ import { sql } from 'drizzle-orm';
 import type { Express } from 'express';
 import pg from 'pg';
 import { pino } from 'pino';
-import { createApp } from '../../../server/app.ts';
+import { createApp, type Services } from '../../../server/app.ts';
 import { loadConfig, type Config } from '../../../server/config.ts';
 import { createDb, type Db } from '../../../server/db/client.ts';
 import { applyMigrations } from '../../../server/db/migrate.ts';
 import { seedDemoOnce } from '../../../server/seed/seed-demo.ts';
+import { startFakeSmtp } from '../../../server/mail/fake-smtp.ts';
 
 export interface TestApp {
   app: Express;
+  services: Services;
   db: Db;
   pool: pg.Pool;
   config: Config;
@@ -46,14 +48,18 @@ export async function createTestApp(overrides: Record<string, string> = {}): Pro
   pool.on('error', () => {});
   const db = createDb(pool);
   await resetDatabase(db, config);
-  const { app, close } = createApp({ config, pool, db, logger: pino({ level: 'silent' }) });
+  const smtp = await startFakeSmtp(db, 0);
+  const mailTarget = { host: '127.0.0.1', port: smtp.port, secure: false, from: 'Gapwright tests <gapwright@localhost>' };
+  const { app, close, services } = createApp({ config, pool, db, logger: pino({ level: 'silent' }), mailTarget });
   return {
     app,
     db,
     pool,
     config,
+    services,
     close: async () => {
       await close();
+      await smtp.close();
       await pool.end();
     },
   };

@@ -1,0 +1,111 @@
+import { and, asc, count, desc, eq, sql } from 'drizzle-orm';
+import type { Db, Tx } from '../db/client.ts';
+import { appSettings, buildOrders, buildUnits, designRevisions, designs, users } from '../db/schema.ts';
+
+export type OrderRow = typeof buildOrders.$inferSelect;
+export type UnitRow = typeof buildUnits.$inferSelect;
+
+export class ShopRepository {
+  constructor(readonly db: Db) {}
+
+  async nextOrderNumber(tx: Tx): Promise<string> {
+    const [{ n }] = await tx.select({ n: sql<number>`coalesce(max(${buildOrders.id}), 0)::int + 1` }).from(buildOrders);
+    return `BO-${String(n).padStart(4, '0')}`;
+  }
+
+  async insertOrder(tx: Tx, order: typeof buildOrders.$inferInsert): Promise<OrderRow> {
+    const [row] = await tx.insert(buildOrders).values(order).returning();
+    return row;
+  }
+
+  async userName(tx: Tx, id: number | null): Promise<string> {
+    if (id == null) return 'unknown';
+    const [row] = await tx.select({ name: users.displayName }).from(users).where(eq(users.id, id));
+    return row?.name ?? 'unknown';
+  }
+
+  orders(status?: 'open' | 'complete') {
+    return this.db
+      .select({
+        id: buildOrders.id,
+        number: buildOrders.number,
+        quantity: buildOrders.quantity,
+        status: buildOrders.status,
+        createdAt: buildOrders.createdAt,
+        completedAt: buildOrders.completedAt,
+        revisionId: designRevisions.id,
+        revision: designRevisions.revision,
+        designId: designs.id,
+        designNumber: designs.number,
+        title: designs.title,
+        built: sql<number>`(select count(*)::int from ${buildUnits} u where u.order_id = ${buildOrders.id})`,
+        passed: sql<number>`(select count(*)::int from ${buildUnits} u where u.order_id = ${buildOrders.id} and u.passed)`,
+      })
+      .from(buildOrders)
+      .innerJoin(designRevisions, eq(designRevisions.id, buildOrders.revisionId))
+      .innerJoin(designs, eq(designs.id, designRevisions.designId))
+      .where(status ? eq(buildOrders.status, status) : undefined)
+      .orderBy(desc(buildOrders.createdAt));
+  }
+
+  async order(id: number): Promise<OrderRow | undefined> {
+    const [row] = await this.db.select().from(buildOrders).where(eq(buildOrders.id, id));
+    return row;
+  }
+
+  units(orderId: number): Promise<UnitRow[]> {
+    return this.db.select().from(buildUnits).where(eq(buildUnits.orderId, orderId)).orderBy(asc(buildUnits.unitNumber));
+  }
+
+  /** Adds a unit under a lock on the order, and completes the order when enough units passed. */
+  recordUnit(orderId: number, unit: Omit<typeof buildUnits.$inferInsert, 'orderId' | 'unitNumber'>, onLocked: (order: OrderRow) => void) {
+    return this.db.transaction(async (tx) => {
+      const [order] = await tx.select().from(buildOrders).where(eq(buildOrders.id, orderId)).for('update');
+      if (!order) return undefined;
+      onLocked(order);
+      const [{ n }] = await tx.select({ n: count() }).from(buildUnits).where(eq(buildUnits.orderId, orderId));
+      const [row] = await tx.insert(buildUnits).values({ ...unit, orderId, unitNumber: n + 1 }).returning();
+      const [{ passed }] = await tx.select({ passed: count() }).from(buildUnits).where(and(eq(buildUnits.orderId, orderId), eq(buildUnits.passed, true)));
+      let status = order.status;
+      if (passed >= order.quantity) {
+        await tx.update(buildOrders).set({ status: 'complete', completedAt: new Date() }).where(eq(buildOrders.id, orderId));
+        status = 'complete';
+      }
+      return { unit: row, orderStatus: status, passed };
+    });
+  }
+
+  /** Every built unit with what was predicted for it, for measured-versus-predicted summaries. */
+  async measuredAgainstPredicted() {
+    const rows = await this.db
+      .select({
+        orderId: buildOrders.id,
+        orderNumber: buildOrders.number,
+        designNumber: designs.number,
+        revision: designRevisions.revision,
+        sheet: buildOrders.sheet,
+        result: designRevisions.result,
+        inductance: buildUnits.inductance,
+        resistanceAt20: buildUnits.resistanceAt20,
+        passed: buildUnits.passed,
+      })
+      .from(buildUnits)
+      .innerJoin(buildOrders, eq(buildOrders.id, buildUnits.orderId))
+      .innerJoin(designRevisions, eq(designRevisions.id, buildOrders.revisionId))
+      .innerJoin(designs, eq(designs.id, designRevisions.designId))
+      .orderBy(asc(buildOrders.id), asc(buildUnits.unitNumber));
+    return rows;
+  }
+
+  async setting<T>(key: string): Promise<T | undefined> {
+    const [row] = await this.db.select().from(appSettings).where(eq(appSettings.key, key));
+    return row?.value as T | undefined;
+  }
+
+  async putSetting(key: string, value: unknown): Promise<void> {
+    await this.db
+      .insert(appSettings)
+      .values({ key, value })
+      .onConflictDoUpdate({ target: appSettings.key, set: { value, updatedAt: new Date() } });
+  }
+}

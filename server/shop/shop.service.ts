@@ -1,0 +1,201 @@
+import type { EvaluationResult } from '@shared/engine/index';
+import type { UnitMeasurementRequest } from '@shared/schemas/review';
+import { judgeUnit } from '@shared/shop/measurement';
+import type { WindingSheet } from '@shared/shop/sheet';
+import type { AuditService } from '../audit/audit.service.ts';
+import type { CatalogueService } from '../catalogue/catalogue.service.ts';
+import type { Actor } from '../http/access.ts';
+import { AppError, notFound } from '../http/errors.ts';
+import type { MailDeliveryService, OutgoingMail } from '../mail/mail-delivery.service.ts';
+import type { DesignRow, RevisionRow, Tx } from '../review/review.repository.ts';
+import { summariseRatios } from './prediction-error.ts';
+import { renderSheetPdf } from './sheet-pdf.ts';
+import type { ShopRepository } from './shop.repository.ts';
+import { buildWindingSheet } from './winding-sheet.ts';
+
+export const SHOP_EMAIL_KEY = 'shop_email';
+export const DEFAULT_SHOP_EMAIL = 'shop@harrow-lane.example';
+
+interface StoredSpec {
+  limits?: { inductanceTolerance?: number };
+  inductanceTolerance?: number;
+  insulationRequired?: boolean;
+  hipotInstruction?: string;
+}
+
+/** The winding shop: build orders with their frozen sheets, the hand-off mail, and built units. */
+export class ShopService {
+  constructor(
+    private readonly repo: ShopRepository,
+    private readonly catalogue: CatalogueService,
+    private readonly mail: MailDeliveryService,
+    private readonly audit: AuditService,
+  ) {}
+
+  /** Called inside the release transaction: the sheet is built now and never recomputed. */
+  async createOrder(tx: Tx, input: { revision: RevisionRow; design: DesignRow; quantity: number; releasedAt: Date; releasedBy: number }) {
+    const { revision, design } = input;
+    const result = revision.result as EvaluationResult;
+    const spec = (revision.spec ?? {}) as StoredSpec;
+    const number = await this.repo.nextOrderNumber(tx);
+    const core = this.catalogue.cores().find((c) => c.id === result.core.id);
+    const wire = this.catalogue.wire({
+      kind: result.wire.kind as 'awg' | 'metric' | 'litz',
+      strandDiameter: result.wire.strandDiameter,
+      strands: result.wire.strands,
+    });
+    const sheet = buildWindingSheet({
+      design: { number: design.number, title: design.title },
+      revision: {
+        revision: revision.revision,
+        engineVersion: revision.engineVersion ?? 'unknown',
+        inductanceTolerance: spec.limits?.inductanceTolerance ?? spec.inductanceTolerance ?? 0.1,
+      },
+      order: { number, quantity: input.quantity, releasedAt: input.releasedAt },
+      author: await this.repo.userName(tx, revision.createdBy ?? design.ownerId),
+      approver: await this.repo.userName(tx, revision.approvedBy),
+      result,
+      core,
+      wire,
+      insulation: { required: spec.insulationRequired === true, hipotInstruction: spec.hipotInstruction },
+    });
+    return this.repo.insertOrder(tx, { number, revisionId: revision.id, quantity: input.quantity, sheet, createdBy: input.releasedBy });
+  }
+
+
+  async shopEmail(): Promise<string> {
+    return (await this.repo.setting<string>(SHOP_EMAIL_KEY)) ?? DEFAULT_SHOP_EMAIL;
+  }
+
+  async setShopEmail(actor: Actor, email: string): Promise<void> {
+    await this.repo.putSetting(SHOP_EMAIL_KEY, email);
+    await this.audit.record({ actorId: actor.id, action: 'settings.shop_email', details: { email } });
+  }
+
+  async queueReleaseMail(orderId: number): Promise<number> {
+    const order = await this.repo.order(orderId);
+    if (!order) throw notFound('No such build order.');
+    const sheet = order.sheet as WindingSheet;
+    const subject = `Build order ${order.number}: ${sheet.header.designNumber} rev ${sheet.header.revision}, quantity ${order.quantity}`;
+    return this.mail.queue(order.id, await this.shopEmail(), subject, () => this.releaseMail(order.id));
+  }
+
+  async releaseMail(orderId: number): Promise<OutgoingMail> {
+    const order = await this.repo.order(orderId);
+    if (!order) throw new Error(`build order ${orderId} vanished`);
+    const sheet = order.sheet as WindingSheet;
+    const text = [
+      `${sheet.header.designNumber} rev ${sheet.header.revision} — ${sheet.header.title} has been released to the winding shop.`,
+      `Build order ${order.number}, quantity ${order.quantity}. Approved by ${sheet.header.approver}.`,
+      '',
+      `${sheet.winding.turns} turns of ${sheet.parts.wire.description} on ${sheet.parts.coreSet}, ${sheet.parts.coreMaterial}.`,
+      `Gap: ${sheet.parts.gap.note}`,
+      '',
+      'The winding sheet with the test limits is attached (PDF) and shown in Gapwright under Winding shop.',
+      '',
+      sheet.caution,
+    ].join('\n');
+    return {
+      to: await this.shopEmail(),
+      subject: `Build order ${order.number}: ${sheet.header.designNumber} rev ${sheet.header.revision}, quantity ${order.quantity}`,
+      text,
+      attachments: [{ filename: sheetFileName(sheet), content: await renderSheetPdf(sheet), contentType: 'application/pdf' }],
+    };
+  }
+
+  async listOrders(status?: 'open' | 'complete') {
+    return (await this.repo.orders(status)).map((o) => ({
+      ...o,
+      createdAt: o.createdAt.toISOString(),
+      completedAt: o.completedAt?.toISOString() ?? null,
+    }));
+  }
+
+  openOrders() {
+    return this.listOrders('open');
+  }
+
+  async order(id: number) {
+    const order = await this.repo.order(id);
+    if (!order) throw notFound('No such build order.');
+    const units = await this.repo.units(id);
+    return {
+      ...order,
+      createdAt: order.createdAt.toISOString(),
+      completedAt: order.completedAt?.toISOString() ?? null,
+      sheet: order.sheet as WindingSheet,
+      units: units.map((u) => ({ ...u, recordedAt: u.recordedAt.toISOString() })),
+    };
+  }
+
+  async sheetPdf(id: number): Promise<{ fileName: string; pdf: Buffer }> {
+    const order = await this.repo.order(id);
+    if (!order) throw notFound('No such build order.');
+    const sheet = order.sheet as WindingSheet;
+    return { fileName: sheetFileName(sheet), pdf: await renderSheetPdf(sheet) };
+  }
+
+  async recordUnit(actor: Actor, orderId: number, m: UnitMeasurementRequest) {
+    const order = await this.repo.order(orderId);
+    if (!order) throw notFound('No such build order.');
+    const judged = judgeUnit((order.sheet as WindingSheet).tests, m);
+    const saved = await this.repo.recordUnit(
+      orderId,
+      {
+        inductance: m.inductance,
+        testFrequency: m.testFrequency,
+        resistance: m.resistance,
+        resistanceTemperature: m.resistanceTemperature,
+        resistanceAt20: judged.resistanceAt20,
+        hipot: m.hipot,
+        passed: judged.passed,
+        findings: judged.findings,
+        notes: m.notes ?? null,
+        recordedBy: actor.id,
+      },
+      (locked) => {
+        if (locked.status === 'complete') throw new AppError(409, 'order_complete', `Build order ${locked.number} is complete; no more units can be recorded.`);
+      },
+    );
+    if (!saved) throw notFound('No such build order.');
+    await this.audit.record({
+      actorId: actor.id,
+      action: 'shop.unit_recorded',
+      target: `${order.number} unit ${saved.unit.unitNumber}`,
+      details: { passed: judged.passed },
+    });
+    return { unit: { ...saved.unit, recordedAt: saved.unit.recordedAt.toISOString() }, orderStatus: saved.orderStatus, passedUnits: saved.passed };
+  }
+
+  /** Measured against predicted for every build, and the prediction error by material and by core. */
+  async predictionReport() {
+    const rows = await this.repo.measuredAgainstPredicted();
+    const samples = rows.map((r) => {
+      const sheet = r.sheet as WindingSheet;
+      const result = r.result as EvaluationResult;
+      return {
+        orderNumber: r.orderNumber,
+        designNumber: r.designNumber,
+        revision: r.revision,
+        material: sheet.parts.coreMaterial,
+        core: result.core.id,
+        predictedInductance: sheet.predicted.inductanceNominal,
+        measuredInductance: r.inductance,
+        predictedResistance20: sheet.predicted.resistance20,
+        measuredResistance20: r.resistanceAt20,
+        passed: r.passed,
+        inductanceRatio: r.inductance / sheet.predicted.inductanceNominal,
+        resistanceRatio: r.resistanceAt20 / sheet.predicted.resistance20,
+      };
+    });
+    return {
+      units: samples,
+      byMaterial: summariseRatios(samples.map((s) => ({ ...s, key: s.material }))),
+      byCore: summariseRatios(samples.map((s) => ({ ...s, key: s.core }))),
+    };
+  }
+}
+
+export function sheetFileName(sheet: WindingSheet): string {
+  return `${sheet.header.designNumber}-rev${sheet.header.revision}-${sheet.header.orderNumber}-winding-sheet.pdf`.replace(/[^A-Za-z0-9._-]/g, '_');
+}

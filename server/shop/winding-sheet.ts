@@ -1,0 +1,149 @@
+import type { EvaluationResult } from '@shared/engine/index';
+import type { CoreShape, WireOption } from '@shared/engine/types';
+import { SHEET_CAUTION, type WindingSheet } from '@shared/shop/sheet';
+
+// Choices of the trade used on every sheet (common practice, no source).
+const TEST_FREQUENCY = 10e3; // small-signal L test, well below where ferrite permeability changes
+const TEST_LEVEL = 0.25; // V rms, no DC bias
+const RESISTANCE_ALLOWANCE = 0.1; // wire diameter tolerance and terminations above the predicted R20
+const LEAD_ALLOWANCE = 2 * 0.05; // two 50 mm leads
+const COPPER_DENSITY = 8890; // kg/m³, annealed copper
+
+export interface SheetInput {
+  design: { number: string; title: string };
+  revision: { revision: number; engineVersion: string; inductanceTolerance: number };
+  order: { number: string; quantity: number; releasedAt: Date };
+  author: string;
+  approver: string;
+  result: EvaluationResult;
+  core: CoreShape | undefined;
+  wire: WireOption;
+  insulation: { required: boolean; hipotInstruction?: string };
+}
+
+const mm = (m: number, digits = 2) => `${(m * 1e3).toFixed(digits)} mm`;
+
+function wireDescription(wire: WireOption): string {
+  if (wire.kind === 'litz') return `Litz ${wire.strands} × ${mm(wire.strandDiameter, 3)} strands, bundle about ${mm(wire.overallDiameter)} over serving`;
+  const grade = wire.grade ? `, IEC 60317 grade ${wire.grade}` : '';
+  const size = wire.kind === 'awg' ? `${wire.id.split(' ×')[0]} (${mm(wire.strandDiameter, 3)} bare)` : `${mm(wire.strandDiameter, 3)} bare`;
+  return `Enamelled round copper ${size}${grade}, ${wire.strands} in hand (max overall ${mm(wire.overallDiameter, 3)} each)`;
+}
+
+/** The shop's sheet for one released revision, from its frozen result. Never recomputed afterwards. */
+export function buildWindingSheet(input: SheetInput): WindingSheet {
+  const { result: r, wire, core } = input;
+  const gapped = r.core.gapKind === 'air-gap' && r.gap.total > 0;
+  const tol = input.revision.inductanceTolerance;
+  const nominal = r.inductance.nominal;
+  const copperArea = wire.strands * Math.PI * (wire.strandDiameter / 2) ** 2;
+  const wireLength = r.winding.wireLength + LEAD_ALLOWANCE;
+  const full = r.winding.turnsPerLayer;
+  const lastLayerTurns = r.turns - full * (r.winding.layers - 1);
+  const isRing = r.core.family === 'RING' || r.core.family === 'POWDER_TOROID';
+
+  return {
+    header: {
+      designNumber: input.design.number,
+      title: input.design.title,
+      revision: input.revision.revision,
+      orderNumber: input.order.number,
+      quantity: input.order.quantity,
+      releasedAt: input.order.releasedAt.toISOString(),
+      author: input.author,
+      approver: input.approver,
+      engineVersion: input.revision.engineVersion,
+    },
+    parts: {
+      coreSet: isRing ? `Ring core ${r.core.id}` : `Core set ${r.core.id} (pair)`,
+      coreMaterial: r.material.name,
+      gap: gapped
+        ? {
+            kind: 'centre-leg ground',
+            total: r.gap.total,
+            groundDepth: r.gap.total,
+            spacerAlternative: r.gap.spacer,
+            note:
+              `Total centre-leg gap ${mm(r.gap.total, 3)} in the magnetic path: grind one half's centre leg by ${mm(r.gap.total, 3)}, ` +
+              `or each half by ${mm(r.gap.total / 2, 3)}. Alternative only if the engineer agrees: a non-magnetic spacer of ` +
+              `${mm(r.gap.spacer, 3)} under all legs (more stray field).`,
+          }
+        : { kind: 'none (distributed gap)', total: 0, groundDepth: 0, spacerAlternative: 0, note: 'No gap: the material sets the permeability.' },
+      bobbin: isRing
+        ? 'No bobbin: wind directly on the coated ring (add an edge-protecting wrap if the coating is thin).'
+        : `Bobbin for ${r.core.id}` + (core ? `, winding width ${mm(core.bobbinWidth, 1)}, build height ${mm(core.bobbinHeight, 1)}` : ''),
+      wire: {
+        description: wireDescription(wire),
+        kind: wire.kind,
+        strandDiameter: wire.strandDiameter,
+        strands: wire.strands,
+        overallDiameter: wire.overallDiameter,
+        grade: wire.grade ?? null,
+        length: wireLength,
+        mass: copperArea * wireLength * COPPER_DENSITY,
+      },
+      tapes: isRing
+        ? ['Polyester tape 0.05 mm over the finished winding (one wrap)']
+        : [
+            `Polyester tape 0.05 mm, width ${core ? mm(core.bobbinWidth, 0) : 'of the bobbin winding width'}: one wrap between layers`,
+            'Polyester tape 0.05 mm: two wraps over the finished winding',
+            'Polyester tape around the assembled core set to hold the halves',
+          ],
+    },
+    winding: {
+      startPin: isRing ? 'Flying lead S (start)' : 'Pin 1 (start at the bobbin tube)',
+      finishPin: isRing ? 'Flying lead F (finish)' : 'Last pin on the same side (finish on the outside)',
+      turns: r.turns,
+      layers: r.winding.layers,
+      turnsPerLayer: full,
+      lastLayerTurns,
+      direction: 'Clockwise viewed from the pin side (from the start lead for a ring)',
+      traverse: 'Progressive, close-wound, turns side by side; wires in hand laid flat and parallel, not twisted',
+      interlayerTape: isRing || r.winding.layers < 2 ? 'None' : 'One wrap of polyester tape between layers',
+      margins: input.insulation.required ? 'Margins as required by the insulation specification of the design owner' : 'None (no safety insulation required)',
+      outerWrap: 'Two wraps of polyester tape',
+    },
+    terminations: [
+      'Leads 50 mm long before termination; strip the enamel only where soldered (solder-strippable enamel or mechanical stripping)',
+      'Wrap each lead 2–3 turns on its pin and solder; all wires in hand of one end on the same pin',
+      'No sharp bends at the bobbin exit; no enamel damage',
+    ],
+    assembly: gapped
+      ? [
+          'Check the ground gap with a feeler gauge before assembly',
+          'Insert the core halves, ground half as specified; keep gap faces clean (no tape or glue inside the gap)',
+          'Clamp or tape the core set; glue only at the outer legs if glued',
+          'Ferrite is brittle: no dropping, no force on the gap',
+        ]
+      : ['Handle the ring without chipping the coating; no force on the finished winding'],
+    impregnation: 'No varnish unless the design owner asks for it (varnish changes inductance slightly and must then be re-measured).',
+    tests: {
+      inductance: {
+        nominal,
+        min: nominal * (1 - tol),
+        max: nominal * (1 + tol),
+        testFrequency: TEST_FREQUENCY,
+        testLevel: TEST_LEVEL,
+      },
+      resistanceMax20: r.copper.resistance20 * (1 + RESISTANCE_ALLOWANCE),
+      hipot: input.insulation.required
+        ? {
+            required: true,
+            instruction:
+              input.insulation.hipotInstruction ??
+              'Winding to core: test voltage, time and leakage limit as set by the design owner from the applicable standard',
+          }
+        : { required: false, instruction: 'Not required (no safety insulation in this design)' },
+    },
+    marking: `${input.design.number} rev ${input.revision.revision}, date code (YYWW), pin-1 dot`,
+    predicted: {
+      inductanceNominal: nominal,
+      resistance20: r.copper.resistance20,
+      totalLoss: r.totalLoss,
+      hotSpot: r.thermal.hotSpot,
+      peakFlux: r.flux.peak,
+      saturationAtHotSpot: r.flux.saturationAtHotSpot,
+    },
+    caution: SHEET_CAUTION,
+  };
+}

@@ -1,0 +1,52 @@
+import * as z from 'zod';
+
+export const transitionRequestSchema = z
+  .object({ comment: z.string().trim().max(2000, { error: 'At most 2000 characters' }).optional() })
+  .strict();
+export type TransitionRequest = z.infer<typeof transitionRequestSchema>;
+
+export const returnRequestSchema = z
+  .object({
+    comment: z
+      .string({ error: 'Say what needs to change' })
+      .trim()
+      .min(1, { error: 'Say what needs to change' })
+      .max(2000, { error: 'At most 2000 characters' }),
+  })
+  .strict();
+
+export const releaseRequestSchema = z
+  .object({
+    quantity: z
+      .number({ error: 'quantity must be a whole number' })
+      .int({ error: 'quantity must be a whole number' })
+      .min(1, { error: 'quantity must be between 1 and 100000' })
+      .max(100000, { error: 'quantity must be between 1 and 100000' }),
+    comment: z.string().trim().max(2000, { error: 'At most 2000 characters' }).optional(),
+  })
+  .strict();
+export type ReleaseRequest = z.infer<typeof releaseRequestSchema>;
+
+export const shopSettingsSchema = z
+  .object({ shopEmail: z.email({ error: 'Not a valid e-mail address' }).max(200) })
+  .strict();
+export type ShopSettings = z.infer<typeof shopSettingsSchema>;
+
+const finite = (field: string, min: number, max: number, unit: string) =>
+  z
+    .number({ error: `${field} must be a number` })
+    .min(min, { error: `${field} must be between ${min} and ${max} ${unit}` })
+    .max(max, { error: `${field} must be between ${min} and ${max} ${unit}` });
+
+/** One built unit's measurements, SI units (H, Hz, Ω, °C). */
+export const unitMeasurementSchema = z
+  .object({
+    inductance: finite('inductance', 1e-9, 10, 'H'),
+    testFrequency: finite('testFrequency', 10, 10e6, 'Hz'),
+    resistance: finite('resistance', 1e-6, 1e4, 'Ω'),
+    resistanceTemperature: finite('resistanceTemperature', -40, 150, '°C'),
+    hipot: z.enum(['pass', 'fail', 'not_tested'], { error: 'hipot must be pass, fail or not_tested' }),
+    notes: z.string().trim().max(2000, { error: 'At most 2000 characters' }).optional(),
+  })
+  .strict();
+export type UnitMeasurementRequest = z.infer<typeof unitMeasurementSchema>;

@@ -1,0 +1,74 @@
+// The winding sheet: everything the shop needs to build and test one released revision.
+// Built once at release from the revision's frozen result; lengths in m, inductance in H,
+// resistance in Ω, frequencies in Hz, temperatures in °C (SI inside, formatted at the edges).
+
+export interface SheetTestLimits {
+  inductance: {
+    nominal: number;
+    min: number;
+    max: number;
+    /** Small-signal test: frequency (Hz) and level (V rms), no DC bias. */
+    testFrequency: number;
+    testLevel: number;
+  };
+  /** Largest DC resistance at 20 °C (Ω). */
+  resistanceMax20: number;
+  hipot: { required: boolean; instruction: string };
+}
+
+export interface WindingSheet {
+  header: {
+    designNumber: string;
+    title: string;
+    revision: number;
+    orderNumber: string;
+    quantity: number;
+    releasedAt: string;
+    author: string;
+    approver: string;
+    engineVersion: string;
+  };
+  parts: {
+    coreSet: string;
+    coreMaterial: string;
+    gap: { kind: 'centre-leg ground' | 'none (distributed gap)'; total: number; groundDepth: number; spacerAlternative: number; note: string };
+    bobbin: string;
+    wire: { description: string; kind: string; strandDiameter: number; strands: number; overallDiameter: number; grade: number | null; length: number; mass: number };
+    tapes: string[];
+  };
+  winding: {
+    startPin: string;
+    finishPin: string;
+    turns: number;
+    layers: number;
+    turnsPerLayer: number;
+    lastLayerTurns: number;
+    direction: string;
+    traverse: string;
+    interlayerTape: string;
+    margins: string;
+    outerWrap: string;
+  };
+  terminations: string[];
+  assembly: string[];
+  impregnation: string;
+  tests: SheetTestLimits;
+  marking: string;
+  predicted: {
+    inductanceNominal: number;
+    resistance20: number;
+    totalLoss: number;
+    hotSpot: number;
+    peakFlux: number;
+    saturationAtHotSpot: number;
+  };
+  caution: string;
+}
+
+export const SHEET_CAUTION =
+  'Engineering estimate: this part was sized by calculation and must be verified on a prototype ' +
+  '(inductance against DC current, temperature rise at worst-case line and load, current-limit test) before ' +
+  'quantity builds. Inductors get hot and can saturate into a short circuit. Mains-connected or high-voltage ' +
+  'converters need creepage, clearance, insulation class and hipot levels set by the applicable standards ' +
+  '(e.g. IEC 62368-1) and local codes, and a qualified engineer’s review; ferrite cores are semiconductive — treat ' +
+  'the core as live unless insulated.';

@@ -1,0 +1,301 @@
+import { execFileSync } from 'node:child_process';
+import { mkdirSync, mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { eq } from 'drizzle-orm';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { buildOrders, capturedMail, designRevisions, mailDeliveries } from '../../server/db/schema.ts';
+import { addRevision, insertEvaluatedDesign } from './support/design-fixture.ts';
+import { ApiClient, signedInAs } from './support/api-client.ts';
+import { createTestApp, tableCount, type TestApp } from './support/test-app.ts';
+
+let t: TestApp;
+let erin: ApiClient; // engineer, the author
+let tomas: ApiClient; // another engineer
+let ruth: ApiClient; // reviewer
+let wendell: ApiClient; // winder
+let ada: ApiClient; // admin
+
+beforeAll(async () => {
+  t = await createTestApp();
+  [erin, tomas, ruth, wendell, ada] = await Promise.all([
+    signedInAs(t.app, 'engineer'),
+    (async () => {
+      const c = new ApiClient(t.app);
+      await c.signIn('tomas', 'demo-engineer-2026');
+      return c;
+    })(),
+    signedInAs(t.app, 'reviewer'),
+    signedInAs(t.app, 'winder'),
+    signedInAs(t.app, 'admin'),
+  ]);
+});
+afterAll(() => t.close());
+
+const statusOf = async (revisionId: number) =>
+  (await t.db.select({ s: designRevisions.status }).from(designRevisions).where(eq(designRevisions.id, revisionId)))[0].s;
+
+async function waitForMail(subjectPart: string, timeoutMs = 10_000) {
+  const until = Date.now() + timeoutMs;
+  while (Date.now() < until) {
+    const rows = await t.db.select().from(capturedMail);
+    const hit = rows.find((r) => r.raw.includes(subjectPart));
+    if (hit) return hit;
+    await new Promise((r) => setTimeout(r, 100));
+  }
+  throw new Error(`no captured mail containing ${subjectPart}`);
+}
+
+describe('review and release', () => {
+  it('walks draft → in review → approved → released, with each role allowed and refused where it should be', async () => {
+    const { design, revision } = await insertEvaluatedDesign(t, 'erin');
+    const id = revision.id;
+
+    expect((await wendell.post(`/api/revisions/${id}/submit`, {})).status).toBe(403); // winders design nothing
+    expect((await tomas.post(`/api/revisions/${id}/submit`, {})).status).toBe(403); // not the owner
+    expect((await erin.post(`/api/revisions/${id}/approve`, {})).status).toBe(403); // engineers do not approve
+    expect((await ruth.post(`/api/revisions/${id}/approve`, {})).status).toBe(409); // not submitted yet
+
+    const submitted = await erin.post(`/api/revisions/${id}/submit`, { comment: 'Ready for a look' });
+    expect(submitted.status).toBe(200);
+    expect(await statusOf(id)).toBe('in_review');
+
+    const inbox = await ruth.get('/api/inbox');
+    expect(inbox.body.items.some((i: { kind: string; revisionId: number }) => i.kind === 'review' && i.revisionId === id)).toBe(true);
+
+    expect((await ruth.post(`/api/revisions/${id}/approve`, { comment: 'Margins fine' })).status).toBe(200);
+    expect(await statusOf(id)).toBe('approved');
+
+    expect((await erin.post(`/api/revisions/${id}/release`, { quantity: 2 })).status).toBe(403);
+    const bad = await ruth.post(`/api/revisions/${id}/release`, { quantity: 0 });
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.fields.quantity).toMatch(/between 1 and 100000/);
+
+    const released = await ruth.post(`/api/revisions/${id}/release`, { quantity: 2 });
+    expect(released.status).toBe(200);
+    expect(released.body.orderNumber).toMatch(/^BO-\d{4}$/);
+    expect(await statusOf(id)).toBe('released');
+
+    // Nobody changes a released revision, whatever they try.
+    for (const client of [erin, ruth, ada]) {
+      for (const action of ['submit', 'approve', 'release']) {
+        const res = await client.post(`/api/revisions/${id}/${action}`, action === 'release' ? { quantity: 1 } : {});
+        expect([403, 409]).toContain(res.status);
+      }
+    }
+    expect(await statusOf(id)).toBe('released');
+
+    const timeline = await erin.get(`/api/revisions/${id}/timeline`);
+    expect(timeline.body.entries.map((e: { toStatus: string }) => e.toStatus)).toEqual(['in_review', 'approved', 'released']);
+    expect(timeline.body.entries[0]).toMatchObject({ actor: 'Erin Calder', comment: 'Ready for a look' });
+    expect(timeline.body.designId).toBe(design.id);
+  });
+
+  it('does not let the author approve or release their own design, even as a reviewer', async () => {
+    const { revision } = await insertEvaluatedDesign(t, 'ruth');
+    expect((await ruth.post(`/api/revisions/${revision.id}/submit`, {})).status).toBe(200);
+    const own = await ruth.post(`/api/revisions/${revision.id}/approve`, {});
+    expect(own.status).toBe(403);
+    expect(own.body.error.message).toMatch(/author/i);
+    expect(await statusOf(revision.id)).toBe('in_review');
+  });
+
+  it('returns a design to draft with a required comment, and the author sees it waiting', async () => {
+    const { revision } = await insertEvaluatedDesign(t, 'erin');
+    await erin.post(`/api/revisions/${revision.id}/submit`, {});
+    const empty = await ruth.post(`/api/revisions/${revision.id}/return`, { comment: '  ' });
+    expect(empty.status).toBe(400);
+    expect(empty.body.error.fields.comment).toMatch(/what needs to change/);
+    expect((await ruth.post(`/api/revisions/${revision.id}/return`, { comment: 'Use a larger core: hot spot too close to class B' })).status).toBe(200);
+    expect(await statusOf(revision.id)).toBe('draft');
+    const inbox = await erin.get('/api/inbox');
+    const item = inbox.body.items.find((i: { revisionId: number }) => i.revisionId === revision.id);
+    expect(item).toMatchObject({ kind: 'returned' });
+    expect(item.label).toMatch(/larger core/);
+  });
+
+  it('supersedes the earlier released revision when a new revision is released', async () => {
+    const { design, revision } = await insertEvaluatedDesign(t, 'erin');
+    for (const [client, action, body] of [
+      [erin, 'submit', {}],
+      [ruth, 'approve', {}],
+      [ruth, 'release', { quantity: 1 }],
+    ] as const) {
+      expect((await client.post(`/api/revisions/${revision.id}/${action}`, body)).status).toBe(200);
+    }
+    const second = await addRevision(t, design.id, 2);
+    for (const [client, action, body] of [
+      [erin, 'submit', {}],
+      [ruth, 'approve', {}],
+      [ruth, 'release', { quantity: 1 }],
+    ] as const) {
+      expect((await client.post(`/api/revisions/${second.id}/${action}`, body)).status).toBe(200);
+    }
+    expect(await statusOf(revision.id)).toBe('superseded');
+    expect(await statusOf(second.id)).toBe('released');
+  });
+});
+
+describe('release hand-off to the winding shop', () => {
+  let orderId: number;
+  let orderNumber: string;
+  let turns: number;
+  let gapTotal: number;
+
+  beforeAll(async () => {
+    const { revision, result } = await insertEvaluatedDesign(t, 'erin');
+    turns = result.turns;
+    gapTotal = result.gap.total;
+    await erin.post(`/api/revisions/${revision.id}/submit`, {});
+    await ruth.post(`/api/revisions/${revision.id}/approve`, {});
+    const released = await ruth.post(`/api/revisions/${revision.id}/release`, { quantity: 2 });
+    orderId = released.body.orderId;
+    orderNumber = released.body.orderNumber;
+  });
+
+  it('e-mails the shop with the winding sheet PDF attached, whose text gives the turns and the gap', async () => {
+    const mail = await waitForMail(orderNumber);
+    expect(mail.envelopeTo).toBe('shop@harrow-lane.example');
+    const outbox = await ada.get('/api/admin/outbox');
+    expect(outbox.status).toBe(200);
+    const message = outbox.body.messages.find((m: { subject: string }) => m.subject.includes(orderNumber));
+    expect(message.attachments).toHaveLength(1);
+    expect(message.attachments[0].contentType).toBe('application/pdf');
+    const pdf = await ada.agent.get(`/api/admin/outbox/${message.id}/attachments/1`).buffer(true).parse((res, cb) => {
+      const chunks: Buffer[] = [];
+      res.on('data', (c: Buffer) => chunks.push(c));
+      res.on('end', () => cb(null, Buffer.concat(chunks)));
+    });
+    expect(pdf.status).toBe(200);
+    const body = pdf.body as Buffer;
+    expect(body.subarray(0, 5).toString()).toBe('%PDF-');
+    const dir = mkdtempSync(path.join(tmpdir(), 'gapwright-pdf-'));
+    writeFileSync(path.join(dir, 'sheet.pdf'), body);
+    // Kept as test artifacts: the PDF and its first page as a PNG.
+    const results = process.env['TEST_RESULTS_DIR'] ?? path.resolve('test-results');
+    mkdirSync(results, { recursive: true });
+    writeFileSync(path.join(results, 'winding-sheet.pdf'), body);
+    execFileSync('pdftoppm', ['-png', '-r', '80', '-f', '1', '-l', '1', '-singlefile', path.join(dir, 'sheet.pdf'), path.join(results, 'winding-sheet-page1')]);
+    const text = execFileSync('pdftotext', ['-layout', path.join(dir, 'sheet.pdf'), '-'], { encoding: 'utf8' });
+    expect(text).toContain(`${turns} turns`);
+    expect(text).toContain(`${(gapTotal * 1e3).toPrecision(3).replace(/\.?0+$/, '')}`);
+    expect(text).toMatch(/Engineering estimate/);
+    expect(text).toMatch(/mΩ/); // the Greek letter comes through from the embedded Noto Sans subset
+    const delivery = (await t.db.select().from(mailDeliveries).where(eq(mailDeliveries.orderId, orderId)))[0];
+    expect(delivery.status).toBe('sent');
+  });
+
+  it('lets only the admin read the outbox', async () => {
+    for (const client of [erin, ruth, wendell]) expect((await client.get('/api/admin/outbox')).status).toBe(403);
+  });
+
+  it('shows the winder the open order with its frozen sheet', async () => {
+    const queue = await wendell.get('/api/shop/orders');
+    expect(queue.body.orders.some((o: { id: number }) => o.id === orderId)).toBe(true);
+    const order = await wendell.get(`/api/shop/orders/${orderId}`);
+    expect(order.body.sheet.winding.turns).toBe(turns);
+    expect(order.body.sheet.caution).toMatch(/qualified engineer/);
+    const pdf = await wendell.get(`/api/shop/orders/${orderId}/sheet.pdf`);
+    expect(pdf.headers['content-type']).toBe('application/pdf');
+    expect(pdf.headers['content-disposition']).toMatch(/attachment; filename="[A-Za-z0-9._-]+\.pdf"/);
+  });
+
+  it('judges each unit against the sheet: DCR referred to 20 °C, inductance limits, completion at the quantity', async () => {
+    const order = (await wendell.get(`/api/shop/orders/${orderId}`)).body;
+    const limits = order.sheet.tests;
+    const r20 = order.sheet.predicted.resistance20;
+    // A reading at 40 °C of a winding whose R20 is the prediction: R40 = R20·(1 + 0.00393·20)
+    // (IEC 60028 ρ20; α20 = 0.00393 /K from memory, magnetics reference §6.2).
+    const good = { inductance: limits.inductance.nominal, testFrequency: limits.inductance.testFrequency, resistance: r20 * (1 + 0.00393 * 20), resistanceTemperature: 40, hipot: 'not_tested' };
+
+    expect((await erin.post(`/api/shop/orders/${orderId}/units`, good)).status).toBe(403); // only winders record
+
+    const first = await wendell.post(`/api/shop/orders/${orderId}/units`, good);
+    expect(first.status).toBe(201);
+    expect(first.body.unit.passed).toBe(true);
+    expect(first.body.unit.resistanceAt20).toBeCloseTo(r20, 9);
+    expect(first.body.orderStatus).toBe('open');
+
+    const low = await wendell.post(`/api/shop/orders/${orderId}/units`, { ...good, inductance: limits.inductance.min * 0.9, notes: 'gap ground too deep?' });
+    expect(low.status).toBe(201);
+    expect(low.body.unit.passed).toBe(false);
+    const finding = low.body.unit.findings.find((f: { check: string }) => f.check === 'inductance');
+    expect(finding.passed).toBe(false);
+
+    const hot = await wendell.post(`/api/shop/orders/${orderId}/units`, { ...good, resistance: limits.resistanceMax20 * 1.2, resistanceTemperature: 20 });
+    expect(hot.body.unit.passed).toBe(false);
+
+    const second = await wendell.post(`/api/shop/orders/${orderId}/units`, good);
+    expect(second.body.orderStatus).toBe('complete');
+    const after = await wendell.post(`/api/shop/orders/${orderId}/units`, good);
+    expect(after.status).toBe(409);
+    expect((await wendell.get('/api/shop/orders')).body.orders.some((o: { id: number }) => o.id === orderId)).toBe(false);
+  });
+
+  it('refuses impossible measurements by field', async () => {
+    const res = await wendell.post(`/api/shop/orders/${orderId}/units`, { inductance: -1, testFrequency: 1e4, resistance: 0.01, resistanceTemperature: 500, hipot: 'maybe' });
+    expect(res.status).toBe(400);
+    expect(Object.keys(res.body.error.fields).sort()).toEqual(['hipot', 'inductance', 'resistanceTemperature']);
+  });
+
+  it('reports measured against predicted with the error by material and by core', async () => {
+    const report = await erin.get('/api/shop/prediction-report');
+    expect(report.status).toBe(200);
+    const units = report.body.units.filter((u: { orderNumber: string }) => u.orderNumber === orderNumber);
+    expect(units).toHaveLength(4);
+    expect(units[0].inductanceRatio).toBeCloseTo(1, 9);
+    expect(report.body.byMaterial.length).toBeGreaterThan(0);
+    expect(report.body.byMaterial[0].inductanceRatio.spread).toBeGreaterThanOrEqual(0);
+    expect((await wendell.get('/api/shop/prediction-report')).status).toBe(403);
+  });
+
+  it('keeps the shop address as an admin setting', async () => {
+    expect((await ruth.get('/api/admin/settings')).status).toBe(403);
+    expect((await ada.put('/api/admin/settings', { shopEmail: 'not-an-address' })).status).toBe(400);
+    const res = await ada.put('/api/admin/settings', { shopEmail: 'winding@harrow-lane.example' });
+    expect(res.status).toBe(200);
+    expect((await ada.get('/api/admin/settings')).body.shopEmail).toBe('winding@harrow-lane.example');
+    await ada.put('/api/admin/settings', { shopEmail: 'shop@harrow-lane.example' });
+  });
+});
+
+describe('a mail server that is down', () => {
+  it('never blocks or undoes the release; the delivery is retried and then marked failed', async () => {
+    const offline = await createTestApp({ MAIL_RETRY_DELAYS_MS: '20,20' });
+    try {
+      offline.services.mail.close();
+      const { createApp } = await import('../../server/app.ts');
+      const { pino } = await import('pino');
+      const { app, services, close } = createApp({
+        config: offline.config,
+        pool: offline.pool,
+        db: offline.db,
+        logger: pino({ level: 'silent' }),
+        mailTarget: { host: '127.0.0.1', port: 1, secure: false, from: 'x@localhost' },
+      });
+      const test = { ...offline, app, services };
+      const author = await signedInAs(app, 'engineer');
+      const reviewer = await signedInAs(app, 'reviewer');
+      const { revision } = await insertEvaluatedDesign(test, 'erin');
+      await author.post(`/api/revisions/${revision.id}/submit`, {});
+      await reviewer.post(`/api/revisions/${revision.id}/approve`, {});
+      const ordersBefore = await tableCount(offline.db, 'build_orders');
+      const released = await reviewer.post(`/api/revisions/${revision.id}/release`, { quantity: 1 });
+      expect(released.status).toBe(200);
+      expect(await tableCount(offline.db, 'build_orders')).toBe(ordersBefore + 1);
+      let delivery;
+      for (let i = 0; i < 100; i++) {
+        [delivery] = await offline.db.select().from(mailDeliveries).where(eq(mailDeliveries.orderId, released.body.orderId));
+        if (delivery?.status === 'failed') break;
+        await new Promise((r) => setTimeout(r, 50));
+      }
+      expect(delivery).toMatchObject({ status: 'failed', attempts: 3 });
+      expect(delivery!.lastError).toMatch(/ECONNREFUSED|connect/i);
+      const [order] = await offline.db.select().from(buildOrders).where(eq(buildOrders.id, released.body.orderId));
+      expect(order.status).toBe('open');
+      await close();
+    } finally {
+      await offline.close();
+    }
+  });
+});
