@@ -56,6 +56,8 @@ export class DesignPanel {
   protected readonly fmt = show;
   protected readonly unit = showUnit;
   protected readonly pct = percent;
+  protected readonly mm2 = (m2: number) => `${Number((m2 * 1e6).toPrecision(4))} mm²`;
+  protected readonly cm3 = (m3: number) => `${Number((m3 * 1e6).toPrecision(4))} cm³`;
   protected readonly result = computed(() => this.view()?.result ?? null);
   protected readonly materialOptions = computed(() => {
     const family = this.result()?.material.family;
@@ -128,7 +130,8 @@ export class DesignPanel {
     this.wireKind.set(wire.kind);
     this.silent = false;
     if (known) this.view.set(known);
-    else this.edits.next();
+    // The loss-versus-frequency sweep is never stored; a fresh evaluation brings it.
+    if (!known?.lossVersusFrequency) this.edits.next();
   }
 
   private constructionFromForm(): Construction | null {
@@ -164,8 +167,8 @@ export class DesignPanel {
       animation: false,
       grid: { left: 56, right: 90, top: 16, bottom: 32 },
       tooltip: { trigger: 'axis' },
-      xAxis: { type: 'category', data: ['DC', 'Valley', 'Peak (load)', 'Peak (limit)'] },
-      yAxis: { type: 'value', name: 'T', max: Math.max(f.saturationAtHotSpot, f.peakAtMinimumSection) * 1.1 },
+      xAxis: { type: 'category', data: ['DC', 'Valley', 'Peak (load)', 'Peak (limit)'], axisLabel: { interval: 0 } },
+      yAxis: { type: 'value', name: 'T', max: Math.ceil(Math.max(f.saturationAtHotSpot, f.peakAtMinimumSection) * 11) / 10 },
       series: [
         {
           type: 'bar',

@@ -1,0 +1,85 @@
+import { ChangeDetectionStrategy, Component, provideZonelessChangeDetection } from '@angular/core';
+import { TestBed, type ComponentFixture } from '@angular/core/testing';
+import { beforeEach, describe, expect, it } from 'vitest';
+
+import { SpecFormComponent } from './spec-form';
+import { createSpecForm, formFromSpec, specFromForm } from './spec-model';
+
+@Component({
+  imports: [SpecFormComponent],
+  template: `<gw-spec-form [form]="form" />`,
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+class Host {
+  readonly form = createSpecForm();
+}
+
+describe('SpecFormComponent', () => {
+  let fixture: ComponentFixture<Host>;
+  let page: HTMLElement;
+
+  beforeEach(async () => {
+    TestBed.configureTestingModule({ providers: [provideZonelessChangeDetection()] });
+    fixture = TestBed.createComponent(Host);
+    page = fixture.nativeElement as HTMLElement;
+    await fixture.whenStable();
+  });
+
+  const field = (label: string) => {
+    const labelElement = [...page.querySelectorAll('label')].find((each) => each.textContent?.replace('*', '').trim() === label);
+    const input = page.querySelector<HTMLInputElement>(`#${labelElement?.htmlFor}`);
+    if (!input) throw new Error(`No field labelled ${label}`);
+    return input;
+  };
+
+  async function type(label: string, text: string): Promise<void> {
+    const input = field(label);
+    input.value = text;
+    input.dispatchEvent(new Event('input'));
+    input.dispatchEvent(new Event('blur'));
+    await fixture.whenStable();
+  }
+
+  const errors = () => [...page.querySelectorAll('mat-error')].map((e) => e.textContent?.trim());
+
+  it('shows the engine defaults in the limit fields', () => {
+    // Engine defaults (shared/engine/inputs.ts DEFAULT_LIMITS): 40 °C ambient, 50 K rise, 0.3 T, 4 A/mm², Ku 0.4.
+    expect(field('Ambient').value).toBe('40 °C');
+    expect(field('Allowed rise').value).toBe('50 K');
+    expect(field('Bmax').value).toBe('300 mT');
+    expect(field('Current density J').value).toBe('4 A/mm²');
+    expect(field('Window utilisation Ku').value).toBe('0.4');
+    expect(field('Ripple ratio ΔI/Iout at Vin max').value).toBe('0.3');
+  });
+
+  it('turns what a person types into the SI spec the API takes', async () => {
+    await type('Vin min', '36 V');
+    await type('Vin max', '60V');
+    await type('Vout', '12 V');
+    await type('Iout max', '8 A');
+    await type('Switching frequency', '250kHz');
+    await type('Ambient', '85 degC');
+    await type('Ripple ratio ΔI/Iout at Vin max', '30 %');
+    const spec = specFromForm(fixture.componentInstance.form.getRawValue());
+    expect(spec?.converter).toMatchObject({ vinMin: 36, vinMax: 60, vout: 12, ioutMax: 8, frequency: 250e3, rectifier: 'synchronous' });
+    expect(spec?.converter.rippleRatio).toBeCloseTo(0.3, 12);
+    expect(spec?.limits?.ambient).toBeCloseTo(85, 9);
+    expect(field('Switching frequency').value).toBe('250 kHz');
+  });
+
+  it('has no spec while a required figure is missing, and names a wrong unit under its field', async () => {
+    await type('Vin min', '36 V');
+    await type('Vout', '3 A');
+    expect(errors()).toContain('Expected a voltage (V), not a current (A)');
+    expect(specFromForm(fixture.componentInstance.form.getRawValue())).toBeNull();
+  });
+
+  it('asks for a fixed inductance instead of a ripple when chosen, and round-trips a stored spec', async () => {
+    const form = fixture.componentInstance.form;
+    form.patchValue(formFromSpec({ converter: { vinMin: 10.8, vinMax: 13.2, vout: 1.2, ioutMax: 15, frequency: 500e3, inductance: 220e-9, rectifier: 'diode', diodeDrop: 0.4 } }));
+    await fixture.whenStable();
+    expect(field('Inductance (minimum)').value).toBe('220 nH');
+    expect(field('Diode drop').value).toBe('400 mV');
+    expect(specFromForm(form.getRawValue())?.converter).toMatchObject({ inductance: 220e-9, rectifier: 'diode', diodeDrop: 0.4 });
+  });
+});
