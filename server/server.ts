@@ -41,7 +41,12 @@ export async function startServer(config: Config): Promise<RunningServer> {
   const stop = () =>
     (stopping ??= (async () => {
       await new Promise<void>((resolve) => {
-        server.close(() => resolve());
+        // Connections that finish their last request while we drain are closed as soon as they go idle.
+        const sweep = setInterval(() => server.closeIdleConnections(), 100);
+        server.close(() => {
+          clearInterval(sweep);
+          resolve();
+        });
         server.closeIdleConnections();
       });
       await close();

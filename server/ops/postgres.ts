@@ -19,9 +19,15 @@ export interface LocalCluster {
 const ROLE = 'gapwright';
 const isRoot = () => process.getuid?.() === 0;
 
-export function clusterPaths() {
-  const root = process.env['GAPWRIGHT_DATA_DIR'] ?? (isRoot() ? '/var/lib/gapwright' : path.join(homedir(), '.local/share/gapwright'));
-  const port = Number(process.env['GAPWRIGHT_PG_PORT'] ?? 54329);
+/** Where a cluster lives; the default is Gapwright's own, a test may ask for a throwaway one. */
+export interface ClusterLocation {
+  root?: string;
+  port?: number;
+}
+
+export function clusterPaths(location: ClusterLocation = {}) {
+  const root = location.root ?? process.env['GAPWRIGHT_DATA_DIR'] ?? (isRoot() ? '/var/lib/gapwright' : path.join(homedir(), '.local/share/gapwright'));
+  const port = location.port ?? Number(process.env['GAPWRIGHT_PG_PORT'] ?? 54329);
   return {
     root,
     port,
@@ -105,8 +111,8 @@ function psql(bin: string, port: number, runDir: string, sql: string, database =
 const quoteLiteral = (value: string) => `'${value.replace(/'/g, "''")}'`;
 
 /** Installs (if needed), initialises (once), starts (if stopped) and prepares the cluster. */
-export function ensureCluster(): LocalCluster {
-  const paths = clusterPaths();
+export function ensureCluster(location: ClusterLocation = {}): LocalCluster {
+  const paths = clusterPaths(location);
   const bin = findBinDir() ?? installPostgres();
   const dataDir = path.join(paths.root, `pg${path.basename(path.dirname(bin))}`);
 
@@ -153,8 +159,8 @@ export function ensureCluster(): LocalCluster {
 }
 
 /** Creates a database owned by the application role when it does not exist yet. */
-export function ensureDatabase(database: string): void {
-  const paths = clusterPaths();
+export function ensureDatabase(database: string, location: ClusterLocation = {}): void {
+  const paths = clusterPaths(location);
   const bin = findBinDir();
   if (!bin) throw new Error('PostgreSQL is not installed.');
   if (!/^[a-z0-9_]+$/.test(database)) throw new Error(`Unsafe database name "${database}".`);
@@ -169,13 +175,13 @@ export function dropDatabase(database: string): void {
   psql(bin, paths.port, paths.runDir, `drop database if exists ${database} with (force)`);
 }
 
-export function stopCluster(): void {
-  const paths = clusterPaths();
+export function stopCluster(location: ClusterLocation = {}, mode: 'fast' | 'immediate' = 'fast'): void {
+  const paths = clusterPaths(location);
   const bin = findBinDir();
   if (!bin) return log('PostgreSQL is not installed; nothing to stop.');
   const dataDir = path.join(paths.root, `pg${path.basename(path.dirname(bin))}`);
   if (!existsSync(path.join(dataDir, 'PG_VERSION')) || !isReady(bin, paths.port)) return log('not running.');
-  runOrThrow(path.join(bin, 'pg_ctl'), ['-D', dataDir, '-m', 'fast', '-w', 'stop'], 'pg_ctl stop');
+  runOrThrow(path.join(bin, 'pg_ctl'), ['-D', dataDir, '-m', mode, '-w', 'stop'], 'pg_ctl stop');
   log('stopped.');
 }
 

@@ -1,0 +1,109 @@
+import { spawn, type ChildProcess } from 'node:child_process';
+import http from 'node:http';
+import net from 'node:net';
+import path from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { DEMO_USERS } from '../../server/seed/demo-scenario.ts';
+import { testDatabaseUrl } from './support/test-app.ts';
+
+// The real entry file in its own process: SIGTERM must let an in-flight request finish, refuse new
+// connections, and exit 0.
+
+function freePort(): Promise<number> {
+  return new Promise((resolve) => {
+    const s = net.createServer().listen(0, '127.0.0.1', () => {
+      const { port } = s.address() as net.AddressInfo;
+      s.close(() => resolve(port));
+    });
+  });
+}
+
+interface Reply {
+  status: number;
+  headers: http.IncomingHttpHeaders;
+  body: string;
+}
+
+function request(port: number, method: string, urlPath: string, headers: Record<string, string> = {}, body?: string): Promise<Reply> {
+  return new Promise((resolve, reject) => {
+    const req = http.request({ host: '127.0.0.1', port, method, path: urlPath, headers }, (res) => {
+      let text = '';
+      res.on('data', (c: Buffer) => (text += c.toString()));
+      res.on('end', () => resolve({ status: res.statusCode ?? 0, headers: res.headers, body: text }));
+    });
+    req.on('error', reject);
+    req.end(body);
+  });
+}
+
+let child: ChildProcess;
+let port: number;
+let exit: Promise<number | null>;
+
+beforeAll(async () => {
+  port = await freePort();
+  child = spawn(process.execPath, ['--import', 'tsx', path.resolve('server/main.ts')], {
+    env: {
+      ...process.env,
+      NODE_ENV: 'test',
+      PORT: String(port),
+      DATABASE_URL: testDatabaseUrl(),
+      SESSION_SECRET: 'shutdown-test-secret-that-is-long-enough-123456',
+      LOG_LEVEL: 'silent',
+      FAKE_SMTP_PORT: '0',
+      STATIC_DIR: path.resolve('dist/gapwright/browser'),
+    },
+    stdio: ['ignore', 'pipe', 'pipe'],
+  });
+  exit = new Promise((resolve) => child.on('exit', (code) => resolve(code)));
+  for (let i = 0; i < 150; i++) {
+    const ok = await request(port, 'GET', '/api/health').then((r) => r.status === 200, () => false);
+    if (ok) return;
+    await new Promise((r) => setTimeout(r, 200));
+  }
+  throw new Error('the server did not come up');
+}, 60_000);
+
+afterAll(() => {
+  if (child.exitCode === null) child.kill('SIGKILL');
+});
+
+describe('SIGTERM during a slow request', () => {
+  it('finishes the request, refuses new connections and exits 0', async () => {
+    const session = await request(port, 'GET', '/api/auth/session');
+    const cookies = ([] as string[]).concat(session.headers['set-cookie'] ?? []).map((c) => c.split(';')[0]);
+    const token = decodeURIComponent(cookies.find((c) => c.startsWith('XSRF-TOKEN='))!.split('=')[1]);
+    const user = DEMO_USERS.find((u) => u.role === 'engineer')!;
+    const body = JSON.stringify({ username: user.username, password: user.password });
+
+    // A sign-in whose body arrives slowly: the request is in flight when the signal comes.
+    const slow = new Promise<Reply>((resolve, reject) => {
+      const req = http.request(
+        {
+          host: '127.0.0.1',
+          port,
+          method: 'POST',
+          path: '/api/auth/sign-in',
+          headers: { 'Content-Type': 'application/json', 'Content-Length': String(Buffer.byteLength(body)), Cookie: cookies.join('; '), 'X-XSRF-TOKEN': token },
+        },
+        (res) => {
+          let text = '';
+          res.on('data', (c: Buffer) => (text += c.toString()));
+          res.on('end', () => resolve({ status: res.statusCode ?? 0, headers: res.headers, body: text }));
+        },
+      );
+      req.on('error', reject);
+      req.write(body.slice(0, 10));
+      setTimeout(() => child.kill('SIGTERM'), 300);
+      setTimeout(() => req.end(body.slice(10)), 1500);
+    });
+
+    await new Promise((r) => setTimeout(r, 800));
+    await expect(request(port, 'GET', '/api/health')).rejects.toMatchObject({ code: 'ECONNREFUSED' });
+
+    const reply = await slow;
+    expect(reply.status).toBe(200);
+    expect(JSON.parse(reply.body).user.username).toBe(user.username);
+    expect(await exit).toBe(0);
+  });
+});
