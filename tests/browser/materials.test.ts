@@ -31,6 +31,10 @@ describe('material library, comparison and cores', () => {
     await page.getByRole('button', { name: 'Import these materials' }).click();
     for (const name of TEMPLATE_NAMES) await page.getByRole('cell', { name, exact: true }).waitFor();
     await page.getByRole('cell', { name: /2 rows: 2 new/ }).waitFor();
+    await page.getByRole('button', { name: 'Versions of Example ferrite EF-1 (illustrative)' }).click();
+    await page.getByRole('heading', { name: 'Versions of Example ferrite EF-1 (illustrative)' }).waitFor();
+    await page.getByRole('cell', { name: 'v1 (current)' }).waitFor();
+    expect(await seriousAxeFindings(page)).toEqual([]);
     await page.screenshot({ path: screenshotPath('materials-library'), fullPage: true });
 
     await page.goto('/compare');
@@ -98,6 +102,30 @@ describe('material library, comparison and cores', () => {
     // IEC 60205 sharp-edged value for 25/15/10 (magnetics reference §12.3 [C]): Ae = 48.93 mm²
     await page.getByRole('cell', { name: '48.9', exact: true }).waitFor();
     await page.screenshot({ path: screenshotPath('cores'), fullPage: true });
+    await context.close();
+  });
+});
+
+describe('the new screens in the dark theme (axe)', () => {
+  it('has no serious or critical findings on Materials, Compare and Cores', async () => {
+    const { context, page } = await h.newPage();
+    await signIn(page, engineer.username, engineer.password);
+    await page.getByRole('button', { name: 'Switch to dark theme' }).click();
+    await page.getByRole('button', { name: 'Switch to light theme' }).waitFor();
+
+    await page.goto('/materials');
+    await page.getByRole('cell', { name: 'Demo ferrite MF-95 (illustrative)', exact: true }).waitFor();
+    expect(await seriousAxeFindings(page)).toEqual([]);
+
+    await page.goto('/compare');
+    await page.locator('.gw-chart canvas').first().waitFor();
+    expect(await seriousAxeFindings(page)).toEqual([]);
+    await page.screenshot({ path: screenshotPath('compare-dark'), fullPage: true });
+
+    await page.goto('/cores');
+    await page.getByRole('cell', { name: 'Shipped' }).first().waitFor();
+    expect(await seriousAxeFindings(page)).toEqual([]);
+    await page.getByRole('button', { name: 'Switch to light theme' }).click();
     await context.close();
   });
 });

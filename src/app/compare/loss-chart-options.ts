@@ -57,18 +57,20 @@ export function lossChartOptions(materials: readonly MaterialCurves[], axis: Swe
     animation: false,
     color: PALETTE,
     textStyle: { color: text },
-    legend: { top: 0, textStyle: { color: text }, type: 'scroll' },
+    legend: { top: 0, textStyle: { color: text }, type: 'plain' },
     tooltip: {
       trigger: 'axis',
       valueFormatter: (v: unknown) => (typeof v === 'number' ? `${(v / 1e3).toPrecision(3)} kW/m³` : String(v)),
     },
-    grid: { left: 72, right: 24, top: 48, bottom: 56 },
+    // Two legend entries fit on a line of a half-width chart; leave room for every line.
+    grid: { left: 72, right: 24, top: 24 + 24 * Math.ceil(materials.length / 2), bottom: 56 },
     xAxis: {
       type: 'log',
       name: axis === 'frequency' ? 'Frequency (Hz)' : 'Peak-to-peak flux swing ΔB (T)',
       nameLocation: 'middle',
       nameGap: 32,
       axisLine: { lineStyle: { color: text } },
+      axisLabel: { color: text },
       splitLine: { show: true, lineStyle: { color: grid } },
     },
     yAxis: {
@@ -77,6 +79,7 @@ export function lossChartOptions(materials: readonly MaterialCurves[], axis: Swe
       nameLocation: 'middle',
       nameGap: 56,
       axisLine: { lineStyle: { color: text } },
+      axisLabel: { color: text },
       splitLine: { show: true, lineStyle: { color: grid } },
     },
     series,

@@ -47,9 +47,10 @@ export class MaterialLibrary {
   protected readonly mayUpload = computed(() => ['engineer', 'reviewer', 'admin'].includes(this.session.user()?.role ?? ''));
   protected readonly mayRetire = computed(() => ['reviewer', 'admin'].includes(this.session.user()?.role ?? ''));
   protected readonly columns = computed(() => [
-    'select', 'name', 'family', 'version', 'steinmetz', 'fit', 'provenance', 'createdBy', 'createdAt', 'state',
-    ...(this.mayRetire() ? ['actions'] : []),
+    'select', 'name', 'family', 'version', 'steinmetz', 'fit', 'provenance', 'createdBy', 'createdAt', 'state', 'actions',
   ]);
+  protected readonly historyColumns = ['version', 'steinmetz', 'fit', 'provenance', 'createdBy', 'createdAt'];
+  protected readonly history = signal<{ name: string; versions: LibraryMaterial[] } | null>(null);
   protected readonly importColumns = ['uploadedAt', 'fileName', 'uploadedBy', 'counts'];
   protected readonly dataSource = new MatTableDataSource<LibraryMaterial>([]);
   protected readonly filterText = signal('');
@@ -102,6 +103,10 @@ export class MaterialLibrary {
     this.notifier.info(`Imported: ${result.created} new, ${result.versioned} new versions, ${result.skipped} skipped.`);
     this.materials.reload();
     this.imports.reload();
+  }
+
+  protected showHistory(material: LibraryMaterial): void {
+    this.api.history(material.id).subscribe((versions) => this.history.set({ name: material.name, versions }));
   }
 
   protected setRetired(material: LibraryMaterial, retired: boolean): void {

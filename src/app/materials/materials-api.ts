@@ -97,6 +97,10 @@ export class MaterialsApi {
     );
   }
 
+  history(id: string): Observable<LibraryMaterial[]> {
+    return this.http.get<{ versions: LibraryMaterial[] }>(`/api/materials/${id}/history`).pipe(map((body) => body.versions));
+  }
+
   setRetired(id: string, retired: boolean): Observable<LibraryMaterial> {
     return this.http.post<LibraryMaterial>(`/api/materials/${id}/${retired ? 'retire' : 'unretire'}`, {});
   }
