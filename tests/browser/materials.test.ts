@@ -90,7 +90,7 @@ describe('material library, comparison and cores', () => {
 
     await page.getByRole('button', { name: 'Add a ring core from its dimensions' }).click();
     await page.getByRole('button', { name: 'Add the ring core' }).click();
-    await page.getByText('Enter a name, e.g. "Lab ring 25/15/10"').waitFor();
+    await page.getByText('Enter a name', { exact: true }).waitFor();
     expect(await seriousAxeFindings(page)).toEqual([]);
     await page.getByLabel('Name', { exact: true }).fill('Lab ring 25/15/10');
     await page.getByLabel('Outer diameter (mm)').fill('25');

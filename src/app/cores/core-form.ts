@@ -1,5 +1,5 @@
-import { ChangeDetectionStrategy, Component, inject, output, signal } from '@angular/core';
-import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
+import { ChangeDetectionStrategy, Component, inject, output, signal, viewChild } from '@angular/core';
+import { FormControl, FormGroup, FormGroupDirective, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
@@ -19,6 +19,7 @@ const MM = 1e-3;
 })
 export class CoreForm {
   private readonly api = inject(CoresApi);
+  private readonly formDirective = viewChild.required(FormGroupDirective);
   readonly created = output<CatalogueCore>();
 
   protected readonly form = new FormGroup({
@@ -56,7 +57,7 @@ export class CoreForm {
       .subscribe({
         next: (core) => {
           this.submitting.set(false);
-          this.form.reset();
+          this.formDirective().resetForm({ family: 'POWDER_TOROID', source: '', name: '' });
           this.created.emit(core);
         },
         error: (error: unknown) => {

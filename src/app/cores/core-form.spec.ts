@@ -1,0 +1,74 @@
+import { provideHttpClient } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { provideZonelessChangeDetection } from '@angular/core';
+import { TestBed, type ComponentFixture } from '@angular/core/testing';
+import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+
+import { CoreForm } from './core-form';
+
+describe('CoreForm', () => {
+  let fixture: ComponentFixture<CoreForm>;
+  let http: HttpTestingController;
+  let page: HTMLElement;
+
+  beforeEach(async () => {
+    TestBed.configureTestingModule({
+      providers: [provideZonelessChangeDetection(), provideHttpClient(), provideHttpClientTesting()],
+    });
+    http = TestBed.inject(HttpTestingController);
+    fixture = TestBed.createComponent(CoreForm);
+    page = fixture.nativeElement as HTMLElement;
+    await fixture.whenStable();
+  });
+
+  afterEach(() => http.verify());
+
+  function type(label: string, value: string): void {
+    const labelElement = [...page.querySelectorAll('label')].find((each) => each.textContent?.replace('*', '').trim() === label);
+    const input = page.querySelector<HTMLInputElement>(`#${labelElement?.htmlFor}`);
+    if (!input) throw new Error(`No field labelled ${label}`);
+    input.value = value;
+    input.dispatchEvent(new Event('input'));
+  }
+
+  async function submit(): Promise<void> {
+    page.querySelector<HTMLButtonElement>('button[type="submit"]')!.click();
+    await fixture.whenStable();
+  }
+
+  const errorTexts = () => [...page.querySelectorAll('mat-error')].map((each) => each.textContent?.trim());
+
+  it('names each missing field and sends nothing', async () => {
+    await submit();
+    http.expectNone('/api/catalogue/cores');
+    expect(errorTexts()).toEqual(['Enter a name', 'Required', 'Required', 'Required']);
+  });
+
+  it('refuses an inner diameter not below the outer one', async () => {
+    type('Name', 'Ring');
+    type('Outer diameter (mm)', '10');
+    type('Inner diameter (mm)', '12');
+    type('Height (mm)', '5');
+    await submit();
+    http.expectNone('/api/catalogue/cores');
+    expect(errorTexts()).toEqual(['Must be smaller than the outer diameter']);
+  });
+
+  it('sends the dimensions in metres and shows the server’s field message', async () => {
+    type('Name', 'ETD34/17/11');
+    type('Outer diameter (mm)', '25');
+    type('Inner diameter (mm)', '15');
+    type('Height (mm)', '10');
+    await submit();
+    const request = http.expectOne('/api/catalogue/cores');
+    expect(request.request.body).toEqual({
+      kind: 'ring', name: 'ETD34/17/11', family: 'POWDER_TOROID', outerDiameter: 0.025, innerDiameter: 0.015, height: 0.01, source: '',
+    });
+    request.flush(
+      { error: { code: 'conflict', message: 'A shipped core.', fields: { name: 'Name of a shipped core' } } },
+      { status: 409, statusText: 'Conflict' },
+    );
+    await fixture.whenStable();
+    expect(errorTexts()).toEqual(['Name of a shipped core']);
+  });
+});
