@@ -49,6 +49,22 @@ export const routes: Routes = [
         loadChildren: () => import('./designs/designs.routes'),
       },
       {
+        path: 'inbox',
+        title: 'Waiting for me · Gapwright',
+        loadComponent: () => import('./inbox/inbox-page').then((m) => m.InboxPage),
+      },
+      {
+        path: 'review',
+        title: 'Review and release · Gapwright',
+        canActivate: [roleGuard(['reviewer'])],
+        loadComponent: () => import('./review/review-page').then((m) => m.ReviewPage),
+      },
+      {
+        path: 'shop',
+        canActivate: [roleGuard(['winder', 'reviewer', 'engineer', 'admin'])],
+        loadChildren: () => import('./shop/shop.routes'),
+      },
+      {
         path: 'admin',
         canActivate: [roleGuard(['admin'])],
         loadChildren: () => import('./admin/admin.routes'),

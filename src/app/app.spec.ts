@@ -1,5 +1,5 @@
 import { provideHttpClient } from '@angular/common/http';
-import { provideHttpClientTesting } from '@angular/common/http/testing';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { provideZonelessChangeDetection } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
@@ -33,13 +33,13 @@ describe('App shell', () => {
   it('shows an engineer Home but not Users or Audit log', async () => {
     const page = await renderSignedInAs('engineer');
 
-    expect(navigationLabels(page)).toEqual(['Home', 'Designs']);
+    expect(navigationLabels(page)).toEqual(['Home', 'Designs', 'Winding shop', 'Measured vs predicted']);
   });
 
   it('shows an admin Users and Audit log', async () => {
     const page = await renderSignedInAs('admin');
 
-    expect(navigationLabels(page)).toEqual(['Home', 'Designs', 'Users', 'Audit log']);
+    expect(navigationLabels(page)).toEqual(['Home', 'Designs', 'Winding shop', 'Measured vs predicted', 'Users', 'Audit log', 'Outbox', 'Settings']);
   });
 
   it("puts the user's display name and role in the account menu button", async () => {
@@ -48,6 +48,24 @@ describe('App shell', () => {
     const button = page.querySelector('button[aria-label="Account menu"]');
     expect(button?.textContent).toContain('Sample Person');
     expect(button?.textContent).toContain('Reviewer');
+  });
+
+  it('counts what waits for me on the toolbar inbox button', async () => {
+    TestBed.inject(Session).replaceUser(userWithRole('winder'));
+    const fixture = TestBed.createComponent(App);
+    await fixture.whenStable();
+    TestBed.inject(HttpTestingController)
+      .expectOne('/api/inbox')
+      .flush({
+        items: [
+          { kind: 'build', label: 'Build BO-0001', designId: 1, orderId: 1, since: '2026-01-01T00:00:00.000Z' },
+          { kind: 'build', label: 'Build BO-0002', designId: 2, orderId: 2, since: '2026-01-01T00:00:00.000Z' },
+        ],
+      });
+    await fixture.whenStable();
+
+    const page = fixture.nativeElement as HTMLElement;
+    expect(page.querySelector('a[aria-label="Waiting for me: 2"]')?.getAttribute('href')).toBe('/inbox');
   });
 
   it('shows no navigation or account menu to a signed-out visitor, but the caution and theme toggle', async () => {

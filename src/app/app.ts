@@ -12,6 +12,7 @@ import { map } from 'rxjs';
 
 import { CautionLine } from './caution-line/caution-line';
 import { navigationFor } from './core/navigation';
+import { InboxBadge } from './inbox/inbox-badge';
 import { ROLE_LABELS } from './core/roles';
 import { Session } from './core/session';
 import { ThemeSwitcher } from './core/theme-switcher';
@@ -23,6 +24,7 @@ const NARROW_SCREEN = '(max-width: 959.98px)';
   selector: 'gw-root',
   imports: [
     CautionLine,
+    InboxBadge,
     MatButtonModule,
     MatIconModule,
     MatListModule,

@@ -12,4 +12,14 @@ export default [
     title: 'Audit log · Gapwright',
     loadComponent: () => import('./audit/audit-log').then((m) => m.AuditLog),
   },
+  {
+    path: 'outbox',
+    title: 'Outbox · Gapwright',
+    loadComponent: () => import('./outbox/outbox').then((m) => m.Outbox),
+  },
+  {
+    path: 'settings',
+    title: 'Settings · Gapwright',
+    loadComponent: () => import('./settings/settings').then((m) => m.Settings),
+  },
 ] satisfies Routes;

@@ -14,12 +14,12 @@ describe('navigationFor', () => {
   });
 
   it('gives an admin Home, Users and Audit log', () => {
-    expect(labelsFor('admin')).toEqual(['Home', 'Designs', 'Users', 'Audit log']);
+    expect(labelsFor('admin')).toEqual(['Home', 'Designs', 'Winding shop', 'Measured vs predicted', 'Users', 'Audit log', 'Outbox', 'Settings']);
   });
 
-  it('gives reviewers and winders only what every role may use', () => {
-    expect(labelsFor('reviewer')).toEqual(['Home', 'Designs']);
-    expect(labelsFor('winder')).toEqual(['Home']);
+  it('gives reviewers the review page and winders only the winding shop', () => {
+    expect(labelsFor('reviewer')).toEqual(['Home', 'Designs', 'Review', 'Winding shop', 'Measured vs predicted']);
+    expect(labelsFor('winder')).toEqual(['Home', 'Winding shop']);
   });
 
   it('gives a signed-out visitor nothing', () => {
@@ -29,7 +29,7 @@ describe('navigationFor', () => {
   it('keeps an item only for the roles it names', () => {
     const items = [...NAVIGATION, { label: 'Shop queue', icon: 'build', path: '/shop', roles: ['winder'] as const }];
 
-    expect(navigationFor('winder', items).map((item) => item.label)).toEqual(['Home', 'Shop queue']);
-    expect(navigationFor('engineer', items).map((item) => item.label)).toEqual(['Home', 'Designs']);
+    expect(navigationFor('winder', items).map((item) => item.label)).toEqual(['Home', 'Winding shop', 'Shop queue']);
+    expect(navigationFor('engineer', items).map((item) => item.label)).toEqual(['Home', 'Designs', 'Winding shop', 'Measured vs predicted']);
   });
 });

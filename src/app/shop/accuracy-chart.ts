@@ -1,0 +1,34 @@
+import type { EChartsCoreOption } from 'echarts/core';
+
+import type { PredictionSample } from './shop-api';
+
+/** Scatter of measured/predicted inductance (x) against measured/predicted DCR (y); 1 is a perfect prediction. */
+export function accuracyChartOptions(units: readonly PredictionSample[]): EChartsCoreOption {
+  const point = (u: PredictionSample) => ({
+    value: [u.inductanceRatio, u.resistanceRatio],
+    name: `${u.orderNumber} · ${u.designNumber} rev ${u.revision}`,
+  });
+  return {
+    animation: false,
+    title: { text: 'Measured ÷ predicted', left: 'center', textStyle: { fontSize: 14 } },
+    tooltip: {
+      trigger: 'item',
+      formatter: (p: { name: string; value: [number, number] }) =>
+        `${p.name}<br/>L ratio ${p.value[0].toFixed(3)}<br/>DCR ratio ${p.value[1].toFixed(3)}`,
+    },
+    legend: { bottom: 0 },
+    grid: { left: 64, right: 24, top: 40, bottom: 64 },
+    xAxis: { type: 'value', name: 'Inductance, measured ÷ predicted', nameLocation: 'middle', nameGap: 28, scale: true },
+    yAxis: { type: 'value', name: 'DCR at 20 °C, measured ÷ predicted', nameLocation: 'middle', nameGap: 44, scale: true },
+    series: [
+      {
+        name: 'Passed',
+        type: 'scatter',
+        symbolSize: 10,
+        data: units.filter((u) => u.passed).map(point),
+        markLine: { silent: true, symbol: 'none', lineStyle: { type: 'dashed' }, data: [{ xAxis: 1 }, { yAxis: 1 }] },
+      },
+      { name: 'Failed', type: 'scatter', symbol: 'diamond', symbolSize: 12, data: units.filter((u) => !u.passed).map(point) },
+    ],
+  };
+}

@@ -1,0 +1,58 @@
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatTabsModule } from '@angular/material/tabs';
+
+import { OrderTable } from './order-table';
+import { ShopApi, type OrderSummary } from './shop-api';
+
+/** The winding shop's queue: open build orders first, completed ones on a second tab. */
+@Component({
+  selector: 'gw-order-queue',
+  imports: [MatProgressBarModule, MatTabsModule, OrderTable],
+  template: `
+    <div class="gw-page">
+      <h1>Winding shop</h1>
+      <p class="gw-caution-box">{{ caution }}</p>
+      @if (loading()) {
+        <mat-progress-bar mode="indeterminate" aria-label="Loading build orders" />
+      }
+      <mat-tab-group>
+        <mat-tab [label]="'Open (' + open().length + ')'">
+          <gw-order-table [orders]="open()" caption="Open build orders" empty="No open build orders." />
+        </mat-tab>
+        <mat-tab [label]="'Completed (' + complete().length + ')'">
+          <gw-order-table [orders]="complete()" caption="Completed build orders" empty="No completed build orders yet." />
+        </mat-tab>
+      </mat-tab-group>
+    </div>
+  `,
+  styles: `
+    .gw-caution-box {
+      border: 1px solid var(--mat-sys-outline);
+      padding: 8px 12px;
+      max-width: 80ch;
+    }
+  `,
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class OrderQueue {
+  protected readonly caution =
+    'Build orders come from released revisions; every sheet is an engineering estimate. Build and test a prototype ' +
+    '(inductance against DC current, temperature rise) before quantity builds, and treat ferrite cores as live unless insulated.';
+  private readonly orders = signal<OrderSummary[]>([]);
+  protected readonly loading = signal(true);
+  protected readonly open = computed(() => this.orders().filter((o) => o.status === 'open'));
+  protected readonly complete = computed(() => this.orders().filter((o) => o.status === 'complete'));
+
+  constructor() {
+    inject(ShopApi)
+      .orders('all')
+      .subscribe({
+        next: ({ orders }) => {
+          this.orders.set(orders);
+          this.loading.set(false);
+        },
+        error: () => this.loading.set(false),
+      });
+  }
+}

@@ -1,0 +1,99 @@
+import { provideHttpClient } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { provideZonelessChangeDetection } from '@angular/core';
+import { TestBed, type ComponentFixture } from '@angular/core/testing';
+import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+
+import { RecordUnitForm } from './record-unit-form';
+import type { RecordedUnit } from './shop-api';
+
+describe('RecordUnitForm', () => {
+  let fixture: ComponentFixture<RecordUnitForm>;
+  let http: HttpTestingController;
+  let page: HTMLElement;
+
+  beforeEach(async () => {
+    TestBed.configureTestingModule({
+      providers: [provideZonelessChangeDetection(), provideHttpClient(), provideHttpClientTesting()],
+    });
+    http = TestBed.inject(HttpTestingController);
+    fixture = TestBed.createComponent(RecordUnitForm);
+    fixture.componentRef.setInput('orderId', 5);
+    fixture.componentRef.setInput('testFrequency', 10e3);
+    page = fixture.nativeElement as HTMLElement;
+    await fixture.whenStable();
+  });
+
+  afterEach(() => http.verify());
+
+  function type(label: string, value: string): void {
+    const labelElement = [...page.querySelectorAll('label')].find((each) => each.textContent?.trim().replace(/\s*\*$/, '') === label);
+    const input = page.querySelector<HTMLInputElement>(`#${labelElement?.htmlFor}`);
+    if (!input) throw new Error(`No field labelled ${label}`);
+    input.value = value;
+    input.dispatchEvent(new Event('input'));
+    input.dispatchEvent(new Event('blur'));
+  }
+
+  async function chooseHipot(value: 'pass' | 'fail' | 'not_tested'): Promise<void> {
+    // The select's options live in an overlay; setting the control is what a choice does.
+    (fixture.componentInstance as unknown as { form: { controls: { hipot: { setValue(v: string): void } } } }).form.controls.hipot.setValue(value);
+    await fixture.whenStable();
+  }
+
+  const submit = async () => {
+    page.querySelector<HTMLButtonElement>('button[type="submit"]')!.click();
+    await fixture.whenStable();
+  };
+  const errorTexts = () => [...page.querySelectorAll('mat-error')].map((each) => each.textContent?.trim());
+
+  it('fills in the sheet test frequency and 20 °C, and says what is missing under each field without sending', async () => {
+    const inputs = [...page.querySelectorAll<HTMLInputElement>('input')];
+    expect(inputs.map((i) => i.value)).toEqual(['', '10 kHz', '', '20 °C']);
+
+    await submit();
+
+    http.expectNone('/api/shop/orders/5/units');
+    expect(errorTexts()).toEqual(['Measured inductance is required', 'DC resistance is required', 'Choose pass, fail or not tested']);
+  });
+
+  it('sends the measurements in SI units and tells the page about the recorded unit', async () => {
+    let recorded: RecordedUnit | undefined;
+    fixture.componentInstance.recorded.subscribe((r) => (recorded = r));
+    type('Measured inductance', '98.5 uH');
+    type('DC resistance', '41 mOhm');
+    type('Temperature at the DCR reading', '25 °C');
+    await chooseHipot('pass');
+    await submit();
+
+    const request = http.expectOne('/api/shop/orders/5/units');
+    const body = request.request.body as Record<string, number | string>;
+    // micro = 1e-6, milli = 1e-3, kilo = 1e3 (BIPM SI Brochure, 9th ed., Table 7 — from memory).
+    expect(body['inductance']).toBeCloseTo(98.5e-6, 12);
+    expect(body['testFrequency']).toBe(10e3);
+    expect(body['resistance']).toBeCloseTo(41e-3, 12);
+    expect(body['resistanceTemperature']).toBe(25);
+    expect(body['hipot']).toBe('pass');
+    expect(body).not.toHaveProperty('notes');
+    request.flush({ unit: { unitNumber: 1, passed: true }, orderStatus: 'open', passedUnits: 1 });
+    await fixture.whenStable();
+
+    expect(recorded?.unit.unitNumber).toBe(1);
+    expect(page.querySelector<HTMLInputElement>('input')!.value).toBe('');
+  });
+
+  it("puts the server's field message under the field it names", async () => {
+    type('Measured inductance', '98.5 uH');
+    type('DC resistance', '41 mOhm');
+    await chooseHipot('not_tested');
+    await submit();
+
+    http.expectOne('/api/shop/orders/5/units').flush(
+      { error: { code: 'validation', message: 'Some fields need attention', fields: { testFrequency: 'testFrequency must be between 10 and 10000000 Hz' } } },
+      { status: 400, statusText: 'Bad Request' },
+    );
+    await fixture.whenStable();
+
+    expect(errorTexts()).toEqual(['testFrequency must be between 10 and 10000000 Hz']);
+  });
+});
