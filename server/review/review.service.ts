@@ -1,10 +1,10 @@
-import type { EvaluationResult } from '@shared/engine/index';
 import type { Role } from '@shared/schemas/auth';
 import type { AuditService } from '../audit/audit.service.ts';
 import type { Actor } from '../http/access.ts';
 import { AppError, badRequest, forbidden, notFound } from '../http/errors.ts';
 import type { ShopService } from '../shop/shop.service.ts';
 import type { DesignRow, ReviewRepository, RevisionRow, Tx } from './review.repository.ts';
+import { storedEvaluation } from './stored-evaluation.ts';
 
 type Status = RevisionRow['status'];
 const REVIEW_ROLES: Role[] = ['reviewer'];
@@ -58,7 +58,7 @@ export class ReviewService {
       (revision, design) => {
         if (design.ownerId !== actor.id) throw forbidden('Only the design owner can submit it for review.');
         if (revision.status !== 'draft') throw stateConflict(revision, 'submitted', ['draft']);
-        const result = revision.result as EvaluationResult | null;
+        const result = storedEvaluation(revision.result);
         if (!result || !revision.construction) {
           throw badRequest('Choose and save a construction (core, material, turns, gap, wire) before submitting.', { construction: 'No saved construction' });
         }

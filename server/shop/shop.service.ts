@@ -1,4 +1,3 @@
-import type { EvaluationResult } from '@shared/engine/index';
 import type { UnitMeasurementRequest } from '@shared/schemas/review';
 import { judgeUnit } from '@shared/shop/measurement';
 import type { WindingSheet } from '@shared/shop/sheet';
@@ -8,6 +7,7 @@ import type { Actor } from '../http/access.ts';
 import { AppError, notFound } from '../http/errors.ts';
 import type { MailDeliveryService, OutgoingMail } from '../mail/mail-delivery.service.ts';
 import type { DesignRow, RevisionRow, Tx } from '../review/review.repository.ts';
+import { storedEvaluation } from '../review/stored-evaluation.ts';
 import { summariseRatios } from './prediction-error.ts';
 import { renderSheetPdf } from './sheet-pdf.ts';
 import type { ShopRepository } from './shop.repository.ts';
@@ -35,7 +35,8 @@ export class ShopService {
   /** Called inside the release transaction: the sheet is built now and never recomputed. */
   async createOrder(tx: Tx, input: { revision: RevisionRow; design: DesignRow; quantity: number; releasedAt: Date; releasedBy: number }) {
     const { revision, design } = input;
-    const result = revision.result as EvaluationResult;
+    const result = storedEvaluation(revision.result);
+    if (!result) throw new AppError(409, 'no_result', 'The revision has no saved engine result to build a winding sheet from.');
     const spec = (revision.spec ?? {}) as StoredSpec;
     const number = await this.repo.nextOrderNumber(tx);
     const core = this.catalogue.cores().find((c) => c.id === result.core.id);
@@ -172,13 +173,13 @@ export class ShopService {
     const rows = await this.repo.measuredAgainstPredicted();
     const samples = rows.map((r) => {
       const sheet = r.sheet as WindingSheet;
-      const result = r.result as EvaluationResult;
+      const result = storedEvaluation(r.result);
       return {
         orderNumber: r.orderNumber,
         designNumber: r.designNumber,
         revision: r.revision,
         material: sheet.parts.coreMaterial,
-        core: result.core.id,
+        core: result?.core.id ?? 'unknown',
         predictedInductance: sheet.predicted.inductanceNominal,
         measuredInductance: r.inductance,
         predictedResistance20: sheet.predicted.resistance20,

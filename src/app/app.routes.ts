@@ -60,6 +60,12 @@ export const routes: Routes = [
         loadComponent: () => import('./review/review-page').then((m) => m.ReviewPage),
       },
       {
+        path: 'review/revisions/:id',
+        title: 'Revision review · Gapwright',
+        canActivate: [roleGuard(['engineer', 'reviewer', 'admin'])],
+        loadComponent: () => import('./review/revision-page').then((m) => m.RevisionPage),
+      },
+      {
         path: 'shop',
         canActivate: [roleGuard(['winder', 'reviewer', 'engineer', 'admin'])],
         loadChildren: () => import('./shop/shop.routes'),
