@@ -196,7 +196,7 @@ export class DesignPanel {
       grid: { left: 56, right: 16, top: 32, bottom: 40 },
       legend: { top: 0 },
       tooltip: { trigger: 'axis' },
-      xAxis: { type: 'log', name: 'kHz', nameLocation: 'middle', nameGap: 24 },
+      xAxis: { type: 'log', name: 'kHz', nameLocation: 'middle', nameGap: 24, min: sweep[0].frequency / 1e3, max: sweep.at(-1)!.frequency / 1e3, axisLabel: { formatter: (v: number) => String(Math.round(v)) } },
       yAxis: { type: 'value', name: 'W' },
       series: [
         { ...series('Total', (p) => p.total), markLine: fs ? { symbol: 'none', data: [{ xAxis: fs / 1e3 }], label: { formatter: 'fs' } } : undefined },
