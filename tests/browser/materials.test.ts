@@ -59,7 +59,8 @@ describe('material library, comparison and cores', () => {
     expect(await seriousAxeFindings(page)).toEqual([]);
     await page.screenshot({ path: screenshotPath('compare-design'), fullPage: true });
     await context.close();
-  });
+    // A long walk through three screens with four axe scans; a busy machine needs more than the default minute.
+  }, 180_000);
 
   it('shows a hostile file’s problems by row and column and writes nothing', async () => {
     const { context, page } = await h.newPage();
@@ -103,7 +104,7 @@ describe('material library, comparison and cores', () => {
     await page.getByRole('cell', { name: '48.9', exact: true }).waitFor();
     await page.screenshot({ path: screenshotPath('cores'), fullPage: true });
     await context.close();
-  });
+  }, 120_000);
 });
 
 describe('the new screens in the dark theme (axe)', () => {
@@ -127,5 +128,5 @@ describe('the new screens in the dark theme (axe)', () => {
     expect(await seriousAxeFindings(page)).toEqual([]);
     await page.getByRole('button', { name: 'Switch to light theme' }).click();
     await context.close();
-  });
+  }, 120_000);
 });
