@@ -20,7 +20,7 @@ import { InboxApi } from './inbox-api';
       [matBadge]="count()"
       [matBadgeHidden]="count() === 0"
       matBadgeColor="warn"
-      matBadgeSize="small"
+      matBadgeSize="medium"
       aria-hidden="false"
     >
       <mat-icon aria-hidden="true">inbox</mat-icon>
