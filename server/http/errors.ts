@@ -24,6 +24,11 @@ export const conflict = (message: string, fields?: FieldErrors) => new AppError(
 export function fieldErrorsFromZod(error: ZodError): FieldErrors {
   const fields: FieldErrors = {};
   for (const issue of error.issues) {
+    if (issue.code === 'unrecognized_keys') {
+      // Name each field nobody asked for (mass assignment, typos) rather than the object holding it.
+      for (const key of issue.keys) fields[[...issue.path, key].join('.')] ??= `Unknown field "${key}"`;
+      continue;
+    }
     const key = issue.path.length ? issue.path.join('.') : '(body)';
     fields[key] ??= issue.message;
   }

@@ -17,9 +17,10 @@ export const parseBody = <S extends z.ZodType>(schema: S, req: Request): z.infer
 export const parseQuery = <S extends z.ZodType>(schema: S, req: Request): z.infer<S> => parseWith(schema, req.query);
 
 export function parseIdParam(req: Request, name = 'id'): number {
-  const raw = req.params[name];
-  const id = Number(raw);
-  if (!Number.isInteger(id) || id < 1 || id > 2_147_483_647) {
+  const raw = String(req.params[name] ?? '');
+  // Digits only: "1e3", " 7" or "0x10" are not ids even though Number() would read them.
+  const id = /^[1-9][0-9]{0,9}$/.test(raw) ? Number(raw) : NaN;
+  if (!Number.isInteger(id) || id > 2_147_483_647) {
     throw badRequest(`${name} must be a positive integer`, { [name]: 'Must be a positive integer' });
   }
   return id;

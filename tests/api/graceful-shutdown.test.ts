@@ -76,7 +76,9 @@ describe('SIGTERM during a slow request', () => {
     const user = DEMO_USERS.find((u) => u.role === 'engineer')!;
     const body = JSON.stringify({ username: user.username, password: user.password });
 
-    // A sign-in whose body arrives slowly: the request is in flight when the signal comes.
+    // A sign-in whose body arrives slowly: the request is in flight when the signal comes, and its
+    // body is finished only once the server has stopped accepting new connections.
+    let finishBody: () => void = () => {};
     const slow = new Promise<Reply>((resolve, reject) => {
       const req = http.request(
         {
@@ -94,12 +96,22 @@ describe('SIGTERM during a slow request', () => {
       );
       req.on('error', reject);
       req.write(body.slice(0, 10));
-      setTimeout(() => child.kill('SIGTERM'), 300);
-      setTimeout(() => req.end(body.slice(10)), 1500);
+      finishBody = () => req.end(body.slice(10));
     });
 
-    await new Promise((r) => setTimeout(r, 800));
-    await expect(request(port, 'GET', '/api/health')).rejects.toMatchObject({ code: 'ECONNREFUSED' });
+    await new Promise((r) => setTimeout(r, 200));
+    child.kill('SIGTERM');
+    let refused = false;
+    for (let i = 0; i < 100 && !refused; i++) {
+      refused = await request(port, 'GET', '/api/health').then(
+        () => false,
+        (err: NodeJS.ErrnoException) => err.code === 'ECONNREFUSED',
+      );
+      if (!refused) await new Promise((r) => setTimeout(r, 100));
+    }
+    expect(refused).toBe(true);
+    expect(child.exitCode).toBeNull(); // still draining the slow request
+    finishBody();
 
     const reply = await slow;
     expect(reply.status).toBe(200);
