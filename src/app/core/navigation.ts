@@ -14,7 +14,6 @@ export const NAVIGATION: readonly NavigationItem[] = [
   { label: 'Designs', icon: 'design_services', path: '/designs', roles: ['engineer', 'reviewer', 'admin'] },
   { label: 'Review', icon: 'rate_review', path: '/review', roles: ['reviewer'] },
   { label: 'Winding shop', icon: 'precision_manufacturing', path: '/shop', roles: ['winder', 'reviewer', 'engineer', 'admin'] },
-  { label: 'Measured vs predicted', icon: 'scatter_plot', path: '/shop/accuracy', roles: ['engineer', 'reviewer', 'admin'] },
   { label: 'Users', icon: 'group', path: '/admin/users', roles: ['admin'] },
   { label: 'Audit log', icon: 'history', path: '/admin/audit', roles: ['admin'] },
   { label: 'Outbox', icon: 'outbox', path: '/admin/outbox', roles: ['admin'] },

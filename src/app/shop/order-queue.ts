@@ -1,6 +1,11 @@
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { MatButtonModule } from '@angular/material/button';
+import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatTabsModule } from '@angular/material/tabs';
+import { RouterLink } from '@angular/router';
+
+import { Session } from '../core/session';
 
 import { OrderTable } from './order-table';
 import { ShopApi, type OrderSummary } from './shop-api';
@@ -8,11 +13,16 @@ import { ShopApi, type OrderSummary } from './shop-api';
 /** The winding shop's queue: open build orders first, completed ones on a second tab. */
 @Component({
   selector: 'gw-order-queue',
-  imports: [MatProgressBarModule, MatTabsModule, OrderTable],
+  imports: [MatButtonModule, MatIconModule, MatProgressBarModule, MatTabsModule, OrderTable, RouterLink],
   template: `
     <div class="gw-page">
       <h1>Winding shop</h1>
       <p class="gw-caution-box">{{ caution }}</p>
+      @if (seesAccuracy()) {
+        <p>
+          <a mat-stroked-button routerLink="/shop/accuracy"><mat-icon aria-hidden="true">scatter_plot</mat-icon> Measured versus predicted</a>
+        </p>
+      }
       @if (loading()) {
         <mat-progress-bar mode="indeterminate" aria-label="Loading build orders" />
       }
@@ -39,6 +49,8 @@ export class OrderQueue {
   protected readonly caution =
     'Build orders come from released revisions; every sheet is an engineering estimate. Build and test a prototype ' +
     '(inductance against DC current, temperature rise) before quantity builds, and treat ferrite cores as live unless insulated.';
+  private readonly role = inject(Session).role;
+  protected readonly seesAccuracy = computed(() => this.role() !== null && this.role() !== 'winder');
   private readonly orders = signal<OrderSummary[]>([]);
   protected readonly loading = signal(true);
   protected readonly open = computed(() => this.orders().filter((o) => o.status === 'open'));

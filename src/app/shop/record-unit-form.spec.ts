@@ -80,6 +80,8 @@ describe('RecordUnitForm', () => {
 
     expect(recorded?.unit.unitNumber).toBe(1);
     expect(page.querySelector<HTMLInputElement>('input')!.value).toBe('');
+    // Ready for the next unit: emptied, not flagged.
+    expect(errorTexts()).toEqual([]);
   });
 
   it("puts the server's field message under the field it names", async () => {

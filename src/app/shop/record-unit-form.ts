@@ -1,5 +1,5 @@
-import { ChangeDetectionStrategy, Component, effect, inject, input, output, signal } from '@angular/core';
-import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
+import { ChangeDetectionStrategy, Component, effect, inject, input, output, signal, viewChild } from '@angular/core';
+import { FormControl, FormGroup, FormGroupDirective, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
@@ -73,6 +73,7 @@ type Hipot = UnitMeasurementRequest['hipot'];
 })
 export class RecordUnitForm {
   private readonly api = inject(ShopApi);
+  private readonly formDirective = viewChild.required(FormGroupDirective);
 
   readonly orderId = input.required<number>();
   /** The sheet's test frequency (Hz), filled in so the winder only changes it when the meter differs. */
@@ -117,7 +118,8 @@ export class RecordUnitForm {
       next: (recorded) => {
         this.busy.set(false);
         const frequency = v.testFrequency;
-        this.form.reset({ resistanceTemperature: v.resistanceTemperature, testFrequency: frequency, hipot: null, notes: '' });
+        // resetForm also clears the submitted state, so the emptied fields do not show errors.
+        this.formDirective().resetForm({ resistanceTemperature: v.resistanceTemperature, testFrequency: frequency, hipot: null, notes: '' });
         this.recorded.emit(recorded);
       },
       error: (error: unknown) => {
