@@ -17,7 +17,7 @@ import type { OrderSummary } from './shop-api';
         <caption class="gw-visually-hidden">{{ caption() }}</caption>
         <ng-container matColumnDef="number">
           <th mat-header-cell *matHeaderCellDef mat-sort-header>Order</th>
-          <td mat-cell *matCellDef="let order"><a [routerLink]="['/shop/orders', order.id]">{{ order.number }}</a></td>
+          <td mat-cell *matCellDef="let order" class="gw-nowrap"><a [routerLink]="['/shop/orders', order.id]">{{ order.number }}</a></td>
         </ng-container>
         <ng-container matColumnDef="designNumber">
           <th mat-header-cell *matHeaderCellDef mat-sort-header>Design</th>
@@ -47,6 +47,11 @@ import type { OrderSummary } from './shop-api';
       </table>
     </div>
     <mat-paginator [pageSizeOptions]="[10, 25, 50]" [pageSize]="25" [attr.aria-label]="'Pages of ' + caption()" />
+  `,
+  styles: `
+    .gw-nowrap {
+      white-space: nowrap;
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
