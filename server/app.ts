@@ -99,18 +99,6 @@ export function createApp(deps: AppDeps) {
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', config.trustProxy);
-  app.locals['recordDenial'] = (req: Request, err: AppError) => {
-    audit
-      .record({
-        actorId: req.user?.id ?? null,
-        action: 'access.denied',
-        target: `${req.method} ${req.originalUrl.split('?')[0]}`.slice(0, 200),
-        details: { status: err.status, role: req.user?.role ?? 'anonymous' },
-        ip: req.ip,
-      })
-      .catch((e: unknown) => logger.warn({ err: e }, 'could not record an access denial'));
-  };
-
   app.use(
     pinoHttp({
       logger,
@@ -154,10 +142,21 @@ export function createApp(deps: AppDeps) {
   app.use('/api', api);
 
   app.use(staticAppRouter(config.staticDir));
+  const recordRefusal = (req: Request, err: AppError) => {
+    audit
+      .record({
+        actorId: req.user?.id ?? null,
+        action: 'access.denied',
+        target: `${req.method} ${req.originalUrl.split('?')[0]}`.slice(0, 200),
+        details: { status: err.status, role: req.user?.role ?? 'anonymous', reason: err.message },
+        ip: req.ip,
+      })
+      .catch((e: unknown) => logger.warn({ err: e }, 'could not record an access refusal'));
+  };
   app.use(
     errorMiddleware((err, status) => {
       if (status >= 500) logger.error({ err }, 'request failed');
-    }),
+    }, recordRefusal),
   );
 
   return {

@@ -26,7 +26,8 @@ import { diffObjects } from './flatten.ts';
 import type { DesignWithOwner, DesignsRepository, NewRevisionRow, RevisionRow } from './designs.repository.ts';
 
 /** Roles that may create and edit designs of their own. */
-export const DESIGNER_ROLES: readonly Role[] = ['engineer', 'admin'];
+// Reviewers may do everything engineers may (product brief); admins keep the site and do not design.
+export const DESIGNER_ROLES: readonly Role[] = ['engineer', 'reviewer'];
 
 export interface EvaluatedConstruction {
   construction: Construction;
@@ -229,7 +230,7 @@ export class DesignsService {
   }
 
   private mustDesign(actor: Actor): void {
-    if (!DESIGNER_ROLES.includes(actor.role)) throw forbidden(`Only engineers create and edit designs; you are signed in as ${actor.role}.`);
+    if (!DESIGNER_ROLES.includes(actor.role)) throw forbidden(`Only engineers and reviewers create and edit designs; you are signed in as ${actor.role}.`);
   }
 
   private mustOwn(actor: Actor, design: DesignWithOwner): void {
@@ -277,6 +278,7 @@ function revisionValues(
 function revisionSummary(row: RevisionRow): RevisionSummary {
   const evaluation = (row.result as StoredResult | null)?.evaluation as EvaluationResult | undefined;
   return {
+    id: row.id,
     revision: row.revision,
     status: row.status,
     engineVersion: row.engineVersion,

@@ -1,6 +1,6 @@
 import type { NextFunction, Request, RequestHandler, Response } from 'express';
 import type { Role } from '@shared/schemas/auth';
-import { AppError, forbidden, unauthorized } from './errors.ts';
+import { forbidden, unauthorized } from './errors.ts';
 
 /** The signed-in user as the server sees it on each request (loaded fresh from the database). */
 export interface Actor {
@@ -18,24 +18,17 @@ declare global {
   }
 }
 
-export type DenialRecorder = (req: Request, err: AppError) => void;
-
-/** The app puts a recorder in app.locals.recordDenial so every refusal reaches the audit log. */
-function deny(req: Request, next: NextFunction, err: AppError): void {
-  (req.app.locals['recordDenial'] as DenialRecorder | undefined)?.(req, err);
-  next(err);
-}
-
+// Refusals are passed on as errors; the error middleware writes each one to the audit log.
 export const requireSignIn: RequestHandler = (req, _res, next) => {
-  if (!req.user) return deny(req, next, unauthorized());
+  if (!req.user) return next(unauthorized());
   next();
 };
 
 export function requireRole(...roles: Role[]): RequestHandler {
   return (req: Request, _res: Response, next: NextFunction) => {
-    if (!req.user) return deny(req, next, unauthorized());
+    if (!req.user) return next(unauthorized());
     if (!roles.includes(req.user.role)) {
-      return deny(req, next, forbidden(`This needs the role ${roles.join(' or ')}; you are signed in as ${req.user.role}.`));
+      return next(forbidden(`This needs the role ${roles.join(' or ')}; you are signed in as ${req.user.role}.`));
     }
     next();
   };

@@ -1,4 +1,4 @@
-import type { ErrorRequestHandler, RequestHandler } from 'express';
+import type { ErrorRequestHandler, Request, RequestHandler } from 'express';
 import { ZodError } from 'zod';
 
 export type FieldErrors = Record<string, string>;
@@ -63,9 +63,16 @@ function isDatabaseUnavailable(err: unknown): boolean {
   return /timeout exceeded when trying to connect|Connection terminated|connect ECONNREFUSED/i.test(err.message);
 }
 
-/** The one error shape: { error: { code, message, fields? } }. Never a stack trace. */
-export function errorMiddleware(log: (err: unknown, status: number) => void): ErrorRequestHandler {
-  return (err, _req, res, _next) => {
+/**
+ * The one error shape: { error: { code, message, fields? } }. Never a stack trace. Every refusal
+ * (401/403), wherever it was raised — a route guard or an ownership rule in a service — is reported
+ * to `onRefused` so it reaches the audit log.
+ */
+export function errorMiddleware(
+  log: (err: unknown, status: number) => void,
+  onRefused: (req: Request, err: AppError) => void = () => {},
+): ErrorRequestHandler {
+  return (err, req, res, _next) => {
     let status = 500;
     let body: { code: string; message: string; fields?: FieldErrors };
     const h = err as HttpishError;
@@ -95,6 +102,7 @@ export function errorMiddleware(log: (err: unknown, status: number) => void): Er
       body = { code: 'internal_error', message: 'Something went wrong on the server. It has been logged.' };
     }
     log(err, status);
+    if (err instanceof AppError && (status === 401 || status === 403)) onRefused(req, err);
     if (res.headersSent) return;
     res.status(status).json({ error: body });
   };

@@ -152,6 +152,8 @@ export interface DesignListResponse {
 }
 
 export interface RevisionSummary {
+  /** Database id of the revision: the review and release routes address revisions by it. */
+  id: number;
   revision: number;
   status: DesignStatus;
   engineVersion: string | null;

@@ -33,13 +33,13 @@ describe('App shell', () => {
   it('shows an engineer Home but not Users or Audit log', async () => {
     const page = await renderSignedInAs('engineer');
 
-    expect(navigationLabels(page)).toEqual(['Home', 'Designs', 'Winding shop']);
+    expect(navigationLabels(page)).toEqual(['Home', 'Designs', 'Materials', 'Cores', 'Compare', 'Winding shop']);
   });
 
   it('shows an admin Users and Audit log', async () => {
     const page = await renderSignedInAs('admin');
 
-    expect(navigationLabels(page)).toEqual(['Home', 'Designs', 'Winding shop', 'Users', 'Audit log', 'Outbox', 'Settings']);
+    expect(navigationLabels(page)).toEqual(['Home', 'Designs', 'Materials', 'Cores', 'Compare', 'Winding shop', 'Users', 'Audit log', 'Outbox', 'Settings']);
   });
 
   it("puts the user's display name and role in the account menu button", async () => {

@@ -75,8 +75,9 @@ describe('designs: create, read, list', () => {
     expect(res.body.error.fields).toMatchObject({ title: 'title is required', 'spec.converter.vout': expect.stringMatching(/below vinMin/) });
   });
 
-  it('refuses designs from a reviewer (403) and from no one (401)', async () => {
-    expect((await reviewer.post('/api/designs', { title: 'x', spec: SPEC })).status).toBe(403);
+  it('lets a reviewer design (everything an engineer may), refuses an admin (403) and no one (401)', async () => {
+    expect((await reviewer.post('/api/designs', { title: 'Reviewer draft', spec: SPEC })).status).toBe(201);
+    expect((await (await signedInAs(t.app, 'admin')).post('/api/designs', { title: 'x', spec: SPEC })).status).toBe(403);
     expect((await anonymous.get('/api/designs')).status).toBe(401);
   });
 

@@ -12,10 +12,10 @@ afterAll(() => h?.close());
 const userWith = (role: Role) => DEMO_USERS.find((u) => u.role === role)!;
 
 const EXPECTED_NAVIGATION: Record<Role, { sees: string[]; doesNotSee: string[] }> = {
-  engineer: { sees: ['Home'], doesNotSee: ['Users', 'Audit log'] },
-  reviewer: { sees: ['Home'], doesNotSee: ['Users', 'Audit log'] },
-  winder: { sees: ['Home'], doesNotSee: ['Users', 'Audit log'] },
-  admin: { sees: ['Home', 'Users', 'Audit log'], doesNotSee: [] },
+  engineer: { sees: ['Home', 'Designs', 'Materials', 'Cores', 'Compare', 'Winding shop'], doesNotSee: ['Users', 'Audit log', 'Review', 'Outbox'] },
+  reviewer: { sees: ['Home', 'Designs', 'Review', 'Winding shop'], doesNotSee: ['Users', 'Audit log', 'Outbox'] },
+  winder: { sees: ['Home', 'Winding shop'], doesNotSee: ['Designs', 'Materials', 'Users', 'Audit log'] },
+  admin: { sees: ['Home', 'Users', 'Audit log', 'Outbox', 'Settings'], doesNotSee: ['Review'] },
 };
 
 describe.each(Object.keys(EXPECTED_NAVIGATION) as Role[])('signed in as %s', (role) => {

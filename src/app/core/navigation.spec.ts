@@ -14,11 +14,11 @@ describe('navigationFor', () => {
   });
 
   it('gives an admin Home, Users and Audit log', () => {
-    expect(labelsFor('admin')).toEqual(['Home', 'Designs', 'Winding shop', 'Users', 'Audit log', 'Outbox', 'Settings']);
+    expect(labelsFor('admin')).toEqual(['Home', 'Designs', 'Materials', 'Cores', 'Compare', 'Winding shop', 'Users', 'Audit log', 'Outbox', 'Settings']);
   });
 
   it('gives reviewers the review page and winders only the winding shop', () => {
-    expect(labelsFor('reviewer')).toEqual(['Home', 'Designs', 'Review', 'Winding shop']);
+    expect(labelsFor('reviewer')).toEqual(['Home', 'Designs', 'Materials', 'Cores', 'Compare', 'Review', 'Winding shop']);
     expect(labelsFor('winder')).toEqual(['Home', 'Winding shop']);
   });
 
@@ -30,6 +30,6 @@ describe('navigationFor', () => {
     const items = [...NAVIGATION, { label: 'Shop queue', icon: 'build', path: '/shop', roles: ['winder'] as const }];
 
     expect(navigationFor('winder', items).map((item) => item.label)).toEqual(['Home', 'Winding shop', 'Shop queue']);
-    expect(navigationFor('engineer', items).map((item) => item.label)).toEqual(['Home', 'Designs', 'Winding shop']);
+    expect(navigationFor('engineer', items).map((item) => item.label)).toEqual(['Home', 'Designs', 'Materials', 'Cores', 'Compare', 'Winding shop']);
   });
 });

@@ -12,6 +12,9 @@ export interface NavigationItem {
 export const NAVIGATION: readonly NavigationItem[] = [
   { label: 'Home', icon: 'home', path: '/', roles: ROLES },
   { label: 'Designs', icon: 'design_services', path: '/designs', roles: ['engineer', 'reviewer', 'admin'] },
+  { label: 'Materials', icon: 'science', path: '/materials', roles: ['engineer', 'reviewer', 'admin'] },
+  { label: 'Cores', icon: 'donut_large', path: '/cores', roles: ['engineer', 'reviewer', 'admin'] },
+  { label: 'Compare', icon: 'stacked_line_chart', path: '/compare', roles: ['engineer', 'reviewer', 'admin'] },
   { label: 'Review', icon: 'rate_review', path: '/review', roles: ['reviewer'] },
   { label: 'Winding shop', icon: 'precision_manufacturing', path: '/shop', roles: ['winder', 'reviewer', 'engineer', 'admin'] },
   { label: 'Users', icon: 'group', path: '/admin/users', roles: ['admin'] },

@@ -34,7 +34,7 @@ export class DesignList {
   private readonly session = inject(Session);
 
   protected readonly params = signal<DesignListParams>({ scope: 'all', q: '', sort: 'updated', dir: 'desc', page: 0, pageSize: 20 });
-  protected readonly canDesign = computed(() => ['engineer', 'admin'].includes(this.session.user()?.role ?? ''));
+  protected readonly canDesign = computed(() => ['engineer', 'reviewer'].includes(this.session.user()?.role ?? ''));
   protected readonly columns = ['number', 'title', 'summary', 'status', 'owner', 'updated', 'actions'];
   protected readonly statusLabels = STATUS_LABELS;
 

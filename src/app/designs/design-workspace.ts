@@ -17,6 +17,7 @@ import { CandidatesPanel } from './candidates-panel';
 import { DesignPanel } from './design-panel';
 import { DesignsApi, type EvaluateView, type MaterialView } from './designs-api';
 import { OperatingPointPanel } from './operating-point-panel';
+import { RevisionActions } from '../review/revision-actions';
 import { RevisionsPanel } from './revisions-panel';
 import { SpecFormComponent } from './spec-form';
 import { createSpecForm, formFromSpec, specFromForm } from './spec-model';
@@ -32,6 +33,7 @@ const EXPORT_LABELS: Record<ExportKind, string> = {
 @Component({
   selector: 'gw-design-workspace',
   imports: [
+    RevisionActions,
     ReactiveFormsModule,
     RouterLink,
     MatButtonModule,
@@ -80,7 +82,7 @@ export class DesignWorkspace {
     { initialValue: null as DesignSpec | null },
   );
 
-  private readonly isDesigner = computed(() => ['engineer', 'admin'].includes(this.session.user()?.role ?? ''));
+  private readonly isDesigner = computed(() => ['engineer', 'reviewer'].includes(this.session.user()?.role ?? ''));
   protected readonly latest = computed(() => this.detail()?.latest ?? null);
   protected readonly editable = computed(() => {
     const d = this.detail();
@@ -121,6 +123,12 @@ export class DesignWorkspace {
     this.construction.set(null);
     this.known.set(null);
     this.current.set(null);
+  }
+
+  /** After a review step (submit, approve, return, release) the status and timeline change. */
+  protected reloadDesign(): void {
+    const d = this.detail();
+    if (d) this.load(d.id);
   }
 
   private load(id: number): void {

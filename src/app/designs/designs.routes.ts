@@ -12,7 +12,7 @@ export default [
   {
     path: 'new',
     title: 'New design · Gapwright',
-    canActivate: [roleGuard(['engineer', 'admin'])],
+    canActivate: [roleGuard(['engineer', 'reviewer'])],
     loadComponent: () => import('./design-workspace').then((m) => m.DesignWorkspace),
   },
   {

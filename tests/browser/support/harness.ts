@@ -30,7 +30,7 @@ export interface Harness {
 
 /** The real server (built web app + API) on a free port over the suite's throwaway database, and Chromium. */
 export async function startHarness(): Promise<Harness> {
-  const config = { ...testConfig({ STATIC_DIR: path.resolve('dist/gapwright/browser') }), port: 0 };
+  const config = { ...testConfig({ STATIC_DIR: path.resolve('dist/gapwright/browser'), FAKE_SMTP_PORT: '0' }), port: 0 };
   const pool = new pg.Pool({ connectionString: config.databaseUrl, max: 2 });
   await resetDatabase(createDb(pool), config);
   await pool.end();
