@@ -11,25 +11,27 @@ import {
   type ExportKind,
 } from '@shared/schemas/designs';
 import type { ExportsService } from '../exports/exports.service.ts';
-import { actorOf, requireSignIn } from '../http/access.ts';
+import { actorOf, requireRole, requireSignIn } from '../http/access.ts';
 import { notFound } from '../http/errors.ts';
 import { parseBody, parseIdParam, parseQuery } from '../http/validate.ts';
-import type { DesignsService } from './designs.service.ts';
+import { DESIGNER_ROLES, type DesignsService } from './designs.service.ts';
 
 /** Everyone signed in reads designs; engineers create them and change their own drafts. */
 export function designsRouter(designs: DesignsService, exports: ExportsService): Router {
   const router = Router();
   router.use(requireSignIn);
+  // Refused before the body is read: a role that may not design gets 403, not a validation error.
+  const designers = requireRole(...DESIGNER_ROLES);
 
   router.get('/', async (req, res) => {
     res.json(await designs.list(actorOf(req), parseQuery(designListQuerySchema, req)));
   });
 
-  router.post('/', async (req, res) => {
+  router.post('/', designers, async (req, res) => {
     res.status(201).json(await designs.create(actorOf(req), parseBody(createDesignRequestSchema, req)));
   });
 
-  router.post('/import', async (req, res) => {
+  router.post('/import', designers, async (req, res) => {
     res.status(201).json(await designs.importFile(actorOf(req), parseBody(designFileSchema, req)));
   });
 
@@ -37,7 +39,7 @@ export function designsRouter(designs: DesignsService, exports: ExportsService):
     res.json(await designs.get(actorOf(req), parseIdParam(req)));
   });
 
-  router.post('/:id/copy', async (req, res) => {
+  router.post('/:id/copy', designers, async (req, res) => {
     res.status(201).json(await designs.copy(actorOf(req), parseIdParam(req), parseBody(copyDesignRequestSchema, req)));
   });
 
@@ -46,7 +48,7 @@ export function designsRouter(designs: DesignsService, exports: ExportsService):
     res.json(await designs.diff(parseIdParam(req), from, to));
   });
 
-  router.post('/:id/revisions', async (req, res) => {
+  router.post('/:id/revisions', designers, async (req, res) => {
     res.status(201).json(await designs.newRevision(actorOf(req), parseIdParam(req), parseBody(newRevisionRequestSchema, req)));
   });
 
@@ -54,7 +56,7 @@ export function designsRouter(designs: DesignsService, exports: ExportsService):
     res.json(await designs.revision(parseIdParam(req), parseIdParam(req, 'rev')));
   });
 
-  router.patch('/:id/revisions/:rev', async (req, res) => {
+  router.patch('/:id/revisions/:rev', designers, async (req, res) => {
     res.json(await designs.update(actorOf(req), parseIdParam(req), parseIdParam(req, 'rev'), parseBody(updateRevisionRequestSchema, req)));
   });
 
