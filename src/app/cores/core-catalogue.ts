@@ -1,5 +1,5 @@
 import { DecimalPipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, effect, inject, signal, viewChild } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, signal, viewChild } from '@angular/core';
 import { MatExpansionModule } from '@angular/material/expansion';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
@@ -12,6 +12,7 @@ import { MatTableDataSource, MatTableModule } from '@angular/material/table';
 import { Notifier } from '../core/notifier';
 import { CoreForm } from './core-form';
 import { CoresApi, type CatalogueCore } from './cores-api';
+import { bindTableSource } from '../core/table-binding';
 
 interface CoreFilters {
   text: string;
@@ -59,13 +60,7 @@ export class CoreCatalogue {
       const text = f.text.trim().toLowerCase();
       return !text || [core.id, core.source, core.origin].join(' ').toLowerCase().includes(text);
     };
-    effect(() => {
-      this.dataSource.data = this.cores.value();
-    });
-    effect(() => {
-      this.dataSource.sort = this.sort();
-      this.dataSource.paginator = this.paginator();
-    });
+    bindTableSource(this.dataSource, () => this.cores.value(), this.sort, this.paginator);
   }
 
   protected setFilter(change: Partial<CoreFilters>): void {

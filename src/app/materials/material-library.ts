@@ -1,5 +1,5 @@
 import { DatePipe, DecimalPipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, effect, inject, signal, viewChild } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, signal, viewChild } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatExpansionModule } from '@angular/material/expansion';
@@ -14,6 +14,7 @@ import { Notifier } from '../core/notifier';
 import { Session } from '../core/session';
 import { MaterialUpload } from './material-upload';
 import { MaterialsApi, type CommitResult, type LibraryMaterial } from './materials-api';
+import { bindTableSource } from '../core/table-binding';
 
 @Component({
   selector: 'gw-material-library',
@@ -75,13 +76,7 @@ export class MaterialLibrary {
           return (m as unknown as Record<string, string | number>)[column] ?? '';
       }
     };
-    effect(() => {
-      this.dataSource.data = this.materials.value();
-    });
-    effect(() => {
-      this.dataSource.sort = this.sort();
-      this.dataSource.paginator = this.paginator();
-    });
+    bindTableSource(this.dataSource, () => this.materials.value(), this.sort, this.paginator);
   }
 
   protected applyFilter(text: string): void {

@@ -1,11 +1,12 @@
 import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, effect, input, viewChild } from '@angular/core';
+import { ChangeDetectionStrategy, Component, input, viewChild } from '@angular/core';
 import { MatPaginator, MatPaginatorModule } from '@angular/material/paginator';
 import { MatSort, MatSortModule } from '@angular/material/sort';
 import { MatTableDataSource, MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
 
 import type { OrderSummary } from './shop-api';
+import { bindTableSource } from '../core/table-binding';
 
 /** One list of build orders, sortable and paged. */
 @Component({
@@ -66,10 +67,6 @@ export class OrderTable {
   protected readonly dataSource = new MatTableDataSource<OrderSummary>([]);
 
   constructor() {
-    effect(() => (this.dataSource.data = this.orders()));
-    effect(() => {
-      this.dataSource.sort = this.sort();
-      this.dataSource.paginator = this.paginator();
-    });
+    bindTableSource(this.dataSource, () => this.orders(), this.sort, this.paginator);
   }
 }

@@ -1,5 +1,5 @@
 import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, effect, inject, signal, viewChild } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, signal, viewChild } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatExpansionModule } from '@angular/material/expansion';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -16,6 +16,7 @@ import { ROLE_LABELS } from '../../core/roles';
 import { Session } from '../../core/session';
 import { UserCreateForm } from './user-create-form';
 import { UsersApi } from './users-api';
+import { bindTableSource } from '../../core/table-binding';
 
 @Component({
   selector: 'gw-user-list',
@@ -57,13 +58,7 @@ export class UserList {
         .join(' ')
         .toLowerCase()
         .includes(filter);
-    effect(() => {
-      this.dataSource.data = this.users.value();
-    });
-    effect(() => {
-      this.dataSource.sort = this.sort();
-      this.dataSource.paginator = this.paginator();
-    });
+    bindTableSource(this.dataSource, () => this.users.value(), this.sort, this.paginator);
   }
 
   protected applyFilter(text: string): void {
