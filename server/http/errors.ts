@@ -56,11 +56,13 @@ interface HttpishError {
 
 const PG_CONNECTION_CODES = new Set(['ECONNREFUSED', 'ECONNRESET', '57P01', '57P02', '57P03', '08006', '08001', '08003']);
 
-function isDatabaseUnavailable(err: unknown): boolean {
-  if (!(err instanceof Error)) return false;
+/** True when the error, or any error it wraps (Drizzle wraps the driver's as `cause`), is a lost or refused connection. */
+function isDatabaseUnavailable(err: unknown, depth = 0): boolean {
+  if (!(err instanceof Error) || depth > 5) return false;
   const code = (err as { code?: string }).code;
   if (code && PG_CONNECTION_CODES.has(code)) return true;
-  return /timeout exceeded when trying to connect|Connection terminated|connect ECONNREFUSED/i.test(err.message);
+  if (/timeout exceeded when trying to connect|Connection terminated|connect ECONNREFUSED/i.test(err.message)) return true;
+  return isDatabaseUnavailable(err.cause, depth + 1);
 }
 
 /**

@@ -37,6 +37,17 @@ describe('PostgreSQL stopped and restarted under the running app', () => {
     expect((await engineer.get('/api/materials')).status).toBe(200);
     const before = await revisionChecksum();
 
+    // Load keeps running through the outage: eight request loops, every answer recorded.
+    const statuses: number[] = [];
+    let loading = true;
+    const loops = Array.from({ length: 8 }, async () => {
+      while (loading) {
+        const res = await engineer.get('/api/materials');
+        statuses.push(res.status);
+      }
+    });
+    await new Promise((r) => setTimeout(r, 300));
+
     stopCluster(location, 'immediate');
 
     for (let i = 0; i < 5; i++) {
@@ -61,6 +72,12 @@ describe('PostgreSQL stopped and restarted under the running app', () => {
       else await new Promise((r) => setTimeout(r, 200));
     }
     expect(recovered).toBeGreaterThan(0);
+    await new Promise((r) => setTimeout(r, 300));
+    loading = false;
+    await Promise.all(loops);
+    // Only answers, never hangs or crashes: 200 before and after, 503 in between, nothing else.
+    expect(new Set(statuses)).toEqual(new Set([200, 503]));
+    expect(statuses.at(-1)).toBe(200);
     expect((await engineer.get('/api/health')).body.database).toBe('up');
     // The session lived in PostgreSQL and survived; nothing was half-written.
     expect((await engineer.get('/api/auth/session')).body.user.username).toBe('erin');
