@@ -1,26 +1,67 @@
 import bcrypt from 'bcryptjs';
 import { eq } from 'drizzle-orm';
-import type { Db } from '../db/client.ts';
+import type { Db, Tx } from '../db/client.ts';
 import { appSettings, auditLog, materials, users } from '../db/schema.ts';
 import { seedDemoDesigns } from './demo-designs.ts';
 import { DEMO_MATERIALS, kFromAnchor } from './demo-materials.ts';
 import { DEMO_COMPANY, DEMO_USERS } from './demo-scenario.ts';
 
-const SEEDED_KEY = 'demo_seeded';
+/**
+ * The demo scenario is seeded in steps, each recorded by its own marker, so an installation seeded by
+ * an older version gains the later parts on its next start and nothing is ever seeded twice.
+ * ('demo_seeded' is the users step's marker, kept from the first version.)
+ */
+interface SeedStep {
+  key: string;
+  /** Slow preparation done before the transaction opens (password hashing). */
+  prepare?: (bcryptCost: number) => Promise<unknown>;
+  run: (tx: Tx, prepared: unknown) => Promise<unknown>;
+}
 
-/** Seeds the invented demo scenario once; later starts find the marker and do nothing. */
+const SEED_STEPS: readonly SeedStep[] = [
+  { key: 'demo_seeded', prepare: hashDemoPasswords, run: (tx, hashed) => seedUsers(tx, hashed as HashedUser[]) },
+  { key: 'demo_materials_seeded', run: (tx) => seedMaterials(tx) },
+  { key: 'demo_designs_seeded', run: (tx) => seedDemoDesigns(tx) },
+];
+
+/** Seeds whatever part of the demo scenario this database has not had yet; returns whether anything was added. */
 export async function seedDemoOnce(db: Db, bcryptCost: number): Promise<boolean> {
-  const [marker] = await db.select().from(appSettings).where(eq(appSettings.key, SEEDED_KEY));
-  if (marker) return false;
-  const hashed = await Promise.all(
-    DEMO_USERS.map(async (u) => ({ ...u, passwordHash: await bcrypt.hash(u.password, bcryptCost) })),
+  let added = false;
+  for (const step of SEED_STEPS) {
+    const [marker] = await db.select().from(appSettings).where(eq(appSettings.key, step.key));
+    if (marker) continue;
+    const prepared = await step.prepare?.(bcryptCost);
+    // The step and its marker commit together: a crash in between leaves neither.
+    await db.transaction(async (tx) => {
+      await step.run(tx, prepared);
+      await tx.insert(appSettings).values({ key: step.key, value: { company: DEMO_COMPANY, at: new Date().toISOString() } });
+      await tx.insert(auditLog).values({ action: 'demo.seeded', target: `${DEMO_COMPANY}: ${step.key}` });
+    });
+    added = true;
+  }
+  return added;
+}
+
+interface HashedUser {
+  username: string;
+  displayName: string;
+  email: string;
+  role: (typeof DEMO_USERS)[number]['role'];
+  passwordHash: string;
+}
+
+function hashDemoPasswords(bcryptCost: number): Promise<HashedUser[]> {
+  return Promise.all(
+    DEMO_USERS.map(async ({ username, displayName, email, role, password }) => ({ username, displayName, email, role, passwordHash: await bcrypt.hash(password, bcryptCost) })),
   );
-  await db.transaction(async (tx) => {
-    await tx
-      .insert(users)
-      .values(hashed.map(({ username, displayName, email, role, passwordHash }) => ({ username, displayName, email, role, passwordHash })))
-      .onConflictDoNothing({ target: users.username });
-    await tx.insert(materials).values(
+}
+
+async function seedUsers(tx: Tx, hashed: HashedUser[]): Promise<void> {
+  await tx.insert(users).values(hashed).onConflictDoNothing({ target: users.username });
+}
+
+async function seedMaterials(tx: Tx): Promise<void> {
+  await tx.insert(materials).values(
       DEMO_MATERIALS.map((m) => {
         const k = kFromAnchor(m);
         const t = m.minimumLossAt;
@@ -54,9 +95,4 @@ export async function seedDemoOnce(db: Db, bcryptCost: number): Promise<boolean>
         };
       }),
     );
-    await seedDemoDesigns(tx);
-    await tx.insert(appSettings).values({ key: SEEDED_KEY, value: { company: DEMO_COMPANY, at: new Date().toISOString() } });
-    await tx.insert(auditLog).values({ action: 'demo.seeded', target: DEMO_COMPANY });
-  });
-  return true;
 }
