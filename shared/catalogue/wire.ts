@@ -2,10 +2,8 @@
 // list of conductor options the design search tries. Pure: the tables come in as
 // arguments (core-data/wire-catalogue.ts loads the shipped ones).
 
+import { COPPER_RESISTIVITY_20C } from '@shared/engine/constants';
 import type { WireOption } from '@shared/engine/types';
-
-/** Annealed copper at 20 °C, IEC 60028 (1/58 Ω·mm²/m). */
-export const COPPER_RESISTIVITY_20C = 1.7241e-8;
 
 // ASTM B258: AWG 36 is 0.005 in and AWG 0000 is 0.46 in; 39 equal ratio steps span them (0.46/0.005 = 92).
 const AWG_36_DIAMETER = 0.127e-3;

@@ -1,5 +1,6 @@
 import { COPPER_TEMPERATURE_COEFFICIENT } from '../engine/constants';
 import type { SheetTestLimits } from './sheet';
+import { significant as fmt } from './sheet-text';
 
 /**
  * Winding resistance referred to 20 °C from a reading at another temperature:
@@ -22,8 +23,6 @@ export interface UnitFinding {
   passed: boolean;
   message: string;
 }
-
-const fmt = (value: number, digits = 4) => Number(value.toPrecision(digits)).toString();
 
 /** Each check of one built unit against the sheet's limits, in words the shop can act on. */
 export function judgeUnit(limits: SheetTestLimits, m: UnitMeasurement): { passed: boolean; resistanceAt20: number; findings: UnitFinding[] } {

@@ -2,7 +2,9 @@ import type { WindingSheet } from './sheet';
 
 // The sheet as labelled lines, shared by the PDF and any plain-text view, so both say the same thing.
 
-const fmt = (value: number, digits = 4) => Number(value.toPrecision(digits)).toString();
+/** A value to a few significant figures, without trailing zeros. */
+export const significant = (value: number, digits = 4) => Number(value.toPrecision(digits)).toString();
+const fmt = significant;
 export const microhenry = (h: number) => `${fmt(h * 1e6)} µH`;
 export const milliohm = (r: number) => `${fmt(r * 1e3)} mΩ`;
 export const millimetre = (m: number, digits = 3) => `${fmt(m * 1e3, digits)} mm`;
