@@ -16,6 +16,7 @@ import type {
   StoredResult,
   UpdateRevisionRequest,
 } from '@shared/schemas/designs';
+import { storedEvaluation } from '@shared/schemas/designs';
 import { formatQuantity } from '@shared/units/index';
 import type { AuditService } from '../audit/audit.service.ts';
 import type { CalcService } from '../calc/calc.service.ts';
@@ -182,7 +183,7 @@ export class DesignsService {
       to,
       spec: diffObjects(a.spec, b.spec),
       construction: diffObjects(a.construction, b.construction),
-      result: diffObjects((a.result as StoredResult | null)?.evaluation, (b.result as StoredResult | null)?.evaluation).filter((d) => !d.path.startsWith('issues')),
+      result: diffObjects(storedEvaluation(a.result) ?? undefined, storedEvaluation(b.result) ?? undefined).filter((d) => !d.path.startsWith('issues')),
     };
   }
 
@@ -276,7 +277,7 @@ function revisionValues(
 }
 
 function revisionSummary(row: RevisionRow): RevisionSummary {
-  const evaluation = (row.result as StoredResult | null)?.evaluation as EvaluationResult | undefined;
+  const evaluation = storedEvaluation(row.result);
   return {
     id: row.id,
     revision: row.revision,

@@ -1,5 +1,5 @@
 import type { EvaluationResult, SearchResult } from '@shared/engine/index';
-import { DESIGN_FILE_FORMAT, type ExportKind, type StoredResult } from '@shared/schemas/designs';
+import { DESIGN_FILE_FORMAT, storedEvaluation, type ExportKind } from '@shared/schemas/designs';
 import type { CalcService } from '../calc/calc.service.ts';
 import type { DesignsService } from '../designs/designs.service.ts';
 import { conflict } from '../http/errors.ts';
@@ -49,7 +49,7 @@ export class ExportsService {
       })) as SearchResult;
       return { fileName: `${base}-candidates.csv`, contentType: 'text/csv; charset=utf-8', body: candidatesCsv(revision.design, search, await this.designs.materialNames()) };
     }
-    const evaluation = (revision.result as StoredResult | null)?.evaluation as EvaluationResult | undefined;
+    const evaluation = storedEvaluation(revision.result);
     if (!evaluation) throw conflict(`Revision ${revision.revision} of ${revision.design.number} has no chosen construction yet; pick a candidate first.`);
     if (kind === 'bom.csv') {
       const names = await this.designs.materialNames();

@@ -16,12 +16,7 @@ export class ReviewRepository {
 
   /** The revision and its design, locked for the rest of the transaction. */
   async lockRevision(tx: Tx, id: number): Promise<{ revision: RevisionRow; design: DesignRow } | undefined> {
-    const [row] = await tx
-      .select({ revision: designRevisions, design: designs })
-      .from(designRevisions)
-      .innerJoin(designs, eq(designs.id, designRevisions.designId))
-      .where(eq(designRevisions.id, id))
-      .for('update', { of: designRevisions });
+    const [row] = await revisionWithDesign(tx, id).for('update', { of: designRevisions });
     return row;
   }
 
@@ -69,12 +64,8 @@ export class ReviewRepository {
     return rows.map((r) => r.id);
   }
 
-  async revision(id: number) {
-    const [row] = await this.db
-      .select({ revision: designRevisions, design: designs })
-      .from(designRevisions)
-      .innerJoin(designs, eq(designs.id, designRevisions.designId))
-      .where(eq(designRevisions.id, id));
+  async revision(id: number): Promise<{ revision: RevisionRow; design: DesignRow } | undefined> {
+    const [row] = await revisionWithDesign(this.db, id);
     return row;
   }
 
@@ -119,4 +110,12 @@ export class ReviewRepository {
       order by t.at desc`);
     return rows.rows;
   }
+}
+
+function revisionWithDesign(executor: Db | Tx, id: number) {
+  return executor
+    .select({ revision: designRevisions, design: designs })
+    .from(designRevisions)
+    .innerJoin(designs, eq(designs.id, designRevisions.designId))
+    .where(eq(designRevisions.id, id));
 }

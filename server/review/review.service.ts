@@ -4,7 +4,7 @@ import type { Actor } from '../http/access.ts';
 import { AppError, badRequest, forbidden, notFound } from '../http/errors.ts';
 import type { ShopService } from '../shop/shop.service.ts';
 import type { DesignRow, ReviewRepository, RevisionRow, Tx } from './review.repository.ts';
-import { storedEvaluation } from './stored-evaluation.ts';
+import { storedEvaluation } from '@shared/schemas/designs';
 
 type Status = RevisionRow['status'];
 const REVIEW_ROLES: Role[] = ['reviewer'];

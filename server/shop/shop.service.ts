@@ -1,3 +1,4 @@
+import { storedEvaluation, storedWire } from '@shared/schemas/designs';
 import type { UnitMeasurementRequest } from '@shared/schemas/review';
 import { judgeUnit } from '@shared/shop/measurement';
 import type { WindingSheet } from '@shared/shop/sheet';
@@ -7,7 +8,6 @@ import type { Actor } from '../http/access.ts';
 import { AppError, notFound } from '../http/errors.ts';
 import type { MailDeliveryService, OutgoingMail } from '../mail/mail-delivery.service.ts';
 import type { DesignRow, RevisionRow, Tx } from '../review/review.repository.ts';
-import { storedEvaluation } from '../review/stored-evaluation.ts';
 import { summariseRatios } from './prediction-error.ts';
 import { renderSheetPdf } from './sheet-pdf.ts';
 import type { ShopRepository } from './shop.repository.ts';
@@ -36,15 +36,11 @@ export class ShopService {
   async createOrder(tx: Tx, input: { revision: RevisionRow; design: DesignRow; quantity: number; releasedAt: Date; releasedBy: number }) {
     const { revision, design } = input;
     const result = storedEvaluation(revision.result);
-    if (!result) throw new AppError(409, 'no_result', 'The revision has no saved engine result to build a winding sheet from.');
+    const wire = storedWire(revision.result);
+    if (!result || !wire) throw new AppError(409, 'no_result', 'The revision has no saved engine result to build a winding sheet from.');
     const spec = (revision.spec ?? {}) as StoredSpec;
     const number = await this.repo.nextOrderNumber(tx);
     const core = this.catalogue.cores().find((c) => c.id === result.core.id);
-    const wire = this.catalogue.wire({
-      kind: result.wire.kind as 'awg' | 'metric' | 'litz',
-      strandDiameter: result.wire.strandDiameter,
-      strands: result.wire.strands,
-    });
     const sheet = buildWindingSheet({
       design: { number: design.number, title: design.title },
       revision: {
@@ -77,8 +73,7 @@ export class ShopService {
     const order = await this.repo.order(orderId);
     if (!order) throw notFound('No such build order.');
     const sheet = order.sheet as WindingSheet;
-    const subject = `Build order ${order.number}: ${sheet.header.designNumber} rev ${sheet.header.revision}, quantity ${order.quantity}`;
-    return this.mail.queue(order.id, await this.shopEmail(), subject, () => this.releaseMail(order.id));
+    return this.mail.queue(order.id, await this.shopEmail(), releaseSubject(order.number, sheet), () => this.releaseMail(order.id));
   }
 
   async releaseMail(orderId: number): Promise<OutgoingMail> {
@@ -98,7 +93,7 @@ export class ShopService {
     ].join('\n');
     return {
       to: await this.shopEmail(),
-      subject: `Build order ${order.number}: ${sheet.header.designNumber} rev ${sheet.header.revision}, quantity ${order.quantity}`,
+      subject: releaseSubject(order.number, sheet),
       text,
       attachments: [{ filename: sheetFileName(sheet), content: await renderSheetPdf(sheet), contentType: 'application/pdf' }],
     };
@@ -195,6 +190,10 @@ export class ShopService {
       byCore: summariseRatios(samples.map((s) => ({ ...s, key: s.core }))),
     };
   }
+}
+
+function releaseSubject(orderNumber: string, sheet: WindingSheet): string {
+  return `Build order ${orderNumber}: ${sheet.header.designNumber} rev ${sheet.header.revision}, quantity ${sheet.header.quantity}`;
 }
 
 export function sheetFileName(sheet: WindingSheet): string {

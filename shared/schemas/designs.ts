@@ -1,7 +1,8 @@
 // Schemas of the designs API: a design's spec (converter + limits + allowed cores and materials), its
 // construction (core, material, turns, gap, wire), list queries and the exported design file. SI units throughout.
 import * as z from 'zod';
-import { CORE_FAMILIES } from '@shared/engine/types';
+import type { EvaluationResult } from '@shared/engine/evaluate';
+import { CORE_FAMILIES, type WireOption } from '@shared/engine/types';
 import { converterSpecSchema, designLimitsSchema, wireRequestSchema } from './calc';
 
 export const DESIGN_STATUSES = ['draft', 'in_review', 'approved', 'released', 'superseded'] as const;
@@ -163,9 +164,20 @@ export interface RevisionSummary {
   totalLoss: number | null;
 }
 
+/** What a revision keeps of the engine's answer: the wire option evaluated and every figure. */
 export interface StoredResult {
   wire: unknown;
   evaluation: unknown;
+}
+
+/** The engine result saved on a revision (the `result` column), or null when none was chosen yet. */
+export function storedEvaluation(stored: unknown): EvaluationResult | null {
+  return ((stored as StoredResult | null)?.evaluation as EvaluationResult | undefined) ?? null;
+}
+
+/** The wire option the saved result was evaluated with. */
+export function storedWire(stored: unknown): WireOption | null {
+  return ((stored as StoredResult | null)?.wire as WireOption | undefined) ?? null;
 }
 
 export interface RevisionDetail extends RevisionSummary {

@@ -31,7 +31,8 @@ export async function insertEvaluatedDesign(t: TestApp, ownerUsername: string, e
       status: 'draft',
       spec: { ...EXAMPLE_SPEC, ...extraSpec },
       construction: { coreId: best.result.core.id, materialId: best.result.material.id, turns: best.result.turns, gap: best.result.gap.total, wire: best.wire },
-      result: best.result,
+      // The shape the design workspace saves: the wire option evaluated and every figure.
+      result: { wire: best.wire, evaluation: best.result },
       engineVersion: ENGINE_VERSION,
       materialId: Number(best.result.material.id),
       createdBy: owner.id,
