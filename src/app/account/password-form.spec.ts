@@ -5,6 +5,7 @@ import { TestBed, type ComponentFixture } from '@angular/core/testing';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 
 import { PasswordForm } from './password-form';
+import { typeInto } from '../testing/form-fields';
 
 describe('PasswordForm', () => {
   let fixture: ComponentFixture<PasswordForm>;
@@ -23,13 +24,7 @@ describe('PasswordForm', () => {
 
   afterEach(() => http.verify());
 
-  function type(label: string, value: string): void {
-    const labelElement = [...page.querySelectorAll('label')].find((each) => each.textContent?.trim() === label);
-    const input = page.querySelector<HTMLInputElement>(`#${labelElement?.htmlFor}`);
-    if (!input) throw new Error(`No field labelled ${label}`);
-    input.value = value;
-    input.dispatchEvent(new Event('input'));
-  }
+  const type = (label: string, value: string) => typeInto(page, label, value);
 
   async function submit(current: string, fresh: string, confirmation: string): Promise<void> {
     type('Current password', current);

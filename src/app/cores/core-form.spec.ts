@@ -5,6 +5,7 @@ import { TestBed, type ComponentFixture } from '@angular/core/testing';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 
 import { CoreForm } from './core-form';
+import { typeInto } from '../testing/form-fields';
 
 describe('CoreForm', () => {
   let fixture: ComponentFixture<CoreForm>;
@@ -23,13 +24,7 @@ describe('CoreForm', () => {
 
   afterEach(() => http.verify());
 
-  function type(label: string, value: string): void {
-    const labelElement = [...page.querySelectorAll('label')].find((each) => each.textContent?.replace('*', '').trim() === label);
-    const input = page.querySelector<HTMLInputElement>(`#${labelElement?.htmlFor}`);
-    if (!input) throw new Error(`No field labelled ${label}`);
-    input.value = value;
-    input.dispatchEvent(new Event('input'));
-  }
+  const type = (label: string, value: string) => typeInto(page, label, value);
 
   async function submit(): Promise<void> {
     page.querySelector<HTMLButtonElement>('button[type="submit"]')!.click();

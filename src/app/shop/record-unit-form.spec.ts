@@ -6,6 +6,7 @@ import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 
 import { RecordUnitForm } from './record-unit-form';
 import type { RecordedUnit } from './shop-api';
+import { typeInto } from '../testing/form-fields';
 
 describe('RecordUnitForm', () => {
   let fixture: ComponentFixture<RecordUnitForm>;
@@ -26,14 +27,7 @@ describe('RecordUnitForm', () => {
 
   afterEach(() => http.verify());
 
-  function type(label: string, value: string): void {
-    const labelElement = [...page.querySelectorAll('label')].find((each) => each.textContent?.trim().replace(/\s*\*$/, '') === label);
-    const input = page.querySelector<HTMLInputElement>(`#${labelElement?.htmlFor}`);
-    if (!input) throw new Error(`No field labelled ${label}`);
-    input.value = value;
-    input.dispatchEvent(new Event('input'));
-    input.dispatchEvent(new Event('blur'));
-  }
+  const type = (label: string, value: string) => typeInto(page, label, value, { leave: true });
 
   async function chooseHipot(value: 'pass' | 'fail' | 'not_tested'): Promise<void> {
     // The select's options live in an overlay; setting the control is what a choice does.

@@ -8,6 +8,7 @@ import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { httpErrorInterceptor } from '../core/http-error-interceptor';
 import { Session } from '../core/session';
 import { SignIn } from './sign-in';
+import { typeInto } from '../testing/form-fields';
 
 const engineer = {
   id: 7,
@@ -43,18 +44,8 @@ describe('SignIn', () => {
 
   afterEach(() => http.verify());
 
-  function fieldLabelled(label: string): HTMLInputElement {
-    const labelElement = [...page.querySelectorAll('label')].find((each) => each.textContent?.trim() === label);
-    const input = labelElement?.htmlFor ? page.querySelector<HTMLInputElement>(`#${labelElement.htmlFor}`) : null;
-    if (!input) throw new Error(`No field labelled ${label}`);
-    return input;
-  }
 
-  function type(label: string, value: string): void {
-    const input = fieldLabelled(label);
-    input.value = value;
-    input.dispatchEvent(new Event('input'));
-  }
+  const type = (label: string, value: string) => typeInto(page, label, value);
 
   async function submitWith(username: string, password: string): Promise<void> {
     type('Username', username);
