@@ -9,7 +9,7 @@ import { dropDatabase, ensureCluster, ensureDatabase } from '../server/ops/postg
 // Chromium, a fresh web build), ending with one "passed, failed" line.
 const repoRoot = fileURLToPath(new URL('..', import.meta.url));
 const resultsDir = path.join(repoRoot, 'test-results');
-const SUITES = ['unit', 'component', 'api', 'browser'] as const;
+const SUITES = ['types', 'unit', 'component', 'api', 'browser'] as const;
 type Suite = (typeof SUITES)[number];
 
 const requested = process.argv.slice(2).filter((a): a is Suite => (SUITES as readonly string[]).includes(a));
@@ -67,6 +67,19 @@ async function vitestProject(project: string, env: NodeJS.ProcessEnv = {}): Prom
   totals[project] = counts;
 }
 
+// Strict TypeScript over every part of the tree, one check per configuration.
+const TYPE_CONFIGS = ['tsconfig.server.json', 'tsconfig.browser-tests.json', 'tsconfig.app.json', 'tsconfig.spec.json'];
+
+async function typeChecks(): Promise<void> {
+  const counts = { passed: 0, failed: 0, skipped: 0 };
+  for (const config of TYPE_CONFIGS) {
+    const { code } = await run(process.execPath, [path.join(repoRoot, 'node_modules/typescript/bin/tsc'), '-p', config, '--noEmit']);
+    process.stdout.write(`${code === 0 ? '✓' : '✗'} tsc -p ${config}\n`);
+    counts[code === 0 ? 'passed' : 'failed'] += 1;
+  }
+  totals['types'] = counts;
+}
+
 async function componentTests(): Promise<void> {
   const { code, output } = await run(process.execPath, [path.join(repoRoot, 'node_modules/@angular/cli/bin/ng.js'), 'test', '--watch=false'], {
     NG_CLI_ANALYTICS: 'false',
@@ -118,6 +131,7 @@ const cleanups: (() => void)[] = [];
 try {
   for (const suite of suites) {
     process.stdout.write(`\n=== ${suite} tests ===\n`);
+    if (suite === 'types') await typeChecks();
     if (suite === 'unit') await vitestProject('unit');
     if (suite === 'component') await componentTests();
     if (suite === 'api' || suite === 'browser') {

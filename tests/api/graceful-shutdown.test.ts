@@ -1,22 +1,12 @@
-import { spawn, type ChildProcess } from 'node:child_process';
+import type { ChildProcess } from 'node:child_process';
 import http from 'node:http';
-import net from 'node:net';
-import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_USERS } from '../../server/seed/demo-scenario.ts';
+import { startServerProcess, type ServerProcess } from '../support/server-process.ts';
 import { testDatabaseUrl } from './support/test-app.ts';
 
 // The real entry file in its own process: SIGTERM must let an in-flight request finish, refuse new
 // connections, and exit 0.
-
-function freePort(): Promise<number> {
-  return new Promise((resolve) => {
-    const s = net.createServer().listen(0, '127.0.0.1', () => {
-      const { port } = s.address() as net.AddressInfo;
-      s.close(() => resolve(port));
-    });
-  });
-}
 
 interface Reply {
   status: number;
@@ -36,32 +26,14 @@ function request(port: number, method: string, urlPath: string, headers: Record<
   });
 }
 
+let server: ServerProcess;
 let child: ChildProcess;
 let port: number;
 let exit: Promise<number | null>;
 
 beforeAll(async () => {
-  port = await freePort();
-  child = spawn(process.execPath, ['--import', 'tsx', path.resolve('server/main.ts')], {
-    env: {
-      ...process.env,
-      NODE_ENV: 'test',
-      PORT: String(port),
-      DATABASE_URL: testDatabaseUrl(),
-      SESSION_SECRET: 'shutdown-test-secret-that-is-long-enough-123456',
-      LOG_LEVEL: 'silent',
-      FAKE_SMTP_PORT: '0',
-      STATIC_DIR: path.resolve('dist/gapwright/browser'),
-    },
-    stdio: ['ignore', 'pipe', 'pipe'],
-  });
-  exit = new Promise((resolve) => child.on('exit', (code) => resolve(code)));
-  for (let i = 0; i < 150; i++) {
-    const ok = await request(port, 'GET', '/api/health').then((r) => r.status === 200, () => false);
-    if (ok) return;
-    await new Promise((r) => setTimeout(r, 200));
-  }
-  throw new Error('the server did not come up');
+  server = await startServerProcess(testDatabaseUrl());
+  ({ child, port, exited: exit } = server);
 }, 60_000);
 
 afterAll(() => {

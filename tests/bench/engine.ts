@@ -19,6 +19,7 @@ import {
   type CoreShape,
   type WireOption,
 } from '@shared/engine/index';
+import { percentile } from './stats.ts';
 
 export interface BenchRow {
   name: string;
@@ -182,10 +183,6 @@ function replicate(cores: readonly CoreShape[], times: number): CoreShape[] {
     }
   }
   return out;
-}
-
-function percentile(sorted: readonly number[], p: number): number {
-  return sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)]!;
 }
 
 /** Kernel throughput: every core × material × proposed wire, repeated for about a second. */

@@ -1,55 +1,28 @@
-import { spawn } from 'node:child_process';
 import { readFileSync } from 'node:fs';
-import net from 'node:net';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import type { EventEmitter } from 'node:events';
 import autocannon, { type Result } from 'autocannon';
 import { dropDatabase, ensureCluster, ensureDatabase } from '../../server/ops/postgres.ts';
 import { DEMO_USERS } from '../../server/seed/demo-scenario.ts';
+import { startServerProcess } from '../support/server-process.ts';
 import type { BenchRow } from './engine.ts';
+import { percentile } from './stats.ts';
 
 // Load on the real server, in its own process, over loopback only, bounded in time.
 const repoRoot = fileURLToPath(new URL('../..', import.meta.url));
 const SPEC = { vinMin: 24, vinMax: 36, vout: 12, ioutMax: 10, frequency: 100e3, rippleRatio: 0.3 };
 
-const percentile = (sorted: number[], p: number) => sorted[Math.min(sorted.length - 1, Math.floor((p / 100) * sorted.length))] ?? NaN;
 const ms = (v: number) => `${v.toFixed(1)} ms`;
 const rssOf = (pid: number) => Number(/VmRSS:\s+(\d+)/.exec(readFileSync(`/proc/${pid}/status`, 'utf8'))?.[1] ?? 0) / 1024;
-
-function freePort(): Promise<number> {
-  return new Promise((resolve) => {
-    const s = net.createServer().listen(0, '127.0.0.1', () => {
-      const { port } = s.address() as net.AddressInfo;
-      s.close(() => resolve(port));
-    });
-  });
-}
 
 export async function runHttpLoadBench({ durationSeconds = 30, connections = 50 } = {}): Promise<BenchRow[]> {
   const database = `gapwright_bench_${Date.now().toString(36)}`;
   const cluster = ensureCluster();
   ensureDatabase(database);
-  const port = await freePort();
-  const base = `http://127.0.0.1:${port}`;
-  const server = spawn(process.execPath, ['--import', 'tsx', path.join(repoRoot, 'server/main.ts')], {
-    cwd: repoRoot,
-    env: {
-      ...process.env,
-      NODE_ENV: 'production',
-      PORT: String(port),
-      DATABASE_URL: cluster.urlFor(database),
-      SESSION_SECRET: 'bench-session-secret-that-is-long-enough-0123456789',
-      LOG_LEVEL: 'silent',
-      FAKE_SMTP_PORT: '0',
-    },
-    stdio: 'ignore',
-  });
+  const server = await startServerProcess(cluster.urlFor(database), { NODE_ENV: 'production' });
+  const base = server.baseUrl;
   try {
-    for (let i = 0; i < 200; i++) {
-      if (await fetch(`${base}/api/health`).then((r) => r.ok, () => false)) break;
-      await new Promise((r) => setTimeout(r, 200));
-    }
     // Sign in once; every connection uses the same session, as many tabs of one user would.
     const jar = new Map<string, string>();
     const keep = (res: Response) => {
@@ -83,7 +56,7 @@ export async function runHttpLoadBench({ durationSeconds = 30, connections = 50 
       wire: { kind: best.wire.kind, strandDiameter: best.wire.strandDiameter, strands: best.wire.strands },
     });
 
-    const rssStart = rssOf(server.pid!);
+    const rssStart = rssOf(server.child.pid!);
     const latencies: number[] = [];
     // Without a callback autocannon returns its instance, an event emitter that is also a promise of the result.
     const load = autocannon({
@@ -119,7 +92,7 @@ export async function runHttpLoadBench({ durationSeconds = 30, connections = 50 
     const result = await load;
     running = false;
     await probing;
-    const rssEnd = rssOf(server.pid!);
+    const rssEnd = rssOf(server.child.pid!);
 
     latencies.sort((a, b) => a - b);
     const p95 = (name: string) => percentile([...probe[name]].sort((a, b) => a - b), 95);
@@ -134,8 +107,8 @@ export async function runHttpLoadBench({ durationSeconds = 30, connections = 50 
       { name: 'server RSS start → end', value: `${rssStart.toFixed(0)} MB → ${rssEnd.toFixed(0)} MB` },
     ];
   } finally {
-    server.kill('SIGTERM');
-    await new Promise((r) => server.once('exit', r));
+    server.child.kill('SIGTERM');
+    await server.exited;
     dropDatabase(database);
   }
 }

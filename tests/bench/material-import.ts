@@ -1,7 +1,6 @@
 import { performance } from 'node:perf_hooks';
 import { eq } from 'drizzle-orm';
 import pg from 'pg';
-import { pino } from 'pino';
 import { MATERIAL_CSV_COLUMNS } from '@shared/schemas/materials';
 import { AuditRepository } from '../../server/audit/audit.repository.ts';
 import { AuditService } from '../../server/audit/audit.service.ts';
@@ -55,7 +54,6 @@ export async function runImportBench(): Promise<BenchRow[]> {
     SESSION_SECRET: 'bench-session-secret-that-is-long-enough-0123456789',
     LOG_LEVEL: 'silent',
   });
-  void pino;
   const pool = new pg.Pool({ connectionString: config.databaseUrl, max: 4 });
   try {
     const db = createDb(pool);

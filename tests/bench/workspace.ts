@@ -3,13 +3,13 @@ import { ensureCluster, ensureDatabase } from '../../server/ops/postgres.ts';
 import { DEMO_USERS } from '../../server/seed/demo-scenario.ts';
 import { signIn, startHarness } from '../browser/support/harness.ts';
 import type { BenchRow } from './engine.ts';
+import { median } from './stats.ts';
 
 const DATABASE = 'gapwright_bench_workspace';
 const RUNS = 5;
 /** The design panel waits this long after the last keystroke before it asks the server (design-panel.ts). */
 const EDIT_DEBOUNCE_MS = 300;
 
-const median = (values: number[]) => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)];
 
 /**
  * In Chromium against the real server (needs `npm run build` first): time from pressing "Search candidates" to the

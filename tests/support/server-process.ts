@@ -1,0 +1,55 @@
+import { spawn, type ChildProcess } from 'node:child_process';
+import net from 'node:net';
+import { fileURLToPath } from 'node:url';
+
+const repoRoot = fileURLToPath(new URL('../..', import.meta.url));
+
+export interface ServerProcess {
+  child: ChildProcess;
+  port: number;
+  baseUrl: string;
+  /** The exit code once the process has ended. */
+  exited: Promise<number | null>;
+}
+
+/** A port nobody is listening on right now, on loopback. */
+export function freePort(): Promise<number> {
+  return new Promise((resolve) => {
+    const s = net.createServer().listen(0, '127.0.0.1', () => {
+      const { port } = s.address() as net.AddressInfo;
+      s.close(() => resolve(port));
+    });
+  });
+}
+
+/**
+ * The real entry file (`server/main.ts`) in a process of its own on a free loopback port, resolved once
+ * `/api/health` answers 200. Used where the test or benchmark needs signals, a separate event loop or RSS.
+ */
+export async function startServerProcess(databaseUrl: string, env: Record<string, string> = {}): Promise<ServerProcess> {
+  const port = await freePort();
+  const baseUrl = `http://127.0.0.1:${port}`;
+  const child = spawn(process.execPath, ['--import', 'tsx', 'server/main.ts'], {
+    cwd: repoRoot,
+    env: {
+      ...process.env,
+      NODE_ENV: 'test',
+      PORT: String(port),
+      DATABASE_URL: databaseUrl,
+      SESSION_SECRET: 'server-process-secret-that-is-long-enough-0123456789',
+      LOG_LEVEL: 'silent',
+      FAKE_SMTP_PORT: '0',
+      STATIC_DIR: `${repoRoot}dist/gapwright/browser`,
+      ...env,
+    },
+    stdio: 'ignore',
+  });
+  const exited = new Promise<number | null>((resolve) => child.once('exit', (code) => resolve(code)));
+  for (let i = 0; i < 200; i++) {
+    if (await fetch(`${baseUrl}/api/health`).then((r) => r.ok, () => false)) return { child, port, baseUrl, exited };
+    if (child.exitCode !== null) break;
+    await new Promise((r) => setTimeout(r, 200));
+  }
+  child.kill('SIGKILL');
+  throw new Error('the server process did not come up');
+}
