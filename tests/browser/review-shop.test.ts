@@ -1,47 +1,14 @@
-import { mkdirSync } from 'node:fs';
-import path from 'node:path';
 import pg from 'pg';
-import { chromium, type Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { WindingSheet } from '@shared/shop/sheet';
-import { createDb } from '../../server/db/client.ts';
 import { DEMO_USERS } from '../../server/seed/demo-scenario.ts';
-import { startServer } from '../../server/server.ts';
-import { resetDatabase, testConfig } from '../api/support/test-app.ts';
-import { RESULTS_DIR, screenshotPath, seriousAxeFindings, signIn, type Harness } from './support/harness.ts';
-
-/**
- * The shared harness, except that the fake SMTP server takes any free port: this suite releases a design and
- * must not collide with another suite (or `npm start`) holding the default port.
- */
-async function startHarnessWithOwnMailPort(): Promise<Harness> {
-  const config = { ...testConfig({ STATIC_DIR: path.resolve('dist/gapwright/browser'), FAKE_SMTP_PORT: '0' }), port: 0 };
-  const pool = new pg.Pool({ connectionString: config.databaseUrl, max: 2 });
-  await resetDatabase(createDb(pool), config);
-  await pool.end();
-  const server = await startServer(config);
-  const browser = await chromium.launch({
-    executablePath: '/usr/bin/chromium',
-    args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
-  });
-  mkdirSync(RESULTS_DIR, { recursive: true });
-  return {
-    baseUrl: server.url,
-    browser,
-    newPage: async () => {
-      const context = await browser.newContext({ baseURL: server.url, viewport: { width: 1280, height: 800 } });
-      return { context, page: await context.newPage() };
-    },
-    close: async () => {
-      await browser.close();
-      await server.stop();
-    },
-  };
-}
+import { testConfig } from '../api/support/test-app.ts';
+import { screenshotPath, seriousAxeFindings, signIn, startHarness, type Harness } from './support/harness.ts';
 
 let h: Harness;
 beforeAll(async () => {
-  h = await startHarnessWithOwnMailPort();
+  h = await startHarness();
 }, 120_000);
 afterAll(() => h?.close());
 
