@@ -1,11 +1,10 @@
-import { provideHttpClient } from '@angular/common/http';
-import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
-import { provideZonelessChangeDetection } from '@angular/core';
-import { TestBed, type ComponentFixture } from '@angular/core/testing';
+import type { HttpTestingController } from '@angular/common/http/testing';
+import type { ComponentFixture } from '@angular/core/testing';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 
 import { PasswordForm } from './password-form';
 import { typeInto } from '../testing/form-fields';
+import { renderWithHttpTesting } from '../testing/render';
 
 describe('PasswordForm', () => {
   let fixture: ComponentFixture<PasswordForm>;
@@ -13,13 +12,7 @@ describe('PasswordForm', () => {
   let page: HTMLElement;
 
   beforeEach(async () => {
-    TestBed.configureTestingModule({
-      providers: [provideZonelessChangeDetection(), provideHttpClient(), provideHttpClientTesting()],
-    });
-    http = TestBed.inject(HttpTestingController);
-    fixture = TestBed.createComponent(PasswordForm);
-    page = fixture.nativeElement as HTMLElement;
-    await fixture.whenStable();
+    ({ fixture, http, page } = await renderWithHttpTesting(PasswordForm));
   });
 
   afterEach(() => http.verify());

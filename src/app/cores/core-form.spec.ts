@@ -1,11 +1,10 @@
-import { provideHttpClient } from '@angular/common/http';
-import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
-import { provideZonelessChangeDetection } from '@angular/core';
-import { TestBed, type ComponentFixture } from '@angular/core/testing';
+import type { HttpTestingController } from '@angular/common/http/testing';
+import type { ComponentFixture } from '@angular/core/testing';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 
 import { CoreForm } from './core-form';
 import { typeInto } from '../testing/form-fields';
+import { renderWithHttpTesting } from '../testing/render';
 
 describe('CoreForm', () => {
   let fixture: ComponentFixture<CoreForm>;
@@ -13,13 +12,7 @@ describe('CoreForm', () => {
   let page: HTMLElement;
 
   beforeEach(async () => {
-    TestBed.configureTestingModule({
-      providers: [provideZonelessChangeDetection(), provideHttpClient(), provideHttpClientTesting()],
-    });
-    http = TestBed.inject(HttpTestingController);
-    fixture = TestBed.createComponent(CoreForm);
-    page = fixture.nativeElement as HTMLElement;
-    await fixture.whenStable();
+    ({ fixture, http, page } = await renderWithHttpTesting(CoreForm));
   });
 
   afterEach(() => http.verify());

@@ -1,10 +1,9 @@
-import { provideHttpClient } from '@angular/common/http';
-import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
-import { provideZonelessChangeDetection } from '@angular/core';
-import { TestBed, type ComponentFixture } from '@angular/core/testing';
+import type { HttpTestingController } from '@angular/common/http/testing';
+import type { ComponentFixture } from '@angular/core/testing';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 
 import { MaterialUpload } from './material-upload';
+import { renderWithHttpTesting } from '../testing/render';
 
 describe('MaterialUpload', () => {
   let fixture: ComponentFixture<MaterialUpload>;
@@ -12,13 +11,7 @@ describe('MaterialUpload', () => {
   let page: HTMLElement;
 
   beforeEach(async () => {
-    TestBed.configureTestingModule({
-      providers: [provideZonelessChangeDetection(), provideHttpClient(), provideHttpClientTesting()],
-    });
-    http = TestBed.inject(HttpTestingController);
-    fixture = TestBed.createComponent(MaterialUpload);
-    page = fixture.nativeElement as HTMLElement;
-    await fixture.whenStable();
+    ({ fixture, http, page } = await renderWithHttpTesting(MaterialUpload));
   });
 
   afterEach(() => http.verify());

@@ -1,12 +1,11 @@
-import { provideHttpClient } from '@angular/common/http';
-import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
-import { provideZonelessChangeDetection } from '@angular/core';
-import { TestBed, type ComponentFixture } from '@angular/core/testing';
+import type { HttpTestingController } from '@angular/common/http/testing';
+import type { ComponentFixture } from '@angular/core/testing';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 
 import { RecordUnitForm } from './record-unit-form';
 import type { RecordedUnit } from './shop-api';
 import { typeInto } from '../testing/form-fields';
+import { renderWithHttpTesting } from '../testing/render';
 
 describe('RecordUnitForm', () => {
   let fixture: ComponentFixture<RecordUnitForm>;
@@ -14,15 +13,7 @@ describe('RecordUnitForm', () => {
   let page: HTMLElement;
 
   beforeEach(async () => {
-    TestBed.configureTestingModule({
-      providers: [provideZonelessChangeDetection(), provideHttpClient(), provideHttpClientTesting()],
-    });
-    http = TestBed.inject(HttpTestingController);
-    fixture = TestBed.createComponent(RecordUnitForm);
-    fixture.componentRef.setInput('orderId', 5);
-    fixture.componentRef.setInput('testFrequency', 10e3);
-    page = fixture.nativeElement as HTMLElement;
-    await fixture.whenStable();
+    ({ fixture, http, page } = await renderWithHttpTesting(RecordUnitForm, { orderId: 5, testFrequency: 10e3 }));
   });
 
   afterEach(() => http.verify());

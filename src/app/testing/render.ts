@@ -1,0 +1,23 @@
+import { provideHttpClient } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { provideZonelessChangeDetection, type Type } from '@angular/core';
+import { TestBed, type ComponentFixture } from '@angular/core/testing';
+
+export interface Rendered<T> {
+  fixture: ComponentFixture<T>;
+  http: HttpTestingController;
+  page: HTMLElement;
+}
+
+/** A component rendered zoneless with a fake HTTP backend, its inputs set, and settled. */
+export async function renderWithHttpTesting<T>(component: Type<T>, inputs: Record<string, unknown> = {}): Promise<Rendered<T>> {
+  TestBed.configureTestingModule({
+    providers: [provideZonelessChangeDetection(), provideHttpClient(), provideHttpClientTesting()],
+  });
+  const http = TestBed.inject(HttpTestingController);
+  const fixture = TestBed.createComponent(component);
+  for (const [name, value] of Object.entries(inputs)) fixture.componentRef.setInput(name, value);
+  const page = fixture.nativeElement as HTMLElement;
+  await fixture.whenStable();
+  return { fixture, http, page };
+}
