@@ -3,7 +3,7 @@ import http from 'node:http';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_USERS } from '../../server/seed/demo-scenario.ts';
 import { startServerProcess, type ServerProcess } from '../support/server-process.ts';
-import { testDatabaseUrl } from './support/test-app.ts';
+import { resetTestDatabase, testDatabaseUrl } from './support/test-app.ts';
 
 // The real entry file in its own process: SIGTERM must let an in-flight request finish, refuse new
 // connections, and exit 0.
@@ -32,6 +32,8 @@ let port: number;
 let exit: Promise<number | null>;
 
 beforeAll(async () => {
+  // Other files change demo passwords in this shared database: start from the seeded state like every file.
+  await resetTestDatabase();
   server = await startServerProcess(testDatabaseUrl());
   ({ child, port, exited: exit } = server);
 }, 60_000);

@@ -42,6 +42,16 @@ export async function resetDatabase(db: Db, config: Config): Promise<void> {
   await seedDemoOnce(db, config.bcryptCost);
 }
 
+/** Resets the suite's database on a short-lived pool, for tests whose server runs elsewhere (own process, harness). */
+export async function resetTestDatabase(config: Config = testConfig()): Promise<void> {
+  const pool = new pg.Pool({ connectionString: config.databaseUrl, max: 2 });
+  try {
+    await resetDatabase(createDb(pool), config);
+  } finally {
+    await pool.end();
+  }
+}
+
 export async function createTestApp(overrides: Record<string, string> = {}): Promise<TestApp> {
   const config = testConfig(overrides);
   const pool = new pg.Pool({ connectionString: config.databaseUrl, max: 5, connectionTimeoutMillis: 3000 });

@@ -2,10 +2,8 @@ import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import { AxeBuilder } from '@axe-core/playwright';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
-import pg from 'pg';
-import { createDb } from '../../../server/db/client.ts';
 import { startServer, type RunningServer } from '../../../server/server.ts';
-import { resetDatabase, testConfig } from '../../api/support/test-app.ts';
+import { resetTestDatabase, testConfig } from '../../api/support/test-app.ts';
 
 export const RESULTS_DIR = process.env['TEST_RESULTS_DIR'] ?? path.resolve('test-results');
 
@@ -31,9 +29,7 @@ export interface Harness {
 /** The real server (built web app + API) on a free port over the suite's throwaway database, and Chromium. */
 export async function startHarness(): Promise<Harness> {
   const config = { ...testConfig({ STATIC_DIR: path.resolve('dist/gapwright/browser'), FAKE_SMTP_PORT: '0' }), port: 0 };
-  const pool = new pg.Pool({ connectionString: config.databaseUrl, max: 2 });
-  await resetDatabase(createDb(pool), config);
-  await pool.end();
+  await resetTestDatabase(config);
   const server: RunningServer = await startServer(config);
   // playwright-core starts Chromium with a fresh, throwaway profile directory of its own.
   const browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: CHROMIUM_ARGS });
