@@ -63,7 +63,6 @@ export interface Services {
   calc: CalcService;
   materialLibrary: MaterialsService;
   userCores: UserCoresService;
-  compare: CompareService;
   mail: MailDeliveryService;
   shop: ShopService;
   review: ReviewService;
@@ -78,12 +77,11 @@ export function createServices({ config, db, logger, mailTarget }: Pick<AppDeps,
   const calc = new CalcService(catalogue, materials);
   const materialLibrary = new MaterialsService(materials, audit);
   const userCores = new UserCoresService(new UserCoresRepository(db), catalogue, audit);
-  const compare = new CompareService(materials, { core: (id) => userCores.core(id), wire: (choice) => catalogue.wire(choice) });
   const mail = new MailDeliveryService(db, mailTarget, config.smtp.retryDelaysMs, logger);
   const shop = new ShopService(new ShopRepository(db), catalogue, mail, audit);
   const review = new ReviewService(new ReviewRepository(db), audit, shop);
   const outbox = new OutboxService(db);
-  return { audit, users, catalogue, materials, calc, materialLibrary, userCores, compare, mail, shop, review, outbox };
+  return { audit, users, catalogue, materials, calc, materialLibrary, userCores, mail, shop, review, outbox };
 }
 
 export function createApp(deps: AppDeps) {
@@ -91,6 +89,11 @@ export function createApp(deps: AppDeps) {
   const services = createServices(deps);
   const designServices = createDesignServices(deps.db, services);
   const { audit, users, catalogue, materials, calc, shop, review, outbox } = services;
+  const compare = new CompareService(
+    materials,
+    { core: (id) => services.userCores.core(id), wire: (choice) => catalogue.wire(choice) },
+    designServices.designs,
+  );
   const openApiDocument = buildOpenApiDocument();
   const passport = createPassport(users);
   const sessions = createSessionMiddleware(config, pool);
@@ -129,7 +132,7 @@ export function createApp(deps: AppDeps) {
   api.use('/calc', calcRouter(calc));
   api.use('/catalogue', userCoresRouter(services.userCores));
   api.use('/catalogue', catalogueRouter(catalogue));
-  api.use('/compare', compareRouter(services.compare));
+  api.use('/compare', compareRouter(compare));
   api.use('/designs', designsRouter(designServices.designs, designServices.exports));
   api.use('/materials', materialLibraryRouter(services.materialLibrary));
   api.use('/materials', materialsRouter(materials));

@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { compareCurvesRequestSchema, compareDesignRequestSchema } from '@shared/schemas/compare';
+import { compareCurvesRequestSchema, compareDesignRequestSchema, compareSavedDesignRequestSchema } from '@shared/schemas/compare';
 import { requireSignIn } from '../http/access.ts';
 import { parseBody } from '../http/validate.ts';
 import type { CompareService } from './compare.service.ts';
@@ -13,6 +13,9 @@ export function compareRouter(compare: CompareService): Router {
   });
   router.post('/design', async (req, res) => {
     res.json(await compare.design(parseBody(compareDesignRequestSchema, req)));
+  });
+  router.post('/saved-design', async (req, res) => {
+    res.json(await compare.savedDesign(parseBody(compareSavedDesignRequestSchema, req)));
   });
   return router;
 }

@@ -15,11 +15,13 @@ import type {
   CompareCurvesResponse,
   CompareDesignRequest,
   CompareDesignResponse,
+  CompareSavedDesignRequest,
   CurvePoint,
   DesignComparisonRow,
 } from '@shared/schemas/compare';
 import type { WireChoice } from '@shared/catalogue/wire-from-request';
-import { badRequest } from '../http/errors.ts';
+import type { Construction, DesignSpec } from '@shared/schemas/designs';
+import { badRequest, conflict } from '../http/errors.ts';
 import { toCoreMaterial } from '../materials/material-view.ts';
 import type { MaterialRow, MaterialsRepository } from '../materials/materials.repository.ts';
 
@@ -46,6 +48,17 @@ export interface CompareCatalogue {
   wire(choice: WireChoice): WireOption;
 }
 
+/** A saved revision as the designs service returns it (only what the comparison reads). */
+export interface SavedRevision {
+  revision: number;
+  spec: DesignSpec;
+  construction: Construction | null;
+  design: { id: number; number: string; title: string };
+}
+export interface SavedRevisions {
+  revision(designId: number, revision: number): Promise<SavedRevision>;
+}
+
 function incompatibility(core: CoreShape, material: CoreMaterial): string {
   return core.gapKind === 'distributed'
     ? `${core.id} has no air gap to set: it takes a powder material`
@@ -56,6 +69,7 @@ export class CompareService {
   constructor(
     private readonly materials: MaterialsRepository,
     private readonly catalogue: CompareCatalogue,
+    private readonly revisions: SavedRevisions,
   ) {}
 
   private async rows(ids: string[]): Promise<MaterialRow[]> {
@@ -92,10 +106,44 @@ export class CompareService {
     };
   }
 
+  /**
+   * A saved revision's core, turns and wire with each material. The revision's own material version is always
+   * among the rows (even when it has since been edited or retired), so the table shows what the design gives up or gains.
+   */
+  async savedDesign(request: CompareSavedDesignRequest): Promise<CompareDesignResponse> {
+    const saved = await this.revisions.revision(request.designId, request.revision);
+    const construction = saved.construction;
+    const label = `${saved.design.number} revision ${saved.revision}`;
+    if (!construction) {
+      throw conflict(`${label} has no construction yet: pick a core, material and wire on the design page first.`, {
+        revision: 'No construction to compare',
+      });
+    }
+    if (construction.turns === 'auto') {
+      throw conflict(`${label} has no resolved turn count; open it and save it once so the engine fixes the turns.`, { revision: 'Turns not resolved' });
+    }
+    const own = construction.materialId;
+    const listed = request.materialIds?.length ? await this.rows(request.materialIds) : await this.materials.listCurrent();
+    const rows = listed.some((r) => String(r.id) === own) ? listed : [...listed, ...(await this.rows([own]))];
+    const result = await this.compareRows(
+      { spec: saved.spec.converter, limits: saved.spec.limits, coreId: construction.coreId, turns: construction.turns, wire: construction.wire },
+      rows,
+    );
+    return {
+      ...result,
+      design: { id: saved.design.id, number: saved.design.number, title: saved.design.title, revision: saved.revision, materialId: own },
+      rows: result.rows.map((row) => (row.materialId === own ? { ...row, usedByDesign: true } : row)),
+    };
+  }
+
   /** Same core, turns and wire with each material; the gap is solved again for each material's permeability. */
   async design(request: CompareDesignRequest): Promise<CompareDesignResponse> {
-    const core = await this.catalogue.core(request.coreId);
     const rows = request.materialIds?.length ? await this.rows(request.materialIds) : await this.materials.listCurrent();
+    return this.compareRows(request, rows);
+  }
+
+  private async compareRows(request: Omit<CompareDesignRequest, 'materialIds'>, rows: MaterialRow[]): Promise<CompareDesignResponse> {
+    const core = await this.catalogue.core(request.coreId);
     let wire: WireOption;
     try {
       wire = this.catalogue.wire(request.wire);

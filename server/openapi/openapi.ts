@@ -1,5 +1,6 @@
 import * as z from 'zod';
 import { coreLossRequestSchema, evaluateRequestSchema, operatingPointRequestSchema, searchRequestSchema } from '@shared/schemas/calc';
+import { compareCurvesRequestSchema, compareDesignRequestSchema, compareSavedDesignRequestSchema } from '@shared/schemas/compare';
 import { ENGINE_VERSION } from '@shared/engine/index';
 import { APP_VERSION } from '../health/health.router.ts';
 
@@ -40,7 +41,7 @@ export function buildOpenApiDocument() {
   return {
     openapi: '3.1.0',
     info: {
-      title: 'Gapwright calculation API',
+      title: 'Gapwright calculation and comparison API',
       version: APP_VERSION,
       description:
         `Buck-inductor calculations (engine ${ENGINE_VERSION}). JSON in SI units: V, A, Hz, H, T, m, W, W/m³; temperatures in °C. ` +
@@ -68,6 +69,19 @@ export function buildOpenApiDocument() {
       },
       '/calc/evaluate': {
         post: operation('Every figure of one explicit design (add ?sweep=frequency for a loss-versus-frequency sweep)', evaluateRequestSchema, '{ wire, result, lossVersusFrequency? }'),
+      },
+      '/compare/curves': {
+        post: operation('Core-loss density of several materials over a frequency sweep and a ΔB sweep, fitted ranges and extrapolated points marked', compareCurvesRequestSchema, '{ deltaB, frequency, duty, materials: [{ id, name, fit, versusFrequency, versusFlux }] }'),
+      },
+      '/compare/design': {
+        post: operation('One unsaved design (core, turns, wire) with every current material; gap re-solved per material', compareDesignRequestSchema, '{ engineVersion, coreId, turns, rows: [{ materialId, status, coreLoss, totalLoss, … }] }'),
+      },
+      '/compare/saved-design': {
+        post: operation(
+          'A saved revision with every current material and its own material version (usedByDesign); 404 for an unknown design or revision, 409 when the revision has no construction',
+          compareSavedDesignRequestSchema,
+          '{ engineVersion, design, coreId, turns, rows }',
+        ),
       },
     },
   };

@@ -67,8 +67,20 @@ export const compareDesignRequestSchema = z
   .meta({ description: 'One design (same core, turns, wire) evaluated with every current material; gap re-solved per material' });
 export type CompareDesignRequest = z.infer<typeof compareDesignRequestSchema>;
 
+export const compareSavedDesignRequestSchema = z
+  .object({
+    designId: z.number({ error: 'designId must be a design id' }).int('designId must be a design id').min(1, 'designId must be a design id').max(2_147_483_647, 'designId must be a design id'),
+    revision: z.number({ error: 'revision must be a revision number' }).int('revision must be a revision number').min(1, 'revision must be a revision number').max(100_000, 'revision must be a revision number'),
+    materialIds: z.array(materialIdSchema).max(200).optional().meta({ description: "Restrict to these materials (default: every current one plus the revision's own)" }),
+  })
+  .strict()
+  .meta({ description: "A saved revision's core, turns and wire evaluated with every current material; gap re-solved per material" });
+export type CompareSavedDesignRequest = z.infer<typeof compareSavedDesignRequestSchema>;
+
 export interface DesignComparisonRow {
   materialId: string;
+  /** The material version the saved revision was built with. */
+  usedByDesign?: boolean;
   name: string;
   family: string;
   status: 'ok' | 'incompatible' | 'error';
@@ -83,8 +95,17 @@ export interface DesignComparisonRow {
   temperatureRise?: number;
   extrapolated?: boolean;
 }
+export interface ComparedRevision {
+  id: number;
+  number: string;
+  title: string;
+  revision: number;
+  materialId: string;
+}
 export interface CompareDesignResponse {
   engineVersion: string;
+  /** Set when a saved revision was compared. */
+  design?: ComparedRevision;
   coreId: string;
   turns: number;
   rows: DesignComparisonRow[];

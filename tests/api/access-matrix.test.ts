@@ -46,6 +46,7 @@ const POLICY: Record<string, Policy> = {
   'POST /api/calc/evaluate': 'signed-in',
   'POST /api/compare/curves': 'signed-in',
   'POST /api/compare/design': 'signed-in',
+  'POST /api/compare/saved-design': 'signed-in',
 
   'GET /api/catalogue/cores': 'signed-in',
   'GET /api/catalogue/cores/:id/history': 'signed-in',

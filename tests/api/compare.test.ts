@@ -91,3 +91,62 @@ describe('POST /api/compare/design', () => {
     expect(res.body.error.fields.coreId).toMatch(/Unknown core/);
   });
 });
+
+describe('POST /api/compare/saved-design', () => {
+  const SPEC = { converter: { ...EXAMPLE_SPEC, rectifier: 'ideal' } };
+  const construction = () => ({ coreId: 'ETD39/20/13', materialId: knownId, turns: 'auto', gap: 'auto', wire: { kind: 'awg', awg: 16, strands: 2 } });
+  type Row = { materialId: string; status: string; usedByDesign?: boolean; coreLoss?: number; totalLoss?: number; gap?: number };
+
+  it("evaluates a saved revision's core, turns and wire with every material, its own material marked", async () => {
+    const created = await engineer.post('/api/designs', { title: 'Saved comparison', spec: SPEC, construction: construction() });
+    expect(created.status).toBe(201);
+    const saved = created.body.latest as { revision: number; construction: { turns: number; gap: number }; result: { evaluation: { coreLoss: { loss: number }; totalLoss: number } } };
+
+    const res = await engineer.post('/api/compare/saved-design', { designId: created.body.id, revision: saved.revision });
+    expect(res.status).toBe(200);
+    expect(res.body.design).toMatchObject({ id: created.body.id, number: created.body.number, revision: 1, materialId: knownId });
+    expect(res.body.coreId).toBe('ETD39/20/13');
+    expect(res.body.turns).toBe(saved.construction.turns);
+    const rows = res.body.rows as Row[];
+    const own = rows.find((r) => r.materialId === knownId)!;
+    expect(own.usedByDesign).toBe(true);
+    expect(rows.filter((r) => r.usedByDesign)).toHaveLength(1);
+    // Same engine, material, core, turns and wire as the saved result: the comparison reproduces its figures.
+    expect(own.coreLoss).toBeCloseTo(saved.result.evaluation.coreLoss.loss, 9);
+    expect(own.totalLoss).toBeCloseTo(saved.result.evaluation.totalLoss, 9);
+    expect(own.gap).toBeCloseTo(saved.construction.gap, 12);
+  });
+
+  it("keeps the revision's own material version after the material was edited", async () => {
+    const created = await engineer.post('/api/designs', { title: 'Before the edit', spec: SPEC, construction: construction() });
+    const edited = await engineer.patch(`/api/materials/${knownId}`, { beta: 2.6 });
+    expect(edited.status).toBe(201);
+    const res = await engineer.post('/api/compare/saved-design', { designId: created.body.id, revision: 1 });
+    expect(res.status).toBe(200);
+    const rows = res.body.rows as Row[];
+    const ids = rows.map((r) => r.materialId);
+    expect(ids).toContain(knownId);
+    expect(ids).toContain(String(edited.body.id));
+    expect(rows.find((r) => r.materialId === knownId)!.usedByDesign).toBe(true);
+    // Pv ∝ B̂^β with B̂ < 1 T: a larger β gives a smaller loss (Steinmetz, magnetics reference §8.1).
+    const before = rows.find((r) => r.materialId === knownId)!.coreLoss!;
+    const after = rows.find((r) => r.materialId === String(edited.body.id))!.coreLoss!;
+    expect(after).toBeLessThan(before);
+    knownId = String(edited.body.id);
+  });
+
+  it('says what is missing: unknown design, a revision without a construction, a malformed body', async () => {
+    const unknown = await engineer.post('/api/compare/saved-design', { designId: 999999, revision: 1 });
+    expect(unknown.status).toBe(404);
+    const bare = await engineer.post('/api/designs', { title: 'Only a spec', spec: SPEC });
+    const empty = await engineer.post('/api/compare/saved-design', { designId: bare.body.id, revision: 1 });
+    expect(empty.status).toBe(409);
+    expect(empty.body.error.fields.revision).toMatch(/No construction/);
+    const noRevision = await engineer.post('/api/compare/saved-design', { designId: bare.body.id, revision: 7 });
+    expect(noRevision.status).toBe(404);
+    const malformed = await engineer.post('/api/compare/saved-design', { designId: 'GW-0001', revision: 0 });
+    expect(malformed.status).toBe(400);
+    expect(malformed.body.error.fields.designId).toMatch(/design id/);
+    expect(malformed.body.error.fields.revision).toMatch(/revision number/);
+  });
+});

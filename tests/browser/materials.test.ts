@@ -53,6 +53,7 @@ describe('material library, comparison and cores', () => {
     // ngx-echarts marks the element once echarts has drawn into it.
     expect(await page.locator('.gw-chart').first().getAttribute('_echarts_instance_')).toBeTruthy();
 
+    await page.getByRole('radio', { name: 'A design typed in here' }).click();
     await page.getByRole('button', { name: 'Compare on this design' }).click();
     await page.getByRole('cell', { name: 'Example ferrite EF-1 (illustrative)', exact: true }).waitFor();
     await page.getByRole('cell', { name: 'Does not fit this core' }).first().waitFor();
@@ -61,6 +62,21 @@ describe('material library, comparison and cores', () => {
     await context.close();
     // A long walk through three screens with four axe scans; a busy machine needs more than the default minute.
   }, 180_000);
+
+  it('compares a saved revision from its design page, with the material it was built with marked', async () => {
+    const { context, page } = await h.newPage();
+    await signIn(page, engineer.username, engineer.password);
+    await page.goto('/designs');
+    await page.getByRole('row', { name: /Telecom rail 48 V/ }).getByRole('link').first().click();
+    await page.getByRole('link', { name: 'Compare materials on revision 1' }).click();
+    await page.waitForURL(/\/compare\?design=\d+&revision=1/);
+    await page.getByRole('heading', { name: /revision 1 · Telecom rail 48 V/ }).waitFor();
+    await page.getByText("this design's material").waitFor();
+    expect(await page.getByText("this design's material").count()).toBe(1);
+    expect(await seriousAxeFindings(page)).toEqual([]);
+    await page.screenshot({ path: screenshotPath('compare-saved-design'), fullPage: true });
+    await context.close();
+  }, 120_000);
 
   it('shows a hostile file’s problems by row and column and writes nothing', async () => {
     const { context, page } = await h.newPage();

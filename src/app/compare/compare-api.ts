@@ -57,4 +57,8 @@ export class CompareApi {
   design(request: DesignRequest): Observable<CompareDesignResponse> {
     return this.http.post<CompareDesignResponse>('/api/compare/design', request, errorsShownByCaller());
   }
+
+  savedDesign(designId: number, revision: number): Observable<CompareDesignResponse> {
+    return this.http.post<CompareDesignResponse>('/api/compare/saved-design', { designId, revision }, errorsShownByCaller());
+  }
 }

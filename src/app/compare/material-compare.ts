@@ -1,5 +1,5 @@
 import { DecimalPipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, effect, inject, signal, viewChild } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal } from '@angular/core';
 import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
@@ -7,15 +7,13 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
-import { MatSort, MatSortModule } from '@angular/material/sort';
-import { MatTableDataSource, MatTableModule } from '@angular/material/table';
-import type { CompareCurvesResponse, DesignComparisonRow } from '@shared/schemas/compare';
+import type { CompareCurvesResponse } from '@shared/schemas/compare';
 import { NgxEchartsDirective } from 'ngx-echarts';
 
 import { errorMessageOf } from '../core/api-error';
-import { showServerFieldErrors } from '../core/server-field-errors';
 import { ThemeSwitcher } from '../core/theme-switcher';
 import { CompareApi } from './compare-api';
+import { DesignComparison } from './design-comparison';
 import { lossChartOptions, type LossMethod } from './loss-chart-options';
 
 const DEFAULT_SELECTION = 3;
@@ -26,12 +24,11 @@ const DEFAULT_SELECTION = 3;
     DecimalPipe,
     MatButtonModule,
     MatButtonToggleModule,
+    DesignComparison,
     MatFormFieldModule,
     MatInputModule,
     MatProgressBarModule,
     MatSelectModule,
-    MatSortModule,
-    MatTableModule,
     NgxEchartsDirective,
     ReactiveFormsModule,
   ],
@@ -42,10 +39,12 @@ const DEFAULT_SELECTION = 3;
 export class MaterialCompare {
   private readonly api = inject(CompareApi);
   private readonly theme = inject(ThemeSwitcher);
-  private readonly sort = viewChild(MatSort);
+
+  /** Query parameters `design` and `revision` open the page on that saved revision's comparison. */
+  readonly design = input<string | undefined>();
+  readonly revision = input<string | undefined>();
 
   protected readonly materials = this.api.materialsResource();
-  protected readonly cores = this.api.coresResource();
   protected readonly curveForm = new FormGroup({
     materialIds: new FormControl<string[]>([], { nonNullable: true, validators: [Validators.required] }),
     deltaBMilli: new FormControl(200, { nonNullable: true, validators: [Validators.required, Validators.min(0.1), Validators.max(2000)] }),
@@ -66,24 +65,6 @@ export class MaterialCompare {
     return c ? lossChartOptions(c.materials, 'flux', this.method(), this.dark()) : null;
   });
 
-  protected readonly designForm = new FormGroup({
-    vinMin: new FormControl(24, { nonNullable: true, validators: [Validators.required, Validators.min(0.5)] }),
-    vinMax: new FormControl(36, { nonNullable: true, validators: [Validators.required, Validators.min(0.5)] }),
-    vout: new FormControl(12, { nonNullable: true, validators: [Validators.required, Validators.min(0.1)] }),
-    ioutMax: new FormControl(10, { nonNullable: true, validators: [Validators.required, Validators.min(0.001)] }),
-    frequencyKilo: new FormControl(100, { nonNullable: true, validators: [Validators.required, Validators.min(1), Validators.max(10000)] }),
-    rippleRatio: new FormControl(0.3, { nonNullable: true, validators: [Validators.required, Validators.min(0.01), Validators.max(2)] }),
-    coreId: new FormControl('ETD34/17/11', { nonNullable: true, validators: [Validators.required] }),
-    turns: new FormControl(20, { nonNullable: true, validators: [Validators.required, Validators.min(1), Validators.max(2000)] }),
-    awg: new FormControl(18, { nonNullable: true, validators: [Validators.required, Validators.min(-3), Validators.max(46)] }),
-    strands: new FormControl(2, { nonNullable: true, validators: [Validators.required, Validators.min(1), Validators.max(5000)] }),
-  });
-  protected readonly designColumns = ['name', 'status', 'gap', 'coreLoss', 'copperLoss', 'totalLoss', 'temperatureRise', 'notes'];
-  protected readonly designRows = new MatTableDataSource<DesignComparisonRow>([]);
-  protected readonly designLoading = signal(false);
-  protected readonly designError = signal<string | null>(null);
-  protected readonly designShown = signal(false);
-
   constructor() {
     effect(() => {
       const list = this.materials.value();
@@ -93,15 +74,6 @@ export class MaterialCompare {
         this.drawCurves();
       }
     });
-    effect(() => {
-      const sort = this.sort();
-      if (sort) this.designRows.sort = sort;
-    });
-    // Rows that could not be computed sort last whatever the direction.
-    this.designRows.sortingDataAccessor = (row, column) => {
-      const value = (row as unknown as Record<string, unknown>)[column];
-      return typeof value === 'number' || typeof value === 'string' ? value : Number.MAX_VALUE;
-    };
   }
 
   protected drawCurves(): void {
@@ -122,33 +94,5 @@ export class MaterialCompare {
         this.curvesError.set(errorMessageOf(error));
       },
     });
-  }
-
-  protected compareDesign(): void {
-    if (this.designForm.invalid) {
-      this.designForm.markAllAsTouched();
-      return;
-    }
-    const v = this.designForm.getRawValue();
-    this.designLoading.set(true);
-    this.designError.set(null);
-    this.api
-      .design({
-        spec: { vinMin: v.vinMin, vinMax: v.vinMax, vout: v.vout, ioutMax: v.ioutMax, frequency: v.frequencyKilo * 1000, rippleRatio: v.rippleRatio },
-        coreId: v.coreId,
-        turns: v.turns,
-        wire: { kind: 'awg', awg: v.awg, strands: v.strands },
-      })
-      .subscribe({
-        next: (result) => {
-          this.designLoading.set(false);
-          this.designShown.set(true);
-          this.designRows.data = result.rows;
-        },
-        error: (error: unknown) => {
-          this.designLoading.set(false);
-          this.designError.set(showServerFieldErrors(this.designForm, error) ?? 'Some fields need attention; see the messages under them.');
-        },
-      });
   }
 }

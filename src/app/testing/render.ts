@@ -2,6 +2,7 @@ import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { provideZonelessChangeDetection, type Type } from '@angular/core';
 import { TestBed, type ComponentFixture } from '@angular/core/testing';
+import { provideRouter } from '@angular/router';
 
 export interface Rendered<T> {
   fixture: ComponentFixture<T>;
@@ -9,15 +10,21 @@ export interface Rendered<T> {
   page: HTMLElement;
 }
 
-/** A component rendered zoneless with a fake HTTP backend, its inputs set, and settled. */
-export async function renderWithHttpTesting<T>(component: Type<T>, inputs: Record<string, unknown> = {}): Promise<Rendered<T>> {
+/** A component rendered zoneless with a fake HTTP backend and an empty router, its inputs set, and settled. */
+export async function renderWithHttpTesting<T>(
+  component: Type<T>,
+  inputs: Record<string, unknown> = {},
+  { settle = true } = {},
+): Promise<Rendered<T>> {
   TestBed.configureTestingModule({
-    providers: [provideZonelessChangeDetection(), provideHttpClient(), provideHttpClientTesting()],
+    providers: [provideZonelessChangeDetection(), provideHttpClient(), provideHttpClientTesting(), provideRouter([])],
   });
   const http = TestBed.inject(HttpTestingController);
   const fixture = TestBed.createComponent(component);
   for (const [name, value] of Object.entries(inputs)) fixture.componentRef.setInput(name, value);
   const page = fixture.nativeElement as HTMLElement;
-  await fixture.whenStable();
+  // A component that loads data on start never settles before the test answers its requests: tick instead.
+  if (settle) await fixture.whenStable();
+  else TestBed.tick();
   return { fixture, http, page };
 }
