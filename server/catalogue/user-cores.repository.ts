@@ -1,11 +1,12 @@
-import { and, asc, desc, eq } from 'drizzle-orm';
-import type { Db } from '../db/client.ts';
+import { and, asc, desc, eq, inArray } from 'drizzle-orm';
+import type { Db, Tx } from '../db/client.ts';
 import { userCores, users } from '../db/schema.ts';
 
 export type UserCoreRow = typeof userCores.$inferSelect;
 export interface UserCoreWithAuthor extends UserCoreRow {
   createdByName: string | null;
 }
+export type NewUserCoreVersion = Omit<typeof userCores.$inferInsert, 'id' | 'createdAt' | 'current'>;
 
 export class UserCoresRepository {
   constructor(readonly db: Db) {}
@@ -37,12 +38,28 @@ export class UserCoresRepository {
   }
 
   /** Adds a version; the previous one (if any) stops being current, in one transaction. */
-  async addVersion(values: Omit<typeof userCores.$inferInsert, 'id' | 'createdAt' | 'current'>, previousId?: number): Promise<UserCoreRow> {
+  async addVersion(values: NewUserCoreVersion, previousId?: number): Promise<UserCoreRow> {
     return this.db.transaction(async (tx) => {
-      if (previousId !== undefined) await tx.update(userCores).set({ current: false }).where(eq(userCores.id, previousId));
-      const [row] = await tx.insert(userCores).values(values).returning();
+      if (previousId !== undefined) await this.supersede(tx, [previousId]);
+      const [row] = await this.insertVersions(tx, [values]);
       return row!;
     });
+  }
+
+  /** Current versions (retired ones too) by lower-case name; inside a transaction when given one. */
+  async currentByLowerName(tx: Tx | Db = this.db): Promise<Map<string, UserCoreRow>> {
+    const rows = await tx.select().from(userCores).where(eq(userCores.current, true));
+    return new Map(rows.map((r) => [r.name.toLowerCase(), r]));
+  }
+
+  /** The given versions stop being current (a new version of each is about to be inserted). */
+  async supersede(tx: Tx, ids: number[]): Promise<void> {
+    if (ids.length) await tx.update(userCores).set({ current: false }).where(inArray(userCores.id, ids));
+  }
+
+  async insertVersions(tx: Tx, rows: NewUserCoreVersion[]): Promise<UserCoreRow[]> {
+    if (!rows.length) return [];
+    return tx.insert(userCores).values(rows).returning();
   }
 
   async setRetired(id: number, retired: boolean): Promise<UserCoreRow | undefined> {

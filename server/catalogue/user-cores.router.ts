@@ -1,10 +1,11 @@
 import { Router } from 'express';
 import { userCoreRequestSchema } from '@shared/schemas/cores';
 import { actorOf, requireRole, requireSignIn } from '../http/access.ts';
+import { decisionsField, singleCsvUpload, uploadedFile } from '../http/csv-upload.ts';
 import { parseBody, parseIdParam } from '../http/validate.ts';
 import type { UserCoresService } from './user-cores.service.ts';
 
-/** Shipped and user cores; mounted before the shipped-only catalogue router so GET /cores lists both. */
+/** Shipped and user cores (one at a time or a CSV file); mounted before the shipped-only catalogue router so GET /cores lists both. */
 export function userCoresRouter(cores: UserCoresService): Router {
   const router = Router();
   router.use(requireSignIn);
@@ -16,6 +17,15 @@ export function userCoresRouter(cores: UserCoresService): Router {
   });
   router.post('/cores', authors, async (req, res) => {
     res.status(201).json(await cores.create(parseBody(userCoreRequestSchema, req), actorOf(req)));
+  });
+  router.get('/cores/template.csv', (_req, res) => {
+    res.attachment('gapwright-cores-template.csv').type('text/csv; charset=utf-8').send(cores.template());
+  });
+  router.post('/cores/import/preview', authors, singleCsvUpload(), async (req, res) => {
+    res.json(await cores.preview(uploadedFile(req)));
+  });
+  router.post('/cores/import/commit', authors, singleCsvUpload(), async (req, res) => {
+    res.status(201).json(await cores.commit(uploadedFile(req), decisionsField(req), actorOf(req)));
   });
   router.get('/cores/:id/history', async (req, res) => {
     res.json({ versions: await cores.history(parseIdParam(req)) });

@@ -1,14 +1,34 @@
-import { coreShapeSchema, IEC60205_SOURCE_NOTE } from '@shared/catalogue/core-schema';
-import { ringCoreShape } from '@shared/catalogue/ring-core';
 import type { CoreShape } from '@shared/engine/types';
+import {
+  CORE_CSV_COLUMNS,
+  importDecisionsSchema,
+  REQUIRED_CORE_COLUMNS,
+  validateCoreCells,
+  type CoreCsvColumn,
+  type ImportDecision,
+  type ImportPreview,
+} from '@shared/schemas/core-csv';
 import type { UserCoreRequest } from '@shared/schemas/cores';
+import { checkedUserCoreShape } from '@shared/schemas/user-core-shape';
 import type { AuditService } from '../audit/audit.service.ts';
 import type { Actor } from '../http/access.ts';
-import { badRequest, conflict, notFound } from '../http/errors.ts';
-import { fieldErrorsFromZod } from '../http/errors.ts';
+import {
+  analyseRecords,
+  decodeCsvText,
+  parseCsvTable,
+  rowErrors,
+  stringifyCsvTable,
+  summarisePreview,
+  undecidedNames,
+  type CsvTableFormat,
+} from '../http/csv-table.ts';
+import type { UploadedFile } from '../http/csv-upload.ts';
+import { badRequest, conflict, fieldErrorsFromZod, notFound } from '../http/errors.ts';
+import { parseWith } from '../http/validate.ts';
 import { lineageSlug } from '../materials/materials.service.ts';
 import type { CatalogueService } from './catalogue.service.ts';
-import type { UserCoreWithAuthor, UserCoresRepository } from './user-cores.repository.ts';
+import { CORE_TEMPLATE_ROWS } from './core-template.ts';
+import type { NewUserCoreVersion, UserCoreRow, UserCoreWithAuthor, UserCoresRepository } from './user-cores.repository.ts';
 
 export type CoreOrigin = 'shipped' | 'user';
 
@@ -25,36 +45,25 @@ function listed(shape: CoreShape, origin: CoreOrigin, row?: UserCoreWithAuthor) 
 
 /** The engine's CoreShape from a request, checked with the shared core schema. */
 export function shapeFromRequest(request: UserCoreRequest): CoreShape {
-  const shape: CoreShape =
-    request.kind === 'ring'
-      ? ringCoreShape({
-          id: request.name,
-          family: request.family,
-          dimensions: { outerDiameter: request.outerDiameter, innerDiameter: request.innerDiameter, height: request.height },
-          source: [IEC60205_SOURCE_NOTE, request.source].filter(Boolean).join('; '),
-        })
-      : {
-          id: request.name,
-          family: request.family,
-          gapKind: 'air-gap',
-          ae: request.ae,
-          ...(request.amin !== undefined ? { amin: request.amin } : {}),
-          le: request.le,
-          ve: request.ve,
-          windowArea: request.windowArea,
-          windowHeight: request.windowHeight,
-          bobbinWidth: request.bobbinWidth,
-          bobbinHeight: request.bobbinHeight,
-          mlt: request.mlt,
-          surfaceArea: request.surfaceArea,
-          source: request.source,
-        };
-  const checked = coreShapeSchema.safeParse(shape);
-  if (!checked.success) {
-    const fields = fieldErrorsFromZod(checked.error);
+  const { shape, error } = checkedUserCoreShape(request);
+  if (error) {
+    const fields = fieldErrorsFromZod(error);
     throw badRequest(`The core is not consistent: ${Object.entries(fields).map(([k, v]) => `${k}: ${v}`).slice(0, 3).join('; ')}`, fields);
   }
   return shape;
+}
+
+/** A user core file holds at most this many rows: every current core joins every search. */
+export const MAX_CORE_ROWS = 1_000;
+const CORE_TABLE: CsvTableFormat<CoreCsvColumn> = { columns: CORE_CSV_COLUMNS, required: REQUIRED_CORE_COLUMNS, noun: 'core', maxRows: MAX_CORE_ROWS };
+
+/** A lineage of its own for a new core: its name, a time stamp, and a counter where two names give one slug. */
+function newLineage(name: string, stamp: string, taken: Set<string>): string {
+  const slug = lineageSlug(name);
+  let lineage = `${slug}-${stamp}`;
+  for (let n = 2; taken.has(lineage); n++) lineage = `${slug.slice(0, 64)}-${stamp}-${n}`;
+  taken.add(lineage);
+  return lineage;
 }
 
 /** Shipped cores plus the cores users added (versioned like materials). */
@@ -107,7 +116,7 @@ export class UserCoresService {
   async create(request: UserCoreRequest, actor: Actor) {
     const shape = shapeFromRequest(request);
     await this.assertNameFree(request.name);
-    const lineage = `${lineageSlug(request.name)}-${Date.now().toString(36)}`;
+    const lineage = newLineage(request.name, Date.now().toString(36), new Set());
     const row = await this.repo.addVersion({ lineage, version: 1, name: request.name, family: shape.family, shape, createdBy: actor.id, retired: false });
     await this.refresh();
     await this.audit.record({ actorId: actor.id, action: 'core.added', target: request.name, details: { id: row.id } });
@@ -135,5 +144,67 @@ export class UserCoresService {
     await this.refresh();
     await this.audit.record({ actorId: actor.id, action: retired ? 'core.retired' : 'core.unretired', target: row.name, details: { id } });
     return listed(row.shape as CoreShape, 'user', { ...row, createdByName: null });
+  }
+
+  template(): string {
+    return stringifyCsvTable(CORE_TEMPLATE_ROWS, CORE_CSV_COLUMNS);
+  }
+
+  /** The rows of a core file checked one by one, against each other, the shipped names and the stored user cores. */
+  private analyse(file: UploadedFile, existing: Map<string, UserCoreRow>) {
+    const shipped = new Set(this.catalogue.shippedCores().map((c) => c.id.toLowerCase()));
+    const records = parseCsvTable(decodeCsvText(file.buffer), CORE_TABLE);
+    return analyseRecords(
+      records,
+      (cells) => {
+        const result = validateCoreCells(cells);
+        const name = (cells.name ?? '').trim();
+        if (!shipped.has(name.toLowerCase())) return result;
+        return { problems: [...result.problems, { column: 'name', message: `name "${name}" is a shipped core; choose another name` }] };
+      },
+      (lowerName) => existing.get(lowerName),
+    );
+  }
+
+  async preview(file: UploadedFile): Promise<ImportPreview> {
+    const analysis = this.analyse(file, await this.repo.currentByLowerName());
+    return summarisePreview(file.originalname, analysis.rows);
+  }
+
+  /** All or nothing, in one transaction: any row problem or missing decision refuses the whole file. */
+  async commit(file: UploadedFile, rawDecisions: unknown, actor: Actor) {
+    const decisions = parseWith(importDecisionsSchema, rawDecisions ?? {});
+    const byLowerName = new Map(Object.entries(decisions).map(([name, d]) => [name.trim().toLowerCase(), d] as [string, ImportDecision]));
+    const result = await this.repo.db.transaction(async (tx) => {
+      const analysis = this.analyse(file, await this.repo.currentByLowerName(tx));
+      if (analysis.rows.some((r) => r.status === 'error')) throw rowErrors(analysis.rows);
+      const undecided = undecidedNames(analysis.valid, (lowerName) => byLowerName.has(lowerName));
+      if (undecided) throw undecided;
+
+      const stamp = Date.now().toString(36);
+      const taken = new Set<string>();
+      const superseded: number[] = [];
+      const toInsert: NewUserCoreVersion[] = [];
+      let skipped = 0;
+      for (const { values, existing } of analysis.valid) {
+        const shape = shapeFromRequest(values);
+        const core = { name: values.name, family: shape.family, shape, createdBy: actor.id };
+        if (!existing) {
+          toInsert.push({ ...core, lineage: newLineage(values.name, stamp, taken), version: 1, retired: false });
+        } else if (byLowerName.get(values.name.toLowerCase()) === 'skip') {
+          skipped++;
+        } else {
+          superseded.push(existing.id);
+          toInsert.push({ ...core, lineage: existing.lineage, version: existing.version + 1, retired: existing.retired });
+        }
+      }
+      await this.repo.supersede(tx, superseded);
+      const inserted = await this.repo.insertVersions(tx, toInsert);
+      return { created: toInsert.length - superseded.length, versioned: superseded.length, skipped, coreIds: inserted.map((r) => r.id) };
+    });
+    const fileName = file.originalname.slice(0, 200) || 'upload.csv';
+    await this.audit.record({ actorId: actor.id, action: 'cores.imported', target: fileName, details: { created: result.created, versioned: result.versioned, skipped: result.skipped } });
+    await this.refresh();
+    return { fileName, ...result };
   }
 }

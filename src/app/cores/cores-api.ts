@@ -1,9 +1,11 @@
 import { HttpClient, httpResource } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
+import type { ImportDecision, ImportPreview } from '@shared/schemas/core-csv';
 import type { UserCoreRequest } from '@shared/schemas/cores';
 import type { Observable } from 'rxjs';
 
 import { errorsShownByCaller } from '../core/error-display';
+import { uploadCsv, type UploadStep } from '../core/upload-steps';
 
 export interface CatalogueCore {
   id: string;
@@ -22,6 +24,15 @@ export interface CatalogueCore {
   createdBy?: string | null;
 }
 
+/** What an import of a core CSV file did. */
+export interface CoreImportResult {
+  fileName: string;
+  created: number;
+  versioned: number;
+  skipped: number;
+  coreIds: number[];
+}
+
 @Injectable({ providedIn: 'root' })
 export class CoresApi {
   private readonly http = inject(HttpClient);
@@ -35,5 +46,15 @@ export class CoresApi {
 
   create(request: UserCoreRequest): Observable<CatalogueCore> {
     return this.http.post<CatalogueCore>('/api/catalogue/cores', request, errorsShownByCaller());
+  }
+
+  /** Every row of a core CSV file with its status and problems; nothing is written. */
+  previewImport(file: File): Observable<UploadStep<ImportPreview>> {
+    return uploadCsv<ImportPreview>(this.http, '/api/catalogue/cores/import/preview', file);
+  }
+
+  /** All rows or none; `decisions` says what to do with each name that already exists. */
+  commitImport(file: File, decisions: Record<string, ImportDecision>): Observable<UploadStep<CoreImportResult>> {
+    return uploadCsv<CoreImportResult>(this.http, '/api/catalogue/cores/import/commit', file, decisions);
   }
 }

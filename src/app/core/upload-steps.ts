@@ -1,0 +1,31 @@
+import { HttpEventType, type HttpClient, type HttpEvent } from '@angular/common/http';
+import { filter, map, type Observable } from 'rxjs';
+
+import { errorsShownByCaller } from './error-display';
+
+/** Upload progress (0–100 while the file travels, null while the server checks it) or the answer. */
+export type UploadStep<T> = { kind: 'progress'; percent: number | null } | { kind: 'done'; body: T };
+
+/** The events of an upload (`reportProgress: true, observe: 'events'`) as progress steps and the answer. */
+export function uploadSteps<T>(events: Observable<HttpEvent<T>>): Observable<UploadStep<T>> {
+  return events.pipe(
+    filter((e) => e.type === HttpEventType.UploadProgress || e.type === HttpEventType.Response),
+    map((e): UploadStep<T> => {
+      if (e.type === HttpEventType.Response) return { kind: 'done', body: e.body as T };
+      if (e.type !== HttpEventType.UploadProgress) return { kind: 'progress', percent: null };
+      const percent = e.total ? Math.round((100 * e.loaded) / e.total) : null;
+      return { kind: 'progress', percent: percent !== null && percent >= 100 ? null : percent };
+    }),
+  );
+}
+
+/**
+ * POST one CSV file in the field "file" (and, for a commit, the per-name decisions as JSON in "decisions"),
+ * reporting upload progress. The caller shows the errors (row and column problems belong beside the file).
+ */
+export function uploadCsv<T>(http: HttpClient, url: string, file: File, decisions?: Record<string, string>): Observable<UploadStep<T>> {
+  const form = new FormData();
+  if (decisions) form.append('decisions', JSON.stringify(decisions));
+  form.append('file', file, file.name);
+  return uploadSteps(http.post<T>(url, form, { ...errorsShownByCaller(), reportProgress: true, observe: 'events' }));
+}
