@@ -11,7 +11,9 @@ import { MatTableDataSource, MatTableModule } from '@angular/material/table';
 
 import { Notifier } from '../core/notifier';
 import { CoreForm } from './core-form';
-import { CoresApi, type CatalogueCore } from './cores-api';
+import { CoreUpload } from './core-upload';
+import { ShapedCoreForm } from './shaped-core-form';
+import { CoresApi, type CatalogueCore, type CoreImportResult } from './cores-api';
 import { bindTableSource } from '../core/table-binding';
 
 interface CoreFilters {
@@ -25,6 +27,8 @@ interface CoreFilters {
   selector: 'gw-core-catalogue',
   imports: [
     CoreForm,
+    CoreUpload,
+    ShapedCoreForm,
     DecimalPipe,
     MatExpansionModule,
     MatFormFieldModule,
@@ -76,6 +80,11 @@ export class CoreCatalogue {
 
   protected added(core: CatalogueCore): void {
     this.notifier.info(`Core ${core.id} added: le ${(core.le * 1e3).toFixed(2)} mm, Ae ${(core.ae * 1e6).toFixed(2)} mm².`);
+    this.cores.reload();
+  }
+
+  protected importedCores(result: CoreImportResult): void {
+    this.notifier.info(`${result.fileName}: ${result.created} cores added, ${result.versioned} new versions, ${result.skipped} skipped.`);
     this.cores.reload();
   }
 }

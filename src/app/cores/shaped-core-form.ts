@@ -1,0 +1,96 @@
+import { ChangeDetectionStrategy, Component, computed, inject, output, signal, viewChild } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
+import { FormControl, FormGroup, FormGroupDirective, ReactiveFormsModule, Validators } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatInputModule } from '@angular/material/input';
+import { MatSelectModule } from '@angular/material/select';
+import { VOLUME_CONSISTENCY_TOLERANCE } from '@shared/catalogue/core-schema';
+import { GAPPED_CORE_FAMILIES } from '@shared/schemas/cores';
+
+import { showServerFieldErrors } from '../core/server-field-errors';
+import { CoresApi, type CatalogueCore } from './cores-api';
+
+type GappedFamily = (typeof GAPPED_CORE_FAMILIES)[number];
+type ParameterName = 'ae' | 'amin' | 'le' | 've' | 'windowArea' | 'windowHeight' | 'bobbinWidth' | 'bobbinHeight' | 'mlt' | 'surfaceArea';
+
+/** Each effective parameter as typed (unit in the label) and its factor to SI. */
+const PARAMETERS: readonly { name: ParameterName; label: string; toSi: number; required: boolean }[] = [
+  { name: 'ae', label: 'Ae, effective area (mm²)', toSi: 1e-6, required: true },
+  { name: 'amin', label: 'Amin, smallest area (mm², optional)', toSi: 1e-6, required: false },
+  { name: 'le', label: 'le, effective path length (mm)', toSi: 1e-3, required: true },
+  { name: 've', label: 'Ve, effective volume (mm³)', toSi: 1e-9, required: true },
+  { name: 'windowArea', label: 'Window area (mm²)', toSi: 1e-6, required: true },
+  { name: 'windowHeight', label: 'Window height (mm)', toSi: 1e-3, required: true },
+  { name: 'bobbinWidth', label: 'Bobbin winding width (mm)', toSi: 1e-3, required: true },
+  { name: 'bobbinHeight', label: 'Bobbin winding height (mm)', toSi: 1e-3, required: true },
+  { name: 'mlt', label: 'Mean length of a turn (mm)', toSi: 1e-3, required: true },
+  { name: 'surfaceArea', label: 'Outer surface for cooling (cm²)', toSi: 1e-4, required: true },
+];
+
+const parameterControl = (required: boolean) =>
+  new FormControl<number | null>(null, { validators: required ? [Validators.required, Validators.min(1e-3)] : [Validators.min(1e-3)] });
+
+/** A gapped set (E, ETD, PQ, RM, pot…) from its effective parameters as a datasheet or a drawing gives them. */
+@Component({
+  selector: 'gw-shaped-core-form',
+  imports: [MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, ReactiveFormsModule],
+  templateUrl: './shaped-core-form.html',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class ShapedCoreForm {
+  private readonly api = inject(CoresApi);
+  private readonly formDirective = viewChild.required(FormGroupDirective);
+  readonly created = output<CatalogueCore>();
+
+  protected readonly families = GAPPED_CORE_FAMILIES;
+  protected readonly parameters = PARAMETERS;
+  protected readonly form = new FormGroup({
+    name: new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.maxLength(60), Validators.pattern(/^[^=+\-@]/)] }),
+    family: new FormControl<GappedFamily>('ETD', { nonNullable: true, validators: [Validators.required] }),
+    ae: parameterControl(true),
+    amin: parameterControl(false),
+    le: parameterControl(true),
+    ve: parameterControl(true),
+    windowArea: parameterControl(true),
+    windowHeight: parameterControl(true),
+    bobbinWidth: parameterControl(true),
+    bobbinHeight: parameterControl(true),
+    mlt: parameterControl(true),
+    surfaceArea: parameterControl(true),
+    source: new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.maxLength(300)] }),
+  });
+  protected readonly submitting = signal(false);
+  protected readonly failure = signal<string | null>(null);
+
+  private readonly values = toSignal(this.form.valueChanges, { initialValue: this.form.value });
+  /** Ae·le beside the volume field: the server refuses a Ve more than 5 % away from it. */
+  protected readonly volumeHint = computed(() => {
+    const { ae, le } = this.values();
+    return ae && le ? `Ae·le = ${(ae * le).toPrecision(4)} mm³; Ve must be within ${VOLUME_CONSISTENCY_TOLERANCE * 100} %` : '';
+  });
+
+  protected submit(): void {
+    if (this.form.invalid) {
+      this.form.markAllAsTouched();
+      return;
+    }
+    const v = this.form.getRawValue();
+    const si = Object.fromEntries(
+      PARAMETERS.filter((p) => v[p.name] !== null).map((p) => [p.name, (v[p.name] as number) * p.toSi]),
+    ) as Record<ParameterName, number>;
+    this.submitting.set(true);
+    this.failure.set(null);
+    this.api.create({ kind: 'shape', name: v.name.trim(), family: v.family, ...si, source: v.source.trim() }).subscribe({
+      next: (core) => {
+        this.submitting.set(false);
+        this.formDirective().resetForm({ name: '', family: 'ETD', source: '' });
+        this.created.emit(core);
+      },
+      error: (error: unknown) => {
+        this.submitting.set(false);
+        this.failure.set(showServerFieldErrors(this.form, error));
+      },
+    });
+  }
+}
