@@ -57,7 +57,7 @@ export function kFromSi(kSi: number, unitSet: MaterialUnitSet, alpha: number, be
 }
 
 // Plain decimal numbers with an optional exponent; no thousands separators, no decimal comma, no hex.
-const NUMBER_TEXT = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
+export const NUMBER_TEXT = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
 // A cell a spreadsheet would run as a formula.
 const FORMULA_START = /^[=+\-@\t\r]/;
 

@@ -2,6 +2,7 @@ import { DatePipe, DecimalPipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, signal, viewChild } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCheckboxModule } from '@angular/material/checkbox';
+import { MatDialog } from '@angular/material/dialog';
 import { MatExpansionModule } from '@angular/material/expansion';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
@@ -12,6 +13,7 @@ import { MatTableDataSource, MatTableModule } from '@angular/material/table';
 
 import { Notifier } from '../core/notifier';
 import { Session } from '../core/session';
+import { MaterialEdit } from './material-edit';
 import { MaterialUpload } from './material-upload';
 import { MaterialsApi, type CommitResult, type LibraryMaterial } from './materials-api';
 import { bindTableSource } from '../core/table-binding';
@@ -40,18 +42,20 @@ export class MaterialLibrary {
   private readonly api = inject(MaterialsApi);
   private readonly notifier = inject(Notifier);
   private readonly session = inject(Session);
+  private readonly dialog = inject(MatDialog);
   private readonly sort = viewChild.required(MatSort);
   private readonly paginator = viewChild.required(MatPaginator);
 
   protected readonly materials = this.api.listResource();
   protected readonly imports = this.api.importsResource();
-  protected readonly mayUpload = computed(() => ['engineer', 'reviewer', 'admin'].includes(this.session.user()?.role ?? ''));
+  /** Uploading and editing both add versions. */
+  protected readonly mayAddVersions = computed(() => ['engineer', 'reviewer', 'admin'].includes(this.session.user()?.role ?? ''));
   protected readonly mayRetire = computed(() => ['reviewer', 'admin'].includes(this.session.user()?.role ?? ''));
   protected readonly columns = computed(() => [
     'select', 'name', 'family', 'version', 'steinmetz', 'fit', 'provenance', 'createdBy', 'createdAt', 'state', 'actions',
   ]);
   protected readonly historyColumns = ['version', 'steinmetz', 'fit', 'provenance', 'createdBy', 'createdAt'];
-  protected readonly history = signal<{ name: string; versions: LibraryMaterial[] } | null>(null);
+  protected readonly history = signal<{ lineage: string; name: string; versions: LibraryMaterial[] } | null>(null);
   protected readonly importColumns = ['uploadedAt', 'fileName', 'uploadedBy', 'counts'];
   protected readonly dataSource = new MatTableDataSource<LibraryMaterial>([]);
   protected readonly filterText = signal('');
@@ -101,7 +105,19 @@ export class MaterialLibrary {
   }
 
   protected showHistory(material: LibraryMaterial): void {
-    this.api.history(material.id).subscribe((versions) => this.history.set({ name: material.name, versions }));
+    this.api.history(material.id).subscribe((versions) => this.history.set({ lineage: material.lineage, name: material.name, versions }));
+  }
+
+  protected edit(material: LibraryMaterial): void {
+    this.dialog
+      .open<MaterialEdit, LibraryMaterial, LibraryMaterial>(MaterialEdit, { data: material, width: '880px', maxWidth: '95vw' })
+      .afterClosed()
+      .subscribe((saved) => {
+        if (!saved) return;
+        this.notifier.info(`Saved as version ${saved.version} of ${saved.name}`);
+        this.materials.reload();
+        if (this.history()?.lineage === saved.lineage) this.showHistory(saved);
+      });
   }
 
   protected setRetired(material: LibraryMaterial, retired: boolean): void {

@@ -1,9 +1,10 @@
-import { HttpClient, HttpEventType, httpResource, type HttpEvent } from '@angular/common/http';
+import { HttpClient, httpResource } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
-import type { ImportDecision, ImportPreview } from '@shared/schemas/materials';
-import { filter, map, type Observable } from 'rxjs';
+import type { ImportDecision, ImportPreview, MaterialCsvColumn, MaterialEdit } from '@shared/schemas/materials';
+import { map, type Observable } from 'rxjs';
 
 import { errorsShownByCaller } from '../core/error-display';
+import { uploadSteps, type UploadStep } from '../core/upload-steps';
 
 export interface LibraryMaterial {
   id: string;
@@ -26,6 +27,8 @@ export interface LibraryMaterial {
   provenance: string;
   createdAt: string;
   createdBy: string | null;
+  /** Its values as CSV cells in its own unit set (what the edit form starts from). */
+  cells: Record<MaterialCsvColumn, string>;
 }
 
 export interface MaterialImportEntry {
@@ -45,21 +48,6 @@ export interface CommitResult {
   versioned: number;
   skipped: number;
   materialIds: number[];
-}
-
-/** Upload progress (0–100 while the file travels, null while the server checks it) or the answer. */
-export type UploadStep<T> = { kind: 'progress'; percent: number | null } | { kind: 'done'; body: T };
-
-function uploadSteps<T>(events: Observable<HttpEvent<T>>): Observable<UploadStep<T>> {
-  return events.pipe(
-    filter((e) => e.type === HttpEventType.UploadProgress || e.type === HttpEventType.Response),
-    map((e): UploadStep<T> => {
-      if (e.type === HttpEventType.Response) return { kind: 'done', body: e.body as T };
-      if (e.type !== HttpEventType.UploadProgress) return { kind: 'progress', percent: null };
-      const percent = e.total ? Math.round((100 * e.loaded) / e.total) : null;
-      return { kind: 'progress', percent: percent !== null && percent >= 100 ? null : percent };
-    }),
-  );
 }
 
 @Injectable({ providedIn: 'root' })
@@ -99,6 +87,11 @@ export class MaterialsApi {
 
   history(id: string): Observable<LibraryMaterial[]> {
     return this.http.get<{ versions: LibraryMaterial[] }>(`/api/materials/${id}/history`).pipe(map((body) => body.versions));
+  }
+
+  /** Changed cells only (CSV columns, in the material's unit set); the answer is the new version. */
+  edit(id: string, cells: MaterialEdit): Observable<LibraryMaterial> {
+    return this.http.patch<LibraryMaterial>(`/api/materials/${id}`, cells, errorsShownByCaller());
   }
 
   setRetired(id: string, retired: boolean): Observable<LibraryMaterial> {

@@ -1,0 +1,180 @@
+import type { HttpTestingController } from '@angular/common/http/testing';
+import type { ComponentFixture } from '@angular/core/testing';
+import { TestBed } from '@angular/core/testing';
+import { MAT_DIALOG_DATA, MatDialogRef } from '@angular/material/dialog';
+import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+
+import { fieldLabelled, typeInto } from '../testing/form-fields';
+import { renderWithHttpTesting } from '../testing/render';
+import { MaterialEdit } from './material-edit';
+import type { LibraryMaterial } from './materials-api';
+
+// An invented material in SI cells; the numbers are picked to make the unit conversion easy to follow.
+const MATERIAL: LibraryMaterial = {
+  id: '12',
+  name: 'Test ferrite TF-1 (invented)',
+  family: 'ferrite',
+  lineage: 'test-ferrite-tf-1-invented',
+  version: 3,
+  retired: false,
+  current: true,
+  unitSet: 'W/m3-Hz-T',
+  kUploaded: 10,
+  k: 10,
+  alpha: 1.5,
+  beta: 2.5,
+  fitFrequencyMin: 50e3,
+  fitFrequencyMax: 300e3,
+  fitFluxMin: 0.02,
+  fitFluxMax: 0.25,
+  permeability: 2000,
+  provenance: 'invented for a test',
+  createdAt: '2026-03-01T10:00:00.000Z',
+  createdBy: 'Erin Calder',
+  cells: {
+    name: 'Test ferrite TF-1 (invented)',
+    family: 'ferrite',
+    unit_set: 'W/m3-Hz-T',
+    k: '10',
+    alpha: '1.5',
+    beta: '2.5',
+    f_min: '50000',
+    f_max: '300000',
+    b_min: '0.02',
+    b_max: '0.25',
+    ct0: '',
+    ct1: '',
+    ct2: '',
+    t_ref: '',
+    bsat_25: '0.5',
+    bsat_100: '0.4',
+    mu_i: '2000',
+    rolloff_a: '',
+    rolloff_b: '',
+    rolloff_c: '',
+    density: '4800',
+    provenance: 'invented for a test',
+  },
+};
+
+const BETA = 'β, flux exponent (no unit)';
+const ALPHA = 'α, frequency exponent (no unit)';
+
+describe('MaterialEdit', () => {
+  let fixture: ComponentFixture<MaterialEdit>;
+  let http: HttpTestingController;
+  let page: HTMLElement;
+  let close: ReturnType<typeof vi.fn>;
+
+  beforeEach(async () => {
+    close = vi.fn();
+    TestBed.configureTestingModule({
+      providers: [
+        { provide: MAT_DIALOG_DATA, useValue: MATERIAL },
+        { provide: MatDialogRef, useValue: { close } },
+      ],
+    });
+    ({ fixture, http, page } = await renderWithHttpTesting(MaterialEdit));
+  });
+
+  afterEach(() => http.verify());
+
+  const button = (text: string) => [...page.querySelectorAll('button')].find((b) => b.textContent?.trim() === text)!;
+  const fieldOf = (label: string) => fieldLabelled(page, label).closest('mat-form-field')!;
+
+  async function chooseUnitSet(label: string): Promise<void> {
+    page.querySelector<HTMLElement>('mat-select[formcontrolname="unit_set"] .mat-mdc-select-trigger')!.click();
+    await fixture.whenStable();
+    [...document.querySelectorAll<HTMLElement>('mat-option')].find((o) => o.textContent?.trim() === label)!.click();
+    await fixture.whenStable();
+  }
+
+  it('starts from the cells of the material, with the units of its unit set in the labels', () => {
+    expect(fieldLabelled(page, 'Name').value).toBe('Test ferrite TF-1 (invented)');
+    expect(fieldLabelled(page, BETA).value).toBe('2.5');
+    expect(fieldLabelled(page, 'Lowest frequency f min (Hz)').value).toBe('50000');
+    expect(fieldLabelled(page, 'Bsat at 25 °C (T)').value).toBe('0.5');
+    expect(fieldLabelled(page, 'ct0 (no unit)').value).toBe('');
+    expect(page.textContent).toContain('Saving adds version 4 of this material');
+  });
+
+  it('sends only the changed cells as a PATCH of this material and closes with the new version', async () => {
+    typeInto(page, BETA, '2.6');
+    typeInto(page, 'Provenance: where the numbers come from', 'invented for a test, refitted');
+    button('Save as version 4').click();
+    await fixture.whenStable();
+
+    const request = http.expectOne({ method: 'PATCH', url: '/api/materials/12' });
+    expect(request.request.body).toEqual({ beta: '2.6', provenance: 'invented for a test, refitted' });
+    const saved = { ...MATERIAL, id: '13', version: 4, beta: 2.6 };
+    request.flush(saved);
+    await fixture.whenStable();
+    expect(close).toHaveBeenCalledWith(saved);
+  });
+
+  it('shows the server’s message on the field it names and in an alert, and stays open', async () => {
+    typeInto(page, ALPHA, '3.5');
+    button('Save as version 4').click();
+    await fixture.whenStable();
+
+    http.expectOne('/api/materials/12').flush(
+      { error: { code: 'invalid_input', message: 'The edit is not valid: alpha must be between 1 and 3 (got 3.5)', fields: { alpha: 'alpha must be between 1 and 3 (got 3.5)' } } },
+      { status: 400, statusText: 'Bad Request' },
+    );
+    await fixture.whenStable();
+    expect(fieldOf(ALPHA).querySelector('mat-error')?.textContent?.trim()).toBe('alpha must be between 1 and 3 (got 3.5)');
+    expect(fieldLabelled(page, ALPHA).getAttribute('aria-invalid')).toBe('true');
+    expect(document.activeElement).toBe(fieldLabelled(page, ALPHA));
+    expect(page.querySelector('[role="alert"]')?.textContent).toContain('The edit is not valid: alpha must be between 1 and 3 (got 3.5)');
+    expect(close).not.toHaveBeenCalled();
+  });
+
+  it('checks only that numbers are numbers before sending anything', async () => {
+    typeInto(page, BETA, '2,6');
+    typeInto(page, 'Density (kg/m³)', '');
+    button('Save as version 4').click();
+    await fixture.whenStable();
+
+    expect(fieldOf(BETA).querySelector('mat-error')?.textContent).toContain('Enter a plain number');
+    expect(fieldOf('Density (kg/m³)').querySelector('mat-error')?.textContent?.trim()).toBe('Required');
+    // http.verify() in afterEach checks that no request was made.
+  });
+
+  it('converts k, the fitted range and Bsat when the unit set changes, and sends them with it', async () => {
+    await chooseUnitSet('mW/cm³, kHz, mT');
+
+    // 1 mW/cm³ = 10³ W/m³, 1 kHz = 10³ Hz, 1 mT = 10⁻³ T, so k′ = k·10^(−3·(1 − α + β)) = 10·10⁻⁶
+    // (unit arithmetic, common practice, no source).
+    expect(fieldLabelled(page, 'k (mW/cm³ with f in kHz, B̂ in mT)').value).toBe('0.00001');
+    expect(fieldLabelled(page, 'Lowest frequency f min (kHz)').value).toBe('50');
+    expect(fieldLabelled(page, 'Highest peak flux B̂ max (mT)').value).toBe('250');
+    expect(fieldLabelled(page, 'Bsat at 100 °C (mT)').value).toBe('400');
+
+    button('Save as version 4').click();
+    await fixture.whenStable();
+    const request = http.expectOne('/api/materials/12');
+    expect(request.request.body).toEqual({
+      unit_set: 'mW/cm3-kHz-mT',
+      k: '0.00001',
+      f_min: '50',
+      f_max: '300',
+      b_min: '20',
+      b_max: '250',
+      bsat_25: '500',
+      bsat_100: '400',
+    });
+    request.flush({ ...MATERIAL, version: 4 });
+    await fixture.whenStable();
+  });
+
+  it('reads the stored cells again when switched back to the stored unit set, leaving nothing to send', async () => {
+    await chooseUnitSet('mW/cm³, kHz, mT');
+    await chooseUnitSet('W/m³, Hz, T (SI)');
+
+    expect(fieldLabelled(page, 'k (W/m³ with f in Hz, B̂ in T)').value).toBe('10');
+    expect(fieldLabelled(page, 'Lowest peak flux B̂ min (T)').value).toBe('0.02');
+    button('Save as version 4').click();
+    await fixture.whenStable();
+    expect(page.querySelector('[role="alert"]')?.textContent).toContain('Nothing has changed');
+  });
+});
