@@ -17,7 +17,7 @@ type ParameterName = 'ae' | 'amin' | 'le' | 've' | 'windowArea' | 'windowHeight'
 /** Each effective parameter as typed (unit in the label) and its factor to SI. */
 const PARAMETERS: readonly { name: ParameterName; label: string; toSi: number; required: boolean }[] = [
   { name: 'ae', label: 'Ae, effective area (mm²)', toSi: 1e-6, required: true },
-  { name: 'amin', label: 'Amin, smallest area (mm², optional)', toSi: 1e-6, required: false },
+  { name: 'amin', label: 'Amin, optional (mm²)', toSi: 1e-6, required: false },
   { name: 'le', label: 'le, effective path length (mm)', toSi: 1e-3, required: true },
   { name: 've', label: 'Ve, effective volume (mm³)', toSi: 1e-9, required: true },
   { name: 'windowArea', label: 'Window area (mm²)', toSi: 1e-6, required: true },
