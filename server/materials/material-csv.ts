@@ -5,7 +5,7 @@ import {
 } from '@shared/schemas/materials';
 import { parseCsvTable, stringifyCsvTable, type CsvRecord } from '../http/csv-table.ts';
 
-// The materials service and its tests read uploads through this module.
+// The unit tests of the material format read uploads through this module.
 export { decodeCsvText } from '../http/csv-table.ts';
 
 export const MAX_MATERIAL_ROWS = 10_000;

@@ -2,31 +2,30 @@ import {
   importDecisionsSchema,
   materialCellsFromValues,
   validateMaterialCells,
-  type CellProblem,
   type ImportDecision,
   type ImportPreview,
   type MaterialEdit,
   type MaterialValues,
-  type PreviewRow,
 } from '@shared/schemas/materials';
 import type { AuditService } from '../audit/audit.service.ts';
 import type { Actor } from '../http/access.ts';
-import { AppError, badRequest, conflict, notFound } from '../http/errors.ts';
+import {
+  analyseRecords,
+  decodeCsvText,
+  rowErrors,
+  summarisePreview,
+  undecidedNames,
+  type RowAnalysis,
+} from '../http/csv-table.ts';
+import type { UploadedFile } from '../http/csv-upload.ts';
+import { badRequest, conflict, notFound } from '../http/errors.ts';
 import { parseWith } from '../http/validate.ts';
-import { decodeCsvText, parseMaterialCsv, stringifyMaterialCsv } from './material-csv.ts';
+import { parseMaterialCsv, stringifyMaterialCsv } from './material-csv.ts';
 import { TEMPLATE_ROWS } from './material-template.ts';
 import { toMaterialSummary } from './material-view.ts';
 import type { MaterialRow, MaterialsRepository, MaterialWithAuthor, Tx } from './materials.repository.ts';
 
-export interface UploadedFile {
-  originalname: string;
-  buffer: Buffer;
-}
-
-interface Analysis {
-  rows: PreviewRow[];
-  valid: { row: number; values: MaterialValues; existing?: MaterialRow }[];
-}
+type Analysis = RowAnalysis<MaterialValues, MaterialRow>;
 
 export function lineageSlug(name: string): string {
   return name.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '').slice(0, 70) || 'material';
@@ -49,48 +48,10 @@ export function materialDetail(row: MaterialWithAuthor) {
   return { ...toMaterialSummary(row), current: row.current, createdBy: row.createdByName, cells: materialCellsFromValues(valuesOf(row)) };
 }
 
-/** The rows of a file checked against each other and against the library. */
+/** The rows of a file checked one by one, against each other and against the library. */
 function analyse(fileBuffer: Buffer, existing: Map<string, MaterialRow>): Analysis {
   const records = parseMaterialCsv(decodeCsvText(fileBuffer));
-  const firstRowOfName = new Map<string, number>();
-  const analysis: Analysis = { rows: [], valid: [] };
-  for (const record of records) {
-    const { values, problems } = validateMaterialCells(record.cells);
-    const allProblems: CellProblem[] = record.shapeProblem ? [{ column: '(row)', message: `Row ${record.shapeProblem}` }, ...problems] : problems;
-    const name = (record.cells.name ?? '').trim();
-    const key = name.toLowerCase();
-    if (key) {
-      const first = firstRowOfName.get(key);
-      if (first !== undefined) allProblems.push({ column: 'name', message: `name "${name.slice(0, 80)}" already appears in row ${first}` });
-      else firstRowOfName.set(key, record.row);
-    }
-    const stored = key ? existing.get(key) : undefined;
-    const status = allProblems.length ? 'error' : stored ? 'exists' : 'new';
-    analysis.rows.push({ row: record.row, name: name.slice(0, 80), status, problems: allProblems });
-    if (values && !allProblems.length) analysis.valid.push({ row: record.row, values, ...(stored ? { existing: stored } : {}) });
-  }
-  return analysis;
-}
-
-function summarise(fileName: string, rows: PreviewRow[]): ImportPreview {
-  return {
-    fileName,
-    rows,
-    summary: {
-      rows: rows.length,
-      new: rows.filter((r) => r.status === 'new').length,
-      exists: rows.filter((r) => r.status === 'exists').length,
-      errors: rows.filter((r) => r.status === 'error').length,
-    },
-  };
-}
-
-function rowErrors(rows: PreviewRow[]): AppError {
-  const fields: Record<string, string> = {};
-  for (const row of rows) for (const p of row.problems) fields[`row ${row.row}.${p.column}`] ??= p.message;
-  const count = rows.filter((r) => r.problems.length).length;
-  const first = Object.entries(fields).slice(0, 3).map(([k, v]) => `${k}: ${v}`).join('; ');
-  return new AppError(400, 'invalid_rows', `${count} row${count === 1 ? '' : 's'} cannot be imported; nothing was written. ${first}`, fields);
+  return analyseRecords(records, validateMaterialCells, (lowerName) => existing.get(lowerName));
 }
 
 export class MaterialsService {
@@ -134,7 +95,7 @@ export class MaterialsService {
 
   async preview(file: UploadedFile): Promise<ImportPreview> {
     const analysis = analyse(file.buffer, await this.repo.currentByLowerName());
-    return summarise(file.originalname, analysis.rows);
+    return summarisePreview(file.originalname, analysis.rows);
   }
 
   /** All or nothing: any row problem or missing decision refuses the whole file. */
@@ -142,16 +103,10 @@ export class MaterialsService {
     const decisions = parseWith(importDecisionsSchema, rawDecisions ?? {});
     const byLowerName = new Map(Object.entries(decisions).map(([name, d]) => [name.trim().toLowerCase(), d] as [string, ImportDecision]));
     const result = await this.repo.db.transaction(async (tx) => {
-      const existing = await this.repo.currentByLowerName(tx);
-      const analysis = analyse(file.buffer, existing);
+      const analysis = analyse(file.buffer, await this.repo.currentByLowerName(tx));
       if (analysis.rows.some((r) => r.status === 'error')) throw rowErrors(analysis.rows);
-      const undecided: Record<string, string> = {};
-      for (const v of analysis.valid) {
-        if (v.existing && !byLowerName.has(v.values.name.toLowerCase())) {
-          undecided[`row ${v.row}.name`] = `"${v.values.name}" already exists: choose "new-version" or "skip"`;
-        }
-      }
-      if (Object.keys(undecided).length) throw badRequest('Choose what to do with the names that already exist; nothing was written.', undecided);
+      const undecided = undecidedNames(analysis.valid, (lowerName) => byLowerName.has(lowerName));
+      if (undecided) throw undecided;
       return this.write(tx, file, analysis, byLowerName, actor);
     });
     await this.audit.record({

@@ -3,7 +3,8 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { MATERIAL_CSV_COLUMNS } from '@shared/schemas/materials';
 import { signedInAs, type ApiClient } from './support/api-client.ts';
-import { createTestApp, tableCount, type TestApp } from './support/test-app.ts';
+import { expectRefusedFile, tableCounts, uploadCsv } from './support/csv-import.ts';
+import { createTestApp, type TestApp } from './support/test-app.ts';
 
 const FIXTURES = join(import.meta.dirname, '../fixtures/csv');
 const TABLES = ['materials', 'material_imports', 'user_cores', 'designs', 'design_revisions', 'revision_transitions', 'users'];
@@ -18,16 +19,10 @@ beforeAll(async () => {
 });
 afterAll(() => t.close());
 
-async function counts(): Promise<Record<string, number>> {
-  const entries = await Promise.all(TABLES.map(async (name) => [name, await tableCount(t.db, name)] as const));
-  return Object.fromEntries(entries);
-}
-
-function upload(client: ApiClient, step: 'preview' | 'commit', content: Buffer | string, fileName = 'materials.csv', decisions?: Record<string, string>) {
-  let req = client.agent.post(`/api/materials/import/${step}`).set('X-XSRF-TOKEN', client.csrfToken ?? '');
-  if (decisions) req = req.field('decisions', JSON.stringify(decisions));
-  return req.attach('file', Buffer.isBuffer(content) ? content : Buffer.from(content, 'utf8'), { filename: fileName, contentType: 'text/csv' });
-}
+const IMPORT = '/api/materials/import';
+const counts = () => tableCounts(t.db, TABLES);
+const upload = (client: ApiClient, step: 'preview' | 'commit', content: Buffer | string, fileName = 'materials.csv', decisions?: Record<string, string>) =>
+  uploadCsv(client, `${IMPORT}/${step}`, content, fileName, decisions);
 
 const HEADER = MATERIAL_CSV_COLUMNS.join(',');
 function csvRow(name: string, overrides: Record<string, string> = {}): string {
@@ -71,11 +66,6 @@ const HOSTILE: [string, RegExp, RegExp][] = [
   ['infinite-number.csv', /^row 2\.k$/, /finite/],
 ];
 
-function fieldMatching(fields: Record<string, string> | undefined, key: RegExp): string | undefined {
-  const entry = Object.entries(fields ?? {}).find(([k]) => key.test(k));
-  return entry?.[1];
-}
-
 describe('hostile and broken material CSV files', () => {
   it('has at least 20 files in the corpus', () => {
     expect(HOSTILE.length).toBeGreaterThanOrEqual(20);
@@ -83,26 +73,8 @@ describe('hostile and broken material CSV files', () => {
 
   it.each(HOSTILE)('%s: refused with row/column messages and no table changed', async (file, key, message) => {
     const before = await counts();
-    const content = readFileSync(join(FIXTURES, file));
-
-    const commit = await upload(engineer, 'commit', content, file, {});
-    expect(commit.status).toBeGreaterThanOrEqual(400);
-    expect(commit.status).toBeLessThan(500);
-    expect(fieldMatching(commit.body.error.fields, key)).toMatch(message);
-
-    const preview = await upload(engineer, 'preview', content, file);
-    if (preview.status === 200) {
-      // A readable file: the preview lists the same problem on its row and column.
-      const [, row, column] = /^row (\d+)\.(.+)$/.exec(key.source.replace(/[\^$\\]/g, '')) ?? [];
-      const listed = preview.body.rows.find((r: { row: number }) => r.row === Number(row));
-      expect(listed.status).toBe('error');
-      const problem = listed.problems.find((p: { column: string }) => p.column === column);
-      expect(problem.message).toMatch(message);
-    } else {
-      expect(preview.status).toBeGreaterThanOrEqual(400);
-      expect(preview.status).toBeLessThan(500);
-      expect(fieldMatching(preview.body.error.fields, key)).toMatch(message);
-    }
+    // The commit is refused naming the field; the preview lists the same problem on its row and column, or is refused the same way.
+    await expectRefusedFile(engineer, IMPORT, readFileSync(join(FIXTURES, file)), file, key, message);
     expect(await counts()).toEqual(before);
   });
 
@@ -131,11 +103,11 @@ describe('hostile and broken material CSV files', () => {
   });
 
   it('refuses two files and a missing file', async () => {
-    const none = await engineer.agent.post('/api/materials/import/preview').set('X-XSRF-TOKEN', engineer.csrfToken ?? '').field('x', '1');
+    const none = await engineer.agent.post(`${IMPORT}/preview`).set('X-XSRF-TOKEN', engineer.csrfToken ?? '').field('x', '1');
     expect(none.status).toBe(400);
     expect(none.body.error.fields.file).toMatch(/Choose a CSV file/);
     const two = await engineer.agent
-      .post('/api/materials/import/preview')
+      .post(`${IMPORT}/preview`)
       .set('X-XSRF-TOKEN', engineer.csrfToken ?? '')
       .attach('file', Buffer.from('a,b\n'), 'a.csv')
       .attach('file', Buffer.from('a,b\n'), 'b.csv');

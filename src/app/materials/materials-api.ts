@@ -4,7 +4,7 @@ import type { ImportDecision, ImportPreview, MaterialCsvColumn, MaterialEdit } f
 import { map, type Observable } from 'rxjs';
 
 import { errorsShownByCaller } from '../core/error-display';
-import { uploadSteps, type UploadStep } from '../core/upload-steps';
+import { uploadCsv, type UploadStep } from '../core/upload-steps';
 
 export interface LibraryMaterial {
   id: string;
@@ -68,21 +68,14 @@ export class MaterialsApi {
     });
   }
 
+  /** Every row of a material CSV file with its status and problems; nothing is written. */
   preview(file: File): Observable<UploadStep<ImportPreview>> {
-    const form = new FormData();
-    form.append('file', file, file.name);
-    return uploadSteps(
-      this.http.post<ImportPreview>('/api/materials/import/preview', form, { ...errorsShownByCaller(), reportProgress: true, observe: 'events' }),
-    );
+    return uploadCsv<ImportPreview>(this.http, '/api/materials/import/preview', file);
   }
 
+  /** All rows or none; `decisions` says what to do with each name that already exists. */
   commit(file: File, decisions: Record<string, ImportDecision>): Observable<UploadStep<CommitResult>> {
-    const form = new FormData();
-    form.append('decisions', JSON.stringify(decisions));
-    form.append('file', file, file.name);
-    return uploadSteps(
-      this.http.post<CommitResult>('/api/materials/import/commit', form, { ...errorsShownByCaller(), reportProgress: true, observe: 'events' }),
-    );
+    return uploadCsv<CommitResult>(this.http, '/api/materials/import/commit', file, decisions);
   }
 
   history(id: string): Observable<LibraryMaterial[]> {
