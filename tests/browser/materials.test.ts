@@ -106,14 +106,15 @@ describe('material library, comparison and cores', () => {
     await page.getByLabel('Filter by name or source').fill('');
 
     await page.getByRole('button', { name: 'Add a ring core from its dimensions' }).click();
-    await page.getByRole('button', { name: 'Add the ring core' }).click();
-    await page.getByText('Enter a name', { exact: true }).waitFor();
+    const ringForm = page.locator('gw-core-form');
+    await ringForm.getByRole('button', { name: 'Add the ring core' }).click();
+    await ringForm.getByText('Enter a name', { exact: true }).waitFor();
     expect(await seriousAxeFindings(page)).toEqual([]);
-    await page.getByLabel('Name', { exact: true }).fill('Lab ring 25/15/10');
-    await page.getByLabel('Outer diameter (mm)').fill('25');
-    await page.getByLabel('Inner diameter (mm)').fill('15');
-    await page.getByLabel('Height (mm)').fill('10');
-    await page.getByRole('button', { name: 'Add the ring core' }).click();
+    await ringForm.getByLabel('Name', { exact: true }).fill('Lab ring 25/15/10');
+    await ringForm.getByLabel('Outer diameter (mm)').fill('25');
+    await ringForm.getByLabel('Inner diameter (mm)').fill('15');
+    await ringForm.getByLabel('Height (mm)').fill('10');
+    await ringForm.getByRole('button', { name: 'Add the ring core' }).click();
     await page.getByLabel('Filter by name or source').fill('Lab ring');
     await page.getByRole('cell', { name: 'Lab ring 25/15/10', exact: true }).waitFor();
     // IEC 60205 sharp-edged value for 25/15/10 (magnetics reference §12.3 [C]): Ae = 48.93 mm²
