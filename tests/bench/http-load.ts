@@ -16,7 +16,8 @@ const SPEC = { vinMin: 24, vinMax: 36, vout: 12, ioutMax: 10, frequency: 100e3, 
 const ms = (v: number) => `${v.toFixed(1)} ms`;
 const rssOf = (pid: number) => Number(/VmRSS:\s+(\d+)/.exec(readFileSync(`/proc/${pid}/status`, 'utf8'))?.[1] ?? 0) / 1024;
 
-export async function runHttpLoadBench({ durationSeconds = 30, connections = 50 } = {}): Promise<BenchRow[]> {
+/** `rounds` > 1 repeats the load back to back and reports the server's RSS after each round (a soak). */
+export async function runHttpLoadBench({ durationSeconds = 30, connections = 50, rounds = 1 } = {}): Promise<BenchRow[]> {
   const database = `gapwright_bench_${Date.now().toString(36)}`;
   const cluster = ensureCluster();
   ensureDatabase(database);
@@ -57,54 +58,66 @@ export async function runHttpLoadBench({ durationSeconds = 30, connections = 50 
     });
 
     const rssStart = rssOf(server.child.pid!);
+    const rssAfterRound: number[] = [];
     const latencies: number[] = [];
-    // Without a callback autocannon returns its instance, an event emitter that is also a promise of the result.
-    const load = autocannon({
-      url: base,
-      connections,
-      duration: durationSeconds,
-      headers: headers(),
-      requests: [
-        { method: 'GET', path: '/api/designs' },
-        { method: 'POST', path: '/api/calc/evaluate', body: evaluateBody },
-        { method: 'POST', path: '/api/calc/search', body: searchBody },
-        { method: 'GET', path: '/api/materials' },
-      ],
-    }) as unknown as Promise<Result> & EventEmitter;
-    load.on('response', (_client: unknown, _status: number, _bytes: number, responseTime: number) => latencies.push(responseTime));
-
-    // A probe beside the load: one request at a time, timed per route, under the same load.
     const probe: Record<string, number[]> = { health: [], evaluate: [], search: [] };
-    let running = true;
-    const probing = (async () => {
-      while (running) {
-        for (const [name, init, url] of [
-          ['health', { headers: headers() }, '/api/health'],
-          ['evaluate', { method: 'POST', headers: headers(), body: evaluateBody }, '/api/calc/evaluate'],
-          ['search', { method: 'POST', headers: headers(), body: searchBody }, '/api/calc/search'],
-        ] as const) {
-          const started = performance.now();
-          await fetch(`${base}${url}`, init).then((r) => r.arrayBuffer());
-          probe[name].push(performance.now() - started);
+    const totals = { requests: 0, errors: 0, timeouts: 0, non2xx: 0 };
+    for (let round = 0; round < rounds; round++) {
+      // Without a callback autocannon returns its instance, an event emitter that is also a promise of the result.
+      const load = autocannon({
+        url: base,
+        connections,
+        duration: durationSeconds,
+        headers: headers(),
+        requests: [
+          { method: 'GET', path: '/api/designs' },
+          { method: 'POST', path: '/api/calc/evaluate', body: evaluateBody },
+          { method: 'POST', path: '/api/calc/search', body: searchBody },
+          { method: 'GET', path: '/api/materials' },
+        ],
+      }) as unknown as Promise<Result> & EventEmitter;
+      load.on('response', (_client: unknown, _status: number, _bytes: number, responseTime: number) => latencies.push(responseTime));
+
+      // A probe beside the load: one request at a time, timed per route, under the same load.
+      let running = true;
+      const probing = (async () => {
+        while (running) {
+          for (const [name, init, url] of [
+            ['health', { headers: headers() }, '/api/health'],
+            ['evaluate', { method: 'POST', headers: headers(), body: evaluateBody }, '/api/calc/evaluate'],
+            ['search', { method: 'POST', headers: headers(), body: searchBody }, '/api/calc/search'],
+          ] as const) {
+            const started = performance.now();
+            await fetch(`${base}${url}`, init).then((r) => r.arrayBuffer());
+            probe[name].push(performance.now() - started);
+          }
         }
-      }
-    })();
-    const result = await load;
-    running = false;
-    await probing;
-    const rssEnd = rssOf(server.child.pid!);
+      })();
+      const result = await load;
+      running = false;
+      await probing;
+      totals.requests += result.requests.total;
+      totals.errors += result.errors;
+      totals.timeouts += result.timeouts;
+      totals.non2xx += result.non2xx;
+      rssAfterRound.push(rssOf(server.child.pid!));
+    }
+    const seconds = durationSeconds * rounds;
 
     latencies.sort((a, b) => a - b);
     const p95 = (name: string) => percentile([...probe[name]].sort((a, b) => a - b), 95);
     return [
-      { name: `HTTP load (${connections} connections, ${durationSeconds} s, mixed signed-in routes)`, value: `${result.requests.total} requests, ${result.requests.average.toFixed(0)} req/s` },
-      { name: 'HTTP load errors / timeouts / non-2xx', value: `${result.errors} / ${result.timeouts} / ${result.non2xx}` },
+      { name: `HTTP load (${connections} connections, ${seconds} s, mixed signed-in routes)`, value: `${totals.requests} requests, ${(totals.requests / seconds).toFixed(0)} req/s` },
+      { name: 'HTTP load errors / timeouts / non-2xx', value: `${totals.errors} / ${totals.timeouts} / ${totals.non2xx}` },
       { name: 'HTTP load latency p50 / p95 / p99', value: `${ms(percentile(latencies, 50))} / ${ms(percentile(latencies, 95))} / ${ms(percentile(latencies, 99))}` },
       { name: 'under that load: health p95', value: ms(p95('health')) },
       { name: 'under that load: evaluate p95', value: ms(p95('evaluate')) },
       { name: 'under that load: search p95', value: ms(p95('search')) },
       { name: 'under that load: calc p95 / health p95', value: `evaluate ${(p95('evaluate') / p95('health')).toFixed(2)}, search ${(p95('search') / p95('health')).toFixed(2)}` },
-      { name: 'server RSS start → end', value: `${rssStart.toFixed(0)} MB → ${rssEnd.toFixed(0)} MB` },
+      {
+        name: rounds > 1 ? `server RSS start → after each ${durationSeconds} s round` : 'server RSS start → end',
+        value: [rssStart, ...rssAfterRound].map((mb) => mb.toFixed(0)).join(' → ') + ' MB',
+      },
     ];
   } finally {
     server.child.kill('SIGTERM');
