@@ -91,6 +91,15 @@ describe('design workspace', () => {
     const spice = await readFile((await download.path())!, 'utf8');
     expect(spice).toMatch(/^\.SUBCKT GW_\d{4}_R1 1 2$/m);
     expect(spice).toMatch(/^\.ENDS GW_\d{4}_R1$/m);
+
+    // Another core from the design page: the engine solves its turns and gap again.
+    const coreBefore = (await page.locator('[data-figure="core"]').innerText()).split(' · ')[0];
+    await page.locator('gw-design-panel').getByRole('combobox', { name: 'Core' }).click();
+    const other = page.getByRole('option').filter({ hasNotText: coreBefore }).first();
+    const otherCore = (await other.innerText()).replace(' (ours)', '').trim();
+    await other.click();
+    await page.locator('[data-figure="core"]', { hasText: otherCore }).waitFor();
+    expect(await page.getByRole('spinbutton', { name: 'Turns' }).inputValue()).toBe(await page.locator('[data-figure="turns"]').innerText());
     await context.close();
   }, 120_000);
 });

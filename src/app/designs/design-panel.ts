@@ -13,12 +13,13 @@ import { Subject, catchError, debounceTime, map, of, switchMap, tap } from 'rxjs
 import { CautionLine } from '../caution-line/caution-line';
 import { errorMessageOf } from '../core/api-error';
 import { QuantityInput } from '../units/quantity-input';
+import { CoresApi } from '../cores/cores-api';
 import { DesignsApi, type EvaluateView, type MaterialView } from './designs-api';
 import { percent, show, showUnit } from './format';
 
 type WireKind = 'awg' | 'metric' | 'litz';
 
-/** The chosen design: every figure, three charts, warnings; turns, gap, wire and material re-evaluate live. */
+/** The chosen design: every figure, three charts, warnings; core, material, turns, gap and wire re-evaluate live. */
 @Component({
   selector: 'gw-design-panel',
   imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatProgressBarModule, MatSelectModule, NgxEchartsDirective, QuantityInput, CautionLine],
@@ -28,6 +29,7 @@ type WireKind = 'awg' | 'metric' | 'litz';
 })
 export class DesignPanel {
   private readonly api = inject(DesignsApi);
+  protected readonly cores = inject(CoresApi).listResource();
   readonly spec = input<DesignSpec | null>(null);
   readonly construction = input<Construction | null>(null);
   /** Figures already computed for that construction (a picked candidate or the saved snapshot). */
@@ -37,6 +39,7 @@ export class DesignPanel {
   readonly changed = output<{ construction: Construction; view: EvaluateView }>();
 
   protected readonly form = new FormGroup({
+    coreId: new FormControl('', { nonNullable: true, validators: [Validators.required] }),
     materialId: new FormControl('', { nonNullable: true, validators: [Validators.required] }),
     turns: new FormControl<number | null>(null, { validators: [Validators.required, Validators.min(1), Validators.max(2000)] }),
     gap: new FormControl<number | null>(null),
@@ -50,8 +53,9 @@ export class DesignPanel {
   protected readonly evaluating = signal(false);
   protected readonly error = signal<string | null>(null);
   private readonly edits = new Subject<void>();
-  private coreId = '';
   private silent = false;
+  /** Another core was chosen: turns and gap of the old core mean nothing there, so the engine solves them again. */
+  private coreChanged = false;
 
   protected readonly fmt = show;
   protected readonly unit = showUnit;
@@ -59,6 +63,12 @@ export class DesignPanel {
   protected readonly mm2 = (m2: number) => `${Number((m2 * 1e6).toPrecision(4))} mm²`;
   protected readonly cm3 = (m3: number) => `${Number((m3 * 1e6).toPrecision(4))} cm³`;
   protected readonly result = computed(() => this.view()?.result ?? null);
+  /** Cores that take the current material: gapped sets for ferrites and the like, rings and toroids for powders. */
+  protected readonly coreOptions = computed(() => {
+    const powder = this.result()?.material.family === 'powder';
+    const current = this.result()?.core.id;
+    return this.cores.value().filter((c) => c.id === current || (!c.retired && (c.gapKind === 'distributed') === powder));
+  });
   protected readonly materialOptions = computed(() => {
     const family = this.result()?.material.family;
     return this.materials().filter((m) => !family || (m.family === 'powder') === (family === 'powder'));
@@ -75,6 +85,9 @@ export class DesignPanel {
       untracked(() => (editable ? this.form.enable({ emitEvent: false }) : this.form.disable({ emitEvent: false })));
     });
     this.form.controls.wireKind.valueChanges.pipe(takeUntilDestroyed()).subscribe((kind) => this.wireKind.set(kind));
+    this.form.controls.coreId.valueChanges.pipe(takeUntilDestroyed()).subscribe(() => {
+      if (!this.silent) this.coreChanged = true;
+    });
     this.form.valueChanges.pipe(takeUntilDestroyed()).subscribe(() => {
       if (!this.silent) this.edits.next();
     });
@@ -101,6 +114,12 @@ export class DesignPanel {
         if (!outcome) return;
         this.error.set(null);
         this.view.set(outcome.view);
+        if (outcome.construction.turns === 'auto') {
+          // The engine chose turns and gap for the new core; the fields show them so the next edit starts there.
+          this.silent = true;
+          this.form.patchValue({ turns: outcome.view.result.turns, gap: outcome.view.result.gap.total });
+          this.silent = false;
+        }
         this.changed.emit({ construction: { ...outcome.construction, turns: outcome.view.result.turns, gap: outcome.view.result.gap.total }, view: outcome.view });
       });
   }
@@ -115,10 +134,11 @@ export class DesignPanel {
       this.view.set(null);
       return;
     }
-    this.coreId = construction.coreId;
     this.silent = true;
+    this.coreChanged = false;
     const wire = construction.wire;
     this.form.setValue({
+      coreId: construction.coreId,
       materialId: construction.materialId,
       turns: typeof construction.turns === 'number' ? construction.turns : (known?.result.turns ?? null),
       gap: typeof construction.gap === 'number' ? construction.gap : (known?.result.gap.total ?? null),
@@ -143,7 +163,11 @@ export class DesignPanel {
         ? { kind: 'awg', awg: v.awg, strands: v.strands }
         : { kind: v.wireKind, strandDiameter: v.strandDiameter ?? 0, strands: v.strands };
     if (wire.strandDiameter === 0) return null;
-    return { coreId: this.coreId, materialId: v.materialId, turns: v.turns, gap: v.gap ?? 'auto', wire };
+    if (this.coreChanged) {
+      this.coreChanged = false;
+      return { coreId: v.coreId, materialId: v.materialId, turns: 'auto', gap: 'auto', wire };
+    }
+    return { coreId: v.coreId, materialId: v.materialId, turns: v.turns, gap: v.gap ?? 'auto', wire };
   }
 
   protected readonly lossChart = computed<EChartsCoreOption>(() => {
