@@ -11,7 +11,7 @@ afterAll(() => h?.close());
 const engineer = DEMO_USERS.find((u) => u.role === 'engineer')!;
 
 describe('user cores from a CSV file and from effective parameters', () => {
-  it('imports the core template, then adds a gapped core after the server points at an inconsistent volume', async () => {
+  it('imports the core template, adds a gapped core after the server names an inconsistent Ve, versions a core by re-import, and a reviewer retires one', async () => {
     const { context, page } = await h.newPage();
     await signIn(page, engineer.username, engineer.password);
     await page.goto('/cores');
@@ -58,6 +58,36 @@ describe('user cores from a CSV file and from effective parameters', () => {
     await page.getByLabel('Filter by name or source').fill('Lab set 36');
     await page.getByRole('cell', { name: 'Lab set 36 (browser test)', exact: true }).waitFor();
     await page.screenshot({ path: screenshotPath('cores-gapped-added'), fullPage: true });
+
+    // The same template again: the E set becomes version 2, the ring is skipped.
+    await page.getByRole('button', { name: 'Import cores from a CSV file' }).click();
+    await page.getByLabel('Core CSV file', { exact: true }).setInputFiles({ name: 'cores-again.csv', mimeType: 'text/csv', buffer: await template.body() });
+    await page.getByText(/2 rows: 0 new, 2 /).waitFor();
+    await page.getByRole('combobox', { name: 'What to do with Example E-core EX-1 (illustrative)' }).click();
+    await page.getByRole('option', { name: 'New version' }).click();
+    await page.getByRole('combobox', { name: 'What to do with Example ring 20/10/7 (illustrative)' }).click();
+    await page.getByRole('option', { name: 'Skip' }).click();
+    await page.getByRole('button', { name: 'Import these cores' }).click();
+    await page.getByText('cores-again.csv: 0 cores added, 1 new versions, 1 skipped.').waitFor();
+    await page.getByLabel('Filter by name or source').fill('Example');
+    await page.getByRole('button', { name: 'Versions of Example E-core EX-1 (illustrative)' }).click();
+    await page.getByRole('heading', { name: 'Versions of Example E-core EX-1 (illustrative)' }).waitFor();
+    const versions = page.locator('.gw-history tr.mat-mdc-row');
+    await versions.nth(1).waitFor();
+    expect(await versions.allInnerTexts()).toEqual([expect.stringMatching(/^v2\b/), expect.stringMatching(/^v1\b/)]);
+    expect(await seriousAxeFindings(page)).toEqual([]);
+    // Only reviewers and administrators retire; an engineer sees no such button.
+    expect(await page.getByRole('button', { name: /^Retire / }).count()).toBe(0);
     await context.close();
-  }, 180_000);
+
+    const reviewer = DEMO_USERS.find((u) => u.role === 'reviewer')!;
+    const second = await h.newPage();
+    await signIn(second.page, reviewer.username, reviewer.password);
+    await second.page.goto('/cores');
+    await second.page.getByLabel('Filter by name or source').fill('Example ring');
+    await second.page.getByRole('button', { name: 'Retire Example ring 20/10/7 (illustrative)' }).click();
+    await second.page.getByRole('button', { name: 'Restore Example ring 20/10/7 (illustrative)' }).waitFor();
+    await second.page.getByText(/\(v1\), retired/).waitFor();
+    await second.context.close();
+  }, 240_000);
 });

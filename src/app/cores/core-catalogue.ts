@@ -1,5 +1,6 @@
-import { DecimalPipe } from '@angular/common';
+import { DatePipe, DecimalPipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, signal, viewChild } from '@angular/core';
+import { MatButtonModule } from '@angular/material/button';
 import { MatExpansionModule } from '@angular/material/expansion';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
@@ -10,6 +11,7 @@ import { MatSort, MatSortModule } from '@angular/material/sort';
 import { MatTableDataSource, MatTableModule } from '@angular/material/table';
 
 import { Notifier } from '../core/notifier';
+import { Session } from '../core/session';
 import { CoreForm } from './core-form';
 import { CoreUpload } from './core-upload';
 import { ShapedCoreForm } from './shaped-core-form';
@@ -20,6 +22,7 @@ interface CoreFilters {
   text: string;
   family: string;
   aeMin: number | null;
+  windowMin: number | null;
   apMin: number | null;
 }
 
@@ -29,7 +32,9 @@ interface CoreFilters {
     CoreForm,
     CoreUpload,
     ShapedCoreForm,
+    DatePipe,
     DecimalPipe,
+    MatButtonModule,
     MatExpansionModule,
     MatFormFieldModule,
     MatInputModule,
@@ -46,20 +51,25 @@ interface CoreFilters {
 export class CoreCatalogue {
   private readonly api = inject(CoresApi);
   private readonly notifier = inject(Notifier);
+  private readonly session = inject(Session);
   private readonly sort = viewChild.required(MatSort);
   private readonly paginator = viewChild.required(MatPaginator);
 
   protected readonly cores = this.api.listResource();
   protected readonly families = computed(() => [...new Set(this.cores.value().map((c) => c.family))]);
-  protected readonly columns = ['id', 'family', 'ae', 'le', 've', 'windowArea', 'areaProduct', 'origin', 'source'];
+  protected readonly columns = ['id', 'family', 'ae', 'le', 've', 'windowArea', 'areaProduct', 'origin', 'source', 'actions'];
+  protected readonly historyColumns = ['version', 'ae', 'le', 've', 'windowArea', 'source', 'createdBy', 'createdAt'];
+  protected readonly mayRetire = computed(() => ['reviewer', 'admin'].includes(this.session.user()?.role ?? ''));
+  protected readonly history = signal<{ name: string; userCoreId: number; versions: CatalogueCore[] } | null>(null);
   protected readonly dataSource = new MatTableDataSource<CatalogueCore>([]);
-  protected readonly filters = signal<CoreFilters>({ text: '', family: '', aeMin: null, apMin: null });
+  protected readonly filters = signal<CoreFilters>({ text: '', family: '', aeMin: null, windowMin: null, apMin: null });
 
   constructor() {
     this.dataSource.filterPredicate = (core, serialised) => {
       const f = JSON.parse(serialised) as CoreFilters;
       if (f.family && core.family !== f.family) return false;
       if (f.aeMin !== null && core.ae * 1e6 < f.aeMin) return false;
+      if (f.windowMin !== null && core.windowArea * 1e6 < f.windowMin) return false;
       if (f.apMin !== null && core.areaProduct * 1e8 < f.apMin) return false;
       const text = f.text.trim().toLowerCase();
       return !text || [core.id, core.source, core.origin].join(' ').toLowerCase().includes(text);
@@ -86,5 +96,22 @@ export class CoreCatalogue {
   protected importedCores(result: CoreImportResult): void {
     this.notifier.info(`${result.fileName}: ${result.created} cores added, ${result.versioned} new versions, ${result.skipped} skipped.`);
     this.cores.reload();
+  }
+
+  protected showHistory(core: CatalogueCore): void {
+    if (core.userCoreId === undefined) return;
+    const userCoreId = core.userCoreId;
+    this.api.history(userCoreId).subscribe((versions) => this.history.set({ name: core.id, userCoreId, versions }));
+  }
+
+  protected setRetired(core: CatalogueCore, retired: boolean): void {
+    if (core.userCoreId === undefined) return;
+    this.api.setRetired(core.userCoreId, retired).subscribe({
+      next: () => {
+        this.notifier.info(retired ? `${core.id} retired: new searches leave it out, designs that use it keep it.` : `${core.id} is back in use.`);
+        this.cores.reload();
+      },
+      error: () => this.cores.reload(),
+    });
   }
 }

@@ -2,7 +2,7 @@ import { HttpClient, httpResource } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { ImportDecision, ImportPreview } from '@shared/schemas/core-csv';
 import type { UserCoreRequest } from '@shared/schemas/cores';
-import type { Observable } from 'rxjs';
+import { map, type Observable } from 'rxjs';
 
 import { errorsShownByCaller } from '../core/error-display';
 import { uploadCsv, type UploadStep } from '../core/upload-steps';
@@ -22,6 +22,7 @@ export interface CatalogueCore {
   version?: number;
   retired?: boolean;
   createdBy?: string | null;
+  createdAt?: string;
 }
 
 /** What an import of a core CSV file did. */
@@ -42,6 +43,16 @@ export class CoresApi {
       parse: (body) => (body as { cores: CatalogueCore[] }).cores,
       defaultValue: [] as CatalogueCore[],
     });
+  }
+
+  /** Every version of a user core, newest first. */
+  history(userCoreId: number): Observable<CatalogueCore[]> {
+    return this.http.get<{ versions: CatalogueCore[] }>(`/api/catalogue/cores/${userCoreId}/history`).pipe(map((body) => body.versions));
+  }
+
+  /** Retired user cores leave new searches; designs that use them keep them. */
+  setRetired(userCoreId: number, retired: boolean): Observable<CatalogueCore> {
+    return this.http.post<CatalogueCore>(`/api/catalogue/cores/${userCoreId}/${retired ? 'retire' : 'unretire'}`, {});
   }
 
   create(request: UserCoreRequest): Observable<CatalogueCore> {
