@@ -62,9 +62,8 @@ export function authRouter({ config, passport, users, audit, issueCsrfToken }: A
     await new Promise<void>((resolve, reject) => req.logIn(actor, (err) => (err ? reject(err) : resolve())));
     req.session.signedInAt = Date.now();
     issueCsrfToken(req, res, true);
-    await users.touchSignIn(actor.id);
+    const row = await users.touchSignIn(actor.id);
     await audit.record({ actorId: actor.id, action: 'auth.signed_in', target: `user:${actor.username}`, ip: req.ip });
-    const row = await users.findActive(actor.id);
     res.json({ user: row ? toUserView(row) : null });
   });
 

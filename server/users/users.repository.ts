@@ -41,8 +41,10 @@ export class UsersRepository {
     return updated;
   }
 
-  async touchSignIn(id: number): Promise<void> {
-    await this.db.update(users).set({ lastSignInAt: new Date() }).where(eq(users.id, id));
+  /** Stamps the sign-in and returns the row as it now is (one round trip instead of update + select). */
+  async touchSignIn(id: number): Promise<UserRow | undefined> {
+    const [row] = await this.db.update(users).set({ lastSignInAt: new Date() }).where(eq(users.id, id)).returning();
+    return row;
   }
 
   /** Ends every session of a user at once (ASVS 7.4.2): passport keeps the user id in sess.passport.user. */

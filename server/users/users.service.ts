@@ -103,7 +103,9 @@ export class UsersService {
     return toUserView(updated);
   }
 
-  touchSignIn(id: number): Promise<void> {
-    return this.repo.touchSignIn(id);
+  /** The signed-in user's row with the new sign-in time (null if the account was disabled meanwhile). */
+  async touchSignIn(id: number): Promise<UserRow | null> {
+    const row = await this.repo.touchSignIn(id);
+    return row && !row.disabled ? row : null;
   }
 }
