@@ -1,5 +1,6 @@
 // Plain-word issue texts, built only for candidates that are shown to someone.
 import { HOT_SPOT_ALLOWANCE } from './constants';
+import { THERMAL_MODEL_LIMIT } from './thermal';
 import { FAILURE, WARNING, materialTemperatureLimit, type CandidateFigures, type MagneticDesign, type SpecContext } from './kernel';
 import type { EngineIssue } from './inputs';
 import type { CoreMaterial, CoreShape } from './types';
@@ -66,6 +67,12 @@ export function describeIssues({ ctx, core, material, mag, figures: f }: IssueSu
   }
   if (failed(FAILURE.fill)) {
     error('fill', `Copper fill ${fmt(f.copperFill)} of the window exceeds the utilisation limit ${fmt(limits.windowUtilisation)}.`);
+  }
+  if (failed(FAILURE.thermalRunaway)) {
+    error(
+      'thermal-runaway',
+      `Thermal runaway: the losses grow with temperature faster than ${core.id} can shed them, so there is no steady temperature below ${THERMAL_MODEL_LIMIT} °C. Losses are shown as at ${THERMAL_MODEL_LIMIT} °C; choose a larger core, fewer turns or a lower-loss material.`,
+    );
   }
   if (failed(FAILURE.temperatureRise)) {
     error('temperature-rise', `Temperature rise ${fmt(f.rise, 1)} K exceeds the ${fmt(limits.maxRise, 0)} K limit (total loss ${fmt(f.totalLoss)} W).`);

@@ -20,7 +20,7 @@ import { resolveLimits, type ConverterSpec, type DesignLimits } from './inputs';
 import { operatingPoint, type OperatingPoint } from './operating-point';
 import { biasedInductance, permeabilityFraction, powderInductanceFactor, powderTurns } from './powder';
 import { copperSkinDepth } from './skin-depth';
-import { THERMAL_MAX_PASSES, THERMAL_TOLERANCE, coreVolumeThermalResistance } from './thermal';
+import { THERMAL_MAX_PASSES, THERMAL_MODEL_LIMIT, THERMAL_TOLERANCE, coreVolumeThermalResistance } from './thermal';
 import type { CoreMaterial, CoreShape, WireOption } from './types';
 import { conductorCopperArea } from './winding';
 
@@ -44,6 +44,7 @@ export const FAILURE = {
   insulation: 1 << 8,
   materialTemperature: 1 << 9,
   lossBudget: 1 << 10,
+  thermalRunaway: 1 << 11,
 } as const;
 
 export const WARNING = {
@@ -385,7 +386,8 @@ export function evaluateCandidate(
   // The iteration of thermal.ts solveTemperature, inlined so no closure is made per candidate.
   while (passes < THERMAL_MAX_PASSES && !(Math.abs(rise - previous) < THERMAL_TOLERANCE)) {
     previous = rise;
-    const temperature = limits.ambient + rise;
+    // Losses are never evaluated above the model limit: past it the part is in runaway (flagged below).
+    const temperature = Math.min(limits.ambient + rise, THERMAL_MODEL_LIMIT);
     resistance = out.resistance20 * (1 + COPPER_TEMPERATURE_COEFFICIENT * (temperature - 20));
     tempFactor = tc ? tc.ct2 * temperature * temperature - tc.ct1 * temperature + tc.ct0 : 1;
     totalLoss = resistance * (dcSquare + rippleWeighted) + coreLossReference * tempFactor;
@@ -406,9 +408,12 @@ export function evaluateCandidate(
   out.riseByVolume = riseByVolume;
   out.rise = rise;
   out.hotSpot = limits.ambient + rise + HOT_SPOT_ALLOWANCE;
+  if (limits.ambient + rise > THERMAL_MODEL_LIMIT) failures |= FAILURE.thermalRunaway;
 
-  out.saturationFluxHot = material.bsat25 + ((material.bsat100 - material.bsat25) * (out.hotSpot - 25)) / 75;
-  out.saturationMargin = 1 - out.fluxPeakLocal / out.saturationFluxHot;
+  // Bsat falls linearly through its 25 °C and 100 °C values; never read it beyond the model limit, nor below zero.
+  const saturationTemperature = Math.min(out.hotSpot, THERMAL_MODEL_LIMIT);
+  out.saturationFluxHot = Math.max(0, material.bsat25 + ((material.bsat100 - material.bsat25) * (saturationTemperature - 25)) / 75);
+  out.saturationMargin = out.saturationFluxHot > 0 ? 1 - out.fluxPeakLocal / out.saturationFluxHot : -1;
   if (out.saturationMargin < limits.saturationMargin) failures |= FAILURE.saturation;
   if (mag.kind === 'air-gap' && out.fluxPeak > limits.bMax * (1 + 1e-9)) warnings |= WARNING.fluxAboveLimit;
   if (rise > limits.maxRise) failures |= FAILURE.temperatureRise;

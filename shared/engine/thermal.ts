@@ -24,11 +24,20 @@ export function temperatureRise(power: number, surfaceArea: number, effectiveVol
 
 export const THERMAL_TOLERANCE = 0.1;
 export const THERMAL_MAX_PASSES = 6;
+/**
+ * Highest temperature (°C) at which losses are evaluated. Above it magnet-wire enamel (class 220 at most) and
+ * ferrite (Curie points of roughly 200–300 °C) have failed and the loss fits mean nothing, so a part whose losses
+ * would drive it past this point is in thermal runaway (common practice, no source). Without this cap the
+ * loss–temperature iteration diverges and reports absurd figures (negative Bsat, kΩ of copper).
+ */
+export const THERMAL_MODEL_LIMIT = 250;
 
 export interface ThermalSolution {
   rise: TemperatureRise;
   passes: number;
   converged: boolean;
+  /** The losses would heat the part past THERMAL_MODEL_LIMIT; figures are those at that limit. */
+  runaway: boolean;
 }
 
 /**
@@ -41,13 +50,19 @@ export function solveTemperature(
   surfaceArea: number,
   effectiveVolume: number,
 ): ThermalSolution {
-  let rise = temperatureRise(lossAt(ambient), surfaceArea, effectiveVolume);
+  const capped = (t: number) => Math.min(t, THERMAL_MODEL_LIMIT);
+  let rise = temperatureRise(lossAt(capped(ambient)), surfaceArea, effectiveVolume);
   let previous = 0;
   let passes = 1;
   while (Math.abs(rise.design - previous) >= THERMAL_TOLERANCE && passes < THERMAL_MAX_PASSES) {
     previous = rise.design;
-    rise = temperatureRise(lossAt(ambient + rise.design), surfaceArea, effectiveVolume);
+    rise = temperatureRise(lossAt(capped(ambient + rise.design)), surfaceArea, effectiveVolume);
     passes += 1;
   }
-  return { rise, passes, converged: Math.abs(rise.design - previous) < THERMAL_TOLERANCE };
+  return {
+    rise,
+    passes,
+    converged: Math.abs(rise.design - previous) < THERMAL_TOLERANCE,
+    runaway: ambient + rise.design > THERMAL_MODEL_LIMIT,
+  };
 }

@@ -5,8 +5,8 @@ import { EngineInputError } from '@shared/engine/errors';
 import { COPPER_RESISTIVITY_20C } from '@shared/engine/constants';
 import { copperResistivity } from '@shared/engine/copper';
 import { coreLossTemperatureFactor, igseTriangleLoss } from '@shared/engine/core-loss';
-import { coreVolumeThermalResistance, surfaceDissipationRise } from '@shared/engine/thermal';
-import { e25Like, etd34Like, ferriteA, powderP, powderRing, roundWire, sectionOneSpec } from './fixtures';
+import { THERMAL_MODEL_LIMIT, coreVolumeThermalResistance, surfaceDissipationRise } from '@shared/engine/thermal';
+import { e25Like, etd34Like, ferriteA, powderP, powderRing, roundWire, sectionOneSpec, tinyLike } from './fixtures';
 
 const base: EvaluateInput = {
   spec: sectionOneSpec,
@@ -141,5 +141,25 @@ describe('loss versus frequency', () => {
     expect(points[1]!.total).toBeCloseTo(evaluateDesign(base).totalLoss, 6);
     // lower frequency → more ripple (ΔI ∝ 1/f) and larger flux swing → more core loss
     expect(points[0]!.core).toBeGreaterThan(points[1]!.core);
+  });
+});
+
+describe('evaluateDesign when the losses outrun the cooling (thermal runaway)', () => {
+  // A tiny core, many turns of thin wire at 10 A: the copper alone would heat it far past any real limit.
+  const runaway = evaluateDesign({ ...base, core: tinyLike, turns: 60, gap: 'auto', wire: roundWire(0.2e-3, 1) });
+
+  it('says so and marks the design infeasible instead of reporting a diverged iteration', () => {
+    expect(runaway.feasible).toBe(false);
+    expect(runaway.issues.map((i) => i.code)).toContain('thermal-runaway');
+    expect(runaway.thermal.rise + 40).toBeGreaterThan(THERMAL_MODEL_LIMIT);
+  });
+
+  it('evaluates the losses at the 250 °C model limit: Rhot/R20 = ρ(250 °C)/ρ20 (copper α20, from memory)', () => {
+    expect(runaway.copper.resistanceHot / runaway.copper.resistance20).toBeCloseTo(copperResistivity(THERMAL_MODEL_LIMIT) / COPPER_RESISTIVITY_20C, 9);
+    for (const figure of [runaway.totalLoss, runaway.coreLoss.loss, runaway.thermal.rise, runaway.flux.saturationMargin]) {
+      expect(Number.isFinite(figure)).toBe(true);
+    }
+    // Bsat is never extrapolated below zero (a negative Bsat is not a material property).
+    expect(runaway.flux.saturationAtHotSpot).toBeGreaterThanOrEqual(0);
   });
 });

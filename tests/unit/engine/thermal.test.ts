@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { coreVolumeThermalResistance, solveTemperature, surfaceDissipationRise, temperatureRise } from '@shared/engine/thermal';
+import { THERMAL_MODEL_LIMIT, coreVolumeThermalResistance, solveTemperature, surfaceDissipationRise, temperatureRise } from '@shared/engine/thermal';
 
 describe('surface-dissipation law ΔT = 450·ψ^0.826', () => {
   it('gives ≈25 °C at 0.03 W/cm² and ≈50 °C at 0.07 W/cm² (McLyman, from memory; anchor points [C] in magnetics.md §9.1)', () => {
@@ -37,5 +37,20 @@ describe('loss ↔ temperature iteration', () => {
     expect(solution.converged).toBe(true);
     const again = temperatureRise(lossAt(40 + solution.rise.design), 60e-4, 7.64e-6).design;
     expect(Math.abs(again - solution.rise.design)).toBeLessThan(0.1);
+  });
+
+  it('never evaluates losses above the model limit and reports runaway when they would heat the part past it', () => {
+    const asked: number[] = [];
+    // A loss that doubles every 10 K: no steady state exists below the limit.
+    const lossAt = (t: number) => {
+      asked.push(t);
+      return 0.5 * 2 ** ((t - 40) / 10);
+    };
+    const solution = solveTemperature(40, lossAt, 10e-4, 0.7e-6);
+    expect(solution.runaway).toBe(true);
+    expect(Math.max(...asked)).toBeLessThanOrEqual(THERMAL_MODEL_LIMIT);
+    expect(Number.isFinite(solution.rise.design)).toBe(true);
+    const calm = solveTemperature(40, () => 0.2, 60e-4, 7.64e-6);
+    expect(calm.runaway).toBe(false);
   });
 });
