@@ -100,6 +100,13 @@ describe('design workspace', () => {
     await other.click();
     await page.locator('[data-figure="core"]', { hasText: otherCore }).waitFor();
     expect(await page.getByRole('spinbutton', { name: 'Turns' }).inputValue()).toBe(await page.locator('[data-figure="turns"]').innerText());
+
+    // The design page in the dark theme: no serious or critical axe findings either.
+    await page.getByRole('button', { name: 'Switch to dark theme' }).click();
+    await page.getByRole('button', { name: 'Switch to light theme' }).waitFor();
+    expect(await seriousAxeFindings(page)).toEqual([]);
+    await page.locator('gw-design-panel').screenshot({ path: screenshotPath('designs-design-panel-dark') });
+    await page.getByRole('button', { name: 'Switch to light theme' }).click();
     await context.close();
   }, 120_000);
 });
