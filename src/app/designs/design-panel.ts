@@ -5,6 +5,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
+import { THERMAL_MODEL_LIMIT } from '@shared/engine/thermal';
 import type { Construction, DesignSpec } from '@shared/schemas/designs';
 import type { EChartsCoreOption } from 'echarts/core';
 import { NgxEchartsDirective } from 'ngx-echarts';
@@ -201,7 +202,7 @@ export class DesignPanel {
           markLine: {
             symbol: 'none',
             data: [
-              { yAxis: f.saturationAtHotSpot, name: 'Bsat hot', label: { formatter: `Bsat at ${Math.round(r.thermal.hotSpot)} °C` } },
+              { yAxis: f.saturationAtHotSpot, name: 'Bsat hot', label: { formatter: `Bsat at ${Math.round(Math.min(r.thermal.hotSpot, THERMAL_MODEL_LIMIT))} °C` } },
               { yAxis: f.saturationAtHotSpot * (1 - f.requiredMargin), name: 'limit', label: { formatter: 'with margin' }, lineStyle: { type: 'dotted' } },
             ],
           },
