@@ -1,8 +1,7 @@
 import * as z from 'zod';
-import { coreLossRequestSchema, evaluateRequestSchema, operatingPointRequestSchema, searchRequestSchema } from '@shared/schemas/calc';
-import { compareCurvesRequestSchema, compareDesignRequestSchema, compareSavedDesignRequestSchema } from '@shared/schemas/compare';
 import { ENGINE_VERSION } from '@shared/engine/index';
 import { APP_VERSION } from '../health/health.router.ts';
+import { ROUTE_DOCS, type RouteDoc } from './route-docs.ts';
 
 const errorSchema = {
   type: 'object',
@@ -20,69 +19,70 @@ const errorSchema = {
   },
 } as const;
 
-const requestSchema = (schema: z.ZodType) => z.toJSONSchema(schema, { io: 'input', unrepresentable: 'any' });
+const errorContent = { 'application/json': { schema: { $ref: '#/components/schemas/Error' } } };
+const jsonSchema = (schema: z.ZodType) => z.toJSONSchema(schema, { io: 'input', unrepresentable: 'any' }) as Record<string, unknown>;
 
-function operation(summary: string, schema: z.ZodType, response: string) {
+function uploadBody(kind: 'preview' | 'commit') {
+  const properties: Record<string, unknown> = { file: { type: 'string', format: 'binary', description: 'One UTF-8 CSV file, at most 2 MB' } };
+  if (kind === 'commit') properties['decisions'] = { type: 'string', description: 'JSON object { "<existing name>": "new-version" | "skip" }' };
+  return { required: true, content: { 'multipart/form-data': { schema: { type: 'object', required: ['file'], properties } } } };
+}
+
+function queryParameters(schema: z.ZodType) {
+  const json = jsonSchema(schema) as { properties?: Record<string, Record<string, unknown>>; required?: string[] };
+  return Object.entries(json.properties ?? {}).map(([name, property]) => ({
+    name,
+    in: 'query',
+    required: json.required?.includes(name) ?? false,
+    schema: property,
+  }));
+}
+
+function operation(method: string, path: string, doc: RouteDoc) {
+  const pathParameters = [...path.matchAll(/:(\w+)/g)].map(([, name]) => ({ name, in: 'path', required: true, schema: { type: 'string' } }));
+  const parameters = [...pathParameters, ...(doc.query ? queryParameters(doc.query) : [])];
+  const success = method === 'POST' && /\(201\)/.test(doc.answer) ? '201' : doc.answer === '204' ? '204' : '200';
   return {
-    summary,
-    security: [{ session: [] }],
-    requestBody: { required: true, content: { 'application/json': { schema: requestSchema(schema) } } },
+    summary: doc.summary,
+    description: `Who: ${doc.who}. Answer: ${doc.answer}.`,
+    ...(doc.who === 'anyone' ? { security: [] } : {}),
+    ...(parameters.length ? { parameters } : {}),
+    ...(doc.body ? { requestBody: { required: true, content: { 'application/json': { schema: jsonSchema(doc.body) } } } } : {}),
+    ...(doc.upload ? { requestBody: uploadBody(doc.upload) } : {}),
     responses: {
-      '200': { description: response },
-      '400': { description: 'Invalid input: names each field and its allowed range', content: { 'application/json': { schema: errorSchema } } },
-      '401': { description: 'Not signed in', content: { 'application/json': { schema: errorSchema } } },
-      '403': { description: 'Missing CSRF token', content: { 'application/json': { schema: errorSchema } } },
+      [success]: { description: doc.answer, ...(doc.produces ? { content: { [doc.produces]: {} } } : {}) },
+      '400': { description: 'Invalid input: names each field (or CSV row and column) and what is allowed', content: errorContent },
+      ...(doc.who === 'anyone' ? {} : { '401': { description: 'Not signed in', content: errorContent } }),
+      '403': { description: 'Missing CSRF token on a write, or a role that may not do this', content: errorContent },
     },
   };
 }
 
-/** OpenAPI 3.1 description of the calculation API, generated from the zod schemas that validate it. */
+/** OpenAPI 3.1 description of every API route, built from the route table and the zod schemas that validate them. */
 export function buildOpenApiDocument() {
+  const paths: Record<string, Record<string, unknown>> = {};
+  for (const [key, doc] of Object.entries(ROUTE_DOCS)) {
+    const [method, fullPath] = key.split(' ') as [string, string];
+    const path = fullPath.replace(/^\/api/, '');
+    const openApiPath = path.replace(/:(\w+)/g, '{$1}');
+    (paths[openApiPath] ??= {})[method.toLowerCase()] = operation(method, path, doc);
+  }
   return {
     openapi: '3.1.0',
     info: {
-      title: 'Gapwright calculation and comparison API',
+      title: 'Gapwright API',
       version: APP_VERSION,
       description:
-        `Buck-inductor calculations (engine ${ENGINE_VERSION}). JSON in SI units: V, A, Hz, H, T, m, W, W/m³; temperatures in °C. ` +
+        `Buck-inductor design from converter spec to the winding shop (engine ${ENGINE_VERSION}). JSON in SI units: V, A, Hz, H, T, m, W, W/m³; temperatures in °C. ` +
         'Results are engineering estimates that need qualified review. Writes need the session cookie and the X-XSRF-TOKEN header ' +
         '(the value of the XSRF-TOKEN cookie set by GET /api/auth/session).',
     },
     servers: [{ url: '/api' }],
+    security: [{ session: [] }],
     components: {
       securitySchemes: { session: { type: 'apiKey', in: 'cookie', name: 'gapwright.sid' } },
       schemas: { Error: errorSchema },
     },
-    paths: {
-      '/calc/operating-point': {
-        post: operation(
-          'Buck operating point: duty range, inductance, ripple, peak and RMS current, energy, CCM boundary, ripple harmonics',
-          operatingPointRequestSchema,
-          '{ dutyAtVinMin, dutyAtVinMax, inductance, ripplePeakToPeak, peakCurrent, rmsCurrent, energy, ccmBoundaryCurrent, harmonics: [{ n, amplitude }], … }',
-        ),
-      },
-      '/calc/core-loss': {
-        post: operation('Core-loss density by Steinmetz (peak B = ΔB/2) and iGSE', coreLossRequestSchema, '{ steinmetz, igse } in W/m³'),
-      },
-      '/calc/search': {
-        post: operation('Ranked candidates over catalogue cores × materials × wire options, with the Pareto front and reasons for infeasible ones', searchRequestSchema, 'SearchResult'),
-      },
-      '/calc/evaluate': {
-        post: operation('Every figure of one explicit design (add ?sweep=frequency for a loss-versus-frequency sweep)', evaluateRequestSchema, '{ wire, result, lossVersusFrequency? }'),
-      },
-      '/compare/curves': {
-        post: operation('Core-loss density of several materials over a frequency sweep and a ΔB sweep, fitted ranges and extrapolated points marked', compareCurvesRequestSchema, '{ deltaB, frequency, duty, materials: [{ id, name, fit, versusFrequency, versusFlux }] }'),
-      },
-      '/compare/design': {
-        post: operation('One unsaved design (core, turns, wire) with every current material; gap re-solved per material', compareDesignRequestSchema, '{ engineVersion, coreId, turns, rows: [{ materialId, status, coreLoss, totalLoss, … }] }'),
-      },
-      '/compare/saved-design': {
-        post: operation(
-          'A saved revision with every current material and its own material version (usedByDesign); 404 for an unknown design or revision, 409 when the revision has no construction',
-          compareSavedDesignRequestSchema,
-          '{ engineVersion, design, coreId, turns, rows }',
-        ),
-      },
-    },
+    paths,
   };
 }

@@ -1,0 +1,151 @@
+// One entry per mounted API route: what it does, who may call it, and the zod schema of its JSON body or query
+// (the same schema the route validates with). `tests/api/openapi.test.ts` fails when a route is missing here.
+import type * as z from 'zod';
+import { changePasswordRequestSchema, createUserRequestSchema, preferencesRequestSchema, signInRequestSchema, updateUserRequestSchema } from '@shared/schemas/auth';
+import { coreLossRequestSchema, evaluateRequestSchema, operatingPointRequestSchema, searchRequestSchema } from '@shared/schemas/calc';
+import { compareCurvesRequestSchema, compareDesignRequestSchema, compareSavedDesignRequestSchema } from '@shared/schemas/compare';
+import { userCoreRequestSchema } from '@shared/schemas/cores';
+import {
+  copyDesignRequestSchema,
+  createDesignRequestSchema,
+  designFileSchema,
+  designListQuerySchema,
+  newRevisionRequestSchema,
+  revisionDiffQuerySchema,
+  updateRevisionRequestSchema,
+} from '@shared/schemas/designs';
+import { materialEditSchema, materialExportQuerySchema } from '@shared/schemas/materials';
+import { releaseRequestSchema, returnRequestSchema, shopSettingsSchema, transitionRequestSchema, unitMeasurementSchema } from '@shared/schemas/review';
+
+export interface RouteDoc {
+  summary: string;
+  /** Who passes the access check: "anyone", "signed in", or the roles. */
+  who: string;
+  body?: z.ZodType;
+  query?: z.ZodType;
+  /** A CSV file upload (multipart field `file`, plus `decisions` on commit). */
+  upload?: 'preview' | 'commit';
+  /** What a successful answer carries. */
+  answer: string;
+  /** Non-JSON answers. */
+  produces?: 'text/csv' | 'application/pdf' | 'application/octet-stream';
+}
+
+const SIGNED_IN = 'signed in';
+const DESIGNERS = 'engineer, reviewer';
+const UPLOADERS = 'engineer, reviewer, admin';
+const CURATORS = 'reviewer, admin';
+
+export const ROUTE_DOCS: Record<string, RouteDoc> = {
+  'GET /api/health': { summary: 'Liveness and database reachability (answers even when the database is down)', who: 'anyone', answer: '{ status, database, version }' },
+  'GET /api/openapi.json': { summary: 'This document', who: 'anyone', answer: 'OpenAPI 3.1' },
+  'GET /api/auth/session': { summary: 'The signed-in user (or null); sets the XSRF-TOKEN cookie', who: 'anyone', answer: '{ user }' },
+  'POST /api/auth/sign-in': { summary: 'Sign in with username and password; a new session id; rate-limited', who: 'anyone', body: signInRequestSchema, answer: '{ user }' },
+  'POST /api/auth/sign-out': { summary: 'End the session', who: 'anyone', answer: '204' },
+  'PATCH /api/account/preferences': { summary: 'Light or dark theme', who: SIGNED_IN, body: preferencesRequestSchema, answer: '{ user }' },
+  'POST /api/account/password': { summary: 'Change one’s own password (the current one is required)', who: SIGNED_IN, body: changePasswordRequestSchema, answer: '204' },
+  'GET /api/inbox': { summary: 'What waits for the caller: revisions to review, returned drafts, build orders', who: SIGNED_IN, answer: '{ items: [{ kind, label, designId, revisionId?, orderId?, since }] }' },
+
+  'GET /api/admin/audit': { summary: 'Audit log, newest first, paged', who: 'admin', answer: '{ entries, total }' },
+  'GET /api/admin/users': { summary: 'Every account', who: 'admin', answer: '{ users }' },
+  'POST /api/admin/users': { summary: 'Create an account', who: 'admin', body: createUserRequestSchema, answer: '{ user } (201)' },
+  'PATCH /api/admin/users/:id': { summary: 'Change role, name, e-mail, password or disable (disabling ends the user’s sessions)', who: 'admin', body: updateUserRequestSchema, answer: '{ user }' },
+  'GET /api/admin/outbox': { summary: 'Mail sent to the winding shop and its delivery state', who: 'admin', answer: '{ messages, deliveries }' },
+  'GET /api/admin/outbox/:id/attachments/:index': { summary: 'One attachment of a sent mail (the winding sheet PDF)', who: 'admin', answer: 'the file', produces: 'application/octet-stream' },
+  'GET /api/admin/settings': { summary: 'The winding shop’s e-mail address', who: 'admin', answer: '{ shopEmail }' },
+  'PUT /api/admin/settings': { summary: 'Set the winding shop’s e-mail address', who: 'admin', body: shopSettingsSchema, answer: '{ shopEmail }' },
+
+  'POST /api/calc/operating-point': {
+    summary: 'Buck operating point: duty range, inductance, ripple, peak and RMS current, energy, CCM boundary, ripple harmonics',
+    who: SIGNED_IN,
+    body: operatingPointRequestSchema,
+    answer: '{ dutyAtVinMin, dutyAtVinMax, inductance, ripplePeakToPeak, peakCurrent, rmsCurrent, energy, ccmBoundaryCurrent, harmonics: [{ n, amplitude }], … }',
+  },
+  'POST /api/calc/core-loss': { summary: 'Core-loss density by Steinmetz (peak B = ΔB/2) and iGSE', who: SIGNED_IN, body: coreLossRequestSchema, answer: '{ steinmetz, igse } in W/m³' },
+  'POST /api/calc/search': {
+    summary: 'Ranked candidates over catalogue cores × materials × wire options, with the Pareto front and reasons for infeasible ones',
+    who: SIGNED_IN,
+    body: searchRequestSchema,
+    answer: 'SearchResult',
+  },
+  'POST /api/calc/evaluate': {
+    summary: 'Every figure of one explicit design (add ?sweep=frequency for a loss-versus-frequency sweep)',
+    who: SIGNED_IN,
+    body: evaluateRequestSchema,
+    answer: '{ wire, result, lossVersusFrequency? }',
+  },
+  'POST /api/compare/curves': {
+    summary: 'Core-loss density of several materials over a frequency sweep and a ΔB sweep, fitted ranges and extrapolated points marked',
+    who: SIGNED_IN,
+    body: compareCurvesRequestSchema,
+    answer: '{ deltaB, frequency, duty, materials: [{ id, name, fit, versusFrequency, versusFlux }] }',
+  },
+  'POST /api/compare/design': {
+    summary: 'One unsaved design (core, turns, wire) with every current material; gap re-solved per material',
+    who: SIGNED_IN,
+    body: compareDesignRequestSchema,
+    answer: '{ engineVersion, coreId, turns, rows: [{ materialId, status, coreLoss, totalLoss, … }] }',
+  },
+  'POST /api/compare/saved-design': {
+    summary:
+      'A saved revision with every current material and its own material version (usedByDesign); 404 for an unknown design or revision, 409 when the revision has no construction',
+    who: SIGNED_IN,
+    body: compareSavedDesignRequestSchema,
+    answer: '{ engineVersion, design, coreId, turns, rows }',
+  },
+
+  'GET /api/catalogue/cores': { summary: 'Shipped cores and current user cores (SI units, Ap, origin, version)', who: SIGNED_IN, answer: '{ cores }' },
+  'GET /api/catalogue/cores/:id/history': { summary: 'Every version of a user core, newest first', who: SIGNED_IN, answer: '{ versions }' },
+  'POST /api/catalogue/cores': { summary: 'Add a user core: a ring from dimensions (IEC 60205) or a gapped set from effective parameters', who: UPLOADERS, body: userCoreRequestSchema, answer: 'the listed core (201)' },
+  'GET /api/catalogue/cores/template.csv': { summary: 'Core CSV template: two invented, illustrative rows', who: SIGNED_IN, answer: 'CSV', produces: 'text/csv' },
+  'POST /api/catalogue/cores/import/preview': { summary: 'Every row of a core CSV file with its status and problems by column; nothing written', who: UPLOADERS, upload: 'preview', answer: '{ fileName, rows, summary }' },
+  'POST /api/catalogue/cores/import/commit': { summary: 'All rows of a core CSV file in one transaction, or none', who: UPLOADERS, upload: 'commit', answer: '{ fileName, created, versioned, skipped, coreIds } (201)' },
+  'PUT /api/catalogue/cores/:id': { summary: 'A new version of a current user core', who: UPLOADERS, body: userCoreRequestSchema, answer: 'the listed core (201)' },
+  'POST /api/catalogue/cores/:id/retire': { summary: 'Hide a user core from new searches (designs keep it)', who: CURATORS, answer: 'the listed core' },
+  'POST /api/catalogue/cores/:id/unretire': { summary: 'Bring a retired user core back', who: CURATORS, answer: 'the listed core' },
+
+  'GET /api/materials': { summary: 'Current materials in SI units (?retired=include for retired ones too)', who: SIGNED_IN, answer: '{ materials }' },
+  'GET /api/materials/library': { summary: 'Current versions with author, unit set, uploaded k and CSV cells', who: SIGNED_IN, answer: '{ materials }' },
+  'GET /api/materials/template.csv': { summary: 'Material CSV template: two invented, illustrative materials', who: SIGNED_IN, answer: 'CSV', produces: 'text/csv' },
+  'GET /api/materials/export.csv': { summary: 'The library or the materials named by ids, formula-like cells escaped', who: SIGNED_IN, query: materialExportQuerySchema, answer: 'CSV', produces: 'text/csv' },
+  'GET /api/materials/imports': { summary: 'Who uploaded which material file and what it did', who: SIGNED_IN, answer: '{ imports }' },
+  'GET /api/materials/:id/history': { summary: 'Every version of a material, newest first', who: SIGNED_IN, answer: '{ versions }' },
+  'POST /api/materials/import/preview': { summary: 'Every row of a material CSV file with its status and problems by column; nothing written', who: UPLOADERS, upload: 'preview', answer: '{ fileName, rows, summary }' },
+  'POST /api/materials/import/commit': { summary: 'All rows of a material CSV file in one transaction, or none', who: UPLOADERS, upload: 'commit', answer: '{ importId, created, versioned, skipped, materialIds } (201)' },
+  'PATCH /api/materials/:id': { summary: 'Changed cells (CSV column names, the row’s own unit set) make a new version', who: UPLOADERS, body: materialEditSchema, answer: 'the material (201)' },
+  'POST /api/materials/:id/retire': { summary: 'Hide a material from new searches (designs keep it)', who: CURATORS, answer: 'the material' },
+  'POST /api/materials/:id/unretire': { summary: 'Bring a retired material back', who: CURATORS, answer: 'the material' },
+
+  'GET /api/designs': { summary: 'Designs, searched, sorted and paged', who: SIGNED_IN, query: designListQuerySchema, answer: '{ items, total, page, pageSize }' },
+  'GET /api/designs/:id': { summary: 'A design with its revisions and the latest revision in full', who: SIGNED_IN, answer: 'DesignDetail' },
+  'GET /api/designs/:id/diff': { summary: 'Differences between two revisions (spec, construction, results)', who: SIGNED_IN, query: revisionDiffQuerySchema, answer: '{ from, to, spec, construction, result }' },
+  'GET /api/designs/:id/revisions/:rev': { summary: 'One revision in full', who: SIGNED_IN, answer: 'RevisionDetail' },
+  'GET /api/designs/:id/revisions/:rev/exports/:kind': {
+    summary: 'design.json (re-importable), candidates.csv, bom.csv or spice.lib of a saved revision',
+    who: SIGNED_IN,
+    answer: 'the file',
+    produces: 'application/octet-stream',
+  },
+  'POST /api/designs': { summary: 'A new design (revision 1, draft) owned by the caller; the construction is evaluated', who: DESIGNERS, body: createDesignRequestSchema, answer: 'DesignDetail (201)' },
+  'POST /api/designs/import': { summary: 'A new design from an exported design file (results recomputed, never trusted)', who: DESIGNERS, body: designFileSchema, answer: 'DesignDetail (201)' },
+  'POST /api/designs/:id/copy': { summary: 'A copy owned by the caller', who: DESIGNERS, body: copyDesignRequestSchema, answer: 'DesignDetail (201)' },
+  'POST /api/designs/:id/revisions': { summary: 'A new draft revision from the latest or a given one (owner only)', who: DESIGNERS, body: newRevisionRequestSchema, answer: 'RevisionDetail (201)' },
+  'PATCH /api/designs/:id/revisions/:rev': { summary: 'Change a draft revision (owner only); the construction is evaluated again', who: DESIGNERS, body: updateRevisionRequestSchema, answer: 'RevisionDetail' },
+
+  'GET /api/revisions/:id/timeline': { summary: 'Review steps of the design’s revisions with who, when and comments', who: SIGNED_IN, answer: '{ designId, entries }' },
+  'POST /api/revisions/:id/submit': { summary: 'Submit a draft for review (owner only)', who: DESIGNERS, body: transitionRequestSchema, answer: '{ revisionId, status }' },
+  'POST /api/revisions/:id/approve': { summary: 'Approve a revision in review (never the author)', who: 'reviewer', body: transitionRequestSchema, answer: '{ revisionId, status }' },
+  'POST /api/revisions/:id/return': { summary: 'Return a revision to its author with a comment', who: 'reviewer', body: returnRequestSchema, answer: '{ revisionId, status }' },
+  'POST /api/revisions/:id/release': {
+    summary: 'Release an approved revision: freezes it, writes the winding sheet and build order, mails the shop',
+    who: 'reviewer',
+    body: releaseRequestSchema,
+    answer: '{ revisionId, status, orderId, orderNumber, superseded }',
+  },
+
+  'GET /api/shop/orders': { summary: 'Build orders (?status=open|complete|all)', who: 'winder, reviewer, engineer, admin', answer: '{ orders }' },
+  'GET /api/shop/orders/:id': { summary: 'One build order with its frozen winding sheet and the units recorded', who: 'winder, reviewer, engineer, admin', answer: 'BuildOrder' },
+  'GET /api/shop/orders/:id/sheet.pdf': { summary: 'The winding sheet as PDF', who: 'winder, reviewer, engineer, admin', answer: 'PDF', produces: 'application/pdf' },
+  'POST /api/shop/orders/:id/units': { summary: 'Record one built unit: measured L, DCR at a temperature, hipot; pass/fail per check', who: 'winder', body: unitMeasurementSchema, answer: 'the unit (201)' },
+  'GET /api/shop/prediction-report': { summary: 'Measured against predicted L and DCR by material and core', who: 'engineer, reviewer, admin', answer: '{ units, byMaterial, byCore }' },
+};

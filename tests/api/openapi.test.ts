@@ -1,0 +1,52 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { signedInAs, type ApiClient } from './support/api-client.ts';
+import { listRoutes } from './support/route-list.ts';
+import { createTestApp, type TestApp } from './support/test-app.ts';
+
+let t: TestApp;
+let engineer: ApiClient;
+beforeAll(async () => {
+  t = await createTestApp();
+  engineer = await signedInAs(t.app, 'engineer');
+});
+afterAll(() => t.close());
+
+describe('GET /api/openapi.json', () => {
+  it('documents exactly the mounted routes (a new route without documentation fails here)', async () => {
+    const res = await engineer.get('/api/openapi.json');
+    expect(res.status).toBe(200);
+    const documented = Object.entries(res.body.paths as Record<string, Record<string, unknown>>)
+      .flatMap(([path, operations]) => Object.keys(operations).map((method) => `${method.toUpperCase()} /api${path.replace(/\{(\w+)\}/g, ':$1')}`))
+      .sort();
+    expect(documented).toEqual(listRoutes(t.app));
+  });
+
+  it('takes request bodies and query parameters from the zod schemas the routes validate with', async () => {
+    const { paths } = (await engineer.get('/api/openapi.json')).body;
+    const createDesign = paths['/designs'].post.requestBody.content['application/json'].schema;
+    expect(createDesign.required).toEqual(expect.arrayContaining(['title', 'spec']));
+    const list = paths['/designs'].get.parameters.map((p: { name: string }) => p.name);
+    expect(list).toEqual(expect.arrayContaining(['scope', 'q', 'sort', 'page', 'pageSize']));
+    const upload = paths['/catalogue/cores/import/commit'].post.requestBody.content['multipart/form-data'].schema;
+    expect(Object.keys(upload.properties)).toEqual(['file', 'decisions']);
+    const release = paths['/revisions/{id}/release'].post;
+    expect(release.parameters[0]).toMatchObject({ name: 'id', in: 'path', required: true });
+    expect(release.requestBody.content['application/json'].schema.properties).toHaveProperty('quantity');
+    expect(paths['/health'].get.security).toEqual([]);
+    expect(paths['/shop/orders/{id}/sheet.pdf'].get.responses['200'].content).toHaveProperty('application/pdf');
+  });
+
+  it('describes the calculation and comparison routes with request schemas generated from the zod schemas', async () => {
+    const res = await engineer.get('/api/openapi.json');
+    expect(res.status).toBe(200);
+    expect(res.body.openapi).toBe('3.1.0');
+    for (const path of ['/calc/operating-point', '/calc/core-loss', '/calc/search', '/calc/evaluate', '/compare/curves', '/compare/design', '/compare/saved-design']) {
+      expect(res.body.paths[path].post.requestBody.content['application/json'].schema).toBeTypeOf('object');
+    }
+    const op = res.body.paths['/calc/operating-point'].post.requestBody.content['application/json'].schema;
+    expect(op.properties.vinMin.minimum).toBe(0.5);
+    expect(op.properties.frequency.description).toMatch(/Switching frequency/);
+    const saved = res.body.paths['/compare/saved-design'].post.requestBody.content['application/json'].schema;
+    expect(saved.required).toEqual(['designId', 'revision']);
+  });
+});
