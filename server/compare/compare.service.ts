@@ -18,6 +18,7 @@ import type {
   CompareSavedDesignRequest,
   CurvePoint,
   DesignComparisonRow,
+  DesignFluxPoint,
 } from '@shared/schemas/compare';
 import type { WireChoice } from '@shared/catalogue/wire-from-request';
 import type { Construction, DesignSpec } from '@shared/schemas/designs';
@@ -150,6 +151,7 @@ export class CompareService {
     } catch (error) {
       throw badRequest((error as Error).message, { wire: (error as Error).message });
     }
+    let fluxPoint: DesignFluxPoint | undefined;
     const result = rows.map((row): DesignComparisonRow => {
       const material = toCoreMaterial(row);
       const base = { materialId: material.id, name: material.name, family: material.family };
@@ -164,6 +166,7 @@ export class CompareService {
           gap: 'auto',
           wire,
         });
+        fluxPoint ??= { deltaB: evaluation.flux.swing, frequency: request.spec.frequency, duty: evaluation.operatingPoint.dutyAtVinMax };
         const fit = fitRangeCheck(material, request.spec.frequency, evaluation.flux.acPeak);
         const errors = evaluation.issues.filter((i) => i.severity === 'error').map((i) => i.message);
         return {
@@ -185,6 +188,6 @@ export class CompareService {
         throw error;
       }
     });
-    return { engineVersion: ENGINE_VERSION, coreId: core.id, turns: request.turns, rows: result };
+    return { engineVersion: ENGINE_VERSION, coreId: core.id, turns: request.turns, ...(fluxPoint ? { fluxPoint } : {}), rows: result };
   }
 }

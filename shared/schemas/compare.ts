@@ -102,8 +102,16 @@ export interface ComparedRevision {
   revision: number;
   materialId: string;
 }
+/** Where the design's core works: peak-to-peak flux swing (T), switching frequency (Hz), duty at Vin max. */
+export interface DesignFluxPoint {
+  deltaB: number;
+  frequency: number;
+  duty: number;
+}
 export interface CompareDesignResponse {
   engineVersion: string;
+  /** The same for every material (same core and turns); absent when no material could be evaluated. */
+  fluxPoint?: DesignFluxPoint;
   /** Set when a saved revision was compared. */
   design?: ComparedRevision;
   coreId: string;

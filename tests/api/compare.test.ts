@@ -115,6 +115,15 @@ describe('POST /api/compare/saved-design', () => {
     expect(own.coreLoss).toBeCloseTo(saved.result.evaluation.coreLoss.loss, 9);
     expect(own.totalLoss).toBeCloseTo(saved.result.evaluation.totalLoss, 9);
     expect(own.gap).toBeCloseTo(saved.construction.gap, 12);
+
+    // The flux point to draw the curves at: ideal buck D = Vout/Vin,max = 12/36, ΔB = (Vin,max − Vout)·D/(fs·N·Ae)
+    // (magnetics reference §1.1 and §3.1), the same for every material on this core.
+    const cores = (await engineer.get('/api/catalogue/cores')).body.cores as { id: string; ae: number }[];
+    const ae = cores.find((c) => c.id === 'ETD39/20/13')!.ae;
+    const n = saved.construction.turns;
+    expect(res.body.fluxPoint.duty).toBeCloseTo(1 / 3, 12);
+    expect(res.body.fluxPoint.frequency).toBe(100e3);
+    expect(res.body.fluxPoint.deltaB).toBeCloseTo(((36 - 12) * (1 / 3)) / (100e3 * n * ae), 9);
   });
 
   it("keeps the revision's own material version after the material was edited", async () => {

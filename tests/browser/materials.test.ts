@@ -75,6 +75,14 @@ describe('material library, comparison and cores', () => {
     expect(await page.getByText("this design's material").count()).toBe(1);
     expect(await seriousAxeFindings(page)).toEqual([]);
     await page.screenshot({ path: screenshotPath('compare-saved-design'), fullPage: true });
+
+    // The curves drawn where this design's core works.
+    const point = await page.locator('.gw-flux-point').innerText();
+    const deltaB = /ΔB = ([\d.,]+) mT/.exec(point)![1];
+    await page.getByRole('button', { name: 'Draw the loss curves there' }).click();
+    await page.getByText(`Core-loss density against frequency at ΔB = ${deltaB} mT`).waitFor();
+    const typed = Number(await page.getByLabel('ΔB for the frequency sweep (mT, peak to peak)').inputValue());
+    expect(Math.abs(typed - Number(deltaB.replace(/,/g, '')))).toBeLessThanOrEqual(0.05);
     await context.close();
   }, 120_000);
 

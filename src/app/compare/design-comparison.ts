@@ -1,5 +1,5 @@
 import { DecimalPipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, ElementRef, computed, effect, inject, input, signal, untracked, viewChild } from '@angular/core';
+import { ChangeDetectionStrategy, Component, ElementRef, computed, effect, inject, input, output, signal, untracked, viewChild } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -11,7 +11,7 @@ import { MatSelectModule } from '@angular/material/select';
 import { MatSort, MatSortModule } from '@angular/material/sort';
 import { MatTableDataSource, MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
-import type { CompareDesignResponse, DesignComparisonRow } from '@shared/schemas/compare';
+import type { CompareDesignResponse, DesignComparisonRow, DesignFluxPoint } from '@shared/schemas/compare';
 import type { RevisionSummary } from '@shared/schemas/designs';
 import { map, of, switchMap, catchError, type Observable } from 'rxjs';
 
@@ -54,6 +54,8 @@ export class DesignComparison {
   /** A saved revision to compare at once (from the page's query parameters). */
   readonly designId = input<string | undefined>();
   readonly revision = input<string | undefined>();
+  /** Asks the page to draw the loss curves where this design's core works. */
+  readonly drawAt = output<DesignFluxPoint>();
 
   protected readonly source = signal<DesignSource>('saved');
   protected readonly cores = this.api.coresResource();

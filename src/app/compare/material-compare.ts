@@ -1,5 +1,5 @@
 import { DecimalPipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, ElementRef, computed, effect, inject, input, signal, viewChild } from '@angular/core';
 import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
@@ -7,7 +7,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
-import type { CompareCurvesResponse } from '@shared/schemas/compare';
+import type { CompareCurvesResponse, DesignFluxPoint } from '@shared/schemas/compare';
 import { NgxEchartsDirective } from 'ngx-echarts';
 
 import { errorMessageOf } from '../core/api-error';
@@ -39,6 +39,7 @@ const DEFAULT_SELECTION = 3;
 export class MaterialCompare {
   private readonly api = inject(CompareApi);
   private readonly theme = inject(ThemeSwitcher);
+  private readonly curvesHeading = viewChild.required<ElementRef<HTMLElement>>('curvesHeading');
 
   /** Query parameters `design` and `revision` open the page on that saved revision's comparison. */
   readonly design = input<string | undefined>();
@@ -94,5 +95,18 @@ export class MaterialCompare {
         this.curvesError.set(errorMessageOf(error));
       },
     });
+  }
+
+  /** The curves at a compared design's flux swing, frequency and duty; focus moves up to them. */
+  protected drawAt(point: DesignFluxPoint): void {
+    this.curveForm.patchValue({
+      deltaBMilli: Number((point.deltaB * 1000).toPrecision(4)),
+      frequencyKilo: Number((point.frequency / 1000).toPrecision(6)),
+      duty: Number(point.duty.toPrecision(3)),
+    });
+    this.drawCurves();
+    const heading = this.curvesHeading().nativeElement;
+    heading.scrollIntoView?.({ block: 'start' });
+    heading.focus();
   }
 }
