@@ -8,7 +8,7 @@ import {
   type ImportDecision,
   type ImportPreview,
 } from '@shared/schemas/core-csv';
-import type { UserCoreRequest } from '@shared/schemas/cores';
+import type { ListedCore, UserCoreRequest } from '@shared/schemas/cores';
 import { checkedUserCoreShape } from '@shared/schemas/user-core-shape';
 import type { AuditService } from '../audit/audit.service.ts';
 import type { Actor } from '../http/access.ts';
@@ -32,7 +32,7 @@ import type { NewUserCoreVersion, UserCoreRow, UserCoreWithAuthor, UserCoresRepo
 
 export type CoreOrigin = 'shipped' | 'user';
 
-function listed(shape: CoreShape, origin: CoreOrigin, row?: UserCoreWithAuthor) {
+function listed(shape: CoreShape, origin: CoreOrigin, row?: UserCoreWithAuthor): ListedCore {
   return {
     ...shape,
     areaProduct: shape.ae * shape.windowArea,

@@ -1,4 +1,5 @@
 import type { CoreMaterial } from '@shared/engine/types';
+import type { MaterialSummary } from '@shared/schemas/materials';
 import type { MaterialRow } from './materials.repository.ts';
 
 /** The engine's view of a stored material version (SI units). */
@@ -26,7 +27,7 @@ export function toCoreMaterial(row: MaterialRow): CoreMaterial {
 }
 
 /** What the API lists: the engine's fields plus version, provenance and state. */
-export function toMaterialSummary(row: MaterialRow) {
+export function toMaterialSummary(row: MaterialRow): MaterialSummary {
   return {
     ...toCoreMaterial(row),
     lineage: row.lineage,

@@ -4,6 +4,7 @@ import {
   validateMaterialCells,
   type ImportDecision,
   type ImportPreview,
+  type LibraryMaterial,
   type MaterialEdit,
   type MaterialValues,
 } from '@shared/schemas/materials';
@@ -44,7 +45,7 @@ function valuesOf(row: MaterialRow): MaterialValues {
   return values;
 }
 
-export function materialDetail(row: MaterialWithAuthor) {
+export function materialDetail(row: MaterialWithAuthor): LibraryMaterial {
   return { ...toMaterialSummary(row), current: row.current, createdBy: row.createdByName, cells: materialCellsFromValues(valuesOf(row)) };
 }
 

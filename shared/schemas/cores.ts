@@ -1,7 +1,7 @@
 // User-added cores: a ring from its nominal dimensions (IEC 60205 effective parameters), or a gapped
 // set given by its effective parameters. SI units (m, m², m³); the form converts from mm.
 import * as z from 'zod';
-import { CORE_FAMILIES } from '@shared/engine/types';
+import { CORE_FAMILIES, type CoreShape } from '@shared/engine/types';
 
 function dimension(field: string, max: number, unit: string) {
   return z
@@ -54,3 +54,14 @@ export const shapedCoreRequestSchema = z
 
 export const userCoreRequestSchema = z.discriminatedUnion('kind', [ringCoreRequestSchema, shapedCoreRequestSchema]);
 export type UserCoreRequest = z.infer<typeof userCoreRequestSchema>;
+
+/** A core as GET /api/catalogue/cores lists it: shipped or user-added, with its area product (m⁴). */
+export type ListedCore = CoreShape & {
+  areaProduct: number;
+  origin: 'shipped' | 'user';
+  userCoreId?: number;
+  version?: number;
+  retired?: boolean;
+  createdBy?: string | null;
+  createdAt?: string;
+};

@@ -3,7 +3,7 @@
 // Every problem names the column it comes from, so the upload preview can show it by row and column.
 import * as z from 'zod';
 import { steinmetzKFromSi, steinmetzKToSi } from '@shared/engine/core-loss';
-import { MATERIAL_FAMILIES, type MaterialFamily } from '@shared/engine/types';
+import { MATERIAL_FAMILIES, type CoreMaterial, type MaterialFamily } from '@shared/engine/types';
 
 export const MATERIAL_UNIT_SETS = ['W/m3-Hz-T', 'mW/cm3-kHz-mT'] as const;
 export type MaterialUnitSet = (typeof MATERIAL_UNIT_SETS)[number];
@@ -308,3 +308,22 @@ export interface ImportPreview {
 export const materialExportQuerySchema = z
   .object({ ids: z.string().regex(/^\d+(,\d+)*$/, 'ids must be a comma-separated list of material ids').max(20000).optional() })
   .strict();
+
+/** A stored material version as GET /api/materials lists it: the engine's fields plus version, provenance and state. */
+export type MaterialSummary = CoreMaterial & {
+  lineage: string;
+  version: number;
+  retired: boolean;
+  unitSet: MaterialUnitSet;
+  kUploaded: number;
+  referenceTemperature: number | null;
+  provenance: string;
+  createdAt: string;
+};
+
+/** A material as the library lists it (GET /api/materials/library, history, edits): with author and its CSV cells. */
+export type LibraryMaterial = MaterialSummary & {
+  current: boolean;
+  createdBy: string | null;
+  cells: Record<MaterialCsvColumn, string>;
+};

@@ -1,22 +1,14 @@
 import { HttpClient, httpResource } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { CompareCurvesResponse, CompareDesignResponse } from '@shared/schemas/compare';
+import type { ListedCore } from '@shared/schemas/cores';
+import type { MaterialSummary } from '@shared/schemas/materials';
 import type { Observable } from 'rxjs';
 
 import { errorsShownByCaller } from '../core/error-display';
 
-export interface MaterialChoice {
-  id: string;
-  name: string;
-  family: string;
-  version: number;
-}
-
-export interface CoreChoice {
-  id: string;
-  family: string;
-  gapKind: string;
-}
+export type MaterialChoice = Pick<MaterialSummary, 'id' | 'name' | 'family' | 'version'>;
+export type CoreChoice = Pick<ListedCore, 'id' | 'family' | 'gapKind'>;
 
 export interface CurvesRequest {
   materialIds: string[];

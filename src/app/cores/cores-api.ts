@@ -1,29 +1,14 @@
 import { HttpClient, httpResource } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { ImportDecision, ImportPreview } from '@shared/schemas/core-csv';
-import type { UserCoreRequest } from '@shared/schemas/cores';
+import type { ListedCore, UserCoreRequest } from '@shared/schemas/cores';
 import { map, type Observable } from 'rxjs';
 
 import { errorsShownByCaller } from '../core/error-display';
 import { uploadCsv, type UploadStep } from '../core/upload-steps';
 
-export interface CatalogueCore {
-  id: string;
-  family: string;
-  gapKind: string;
-  ae: number;
-  le: number;
-  ve: number;
-  windowArea: number;
-  areaProduct: number;
-  source: string;
-  origin: 'shipped' | 'user';
-  userCoreId?: number;
-  version?: number;
-  retired?: boolean;
-  createdBy?: string | null;
-  createdAt?: string;
-}
+/** A core as the catalogue lists it (shared with the server's listing). */
+export type CatalogueCore = ListedCore;
 
 /** What an import of a core CSV file did. */
 export interface CoreImportResult {

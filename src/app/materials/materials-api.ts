@@ -1,35 +1,12 @@
 import { HttpClient, httpResource } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
-import type { ImportDecision, ImportPreview, MaterialCsvColumn, MaterialEdit } from '@shared/schemas/materials';
+import type { ImportDecision, ImportPreview, LibraryMaterial, MaterialEdit } from '@shared/schemas/materials';
 import { map, type Observable } from 'rxjs';
 
 import { errorsShownByCaller } from '../core/error-display';
 import { uploadCsv, type UploadStep } from '../core/upload-steps';
 
-export interface LibraryMaterial {
-  id: string;
-  name: string;
-  family: string;
-  lineage: string;
-  version: number;
-  retired: boolean;
-  current: boolean;
-  unitSet: string;
-  kUploaded: number;
-  k: number;
-  alpha: number;
-  beta: number;
-  fitFrequencyMin: number;
-  fitFrequencyMax: number;
-  fitFluxMin: number;
-  fitFluxMax: number;
-  permeability: number;
-  provenance: string;
-  createdAt: string;
-  createdBy: string | null;
-  /** Its values as CSV cells in its own unit set (what the edit form starts from). */
-  cells: Record<MaterialCsvColumn, string>;
-}
+export type { LibraryMaterial } from '@shared/schemas/materials';
 
 export interface MaterialImportEntry {
   id: number;
