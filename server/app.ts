@@ -11,7 +11,7 @@ import { createCsrf } from './auth/csrf.ts';
 import { createDesignServices } from './designs/design-services.ts';
 import { designsRouter } from './designs/designs.router.ts';
 import { createPassport } from './auth/passport.ts';
-import { absoluteLifetime, createSessionMiddleware } from './auth/session.ts';
+import { absoluteLifetime, createSessionMiddleware, idleRenewal } from './auth/session.ts';
 import { calcRouter } from './calc/calc.router.ts';
 import { CalcService } from './calc/calc.service.ts';
 import { catalogueRouter } from './catalogue/catalogue.router.ts';
@@ -122,6 +122,7 @@ export function createApp(deps: AppDeps) {
   api.use(express.json({ limit: '1mb', strict: true }));
   api.use(sessions.middleware);
   api.use(absoluteLifetime(config));
+  api.use(idleRenewal(config));
   api.use(passport.initialize());
   api.use(passport.session());
   api.use(csrf.protection);

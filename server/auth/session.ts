@@ -8,6 +8,8 @@ declare module 'express-session' {
   interface SessionData {
     /** When the user signed in (ms since epoch): sessions end after an absolute lifetime too. */
     signedInAt?: number;
+    /** When the session's idle clock was last reset (ms since epoch); see idleRenewal. */
+    renewedAt?: number;
   }
 }
 
@@ -23,6 +25,8 @@ export function createSessionMiddleware(config: Config, pool: pg.Pool) {
     tableName: 'session',
     createTableIfMissing: false,
     pruneSessionInterval: config.env === 'test' ? false : 900,
+    // express-session touches the store on every request; idleRenewal below renews the expiry instead.
+    disableTouch: true,
   });
   const middleware = session({
     name: sessionCookieName(config),
@@ -30,7 +34,9 @@ export function createSessionMiddleware(config: Config, pool: pg.Pool) {
     store,
     resave: false,
     saveUninitialized: false,
-    rolling: true,
+    // Not rolling: renewing the idle clock on every request costs a database write per request. idleRenewal
+    // renews it at most every tenth of the idle time instead.
+    rolling: false,
     cookie: {
       httpOnly: true,
       sameSite: 'lax',
@@ -50,6 +56,24 @@ export function absoluteLifetime(config: Config): RequestHandler {
       // Regenerate rather than destroy: later middleware still expects a session object.
       req.session.regenerate((err) => next(err));
       return;
+    }
+    next();
+  };
+}
+
+/**
+ * Keeps an active session alive: at most once per tenth of the idle time (and at least once a minute) the session
+ * is marked, so it is saved with a fresh expiry and the cookie is sent again. The idle timeout is thereby enforced
+ * to within a tenth of itself, without a store write on every request.
+ */
+export function idleRenewal(config: Config): RequestHandler {
+  const every = Math.min(60_000, config.sessionIdleMs / 10);
+  return (req, _res, next) => {
+    const current = req.session;
+    // Only sessions that hold something (a sign-in or a CSRF token); an anonymous request must not create one.
+    if (current && Object.keys(current).some((key) => key !== 'cookie')) {
+      const now = Date.now();
+      if (!current.renewedAt || now - current.renewedAt >= every) current.renewedAt = now;
     }
     next();
   };

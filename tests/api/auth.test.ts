@@ -178,6 +178,19 @@ describe('session lifetime', () => {
     expect((await client.get('/api/admin/users')).status).toBe(401);
   });
 
+  it('keeps a session alive while it is used: the idle clock is renewed without a store write on every request', async () => {
+    const client = await signedInAs(t.app, 'admin');
+    const start = Date.now();
+    // Two requests 0.6 of the idle time apart, then another 0.6 later: 1.2 idle times after sign-in, still signed in.
+    vi.useFakeTimers({ toFake: ['Date'], now: start + 0.6 * t.config.sessionIdleMs });
+    expect((await client.get('/api/admin/users')).status).toBe(200);
+    vi.setSystemTime(start + 1.2 * t.config.sessionIdleMs);
+    expect((await client.get('/api/admin/users')).status).toBe(200);
+    // …and idle for a whole idle time after that last request, it ends.
+    vi.setSystemTime(start + 2.3 * t.config.sessionIdleMs);
+    expect((await client.get('/api/admin/users')).status).toBe(401);
+  });
+
   it('ends an active session after its absolute lifetime (ASVS 7.3.2)', async () => {
     const longIdle = await createTestApp({ SESSION_IDLE_MINUTES: '100000', SESSION_ABSOLUTE_HOURS: '12' });
     try {
