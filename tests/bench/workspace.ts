@@ -55,18 +55,48 @@ export async function runWorkspaceBench(): Promise<BenchRow[]> {
     await page.locator('[data-figure="total-loss"]').waitFor();
     const base = Number(await turnsField.inputValue());
     const evaluateTimes: number[] = [];
+    const requestTimes: number[] = [];
     for (let run = 0; run < RUNS; run++) {
       const turns = base + 1 + run;
-      const started = performance.now();
+      // Timed inside the page (input event → the figure's text changed, seen by a MutationObserver), so the
+      // test driver's polling does not count; the evaluate request is timed on its own beside it.
+      const shown = page.evaluate(
+        (expected) =>
+          new Promise<number>((resolve) => {
+            // This file is also type-checked without the DOM library (the benchmark runner imports it): the few
+            // browser objects used here are described by hand.
+            type Node = { textContent: string | null; addEventListener(type: string, listener: () => void, options: object): void };
+            const page = globalThis as unknown as {
+              document: { querySelector(selector: string): Node };
+              MutationObserver: new (callback: (changes: unknown, observer: { disconnect(): void }) => void) => { observe(target: Node, options: object): void };
+            };
+            const figure = page.document.querySelector('[data-figure="turns"]');
+            const input = page.document.querySelector('input[formcontrolname="turns"]');
+            let started = 0;
+            input.addEventListener('input', () => (started = performance.now()), { once: true });
+            new page.MutationObserver((_changes, observer) => {
+              if (figure.textContent?.trim() === expected) {
+                observer.disconnect();
+                resolve(performance.now() - started);
+              }
+            }).observe(figure, { childList: true, characterData: true, subtree: true });
+          }),
+        String(turns),
+      );
+      const request = page.waitForResponse((r) => r.url().includes('/api/calc/evaluate'));
       await turnsField.fill(String(turns));
-      await page.locator('[data-figure="turns"]', { hasText: new RegExp(`^${turns}$`) }).waitFor();
-      evaluateTimes.push(performance.now() - started);
+      const response = await request;
+      evaluateTimes.push(await shown);
+      const timing = response.request().timing();
+      requestTimes.push(timing.responseEnd - timing.requestStart);
     }
     const searchMs = median(searchTimes);
     const evaluateMs = median(evaluateTimes);
+    const requestMs = median(requestTimes);
     return [
       { name: 'workspace: "search" to candidates table (demo telecom spec, median of 5)', value: `${searchMs.toFixed(0)} ms` },
-      { name: 'workspace: turns change to figures on screen (median of 5)', value: `${evaluateMs.toFixed(0)} ms (${(evaluateMs - EDIT_DEBOUNCE_MS).toFixed(0)} ms after the ${EDIT_DEBOUNCE_MS} ms debounce)` },
+      { name: 'workspace: turns change to figures on screen, timed in the page (median of 5)', value: `${evaluateMs.toFixed(0)} ms (${(evaluateMs - EDIT_DEBOUNCE_MS).toFixed(0)} ms after the ${EDIT_DEBOUNCE_MS} ms debounce)` },
+      { name: 'workspace: of which the evaluate request (with its loss sweep)', value: `${requestMs.toFixed(0)} ms` },
     ];
   } finally {
     await harness.close();
