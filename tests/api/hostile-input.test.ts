@@ -80,6 +80,12 @@ const CASES: HostileCase[] = [
   { name: 'negative measured inductance', who: 'winder', method: 'post', url: '/api/shop/orders/1/units', body: { inductance: -1e-6, testFrequency: 1e4, resistance: 0.01, resistanceTemperature: 25, hipot: 'pass' }, status: 400, field: 'inductance' },
   { name: 'invalid UTF-8 in a JSON body', who: 'engineer', method: 'post', url: '/api/calc/operating-point', raw: { type: 'application/json; charset=utf-8', data: Buffer.concat([Buffer.from('{"vinMin": 24, "note": "'), Buffer.from([0xc3, 0x28, 0xff]), Buffer.from('"}')]) }, status: 400 },
   { name: 'bad e-mail address for the shop', who: 'admin', method: 'put', url: '/api/admin/settings', body: { shopEmail: 'shop@@example' }, status: 400, field: 'shopEmail' },
+  { name: 'design number instead of a design id', who: 'engineer', method: 'post', url: '/api/compare/saved-design', body: { designId: 'GW-0001', revision: 1 }, status: 400, field: 'designId' },
+  { name: 'fractional revision number', who: 'engineer', method: 'post', url: '/api/compare/saved-design', body: { designId: 1, revision: 1.5 }, status: 400, field: 'revision' },
+  { name: 'overflowing design id', who: 'engineer', method: 'post', url: '/api/compare/saved-design', body: { designId: 1e12, revision: 1 }, status: 400, field: 'designId' },
+  { name: 'formula-like user core name', who: 'engineer', method: 'post', url: '/api/catalogue/cores', body: { kind: 'ring', name: '=HYPERLINK("x")', family: 'RING', outerDiameter: 0.02, innerDiameter: 0.01, height: 0.007 }, status: 400, field: 'name' },
+  { name: 'gapped core whose Ve contradicts Ae·le', who: 'engineer', method: 'post', url: '/api/catalogue/cores', body: { kind: 'shape', name: 'Contradiction', family: 'E', ae: 1e-4, le: 0.08, ve: 1e-5, windowArea: 1.5e-4, windowHeight: 0.02, bobbinWidth: 0.018, bobbinHeight: 0.006, mlt: 0.06, surfaceArea: 0.003, source: 'test' }, status: 400, field: 've' },
+  { name: 'material edit with a non-numeric α', who: 'engineer', method: 'patch', url: '/api/materials/1', body: { alpha: 'one point five' }, status: 400, field: 'alpha' },
 ];
 
 describe('hostile input', () => {
