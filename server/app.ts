@@ -146,7 +146,7 @@ export function createApp(deps: AppDeps) {
   app.use('/api', api);
 
   app.use(staticAppRouter(config.staticDir));
-  const recordRefusal = (req: Request, err: AppError) => {
+  const recordRefusal = (req: Request, err: AppError) =>
     audit
       .record({
         actorId: req.user?.id ?? null,
@@ -156,7 +156,6 @@ export function createApp(deps: AppDeps) {
         ip: req.ip,
       })
       .catch((e: unknown) => logger.warn({ err: e }, 'could not record an access refusal'));
-  };
   app.use(
     errorMiddleware((err, status) => {
       if (status >= 500) logger.error({ err }, 'request failed');

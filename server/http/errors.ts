@@ -72,9 +72,9 @@ function isDatabaseUnavailable(err: unknown, depth = 0): boolean {
  */
 export function errorMiddleware(
   log: (err: unknown, status: number) => void,
-  onRefused: (req: Request, err: AppError) => void = () => {},
+  onRefused: (req: Request, err: AppError) => Promise<void> | void = () => {},
 ): ErrorRequestHandler {
-  return (err, req, res, _next) => {
+  return async (err, req, res, _next) => {
     let status = 500;
     let body: { code: string; message: string; fields?: FieldErrors };
     const h = err as HttpishError;
@@ -104,7 +104,8 @@ export function errorMiddleware(
       body = { code: 'internal_error', message: 'Something went wrong on the server. It has been logged.' };
     }
     log(err, status);
-    if (err instanceof AppError && (status === 401 || status === 403)) onRefused(req, err);
+    // The refusal is in the audit log before the caller hears of it (the recorder never throws).
+    if (err instanceof AppError && (status === 401 || status === 403)) await onRefused(req, err);
     if (res.headersSent) return;
     res.status(status).json({ error: body });
   };
