@@ -6,6 +6,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 
 import { showServerFieldErrors } from '../core/server-field-errors';
+import { CoreNameField } from './core-name-field';
 import { CoresApi, type CatalogueCore } from './cores-api';
 
 const MM = 1e-3;
@@ -13,7 +14,7 @@ const MM = 1e-3;
 /** A ring core from its nominal dimensions; the server computes le, Ae and Ve by IEC 60205. */
 @Component({
   selector: 'gw-core-form',
-  imports: [MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, ReactiveFormsModule],
+  imports: [CoreNameField, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, ReactiveFormsModule],
   templateUrl: './core-form.html',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })

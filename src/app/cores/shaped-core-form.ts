@@ -9,6 +9,7 @@ import { VOLUME_CONSISTENCY_TOLERANCE } from '@shared/catalogue/core-schema';
 import { GAPPED_CORE_FAMILIES } from '@shared/schemas/cores';
 
 import { showServerFieldErrors } from '../core/server-field-errors';
+import { CoreNameField } from './core-name-field';
 import { CoresApi, type CatalogueCore } from './cores-api';
 
 type GappedFamily = (typeof GAPPED_CORE_FAMILIES)[number];
@@ -34,7 +35,7 @@ const parameterControl = (required: boolean) =>
 /** A gapped set (E, ETD, PQ, RM, pot…) from its effective parameters as a datasheet or a drawing gives them. */
 @Component({
   selector: 'gw-shaped-core-form',
-  imports: [MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, ReactiveFormsModule],
+  imports: [CoreNameField, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, ReactiveFormsModule],
   templateUrl: './shaped-core-form.html',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
