@@ -59,6 +59,15 @@ describe('user cores from a CSV file and from effective parameters', () => {
     await page.getByRole('cell', { name: 'Lab set 36 (browser test)', exact: true }).waitFor();
     await page.screenshot({ path: screenshotPath('cores-gapped-added'), fullPage: true });
 
+    // Edit it: the form starts from the stored parameters and saves version 2.
+    await page.getByRole('button', { name: 'Edit Lab set 36 (browser test)' }).click();
+    await page.getByText('Edit Lab set 36 (browser test): a new version of the gapped core').waitFor();
+    expect(await form.getByLabel('Ve, effective volume (mm³)', { exact: true }).inputValue()).toBe('8000');
+    await form.getByLabel('Mean length of a turn (mm)', { exact: true }).fill('62');
+    await form.getByRole('button', { name: 'Save as version 2' }).click();
+    await page.getByRole('cell', { name: /\(v2\)/ }).waitFor();
+    expect(await seriousAxeFindings(page)).toEqual([]);
+
     // The same template again: the E set becomes version 2, the ring is skipped.
     await page.getByRole('button', { name: 'Import cores from a CSV file' }).click();
     await page.getByLabel('Core CSV file', { exact: true }).setInputFiles({ name: 'cores-again.csv', mimeType: 'text/csv', buffer: await template.body() });

@@ -1,5 +1,5 @@
 import { DatePipe, DecimalPipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, inject, signal, viewChild } from '@angular/core';
+import { ChangeDetectionStrategy, Component, ElementRef, computed, inject, signal, viewChild } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatExpansionModule } from '@angular/material/expansion';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -54,12 +54,18 @@ export class CoreCatalogue {
   private readonly session = inject(Session);
   private readonly sort = viewChild.required(MatSort);
   private readonly paginator = viewChild.required(MatPaginator);
+  private readonly forms = viewChild.required('forms', { read: ElementRef<HTMLElement> });
 
   protected readonly cores = this.api.listResource();
   protected readonly families = computed(() => [...new Set(this.cores.value().map((c) => c.family))]);
   protected readonly columns = ['id', 'family', 'ae', 'le', 've', 'windowArea', 'areaProduct', 'origin', 'source', 'actions'];
   protected readonly historyColumns = ['version', 'ae', 'le', 've', 'windowArea', 'source', 'createdBy', 'createdAt'];
   protected readonly mayRetire = computed(() => ['reviewer', 'admin'].includes(this.session.user()?.role ?? ''));
+  protected readonly mayEdit = computed(() => ['engineer', 'reviewer', 'admin'].includes(this.session.user()?.role ?? ''));
+  /** The user core whose next version is being written in one of the forms above the table. */
+  protected readonly editingCore = signal<CatalogueCore | null>(null);
+  protected readonly editingRing = computed(() => (this.editingCore()?.ring ? this.editingCore() : null));
+  protected readonly editingShape = computed(() => (this.editingCore() && !this.editingCore()!.ring ? this.editingCore() : null));
   protected readonly history = signal<{ name: string; userCoreId: number; versions: CatalogueCore[] } | null>(null);
   protected readonly dataSource = new MatTableDataSource<CatalogueCore>([]);
   protected readonly filters = signal<CoreFilters>({ text: '', family: '', aeMin: null, windowMin: null, apMin: null });
@@ -89,8 +95,17 @@ export class CoreCatalogue {
   }
 
   protected added(core: CatalogueCore): void {
-    this.notifier.info(`Core ${core.id} added: le ${(core.le * 1e3).toFixed(2)} mm, Ae ${(core.ae * 1e6).toFixed(2)} mm².`);
+    const what = core.version && core.version > 1 ? `saved as version ${core.version}` : 'added';
+    this.notifier.info(`Core ${core.id} ${what}: le ${(core.le * 1e3).toFixed(2)} mm, Ae ${(core.ae * 1e6).toFixed(2)} mm².`);
+    const shown = this.history();
+    this.editingCore.set(null);
     this.cores.reload();
+    if (shown && core.userCoreId !== undefined && shown.name === core.id) this.showHistory(core);
+  }
+
+  protected edit(core: CatalogueCore): void {
+    this.editingCore.set(core);
+    (this.forms().nativeElement as HTMLElement).scrollIntoView?.({ block: 'start' });
   }
 
   protected importedCores(result: CoreImportResult): void {

@@ -1,9 +1,11 @@
-import { ChangeDetectionStrategy, Component, inject, output, signal, viewChild } from '@angular/core';
+import { ChangeDetectionStrategy, Component, effect, inject, input, output, signal, untracked, viewChild } from '@angular/core';
 import { FormControl, FormGroup, FormGroupDirective, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
+
+import { IEC60205_SOURCE_NOTE } from '@shared/catalogue/core-schema';
 
 import { showServerFieldErrors } from '../core/server-field-errors';
 import { CoreNameField } from './core-name-field';
@@ -11,7 +13,7 @@ import { CoresApi, type CatalogueCore } from './cores-api';
 
 const MM = 1e-3;
 
-/** A ring core from its nominal dimensions; the server computes le, Ae and Ve by IEC 60205. */
+/** A ring core from its nominal dimensions (new, or a new version of one); the server computes le, Ae and Ve by IEC 60205. */
 @Component({
   selector: 'gw-core-form',
   imports: [CoreNameField, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, ReactiveFormsModule],
@@ -21,7 +23,10 @@ const MM = 1e-3;
 export class CoreForm {
   private readonly api = inject(CoresApi);
   private readonly formDirective = viewChild.required(FormGroupDirective);
+  /** A user ring core to save a new version of; null adds a new core. */
+  readonly editing = input<CatalogueCore | null>(null);
   readonly created = output<CatalogueCore>();
+  readonly cancelled = output<void>();
 
   protected readonly form = new FormGroup({
     name: new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.maxLength(60), Validators.pattern(/^[^=+\-@]/)] }),
@@ -34,6 +39,38 @@ export class CoreForm {
   protected readonly submitting = signal(false);
   protected readonly failure = signal<string | null>(null);
 
+  constructor() {
+    effect(() => {
+      const core = this.editing();
+      untracked(() => {
+        if (core?.ring) this.fill(core);
+        else if (this.filled) this.clear();
+      });
+    });
+  }
+
+  /** Holds an edited core's values (so leaving the edit empties the form). */
+  private filled = false;
+
+  private fill(core: CatalogueCore): void {
+    this.filled = true;
+    const ring = core.ring!;
+    this.form.reset({
+      name: core.id,
+      family: core.family === 'RING' ? 'RING' : 'POWDER_TOROID',
+      outerDiameter: ring.od / MM,
+      innerDiameter: ring.id / MM,
+      height: ring.height / MM,
+      // The server puts the IEC 60205 note in front of what was typed; the form shows only the typed part.
+      source: core.source.replace(IEC60205_SOURCE_NOTE, '').replace(/^;\s*/, ''),
+    });
+  }
+
+  private clear(): void {
+    this.filled = false;
+    this.formDirective().resetForm({ family: 'POWDER_TOROID', source: '', name: '' });
+  }
+
   protected submit(): void {
     const v = this.form.getRawValue();
     if (v.outerDiameter !== null && v.innerDiameter !== null && v.innerDiameter >= v.outerDiameter) {
@@ -45,26 +82,26 @@ export class CoreForm {
     }
     this.submitting.set(true);
     this.failure.set(null);
-    this.api
-      .create({
-        kind: 'ring',
-        name: v.name.trim(),
-        family: v.family,
-        outerDiameter: v.outerDiameter! * MM,
-        innerDiameter: v.innerDiameter! * MM,
-        height: v.height! * MM,
-        source: v.source.trim(),
-      })
-      .subscribe({
-        next: (core) => {
-          this.submitting.set(false);
-          this.formDirective().resetForm({ family: 'POWDER_TOROID', source: '', name: '' });
-          this.created.emit(core);
-        },
-        error: (error: unknown) => {
-          this.submitting.set(false);
-          this.failure.set(showServerFieldErrors(this.form, error));
-        },
-      });
+    const request = {
+      kind: 'ring' as const,
+      name: v.name.trim(),
+      family: v.family,
+      outerDiameter: v.outerDiameter! * MM,
+      innerDiameter: v.innerDiameter! * MM,
+      height: v.height! * MM,
+      source: v.source.trim(),
+    };
+    const editing = this.editing();
+    (editing?.userCoreId !== undefined ? this.api.edit(editing.userCoreId, request) : this.api.create(request)).subscribe({
+      next: (core) => {
+        this.submitting.set(false);
+        this.clear();
+        this.created.emit(core);
+      },
+      error: (error: unknown) => {
+        this.submitting.set(false);
+        this.failure.set(showServerFieldErrors(this.form, error));
+      },
+    });
   }
 }

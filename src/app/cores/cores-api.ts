@@ -40,6 +40,11 @@ export class CoresApi {
     return this.http.post<CatalogueCore>(`/api/catalogue/cores/${userCoreId}/${retired ? 'retire' : 'unretire'}`, {});
   }
 
+  /** A new version of a user core (its current version's id). */
+  edit(userCoreId: number, request: UserCoreRequest): Observable<CatalogueCore> {
+    return this.http.put<CatalogueCore>(`/api/catalogue/cores/${userCoreId}`, request, errorsShownByCaller());
+  }
+
   create(request: UserCoreRequest): Observable<CatalogueCore> {
     return this.http.post<CatalogueCore>('/api/catalogue/cores', request, errorsShownByCaller());
   }

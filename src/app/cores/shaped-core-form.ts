@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, inject, output, signal, viewChild } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, output, signal, untracked, viewChild } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, FormGroupDirective, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -42,7 +42,10 @@ const parameterControl = (required: boolean) =>
 export class ShapedCoreForm {
   private readonly api = inject(CoresApi);
   private readonly formDirective = viewChild.required(FormGroupDirective);
+  /** A gapped user core to save a new version of; null adds a new core. */
+  readonly editing = input<CatalogueCore | null>(null);
   readonly created = output<CatalogueCore>();
+  readonly cancelled = output<void>();
 
   protected readonly families = GAPPED_CORE_FAMILIES;
   protected readonly parameters = PARAMETERS;
@@ -71,6 +74,38 @@ export class ShapedCoreForm {
     return ae && le ? `Ae·le = ${(ae * le).toPrecision(4)} mm³; Ve must be within ${VOLUME_CONSISTENCY_TOLERANCE * 100} %` : '';
   });
 
+  /** Holds an edited core's values (so leaving the edit empties the form). */
+  private filled = false;
+
+  constructor() {
+    effect(() => {
+      const core = this.editing();
+      untracked(() => {
+        if (core && !core.ring) this.fill(core);
+        else if (this.filled) this.clear();
+      });
+    });
+  }
+
+  private fill(core: CatalogueCore): void {
+    this.filled = true;
+    const shown = (p: (typeof PARAMETERS)[number]) => {
+      const si = core[p.name];
+      return si === undefined ? null : Number((si / p.toSi).toPrecision(10));
+    };
+    this.form.reset({
+      name: core.id,
+      family: (GAPPED_CORE_FAMILIES as readonly string[]).includes(core.family) ? (core.family as GappedFamily) : 'ETD',
+      ...Object.fromEntries(PARAMETERS.map((p) => [p.name, shown(p)])),
+      source: core.source,
+    });
+  }
+
+  private clear(): void {
+    this.filled = false;
+    this.formDirective().resetForm({ name: '', family: 'ETD', source: '' });
+  }
+
   protected submit(): void {
     if (this.form.invalid) {
       this.form.markAllAsTouched();
@@ -82,10 +117,12 @@ export class ShapedCoreForm {
     ) as Record<ParameterName, number>;
     this.submitting.set(true);
     this.failure.set(null);
-    this.api.create({ kind: 'shape', name: v.name.trim(), family: v.family, ...si, source: v.source.trim() }).subscribe({
+    const request = { kind: 'shape' as const, name: v.name.trim(), family: v.family, ...si, source: v.source.trim() };
+    const editing = this.editing();
+    (editing?.userCoreId !== undefined ? this.api.edit(editing.userCoreId, request) : this.api.create(request)).subscribe({
       next: (core) => {
         this.submitting.set(false);
-        this.formDirective().resetForm({ name: '', family: 'ETD', source: '' });
+        this.clear();
         this.created.emit(core);
       },
       error: (error: unknown) => {
