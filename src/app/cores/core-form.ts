@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, effect, inject, input, output, signal, untracked, viewChild } from '@angular/core';
+import { ChangeDetectionStrategy, Component, viewChild } from '@angular/core';
 import { FormControl, FormGroup, FormGroupDirective, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -7,9 +7,9 @@ import { MatSelectModule } from '@angular/material/select';
 
 import { IEC60205_SOURCE_NOTE } from '@shared/catalogue/core-schema';
 
-import { showServerFieldErrors } from '../core/server-field-errors';
 import { CoreNameField } from './core-name-field';
-import { CoresApi, type CatalogueCore } from './cores-api';
+import type { CatalogueCore } from './cores-api';
+import { UserCoreForm } from './user-core-form';
 
 const MM = 1e-3;
 
@@ -20,13 +20,8 @@ const MM = 1e-3;
   templateUrl: './core-form.html',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
-export class CoreForm {
-  private readonly api = inject(CoresApi);
+export class CoreForm extends UserCoreForm {
   private readonly formDirective = viewChild.required(FormGroupDirective);
-  /** A user ring core to save a new version of; null adds a new core. */
-  readonly editing = input<CatalogueCore | null>(null);
-  readonly created = output<CatalogueCore>();
-  readonly cancelled = output<void>();
 
   protected readonly form = new FormGroup({
     name: new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.maxLength(60), Validators.pattern(/^[^=+\-@]/)] }),
@@ -36,24 +31,12 @@ export class CoreForm {
     height: new FormControl<number | null>(null, { validators: [Validators.required, Validators.min(0.2), Validators.max(500)] }),
     source: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(300)] }),
   });
-  protected readonly submitting = signal(false);
-  protected readonly failure = signal<string | null>(null);
 
-  constructor() {
-    effect(() => {
-      const core = this.editing();
-      untracked(() => {
-        if (core?.ring) this.fill(core);
-        else if (this.filled) this.clear();
-      });
-    });
+  protected accepts(core: CatalogueCore): boolean {
+    return core.ring !== undefined;
   }
 
-  /** Holds an edited core's values (so leaving the edit empties the form). */
-  private filled = false;
-
-  private fill(core: CatalogueCore): void {
-    this.filled = true;
+  protected fill(core: CatalogueCore): void {
     const ring = core.ring!;
     this.form.reset({
       name: core.id,
@@ -66,8 +49,7 @@ export class CoreForm {
     });
   }
 
-  private clear(): void {
-    this.filled = false;
+  protected clear(): void {
     this.formDirective().resetForm({ family: 'POWDER_TOROID', source: '', name: '' });
   }
 
@@ -80,28 +62,14 @@ export class CoreForm {
       this.form.markAllAsTouched();
       return;
     }
-    this.submitting.set(true);
-    this.failure.set(null);
-    const request = {
-      kind: 'ring' as const,
+    this.send({
+      kind: 'ring',
       name: v.name.trim(),
       family: v.family,
       outerDiameter: v.outerDiameter! * MM,
       innerDiameter: v.innerDiameter! * MM,
       height: v.height! * MM,
       source: v.source.trim(),
-    };
-    const editing = this.editing();
-    (editing?.userCoreId !== undefined ? this.api.edit(editing.userCoreId, request) : this.api.create(request)).subscribe({
-      next: (core) => {
-        this.submitting.set(false);
-        this.clear();
-        this.created.emit(core);
-      },
-      error: (error: unknown) => {
-        this.submitting.set(false);
-        this.failure.set(showServerFieldErrors(this.form, error));
-      },
     });
   }
 }

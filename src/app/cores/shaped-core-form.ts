@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, effect, inject, input, output, signal, untracked, viewChild } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, viewChild } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, FormGroupDirective, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -8,9 +8,9 @@ import { MatSelectModule } from '@angular/material/select';
 import { VOLUME_CONSISTENCY_TOLERANCE } from '@shared/catalogue/core-schema';
 import { GAPPED_CORE_FAMILIES } from '@shared/schemas/cores';
 
-import { showServerFieldErrors } from '../core/server-field-errors';
 import { CoreNameField } from './core-name-field';
-import { CoresApi, type CatalogueCore } from './cores-api';
+import type { CatalogueCore } from './cores-api';
+import { UserCoreForm } from './user-core-form';
 
 type GappedFamily = (typeof GAPPED_CORE_FAMILIES)[number];
 type ParameterName = 'ae' | 'amin' | 'le' | 've' | 'windowArea' | 'windowHeight' | 'bobbinWidth' | 'bobbinHeight' | 'mlt' | 'surfaceArea';
@@ -39,13 +39,8 @@ const parameterControl = (required: boolean) =>
   templateUrl: './shaped-core-form.html',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
-export class ShapedCoreForm {
-  private readonly api = inject(CoresApi);
+export class ShapedCoreForm extends UserCoreForm {
   private readonly formDirective = viewChild.required(FormGroupDirective);
-  /** A gapped user core to save a new version of; null adds a new core. */
-  readonly editing = input<CatalogueCore | null>(null);
-  readonly created = output<CatalogueCore>();
-  readonly cancelled = output<void>();
 
   protected readonly families = GAPPED_CORE_FAMILIES;
   protected readonly parameters = PARAMETERS;
@@ -64,8 +59,6 @@ export class ShapedCoreForm {
     surfaceArea: parameterControl(true),
     source: new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.maxLength(300)] }),
   });
-  protected readonly submitting = signal(false);
-  protected readonly failure = signal<string | null>(null);
 
   private readonly values = toSignal(this.form.valueChanges, { initialValue: this.form.value });
   /** Ae·le beside the volume field: the server refuses a Ve more than 5 % away from it. */
@@ -74,21 +67,11 @@ export class ShapedCoreForm {
     return ae && le ? `Ae·le = ${(ae * le).toPrecision(4)} mm³; Ve must be within ${VOLUME_CONSISTENCY_TOLERANCE * 100} %` : '';
   });
 
-  /** Holds an edited core's values (so leaving the edit empties the form). */
-  private filled = false;
-
-  constructor() {
-    effect(() => {
-      const core = this.editing();
-      untracked(() => {
-        if (core && !core.ring) this.fill(core);
-        else if (this.filled) this.clear();
-      });
-    });
+  protected accepts(core: CatalogueCore): boolean {
+    return core.ring === undefined;
   }
 
-  private fill(core: CatalogueCore): void {
-    this.filled = true;
+  protected fill(core: CatalogueCore): void {
     const shown = (p: (typeof PARAMETERS)[number]) => {
       const si = core[p.name];
       return si === undefined ? null : Number((si / p.toSi).toPrecision(10));
@@ -101,8 +84,7 @@ export class ShapedCoreForm {
     });
   }
 
-  private clear(): void {
-    this.filled = false;
+  protected clear(): void {
     this.formDirective().resetForm({ name: '', family: 'ETD', source: '' });
   }
 
@@ -115,20 +97,6 @@ export class ShapedCoreForm {
     const si = Object.fromEntries(
       PARAMETERS.filter((p) => v[p.name] !== null).map((p) => [p.name, (v[p.name] as number) * p.toSi]),
     ) as Record<ParameterName, number>;
-    this.submitting.set(true);
-    this.failure.set(null);
-    const request = { kind: 'shape' as const, name: v.name.trim(), family: v.family, ...si, source: v.source.trim() };
-    const editing = this.editing();
-    (editing?.userCoreId !== undefined ? this.api.edit(editing.userCoreId, request) : this.api.create(request)).subscribe({
-      next: (core) => {
-        this.submitting.set(false);
-        this.clear();
-        this.created.emit(core);
-      },
-      error: (error: unknown) => {
-        this.submitting.set(false);
-        this.failure.set(showServerFieldErrors(this.form, error));
-      },
-    });
+    this.send({ kind: 'shape', name: v.name.trim(), family: v.family, ...si, source: v.source.trim() });
   }
 }
