@@ -65,6 +65,12 @@ describe('editing a material in the library', () => {
     await versions.getByRole('cell', { name: 'v2 (current)' }).waitFor();
     expect(await versions.getByRole('cell', { name: /^v3/ }).count()).toBe(0);
     expect(await row.getByRole('cell', { name: 'v2', exact: true }).count()).toBe(1);
+
+    // A demo design built with version 1 still names it on its design page (it is no longer current).
+    await page.goto('/designs');
+    await page.getByRole('row', { name: /Industrial board 24 V/ }).getByRole('link').first().click();
+    const materialField = page.locator('gw-design-panel').getByRole('combobox', { name: 'Material' });
+    await materialField.filter({ hasText: `${MATERIAL} (the version this design uses; since replaced)` }).waitFor();
     await context.close();
   }, 120_000);
 });

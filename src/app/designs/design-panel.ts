@@ -70,9 +70,15 @@ export class DesignPanel {
     const current = this.result()?.core.id;
     return this.cores.value().filter((c) => c.id === current || (!c.retired && (c.gapKind === 'distributed') === powder));
   });
-  protected readonly materialOptions = computed(() => {
-    const family = this.result()?.material.family;
-    return this.materials().filter((m) => !family || (m.family === 'powder') === (family === 'powder'));
+  /**
+   * Current materials of the right kind, plus the version this design was built with when it is no longer current
+   * (edited or retired since): without it the field would show nothing.
+   */
+  protected readonly materialOptions = computed((): { id: string; name: string }[] => {
+    const own = this.result()?.material;
+    const options = this.materials().filter((m) => !own || (m.family === 'powder') === (own.family === 'powder'));
+    if (!own || options.some((m) => m.id === own.id)) return options;
+    return [{ id: own.id, name: `${own.name} (the version this design uses; since replaced)` }, ...options];
   });
 
   constructor() {
