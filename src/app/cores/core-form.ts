@@ -32,10 +32,6 @@ export class CoreForm extends UserCoreForm {
     source: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(300)] }),
   });
 
-  protected accepts(core: CatalogueCore): boolean {
-    return core.ring !== undefined;
-  }
-
   protected fill(core: CatalogueCore): void {
     const ring = core.ring!;
     this.form.reset({

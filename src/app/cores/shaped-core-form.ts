@@ -67,10 +67,6 @@ export class ShapedCoreForm extends UserCoreForm {
     return ae && le ? `Ae·le = ${(ae * le).toPrecision(4)} mm³; Ve must be within ${VOLUME_CONSISTENCY_TOLERANCE * 100} %` : '';
   });
 
-  protected accepts(core: CatalogueCore): boolean {
-    return core.ring === undefined;
-  }
-
   protected fill(core: CatalogueCore): void {
     const shown = (p: (typeof PARAMETERS)[number]) => {
       const si = core[p.name];

@@ -9,7 +9,7 @@ import { CoresApi, type CatalogueCore } from './cores-api';
 @Directive()
 export abstract class UserCoreForm {
   private readonly api = inject(CoresApi);
-  /** A user core to save a new version of; null adds a new core. */
+  /** A user core of this form's kind to save a new version of (the page decides the kind); null adds a new core. */
   readonly editing = input<CatalogueCore | null>(null);
   readonly created = output<CatalogueCore>();
   readonly cancelled = output<void>();
@@ -23,7 +23,7 @@ export abstract class UserCoreForm {
     effect(() => {
       const core = this.editing();
       untracked(() => {
-        if (core && this.accepts(core)) {
+        if (core) {
           this.filled = true;
           this.fill(core);
         } else if (this.filled) {
@@ -33,8 +33,6 @@ export abstract class UserCoreForm {
     });
   }
 
-  /** Whether this form edits that kind of core (ring or gapped set). */
-  protected abstract accepts(core: CatalogueCore): boolean;
   /** The stored core's values in the form's units. */
   protected abstract fill(core: CatalogueCore): void;
   /** The form's fields back to their starting values. */
