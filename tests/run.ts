@@ -9,7 +9,7 @@ import { dropDatabase, ensureCluster, ensureDatabase } from '../server/ops/postg
 // Chromium, a fresh web build), ending with one "passed, failed" line.
 const repoRoot = fileURLToPath(new URL('..', import.meta.url));
 const resultsDir = path.join(repoRoot, 'test-results');
-const SUITES = ['types', 'unit', 'component', 'api', 'browser'] as const;
+const SUITES = ['types', 'lint', 'unit', 'component', 'api', 'browser'] as const;
 type Suite = (typeof SUITES)[number];
 
 const requested = process.argv.slice(2).filter((a): a is Suite => (SUITES as readonly string[]).includes(a));
@@ -21,6 +21,7 @@ interface Counts {
   skipped: number;
 }
 const totals: Record<string, Counts> = {};
+const seconds: Record<string, number> = {};
 
 function run(cmd: string, args: string[], env: NodeJS.ProcessEnv = {}): Promise<{ code: number; output: string }> {
   return new Promise((resolve) => {
@@ -80,6 +81,21 @@ async function typeChecks(): Promise<void> {
   totals['types'] = counts;
 }
 
+// ESLint (typescript-eslint, angular-eslint) and Prettier's formatting check, one count each.
+async function lintChecks(): Promise<void> {
+  const counts = { passed: 0, failed: 0, skipped: 0 };
+  const checks: [string, string[]][] = [
+    ['eslint', [path.join(repoRoot, 'node_modules/eslint/bin/eslint.js'), '.', '--max-warnings=0']],
+    ['prettier --check', [path.join(repoRoot, 'node_modules/prettier/bin/prettier.cjs'), '--check', '--log-level=warn', '.']],
+  ];
+  for (const [name, args] of checks) {
+    const { code } = await run(process.execPath, args);
+    process.stdout.write(`${code === 0 ? '✓' : '✗'} ${name}\n`);
+    counts[code === 0 ? 'passed' : 'failed'] += 1;
+  }
+  totals['lint'] = counts;
+}
+
 async function componentTests(): Promise<void> {
   const { code, output } = await run(process.execPath, [path.join(repoRoot, 'node_modules/@angular/cli/bin/ng.js'), 'test', '--watch=false'], {
     NG_CLI_ANALYTICS: 'false',
@@ -131,7 +147,9 @@ const cleanups: (() => void)[] = [];
 try {
   for (const suite of suites) {
     process.stdout.write(`\n=== ${suite} tests ===\n`);
+    const suiteStarted = Date.now();
     if (suite === 'types') await typeChecks();
+    if (suite === 'lint') await lintChecks();
     if (suite === 'unit') await vitestProject('unit');
     if (suite === 'component') await componentTests();
     if (suite === 'api' || suite === 'browser') {
@@ -141,6 +159,7 @@ try {
       cleanups.push(db.drop);
       await vitestProject(suite, { TEST_DATABASE_URL: db.url, TEST_RESULTS_DIR: resultsDir });
     }
+    seconds[suite] = (Date.now() - suiteStarted) / 1000;
   }
 } finally {
   for (const drop of cleanups) {
@@ -159,7 +178,8 @@ const sum = Object.values(totals).reduce((a, c) => ({ passed: a.passed + c.passe
 });
 process.stdout.write('\n');
 for (const [suite, c] of Object.entries(totals)) {
-  process.stdout.write(`  ${suite.padEnd(10)} ${c.passed} passed, ${c.failed} failed${c.skipped ? `, ${c.skipped} skipped` : ''}\n`);
+  const took = seconds[suite] === undefined ? '' : ` (${seconds[suite].toFixed(0)} s)`;
+  process.stdout.write(`  ${suite.padEnd(10)} ${c.passed} passed, ${c.failed} failed${c.skipped ? `, ${c.skipped} skipped` : ''}${took}\n`);
 }
 process.stdout.write(`  (${((Date.now() - started) / 1000).toFixed(0)} s)\n`);
 process.stdout.write(`Summary: ${sum.passed} passed, ${sum.failed} failed${sum.skipped ? `, ${sum.skipped} skipped` : ''}\n`);
