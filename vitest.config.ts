@@ -6,9 +6,10 @@ const alias = {
   '@core-data': fileURLToPath(new URL('./core-data', import.meta.url)),
 };
 
-// Three suites: pure unit tests (engine, catalogue, units), API tests against a real
-// PostgreSQL database, and browser tests driving Debian's Chromium. scripts/test.ts
-// prepares the database and browser and runs all three.
+// The three vitest projects: pure unit tests (engine, catalogue, units), API tests against a
+// real PostgreSQL database, and browser tests driving Debian's Chromium. `npm test` runs
+// tests/run.ts, which runs five suites in turn — types (tsc), unit, component (Angular's
+// `ng test`), api and browser — preparing the database and browser for the last two.
 export default defineConfig({
   resolve: { alias },
   test: {

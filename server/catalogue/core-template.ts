@@ -5,7 +5,7 @@ const ILLUSTRATIVE = 'Invented example, illustrative only';
 /**
  * The downloadable core template: one ring from its dimensions and one E-type set from effective parameters.
  * Both are invented, illustrative only, no maker's part. The ring's 20/10/7 mm is a round size whose IEC 60205
- * values appear in the magnetics reference §12.3; the E set's numbers are plausible orders of magnitude chosen
+ * values are computed from the standard's ring formulas (le 43.55 mm, Ae 33.63 mm²); the E set's numbers are plausible orders of magnitude chosen
  * to pass the consistency checks (Ve = Ae·le, bobbin inside the window; common practice, no source).
  */
 export const CORE_TEMPLATE_ROWS: Record<CoreCsvColumn, string>[] = [

@@ -27,7 +27,7 @@ import { diffObjects } from './flatten.ts';
 import type { DesignWithOwner, DesignsRepository, NewRevisionRow, RevisionRow } from './designs.repository.ts';
 
 /** Roles that may create and edit designs of their own. */
-// Reviewers may do everything engineers may (product brief); admins keep the site and do not design.
+// Reviewers may do everything engineers may; admins keep the site and do not design.
 export const DESIGNER_ROLES: readonly Role[] = ['engineer', 'reviewer'];
 
 export interface EvaluatedConstruction {

@@ -4,9 +4,9 @@ import type { MaterialFamily } from '@shared/engine/types';
  * Invented, illustrative core materials for the demo. They are not any maker's grade: each k is
  * chosen so the material loses a round, plausible amount at one stated point (common practice, no
  * source: MnZn power ferrite loses of order 50–150 kW/m³ at 100 kHz and 0.1 T peak near its
- * loss minimum; powder cores lose more at the same flux), with α and β inside the generic ranges
- * of the magnetics reference (§8.1). Temperature curves follow the parabolic form of §8.3 with the
- * minimum near 80–100 °C.
+ * loss minimum; powder cores lose more at the same flux), with α and β inside the generic MnZn ranges
+ * α ≈ 1.1–1.9, β ≈ 2.2–3.0 (common practice, no source). Temperature curves follow the usual parabolic
+ * correction ct2·T² − ct1·T + ct0 (common practice, no source) with the minimum near 80–100 °C.
  */
 export interface DemoMaterial {
   name: string;

@@ -79,7 +79,7 @@ async function seedMaterials(tx: Tx): Promise<void> {
           fitFrequencyMax: m.fit.fMax,
           fitFluxMin: m.fit.bMin,
           fitFluxMax: m.fit.bMax,
-          // Parabola normalised to 1 at its minimum (magnetics reference §8.3).
+          // Parabola normalised to 1 at its minimum (common practice, no source).
           ct2: t?.ct2 ?? null,
           ct1: t ? 2 * t.ct2 * t.temperature : null,
           ct0: t ? 1 + t.ct2 * t.temperature ** 2 : null,

@@ -47,7 +47,7 @@ export const UNIT_SCALES: Record<MaterialUnitSet, { frequency: number; flux: num
   'mW/cm3-kHz-mT': { frequency: 1e3, flux: 1e-3, frequencyUnit: 'kHz', fluxUnit: 'mT' },
 };
 
-/** Convert an uploaded k to SI (magnetics reference §8.4: k_SI = k′·10^(3·(1 − α + β)) for mW/cm³, kHz, mT). */
+/** Convert an uploaded k to SI (k_SI = k′·10^(3·(1 − α + β)) for mW/cm³, kHz, mT, computed from Pv = k·f^α·B̂^β). */
 export function kToSi(kUploaded: number, unitSet: MaterialUnitSet, alpha: number, beta: number): number {
   return unitSet === 'W/m3-Hz-T' ? kUploaded : steinmetzKToSi(kUploaded, alpha, beta);
 }

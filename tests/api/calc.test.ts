@@ -13,11 +13,12 @@ afterAll(() => t.close());
 
 const relative = (actual: number, expected: number) => Math.abs(actual - expected) / Math.abs(expected);
 
-// The worked example of the magnetics reference §1.2/§12.4: 24–36 V → 12 V, 10 A, 100 kHz, ripple 0.3 at Vin max.
+// Worked buck example: 24–36 V → 12 V, 10 A, 100 kHz, ripple 0.3 at Vin max; figures computed by hand from the ideal CCM
+// buck relations (volt-second balance, Erickson & Maksimović, Fundamentals of Power Electronics — from memory).
 const EXAMPLE_SPEC = { vinMin: 24, vinMax: 36, vout: 12, ioutMax: 10, frequency: 100e3, rippleRatio: 0.3 };
 
 describe('POST /api/calc/operating-point', () => {
-  it('reproduces the reference example (computed from magnetics reference §1.2 formulas)', async () => {
+  it('reproduces the worked buck example (ideal CCM buck relations, Erickson & Maksimović, Fundamentals of Power Electronics — from memory)', async () => {
     const res = await engineer.post('/api/calc/operating-point', EXAMPLE_SPEC);
     expect(res.status).toBe(200);
     const op = res.body;
@@ -32,7 +33,7 @@ describe('POST /api/calc/operating-point', () => {
     expect(op.ccmBoundaryCurrent).toBeCloseTo(1.5, 4); // ΔI/2
   });
 
-  it('returns ripple harmonics whose squared sum approaches ΔI²/12 (magnetics reference §7.3)', async () => {
+  it('returns ripple harmonics whose squared sum approaches ΔI²/12 (Parseval on the Fourier series of the triangle, computed)', async () => {
     const res = await engineer.post('/api/calc/operating-point', EXAMPLE_SPEC);
     const harmonics = res.body.harmonics as { n: number; amplitude: number }[];
     expect(harmonics[0]).toMatchObject({ n: 1 });
@@ -76,7 +77,7 @@ describe('POST /api/calc/operating-point', () => {
 describe('POST /api/calc/core-loss', () => {
   const material = { k: 2, alpha: 1.5, beta: 2.5 };
 
-  it('evaluates Steinmetz at the peak flux ΔB/2 (magnetics reference §8.1)', async () => {
+  it('evaluates Steinmetz at the peak flux ΔB/2 (Steinmetz equation as restated in Szczerba & Worek, Electronics 14 (2025) 2883)', async () => {
     const res = await engineer.post('/api/calc/core-loss', { material, frequency: 100e3, deltaB: 0.2, duty: 0.5, waveform: 'sine' });
     expect(res.status).toBe(200);
     // 2·(1e5)^1.5·(0.1)^2.5 = 2·3.1623e7·3.1623e-3 = 2.0e5 W/m³ [C]
@@ -89,7 +90,7 @@ describe('POST /api/calc/core-loss', () => {
     [0.5, 0.9129],
     [0.2, 1.0826],
     [0.1, 1.361],
-  ])('gives iGSE/Steinmetz = %s → %s for a triangle at α = 1.5 (magnetics reference §8.2 [C], Venkatachalam et al. 2002)', async (duty, ratio) => {
+  ])('gives iGSE/Steinmetz = %s → %s for a triangle at α = 1.5 (computed from the iGSE of Venkatachalam, Sullivan, Abdallah, Tacca, COMPEL 2002)', async (duty, ratio) => {
     const res = await engineer.post('/api/calc/core-loss', { material, frequency: 100e3, deltaB: 0.2, duty, waveform: 'triangle' });
     expect(res.body.igse / res.body.steinmetz).toBeCloseTo(ratio, 3);
   });

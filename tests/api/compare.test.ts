@@ -34,7 +34,7 @@ describe('POST /api/compare/curves', () => {
     });
     expect(res.status).toBe(200);
     const [curves] = res.body.materials;
-    // Steinmetz Pv = k·f^α·B̂^β (magnetics reference §8.1): 1·(1e5)^1.5·(0.1)^2.5 = 3.162e7·3.162e-3 = 1.000e5 W/m³, by hand
+    // Steinmetz Pv = k·f^α·B̂^β (as restated in Szczerba & Worek, Electronics 14 (2025) 2883): 1·(1e5)^1.5·(0.1)^2.5 = 3.162e7·3.162e-3 = 1.000e5 W/m³, by hand
     const at100k = curves.versusFrequency.find((p: { x: number }) => Math.abs(p.x - 1e5) < 1);
     expect(at100k.steinmetz).toBeCloseTo(1e5, -1);
     expect(at100k.extrapolated).toBe(false);
@@ -117,7 +117,7 @@ describe('POST /api/compare/saved-design', () => {
     expect(own.gap).toBeCloseTo(saved.construction.gap, 12);
 
     // The flux point to draw the curves at: ideal buck D = Vout/Vin,max = 12/36, ΔB = (Vin,max − Vout)·D/(fs·N·Ae)
-    // (magnetics reference §1.1 and §3.1), the same for every material on this core.
+    // (volt-second balance, Erickson & Maksimović, Fundamentals of Power Electronics — from memory), the same for every material on this core.
     const cores = (await engineer.get('/api/catalogue/cores')).body.cores as { id: string; ae: number }[];
     const ae = cores.find((c) => c.id === 'ETD39/20/13')!.ae;
     const n = saved.construction.turns;
@@ -137,7 +137,7 @@ describe('POST /api/compare/saved-design', () => {
     expect(ids).toContain(knownId);
     expect(ids).toContain(String(edited.body.id));
     expect(rows.find((r) => r.materialId === knownId)!.usedByDesign).toBe(true);
-    // Pv ∝ B̂^β with B̂ < 1 T: a larger β gives a smaller loss (Steinmetz, magnetics reference §8.1).
+    // Pv ∝ B̂^β with B̂ < 1 T: a larger β gives a smaller loss (Steinmetz equation as restated in Szczerba & Worek, Electronics 14 (2025) 2883).
     const before = rows.find((r) => r.materialId === knownId)!.coreLoss!;
     const after = rows.find((r) => r.materialId === String(edited.body.id))!.coreLoss!;
     expect(after).toBeLessThan(before);

@@ -69,7 +69,7 @@ describe('the core template', () => {
     const cores = await listCores();
     const ring = cores.find((c) => c.id === RING_NAME)!;
     expect(ring).toMatchObject({ origin: 'user', version: 1 });
-    // magnetics reference §12.3 [C], sharp-edged IEC 60205 values for 20/10/7 mm: le 43.55 mm, Ae 33.63 mm², Ve 1 465 mm³
+    // Computed from the IEC 60205 sharp-edged ring formulas (le = C1²/C2, Ae = C1/C2; formulas from memory) for 20/10/7 mm: le 43.55 mm, Ae 33.63 mm², Ve 1 465 mm³
     expect(ring.le * 1e3).toBeCloseTo(43.55, 1);
     expect(ring.ae * 1e6).toBeCloseTo(33.63, 1);
     expect(ring.ve * 1e9).toBeCloseTo(1465, -1);

@@ -24,7 +24,7 @@ beforeAll(async () => {
 }, 60_000);
 afterAll(() => t.close());
 
-// The worked example of the magnetics reference §1.2: 24–36 V → 12 V, 10 A, 100 kHz, ripple 0.3 at Vin max.
+// Worked buck example: 24–36 V → 12 V, 10 A, 100 kHz, ripple 0.3 at Vin max (ideal CCM buck relations, computed by hand).
 const SPEC = { converter: { vinMin: 24, vinMax: 36, vout: 12, ioutMax: 10, frequency: 100e3, rippleRatio: 0.3, rectifier: 'synchronous' as const } };
 const construction = () => ({ coreId: 'ETD39/20/13', materialId, turns: 'auto' as const, gap: 'auto' as const, wire: { kind: 'awg' as const, awg: 16, strands: 2 } });
 
@@ -63,7 +63,7 @@ describe('designs: create, read, list', () => {
     const d = await createDesign(erin);
     expect(d.number).toBe(`GW-${String(d.id).padStart(4, '0')}`);
     expect(d.latest.revision).toBe(1);
-    // L = 12·(1 − 12/36)/(100 kHz·0.3·10 A) = 26.67 µH (magnetics reference §1.2, computed [C]).
+    // L = 12·(1 − 12/36)/(100 kHz·0.3·10 A) = 26.67 µH, computed from L = Vout·(1 − Vout/Vin,max)/(fs·r·Iout) (ideal CCM buck, volt-second balance, Erickson & Maksimović, Fundamentals of Power Electronics — from memory).
     expect(d.latest.result.evaluation.inductance.required).toBeCloseTo(26.667e-6, 8);
     expect(d.latest.construction.turns).toBe(d.latest.result.evaluation.turns);
     expect(typeof d.latest.construction.gap).toBe('number');

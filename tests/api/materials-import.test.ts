@@ -147,10 +147,10 @@ describe('valid uploads', () => {
     expect(imports.body.imports[0].uploadedBy).toBeTruthy();
   });
 
-  it('converts mW/cm³–kHz–mT to SI on import (magnetics reference §8.4)', async () => {
+  it('converts mW/cm³–kHz–mT to SI on import (unit change in Pv = k·f^α·B̂^β, computed)', async () => {
     const res = await engineer.get('/api/materials/library');
     const two = res.body.materials.find((m: { name: string }) => m.name === 'Lab ferrite two');
-    // magnetics reference §8.4 [C]: k_SI = k′·10^(3·(1 − α + β)) = 0.0032·10^(3·2.2) = 0.0032·3 981 071.7 = 12 739.4 W/m³ (Hz, T), by hand
+    // Computed from the unit change in Pv = k·f^α·B̂^β (1 mW/cm³ = 10³ W/m³, 1 kHz = 10³ Hz, 1 mT = 10⁻³ T): k_SI = k′·10^(3·(1 − α + β)) = 0.0032·10^(3·2.2) = 0.0032·3 981 071.7 = 12 739.4 W/m³ (Hz, T), by hand
     expect(two.k).toBeCloseTo(12739.43, 1);
     expect(two.kUploaded).toBe(0.0032);
     expect(two.unitSet).toBe('mW/cm3-kHz-mT');

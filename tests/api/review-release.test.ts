@@ -205,7 +205,7 @@ describe('release hand-off to the winding shop', () => {
     const limits = order.sheet.tests;
     const r20 = order.sheet.predicted.resistance20;
     // A reading at 40 °C of a winding whose R20 is the prediction: R40 = R20·(1 + 0.00393·20)
-    // (IEC 60028 ρ20; α20 = 0.00393 /K from memory, magnetics reference §6.2).
+    // (IEC 60028: ρ20 = 1.7241e-8 Ω·m; α20 = 0.00393 /K, IEC 60028 — from memory).
     const good = { inductance: limits.inductance.nominal, testFrequency: limits.inductance.testFrequency, resistance: r20 * (1 + 0.00393 * 20), resistanceTemperature: 40, hipot: 'not_tested' };
 
     expect((await erin.post(`/api/shop/orders/${orderId}/units`, good)).status).toBe(403); // only winders record

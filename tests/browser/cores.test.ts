@@ -27,7 +27,7 @@ describe('user cores from a CSV file and from effective parameters', () => {
     await page.getByLabel('Filter by name or source').fill('Example');
     await page.getByRole('cell', { name: 'Example ring 20/10/7 (illustrative)', exact: true }).waitFor();
     await page.getByRole('cell', { name: 'Example E-core EX-1 (illustrative)', exact: true }).waitFor();
-    // IEC 60205 for a 20/10/7 mm ring (magnetics reference §12.3): Ae = 33.63 mm²
+    // IEC 60205 for a 20/10/7 mm ring (sharp-edged ring formula Ae = C1/C2, from memory; computed): Ae = 33.63 mm²
     await page.getByRole('cell', { name: '33.6', exact: true }).waitFor();
 
     await page.getByRole('button', { name: 'Add a gapped core from its effective parameters' }).click();

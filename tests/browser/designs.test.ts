@@ -38,7 +38,7 @@ describe('design workspace', () => {
     expect(await page.getByRole('textbox', { name: 'Switching frequency', exact: true }).inputValue()).toBe('250 kHz');
     await typeInto('Current limit', '11 A');
 
-    // L = Vout·(1 − Vout/Vin,max)/(fs·r·Iout) = 12·(1 − 12/60)/(250 kHz·0.3·8 A) = 16 µH (magnetics reference §1.2, computed [C]).
+    // L = Vout·(1 − Vout/Vin,max)/(fs·r·Iout) = 12·(1 − 12/60)/(250 kHz·0.3·8 A) = 16 µH (ideal CCM buck, volt-second balance, Erickson & Maksimović, Fundamentals of Power Electronics — from memory; computed).
     await page.locator('[data-figure="inductance"]', { hasText: '16 µH' }).waitFor();
     expect(await seriousAxeFindings(page)).toEqual([]);
     await page.screenshot({ path: screenshotPath('designs-spec'), fullPage: true });

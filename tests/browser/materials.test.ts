@@ -125,7 +125,7 @@ describe('material library, comparison and cores', () => {
     await ringForm.getByRole('button', { name: 'Add the ring core' }).click();
     await page.getByLabel('Filter by name or source').fill('Lab ring');
     await page.getByRole('cell', { name: 'Lab ring 25/15/10', exact: true }).waitFor();
-    // IEC 60205 sharp-edged value for 25/15/10 (magnetics reference §12.3 [C]): Ae = 48.93 mm²
+    // IEC 60205 sharp-edged value for 25/15/10 (ring formula Ae = C1/C2, from memory; computed): Ae = 48.93 mm²
     await page.getByRole('cell', { name: '48.9', exact: true }).waitFor();
     await page.screenshot({ path: screenshotPath('cores'), fullPage: true });
     await context.close();

@@ -3,7 +3,7 @@ import { ENGINE_VERSION } from '@shared/engine/index';
 import { designRevisions, designs, users } from '../../../server/db/schema.ts';
 import type { TestApp } from './test-app.ts';
 
-// The worked example of the magnetics reference §1.2: 24–36 V → 12 V, 10 A, 100 kHz, ripple 0.3.
+// Worked buck example: 24–36 V → 12 V, 10 A, 100 kHz, ripple 0.3 (ideal CCM buck relations, computed by hand).
 export const EXAMPLE_SPEC = { vinMin: 24, vinMax: 36, vout: 12, ioutMax: 10, frequency: 100e3, rippleRatio: 0.3, rectifier: 'ideal' as const };
 
 let counter = 0;

@@ -38,13 +38,13 @@ describe('AWG bare diameters by the ASTM B258 formula', () => {
 
 describe('copper resistance per metre at 20 °C', () => {
   it('is 20.95 mΩ/m for AWG 18 with the IEC 60028 resistivity', () => {
-    // IEC 60028 ρ20 = 1.7241e-8 Ω·m; magnetics.md §6.1 table [C]: AWG 18 area 0.8230 mm², R20 = 20.95 mΩ/m
+    // IEC 60028 ρ20 = 1.7241e-8 Ω·m; diameter from ASTM B258-02, area and R20 computed [C]: AWG 18 area 0.8230 mm², R20 = 20.95 mΩ/m
     expectWithin(roundWireArea(awgDiameter(18)), 0.823e-6, FOUR_FIGURES);
     expectWithin(resistancePerMetre20(awgDiameter(18)), 20.95e-3, FOUR_FIGURES);
   });
 
   it('is 84.21 mΩ/m for AWG 24 and 3.277 mΩ/m for AWG 10', () => {
-    // IEC 60028 ρ20; magnetics.md §6.1 table [C]: AWG 24 R20 = 84.21 mΩ/m, AWG 10 R20 = 3.277 mΩ/m
+    // IEC 60028 ρ20; diameter from ASTM B258-02, R20 computed [C]: AWG 24 R20 = 84.21 mΩ/m, AWG 10 R20 = 3.277 mΩ/m
     expectWithin(resistancePerMetre20(awgDiameter(24)), 84.21e-3, FOUR_FIGURES);
     expectWithin(resistancePerMetre20(awgDiameter(10)), 3.277e-3, FOUR_FIGURES);
   });

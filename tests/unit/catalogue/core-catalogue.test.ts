@@ -57,9 +57,9 @@ describe('shipped core catalogue', () => {
   });
 });
 
-describe('ETD rows carry the reference values', () => {
+describe('ETD rows carry the recalled nominal values', () => {
   it.each([
-    // IEC 61185 nominal, from memory (magnetics.md §12.1 [M]): Ae mm², Amin mm², le mm, Ve mm³, window per side mm²
+    // IEC 61185 nominal, from memory: Ae mm², Amin mm², le mm, Ve mm³, window per side mm²
     ['ETD29/16/10', 76.0, 71.0, 72.0, 5470, 134],
     ['ETD34/17/11', 97.1, 91.6, 78.6, 7640, 175],
     ['ETD39/20/13', 125, 123, 92.2, 11500, 234],
@@ -77,7 +77,7 @@ describe('ETD rows carry the reference values', () => {
   });
 
   it('estimates the ETD34 bobbin at about 21 mm × 6 mm', () => {
-    // From memory / common practice (magnetics.md §12.1 [M/CP, estimate]): ETD34 bobbin ≈ 21 mm wide × 6 mm build
+    // From memory / common practice, no source (estimate): ETD34 bobbin ≈ 21 mm wide × 6 mm build
     const shape = core('ETD34/17/11');
 
     expect(Math.abs(shape.bobbinWidth - 21 * MM)).toBeLessThan(0.5 * MM);
@@ -85,9 +85,9 @@ describe('ETD rows carry the reference values', () => {
   });
 });
 
-describe('E rows carry the reference values', () => {
+describe('E rows carry the recalled nominal values', () => {
   it.each([
-    // IEC 63093-8 nominal, from memory (magnetics.md §12.2 [M]): Ae mm², le mm, Ve mm³, window per side mm²
+    // IEC 63093-8 nominal, from memory: Ae mm², le mm, Ve mm³, window per side mm²
     ['E25/13/7', 52.5, 57.5, 3020, 87],
     ['E32/16/9', 83, 74, 6140, 148],
     ['E42/21/15', 178, 97, 17300, 256],
@@ -104,7 +104,7 @@ describe('E rows carry the reference values', () => {
 
 describe('ring rows follow IEC 60205', () => {
   it.each([
-    // IEC 60205 sharp-edged values, computed [C] in magnetics.md §12.3: le mm, Ae mm², Ve mm³, window mm²
+    // IEC 60205 sharp-edged ring formulas (from memory), values computed [C]: le mm, Ae mm², Ve mm³, window mm²
     ['R20/10/7', 43.55, 33.63, 1465, 78.5],
     ['R25/15/10', 60.18, 48.93, 2944, 176.7],
     ['T26.9/14.7/11.2', 61.53, 66.28, 4078, 169.7],
@@ -115,7 +115,7 @@ describe('ring rows follow IEC 60205', () => {
     expectWithin(shape.le, le * MM, 5e-4);
     expectWithin(shape.ae, ae * MM2, 5e-4);
     expectWithin(shape.ve, ve * MM3, 5e-4);
-    // The reference rounds the window to one decimal (78.5 mm² for 78.54 mm²).
+    // The check value rounds the window π·ID²/4 to one decimal (78.5 mm² for 78.54 mm²).
     expectWithin(shape.windowArea, window * MM2, 1e-3);
   });
 
@@ -128,7 +128,7 @@ describe('ring rows follow IEC 60205', () => {
 
 describe('area product Ap = Wa·Ae', () => {
   it.each([
-    // magnetics.md §12.4 [C on M data]: ETD34 ≈ 1.7 cm⁴, E25/13/7 ≈ 0.46 cm⁴, E32/16/9 ≈ 1.2 cm⁴, ETD29 ≈ 1.0 cm⁴
+    // Ap = Wa·Ae computed [C] from the recalled nominal data above (IEC 61185 / IEC 63093-8, from memory): ETD34 ≈ 1.7 cm⁴, E25/13/7 ≈ 0.46 cm⁴, E32/16/9 ≈ 1.2 cm⁴, ETD29 ≈ 1.0 cm⁴
     ['ETD34/17/11', 1.7],
     ['E25/13/7', 0.46],
     ['E32/16/9', 1.2],

@@ -30,7 +30,7 @@ describe('a ring row', () => {
   it('gives the IEC 60205 effective parameters of 20/10/7 mm', () => {
     const shape = userCoreShape(validateCoreCells(RING).values!);
 
-    // [C] magnetics.md §12.3: 20/10/7 → le 43.55 mm, Ae 33.63 mm², Ve 1465 mm³ (four significant figures)
+    // Computed [C] from the IEC 60205 sharp-edged ring formulas (from memory): 20/10/7 → le 43.55 mm, Ae 33.63 mm², Ve 1465 mm³ (four significant figures)
     expectWithin(shape.le, 43.55e-3, 5e-4);
     expectWithin(shape.ae, 33.63e-6, 5e-4);
     expectWithin(shape.ve, 1465e-9, 5e-4);

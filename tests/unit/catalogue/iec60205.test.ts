@@ -7,19 +7,20 @@ const mm = (value: number) => value * 1e-3;
 const ring = (od: number, id: number, h: number) =>
   ringEffectiveParameters({ outerDiameter: mm(od), innerDiameter: mm(id), height: mm(h) });
 
-// Reference values: IEC 60205 sharp-edged ring formulas, computed [C] in magnetics.md §12.3.
-// Tolerance 0.05 %: the reference rounds to four significant figures.
+// Check values: computed [C] by hand from the IEC 60205 sharp-edged ring formulas (C1 = 2π/(h·ln(r2/r1)),
+// C2 = 2π·(1/r1 − 1/r2)/(h²·ln³(r2/r1)), le = C1²/C2, Ae = C1/C2, Ve = C1³/C2²; formulas from memory).
+// Tolerance 0.05 %: the check values are rounded to four significant figures.
 const TOLERANCE = 5e-4;
 
 describe('IEC 60205 effective parameters of a rectangular-section ring', () => {
   it.each([
-    // [C] magnetics.md §12.3: 20/10/7 → le 43.55 mm, Ae 33.63 mm², Ve 1465 mm³
+    // [C]: 20/10/7 → le 43.55 mm, Ae 33.63 mm², Ve 1465 mm³
     [20, 10, 7, 43.55, 33.63, 1465],
-    // [C] magnetics.md §12.3: 25/15/10 → le 60.18 mm, Ae 48.93 mm², Ve 2944 mm³
+    // [C]: 25/15/10 → le 60.18 mm, Ae 48.93 mm², Ve 2944 mm³
     [25, 15, 10, 60.18, 48.93, 2944],
-    // [C] magnetics.md §12.3: 26.9/14.7/11.2 (typical powder size) → le 61.53 mm, Ae 66.28 mm², Ve 4078 mm³
+    // [C]: 26.9/14.7/11.2 (typical powder size) → le 61.53 mm, Ae 66.28 mm², Ve 4078 mm³
     [26.9, 14.7, 11.2, 61.53, 66.28, 4078],
-    // [C] magnetics.md §12.3: 40/24/16 → le 96.29 mm, Ae 125.25 mm², Ve 12060 mm³
+    // [C]: 40/24/16 → le 96.29 mm, Ae 125.25 mm², Ve 12060 mm³
     [40, 24, 16, 96.29, 125.25, 12060],
   ])('%s/%s/%s mm gives le %s mm, Ae %s mm², Ve %s mm³', (od, id, h, le, ae, ve) => {
     const result = ring(od, id, h);
@@ -33,10 +34,10 @@ describe('IEC 60205 effective parameters of a rectangular-section ring', () => {
     const r20 = ring(20, 10, 7);
     const r25 = ring(25, 15, 10);
 
-    // Commonly published ferrite ring values, from memory (magnetics.md §12.3 [M]): R20/10/7 ≈ 43.6 mm / 33.6 mm²
+    // Commonly published ferrite ring values, from memory (no single source): R20/10/7 ≈ 43.6 mm / 33.6 mm²
     expectWithin(r20.le, mm(43.6), 0.005);
     expectWithin(r20.ae, 33.6e-6, 0.005);
-    // from memory (magnetics.md §12.3 [M]): R25/15/10 ≈ 60.2 mm / 48.9 mm²
+    // from memory (no single source): R25/15/10 ≈ 60.2 mm / 48.9 mm²
     expectWithin(r25.le, mm(60.2), 0.005);
     expectWithin(r25.ae, 48.9e-6, 0.005);
   });
@@ -71,7 +72,7 @@ describe('ring core shape', () => {
   });
 
   it('follows the CoreShape conventions for rings: window π·ID²/4, width π·ID, build ID/2, height h', () => {
-    // Window 176.7 mm² for ID 15 mm: magnetics.md §12.3 [C]
+    // Window 176.7 mm² for ID 15 mm: computed [C] from π·ID²/4
     expectWithin(core.windowArea, 176.7e-6, 5e-4);
     expectWithin(core.bobbinWidth, Math.PI * mm(15), 1e-12);
     expectWithin(core.bobbinHeight, mm(7.5), 1e-12);

@@ -16,13 +16,13 @@ describe('IEC 60317 round-wire table', () => {
   const sizeOf = (nominalMm: number) => metric.find((size) => Math.abs(size.nominalDiameter - mm(nominalMm)) < 1e-9);
 
   it.each([
-    // IEC 60317-0-1 via magnetics.md §6.4, from memory: 0.100 mm → grade 1 ≤ 0.117 mm, grade 2 ≤ 0.125 mm
+    // IEC 60317-0-1 Table 1 maximum overall diameter, from memory: 0.100 mm → grade 1 ≤ 0.117 mm, grade 2 ≤ 0.125 mm
     [0.1, 0.117, 0.125],
-    // IEC 60317-0-1 via magnetics.md §6.4, from memory: 0.250 mm → 0.281 / 0.297 mm
+    // IEC 60317-0-1 Table 1 maximum overall diameter, from memory: 0.250 mm → 0.281 / 0.297 mm
     [0.25, 0.281, 0.297],
-    // IEC 60317-0-1 via magnetics.md §6.4, from memory: 0.500 mm → 0.544 / 0.566 mm
+    // IEC 60317-0-1 Table 1 maximum overall diameter, from memory: 0.500 mm → 0.544 / 0.566 mm
     [0.5, 0.544, 0.566],
-    // IEC 60317-0-1 via magnetics.md §6.4, from memory: 1.000 mm → 1.062 / 1.093 mm
+    // IEC 60317-0-1 Table 1 maximum overall diameter, from memory: 1.000 mm → 1.062 / 1.093 mm
     [1.0, 1.062, 1.093],
   ])('lists %s mm with grade 1 %s mm and grade 2 %s mm maximum', (nominal, grade1, grade2) => {
     const size = sizeOf(nominal);
@@ -43,7 +43,7 @@ describe('IEC 60317 round-wire table', () => {
   });
 
   it('has a grade 2 build larger than the grade 1 build by a factor of about 1.3–2.2', () => {
-    // Common practice, no source (magnetics.md §6.4 [CP]): "grade 2 roughly doubles that increase"; the
+    // Common practice, no source: grade 2 roughly doubles the grade 1 increase over the bare diameter; the
     // recalled table rows above give about 1.5, so the band is wide.
     for (const size of metric) {
       const ratio = (size.grade2MaxDiameter - size.nominalDiameter) / (size.grade1MaxDiameter - size.nominalDiameter);
@@ -63,7 +63,7 @@ describe('enamelled diameter of any bare diameter', () => {
   const { metric } = loadWireTables();
 
   it('returns the table value for a listed size', () => {
-    // IEC 60317-0-1 via magnetics.md §6.4, from memory: 0.500 mm grade 2 ≤ 0.566 mm
+    // IEC 60317-0-1 Table 1 maximum overall diameter, from memory: 0.500 mm grade 2 ≤ 0.566 mm
     expectWithin(enamelledDiameter(mm(0.5), 2, metric), mm(0.566), 1e-9);
   });
 
@@ -105,8 +105,8 @@ describe('standard wire options', () => {
   });
 
   it('sizes a litz bundle as 1.2·√n·(strand grade 1 diameter) plus serving', () => {
-    // Common practice, no source (magnetics.md §6.5 [CP]): bundle OD ≈ 1.15–1.2·√n·d_o,strand plus serving;
-    // strand 0.10 mm grade 1 ≤ 0.117 mm from memory (IEC 60317-0-1 via magnetics.md §6.4); serving 0.03 mm a side.
+    // Common practice, no source: bundle OD ≈ 1.15–1.2·√n·d_o,strand plus serving;
+    // strand 0.10 mm grade 1 ≤ 0.117 mm from memory (IEC 60317-0-1 Table 1); serving 0.03 mm a side.
     const litz = options.find((option) => option.id === 'litz 105 × 0.10 mm')!;
 
     expectWithin(litz.overallDiameter, 1.2 * Math.sqrt(105) * mm(0.117) + 2 * mm(0.03), 1e-9);
@@ -123,7 +123,7 @@ describe('standard wire options', () => {
     const grade1 = standardWireOptions(loadWireTables(), { grade: 1, maxInHand: 2, includeLitz: false });
     const half = grade1.find((option) => option.id === '0.50 mm ×1 G1')!;
 
-    // IEC 60317-0-1 via magnetics.md §6.4, from memory: 0.500 mm grade 1 ≤ 0.544 mm
+    // IEC 60317-0-1 Table 1 maximum overall diameter, from memory: 0.500 mm grade 1 ≤ 0.544 mm
     expectWithin(half.overallDiameter, mm(0.544), 1e-9);
     expect(grade1.every((option) => option.strands <= 2 && option.kind !== 'litz')).toBe(true);
   });

@@ -9,13 +9,13 @@ import {
 import { e25Like, etd34Like, etd44Like } from './fixtures';
 
 describe('area product', () => {
-  it('requires 0.641 cm⁴ for the Section-1 example (magnetics.md §12.4 [C])', () => {
-    // L = 8e-5/3 H and Irms = sqrt(10² + 3²/12) A, the unrounded §1 values
+  it('requires 0.641 cm⁴ for the worked buck example (computed from McLyman, Transformer and Inductor Design Handbook, Ap = L·Ipk·Irms/(Bmax·J·Ku) — from memory)', () => {
+    // L = 8e-5/3 H and Irms = sqrt(10² + 3²/12) A, the unrounded values of the worked buck example
     const ap = requiredAreaProduct(8e-5 / 3, 11.5, Math.sqrt(100.75), 0.3, 4e6, 0.4);
     expect(ap * 1e8).toBeCloseTo(0.641, 3);
   });
 
-  it('offers ≈1.7 cm⁴ on ETD34 and ≈0.46 cm⁴ on E25/13/7 (magnetics.md §12.4 [C on recalled data])', () => {
+  it('offers ≈1.7 cm⁴ on ETD34 and ≈0.46 cm⁴ on E25/13/7 (Ap = Wa·Ae computed from IEC 61185 / IEC 63093-8 nominal data, from memory)', () => {
     expect(availableAreaProduct(etd34Like) * 1e8).toBeCloseTo(1.7, 1);
     expect(availableAreaProduct(e25Like) * 1e8).toBeCloseTo(0.46, 2);
   });

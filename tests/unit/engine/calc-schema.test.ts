@@ -15,7 +15,7 @@ function issueAt(result: { success: boolean; error?: z.ZodError }, path: string)
 }
 
 describe('calculation request schemas', () => {
-  it('accepts the Section-1 spec and fills the rectifier default', () => {
+  it('accepts the worked buck example spec and fills the rectifier default', () => {
     const parsed = converterSpecSchema.parse(spec);
     expect(parsed.rectifier).toBe('ideal');
   });

@@ -6,7 +6,7 @@ import { dowellFactor, dowellProximityTerm, dowellSkinTerm, roundWireDelta } fro
 import { acLossSums, copperLoss } from '@shared/engine/copper-loss';
 import { harmonicWeights } from '@shared/engine/harmonics';
 
-/** Independent per-layer summation of magnetics.md §7.2: Fr = (1/m)·Σ Δ[(k² + (k−1)²)G1 − 4k(k−1)G2]. */
+/** Independent per-layer summation of the one-dimensional layer model (Dowell, Proc. IEE 113(8), 1966 — from memory): Fr = (1/m)·Σ Δ[(k² + (k−1)²)G1 − 4k(k−1)G2]. */
 function perLayerFr(delta: number, layers: number): number {
   const d2 = 2 * delta;
   const denominator = Math.cosh(d2) - Math.cos(d2);
@@ -21,31 +21,31 @@ describe('copper resistivity', () => {
   it('is 1.7241e-8 Ω·m at 20 °C and 2.2662e-8 Ω·m at 100 °C', () => {
     // IEC 60028 (International Standard of Resistance for Copper): ρ20 = 1.7241e-8 Ω·m
     expect(copperResistivity(20)).toBe(1.7241e-8);
-    // magnetics.md §6.2 [C] with α20 = 0.00393 from memory: ρ(100 °C) = 2.2662e-8 Ω·m
+    // Computed from ρ(T) = ρ20·(1 + α20·(T − 20 °C)) with IEC 60028 α20 = 0.00393 /K (from memory): ρ(100 °C) = 2.2662e-8 Ω·m
     expect(copperResistivity(100) * 1e8).toBeCloseTo(2.2662, 4);
   });
 
   it('gives AWG 18 about 20.95 mΩ/m at 20 °C', () => {
-    // magnetics.md §6.1 table [C] (diameter from ASTM B258-02 via "American wire gauge" article: AWG 18 = 1.024 mm)
+    // Computed [C] with IEC 60028 ρ20 (diameter from ASTM B258-02 via "American wire gauge" article: AWG 18 = 1.024 mm)
     expect(windingResistance(1, 1, 1.024e-3, 1, 20) * 1e3).toBeCloseTo(20.95, 1);
   });
 });
 
 describe('skin depth', () => {
   it('is 0.2090 mm at 100 kHz, 20 °C and 0.2396 mm at 100 °C', () => {
-    // [C from Wikipedia "Skin effect" definition] via magnetics.md §6.3
+    // Computed [C] from δ = sqrt(ρ/(π·f·μ0)) (Wikipedia "Skin effect" definition) with IEC 60028 ρ20 and α20 (α20 from memory)
     expect(copperSkinDepth(100e3, 20) * 1e3).toBeCloseTo(0.209, 4);
     expect(copperSkinDepth(100e3, 100) * 1e3).toBeCloseTo(0.2396, 4);
   });
 
   it('is 8.42 mm at 60 Hz with ρ = 1.68e-8 Ω·m', () => {
-    // [S: Wikipedia "Skin effect"] ≈8.5 mm in copper at 60 Hz; 8.42 mm with ρ = 1.68e-8 (magnetics.md §6.3)
+    // [S: Wikipedia "Skin effect"] ≈8.5 mm in copper at 60 Hz; 8.42 mm with ρ = 1.68e-8, computed from the same formula
     expect(skinDepthForResistivity(1.68e-8, 60) * 1e3).toBeCloseTo(8.42, 2);
   });
 });
 
 describe('Dowell factor', () => {
-  it('equals the independent per-layer summation to 4 decimals (magnetics.md §7.2 [C])', () => {
+  it('equals the independent per-layer summation to 4 decimals (Dowell, Proc. IEE 113(8), 1966 — from memory; computed)', () => {
     fc.assert(
       fc.property(fc.double({ min: 0.05, max: 8, noNaN: true }), fc.integer({ min: 1, max: 12 }), (delta, layers) => {
         const expected = perLayerFr(delta, layers);
@@ -54,7 +54,7 @@ describe('Dowell factor', () => {
     );
   });
 
-  it('follows the small-Δ limit 1 + (5m² − 1)Δ⁴/45 (magnetics.md §7.2 [C])', () => {
+  it('follows the small-Δ limit 1 + (5m² − 1)Δ⁴/45 (series expansion of Dowell 1966, derived algebraically)', () => {
     fc.assert(
       fc.property(fc.double({ min: 1e-4, max: 0.08, noNaN: true }), fc.integer({ min: 1, max: 10 }), (delta, m) => {
         const excess = dowellFactor(delta, m) - 1;
@@ -81,7 +81,7 @@ describe('ripple copper loss', () => {
   const duty = 1 / 3;
   const weights = harmonicWeights(ripple, duty);
 
-  it('matches a direct 200-harmonic sum of Fr(Δ1√n, m)·I_n²/2 (magnetics.md §7.3)', () => {
+  it('matches a direct 200-harmonic sum of Fr(Δ1√n, m)·I_n²/2 (Fourier series of the triangle with Dowell per harmonic, computed)', () => {
     for (const [delta1, m] of [
       [0.3, 1],
       [1.5, 3],
@@ -97,7 +97,7 @@ describe('ripple copper loss', () => {
 
   it('reduces to Rdc·ΔI²/12 for thin wire (Δ → 0) and reports Pdc separately', () => {
     const loss = copperLoss(0.01, 10, acLossSums(1e-4, weights), 4);
-    // magnetics.md §1.2 [C]: AC RMS² = ΔI²/12 = 0.75 A²
+    // RMS of a triangle, derived algebraically: AC RMS² = ΔI²/12 = 0.75 A²
     expect(loss.ac).toBeCloseTo(0.01 * 0.75, 6);
     expect(loss.dc).toBeCloseTo(0.01 * 100, 12);
     expect(loss.total).toBeCloseTo(loss.dc + loss.ac, 12);

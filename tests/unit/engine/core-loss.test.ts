@@ -23,7 +23,7 @@ describe('log-gamma (Lanczos)', () => {
 });
 
 describe('iGSE', () => {
-  it('has ∫|cos θ|^α dθ = 4 at α = 1 and 3.496077 at α = 1.5 (magnetics.md §8.2 [C])', () => {
+  it('has ∫|cos θ|^α dθ = 4 at α = 1 and 3.496077 at α = 1.5 (closed form 2·√π·Γ((α+1)/2)/Γ(α/2 + 1), computed)', () => {
     expect(cosinePowerIntegral(1)).toBeCloseTo(4, 12);
     expect(cosinePowerIntegral(1.5)).toBeCloseTo(3.496077, 6);
   });
@@ -34,13 +34,13 @@ describe('iGSE', () => {
     return igseTriangleLoss(m, 100e3, swing, duty) / steinmetzLoss(m, 100e3, swing / 2);
   };
 
-  it('gives the triangle/sine ratios 0.9129, 1.0826, 1.361 at α = 1.5 (magnetics.md §8.2 [C], Venkatachalam et al. 2002)', () => {
+  it('gives the triangle/sine ratios 0.9129, 1.0826, 1.361 at α = 1.5 (computed from the iGSE of Venkatachalam, Sullivan, Abdallah, Tacca, COMPEL 2002)', () => {
     expect(ratio(1.5, 0.5)).toBeCloseTo(0.9129, 4);
     expect(ratio(1.5, 0.2)).toBeCloseTo(1.0826, 4);
     expect(ratio(1.5, 0.1)).toBeCloseTo(1.361, 3);
   });
 
-  it('gives ratio 1 at α = 1 for any duty and β (magnetics.md §8.2 [C])', () => {
+  it('gives ratio 1 at α = 1 for any duty and β (iGSE of Venkatachalam, Sullivan, Abdallah, Tacca, COMPEL 2002, derived algebraically)', () => {
     fc.assert(
       fc.property(fc.double({ min: 0.05, max: 0.95, noNaN: true }), fc.double({ min: 1.5, max: 4, noNaN: true }), (duty, beta) => {
         expect(ratio(1, duty, beta)).toBeCloseTo(1, 10);
@@ -48,7 +48,7 @@ describe('iGSE', () => {
     );
   });
 
-  it('reproduces Steinmetz for a sinusoid through the piecewise-linear form (magnetics.md §8.2)', () => {
+  it('reproduces Steinmetz for a sinusoid through the piecewise-linear form (iGSE of Venkatachalam, Sullivan, Abdallah, Tacca, COMPEL 2002)', () => {
     fc.assert(
       fc.property(
         fc.double({ min: 1, max: 3, noNaN: true }),
@@ -84,7 +84,7 @@ describe('iGSE', () => {
 });
 
 describe('Steinmetz units and temperature', () => {
-  it('converts k from mW/cm³–kHz–mT to W/m³–Hz–T consistently (magnetics.md §8.4 [C])', () => {
+  it('converts k from mW/cm³–kHz–mT to W/m³–Hz–T consistently (unit change in Pv = k·f^α·B̂^β, derived algebraically)', () => {
     fc.assert(
       fc.property(
         fc.double({ min: 1e-3, max: 100, noNaN: true }),
@@ -95,7 +95,7 @@ describe('Steinmetz units and temperature', () => {
         (kPrime, alpha, beta, fKilohertz, bMillitesla) => {
           const milliwattPerCm3 = kPrime * fKilohertz ** alpha * bMillitesla ** beta;
           const si = steinmetzKToSi(kPrime, alpha, beta) * (fKilohertz * 1e3) ** alpha * (bMillitesla * 1e-3) ** beta;
-          // magnetics.md §8.4 [CP]: 1 mW/cm³ = 10³ W/m³
+          // Unit identity: 1 mW/cm³ = 10³ W/m³
           expect(si / (milliwattPerCm3 * 1e3)).toBeCloseTo(1, 9);
           expect(steinmetzKFromSi(steinmetzKToSi(kPrime, alpha, beta), alpha, beta) / kPrime).toBeCloseTo(1, 12);
         },
@@ -103,7 +103,7 @@ describe('Steinmetz units and temperature', () => {
     );
   });
 
-  it('has a parabolic factor equal to 1 at its minimum and above 1 either side (magnetics.md §8.3, common practice, no source)', () => {
+  it('has a parabolic factor equal to 1 at its minimum and above 1 either side (common practice, no source)', () => {
     const material = { ...ferriteA, tempCoefficients: parabolicTemperatureCoefficients(90, 1e-4) };
     expect(coreLossTemperatureFactor(material, 90)).toBeCloseTo(1, 12);
     // 1 + ct2·(T − Tmin)² = 1 + 1e-4·50² = 1.25 [C]

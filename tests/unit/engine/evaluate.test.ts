@@ -24,13 +24,13 @@ describe('evaluateDesign on a gapped ferrite core', () => {
   it('chooses 11 turns and a gap that meets 26.67 µH with fringing', () => {
     expect(result.turns).toBe(11);
     expect(result.inductance.nominal / (8e-5 / 3)).toBeCloseTo(1, 3);
-    // fringing widens the 0.518 mm unfringed gap (magnetics.md §3.3)
+    // fringing widens the 0.518 mm unfringed gap (McLyman, Transformer and Inductor Design Handbook, fringing factor F = 1 + (lg/√Ae)·ln(2G/lg) — from memory)
     expect(result.gap.total).toBeGreaterThan(0.5179e-3);
     expect(result.gap.fringingFactor).toBeGreaterThan(1);
     expect(result.gap.spacer).toBeCloseTo(result.gap.total / 2, 15);
   });
 
-  it('computes flux from volt-seconds and L·I/(N·Ae) (magnetics.md §3.1 [C])', () => {
+  it('computes flux from volt-seconds and L·I/(N·Ae) (Faraday\'s law and N·Φ = L·I, derived algebraically)', () => {
     // ΔB = (Vin − Vout)·D/(fs·N·Ae) = 24·(1/3)/(1e5·11·97.1e-6) = 74.9 mT
     expect(result.flux.swing * 1e3).toBeCloseTo(74.9, 1);
     // Bpk = L·Ipk/(N·Ae) = 26.67e-6·11.5/(11·97.1e-6) = 0.2871 T
@@ -53,7 +53,7 @@ describe('evaluateDesign on a gapped ferrite core', () => {
     expect(result.thermal.hotSpot).toBeCloseTo(40 + result.thermal.rise + 5, 12);
   });
 
-  it('checks saturation in the minimum section Amin (magnetics.md §5, common practice, no source)', () => {
+  it('checks saturation in the minimum section Amin (common practice, no source)', () => {
     // Bpk·Ae/Amin = 0.2871·97.1/91.6 = 0.3044 T
     expect(result.flux.peakAtMinimumSection).toBeCloseTo(0.3044, 3);
     expect(result.flux.saturationMargin).toBeCloseTo(1 - result.flux.peakAtMinimumSection / result.flux.saturationAtHotSpot, 12);

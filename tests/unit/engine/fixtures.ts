@@ -1,4 +1,4 @@
-// Test fixtures. Core numbers are the recalled nominal values of magnetics.md §12 (from memory); bobbin, MLT and
+// Test fixtures. Core numbers are recalled IEC 61185 / IEC 63093-8 nominal values (from memory); bobbin, MLT and
 // surface figures are rough estimates. Materials and wires are invented for illustration, not any real product.
 import type { CoreMaterial, CoreShape, WireOption } from '@shared/engine/types';
 import type { ConverterSpec } from '@shared/engine/inputs';
@@ -7,7 +7,7 @@ const mm = 1e-3;
 const mm2 = 1e-6;
 const mm3 = 1e-9;
 
-/** ETD34-like pair: Ae 97.1 mm², le 78.6 mm, Ve 7640 mm³, window ≈175 mm² (magnetics.md §12.1, from memory). */
+/** ETD34-like pair: Ae 97.1 mm², le 78.6 mm, Ve 7640 mm³, window ≈175 mm² (IEC 61185 nominal, from memory). */
 export const etd34Like: CoreShape = {
   id: 'ETD34-like',
   family: 'ETD',
@@ -23,10 +23,10 @@ export const etd34Like: CoreShape = {
   mlt: 60 * mm,
   surfaceArea: 60e-4,
   centreToOuterLegAreaRatio: 1,
-  source: 'test fixture, magnetics.md §12.1 (from memory); bobbin, MLT and surface estimated',
+  source: 'test fixture, IEC 61185 nominal (from memory); bobbin, MLT and surface estimated',
 };
 
-/** E25/13/7-like pair (magnetics.md §12.2, from memory): too small for the §1 example. */
+/** E25/13/7-like pair (IEC 63093-8 nominal, from memory): too small for the worked buck example. */
 export const e25Like: CoreShape = {
   id: 'E25-like',
   family: 'E',
@@ -40,10 +40,10 @@ export const e25Like: CoreShape = {
   bobbinHeight: 4.2 * mm,
   mlt: 49 * mm,
   surfaceArea: 28e-4,
-  source: 'test fixture, magnetics.md §12.2 (from memory); bobbin, MLT and surface estimated',
+  source: 'test fixture, IEC 63093-8 nominal (from memory); bobbin, MLT and surface estimated',
 };
 
-/** A tiny core whose area product is far below the §1 example's requirement. */
+/** A tiny core whose area product is far below the worked buck example's requirement. */
 export const tinyLike: CoreShape = {
   ...e25Like,
   id: 'tiny-like',
@@ -54,7 +54,7 @@ export const tinyLike: CoreShape = {
   surfaceArea: 10e-4,
 };
 
-/** ETD44-like pair (magnetics.md §12.1, from memory). */
+/** ETD44-like pair (IEC 61185 nominal, from memory). */
 export const etd44Like: CoreShape = {
   ...etd34Like,
   id: 'ETD44-like',
@@ -70,7 +70,7 @@ export const etd44Like: CoreShape = {
   surfaceArea: 110e-4,
 };
 
-/** 26.9/14.7/11.2 ring, sharp-edged IEC 60205 values of magnetics.md §12.3 [C]. */
+/** 26.9/14.7/11.2 ring, computed [C] from the IEC 60205 sharp-edged ring formulas (from memory). */
 export const powderRing: CoreShape = {
   id: 'R26.9-like',
   family: 'POWDER_TOROID',
@@ -85,10 +85,10 @@ export const powderRing: CoreShape = {
   mlt: 0,
   surfaceArea: 30e-4,
   ring: { od: 26.9 * mm, id: 14.7 * mm, height: 11.2 * mm },
-  source: 'test fixture, magnetics.md §12.3 [C]',
+  source: 'test fixture, IEC 60205 sharp-edged values (computed)',
 };
 
-/** Illustrative ferrite A (invented): α, β within the generic MnZn ranges of magnetics.md §8.1 [CP]. */
+/** Illustrative ferrite A (invented): α, β within the generic MnZn ranges α ≈ 1.1–1.9, β ≈ 2.2–3.0 (common practice, no source). */
 export const ferriteA: CoreMaterial = {
   id: 'illustrative-ferrite-a',
   name: 'illustrative ferrite A',
@@ -138,7 +138,7 @@ export const powderP: CoreMaterial = {
   maxTemperature: 200,
 };
 
-/** Round enamelled wire, invented overall diameters ≈ d·1.06 + 0.01 mm in the spirit of magnetics.md §6.4. */
+/** Round enamelled wire, invented overall diameters ≈ d·1.06 + 0.01 mm, close to IEC 60317-0-1 grade 1 builds (from memory). */
 export function roundWire(diameter: number, strands = 1): WireOption {
   return {
     id: `${(diameter * 1e3).toFixed(3)} mm${strands > 1 ? ` ×${strands}` : ''}`,
@@ -172,7 +172,7 @@ export const wireSet: WireOption[] = [
 ];
 
 /**
- * Spec reconstructed for the magnetics.md §1 example: Vin max 36 V, Vout 12 V, 100 kHz, 10 A, r = 0.3 gives
+ * Spec of the worked buck example (ideal CCM buck relations, computed by hand): Vin max 36 V, Vout 12 V, 100 kHz, 10 A, r = 0.3 gives
  * L = 12·(1 − 12/36)/(1e5·3) = 26.67 µH, Ipk = 11.5 A, Irms = 10.04 A.
  */
 export const sectionOneSpec: ConverterSpec = {

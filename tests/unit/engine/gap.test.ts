@@ -11,22 +11,22 @@ import {
 } from '@shared/engine/gap';
 import { etd34Like, ferriteA } from './fixtures';
 
-const L = 8e-5 / 3; // 26.67 µH, magnetics.md §12.4 example [C]
+const L = 8e-5 / 3; // 26.67 µH, the worked buck example: 12·(1 − 12/36)/(1e5·0.3·10), computed
 const geometry = { area: etd34Like.ae, pathLength: etd34Like.le, windowHeight: etd34Like.windowHeight, permeability: ferriteA.permeability };
 
 describe('turns from the flux limit', () => {
-  it('gives N = ceil(L·Ipk/(Bmax·Ae)) = 11 for the §1 example on an ETD34-like core', () => {
-    // magnetics.md §3.1 [C]: 26.67e-6·11.5/(0.3·97.1e-6) = 10.53 → 11
+  it('gives N = ceil(L·Ipk/(Bmax·Ae)) = 11 for the worked buck example on an ETD34-like core', () => {
+    // Computed from N·Ae·Bmax = L·Ipk (flux linkage at peak current): 26.67e-6·11.5/(0.3·97.1e-6) = 10.53 → 11
     expect(turnsForFluxLimit(L, 11.5, 0.3, etd34Like.ae)).toBe(11);
   });
 });
 
 describe('gap without fringing', () => {
-  it('is 0.5179 mm for 11 turns, 26.67 µH, Ae 97.1 mm², le 78.6 mm, μr 2200 (magnetics.md §3.2 [C])', () => {
+  it('is 0.5179 mm for 11 turns, 26.67 µH, Ae 97.1 mm², le 78.6 mm, μr 2200 (magnetic-circuit law lg = μ0·N²·Ae/L − le/μr, computed)', () => {
     expect(gapWithoutFringing(11, L, etd34Like.ae, etd34Like.le, 2200) * 1e3).toBeCloseTo(0.5179, 4);
   });
 
-  it('gives back L through L = μ0·N²·Ae/(lg + le/μr) (magnetics.md §3.2 [C])', () => {
+  it('gives back L through L = μ0·N²·Ae/(lg + le/μr) (magnetic-circuit law, derived algebraically)', () => {
     for (const turns of [8, 11, 20, 35]) {
       const gap = gapWithoutFringing(turns, L, etd34Like.ae, etd34Like.le, 2200);
       const back = (MU0 * turns * turns * etd34Like.ae) / (gap + etd34Like.le / 2200);
@@ -40,12 +40,12 @@ describe('gap without fringing', () => {
 });
 
 describe('McLyman fringing', () => {
-  it('gives F = 1.3912 for lg = 1 mm, Ae = 97.1 mm², G = 23.6 mm (McLyman, from memory; magnetics.md §3.3)', () => {
+  it('gives F = 1.3912 for lg = 1 mm, Ae = 97.1 mm², G = 23.6 mm (McLyman, Transformer and Inductor Design Handbook, F = 1 + (lg/√Ae)·ln(2G/lg) — from memory)', () => {
     // 1 + (1/√97.1)·ln(2·23.6/1) = 1 + 0.10148·3.8544 = 1.3912 (by hand)
     expect(fringingFactor(1e-3, 97.1e-6, 23.6e-3)).toBeCloseTo(1.3912, 4);
   });
 
-  it('keeps N and widens the gap until L is met to 0.1 % (magnetics.md §3.3)', () => {
+  it('keeps N and widens the gap until L is met to 0.1 % (McLyman fringing factor, from memory)', () => {
     for (const turns of [11, 15, 25]) {
       const plain = gapWithoutFringing(turns, L, geometry.area, geometry.pathLength, geometry.permeability);
       const widened = gapWithFringing(turns, L, geometry);
@@ -55,12 +55,12 @@ describe('McLyman fringing', () => {
     }
   });
 
-  it('flags gaps beyond 0.3·√Ae (magnetics.md §3.3, common practice, no source)', () => {
+  it('flags gaps beyond 0.3·√Ae (common practice, no source)', () => {
     expect(fringingOutOfRange(0.3 * Math.sqrt(etd34Like.ae) * 1.01, etd34Like.ae)).toBe(true);
     expect(fringingOutOfRange(0.3 * Math.sqrt(etd34Like.ae) * 0.99, etd34Like.ae)).toBe(false);
   });
 
-  it('uses a spacer of lg/(1 + Ac/Ao) ≈ lg/2 for E/ETD (magnetics.md §3.4 [C/CP])', () => {
+  it('uses a spacer of lg/(1 + Ac/Ao) ≈ lg/2 for E/ETD (two gaps in series, derived algebraically; Ac ≈ Ao common practice, no source)', () => {
     expect(spacerThickness(1e-3)).toBeCloseTo(0.5e-3, 15);
     expect(spacerThickness(1e-3, 0.5)).toBeCloseTo(1e-3 / 1.5, 15);
   });

@@ -16,37 +16,37 @@ function inputError(run: () => unknown): EngineInputError {
 }
 
 describe('buck operating point', () => {
-  it('reproduces the Section-1 example of magnetics.md §12.4', () => {
+  it('reproduces the worked buck example (ideal CCM buck relations, Erickson & Maksimović, Fundamentals of Power Electronics — from memory)', () => {
     const op = operatingPoint(sectionOneSpec, 0);
-    // magnetics.md §12.4 [C]: L = 26.67 µH, Ipk = 11.5 A, Irms = 10.04 A
+    // Computed from L = Vout·(1 − Vout/Vin,max)/(fs·r·Iout), Ipk = Iout + ΔI/2, Irms = √(Iout² + ΔI²/12): L = 26.67 µH, Ipk = 11.5 A, Irms = 10.04 A
     expect(op.inductanceMin * 1e6).toBeCloseTo(26.67, 2);
     expect(op.peakCurrent).toBeCloseTo(11.5, 6);
     expect(op.rmsCurrent).toBeCloseTo(10.04, 2);
     expect(op.valleyCurrent).toBeCloseTo(8.5, 6);
-    // magnetics.md §1.2 [C]: W = ½·L·Ipk² = ½·26.67e-6·11.5² = 1.763 mJ
+    // Stored energy, computed: W = ½·L·Ipk² = ½·26.67e-6·11.5² = 1.763 mJ
     expect(op.storedEnergy * 1e3).toBeCloseTo(1.763, 3);
-    // magnetics.md §1.3 [C]: Iout,crit = Vout(1 − D)/(2·fs·L) = ΔI/2 = 1.5 A at Vin max
+    // CCM boundary, derived algebraically from Ivalley = 0: Iout,crit = Vout(1 − D)/(2·fs·L) = ΔI/2 = 1.5 A at Vin max
     expect(op.ccmBoundaryCurrent).toBeCloseTo(1.5, 6);
   });
 
-  it('gives lower ripple at Vin min than at Vin max (magnetics.md §1.2: worst case at Vin max)', () => {
+  it('gives lower ripple at Vin min than at Vin max (ΔI = Vout·(1 − D)/(fs·L) is largest at Vin max, derived algebraically)', () => {
     const op = operatingPoint(sectionOneSpec, 0);
     // ideal: ΔI(24 V) = 12·(1 − 0.5)/(1e5·26.67e-6) = 2.25 A [C]
     expect(op.rippleAtVinMin).toBeCloseTo(2.25, 6);
     expect(op.rippleAtVinMin).toBeLessThan(op.rippleAtVinMax);
   });
 
-  it('designs to the minimum inductance: nominal = L/(1 − tol) (magnetics.md §1.4, common practice, no source)', () => {
+  it('designs to the minimum inductance: nominal = L/(1 − tol) (common practice, no source)', () => {
     const op = operatingPoint(sectionOneSpec, 0.2);
     expect(op.inductanceNominal / op.inductanceMin).toBeCloseTo(1 / 0.8, 12);
   });
 
-  it('checks saturation at the current limit when that exceeds the ripple peak (magnetics.md §1.4 [CP])', () => {
+  it('checks saturation at the current limit when that exceeds the ripple peak (common practice, no source)', () => {
     expect(operatingPoint({ ...sectionOneSpec, currentLimit: 14 }).saturationCheckCurrent).toBe(14);
     expect(operatingPoint({ ...sectionOneSpec, currentLimit: 9 }).saturationCheckCurrent).toBe(11.5);
   });
 
-  it('balances volt-seconds for the non-synchronous duty formula (magnetics.md §1.1 [C])', () => {
+  it('balances volt-seconds for the non-synchronous duty formula (volt-second balance, derived algebraically)', () => {
     fc.assert(
       fc.property(
         fc.double({ min: 8, max: 60, noNaN: true }),
@@ -64,7 +64,7 @@ describe('buck operating point', () => {
     );
   });
 
-  it('balances volt-seconds for the synchronous duty formula (magnetics.md §1.1 [C])', () => {
+  it('balances volt-seconds for the synchronous duty formula (volt-second balance, derived algebraically)', () => {
     const spec: ConverterSpec = {
       ...sectionOneSpec,
       rectifier: 'synchronous',

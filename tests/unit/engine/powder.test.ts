@@ -6,18 +6,18 @@ import { powderP, powderRing } from './fixtures';
 const al = powderInductanceFactor(powderP.permeability, powderRing.ae, powderRing.le);
 
 describe('distributed-gap toroid', () => {
-  it('has AL = μ0·μi·Ae/le = 81.2 nH for μi 60 on the 26.9/14.7/11.2 ring (magnetics.md §4 and §12.3 [C])', () => {
+  it('has AL = μ0·μi·Ae/le = 81.2 nH for μi 60 on the 26.9/14.7/11.2 ring (ungapped-core AL = μ0·μi·Ae/le on IEC 60205 values, computed)', () => {
     // 4π·1e-7·60·66.28e-6/61.53e-3 = 81.22 nH [C]
     expect(al * 1e9).toBeCloseTo(81.22, 1);
     expect(al).toBeCloseTo((MU0 * 60 * powderRing.ae) / powderRing.le, 20);
   });
 
-  it('halves the permeability at H50 for the 1/(1 + (H/H50)^c) form (magnetics.md §4 [CP])', () => {
+  it('halves the permeability at H50 for the 1/(1 + (H/H50)^c) form (common practice, no source)', () => {
     expect(permeabilityFraction(powderP.rollOff, 8000)).toBeCloseTo(0.5, 12);
     expect(permeabilityFraction(undefined, 8000)).toBe(1);
   });
 
-  it('returns the smallest N meeting L at the bias current (magnetics.md §4)', () => {
+  it('returns the smallest N meeting L at the bias current (L = AL·N²·μ%(N·I/le), common practice, no source)', () => {
     for (const [target, current] of [
       [20e-6, 5],
       [30e-6, 11.5],
@@ -30,7 +30,7 @@ describe('distributed-gap toroid', () => {
     }
   });
 
-  it('finds L(N) falling for very large N when c > 2 and reports the target as infeasible (magnetics.md §4 [C])', () => {
+  it('finds L(N) falling for very large N when c > 2 and reports the target as infeasible (maximum of N²/(1 + k·N^c), derived algebraically)', () => {
     const steep = { a: 1, b: Math.pow(4000, -2.5), c: 2.5 };
     const current = 10;
     // N²/(1 + k·N^c) peaks where k·N^c = 2/(c − 2) [C]: k = b·(I/le)^c

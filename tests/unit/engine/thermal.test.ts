@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { THERMAL_MODEL_LIMIT, coreVolumeThermalResistance, solveTemperature, surfaceDissipationRise, temperatureRise } from '@shared/engine/thermal';
 
 describe('surface-dissipation law ΔT = 450·ψ^0.826', () => {
-  it('gives ≈25 °C at 0.03 W/cm² and ≈50 °C at 0.07 W/cm² (McLyman, from memory; anchor points [C] in magnetics.md §9.1)', () => {
+  it('gives ≈25 °C at 0.03 W/cm² and ≈50 °C at 0.07 W/cm² (McLyman, Transformer and Inductor Design Handbook — from memory; anchor points computed from the formula)', () => {
     // At = 1e-4 m² = 1 cm², so ψ = P
     expect(Math.abs(surfaceDissipationRise(0.03, 1e-4) - 25)).toBeLessThan(0.5);
     expect(Math.abs(surfaceDissipationRise(0.07, 1e-4) - 50)).toBeLessThan(0.5);
@@ -14,7 +14,7 @@ describe('surface-dissipation law ΔT = 450·ψ^0.826', () => {
 });
 
 describe('core-volume thermal resistance Rth = 53·Ve^−0.54', () => {
-  it('matches the Encyclopedia Magnetica table for E25, E32, E42, E55 (Maniktala via Encyclopedia Magnetica [S], magnetics.md §12.2)', () => {
+  it('matches the Encyclopedia Magnetica table for E25, E32, E42, E55 (Maniktala, Switching Power Supplies A–Z, 2nd ed., p. 155, via Encyclopedia Magnetica)', () => {
     const cases: [number, number][] = [
       [3.02e-6, 29],
       [6.14e-6, 20],

@@ -5,7 +5,7 @@ import { copperSkinDepth } from '@shared/engine/skin-depth';
 import { etd34Like, powderRing, roundWire, wireSet } from './fixtures';
 
 describe('winding layout', () => {
-  it('lays floor(bobbinWidth/(conductors·d_o)) turns per layer on a bobbin (magnetics.md §6.6, common practice, no source)', () => {
+  it('lays floor(bobbinWidth/(conductors·d_o)) turns per layer on a bobbin (common practice, no source)', () => {
     const wire = { ...roundWire(0.8e-3, 3), overallDiameter: 0.86e-3 };
     const layout = windingLayout(20, wire, etd34Like);
     // 21 mm / (3·0.86 mm) = 8.14 → 8 turns per layer, 20 turns → 3 layers, build 2.58 mm
@@ -13,12 +13,12 @@ describe('winding layout', () => {
     expect(layout.layers).toBe(3);
     expect(layout.buildHeight * 1e3).toBeCloseTo(2.58, 9);
     expect(layout.fitsBuild).toBe(true);
-    // copper fill Ku = N·strands·π·d²/4 / Wa (magnetics.md §6.6)
+    // copper fill Ku = N·strands·π·d²/4 / Wa (definition of window utilisation, computed)
     expect(layout.copperFill).toBeCloseTo((20 * 3 * Math.PI * 0.8e-3 ** 2) / 4 / 175e-6, 12);
     expect(layout.wireLength).toBeCloseTo(20 * 60e-3, 12);
   });
 
-  it('puts floor(π·(ID − d_o)/d_o) turns on the first layer of a ring (magnetics.md §4 [CP])', () => {
+  it('puts floor(π·(ID − d_o)/d_o) turns on the first layer of a ring (common practice, no source)', () => {
     const wire = { ...roundWire(0.95e-3), overallDiameter: 1e-3 };
     // π·(14.7 − 1)/1 = 43.04 → 43
     const layout = windingLayout(60, wire, powderRing);
@@ -40,7 +40,7 @@ describe('winding layout', () => {
 describe('wire choice', () => {
   const delta = copperSkinDepth(100e3, 90);
 
-  it('picks the largest strand ≤ 2δ and enough strands for J (magnetics.md §6.5 [CP])', () => {
+  it('picks the largest strand ≤ 2δ and enough strands for J (common practice, no source)', () => {
     // Irms 3 A at 4 A/mm² needs 0.75 mm²; 2δ ≈ 0.47 mm → 0.45 mm strands (0.159 mm²) → 5 in hand
     const choice = chooseWire(3, 4e6, delta, wireSet, 8);
     expect(choice.strandDiameter).toBeCloseTo(0.45e-3, 12);

@@ -57,7 +57,7 @@ describe('SPICE subcircuit', () => {
   });
 
   it('has a core-loss resistance that dissipates the iGSE core loss at the RMS inductor voltage', () => {
-    // Square wave across L at Vin max: Vin − Vout = 24 V for D = 1/3, −12 V for 2/3 (magnetics reference §1.1, ideal switches [C]).
+    // Square wave across L at Vin max: Vin − Vout = 24 V for D = 1/3, −12 V for 2/3 (ideal switches, D = Vout/Vin from volt-second balance, computed).
     expect(v.inductorVoltageRms).toBeCloseTo(Math.sqrt((24 ** 2) / 3 + (12 ** 2 * 2) / 3), 6);
     expect(v.inductorVoltageRms ** 2 / element('RCORE') / result.coreLoss.loss).toBeCloseTo(1, 4);
   });
