@@ -3,6 +3,18 @@ import { QUANTITIES, type QuantityKind } from './quantities';
 
 const PREFIXES: Record<number, string> = { [-15]: 'f', [-12]: 'p', [-9]: 'n', [-6]: 'µ', [-3]: 'm', 0: '', 3: 'k', 6: 'M', 9: 'G', 12: 'T' };
 
+/** The power of ten (a multiple of three, femto to tera) whose prefix shows `value` with 1 to 3 digits before the point. */
+export function engineeringExponent(value: number): number {
+  if (!Number.isFinite(value) || value === 0) return 0;
+  const exponent = Math.floor(Math.log10(Math.abs(value)) / 3) * 3;
+  return Math.min(12, Math.max(-15, exponent));
+}
+
+/** The SI prefix of a power of ten that is a multiple of three ("k" for 3, "µ" for -6). */
+export function prefixOf(exponent: number): string {
+  return PREFIXES[exponent] ?? '';
+}
+
 /** Number with `significant` digits, trailing zeros removed, never in exponent notation for ordinary sizes. */
 export function trimmedNumber(value: number, significant = 4): string {
   if (value === 0) return '0';
@@ -26,9 +38,7 @@ export function formatEngineering(value: number, symbol: string, significant = 4
   if (!Number.isFinite(value)) return '';
   if (value === 0) return symbol ? `0 ${symbol}` : '0';
   const rounded = Number(value.toPrecision(significant));
-  let exponent = Math.floor(Math.log10(Math.abs(rounded)) / 3) * 3;
-  exponent = Math.min(12, Math.max(-15, exponent));
+  const exponent = engineeringExponent(rounded);
   const mantissa = trimmedNumber(rounded / 10 ** exponent, significant);
-  const prefix = PREFIXES[exponent] ?? '';
-  return `${mantissa} ${prefix}${symbol}`.trim();
+  return `${mantissa} ${prefixOf(exponent)}${symbol}`.trim();
 }

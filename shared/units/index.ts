@@ -1,3 +1,4 @@
+export * from './display';
 export * from './format';
 export * from './parse';
 export * from './quantities';
