@@ -8,11 +8,13 @@ import { MatSort, MatSortModule } from '@angular/material/sort';
 import { MatTableDataSource, MatTableModule } from '@angular/material/table';
 import type { SearchCandidate, SearchResult } from '@shared/engine/index';
 import type { DesignSpec } from '@shared/schemas/designs';
+import { axisIn } from '@shared/units/index';
 import type { ECElementEvent, EChartsCoreOption, EChartsType } from 'echarts/core';
 import { NgxEchartsDirective } from 'ngx-echarts';
 import { Subject, catchError, distinctUntilChanged, map, merge, of, skip, startWith, switchMap } from 'rxjs';
 
 import { errorMessageOf } from '../core/api-error';
+import { QuantityPipe } from '../units/quantity';
 import { candidateRows, type CandidateRow } from './candidate-rows';
 import { DesignsApi, type MaterialView } from './designs-api';
 import { percent, show } from './format';
@@ -31,9 +33,12 @@ interface PointPosition {
   y: number;
 }
 
+/** The scatter chart's x axis: core volume in cm³. */
+const VOLUME_AXIS = axisIn('cm³');
+
 @Component({
   selector: 'gw-candidates-panel',
-  imports: [MatButtonModule, MatFormFieldModule, MatProgressBarModule, MatSelectModule, MatSortModule, MatTableModule, NgxEchartsDirective],
+  imports: [MatButtonModule, MatFormFieldModule, MatProgressBarModule, MatSelectModule, MatSortModule, MatTableModule, NgxEchartsDirective, QuantityPipe],
   templateUrl: './candidates-panel.html',
   styleUrl: './candidates-panel.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -164,7 +169,7 @@ export class CandidatesPanel {
   protected readonly chart = computed<EChartsCoreOption>(() => {
     const feasible = this.rows().filter((r) => r.feasible);
     if (!feasible.length) return {};
-    const point = (r: CandidateRow) => ({ value: [r.volume! * 1e6, r.totalLoss!], name: `${r.coreId} · ${r.materialName} · ${r.wireId}`, key: r.key });
+    const point = (r: CandidateRow) => ({ value: [VOLUME_AXIS.toAxis(r.volume!), r.totalLoss!], name: `${r.coreId} · ${r.materialName} · ${r.wireId}`, key: r.key });
     const front = feasible.filter((r) => r.pareto).sort((a, b) => a.volume! - b.volume!);
     const selected = this.selectedKey();
     return {
@@ -172,7 +177,7 @@ export class CandidatesPanel {
       grid: { left: 56, right: 16, top: 32, bottom: 44 },
       legend: { top: 0 },
       tooltip: { trigger: 'item', formatter: (p: { name: string; value: number[] }) => `${p.name}<br>${p.value[1].toFixed(3)} W, ${p.value[0].toFixed(2)} cm³` },
-      xAxis: { type: 'value', name: 'Core volume (cm³)', nameLocation: 'middle', nameGap: 28, scale: true },
+      xAxis: { type: 'value', name: `Core volume (${VOLUME_AXIS.unit})`, nameLocation: 'middle', nameGap: 28, scale: true },
       yAxis: { type: 'value', name: 'Total loss (W)', scale: true },
       series: [
         { type: 'scatter', name: 'Candidates', data: feasible.filter((r) => !r.pareto).map(point), symbolSize: 8 },
@@ -205,7 +210,7 @@ export class CandidatesPanel {
     if (!chart) return;
     const front = this.rows().filter((r) => r.feasible && r.pareto);
     const positions = front.map((r) => {
-      const [x, y] = chart.convertToPixel({ seriesIndex: 1 }, [r.volume! * 1e6, r.totalLoss!]) as number[];
+      const [x, y] = chart.convertToPixel({ seriesIndex: 1 }, [VOLUME_AXIS.toAxis(r.volume!), r.totalLoss!]) as number[];
       return { key: r.key, label: `${r.coreId} · ${r.materialName}: ${show(r.totalLoss, 'power')}`, x: Math.round(x), y: Math.round(y) };
     });
     const before = JSON.stringify(this.pointPositions());

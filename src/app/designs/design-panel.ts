@@ -7,12 +7,14 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { THERMAL_MODEL_LIMIT } from '@shared/engine/thermal';
 import type { Construction, DesignSpec } from '@shared/schemas/designs';
+import { axisIn } from '@shared/units/index';
 import type { EChartsCoreOption } from 'echarts/core';
 import { NgxEchartsDirective } from 'ngx-echarts';
 import { Subject, catchError, debounceTime, map, of, switchMap, tap } from 'rxjs';
 
 import { CautionLine } from '../caution-line/caution-line';
 import { errorMessageOf } from '../core/api-error';
+import { QuantityPipe } from '../units/quantity';
 import { QuantityInput } from '../units/quantity-input';
 import { CoresApi } from '../cores/cores-api';
 import { DesignsApi, type EvaluateView, type MaterialView } from './designs-api';
@@ -23,7 +25,7 @@ type WireKind = 'awg' | 'metric' | 'litz';
 /** The chosen design: every figure, three charts, warnings; core, material, turns, gap and wire re-evaluate live. */
 @Component({
   selector: 'gw-design-panel',
-  imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatProgressBarModule, MatSelectModule, NgxEchartsDirective, QuantityInput, CautionLine],
+  imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatProgressBarModule, MatSelectModule, NgxEchartsDirective, QuantityInput, QuantityPipe, CautionLine],
   templateUrl: './design-panel.html',
   styleUrl: './design-panel.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -61,8 +63,6 @@ export class DesignPanel {
   protected readonly fmt = show;
   protected readonly unit = showUnit;
   protected readonly pct = percent;
-  protected readonly mm2 = (m2: number) => `${Number((m2 * 1e6).toPrecision(4))} mm²`;
-  protected readonly cm3 = (m3: number) => `${Number((m3 * 1e6).toPrecision(4))} cm³`;
   protected readonly result = computed(() => this.view()?.result ?? null);
   /** Cores that take the current material: gapped sets for ferrites and the like, rings and toroids for powders. */
   protected readonly coreOptions = computed(() => {
@@ -220,17 +220,18 @@ export class DesignPanel {
   protected readonly frequencyChart = computed<EChartsCoreOption>(() => {
     const sweep = this.view()?.lossVersusFrequency ?? [];
     if (!sweep.length) return {};
-    const series = (name: string, pick: (p: (typeof sweep)[number]) => number) => ({ type: 'line', name, data: sweep.map((p) => [p.frequency / 1e3, pick(p)]) });
+    const x = axisIn('kHz');
+    const series = (name: string, pick: (p: (typeof sweep)[number]) => number) => ({ type: 'line', name, data: sweep.map((p) => [x.toAxis(p.frequency), pick(p)]) });
     const fs = this.spec()?.converter.frequency;
     return {
       animation: false,
       grid: { left: 56, right: 16, top: 32, bottom: 40 },
       legend: { top: 0 },
       tooltip: { trigger: 'axis' },
-      xAxis: { type: 'log', name: 'kHz', nameLocation: 'middle', nameGap: 24, min: sweep[0].frequency / 1e3, max: sweep.at(-1)!.frequency / 1e3, axisLabel: { formatter: (v: number) => String(Math.round(v)) } },
+      xAxis: { type: 'log', name: x.unit, nameLocation: 'middle', nameGap: 24, min: x.toAxis(sweep[0].frequency), max: x.toAxis(sweep.at(-1)!.frequency), axisLabel: { formatter: (v: number) => String(Math.round(v)) } },
       yAxis: { type: 'value', name: 'W' },
       series: [
-        { ...series('Total', (p) => p.total), markLine: fs ? { symbol: 'none', data: [{ xAxis: fs / 1e3 }], label: { formatter: 'fs' } } : undefined },
+        { ...series('Total', (p) => p.total), markLine: fs ? { symbol: 'none', data: [{ xAxis: x.toAxis(fs) }], label: { formatter: 'fs' } } : undefined },
         series('Copper', (p) => p.copperDc + p.copperAc),
         series('Core', (p) => p.core),
       ],

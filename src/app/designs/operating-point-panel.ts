@@ -2,6 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, inject, input } from '@an
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import type { DesignSpec } from '@shared/schemas/designs';
+import { axisFor } from '@shared/units/index';
 import type { EChartsCoreOption } from 'echarts/core';
 import { NgxEchartsDirective } from 'ngx-echarts';
 import { catchError, debounceTime, distinctUntilChanged, map, of, startWith, switchMap } from 'rxjs';
@@ -120,16 +121,17 @@ export class OperatingPointPanel {
     if (!op || !spec) return {};
     const period = 1 / spec.converter.frequency;
     const d = op.dutyAtVinMax;
+    const time = axisFor('s', [2 * period]);
     const points: [number, number][] = [];
     for (let k = 0; k < 2; k++) {
-      points.push([(k * period) * 1e6, op.valleyCurrent], [((k + d) * period) * 1e6, op.peakCurrent]);
+      points.push([time.toAxis(k * period), op.valleyCurrent], [time.toAxis((k + d) * period), op.peakCurrent]);
     }
-    points.push([2 * period * 1e6, op.valleyCurrent]);
+    points.push([time.toAxis(2 * period), op.valleyCurrent]);
     return {
       animation: false,
       grid: { left: 48, right: 16, top: 24, bottom: 36 },
       tooltip: { trigger: 'axis' },
-      xAxis: { type: 'value', name: 'µs', nameLocation: 'middle', nameGap: 24, max: 2 * period * 1e6 },
+      xAxis: { type: 'value', name: time.unit, nameLocation: 'middle', nameGap: 24, max: time.toAxis(2 * period) },
       yAxis: { type: 'value', name: 'A', scale: true },
       series: [
         {

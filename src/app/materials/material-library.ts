@@ -17,6 +17,7 @@ import { MaterialEdit } from './material-edit';
 import { MaterialUpload } from './material-upload';
 import { MaterialsApi, type CommitResult, type LibraryMaterial } from './materials-api';
 import { bindTableSource } from '../core/table-binding';
+import { QuantityPipe } from '../units/quantity';
 
 @Component({
   selector: 'gw-material-library',
@@ -33,6 +34,7 @@ import { bindTableSource } from '../core/table-binding';
     MatSortModule,
     MatTableModule,
     MaterialUpload,
+    QuantityPipe,
   ],
   templateUrl: './material-library.html',
   styleUrl: './material-library.scss',
