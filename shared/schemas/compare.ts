@@ -16,14 +16,18 @@ export const sweepRangeSchema = (field: string, min: number, max: number, unit: 
     .strict()
     .refine((r) => r.min < r.max, { path: ['min'], message: `${field}.min must be below ${field}.max` });
 
+/** Limits (SI) of the flux swing and frequency of the loss curves; the Compare page's fields use them too. */
+export const CURVE_LIMITS = { deltaB: { min: 1e-4, max: 2 }, frequency: { min: 1e3, max: 10e6 } } as const;
+const { deltaB: DELTA_B, frequency: FREQUENCY } = CURVE_LIMITS;
+
 export const compareCurvesRequestSchema = z
   .object({
     materialIds: z.array(materialIdSchema).min(1, 'Choose at least one material').max(12, 'Compare at most 12 materials'),
-    deltaB: range('deltaB', 1e-4, 2, 'T').default(0.2).meta({ description: 'Peak-to-peak flux swing of the frequency sweep (T)' }),
-    frequency: range('frequency', 1e3, 10e6, 'Hz').default(100e3).meta({ description: 'Frequency of the flux sweep (Hz)' }),
+    deltaB: range('deltaB', DELTA_B.min, DELTA_B.max, 'T').default(0.2).meta({ description: 'Peak-to-peak flux swing of the frequency sweep (T)' }),
+    frequency: range('frequency', FREQUENCY.min, FREQUENCY.max, 'Hz').default(100e3).meta({ description: 'Frequency of the flux sweep (Hz)' }),
     duty: finite('duty').gt(0, { error: 'duty must be between 0 and 1 (exclusive)' }).lt(1, { error: 'duty must be between 0 and 1 (exclusive)' }).default(0.5),
-    frequencyRange: sweepRangeSchema('frequencyRange', 1e3, 10e6, 'Hz').default({ min: 10e3, max: 2e6 }),
-    fluxRange: sweepRangeSchema('fluxRange', 1e-4, 2, 'T').default({ min: 0.01, max: 0.6 }),
+    frequencyRange: sweepRangeSchema('frequencyRange', FREQUENCY.min, FREQUENCY.max, 'Hz').default({ min: 10e3, max: 2e6 }),
+    fluxRange: sweepRangeSchema('fluxRange', DELTA_B.min, DELTA_B.max, 'T').default({ min: 0.01, max: 0.6 }),
     points: z.number().int('points must be a whole number').min(5, 'points must be between 5 and 200').max(200, 'points must be between 5 and 200').default(41),
   })
   .strict()

@@ -13,14 +13,27 @@ import { MatTableDataSource, MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
 import type { CompareDesignResponse, DesignComparisonRow, DesignFluxPoint } from '@shared/schemas/compare';
 import type { RevisionSummary } from '@shared/schemas/designs';
+import type { QuantityKind } from '@shared/units/index';
 import { map, of, switchMap, catchError, type Observable } from 'rxjs';
 
 import { CautionLine } from '../caution-line/caution-line';
 import { showServerFieldErrors } from '../core/server-field-errors';
 import { DesignsApi } from '../designs/designs-api';
+import { QuantityPipe } from '../units/quantity';
+import { QuantityInput } from '../units/quantity-input';
 import { CompareApi } from './compare-api';
 
 export type DesignSource = 'saved' | 'typed';
+
+/** The converter of a typed-in design: quantity fields, limits in SI. */
+const QUANTITY_FIELDS: readonly { name: 'vinMin' | 'vinMax' | 'vout' | 'ioutMax' | 'frequency' | 'rippleRatio'; label: string; kind: QuantityKind; min: number; max?: number }[] = [
+  { name: 'vinMin', label: 'Vin min', kind: 'voltage', min: 0.5 },
+  { name: 'vinMax', label: 'Vin max', kind: 'voltage', min: 0.5 },
+  { name: 'vout', label: 'Vout', kind: 'voltage', min: 0.1 },
+  { name: 'ioutMax', label: 'Iout', kind: 'current', min: 0.001 },
+  { name: 'frequency', label: 'Switching frequency', kind: 'frequency', min: 1e3, max: 10e6 },
+  { name: 'rippleRatio', label: 'Ripple ratio ΔI/Iout', kind: 'ratio', min: 0.01, max: 2 },
+];
 
 /** One design's losses with every material: a saved revision, or a design typed in here. */
 @Component({
@@ -36,6 +49,8 @@ export type DesignSource = 'saved' | 'typed';
     MatSelectModule,
     MatSortModule,
     MatTableModule,
+    QuantityInput,
+    QuantityPipe,
     ReactiveFormsModule,
     RouterLink,
   ],
@@ -75,24 +90,20 @@ export class DesignComparison {
   );
 
   protected readonly typedForm = new FormGroup({
-    vinMin: new FormControl(24, { nonNullable: true, validators: [Validators.required, Validators.min(0.5)] }),
-    vinMax: new FormControl(36, { nonNullable: true, validators: [Validators.required, Validators.min(0.5)] }),
-    vout: new FormControl(12, { nonNullable: true, validators: [Validators.required, Validators.min(0.1)] }),
-    ioutMax: new FormControl(10, { nonNullable: true, validators: [Validators.required, Validators.min(0.001)] }),
-    frequencyKilo: new FormControl(100, { nonNullable: true, validators: [Validators.required, Validators.min(1), Validators.max(10000)] }),
-    rippleRatio: new FormControl(0.3, { nonNullable: true, validators: [Validators.required, Validators.min(0.01), Validators.max(2)] }),
+    // Quantities in SI, typed with units ("36 V", "100 kHz", "30 %"); limits are the fields' own (QUANTITY_FIELDS).
+    vinMin: new FormControl<number | null>(24),
+    vinMax: new FormControl<number | null>(36),
+    vout: new FormControl<number | null>(12),
+    ioutMax: new FormControl<number | null>(10),
+    frequency: new FormControl<number | null>(100e3),
+    rippleRatio: new FormControl<number | null>(0.3),
     coreId: new FormControl('ETD34/17/11', { nonNullable: true, validators: [Validators.required] }),
     turns: new FormControl(20, { nonNullable: true, validators: [Validators.required, Validators.min(1), Validators.max(2000)] }),
     awg: new FormControl(18, { nonNullable: true, validators: [Validators.required, Validators.min(-3), Validators.max(46)] }),
     strands: new FormControl(2, { nonNullable: true, validators: [Validators.required, Validators.min(1), Validators.max(5000)] }),
   });
+  protected readonly quantityFields = QUANTITY_FIELDS;
   protected readonly typedFields = [
-    { name: 'vinMin', label: 'Vin min (V)' },
-    { name: 'vinMax', label: 'Vin max (V)' },
-    { name: 'vout', label: 'Vout (V)' },
-    { name: 'ioutMax', label: 'Iout (A)' },
-    { name: 'frequencyKilo', label: 'Switching frequency (kHz)' },
-    { name: 'rippleRatio', label: 'Ripple ratio ΔI/Iout' },
     { name: 'turns', label: 'Turns' },
     { name: 'awg', label: 'Wire (AWG)' },
     { name: 'strands', label: 'Wires in hand' },
@@ -173,7 +184,7 @@ export class DesignComparison {
     const v = this.typedForm.getRawValue();
     this.run(
       this.api.design({
-        spec: { vinMin: v.vinMin, vinMax: v.vinMax, vout: v.vout, ioutMax: v.ioutMax, frequency: v.frequencyKilo * 1000, rippleRatio: v.rippleRatio },
+        spec: { vinMin: v.vinMin!, vinMax: v.vinMax!, vout: v.vout!, ioutMax: v.ioutMax!, frequency: v.frequency!, rippleRatio: v.rippleRatio! },
         coreId: v.coreId,
         turns: v.turns,
         wire: { kind: 'awg', awg: v.awg, strands: v.strands },

@@ -1,5 +1,6 @@
 import type { EChartsCoreOption } from 'echarts/core';
 import type { CurvePoint, MaterialCurves } from '@shared/schemas/compare';
+import { formatIn } from '@shared/units/index';
 
 export type LossMethod = 'igse' | 'steinmetz';
 export type SweepAxis = 'frequency' | 'flux';
@@ -60,7 +61,7 @@ export function lossChartOptions(materials: readonly MaterialCurves[], axis: Swe
     legend: { top: 0, textStyle: { color: text }, type: 'plain' },
     tooltip: {
       trigger: 'axis',
-      valueFormatter: (v: unknown) => (typeof v === 'number' ? `${(v / 1e3).toPrecision(3)} kW/m³` : String(v)),
+      valueFormatter: (v: unknown) => (typeof v === 'number' ? formatIn(v, 'kW/m³', 3) : String(v)),
     },
     // Two legend entries fit on a line of a half-width chart; leave room for every line.
     grid: { left: 72, right: 24, top: 24 + 24 * Math.ceil(materials.length / 2), bottom: 56 },

@@ -1,4 +1,3 @@
-import { DecimalPipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, ElementRef, computed, effect, inject, input, signal, viewChild } from '@angular/core';
 import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -7,11 +6,13 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
-import type { CompareCurvesResponse, DesignFluxPoint } from '@shared/schemas/compare';
+import { CURVE_LIMITS, type CompareCurvesResponse, type DesignFluxPoint } from '@shared/schemas/compare';
 import { NgxEchartsDirective } from 'ngx-echarts';
 
 import { errorMessageOf } from '../core/api-error';
 import { ThemeSwitcher } from '../core/theme-switcher';
+import { QuantityPipe } from '../units/quantity';
+import { QuantityInput } from '../units/quantity-input';
 import { CompareApi } from './compare-api';
 import { DesignComparison } from './design-comparison';
 import { lossChartOptions, type LossMethod } from './loss-chart-options';
@@ -21,7 +22,6 @@ const DEFAULT_SELECTION = 3;
 @Component({
   selector: 'gw-material-compare',
   imports: [
-    DecimalPipe,
     MatButtonModule,
     MatButtonToggleModule,
     DesignComparison,
@@ -30,6 +30,8 @@ const DEFAULT_SELECTION = 3;
     MatProgressBarModule,
     MatSelectModule,
     NgxEchartsDirective,
+    QuantityInput,
+    QuantityPipe,
     ReactiveFormsModule,
   ],
   templateUrl: './material-compare.html',
@@ -48,10 +50,12 @@ export class MaterialCompare {
   protected readonly materials = this.api.materialsResource();
   protected readonly curveForm = new FormGroup({
     materialIds: new FormControl<string[]>([], { nonNullable: true, validators: [Validators.required] }),
-    deltaBMilli: new FormControl(200, { nonNullable: true, validators: [Validators.required, Validators.min(0.1), Validators.max(2000)] }),
-    frequencyKilo: new FormControl(100, { nonNullable: true, validators: [Validators.required, Validators.min(1), Validators.max(10000)] }),
+    /** Peak-to-peak flux swing (T) and frequency (Hz), SI as typed with units into the quantity fields. */
+    deltaB: new FormControl<number | null>(0.2),
+    frequency: new FormControl<number | null>(100e3),
     duty: new FormControl(0.5, { nonNullable: true, validators: [Validators.required, Validators.min(0.01), Validators.max(0.99)] }),
   });
+  protected readonly limits = CURVE_LIMITS;
   protected readonly method = signal<LossMethod>('igse');
   protected readonly curves = signal<CompareCurvesResponse | null>(null);
   protected readonly curvesLoading = signal(false);
@@ -82,10 +86,10 @@ export class MaterialCompare {
       this.curveForm.markAllAsTouched();
       return;
     }
-    const { materialIds, deltaBMilli, frequencyKilo, duty } = this.curveForm.getRawValue();
+    const { materialIds, deltaB, frequency, duty } = this.curveForm.getRawValue();
     this.curvesLoading.set(true);
     this.curvesError.set(null);
-    this.api.curves({ materialIds, deltaB: deltaBMilli / 1000, frequency: frequencyKilo * 1000, duty }).subscribe({
+    this.api.curves({ materialIds, deltaB: deltaB!, frequency: frequency!, duty }).subscribe({
       next: (result) => {
         this.curvesLoading.set(false);
         this.curves.set(result);
@@ -100,8 +104,8 @@ export class MaterialCompare {
   /** The curves at a compared design's flux swing, frequency and duty; focus moves up to them. */
   protected drawAt(point: DesignFluxPoint): void {
     this.curveForm.patchValue({
-      deltaBMilli: Number((point.deltaB * 1000).toPrecision(4)),
-      frequencyKilo: Number((point.frequency / 1000).toPrecision(6)),
+      deltaB: Number(point.deltaB.toPrecision(4)),
+      frequency: Number(point.frequency.toPrecision(6)),
       duty: Number(point.duty.toPrecision(3)),
     });
     this.drawCurves();
