@@ -1,4 +1,4 @@
-import { DatePipe, DecimalPipe } from '@angular/common';
+import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, ElementRef, computed, inject, signal, viewChild } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatExpansionModule } from '@angular/material/expansion';
@@ -9,6 +9,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSort, MatSortModule } from '@angular/material/sort';
 import { MatTableDataSource, MatTableModule } from '@angular/material/table';
+import { formatIn, toDisplay } from '@shared/units/index';
 
 import { Notifier } from '../core/notifier';
 import { Session } from '../core/session';
@@ -17,6 +18,7 @@ import { CoreUpload } from './core-upload';
 import { ShapedCoreForm } from './shaped-core-form';
 import { CoresApi, type CatalogueCore, type CoreImportResult } from './cores-api';
 import { bindTableSource } from '../core/table-binding';
+import { QuantityPipe } from '../units/quantity';
 
 interface CoreFilters {
   text: string;
@@ -33,7 +35,6 @@ interface CoreFilters {
     CoreUpload,
     ShapedCoreForm,
     DatePipe,
-    DecimalPipe,
     MatButtonModule,
     MatExpansionModule,
     MatFormFieldModule,
@@ -43,6 +44,7 @@ interface CoreFilters {
     MatSelectModule,
     MatSortModule,
     MatTableModule,
+    QuantityPipe,
   ],
   templateUrl: './core-catalogue.html',
   styleUrl: './core-catalogue.scss',
@@ -74,9 +76,9 @@ export class CoreCatalogue {
     this.dataSource.filterPredicate = (core, serialised) => {
       const f = JSON.parse(serialised) as CoreFilters;
       if (f.family && core.family !== f.family) return false;
-      if (f.aeMin !== null && core.ae * 1e6 < f.aeMin) return false;
-      if (f.windowMin !== null && core.windowArea * 1e6 < f.windowMin) return false;
-      if (f.apMin !== null && core.areaProduct * 1e8 < f.apMin) return false;
+      if (f.aeMin !== null && toDisplay(core.ae, 'mm²') < f.aeMin) return false;
+      if (f.windowMin !== null && toDisplay(core.windowArea, 'mm²') < f.windowMin) return false;
+      if (f.apMin !== null && toDisplay(core.areaProduct, 'cm⁴') < f.apMin) return false;
       const text = f.text.trim().toLowerCase();
       return !text || [core.id, core.source, core.origin].join(' ').toLowerCase().includes(text);
     };
@@ -96,7 +98,7 @@ export class CoreCatalogue {
 
   protected added(core: CatalogueCore): void {
     const what = core.version && core.version > 1 ? `saved as version ${core.version}` : 'added';
-    this.notifier.info(`Core ${core.id} ${what}: le ${(core.le * 1e3).toFixed(2)} mm, Ae ${(core.ae * 1e6).toFixed(2)} mm².`);
+    this.notifier.info(`Core ${core.id} ${what}: le ${formatIn(core.le, 'mm')}, Ae ${formatIn(core.ae, 'mm²')}.`);
     const shown = this.history();
     this.editingCore.set(null);
     this.cores.reload();

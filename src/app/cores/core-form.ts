@@ -6,12 +6,11 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 
 import { IEC60205_SOURCE_NOTE } from '@shared/catalogue/core-schema';
+import { fromDisplay, toDisplay } from '@shared/units/index';
 
 import { CoreNameField } from './core-name-field';
 import type { CatalogueCore } from './cores-api';
 import { UserCoreForm } from './user-core-form';
-
-const MM = 1e-3;
 
 /** A ring core from its nominal dimensions (new, or a new version of one); the server computes le, Ae and Ve by IEC 60205. */
 @Component({
@@ -37,9 +36,9 @@ export class CoreForm extends UserCoreForm {
     this.form.reset({
       name: core.id,
       family: core.family === 'RING' ? 'RING' : 'POWDER_TOROID',
-      outerDiameter: ring.od / MM,
-      innerDiameter: ring.id / MM,
-      height: ring.height / MM,
+      outerDiameter: toDisplay(ring.od, 'mm'),
+      innerDiameter: toDisplay(ring.id, 'mm'),
+      height: toDisplay(ring.height, 'mm'),
       // The server puts the IEC 60205 note in front of what was typed; the form shows only the typed part.
       source: core.source.replace(IEC60205_SOURCE_NOTE, '').replace(/^;\s*/, ''),
     });
@@ -62,9 +61,9 @@ export class CoreForm extends UserCoreForm {
       kind: 'ring',
       name: v.name.trim(),
       family: v.family,
-      outerDiameter: v.outerDiameter! * MM,
-      innerDiameter: v.innerDiameter! * MM,
-      height: v.height! * MM,
+      outerDiameter: fromDisplay(v.outerDiameter!, 'mm'),
+      innerDiameter: fromDisplay(v.innerDiameter!, 'mm'),
+      height: fromDisplay(v.height!, 'mm'),
       source: v.source.trim(),
     });
   }

@@ -7,6 +7,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { VOLUME_CONSISTENCY_TOLERANCE } from '@shared/catalogue/core-schema';
 import { GAPPED_CORE_FAMILIES } from '@shared/schemas/cores';
+import { fromDisplay, toDisplay, type DisplayUnit } from '@shared/units/index';
 
 import { CoreNameField } from './core-name-field';
 import type { CatalogueCore } from './cores-api';
@@ -15,18 +16,18 @@ import { UserCoreForm } from './user-core-form';
 type GappedFamily = (typeof GAPPED_CORE_FAMILIES)[number];
 type ParameterName = 'ae' | 'amin' | 'le' | 've' | 'windowArea' | 'windowHeight' | 'bobbinWidth' | 'bobbinHeight' | 'mlt' | 'surfaceArea';
 
-/** Each effective parameter as typed (unit in the label) and its factor to SI. */
-const PARAMETERS: readonly { name: ParameterName; label: string; toSi: number; required: boolean }[] = [
-  { name: 'ae', label: 'Ae, effective area (mm²)', toSi: 1e-6, required: true },
-  { name: 'amin', label: 'Amin, optional (mm²)', toSi: 1e-6, required: false },
-  { name: 'le', label: 'le, effective path length (mm)', toSi: 1e-3, required: true },
-  { name: 've', label: 'Ve, effective volume (mm³)', toSi: 1e-9, required: true },
-  { name: 'windowArea', label: 'Window area (mm²)', toSi: 1e-6, required: true },
-  { name: 'windowHeight', label: 'Window height (mm)', toSi: 1e-3, required: true },
-  { name: 'bobbinWidth', label: 'Bobbin winding width (mm)', toSi: 1e-3, required: true },
-  { name: 'bobbinHeight', label: 'Bobbin winding height (mm)', toSi: 1e-3, required: true },
-  { name: 'mlt', label: 'Mean length of a turn (mm)', toSi: 1e-3, required: true },
-  { name: 'surfaceArea', label: 'Outer surface for cooling (cm²)', toSi: 1e-4, required: true },
+/** Each effective parameter as typed (unit in the label), in a display unit of the shared unit layer. */
+const PARAMETERS: readonly { name: ParameterName; label: string; unit: DisplayUnit; required: boolean }[] = [
+  { name: 'ae', label: 'Ae, effective area (mm²)', unit: 'mm²', required: true },
+  { name: 'amin', label: 'Amin, optional (mm²)', unit: 'mm²', required: false },
+  { name: 'le', label: 'le, effective path length (mm)', unit: 'mm', required: true },
+  { name: 've', label: 'Ve, effective volume (mm³)', unit: 'mm³', required: true },
+  { name: 'windowArea', label: 'Window area (mm²)', unit: 'mm²', required: true },
+  { name: 'windowHeight', label: 'Window height (mm)', unit: 'mm', required: true },
+  { name: 'bobbinWidth', label: 'Bobbin winding width (mm)', unit: 'mm', required: true },
+  { name: 'bobbinHeight', label: 'Bobbin winding height (mm)', unit: 'mm', required: true },
+  { name: 'mlt', label: 'Mean length of a turn (mm)', unit: 'mm', required: true },
+  { name: 'surfaceArea', label: 'Outer surface for cooling (cm²)', unit: 'cm²', required: true },
 ];
 
 const parameterControl = (required: boolean) =>
@@ -70,7 +71,7 @@ export class ShapedCoreForm extends UserCoreForm {
   protected fill(core: CatalogueCore): void {
     const shown = (p: (typeof PARAMETERS)[number]) => {
       const si = core[p.name];
-      return si === undefined ? null : Number((si / p.toSi).toPrecision(10));
+      return si === undefined ? null : Number(toDisplay(si, p.unit).toPrecision(10));
     };
     this.form.reset({
       name: core.id,
@@ -91,7 +92,7 @@ export class ShapedCoreForm extends UserCoreForm {
     }
     const v = this.form.getRawValue();
     const si = Object.fromEntries(
-      PARAMETERS.filter((p) => v[p.name] !== null).map((p) => [p.name, (v[p.name] as number) * p.toSi]),
+      PARAMETERS.filter((p) => v[p.name] !== null).map((p) => [p.name, fromDisplay(v[p.name] as number, p.unit)]),
     ) as Record<ParameterName, number>;
     this.send({ kind: 'shape', name: v.name.trim(), family: v.family, ...si, source: v.source.trim() });
   }
