@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_USERS } from '../../server/seed/demo-scenario.ts';
+import { fromDisplay, parseQuantity } from '@shared/units/index';
 import { screenshotPath, seriousAxeFindings, signIn, startHarness, type Harness } from './support/harness.ts';
 
 let h: Harness;
@@ -81,8 +82,10 @@ describe('material library, comparison and cores', () => {
     const deltaB = /ΔB = ([\d.,]+) mT/.exec(point)![1];
     await page.getByRole('button', { name: 'Draw the loss curves there' }).click();
     await page.getByText(`Core-loss density against frequency at ΔB = ${deltaB} mT`).waitFor();
-    const typed = Number(await page.getByLabel('ΔB for the frequency sweep (mT, peak to peak)').inputValue());
-    expect(Math.abs(typed - Number(deltaB.replace(/,/g, '')))).toBeLessThanOrEqual(0.05);
+    // The field holds the same swing, typed back with its unit ("123.4 mT").
+    const typed = parseQuantity(await page.getByLabel('ΔB for the frequency sweep, peak to peak').inputValue(), 'fluxDensity');
+    if (!typed.ok) throw new Error(typed.error);
+    expect(Math.abs(typed.value - fromDisplay(Number(deltaB.replace(/,/g, '')), 'mT'))).toBeLessThanOrEqual(fromDisplay(0.05, 'mT'));
     await context.close();
   }, 120_000);
 

@@ -3,6 +3,7 @@ import type { ComponentFixture } from '@angular/core/testing';
 import type { CompareDesignResponse } from '@shared/schemas/compare';
 import { afterEach, describe, expect, it } from 'vitest';
 
+import { fieldLabelled, typeInto } from '../testing/form-fields';
 import { renderWithHttpTesting } from '../testing/render';
 import { DesignComparison } from './design-comparison';
 
@@ -57,5 +58,29 @@ describe('DesignComparison', () => {
     await fixture.whenStable();
     expect([...page.querySelectorAll('mat-error')].map((e) => e.textContent?.trim())).toEqual(['No construction to compare']);
     expect(page.querySelector('table')).toBeNull();
+  });
+
+  it('reads the typed-in converter with units and sends it in SI', async () => {
+    ({ fixture, http, page } = await renderWithHttpTesting(DesignComparison, {}, { settle: false }));
+    http.expectOne((r) => r.url === '/api/designs').flush({ items: [], total: 0, page: 0, pageSize: 100 });
+    http.expectOne('/api/catalogue/cores').flush({ cores: [] });
+    await fixture.whenStable();
+    [...page.querySelectorAll('button')].find((b) => b.textContent?.includes('A design typed in here'))!.click();
+    await fixture.whenStable();
+    expect(fieldLabelled(page, 'Switching frequency').value).toBe('100 kHz');
+    expect(fieldLabelled(page, 'Vin min').value).toBe('24 V');
+
+    typeInto(page, 'Switching frequency', '250kHz', { leave: true });
+    typeInto(page, 'Vin max', '48');
+    typeInto(page, 'Ripple ratio ΔI/Iout', '40 %');
+    await fixture.whenStable();
+    expect(fieldLabelled(page, 'Switching frequency').value).toBe('250 kHz');
+    [...page.querySelectorAll<HTMLButtonElement>('button[type="submit"]')].find((b) => b.textContent?.includes('Compare on this design'))!.click();
+
+    const request = http.expectOne('/api/compare/design');
+    // 250 kHz = 250 000 Hz, 40 % = 0.4: SI prefixes and per cent (BIPM SI Brochure, 9th ed. — from memory).
+    expect(request.request.body.spec).toEqual({ vinMin: 24, vinMax: 48, vout: 12, ioutMax: 10, frequency: 250e3, rippleRatio: 0.4 });
+    request.flush(RESPONSE);
+    await fixture.whenStable();
   });
 });
