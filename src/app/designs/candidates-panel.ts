@@ -14,6 +14,7 @@ import { Subject, catchError, distinctUntilChanged, map, merge, of, skip, startW
 
 import { errorMessageOf } from '../core/api-error';
 import { candidateRows, type CandidateRow } from './candidate-rows';
+import { candidatesChartOptions } from './candidates-chart';
 import { DesignsApi, type MaterialView } from './designs-api';
 import { percent, show } from './format';
 
@@ -161,34 +162,7 @@ export class CandidatesPanel {
     }
   });
 
-  protected readonly chart = computed<EChartsCoreOption>(() => {
-    const feasible = this.rows().filter((r) => r.feasible);
-    if (!feasible.length) return {};
-    const point = (r: CandidateRow) => ({ value: [r.volume! * 1e6, r.totalLoss!], name: `${r.coreId} · ${r.materialName} · ${r.wireId}`, key: r.key });
-    const front = feasible.filter((r) => r.pareto).sort((a, b) => a.volume! - b.volume!);
-    const selected = this.selectedKey();
-    return {
-      animation: false,
-      grid: { left: 56, right: 16, top: 32, bottom: 44 },
-      legend: { top: 0 },
-      tooltip: { trigger: 'item', formatter: (p: { name: string; value: number[] }) => `${p.name}<br>${p.value[1].toFixed(3)} W, ${p.value[0].toFixed(2)} cm³` },
-      xAxis: { type: 'value', name: 'Core volume (cm³)', nameLocation: 'middle', nameGap: 28, scale: true },
-      yAxis: { type: 'value', name: 'Total loss (W)', scale: true },
-      series: [
-        { type: 'scatter', name: 'Candidates', data: feasible.filter((r) => !r.pareto).map(point), symbolSize: 8 },
-        { type: 'line', name: 'Pareto front', data: front.map(point), symbolSize: 12, symbol: 'diamond', lineStyle: { type: 'dashed' } },
-        {
-          type: 'scatter',
-          name: 'Selected',
-          data: feasible.filter((r) => r.key === selected).map(point),
-          symbolSize: 18,
-          symbol: 'circle',
-          itemStyle: { color: 'transparent', borderWidth: 3, borderColor: '#d32f2f' },
-          z: 5,
-        },
-      ],
-    };
-  });
+  protected readonly chart = computed<EChartsCoreOption>(() => candidatesChartOptions(this.rows(), this.selectedKey()));
 
   protected chartInit(instance: EChartsType): void {
     this.chartInstance = instance;
