@@ -17,6 +17,7 @@ import type {
   UpdateRevisionRequest,
 } from '@shared/schemas/designs';
 import { storedEvaluation } from '@shared/schemas/designs';
+import { distinct, isStoredIdText } from '@shared/schemas/ids';
 import { formatQuantity } from '@shared/units/index';
 import type { AuditService } from '../audit/audit.service.ts';
 import type { CalcService } from '../calc/calc.service.ts';
@@ -219,9 +220,16 @@ export class DesignsService {
     return new Map(rows.map((r) => [String(r.id), r.name]));
   }
 
+  /**
+   * The stored materials a saved spec searches: its own list, else every current material. Ids in the list
+   * that are not stored ids (a spec saved before ids were range-checked may hold "99999999999") or name no
+   * stored material are left out, so such a design still exports its candidates.
+   */
   async searchMaterialIds(spec: DesignSpec): Promise<string[]> {
-    if (spec.materialIds?.length) return spec.materialIds;
-    return (await this.materials.listCurrent()).map((r) => String(r.id));
+    if (!spec.materialIds?.length) return (await this.materials.listCurrent()).map((r) => String(r.id));
+    const wanted = distinct(spec.materialIds.filter(isStoredIdText).map(Number));
+    const stored = new Set((await this.materials.findByIds(wanted)).map((r) => r.id));
+    return wanted.filter((id) => stored.has(id)).map(String);
   }
 
   async mustFind(id: number): Promise<DesignWithOwner> {

@@ -19,11 +19,17 @@ export interface CsvTableFormat<C extends string> {
 }
 
 export interface CsvRecord<C extends string = string> {
-  /** Row number as a spreadsheet shows it: the header is row 1. */
+  /** The line of the file the record starts on (the header is line 1), as an editor or spreadsheet shows it. */
   row: number;
   cells: Partial<Record<C, string>>;
   /** Problems found before validation (a wrong number of cells). */
   shapeProblem?: string;
+}
+
+/** A record as the parser answers with `info`: its cells and the line it ends on. */
+interface ParsedRecord {
+  record: string[];
+  info: { lines: number };
 }
 
 const fileProblem = (message: string, fields: Record<string, string> = { file: message }) => badRequest(message, fields);
@@ -42,8 +48,10 @@ export function decodeCsvText(buffer: Buffer): string {
 /** Header, delimiter and size checks, then one record per data row with its row number. */
 export function parseCsvTable<C extends string>(text: string, format: CsvTableFormat<C>): CsvRecord<C>[] {
   const { noun, maxRows } = format;
-  const withoutBom = text.replace(/^\uFEFF/, '');
-  const firstLine = withoutBom.split(/\r?\n/, 1)[0] ?? '';
+  // Spreadsheets and editors mix CRLF, LF and lone CR line endings; the parser expects one kind, so every
+  // line ending becomes LF first (inside quoted cells too). Line numbers are unchanged by this.
+  const withoutBom = text.replace(/^\uFEFF/, '').replace(/\r\n?/g, '\n');
+  const firstLine = withoutBom.split('\n', 1)[0] ?? '';
   if (withoutBom.trim() === '') throw fileProblem('The file is empty.');
   if (!firstLine.includes(',')) {
     const other = [';', '\t', '|'].find((d) => firstLine.includes(d));
@@ -55,16 +63,19 @@ export function parseCsvTable<C extends string>(text: string, format: CsvTableFo
     );
   }
 
-  let table: string[][];
+  let table: ParsedRecord[];
   try {
+    // The limit counts records, not lines: a quoted cell may span lines and blank lines are skipped. One
+    // record more than the limit is read so that a file over it is refused as a whole, never cut short.
     table = parse(withoutBom, {
       bom: true,
       delimiter: ',',
       relax_column_count: true,
       skip_empty_lines: true,
       max_record_size: MAX_RECORD_CHARACTERS,
-      to_line: maxRows + 2,
-    }) as string[][];
+      info: true,
+      to: maxRows + 2,
+    }) as unknown as ParsedRecord[];
   } catch (error) {
     const e = error as { code?: string; message?: string; lines?: number };
     const line = e.lines ? ` near line ${e.lines}` : '';
@@ -77,10 +88,11 @@ export function parseCsvTable<C extends string>(text: string, format: CsvTableFo
     throw fileProblem(`The file cannot be read${line}: ${reason}.`, { file: `${reason}${line}` });
   }
 
-  const [header, ...data] = table;
+  const [headerRecord, ...data] = table;
+  const header = headerRecord?.record;
   if (!header) throw fileProblem('The file is empty.');
   if (data.length > maxRows) {
-    throw fileProblem(`The file has more than ${maxRows} ${noun} rows; split it into smaller files.`);
+    throw fileProblem(`The file has more than ${maxRows} ${noun} rows (the limit is ${maxRows} per file); nothing was imported. Split it into smaller files.`);
   }
   const columns = header.map((c) => c.trim().toLowerCase());
   const headerFields: Record<string, string> = {};
@@ -94,14 +106,19 @@ export function parseCsvTable<C extends string>(text: string, format: CsvTableFo
   }
   if (!data.length) throw fileProblem(`The file has a header row but no ${noun} rows.`, { file: `No ${noun} rows` });
 
-  return data.map((cells, index) => {
-    const record: CsvRecord<C> = { row: index + 2, cells: {} };
+  return data.map(({ record: cells, info }) => {
+    const record: CsvRecord<C> = { row: firstLineOf(cells, info.lines), cells: {} };
     columns.forEach((c, i) => {
       record.cells[c as C] = cells[i] ?? '';
     });
     if (cells.length !== columns.length) record.shapeProblem = `has ${cells.length} cells; the header has ${columns.length}`;
     return record;
   });
+}
+
+/** The line a record starts on: the parser reports the line it ends on, less the line breaks inside its cells. */
+function firstLineOf(cells: readonly string[], lastLine: number): number {
+  return lastLine - cells.reduce((breaks, cell) => breaks + (cell.match(/\n/g)?.length ?? 0), 0);
 }
 
 /** CSV text of rows in the format's column order; formula-like cells are escaped for spreadsheets. */

@@ -22,7 +22,7 @@ export function materialLibraryRouter(service: MaterialsService): Router {
 
   router.get('/export.csv', async (req, res) => {
     const { ids } = parseQuery(materialExportQuerySchema, req);
-    const csv = await service.exportCsv(ids ? ids.split(',').map(Number) : undefined);
+    const csv = await service.exportCsv(ids?.map(Number));
     res.attachment('gapwright-materials.csv').type('text/csv; charset=utf-8').send(csv);
   });
 

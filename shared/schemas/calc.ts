@@ -2,6 +2,7 @@
 // Every number is finite (zod 4 rejects NaN and ±Infinity); messages name the field and the allowed range.
 import * as z from 'zod';
 import { CORE_FAMILIES, MATERIAL_FAMILIES } from '@shared/engine/types';
+import { storedIdTextSchema, uniqueListSchema } from './ids';
 
 function rangeNumber(field: string, min: number, max: number, unit: string, description: string) {
   const range = `${field} must be between ${min} and ${max}${unit ? ` ${unit}` : ''}`;
@@ -109,8 +110,8 @@ export const designLimitsSchema = z
       .meta({ description: 'Most round wires in hand before litz is used (1…50)' })
       .optional(),
     minPermeabilityAtPeak: rangeNumber('minPermeabilityAtPeak', 0, 1, '', 'Smallest L(Ipk)/L0 of a powder core').optional(),
-    allowedFamilies: z.array(z.enum(CORE_FAMILIES)).max(CORE_FAMILIES.length).meta({ description: 'Core families to consider' }).optional(),
-    allowedMaterials: z.array(z.string().min(1).max(80)).max(200).meta({ description: 'Material ids to consider' }).optional(),
+    allowedFamilies: uniqueListSchema(z.enum(CORE_FAMILIES), CORE_FAMILIES.length, 'allowedFamilies').meta({ description: 'Core families to consider' }).optional(),
+    allowedMaterials: uniqueListSchema(z.string().min(1).max(80), 200, 'allowedMaterials').meta({ description: 'Material ids to consider' }).optional(),
   })
   .strict()
   .meta({ description: 'Design limits; omitted fields take the engine defaults' });
@@ -206,10 +207,10 @@ export const searchRequestSchema = z
   .object({
     spec: converterSpecSchema,
     limits: designLimitsSchema.optional(),
-    materialIds: z.array(idSchema).max(200).meta({ description: 'Catalogue material ids' }).optional(),
+    materialIds: uniqueListSchema(storedIdTextSchema(), 200, 'materialIds').meta({ description: 'Catalogue material ids' }).optional(),
     materials: z.array(inlineMaterialSchema).max(20).meta({ description: 'Inline materials' }).optional(),
-    coreIds: z.array(idSchema).max(2000).meta({ description: 'Restrict to these cores' }).optional(),
-    families: z.array(z.enum(CORE_FAMILIES)).max(CORE_FAMILIES.length).meta({ description: 'Restrict to these core families' }).optional(),
+    coreIds: uniqueListSchema(idSchema, 2000, 'coreIds').meta({ description: 'Restrict to these cores' }).optional(),
+    families: uniqueListSchema(z.enum(CORE_FAMILIES), CORE_FAMILIES.length, 'families').meta({ description: 'Restrict to these core families' }).optional(),
     rankBy: rankBySchema.default('loss'),
     limit: z
       .number({ error: 'limit must be a whole number' })
@@ -265,7 +266,7 @@ export const evaluateRequestSchema = z
     spec: converterSpecSchema,
     limits: designLimitsSchema.optional(),
     coreId: idSchema.meta({ description: 'Catalogue core id' }),
-    materialId: idSchema.meta({ description: 'Catalogue material id' }).optional(),
+    materialId: storedIdTextSchema().meta({ description: 'Catalogue material id' }).optional(),
     material: inlineMaterialSchema.optional(),
     turns: autoOr(
       z

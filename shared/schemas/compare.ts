@@ -2,13 +2,14 @@
 // with every current material. SI units (Hz, T).
 import * as z from 'zod';
 import { converterSpecSchema, designLimitsSchema, wireRequestSchema } from './calc';
+import { storedIdSchema, storedIdTextSchema, uniqueListSchema } from './ids';
 
 const finite = (field: string) => z.number({ error: `${field} must be a finite number` });
 function range(field: string, min: number, max: number, unit: string) {
   const message = `${field} must be between ${min} and ${max}${unit ? ` ${unit}` : ''}`;
   return finite(field).min(min, { error: message }).max(max, { error: message });
 }
-const materialIdSchema = z.string().trim().regex(/^\d+$/, 'must be a stored material id').max(12);
+const materialIdSchema = storedIdTextSchema();
 
 export const sweepRangeSchema = (field: string, min: number, max: number, unit: string) =>
   z
@@ -22,7 +23,7 @@ const { deltaB: DELTA_B, frequency: FREQUENCY } = CURVE_LIMITS;
 
 export const compareCurvesRequestSchema = z
   .object({
-    materialIds: z.array(materialIdSchema).min(1, 'Choose at least one material').max(12, 'Compare at most 12 materials'),
+    materialIds: uniqueListSchema(materialIdSchema, 12, 'materialIds', 1),
     deltaB: range('deltaB', DELTA_B.min, DELTA_B.max, 'T').default(0.2).meta({ description: 'Peak-to-peak flux swing of the frequency sweep (T)' }),
     frequency: range('frequency', FREQUENCY.min, FREQUENCY.max, 'Hz').default(100e3).meta({ description: 'Frequency of the flux sweep (Hz)' }),
     duty: finite('duty').gt(0, { error: 'duty must be between 0 and 1 (exclusive)' }).lt(1, { error: 'duty must be between 0 and 1 (exclusive)' }).default(0.5),
@@ -65,7 +66,7 @@ export const compareDesignRequestSchema = z
     coreId: z.string().trim().min(1).max(80).meta({ description: 'Catalogue or user core id' }),
     turns: z.number({ error: 'turns must be a whole number' }).int('turns must be a whole number').min(1, 'turns must be between 1 and 2000').max(2000, 'turns must be between 1 and 2000'),
     wire: wireRequestSchema,
-    materialIds: z.array(materialIdSchema).max(200).optional().meta({ description: 'Restrict to these materials (default: every current one)' }),
+    materialIds: uniqueListSchema(materialIdSchema, 200, 'materialIds').optional().meta({ description: 'Restrict to these materials (default: every current one)' }),
   })
   .strict()
   .meta({ description: 'One design (same core, turns, wire) evaluated with every current material; gap re-solved per material' });
@@ -73,9 +74,9 @@ export type CompareDesignRequest = z.infer<typeof compareDesignRequestSchema>;
 
 export const compareSavedDesignRequestSchema = z
   .object({
-    designId: z.number({ error: 'designId must be a design id' }).int('designId must be a design id').min(1, 'designId must be a design id').max(2_147_483_647, 'designId must be a design id'),
+    designId: storedIdSchema('design id'),
     revision: z.number({ error: 'revision must be a revision number' }).int('revision must be a revision number').min(1, 'revision must be a revision number').max(100_000, 'revision must be a revision number'),
-    materialIds: z.array(materialIdSchema).max(200).optional().meta({ description: "Restrict to these materials (default: every current one plus the revision's own)" }),
+    materialIds: uniqueListSchema(materialIdSchema, 200, 'materialIds').optional().meta({ description: "Restrict to these materials (default: every current one plus the revision's own)" }),
   })
   .strict()
   .meta({ description: "A saved revision's core, turns and wire evaluated with every current material; gap re-solved per material" });

@@ -4,18 +4,19 @@ import * as z from 'zod';
 import type { EvaluationResult } from '@shared/engine/evaluate';
 import { CORE_FAMILIES, type WireOption } from '@shared/engine/types';
 import { converterSpecSchema, designLimitsSchema, wireRequestSchema } from './calc';
+import { storedIdSchema, storedIdTextSchema, uniqueListSchema } from './ids';
 
 export const DESIGN_STATUSES = ['draft', 'in_review', 'approved', 'released', 'superseded'] as const;
 export type DesignStatus = (typeof DESIGN_STATUSES)[number];
 
-const materialIdSchema = z.string().trim().regex(/^[1-9]\d{0,9}$/, { error: 'Not a material id' });
+const materialIdSchema = storedIdTextSchema();
 
 export const designSpecSchema = z
   .object({
     converter: converterSpecSchema,
     limits: designLimitsSchema.optional(),
-    families: z.array(z.enum(CORE_FAMILIES)).max(CORE_FAMILIES.length).meta({ description: 'Core families to search' }).optional(),
-    materialIds: z.array(materialIdSchema).max(200).meta({ description: 'Materials to search (stored material ids)' }).optional(),
+    families: uniqueListSchema(z.enum(CORE_FAMILIES), CORE_FAMILIES.length, 'families').meta({ description: 'Core families to search' }).optional(),
+    materialIds: uniqueListSchema(materialIdSchema, 200, 'materialIds').meta({ description: 'Materials to search (stored material ids)' }).optional(),
   })
   .strict()
   .meta({ description: 'What the inductor must do: the converter, the limits, and which cores and materials may be used' });
@@ -75,14 +76,14 @@ export type UpdateRevisionRequest = z.infer<typeof updateRevisionRequestSchema>;
 
 export const newRevisionRequestSchema = z
   .object({
-    from: z.number().int().min(1).optional().meta({ description: 'Revision to start from (default: the latest)' }),
+    from: storedIdSchema('revision number').optional().meta({ description: 'Revision to start from (default: the latest)' }),
     note: z.string().trim().max(2000).optional(),
   })
   .strict();
 export type NewRevisionRequest = z.infer<typeof newRevisionRequestSchema>;
 
 export const copyDesignRequestSchema = z
-  .object({ title: titleSchema.optional(), revision: z.number().int().min(1).optional() })
+  .object({ title: titleSchema.optional(), revision: storedIdSchema('revision number').optional() })
   .strict();
 export type CopyDesignRequest = z.infer<typeof copyDesignRequestSchema>;
 

@@ -4,6 +4,7 @@
 import * as z from 'zod';
 import { steinmetzKFromSi, steinmetzKToSi } from '@shared/engine/core-loss';
 import { MATERIAL_FAMILIES, type CoreMaterial, type MaterialFamily } from '@shared/engine/types';
+import { storedIdTextSchema, uniqueListSchema } from './ids';
 
 export const MATERIAL_UNIT_SETS = ['W/m3-Hz-T', 'mW/cm3-kHz-mT'] as const;
 export type MaterialUnitSet = (typeof MATERIAL_UNIT_SETS)[number];
@@ -306,7 +307,15 @@ export interface ImportPreview {
 }
 
 export const materialExportQuerySchema = z
-  .object({ ids: z.string().regex(/^\d+(,\d+)*$/, 'ids must be a comma-separated list of material ids').max(20000).optional() })
+  .object({
+    ids: z
+      .string()
+      .max(20000, { error: 'ids must be a comma-separated list of material ids' })
+      .transform((list) => list.split(','))
+      .pipe(uniqueListSchema(storedIdTextSchema(), 1000, 'ids'))
+      .meta({ description: 'Comma-separated material ids (at most 1000 distinct)' })
+      .optional(),
+  })
   .strict();
 
 /** A stored material version as GET /api/materials lists it: the engine's fields plus version, provenance and state. */

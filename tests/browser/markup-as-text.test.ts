@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_USERS } from '../../server/seed/demo-scenario.ts';
 import { screenshotPath, signIn, startHarness, type Harness } from './support/harness.ts';
+import { apiWrite, apiWriteJson } from './support/page-api.ts';
 
 // Names are shown as text: markup typed into a display name or a design title never becomes HTML.
 const HOSTILE_NAME = '<img src=x onerror="window.__injected=1"><b>Mallory</b>';
@@ -13,10 +14,6 @@ beforeAll(async () => {
 afterAll(() => h?.close());
 
 const user = (role: string) => DEMO_USERS.find((u) => u.role === role)!;
-
-/** A write through the API from inside the signed-in page, as the app itself would send it. */
-const apiWrite = (method: string, url: string, body: unknown) =>
-  `fetch(${JSON.stringify(url)}, { method: ${JSON.stringify(method)}, headers: { 'Content-Type': 'application/json', 'X-XSRF-TOKEN': decodeURIComponent(/XSRF-TOKEN=([^;]+)/.exec(document.cookie)[1]) }, body: ${JSON.stringify(JSON.stringify(body))} }).then((r) => r.status)`;
 
 describe('markup in names', () => {
   it('shows a display name with markup as text in the users table', async () => {
@@ -35,7 +32,7 @@ describe('markup in names', () => {
   it('shows a design title with markup as text in the designs list and on the design page', async () => {
     const { context, page } = await h.newPage();
     await signIn(page, user('engineer').username, user('engineer').password);
-    const copied = await page.evaluate(`${apiWrite('POST', '/api/designs/1/copy', { title: HOSTILE_TITLE }).replace('.then((r) => r.status)', '.then((r) => r.json())')}`);
+    const copied = await page.evaluate(apiWriteJson('POST', '/api/designs/1/copy', { title: HOSTILE_TITLE }));
     const id = (copied as { id: number }).id;
     expect(id).toBeGreaterThan(0);
     await page.goto('/designs');

@@ -8,7 +8,6 @@ import { MatSort, MatSortModule } from '@angular/material/sort';
 import { MatTableDataSource, MatTableModule } from '@angular/material/table';
 import type { SearchCandidate, SearchResult } from '@shared/engine/index';
 import type { DesignSpec } from '@shared/schemas/designs';
-import { axisIn } from '@shared/units/index';
 import type { ECElementEvent, EChartsCoreOption, EChartsType } from 'echarts/core';
 import { NgxEchartsDirective } from 'ngx-echarts';
 import { Subject, catchError, distinctUntilChanged, map, merge, of, skip, startWith, switchMap } from 'rxjs';
@@ -16,6 +15,7 @@ import { Subject, catchError, distinctUntilChanged, map, merge, of, skip, startW
 import { errorMessageOf } from '../core/api-error';
 import { QuantityPipe } from '../units/quantity';
 import { candidateRows, type CandidateRow } from './candidate-rows';
+import { VOLUME_AXIS, candidatesChartOptions } from './candidates-chart';
 import { DesignsApi, type MaterialView } from './designs-api';
 import { percent, show } from './format';
 
@@ -34,7 +34,6 @@ interface PointPosition {
 }
 
 /** The scatter chart's x axis: core volume in cm³. */
-const VOLUME_AXIS = axisIn('cm³');
 
 @Component({
   selector: 'gw-candidates-panel',
@@ -166,34 +165,7 @@ export class CandidatesPanel {
     }
   });
 
-  protected readonly chart = computed<EChartsCoreOption>(() => {
-    const feasible = this.rows().filter((r) => r.feasible);
-    if (!feasible.length) return {};
-    const point = (r: CandidateRow) => ({ value: [VOLUME_AXIS.toAxis(r.volume!), r.totalLoss!], name: `${r.coreId} · ${r.materialName} · ${r.wireId}`, key: r.key });
-    const front = feasible.filter((r) => r.pareto).sort((a, b) => a.volume! - b.volume!);
-    const selected = this.selectedKey();
-    return {
-      animation: false,
-      grid: { left: 56, right: 16, top: 32, bottom: 44 },
-      legend: { top: 0 },
-      tooltip: { trigger: 'item', formatter: (p: { name: string; value: number[] }) => `${p.name}<br>${p.value[1].toFixed(3)} W, ${p.value[0].toFixed(2)} cm³` },
-      xAxis: { type: 'value', name: `Core volume (${VOLUME_AXIS.unit})`, nameLocation: 'middle', nameGap: 28, scale: true },
-      yAxis: { type: 'value', name: 'Total loss (W)', scale: true },
-      series: [
-        { type: 'scatter', name: 'Candidates', data: feasible.filter((r) => !r.pareto).map(point), symbolSize: 8 },
-        { type: 'line', name: 'Pareto front', data: front.map(point), symbolSize: 12, symbol: 'diamond', lineStyle: { type: 'dashed' } },
-        {
-          type: 'scatter',
-          name: 'Selected',
-          data: feasible.filter((r) => r.key === selected).map(point),
-          symbolSize: 18,
-          symbol: 'circle',
-          itemStyle: { color: 'transparent', borderWidth: 3, borderColor: '#d32f2f' },
-          z: 5,
-        },
-      ],
-    };
-  });
+  protected readonly chart = computed<EChartsCoreOption>(() => candidatesChartOptions(this.rows(), this.selectedKey()));
 
   protected chartInit(instance: EChartsType): void {
     this.chartInstance = instance;

@@ -1,5 +1,6 @@
 import type { EChartsCoreOption } from 'echarts/core';
 
+import { tooltipLines } from '../charts/chart-text';
 import type { PredictionSample } from './shop-api';
 
 /** Scatter of measured/predicted inductance (x) against measured/predicted DCR (y); 1 is a perfect prediction. */
@@ -14,7 +15,7 @@ export function accuracyChartOptions(units: readonly PredictionSample[]): EChart
     tooltip: {
       trigger: 'item',
       formatter: (p: { name: string; value: [number, number] }) =>
-        `${p.name}<br/>L ratio ${p.value[0].toFixed(3)}<br/>DCR ratio ${p.value[1].toFixed(3)}`,
+        tooltipLines(p.name, `L ratio ${p.value[0].toFixed(3)}`, `DCR ratio ${p.value[1].toFixed(3)}`),
     },
     legend: { bottom: 0 },
     grid: { left: 64, right: 24, top: 40, bottom: 64 },

@@ -1,0 +1,32 @@
+import { describe, expect, it } from 'vitest';
+
+import { accuracyChartOptions } from './accuracy-chart';
+import type { PredictionSample } from './shop-api';
+
+const sample: PredictionSample = {
+  orderNumber: '<b>O-1</b>',
+  designNumber: '<img src=x onerror="window.__injected=1">',
+  revision: 2,
+  material: '<meta http-equiv="refresh" content="0;url=/x">',
+  core: 'R 25',
+  predictedInductance: 1e-4,
+  measuredInductance: 1.02e-4,
+  predictedResistance20: 0.01,
+  measuredResistance20: 0.011,
+  passed: true,
+  inductanceRatio: 1.02,
+  resistanceRatio: 1.1,
+};
+
+describe('accuracy chart', () => {
+  it('shows the order and design names with markup as text in the tooltip', () => {
+    const options = accuracyChartOptions([sample]) as {
+      series: { data: { name: string; value: [number, number] }[] }[];
+      tooltip: { formatter: (p: { name: string; value: [number, number] }) => string };
+    };
+    const host = document.createElement('div');
+    host.innerHTML = options.tooltip.formatter(options.series[0].data[0]);
+    expect(host.querySelectorAll('img, b').length).toBe(0);
+    expect(host.textContent).toBe('<b>O-1</b> · <img src=x onerror="window.__injected=1"> rev 2L ratio 1.020DCR ratio 1.100');
+  });
+});
