@@ -40,7 +40,9 @@ import { UserCoresService } from './catalogue/user-cores.service.ts';
 import { buildOpenApiDocument } from './openapi/openapi.ts';
 import type { AppError } from './http/errors.ts';
 import { apiNotFound, errorMiddleware } from './http/errors.ts';
-import { securityHeaders } from './http/security-headers.ts';
+import { noStore, securityHeaders } from './http/security-headers.ts';
+import { storableInput } from './http/storable-input.ts';
+import { signedInForWrites } from './http/access.ts';
 import { staticAppRouter } from './http/static-app.ts';
 import { adminUsersRouter } from './users/admin-users.router.ts';
 import { UsersRepository } from './users/users.repository.ts';
@@ -120,11 +122,14 @@ export function createApp(deps: AppDeps) {
 
   const api = express.Router();
   api.use(express.json({ limit: '1mb', strict: true }));
+  api.use(storableInput);
+  api.use(noStore);
   api.use(sessions.middleware);
   api.use(absoluteLifetime(config));
   api.use(idleRenewal(config));
   api.use(passport.initialize());
   api.use(passport.session());
+  api.use(signedInForWrites);
   api.use(csrf.protection);
   api.use('/auth', authRouter({ config, passport, users, audit, issueCsrfToken: csrf.issueToken }));
   api.use('/account', accountRouter(users));

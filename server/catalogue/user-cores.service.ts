@@ -117,9 +117,12 @@ export class UserCoresService {
     const shape = shapeFromRequest(request);
     await this.assertNameFree(request.name);
     const lineage = newLineage(request.name, Date.now().toString(36), new Set());
-    const row = await this.repo.addVersion({ lineage, version: 1, name: request.name, family: shape.family, shape, createdBy: actor.id, retired: false });
+    const row = await this.repo.db.transaction(async (tx) => {
+      const added = await this.repo.addVersion(tx, { lineage, version: 1, name: request.name, family: shape.family, shape, createdBy: actor.id, retired: false });
+      await this.audit.record({ actorId: actor.id, action: 'core.added', target: request.name, details: { id: added.id } }, tx);
+      return added;
+    });
     await this.refresh();
-    await this.audit.record({ actorId: actor.id, action: 'core.added', target: request.name, details: { id: row.id } });
     return listed(shape, 'user', { ...row, createdByName: actor.displayName });
   }
 
@@ -129,20 +132,27 @@ export class UserCoresService {
     if (!previous.current) throw conflict('Only the current version of a core can be edited.', { id: 'Not the current version' });
     const shape = shapeFromRequest(request);
     await this.assertNameFree(request.name, previous.lineage);
-    const row = await this.repo.addVersion(
-      { lineage: previous.lineage, version: previous.version + 1, name: request.name, family: shape.family, shape, createdBy: actor.id, retired: previous.retired },
-      previous.id,
-    );
+    const row = await this.repo.db.transaction(async (tx) => {
+      const added = await this.repo.addVersion(
+        tx,
+        { lineage: previous.lineage, version: previous.version + 1, name: request.name, family: shape.family, shape, createdBy: actor.id, retired: previous.retired },
+        previous.id,
+      );
+      await this.audit.record({ actorId: actor.id, action: 'core.edited', target: request.name, details: { id: added.id, version: added.version } }, tx);
+      return added;
+    });
     await this.refresh();
-    await this.audit.record({ actorId: actor.id, action: 'core.edited', target: request.name, details: { id: row.id, version: row.version } });
     return listed(shape, 'user', { ...row, createdByName: actor.displayName });
   }
 
   async setRetired(id: number, retired: boolean, actor: Actor) {
-    const row = await this.repo.setRetired(id, retired);
-    if (!row) throw notFound(`No current user core with id ${id}.`);
+    const row = await this.repo.db.transaction(async (tx) => {
+      const changed = await this.repo.setRetired(id, retired, tx);
+      if (!changed) throw notFound(`No current user core with id ${id}.`);
+      await this.audit.record({ actorId: actor.id, action: retired ? 'core.retired' : 'core.unretired', target: changed.name, details: { id } }, tx);
+      return changed;
+    });
     await this.refresh();
-    await this.audit.record({ actorId: actor.id, action: retired ? 'core.retired' : 'core.unretired', target: row.name, details: { id } });
     return listed(row.shape as CoreShape, 'user', { ...row, createdByName: null });
   }
 
@@ -175,6 +185,7 @@ export class UserCoresService {
   async commit(file: UploadedFile, rawDecisions: unknown, actor: Actor) {
     const decisions = parseWith(importDecisionsSchema, rawDecisions ?? {});
     const byLowerName = new Map(Object.entries(decisions).map(([name, d]) => [name.trim().toLowerCase(), d] as [string, ImportDecision]));
+    const fileName = file.originalname.slice(0, 200) || 'upload.csv';
     const result = await this.repo.db.transaction(async (tx) => {
       const analysis = this.analyse(file, await this.repo.currentByLowerName(tx));
       if (analysis.rows.some((r) => r.status === 'error')) throw rowErrors(analysis.rows);
@@ -200,10 +211,10 @@ export class UserCoresService {
       }
       await this.repo.supersede(tx, superseded);
       const inserted = await this.repo.insertVersions(tx, toInsert);
-      return { created: toInsert.length - superseded.length, versioned: superseded.length, skipped, coreIds: inserted.map((r) => r.id) };
+      const created = toInsert.length - superseded.length;
+      await this.audit.record({ actorId: actor.id, action: 'cores.imported', target: fileName, details: { created, versioned: superseded.length, skipped } }, tx);
+      return { created, versioned: superseded.length, skipped, coreIds: inserted.map((r) => r.id) };
     });
-    const fileName = file.originalname.slice(0, 200) || 'upload.csv';
-    await this.audit.record({ actorId: actor.id, action: 'cores.imported', target: fileName, details: { created: result.created, versioned: result.versioned, skipped: result.skipped } });
     await this.refresh();
     return { fileName, ...result };
   }

@@ -108,13 +108,17 @@ export class MaterialsService {
       if (analysis.rows.some((r) => r.status === 'error')) throw rowErrors(analysis.rows);
       const undecided = undecidedNames(analysis.valid, (lowerName) => byLowerName.has(lowerName));
       if (undecided) throw undecided;
-      return this.write(tx, file, analysis, byLowerName, actor);
-    });
-    await this.audit.record({
-      actorId: actor.id,
-      action: 'materials.imported',
-      target: file.originalname.slice(0, 200),
-      details: { importId: result.importId, created: result.created, versioned: result.versioned, skipped: result.skipped },
+      const written = await this.write(tx, file, analysis, byLowerName, actor);
+      await this.audit.record(
+        {
+          actorId: actor.id,
+          action: 'materials.imported',
+          target: file.originalname.slice(0, 200),
+          details: { importId: written.importId, created: written.created, versioned: written.versioned, skipped: written.skipped },
+        },
+        tx,
+      );
+      return written;
     });
     return result;
   }
@@ -178,19 +182,23 @@ export class MaterialsService {
       const [insertedId] = await this.repo.insertVersions(tx, [
         { ...values, lineage: row.lineage, version: row.version + 1, retired: row.retired, importId: null, createdBy: actor.id },
       ]);
-      return (await this.repo.findById(insertedId!, tx))!;
+      const inserted = (await this.repo.findById(insertedId!, tx))!;
+      await this.audit.record({ actorId: actor.id, action: 'material.edited', target: inserted.name, details: { id: inserted.id, version: inserted.version } }, tx);
+      return inserted;
     });
-    await this.audit.record({ actorId: actor.id, action: 'material.edited', target: result.name, details: { id: result.id, version: result.version } });
     return materialDetail({ ...result, createdByName: actor.displayName });
   }
 
   async setRetired(id: number, retired: boolean, actor: Actor) {
-    const row = await this.repo.setRetired(id, retired);
-    if (!row) {
-      if (await this.repo.findById(id)) throw conflict('Only the current version of a material can be retired or restored.', { id: 'Not the current version' });
-      throw notFound(`No material with id ${id}.`);
-    }
-    await this.audit.record({ actorId: actor.id, action: retired ? 'material.retired' : 'material.unretired', target: row.name, details: { id } });
+    const row = await this.repo.db.transaction(async (tx) => {
+      const changed = await this.repo.setRetired(id, retired, tx);
+      if (!changed) {
+        if (await this.repo.findById(id, tx)) throw conflict('Only the current version of a material can be retired or restored.', { id: 'Not the current version' });
+        throw notFound(`No material with id ${id}.`);
+      }
+      await this.audit.record({ actorId: actor.id, action: retired ? 'material.retired' : 'material.unretired', target: changed.name, details: { id } }, tx);
+      return changed;
+    });
     return materialDetail({ ...row, createdByName: null });
   }
 }

@@ -1,6 +1,7 @@
 // Requests of the material comparison: loss curves of several materials, and one design's losses
 // with every current material. SI units (Hz, T).
 import * as z from 'zod';
+import { text } from './text';
 import { converterSpecSchema, designLimitsSchema, wireRequestSchema } from './calc';
 
 const finite = (field: string) => z.number({ error: `${field} must be a finite number` });
@@ -8,7 +9,7 @@ function range(field: string, min: number, max: number, unit: string) {
   const message = `${field} must be between ${min} and ${max}${unit ? ` ${unit}` : ''}`;
   return finite(field).min(min, { error: message }).max(max, { error: message });
 }
-const materialIdSchema = z.string().trim().regex(/^\d+$/, 'must be a stored material id').max(12);
+const materialIdSchema = text().trim().regex(/^\d+$/, 'must be a stored material id').max(12);
 
 export const sweepRangeSchema = (field: string, min: number, max: number, unit: string) =>
   z
@@ -58,7 +59,7 @@ export const compareDesignRequestSchema = z
   .object({
     spec: converterSpecSchema,
     limits: designLimitsSchema.optional(),
-    coreId: z.string().trim().min(1).max(80).meta({ description: 'Catalogue or user core id' }),
+    coreId: text().trim().min(1).max(80).meta({ description: 'Catalogue or user core id' }),
     turns: z.number({ error: 'turns must be a whole number' }).int('turns must be a whole number').min(1, 'turns must be between 1 and 2000').max(2000, 'turns must be between 1 and 2000'),
     wire: wireRequestSchema,
     materialIds: z.array(materialIdSchema).max(200).optional().meta({ description: 'Restrict to these materials (default: every current one)' }),
