@@ -2,6 +2,7 @@ import express, { type Request } from 'express';
 import type pg from 'pg';
 import type { Logger } from 'pino';
 import { pinoHttp } from 'pino-http';
+import { logSerializers, withoutQueryValues } from './logger.ts';
 import { accountRouter } from './account/account.router.ts';
 import { auditRouter } from './audit/audit.router.ts';
 import { AuditRepository } from './audit/audit.repository.ts';
@@ -107,6 +108,7 @@ export function createApp(deps: AppDeps) {
   app.use(
     pinoHttp({
       logger,
+      serializers: logSerializers,
       redact: ['req.headers.cookie', 'req.headers["x-xsrf-token"]', 'res.headers["set-cookie"]'],
       customLogLevel: (_req, res, err) => (err || res.statusCode >= 500 ? 'error' : 'info'),
       autoLogging: { ignore: (req) => !req.url?.startsWith('/api') },
@@ -163,7 +165,7 @@ export function createApp(deps: AppDeps) {
       .catch((e: unknown) => logger.warn({ err: e }, 'could not record an access refusal'));
   app.use(
     errorMiddleware((err, status) => {
-      if (status >= 500) logger.error({ err }, 'request failed');
+      if (status >= 500) logger.error({ err: withoutQueryValues(err) }, 'request failed');
     }, recordRefusal),
   );
 

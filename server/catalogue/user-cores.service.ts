@@ -24,6 +24,7 @@ import {
 } from '../http/csv-table.ts';
 import type { UploadedFile } from '../http/csv-upload.ts';
 import { badRequest, conflict, fieldErrorsFromZod, notFound } from '../http/errors.ts';
+import { nameKey, sameName } from '../http/name-key.ts';
 import { parseWith } from '../http/validate.ts';
 import { lineageSlug } from '../materials/materials.service.ts';
 import type { CatalogueService } from './catalogue.service.ts';
@@ -105,12 +106,10 @@ export class UserCoresService {
   }
 
   private async assertNameFree(name: string, exceptLineage?: string) {
-    const lower = name.toLowerCase();
-    if (this.catalogue.shippedCores().some((c) => c.id.toLowerCase() === lower)) {
-      throw conflict(`"${name}" is a shipped core; choose another name.`, { name: 'Name of a shipped core' });
-    }
-    const clash = (await this.repo.listCurrent()).find((r) => r.name.toLowerCase() === lower && r.lineage !== exceptLineage);
-    if (clash) throw conflict(`A user core is already called "${name}".`, { name: 'Name already used' });
+    const shipped = sameName(this.catalogue.shippedCores().map((c) => ({ name: c.id })), name);
+    if (shipped) throw conflict(`"${name}" is the name of the shipped core "${shipped.name}"; choose another name.`, { name: 'Name of a shipped core' });
+    const clash = sameName(await this.repo.listCurrent(), name, (r) => r.lineage === exceptLineage);
+    if (clash) throw conflict(`A user core is already called "${clash.name}" (the same name as "${name}").`, { name: `Same name as "${clash.name}"` });
   }
 
   async create(request: UserCoreRequest, actor: Actor) {
@@ -162,17 +161,19 @@ export class UserCoresService {
 
   /** The rows of a core file checked one by one, against each other, the shipped names and the stored user cores. */
   private analyse(file: UploadedFile, existing: Map<string, UserCoreRow>) {
-    const shipped = new Set(this.catalogue.shippedCores().map((c) => c.id.toLowerCase()));
+    const shipped = new Set(this.catalogue.shippedCores().map((c) => nameKey(c.id)));
+    // A row whose name is the same name as a stored core (look-alike letters, invisible characters) is that core.
+    const byKey = new Map([...existing.values()].map((r) => [nameKey(r.name), r]));
     const records = parseCsvTable(decodeCsvText(file.buffer), CORE_TABLE);
     return analyseRecords(
       records,
       (cells) => {
         const result = validateCoreCells(cells);
         const name = (cells.name ?? '').trim();
-        if (!shipped.has(name.toLowerCase())) return result;
+        if (!shipped.has(nameKey(name))) return result;
         return { problems: [...result.problems, { column: 'name', message: `name "${name}" is a shipped core; choose another name` }] };
       },
-      (lowerName) => existing.get(lowerName),
+      (lowerName) => byKey.get(nameKey(lowerName)),
     );
   }
 

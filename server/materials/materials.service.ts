@@ -20,6 +20,7 @@ import {
 } from '../http/csv-table.ts';
 import type { UploadedFile } from '../http/csv-upload.ts';
 import { badRequest, conflict, notFound } from '../http/errors.ts';
+import { nameKey, sameName } from '../http/name-key.ts';
 import { parseWith } from '../http/validate.ts';
 import { parseMaterialCsv, stringifyMaterialCsv } from './material-csv.ts';
 import { TEMPLATE_ROWS } from './material-template.ts';
@@ -52,7 +53,9 @@ export function materialDetail(row: MaterialWithAuthor): LibraryMaterial {
 /** The rows of a file checked one by one, against each other and against the library. */
 function analyse(fileBuffer: Buffer, existing: Map<string, MaterialRow>): Analysis {
   const records = parseMaterialCsv(decodeCsvText(fileBuffer));
-  return analyseRecords(records, validateMaterialCells, (lowerName) => existing.get(lowerName));
+  // A row whose name is the same name as a stored one (look-alike letters, invisible characters) is that material.
+  const byKey = new Map([...existing.values()].map((r) => [nameKey(r.name), r]));
+  return analyseRecords(records, validateMaterialCells, (lowerName) => byKey.get(nameKey(lowerName)));
 }
 
 export class MaterialsService {
@@ -176,8 +179,11 @@ export class MaterialsService {
         const fields = Object.fromEntries(problems.map((p) => [p.column, p.message]));
         throw badRequest(`The edit is not valid: ${problems.map((p) => p.message).slice(0, 3).join('; ')}`, fields);
       }
-      const clash = existing.get(values.name.toLowerCase());
-      if (clash && clash.id !== row.id) throw conflict(`Another material is already called "${values.name}".`, { name: 'Name already used' });
+      if (JSON.stringify(materialCellsFromValues(values)) === JSON.stringify(materialCellsFromValues(valuesOf(row)))) {
+        throw badRequest('The edit changes nothing; no new version was made.', { '(body)': 'Nothing changed' });
+      }
+      const clash = sameName(existing.values(), values.name, (r) => r.id === row.id);
+      if (clash) throw conflict(`Another material is already called "${clash.name}" (the same name as "${values.name}").`, { name: `Same name as "${clash.name}"` });
       await this.repo.retireCurrentVersions(tx, [row.id]);
       const [insertedId] = await this.repo.insertVersions(tx, [
         { ...values, lineage: row.lineage, version: row.version + 1, retired: row.retired, importId: null, createdBy: actor.id },

@@ -2,6 +2,7 @@ import bcrypt from 'bcryptjs';
 import type { CreateUserRequest, Theme, UpdateUserRequest, User } from '@shared/schemas/auth';
 import type { AuditService } from '../audit/audit.service.ts';
 import { badRequest, conflict, notFound } from '../http/errors.ts';
+import { sameName } from '../http/name-key.ts';
 import type { Actor } from '../http/access.ts';
 import { toUserView } from './user-view.ts';
 import type { UserRow, UsersRepository } from './users.repository.ts';
@@ -41,8 +42,10 @@ export class UsersService {
 
   async create(actor: Actor, input: CreateUserRequest): Promise<User> {
     const username = input.username.toLowerCase();
-    if (await this.repo.findByUsername(username)) {
-      throw conflict(`Username "${username}" is taken.`, { username: 'This username is taken' });
+    const clash = sameName((await this.repo.list()).map((u) => ({ name: u.username })), username);
+    if (clash) {
+      const same = clash.name === username ? '' : ` (as "${clash.name}")`;
+      throw conflict(`Username "${username}" is taken${same}.`, { username: `This username is taken${same}` });
     }
     const passwordHash = await this.hashPassword(input.password);
     const row = await this.repo.transaction(async (tx) => {

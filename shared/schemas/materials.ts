@@ -285,7 +285,8 @@ export const materialEditSchema = z
       MATERIAL_CSV_COLUMNS.map((c) => [c, z.union([text().max(500), z.number()]).optional()]),
     ) as Record<MaterialCsvColumn, z.ZodOptional<z.ZodUnion<[z.ZodString, z.ZodNumber]>>>,
   )
-  .strict();
+  .strict()
+  .refine((edit) => Object.values(edit).some((v) => v !== undefined), { error: 'Give at least one column to change', path: ['(body)'] });
 export type MaterialEdit = z.infer<typeof materialEditSchema>;
 
 export const importDecisionSchema = z.enum(['new-version', 'skip']);
