@@ -1,14 +1,10 @@
-import { Writable } from 'node:stream';
 import { eq, sql } from 'drizzle-orm';
-import pg from 'pg';
-import { pino } from 'pino';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createApp } from '../../server/app.ts';
-import { createDb } from '../../server/db/client.ts';
 import { materials } from '../../server/db/schema.ts';
 import { insertEvaluatedDesign } from './support/design-fixture.ts';
 import { ApiClient, demoUser, signedInAs } from './support/api-client.ts';
-import { createTestApp, tableCount, testConfig, type TestApp } from './support/test-app.ts';
+import { createTestApp, tableCount, type TestApp } from './support/test-app.ts';
+import { createAppCapturingLogs } from './support/log-capture.ts';
 
 let t: TestApp;
 let erin: ApiClient; // engineer
@@ -25,17 +21,7 @@ const materialNamed = async (id: number) => (await t.db.select().from(materials)
 
 describe('logs name the SQL but never the values bound to it', () => {
   it('a failed query is logged with its statement and without its parameters', async () => {
-    const captured: string[] = [];
-    const sink = new Writable({
-      write(chunk: Buffer, _enc, done) {
-        captured.push(chunk.toString());
-        done();
-      },
-    });
-    const config = testConfig({ LOG_LEVEL: 'trace' });
-    const pool = new pg.Pool({ connectionString: config.databaseUrl, max: 3 });
-    const db = createDb(pool); // the database createTestApp already seeded
-    const { app, close, services } = createApp({ config, pool, db, logger: pino({ level: 'trace' }, sink), mailTarget: { host: '127.0.0.1', port: 1, secure: false, from: 'x@localhost' } });
+    const { app, db, services, logText, close } = createAppCapturingLogs(); // on the database createTestApp seeded
     const secret = '$2b$12$abcdefghijklmnopqrstuv0123456789ABCDEFGHIJKLMNOPQRSTU';
     services.users.list = async () => {
       await db.execute(sql`insert into no_such_table (password_hash) values (${secret})`);
@@ -45,13 +31,12 @@ describe('logs name the SQL but never the values bound to it', () => {
       const admin = new ApiClient(app);
       await admin.signIn(demoUser('admin').username, demoUser('admin').password);
       expect((await admin.get('/api/admin/users')).status).toBe(500);
-      const text = captured.join('');
+      const text = logText();
       expect(text).toContain('no_such_table');
       expect(text).not.toContain(secret);
       expect(text).not.toContain('abcdefghijklmnopqrstuv');
     } finally {
       await close();
-      await pool.end();
     }
   });
 });
