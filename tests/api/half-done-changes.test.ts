@@ -2,6 +2,7 @@ import { eq } from 'drizzle-orm';
 import { afterAll, afterEach, beforeAll, describe, expect, it, vi } from 'vitest';
 import { designRevisions, users } from '../../server/db/schema.ts';
 import { insertEvaluatedDesign } from './support/design-fixture.ts';
+import { uploadCsv } from './support/csv-import.ts';
 import { signedInAs, type ApiClient } from './support/api-client.ts';
 import { createTestApp, tableCount, type TestApp } from './support/test-app.ts';
 
@@ -71,6 +72,21 @@ describe('text the database cannot store is refused before anything changes', ()
     expect(Object.keys(res.body.error.fields)).toEqual(['displayName']);
     expect((await t.db.select().from(users).where(eq(users.id, tomas.id)))[0].displayName).toBe(tomas.displayName);
     expect(await tableCount(t.db, 'audit_log')).toBe(audit);
+  });
+});
+
+describe('CSV uploads: the file name and the form fields are checked as well', () => {
+  it.each([
+    ['a NUL in the file name', 'mat\u0000.csv', {}, 'file'],
+    ['an unpaired surrogate in a decision key', 'materials.csv', '{"MF\\ud800": "skip"}', 'decisions.MF\ud800'],
+    ['__proto__ as a decision key', 'materials.csv', '{"__proto__": "skip"}', 'decisions.__proto__'],
+  ])('%s → 400 naming it, nothing imported', async (_name, fileName, decisions, field) => {
+    const template = (await erin.get('/api/materials/template.csv')).text;
+    const before = { materials: await tableCount(t.db, 'materials'), imports: await tableCount(t.db, 'material_imports'), audit: await tableCount(t.db, 'audit_log') };
+    const res = await uploadCsv(erin, '/api/materials/import/commit', template, fileName, decisions);
+    expect(res.status).toBe(400);
+    expect(Object.keys(res.body.error.fields)).toEqual([field]);
+    expect({ materials: await tableCount(t.db, 'materials'), imports: await tableCount(t.db, 'material_imports'), audit: await tableCount(t.db, 'audit_log') }).toEqual(before);
   });
 });
 
