@@ -2,6 +2,7 @@ import express, { type Request } from 'express';
 import type pg from 'pg';
 import type { Logger } from 'pino';
 import { pinoHttp } from 'pino-http';
+import { logSerializers, withoutQueryValues } from './logger.ts';
 import { accountRouter } from './account/account.router.ts';
 import { auditRouter } from './audit/audit.router.ts';
 import { AuditRepository } from './audit/audit.repository.ts';
@@ -40,7 +41,9 @@ import { UserCoresService } from './catalogue/user-cores.service.ts';
 import { buildOpenApiDocument } from './openapi/openapi.ts';
 import type { AppError } from './http/errors.ts';
 import { apiNotFound, errorMiddleware } from './http/errors.ts';
-import { securityHeaders } from './http/security-headers.ts';
+import { noStore, securityHeaders } from './http/security-headers.ts';
+import { storableInput } from './http/storable-input.ts';
+import { signedInForWrites } from './http/access.ts';
 import { staticAppRouter } from './http/static-app.ts';
 import { adminUsersRouter } from './users/admin-users.router.ts';
 import { UsersRepository } from './users/users.repository.ts';
@@ -105,6 +108,7 @@ export function createApp(deps: AppDeps) {
   app.use(
     pinoHttp({
       logger,
+      serializers: logSerializers,
       redact: ['req.headers.cookie', 'req.headers["x-xsrf-token"]', 'res.headers["set-cookie"]'],
       customLogLevel: (_req, res, err) => (err || res.statusCode >= 500 ? 'error' : 'info'),
       autoLogging: { ignore: (req) => !req.url?.startsWith('/api') },
@@ -120,11 +124,14 @@ export function createApp(deps: AppDeps) {
 
   const api = express.Router();
   api.use(express.json({ limit: '1mb', strict: true }));
+  api.use(storableInput);
+  api.use(noStore);
   api.use(sessions.middleware);
   api.use(absoluteLifetime(config));
   api.use(idleRenewal(config));
   api.use(passport.initialize());
   api.use(passport.session());
+  api.use(signedInForWrites);
   api.use(csrf.protection);
   api.use('/auth', authRouter({ config, passport, users, audit, issueCsrfToken: csrf.issueToken }));
   api.use('/account', accountRouter(users));
@@ -158,7 +165,7 @@ export function createApp(deps: AppDeps) {
       .catch((e: unknown) => logger.warn({ err: e }, 'could not record an access refusal'));
   app.use(
     errorMiddleware((err, status) => {
-      if (status >= 500) logger.error({ err }, 'request failed');
+      if (status >= 500) logger.error({ err: withoutQueryValues(err) }, 'request failed');
     }, recordRefusal),
   );
 

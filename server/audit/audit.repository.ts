@@ -1,5 +1,5 @@
 import { count, desc, eq } from 'drizzle-orm';
-import type { Db } from '../db/client.ts';
+import type { Db, Tx } from '../db/client.ts';
 import { auditLog, users } from '../db/schema.ts';
 
 export interface AuditRecord {
@@ -14,8 +14,9 @@ export interface AuditRecord {
 export class AuditRepository {
   constructor(private readonly db: Db) {}
 
-  async insert(record: AuditRecord): Promise<void> {
-    await this.db.insert(auditLog).values({
+  /** Pass the transaction of the change being recorded, so the change and its entry commit or roll back together. */
+  async insert(record: AuditRecord, tx: Tx | Db = this.db): Promise<void> {
+    await tx.insert(auditLog).values({
       actorId: record.actorId ?? null,
       actorName: record.actorName ?? null,
       action: record.action,

@@ -1,11 +1,13 @@
 import type { AuditEntry } from '@shared/schemas/auth';
+import type { Tx } from '../db/client.ts';
 import type { AuditRecord, AuditRepository } from './audit.repository.ts';
 
 export class AuditService {
   constructor(private readonly repo: AuditRepository) {}
 
-  record(entry: AuditRecord): Promise<void> {
-    return this.repo.insert(entry);
+  /** Records an entry; give `tx` when it records a change made in that transaction (both commit or neither). */
+  record(entry: AuditRecord, tx?: Tx): Promise<void> {
+    return this.repo.insert(entry, tx);
   }
 
   async page(offset: number, limit: number): Promise<{ entries: AuditEntry[]; total: number }> {

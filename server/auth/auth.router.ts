@@ -1,9 +1,9 @@
 import { Router, type NextFunction, type Request, type Response } from 'express';
-import { rateLimit } from 'express-rate-limit';
 import { signInRequestSchema } from '@shared/schemas/auth';
 import type { AuditService } from '../audit/audit.service.ts';
 import type { Config } from '../config.ts';
 import { AppError } from '../http/errors.ts';
+import { createSignInLimiters } from './sign-in-limits.ts';
 import { parseBody } from '../http/validate.ts';
 import type { Actor } from '../http/access.ts';
 import type { UsersService } from '../users/users.service.ts';
@@ -32,18 +32,7 @@ function authenticate(passport: AppPassport, req: Request, res: Response, next: 
 export function authRouter({ config, passport, users, audit, issueCsrfToken }: AuthDeps): Router {
   const router = Router();
 
-  // Failed attempts only: a user who signs in correctly is never locked out by their own successes.
-  const signInLimiter = rateLimit({
-    windowMs: config.signInWindowMs,
-    limit: config.signInLimit,
-    skipSuccessfulRequests: true,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    handler: (_req, _res, next) => {
-      const minutes = Math.ceil(config.signInWindowMs / 60_000);
-      next(new AppError(429, 'rate_limited', `Too many sign-in attempts. Wait ${minutes} minutes and try again.`));
-    },
-  });
+  const signInLimiters = createSignInLimiters(config);
 
   router.get('/session', async (req, res) => {
     issueCsrfToken(req, res);
@@ -51,7 +40,7 @@ export function authRouter({ config, passport, users, audit, issueCsrfToken }: A
     res.json({ user: row ? toUserView(row) : null });
   });
 
-  router.post('/sign-in', signInLimiter, async (req, res, next) => {
+  router.post('/sign-in', ...signInLimiters, async (req, res, next) => {
     const { username } = parseBody(signInRequestSchema, req);
     const actor = await authenticate(passport, req, res, next);
     if (!actor) {

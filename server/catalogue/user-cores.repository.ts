@@ -38,12 +38,10 @@ export class UserCoresRepository {
   }
 
   /** Adds a version; the previous one (if any) stops being current, in one transaction. */
-  async addVersion(values: NewUserCoreVersion, previousId?: number): Promise<UserCoreRow> {
-    return this.db.transaction(async (tx) => {
-      if (previousId !== undefined) await this.supersede(tx, [previousId]);
-      const [row] = await this.insertVersions(tx, [values]);
-      return row!;
-    });
+  async addVersion(tx: Tx, values: NewUserCoreVersion, previousId?: number): Promise<UserCoreRow> {
+    if (previousId !== undefined) await this.supersede(tx, [previousId]);
+    const [row] = await this.insertVersions(tx, [values]);
+    return row!;
   }
 
   /** Current versions (retired ones too) by lower-case name; inside a transaction when given one. */
@@ -62,8 +60,8 @@ export class UserCoresRepository {
     return tx.insert(userCores).values(rows).returning();
   }
 
-  async setRetired(id: number, retired: boolean): Promise<UserCoreRow | undefined> {
-    const [row] = await this.db.update(userCores).set({ retired }).where(and(eq(userCores.id, id), eq(userCores.current, true))).returning();
+  async setRetired(id: number, retired: boolean, db: Tx | Db = this.db): Promise<UserCoreRow | undefined> {
+    const [row] = await db.update(userCores).set({ retired }).where(and(eq(userCores.id, id), eq(userCores.current, true))).returning();
     return row;
   }
 }

@@ -24,6 +24,7 @@ import {
 } from '../http/csv-table.ts';
 import type { UploadedFile } from '../http/csv-upload.ts';
 import { badRequest, conflict, fieldErrorsFromZod, notFound } from '../http/errors.ts';
+import { nameKey, sameName } from '../http/name-key.ts';
 import { parseWith } from '../http/validate.ts';
 import { lineageSlug } from '../materials/materials.service.ts';
 import type { CatalogueService } from './catalogue.service.ts';
@@ -105,21 +106,22 @@ export class UserCoresService {
   }
 
   private async assertNameFree(name: string, exceptLineage?: string) {
-    const lower = name.toLowerCase();
-    if (this.catalogue.shippedCores().some((c) => c.id.toLowerCase() === lower)) {
-      throw conflict(`"${name}" is a shipped core; choose another name.`, { name: 'Name of a shipped core' });
-    }
-    const clash = (await this.repo.listCurrent()).find((r) => r.name.toLowerCase() === lower && r.lineage !== exceptLineage);
-    if (clash) throw conflict(`A user core is already called "${name}".`, { name: 'Name already used' });
+    const shipped = sameName(this.catalogue.shippedCores().map((c) => ({ name: c.id })), name);
+    if (shipped) throw conflict(`"${name}" is the name of the shipped core "${shipped.name}"; choose another name.`, { name: 'Name of a shipped core' });
+    const clash = sameName(await this.repo.listCurrent(), name, (r) => r.lineage === exceptLineage);
+    if (clash) throw conflict(`A user core is already called "${clash.name}" (the same name as "${name}").`, { name: `Same name as "${clash.name}"` });
   }
 
   async create(request: UserCoreRequest, actor: Actor) {
     const shape = shapeFromRequest(request);
     await this.assertNameFree(request.name);
     const lineage = newLineage(request.name, Date.now().toString(36), new Set());
-    const row = await this.repo.addVersion({ lineage, version: 1, name: request.name, family: shape.family, shape, createdBy: actor.id, retired: false });
+    const row = await this.repo.db.transaction(async (tx) => {
+      const added = await this.repo.addVersion(tx, { lineage, version: 1, name: request.name, family: shape.family, shape, createdBy: actor.id, retired: false });
+      await this.audit.record({ actorId: actor.id, action: 'core.added', target: request.name, details: { id: added.id } }, tx);
+      return added;
+    });
     await this.refresh();
-    await this.audit.record({ actorId: actor.id, action: 'core.added', target: request.name, details: { id: row.id } });
     return listed(shape, 'user', { ...row, createdByName: actor.displayName });
   }
 
@@ -129,20 +131,27 @@ export class UserCoresService {
     if (!previous.current) throw conflict('Only the current version of a core can be edited.', { id: 'Not the current version' });
     const shape = shapeFromRequest(request);
     await this.assertNameFree(request.name, previous.lineage);
-    const row = await this.repo.addVersion(
-      { lineage: previous.lineage, version: previous.version + 1, name: request.name, family: shape.family, shape, createdBy: actor.id, retired: previous.retired },
-      previous.id,
-    );
+    const row = await this.repo.db.transaction(async (tx) => {
+      const added = await this.repo.addVersion(
+        tx,
+        { lineage: previous.lineage, version: previous.version + 1, name: request.name, family: shape.family, shape, createdBy: actor.id, retired: previous.retired },
+        previous.id,
+      );
+      await this.audit.record({ actorId: actor.id, action: 'core.edited', target: request.name, details: { id: added.id, version: added.version } }, tx);
+      return added;
+    });
     await this.refresh();
-    await this.audit.record({ actorId: actor.id, action: 'core.edited', target: request.name, details: { id: row.id, version: row.version } });
     return listed(shape, 'user', { ...row, createdByName: actor.displayName });
   }
 
   async setRetired(id: number, retired: boolean, actor: Actor) {
-    const row = await this.repo.setRetired(id, retired);
-    if (!row) throw notFound(`No current user core with id ${id}.`);
+    const row = await this.repo.db.transaction(async (tx) => {
+      const changed = await this.repo.setRetired(id, retired, tx);
+      if (!changed) throw notFound(`No current user core with id ${id}.`);
+      await this.audit.record({ actorId: actor.id, action: retired ? 'core.retired' : 'core.unretired', target: changed.name, details: { id } }, tx);
+      return changed;
+    });
     await this.refresh();
-    await this.audit.record({ actorId: actor.id, action: retired ? 'core.retired' : 'core.unretired', target: row.name, details: { id } });
     return listed(row.shape as CoreShape, 'user', { ...row, createdByName: null });
   }
 
@@ -152,17 +161,19 @@ export class UserCoresService {
 
   /** The rows of a core file checked one by one, against each other, the shipped names and the stored user cores. */
   private analyse(file: UploadedFile, existing: Map<string, UserCoreRow>) {
-    const shipped = new Set(this.catalogue.shippedCores().map((c) => c.id.toLowerCase()));
+    const shipped = new Set(this.catalogue.shippedCores().map((c) => nameKey(c.id)));
+    // A row whose name is the same name as a stored core (look-alike letters, invisible characters) is that core.
+    const byKey = new Map([...existing.values()].map((r) => [nameKey(r.name), r]));
     const records = parseCsvTable(decodeCsvText(file.buffer), CORE_TABLE);
     return analyseRecords(
       records,
       (cells) => {
         const result = validateCoreCells(cells);
         const name = (cells.name ?? '').trim();
-        if (!shipped.has(name.toLowerCase())) return result;
+        if (!shipped.has(nameKey(name))) return result;
         return { problems: [...result.problems, { column: 'name', message: `name "${name}" is a shipped core; choose another name` }] };
       },
-      (lowerName) => existing.get(lowerName),
+      (lowerName) => byKey.get(nameKey(lowerName)),
     );
   }
 
@@ -175,6 +186,7 @@ export class UserCoresService {
   async commit(file: UploadedFile, rawDecisions: unknown, actor: Actor) {
     const decisions = parseWith(importDecisionsSchema, rawDecisions ?? {});
     const byLowerName = new Map(Object.entries(decisions).map(([name, d]) => [name.trim().toLowerCase(), d] as [string, ImportDecision]));
+    const fileName = file.originalname.slice(0, 200) || 'upload.csv';
     const result = await this.repo.db.transaction(async (tx) => {
       const analysis = this.analyse(file, await this.repo.currentByLowerName(tx));
       if (analysis.rows.some((r) => r.status === 'error')) throw rowErrors(analysis.rows);
@@ -200,10 +212,10 @@ export class UserCoresService {
       }
       await this.repo.supersede(tx, superseded);
       const inserted = await this.repo.insertVersions(tx, toInsert);
-      return { created: toInsert.length - superseded.length, versioned: superseded.length, skipped, coreIds: inserted.map((r) => r.id) };
+      const created = toInsert.length - superseded.length;
+      await this.audit.record({ actorId: actor.id, action: 'cores.imported', target: fileName, details: { created, versioned: superseded.length, skipped } }, tx);
+      return { created, versioned: superseded.length, skipped, coreIds: inserted.map((r) => r.id) };
     });
-    const fileName = file.originalname.slice(0, 200) || 'upload.csv';
-    await this.audit.record({ actorId: actor.id, action: 'cores.imported', target: fileName, details: { created: result.created, versioned: result.versioned, skipped: result.skipped } });
     await this.refresh();
     return { fileName, ...result };
   }

@@ -91,9 +91,9 @@ export class DesignsService {
     const { design, revision } = await this.repo.db.transaction(async (tx) => {
       const design = await this.repo.insertDesign(tx, request.title, actor.id);
       const revision = await this.repo.insertRevision(tx, revisionValues(design.id, 1, actor.id, request.spec, evaluated, request.note));
+      await this.audit.record({ actorId: actor.id, action, target: design.number, details: { title: design.title } }, tx);
       return { design, revision };
     });
-    await this.audit.record({ actorId: actor.id, action, target: design.number, details: { title: design.title } });
     return this.detail(actor, { ...design, ownerName: actor.displayName }, [revision]);
   }
 
@@ -137,9 +137,9 @@ export class DesignsService {
       });
       if (!changed) throw conflict(`Revision ${revision} of ${design.number} left the draft state while it was being saved.`);
       await this.repo.touchDesign(tx, id, request.title);
+      await this.audit.record({ actorId: actor.id, action: 'design.revision.updated', target: `${design.number} r${revision}`, details: { fields: Object.keys(request) } }, tx);
       return changed;
     });
-    await this.audit.record({ actorId: actor.id, action: 'design.revision.updated', target: `${design.number} r${revision}`, details: { fields: Object.keys(request) } });
     return revisionDetail(updated);
   }
 
@@ -168,9 +168,9 @@ export class DesignsService {
         createdBy: actor.id,
       });
       await this.repo.touchDesign(tx, id);
+      await this.audit.record({ actorId: actor.id, action: 'design.revision.created', target: `${design.number} r${revision.revision}` }, tx);
       return revision;
     });
-    await this.audit.record({ actorId: actor.id, action: 'design.revision.created', target: `${design.number} r${created.revision}` });
     return revisionDetail(created);
   }
 

@@ -38,3 +38,14 @@ export function actorOf(req: Request): Actor {
   if (!req.user) throw unauthorized();
   return req.user;
 }
+
+const READS = new Set(['GET', 'HEAD', 'OPTIONS']);
+
+/**
+ * Runs before the CSRF check: a write (outside sign-in and sign-out) from someone not signed in is a 401, so a
+ * write after the session ended says "sign in again" rather than failing the CSRF check with a 403.
+ */
+export const signedInForWrites: RequestHandler = (req, _res, next) => {
+  if (READS.has(req.method) || req.user || req.path.startsWith('/auth/')) return next();
+  next(unauthorized('Your session has ended. Sign in again.'));
+};

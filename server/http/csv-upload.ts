@@ -2,7 +2,9 @@
 // of a request, and the optional `decisions` JSON field. multer's refusals become our one error shape.
 import type { Request, RequestHandler } from 'express';
 import multer from 'multer';
+import { isStorableText, UNSTORABLE_TEXT_MESSAGE } from '@shared/schemas/text';
 import { AppError, badRequest } from './errors.ts';
+import { findUnsafeInput } from './storable-input.ts';
 
 export const MAX_UPLOAD_BYTES = 2 * 1024 * 1024;
 const uploadLimit = `${MAX_UPLOAD_BYTES / (1024 * 1024)} MB`;
@@ -21,7 +23,7 @@ export function singleCsvUpload(): RequestHandler {
   }).single('file');
   return (req, res, next) => {
     upload(req, res, (error: unknown) => {
-      if (!error) return next();
+      if (!error) return next(unsafeUpload(req) ?? undefined);
       const code = (error as { code?: string }).code;
       if (code === 'LIMIT_FILE_SIZE') return next(new AppError(413, 'payload_too_large', `The file is larger than ${uploadLimit}.`, { file: `Larger than ${uploadLimit}` }));
       if (code === 'LIMIT_FILE_COUNT' || code === 'LIMIT_UNEXPECTED_FILE') return next(badRequest('Send one CSV file in the field "file".', { file: 'One file only, in the field "file"' }));
@@ -29,6 +31,13 @@ export function singleCsvUpload(): RequestHandler {
       next(badRequest('The upload is not a well-formed multipart form.', { file: 'Malformed upload' }));
     });
   };
+}
+
+/** The form fields and the file's name hold only text the database can store (they reach the import log). */
+function unsafeUpload(req: Request): AppError | null {
+  const file = (req as { file?: UploadedFile }).file;
+  if (file && !isStorableText(file.originalname)) return badRequest(`The file name: ${UNSTORABLE_TEXT_MESSAGE.toLowerCase()}.`, { file: UNSTORABLE_TEXT_MESSAGE });
+  return findUnsafeInput(req.body);
 }
 
 export function uploadedFile(req: Request): UploadedFile {
@@ -43,8 +52,12 @@ export function decisionsField(req: Request): unknown {
   if (raw === undefined || raw === '') return {};
   if (typeof raw !== 'string') throw badRequest('decisions must be a JSON object.', { decisions: 'Must be a JSON object' });
   try {
-    return JSON.parse(raw) as unknown;
-  } catch {
+    const parsed = JSON.parse(raw) as unknown;
+    const problem = findUnsafeInput(parsed, ['decisions']);
+    if (problem) throw problem;
+    return parsed;
+  } catch (error) {
+    if (error instanceof AppError) throw error;
     throw badRequest('decisions must be a JSON object.', { decisions: 'Must be a JSON object' });
   }
 }

@@ -1,4 +1,5 @@
 import helmet from 'helmet';
+import type { RequestHandler } from 'express';
 import type { Config } from '../config.ts';
 
 /**
@@ -30,3 +31,9 @@ export function securityHeaders(config: Config) {
     crossOriginEmbedderPolicy: false,
   });
 }
+
+/** API answers hold one person's data (JSON, PDF, CSV): no browser or proxy may keep a copy. */
+export const noStore: RequestHandler = (_req, res, next) => {
+  res.setHeader('Cache-Control', 'no-store');
+  next();
+};

@@ -98,8 +98,8 @@ export class MaterialsRepository {
     return (result.rows as { id: number }[]).map((r) => r.id);
   }
 
-  async setRetired(id: number, retired: boolean): Promise<MaterialRow | undefined> {
-    const [row] = await this.db.update(materials).set({ retired }).where(and(eq(materials.id, id), eq(materials.current, true))).returning();
+  async setRetired(id: number, retired: boolean, db: Tx | Db = this.db): Promise<MaterialRow | undefined> {
+    const [row] = await db.update(materials).set({ retired }).where(and(eq(materials.id, id), eq(materials.current, true))).returning();
     return row;
   }
 

@@ -20,6 +20,7 @@ import {
 } from '../http/csv-table.ts';
 import type { UploadedFile } from '../http/csv-upload.ts';
 import { badRequest, conflict, notFound } from '../http/errors.ts';
+import { nameKey, sameName } from '../http/name-key.ts';
 import { parseWith } from '../http/validate.ts';
 import { parseMaterialCsv, stringifyMaterialCsv } from './material-csv.ts';
 import { TEMPLATE_ROWS } from './material-template.ts';
@@ -52,7 +53,9 @@ export function materialDetail(row: MaterialWithAuthor): LibraryMaterial {
 /** The rows of a file checked one by one, against each other and against the library. */
 function analyse(fileBuffer: Buffer, existing: Map<string, MaterialRow>): Analysis {
   const records = parseMaterialCsv(decodeCsvText(fileBuffer));
-  return analyseRecords(records, validateMaterialCells, (lowerName) => existing.get(lowerName));
+  // A row whose name is the same name as a stored one (look-alike letters, invisible characters) is that material.
+  const byKey = new Map([...existing.values()].map((r) => [nameKey(r.name), r]));
+  return analyseRecords(records, validateMaterialCells, (lowerName) => byKey.get(nameKey(lowerName)));
 }
 
 export class MaterialsService {
@@ -108,13 +111,17 @@ export class MaterialsService {
       if (analysis.rows.some((r) => r.status === 'error')) throw rowErrors(analysis.rows);
       const undecided = undecidedNames(analysis.valid, (lowerName) => byLowerName.has(lowerName));
       if (undecided) throw undecided;
-      return this.write(tx, file, analysis, byLowerName, actor);
-    });
-    await this.audit.record({
-      actorId: actor.id,
-      action: 'materials.imported',
-      target: file.originalname.slice(0, 200),
-      details: { importId: result.importId, created: result.created, versioned: result.versioned, skipped: result.skipped },
+      const written = await this.write(tx, file, analysis, byLowerName, actor);
+      await this.audit.record(
+        {
+          actorId: actor.id,
+          action: 'materials.imported',
+          target: file.originalname.slice(0, 200),
+          details: { importId: written.importId, created: written.created, versioned: written.versioned, skipped: written.skipped },
+        },
+        tx,
+      );
+      return written;
     });
     return result;
   }
@@ -172,25 +179,32 @@ export class MaterialsService {
         const fields = Object.fromEntries(problems.map((p) => [p.column, p.message]));
         throw badRequest(`The edit is not valid: ${problems.map((p) => p.message).slice(0, 3).join('; ')}`, fields);
       }
-      const clash = existing.get(values.name.toLowerCase());
-      if (clash && clash.id !== row.id) throw conflict(`Another material is already called "${values.name}".`, { name: 'Name already used' });
+      if (JSON.stringify(materialCellsFromValues(values)) === JSON.stringify(materialCellsFromValues(valuesOf(row)))) {
+        throw badRequest('The edit changes nothing; no new version was made.', { '(body)': 'Nothing changed' });
+      }
+      const clash = sameName(existing.values(), values.name, (r) => r.id === row.id);
+      if (clash) throw conflict(`Another material is already called "${clash.name}" (the same name as "${values.name}").`, { name: `Same name as "${clash.name}"` });
       await this.repo.retireCurrentVersions(tx, [row.id]);
       const [insertedId] = await this.repo.insertVersions(tx, [
         { ...values, lineage: row.lineage, version: row.version + 1, retired: row.retired, importId: null, createdBy: actor.id },
       ]);
-      return (await this.repo.findById(insertedId!, tx))!;
+      const inserted = (await this.repo.findById(insertedId!, tx))!;
+      await this.audit.record({ actorId: actor.id, action: 'material.edited', target: inserted.name, details: { id: inserted.id, version: inserted.version } }, tx);
+      return inserted;
     });
-    await this.audit.record({ actorId: actor.id, action: 'material.edited', target: result.name, details: { id: result.id, version: result.version } });
     return materialDetail({ ...result, createdByName: actor.displayName });
   }
 
   async setRetired(id: number, retired: boolean, actor: Actor) {
-    const row = await this.repo.setRetired(id, retired);
-    if (!row) {
-      if (await this.repo.findById(id)) throw conflict('Only the current version of a material can be retired or restored.', { id: 'Not the current version' });
-      throw notFound(`No material with id ${id}.`);
-    }
-    await this.audit.record({ actorId: actor.id, action: retired ? 'material.retired' : 'material.unretired', target: row.name, details: { id } });
+    const row = await this.repo.db.transaction(async (tx) => {
+      const changed = await this.repo.setRetired(id, retired, tx);
+      if (!changed) {
+        if (await this.repo.findById(id, tx)) throw conflict('Only the current version of a material can be retired or restored.', { id: 'Not the current version' });
+        throw notFound(`No material with id ${id}.`);
+      }
+      await this.audit.record({ actorId: actor.id, action: retired ? 'material.retired' : 'material.unretired', target: changed.name, details: { id } }, tx);
+      return changed;
+    });
     return materialDetail({ ...row, createdByName: null });
   }
 }

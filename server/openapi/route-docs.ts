@@ -49,7 +49,7 @@ export const ROUTE_DOCS: Record<string, RouteDoc> = {
   'GET /api/admin/audit': { summary: 'Audit log, newest first, paged', who: 'admin', answer: '{ entries, total }' },
   'GET /api/admin/users': { summary: 'Every account', who: 'admin', answer: '{ users }' },
   'POST /api/admin/users': { summary: 'Create an account', who: 'admin', body: createUserRequestSchema, answer: '{ user } (201)' },
-  'PATCH /api/admin/users/:id': { summary: 'Change role, name, e-mail, password or disable (disabling ends the user’s sessions)', who: 'admin', body: updateUserRequestSchema, answer: '{ user }' },
+  'PATCH /api/admin/users/:id': { summary: 'Change the display name or the role, or disable or enable the account (disabling or a new role ends the user’s sessions); at least one of displayName, role, disabled', who: 'admin', body: updateUserRequestSchema, answer: '{ user }' },
   'GET /api/admin/outbox': { summary: 'Mail sent to the winding shop and its delivery state', who: 'admin', answer: '{ messages, deliveries }' },
   'GET /api/admin/outbox/:id/attachments/:index': { summary: 'One attachment of a sent mail (the winding sheet PDF)', who: 'admin', answer: 'the file', produces: 'application/octet-stream' },
   'GET /api/admin/settings': { summary: 'The winding shop’s e-mail address', who: 'admin', answer: '{ shopEmail }' },

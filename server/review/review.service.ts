@@ -39,13 +39,16 @@ export class ReviewService {
       guard(revision, design);
       const { to, details } = await apply(tx, revision, design);
       await this.repo.addTransition(tx, { revisionId, fromStatus: revision.status, toStatus: to, actorId: actor.id, comment: comment ?? null });
+      await this.audit.record(
+        {
+          actorId: actor.id,
+          action: `revision.${action}`,
+          target: `${design.number} rev ${revision.revision}`,
+          details: { from: revision.status, to, ...(comment ? { comment } : {}), ...details },
+        },
+        tx,
+      );
       return { revision, design, to, details };
-    });
-    await this.audit.record({
-      actorId: actor.id,
-      action: `revision.${action}`,
-      target: `${outcome.design.number} rev ${outcome.revision.revision}`,
-      details: { from: outcome.revision.status, to: outcome.to, ...(comment ? { comment } : {}), ...outcome.details },
     });
     return { revisionId, status: outcome.to, ...outcome.details };
   }

@@ -57,8 +57,16 @@ export class ShopRepository {
     return this.db.select().from(buildUnits).where(eq(buildUnits.orderId, orderId)).orderBy(asc(buildUnits.unitNumber));
   }
 
-  /** Adds a unit under a lock on the order, and completes the order when enough units passed. */
-  recordUnit(orderId: number, unit: Omit<typeof buildUnits.$inferInsert, 'orderId' | 'unitNumber'>, onLocked: (order: OrderRow) => void) {
+  /**
+   * Adds a unit under a lock on the order, and completes the order when enough units passed; `onSaved` runs in the
+   * same transaction (the audit entry), so a failure there undoes the unit too.
+   */
+  recordUnit(
+    orderId: number,
+    unit: Omit<typeof buildUnits.$inferInsert, 'orderId' | 'unitNumber'>,
+    onLocked: (order: OrderRow) => void,
+    onSaved: (tx: Tx, order: OrderRow, unit: UnitRow) => Promise<void>,
+  ) {
     return this.db.transaction(async (tx) => {
       const [order] = await tx.select().from(buildOrders).where(eq(buildOrders.id, orderId)).for('update');
       if (!order) return undefined;
@@ -71,6 +79,7 @@ export class ShopRepository {
         await tx.update(buildOrders).set({ status: 'complete', completedAt: new Date() }).where(eq(buildOrders.id, orderId));
         status = 'complete';
       }
+      await onSaved(tx, order, row!);
       return { unit: row, orderStatus: status, passed };
     });
   }
@@ -102,8 +111,8 @@ export class ShopRepository {
     return row?.value as T | undefined;
   }
 
-  async putSetting(key: string, value: unknown): Promise<void> {
-    await this.db
+  async putSetting(key: string, value: unknown, db: Tx | Db = this.db): Promise<void> {
+    await db
       .insert(appSettings)
       .values({ key, value })
       .onConflictDoUpdate({ target: appSettings.key, set: { value, updatedAt: new Date() } });

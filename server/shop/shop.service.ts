@@ -65,8 +65,10 @@ export class ShopService {
   }
 
   async setShopEmail(actor: Actor, email: string): Promise<void> {
-    await this.repo.putSetting(SHOP_EMAIL_KEY, email);
-    await this.audit.record({ actorId: actor.id, action: 'settings.shop_email', details: { email } });
+    await this.repo.db.transaction(async (tx) => {
+      await this.repo.putSetting(SHOP_EMAIL_KEY, email, tx);
+      await this.audit.record({ actorId: actor.id, action: 'settings.shop_email', details: { email } }, tx);
+    });
   }
 
   async queueReleaseMail(orderId: number): Promise<number> {
@@ -152,14 +154,10 @@ export class ShopService {
       (locked) => {
         if (locked.status === 'complete') throw new AppError(409, 'order_complete', `Build order ${locked.number} is complete; no more units can be recorded.`);
       },
+      (tx, locked, unit) =>
+        this.audit.record({ actorId: actor.id, action: 'shop.unit_recorded', target: `${locked.number} unit ${unit.unitNumber}`, details: { passed: judged.passed } }, tx),
     );
     if (!saved) throw notFound('No such build order.');
-    await this.audit.record({
-      actorId: actor.id,
-      action: 'shop.unit_recorded',
-      target: `${order.number} unit ${saved.unit.unitNumber}`,
-      details: { passed: judged.passed },
-    });
     return { unit: { ...saved.unit, recordedAt: saved.unit.recordedAt.toISOString() }, orderStatus: saved.orderStatus, passedUnits: saved.passed };
   }
 

@@ -1,5 +1,5 @@
 import { asc, eq, sql } from 'drizzle-orm';
-import type { Db } from '../db/client.ts';
+import type { Db, Tx } from '../db/client.ts';
 import { session, users } from '../db/schema.ts';
 
 export type UserRow = typeof users.$inferSelect;
@@ -27,13 +27,17 @@ export class UsersRepository {
     return n;
   }
 
-  async insert(row: NewUserRow): Promise<UserRow> {
-    const [created] = await this.db.insert(users).values(row).returning();
+  transaction<T>(fn: (tx: Tx) => Promise<T>): Promise<T> {
+    return this.db.transaction(fn);
+  }
+
+  async insert(row: NewUserRow, db: Tx | Db = this.db): Promise<UserRow> {
+    const [created] = await db.insert(users).values(row).returning();
     return created;
   }
 
-  async update(id: number, changes: Partial<NewUserRow>): Promise<UserRow | undefined> {
-    const [updated] = await this.db
+  async update(id: number, changes: Partial<NewUserRow>, db: Tx | Db = this.db): Promise<UserRow | undefined> {
+    const [updated] = await db
       .update(users)
       .set({ ...changes, updatedAt: new Date() })
       .where(eq(users.id, id))
@@ -48,7 +52,7 @@ export class UsersRepository {
   }
 
   /** Ends every session of a user at once (ASVS 7.4.2): passport keeps the user id in sess.passport.user. */
-  async deleteSessionsOf(id: number): Promise<void> {
-    await this.db.delete(session).where(sql`(${session.sess}->'passport'->>'user') = ${String(id)}`);
+  async deleteSessionsOf(id: number, db: Tx | Db = this.db): Promise<void> {
+    await db.delete(session).where(sql`(${session.sess}->'passport'->>'user') = ${String(id)}`);
   }
 }

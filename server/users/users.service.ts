@@ -2,6 +2,7 @@ import bcrypt from 'bcryptjs';
 import type { CreateUserRequest, Theme, UpdateUserRequest, User } from '@shared/schemas/auth';
 import type { AuditService } from '../audit/audit.service.ts';
 import { badRequest, conflict, notFound } from '../http/errors.ts';
+import { sameName } from '../http/name-key.ts';
 import type { Actor } from '../http/access.ts';
 import { toUserView } from './user-view.ts';
 import type { UserRow, UsersRepository } from './users.repository.ts';
@@ -41,21 +42,16 @@ export class UsersService {
 
   async create(actor: Actor, input: CreateUserRequest): Promise<User> {
     const username = input.username.toLowerCase();
-    if (await this.repo.findByUsername(username)) {
-      throw conflict(`Username "${username}" is taken.`, { username: 'This username is taken' });
+    const clash = sameName((await this.repo.list()).map((u) => ({ name: u.username })), username);
+    if (clash) {
+      const same = clash.name === username ? '' : ` (as "${clash.name}")`;
+      throw conflict(`Username "${username}" is taken${same}.`, { username: `This username is taken${same}` });
     }
-    const row = await this.repo.insert({
-      username,
-      displayName: input.displayName,
-      email: input.email ?? null,
-      role: input.role,
-      passwordHash: await this.hashPassword(input.password),
-    });
-    await this.audit.record({
-      actorId: actor.id,
-      action: 'user.created',
-      target: `user:${row.username}`,
-      details: { role: row.role },
+    const passwordHash = await this.hashPassword(input.password);
+    const row = await this.repo.transaction(async (tx) => {
+      const created = await this.repo.insert({ username, displayName: input.displayName, email: input.email ?? null, role: input.role, passwordHash }, tx);
+      await this.audit.record({ actorId: actor.id, action: 'user.created', target: `user:${created.username}`, details: { role: created.role } }, tx);
+      return created;
     });
     return toUserView(row);
   }
@@ -68,17 +64,15 @@ export class UsersService {
         [changes.disabled ? 'disabled' : 'role']: 'Not allowed on your own account',
       });
     }
-    const updated = await this.repo.update(id, changes);
-    if (!updated) throw notFound('No such user.');
-    if (changes.disabled === true || (changes.role && changes.role !== existing.role)) {
-      // A disabled account or a changed role must not keep using an old session.
-      await this.repo.deleteSessionsOf(id);
-    }
-    await this.audit.record({
-      actorId: actor.id,
-      action: 'user.updated',
-      target: `user:${updated.username}`,
-      details: { ...changes },
+    const updated = await this.repo.transaction(async (tx) => {
+      const row = await this.repo.update(id, changes, tx);
+      if (!row) throw notFound('No such user.');
+      if (changes.disabled === true || (changes.role && changes.role !== existing.role)) {
+        // A disabled account or a changed role must not keep using an old session.
+        await this.repo.deleteSessionsOf(id, tx);
+      }
+      await this.audit.record({ actorId: actor.id, action: 'user.updated', target: `user:${row.username}`, details: { ...changes } }, tx);
+      return row;
     });
     return toUserView(updated);
   }
@@ -93,8 +87,11 @@ export class UsersService {
         newPassword: 'Must differ from the current password',
       });
     }
-    await this.repo.update(actor.id, { passwordHash: await this.hashPassword(newPassword) });
-    await this.audit.record({ actorId: actor.id, action: 'account.password_changed', target: `user:${row.username}` });
+    const passwordHash = await this.hashPassword(newPassword);
+    await this.repo.transaction(async (tx) => {
+      await this.repo.update(actor.id, { passwordHash }, tx);
+      await this.audit.record({ actorId: actor.id, action: 'account.password_changed', target: `user:${row.username}` }, tx);
+    });
   }
 
   async setTheme(actor: Actor, theme: Theme): Promise<User> {

@@ -3,6 +3,7 @@
 // validate user-added cores with the same rules.
 
 import * as z from 'zod';
+import { text } from '@shared/schemas/text';
 import { CORE_FAMILIES, type CoreFamily, type CoreShape } from '@shared/engine/types';
 
 /** Ve may differ from Ae·le by this fraction (published tables round each figure separately). */
@@ -27,7 +28,7 @@ const positiveNumber = z.number().finite().positive();
 
 export const coreShapeSchema = z
   .object({
-    id: z.string().trim().min(1).max(60),
+    id: text().trim().min(1).max(60),
     family: z.enum(CORE_FAMILIES),
     gapKind: z.enum(['air-gap', 'distributed']),
     ae: positiveNumber,
@@ -42,7 +43,7 @@ export const coreShapeSchema = z
     surfaceArea: positiveNumber,
     centreToOuterLegAreaRatio: positiveNumber.optional(),
     ring: z.object({ od: positiveNumber, id: positiveNumber, height: positiveNumber }).optional(),
-    source: z.string().trim().min(1, 'must say where the numbers come from'),
+    source: text().trim().min(1, 'must say where the numbers come from'),
   })
   .superRefine((core, ctx) => {
     const issue = (path: string, message: string) => ctx.addIssue({ code: 'custom', path: [path], message });
@@ -91,21 +92,19 @@ void schemaMatchesCoreShape;
 
 // ---- Rows of the shipped tables: every cell arrives as text. ----
 
-const requiredCell = z
-  .string()
+const requiredCell = text()
   .trim()
   .min(1, 'is required')
   .transform(Number)
   .pipe(z.number({ error: 'must be a number' }).finite('must be a finite number').positive('must be positive'));
 
-const optionalCell = z
-  .string()
+const optionalCell = text()
   .trim()
   .transform((text) => (text === '' ? undefined : Number(text)))
   .pipe(z.number({ error: 'must be a number or empty' }).finite('must be a finite number').positive('must be positive').optional());
 
-const designationCell = z.string().trim().min(1, 'is required').max(60);
-const sourceCell = z.string().trim().min(1, 'must say where the numbers come from');
+const designationCell = text().trim().min(1, 'is required').max(60);
+const sourceCell = text().trim().min(1, 'must say where the numbers come from');
 
 /** A set of core halves (E, ETD, EFD, EQ, PQ, RM, POT), values in mm, mm², mm³. */
 export const shapedCoreRowSchema = z
@@ -118,7 +117,7 @@ export const shapedCoreRowSchema = z
     window_area_mm2: requiredCell,
     window_height_mm: requiredCell,
     window_width_mm: requiredCell,
-    centre_leg: z.string().trim().pipe(z.enum(['round', 'rect'], { error: 'must be "round" or "rect"' })),
+    centre_leg: text().trim().pipe(z.enum(['round', 'rect'], { error: 'must be "round" or "rect"' })),
     centre_leg_width_mm: requiredCell,
     centre_leg_depth_mm: optionalCell,
     outline_width_mm: requiredCell,

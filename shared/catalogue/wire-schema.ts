@@ -1,14 +1,14 @@
 // Validation of the shipped wire tables (values in mm, as the trade quotes them).
 
 import * as z from 'zod';
+import { text } from '@shared/schemas/text';
 
-const positiveCell = z
-  .string()
+const positiveCell = text()
   .trim()
   .min(1, 'is required')
   .transform(Number)
   .pipe(z.number({ error: 'must be a number' }).finite('must be a finite number').positive('must be positive'));
-const sourceCell = z.string().trim().min(1, 'must say where the numbers come from');
+const sourceCell = text().trim().min(1, 'must say where the numbers come from');
 
 /** One IEC 60317 nominal size with the maximum overall diameters of grades 1 and 2. */
 export const metricWireRowSchema = z
@@ -31,13 +31,11 @@ export type MetricWireRow = z.infer<typeof metricWireRowSchema>;
 /** One litz construction: strand size, strand count and serving thickness per side. */
 export const litzRowSchema = z.object({
   strand_nominal_mm: positiveCell,
-  strand_count: z
-    .string()
+  strand_count: text()
     .trim()
     .transform(Number)
     .pipe(z.number({ error: 'must be a number' }).int('must be a whole number').min(2, 'must be at least 2')),
-  serving_mm: z
-    .string()
+  serving_mm: text()
     .trim()
     .transform(Number)
     .pipe(z.number({ error: 'must be a number' }).finite().min(0, 'must not be negative')),

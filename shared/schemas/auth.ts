@@ -1,4 +1,5 @@
 import * as z from 'zod';
+import { text } from './text';
 
 export const ROLES = ['engineer', 'reviewer', 'winder', 'admin'] as const;
 export const roleSchema = z.enum(ROLES);
@@ -10,20 +11,17 @@ export type Theme = z.infer<typeof themeSchema>;
 // ASVS 6.2.1/6.2.9: at least 8 characters, long passphrases accepted, no composition rules.
 export const PASSWORD_MIN = 8;
 export const PASSWORD_MAX = 256;
-export const passwordSchema = z
-  .string({ error: 'Password is required' })
+export const passwordSchema = text({ error: 'Password is required' })
   .min(PASSWORD_MIN, { error: `At least ${PASSWORD_MIN} characters` })
   .max(PASSWORD_MAX, { error: `At most ${PASSWORD_MAX} characters` });
 
-export const usernameSchema = z
-  .string({ error: 'Username is required' })
+export const usernameSchema = text({ error: 'Username is required' })
   .trim()
   .min(3, { error: 'At least 3 characters' })
   .max(40, { error: 'At most 40 characters' })
   .regex(/^[a-z0-9._-]+$/, { error: 'Lower-case letters, digits, dot, dash and underscore only' });
 
-export const displayNameSchema = z
-  .string({ error: 'Display name is required' })
+export const displayNameSchema = text({ error: 'Display name is required' })
   .trim()
   .min(1, { error: 'Display name is required' })
   .max(80, { error: 'At most 80 characters' });
@@ -45,15 +43,15 @@ export const sessionResponseSchema = z.object({ user: userSchema.nullable() });
 
 export const signInRequestSchema = z
   .object({
-    username: z.string({ error: 'Username is required' }).trim().min(1, { error: 'Username is required' }).max(40),
-    password: z.string({ error: 'Password is required' }).min(1, { error: 'Password is required' }).max(PASSWORD_MAX),
+    username: text({ error: 'Username is required' }).trim().min(1, { error: 'Username is required' }).max(40),
+    password: text({ error: 'Password is required' }).min(1, { error: 'Password is required' }).max(PASSWORD_MAX),
   })
   .strict();
 export type SignInRequest = z.infer<typeof signInRequestSchema>;
 
 export const changePasswordRequestSchema = z
   .object({
-    currentPassword: z.string({ error: 'Current password is required' }).min(1, { error: 'Current password is required' }),
+    currentPassword: text({ error: 'Current password is required' }).min(1, { error: 'Current password is required' }),
     newPassword: passwordSchema,
   })
   .strict();

@@ -1,6 +1,7 @@
 // Request schemas of the four calculation endpoints. SI units throughout (V, A, Hz, H, T, m, A/m², °C).
 // Every number is finite (zod 4 rejects NaN and ±Infinity); messages name the field and the allowed range.
 import * as z from 'zod';
+import { text } from './text';
 import { CORE_FAMILIES, MATERIAL_FAMILIES } from '@shared/engine/types';
 import { storedIdTextSchema, uniqueListSchema } from './ids';
 
@@ -111,7 +112,7 @@ export const designLimitsSchema = z
       .optional(),
     minPermeabilityAtPeak: rangeNumber('minPermeabilityAtPeak', 0, 1, '', 'Smallest L(Ipk)/L0 of a powder core').optional(),
     allowedFamilies: uniqueListSchema(z.enum(CORE_FAMILIES), CORE_FAMILIES.length, 'allowedFamilies').meta({ description: 'Core families to consider' }).optional(),
-    allowedMaterials: uniqueListSchema(z.string().min(1).max(80), 200, 'allowedMaterials').meta({ description: 'Material ids to consider' }).optional(),
+    allowedMaterials: uniqueListSchema(text().min(1).max(80), 200, 'allowedMaterials').meta({ description: 'Material ids to consider' }).optional(),
   })
   .strict()
   .meta({ description: 'Design limits; omitted fields take the engine defaults' });
@@ -163,8 +164,8 @@ const rollOffSchema = z
 /** An inline (user-supplied) material, SI units, same meaning as CoreMaterial. */
 export const inlineMaterialSchema = z
   .object({
-    id: z.string().trim().min(1).max(80).optional(),
-    name: z.string().trim().min(1).max(80),
+    id: text().trim().min(1).max(80).optional(),
+    name: text().trim().min(1).max(80),
     family: z.enum(MATERIAL_FAMILIES),
     k: positiveNumber('k', 1e12, 'W/m³ (Hz, T)', 'Steinmetz k in SI units'),
     alpha: rangeNumber('alpha', 1, 3, '', 'Steinmetz α'),
@@ -201,7 +202,7 @@ export type InlineMaterial = z.infer<typeof inlineMaterialSchema>;
 
 export const rankBySchema = z.enum(['loss', 'volume', 'temperature']).meta({ description: 'Ranking of feasible candidates' });
 
-const idSchema = z.string().trim().min(1).max(80);
+const idSchema = text().trim().min(1).max(80);
 
 export const searchRequestSchema = z
   .object({

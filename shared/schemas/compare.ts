@@ -1,6 +1,7 @@
 // Requests of the material comparison: loss curves of several materials, and one design's losses
 // with every current material. SI units (Hz, T).
 import * as z from 'zod';
+import { text } from './text';
 import { converterSpecSchema, designLimitsSchema, wireRequestSchema } from './calc';
 import { storedIdSchema, storedIdTextSchema, uniqueListSchema } from './ids';
 
@@ -63,7 +64,7 @@ export const compareDesignRequestSchema = z
   .object({
     spec: converterSpecSchema,
     limits: designLimitsSchema.optional(),
-    coreId: z.string().trim().min(1).max(80).meta({ description: 'Catalogue or user core id' }),
+    coreId: text().trim().min(1).max(80).meta({ description: 'Catalogue or user core id' }),
     turns: z.number({ error: 'turns must be a whole number' }).int('turns must be a whole number').min(1, 'turns must be between 1 and 2000').max(2000, 'turns must be between 1 and 2000'),
     wire: wireRequestSchema,
     materialIds: uniqueListSchema(materialIdSchema, 200, 'materialIds').optional().meta({ description: 'Restrict to these materials (default: every current one)' }),

@@ -1,6 +1,7 @@
 // User-added cores: a ring from its nominal dimensions (IEC 60205 effective parameters), or a gapped
 // set given by its effective parameters. SI units (m, m², m³); the form converts from mm.
 import * as z from 'zod';
+import { text } from './text';
 import { CORE_FAMILIES, type CoreShape } from '@shared/engine/types';
 
 function dimension(field: string, max: number, unit: string) {
@@ -10,13 +11,12 @@ function dimension(field: string, max: number, unit: string) {
     .max(max, { error: `${field} must be at most ${max} ${unit}` });
 }
 
-const nameSchema = z
-  .string()
+const nameSchema = text()
   .trim()
   .min(1, 'name is required')
   .max(60, 'name must be at most 60 characters')
   .regex(/^[^=+\-@]/, 'name must not start with =, +, - or @');
-const noteSchema = z.string().trim().max(300, 'source must be at most 300 characters');
+const noteSchema = text().trim().max(300, 'source must be at most 300 characters');
 
 export const ringCoreRequestSchema = z
   .object({

@@ -1,6 +1,7 @@
 // Schemas of the designs API: a design's spec (converter + limits + allowed cores and materials), its
 // construction (core, material, turns, gap, wire), list queries and the exported design file. SI units throughout.
 import * as z from 'zod';
+import { text } from './text';
 import type { EvaluationResult } from '@shared/engine/evaluate';
 import { CORE_FAMILIES, type WireOption } from '@shared/engine/types';
 import { converterSpecSchema, designLimitsSchema, wireRequestSchema } from './calc';
@@ -24,7 +25,7 @@ export type DesignSpec = z.infer<typeof designSpecSchema>;
 
 export const constructionSchema = z
   .object({
-    coreId: z.string().trim().min(1).max(80).meta({ description: 'Catalogue core id' }),
+    coreId: text().trim().min(1).max(80).meta({ description: 'Catalogue core id' }),
     materialId: materialIdSchema.meta({ description: 'Stored material id' }),
     turns: z
       .number({ error: 'turns must be a whole number' })
@@ -45,8 +46,7 @@ export const constructionSchema = z
   .meta({ description: 'The chosen build; the server evaluates it and stores turns and gap as resolved' });
 export type Construction = z.infer<typeof constructionSchema>;
 
-const titleSchema = z
-  .string({ error: 'title is required' })
+const titleSchema = text({ error: 'title is required' })
   .trim()
   .min(1, { error: 'title is required' })
   .max(120, { error: 'title must be at most 120 characters' });
@@ -56,7 +56,7 @@ export const createDesignRequestSchema = z
     title: titleSchema,
     spec: designSpecSchema,
     construction: constructionSchema.optional(),
-    note: z.string().trim().max(2000).optional(),
+    note: text().trim().max(2000).optional(),
   })
   .strict()
   .meta({ description: 'A new design (revision 1, draft) owned by the caller' });
@@ -67,7 +67,7 @@ export const updateRevisionRequestSchema = z
     title: titleSchema.optional(),
     spec: designSpecSchema.optional(),
     construction: constructionSchema.nullable().optional(),
-    note: z.string().trim().max(2000).nullable().optional(),
+    note: text().trim().max(2000).nullable().optional(),
   })
   .strict()
   .refine((v) => Object.values(v).some((x) => x !== undefined), { error: 'Give at least one of title, spec, construction or note', path: ['spec'] })
@@ -77,7 +77,7 @@ export type UpdateRevisionRequest = z.infer<typeof updateRevisionRequestSchema>;
 export const newRevisionRequestSchema = z
   .object({
     from: storedIdSchema('revision number').optional().meta({ description: 'Revision to start from (default: the latest)' }),
-    note: z.string().trim().max(2000).optional(),
+    note: text().trim().max(2000).optional(),
   })
   .strict();
 export type NewRevisionRequest = z.infer<typeof newRevisionRequestSchema>;
@@ -101,7 +101,7 @@ export type DesignSortKey = (typeof DESIGN_SORT_KEYS)[number];
 export const designListQuerySchema = z
   .object({
     scope: z.enum(['mine', 'all']).default('all'),
-    q: z.string().trim().max(100).optional(),
+    q: text().trim().max(100).optional(),
     status: z.enum(DESIGN_STATUSES).optional(),
     sort: z.enum(DESIGN_SORT_KEYS).default('updated'),
     dir: z.enum(['asc', 'desc']).default('desc'),

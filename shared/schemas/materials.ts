@@ -2,6 +2,7 @@
 // their conversion to the SI values the engine and the database use (W/m³, Hz, T, kg/m³, °C).
 // Every problem names the column it comes from, so the upload preview can show it by row and column.
 import * as z from 'zod';
+import { text } from './text';
 import { steinmetzKFromSi, steinmetzKToSi } from '@shared/engine/core-loss';
 import { MATERIAL_FAMILIES, type CoreMaterial, type MaterialFamily } from '@shared/engine/types';
 import { storedIdTextSchema, uniqueListSchema } from './ids';
@@ -66,7 +67,7 @@ const shown = (text: string) => (text.length > 24 ? `${text.slice(0, 24)}…` : 
 
 function numberCell(range: { min?: number; max?: number; exclusiveMin?: number }, required: boolean) {
   // One transform per cell (trim, parse, range) keeps a 10,000-row file fast to validate.
-  return z.string().transform((raw, ctx): number | undefined => {
+  return text().transform((raw, ctx): number | undefined => {
     const trimmed = raw.trim();
     // An export escapes a leading minus or plus with an apostrophe (formula safety); read it back.
     const text = /^'[-+]/.test(trimmed) ? trimmed.slice(1) : trimmed;
@@ -94,7 +95,7 @@ const required = (range: { min?: number; max?: number; exclusiveMin?: number }) 
 const optional = (range: { min?: number; max?: number; exclusiveMin?: number }) => numberCell(range, false) as z.ZodType<number | undefined, string>;
 
 function textCell(max: number) {
-  return z.string().transform((raw, ctx) => {
+  return text().transform((raw, ctx) => {
     const text = raw.trim();
     const fail = (message: string) => ctx.addIssue({ code: 'custom', message, input: raw });
     if (text === '') fail('is required');
@@ -106,7 +107,7 @@ function textCell(max: number) {
 }
 
 function choiceCell<const T extends readonly string[]>(choices: T, message: string) {
-  return z.string().transform((raw, ctx): T[number] => {
+  return text().transform((raw, ctx): T[number] => {
     const text = raw.trim();
     if (!choices.includes(text)) ctx.addIssue({ code: 'custom', message, input: raw });
     return text as T[number];
@@ -282,16 +283,17 @@ export function materialCellsFromValues(values: MaterialValues): Record<Material
 export const materialEditSchema = z
   .object(
     Object.fromEntries(
-      MATERIAL_CSV_COLUMNS.map((c) => [c, z.union([z.string().max(500), z.number()]).optional()]),
+      MATERIAL_CSV_COLUMNS.map((c) => [c, z.union([text().max(500), z.number()]).optional()]),
     ) as Record<MaterialCsvColumn, z.ZodOptional<z.ZodUnion<[z.ZodString, z.ZodNumber]>>>,
   )
-  .strict();
+  .strict()
+  .refine((edit) => Object.values(edit).some((v) => v !== undefined), { error: 'Give at least one column to change', path: ['(body)'] });
 export type MaterialEdit = z.infer<typeof materialEditSchema>;
 
 export const importDecisionSchema = z.enum(['new-version', 'skip']);
 export type ImportDecision = z.infer<typeof importDecisionSchema>;
 /** Per existing name (as written in the file): make a new version, or leave the stored one alone. */
-export const importDecisionsSchema = z.record(z.string().max(80), importDecisionSchema);
+export const importDecisionsSchema = z.record(text().max(80), importDecisionSchema);
 
 export type PreviewStatus = 'new' | 'exists' | 'error';
 export interface PreviewRow {
@@ -308,8 +310,7 @@ export interface ImportPreview {
 
 export const materialExportQuerySchema = z
   .object({
-    ids: z
-      .string()
+    ids: text()
       .max(20000, { error: 'ids must be a comma-separated list of material ids' })
       .transform((list) => list.split(','))
       .pipe(uniqueListSchema(storedIdTextSchema(), 1000, 'ids'))

@@ -1,14 +1,14 @@
 import * as z from 'zod';
+import { text } from './text';
 
 export const transitionRequestSchema = z
-  .object({ comment: z.string().trim().max(2000, { error: 'At most 2000 characters' }).optional() })
+  .object({ comment: text().trim().max(2000, { error: 'At most 2000 characters' }).optional() })
   .strict();
 export type TransitionRequest = z.infer<typeof transitionRequestSchema>;
 
 export const returnRequestSchema = z
   .object({
-    comment: z
-      .string({ error: 'Say what needs to change' })
+    comment: text({ error: 'Say what needs to change' })
       .trim()
       .min(1, { error: 'Say what needs to change' })
       .max(2000, { error: 'At most 2000 characters' }),
@@ -22,7 +22,7 @@ export const releaseRequestSchema = z
       .int({ error: 'quantity must be a whole number' })
       .min(1, { error: 'quantity must be between 1 and 100000' })
       .max(100000, { error: 'quantity must be between 1 and 100000' }),
-    comment: z.string().trim().max(2000, { error: 'At most 2000 characters' }).optional(),
+    comment: text().trim().max(2000, { error: 'At most 2000 characters' }).optional(),
   })
   .strict();
 export type ReleaseRequest = z.infer<typeof releaseRequestSchema>;
@@ -46,7 +46,7 @@ export const unitMeasurementSchema = z
     resistance: finite('resistance', 1e-6, 1e4, 'Ω'),
     resistanceTemperature: finite('resistanceTemperature', -40, 150, '°C'),
     hipot: z.enum(['pass', 'fail', 'not_tested'], { error: 'hipot must be pass, fail or not_tested' }),
-    notes: z.string().trim().max(2000, { error: 'At most 2000 characters' }).optional(),
+    notes: text().trim().max(2000, { error: 'At most 2000 characters' }).optional(),
   })
   .strict();
 export type UnitMeasurementRequest = z.infer<typeof unitMeasurementSchema>;

@@ -7,10 +7,13 @@ let t: TestApp;
 let engineer: ApiClient;
 let admin: ApiClient;
 let winder: ApiClient;
+let anonymous: ApiClient;
 
 beforeAll(async () => {
   t = await createTestApp();
-  [engineer, admin, winder] = await Promise.all([signedInAs(t.app, 'engineer'), signedInAs(t.app, 'admin'), signedInAs(t.app, 'winder')]);
+  [engineer, admin, winder, anonymous] = await Promise.all(
+    (['engineer', 'admin', 'winder', 'anonymous'] as const).map((role) => signedInAs(t.app, role)),
+  );
 });
 afterAll(() => t.close());
 
@@ -30,7 +33,7 @@ async function rowCounts(): Promise<Record<string, number>> {
 const SPEC = { vinMin: 24, vinMax: 36, vout: 12, ioutMax: 10, frequency: 100e3, rippleRatio: 0.3 };
 const nested = (depth: number) => '['.repeat(depth) + ']'.repeat(depth);
 
-type Who = 'engineer' | 'admin' | 'winder';
+type Who = 'engineer' | 'admin' | 'winder' | 'anonymous';
 interface HostileCase {
   name: string;
   who: Who;
@@ -59,7 +62,8 @@ const CASES: HostileCase[] = [
   { name: 'a 10 MB body', who: 'engineer', method: 'post', url: '/api/calc/search', raw: { type: 'application/json', data: JSON.stringify({ spec: SPEC, padding: 'x'.repeat(10 * 1024 * 1024) }) }, status: 413 },
   { name: 'JSON nested 5,000 deep', who: 'engineer', method: 'post', url: '/api/calc/search', raw: { type: 'application/json', data: `{"spec": ${nested(5000)}}` }, status: 400, field: 'spec' },
   { name: 'unknown field alongside valid ones', who: 'engineer', method: 'post', url: '/api/calc/operating-point', body: { ...SPEC, debug: true }, status: 400, field: 'debug' },
-  { name: 'prototype pollution attempt', who: 'engineer', method: 'post', url: '/api/calc/operating-point', raw: { type: 'application/json', data: JSON.stringify(SPEC).replace('{', '{"__proto__":{"role":"admin"},') }, status: 400 },
+  { name: 'prototype pollution attempt', who: 'engineer', method: 'post', url: '/api/calc/operating-point', raw: { type: 'application/json', data: JSON.stringify(SPEC).replace('{', '{"__proto__":{"role":"admin"},') }, status: 400, field: '__proto__' },
+  { name: 'constructor as a body key', who: 'engineer', method: 'post', url: '/api/calc/operating-point', body: { ...SPEC, constructor: { prototype: { role: 'admin' } } }, status: 400, field: 'constructor' },
   { name: 'nested object where a number belongs', who: 'engineer', method: 'post', url: '/api/calc/operating-point', body: { ...SPEC, vinMax: { $gt: 0 } }, status: 400, field: 'vinMax' },
   { name: 'SQL fragment as a material id', who: 'engineer', method: 'post', url: '/api/calc/search', body: { spec: SPEC, materialIds: ["1; drop table users; --"] }, status: 400, field: 'materialIds.0' },
   { name: 'SQL fragment as a core id', who: 'engineer', method: 'post', url: '/api/calc/evaluate', body: { spec: SPEC, coreId: "' or 1=1 --", materialId: '1', wire: { kind: 'awg', awg: 18, strands: 1 } }, status: 400, field: 'coreId' },
@@ -86,6 +90,22 @@ const CASES: HostileCase[] = [
   { name: 'formula-like user core name', who: 'engineer', method: 'post', url: '/api/catalogue/cores', body: { kind: 'ring', name: '=HYPERLINK("x")', family: 'RING', outerDiameter: 0.02, innerDiameter: 0.01, height: 0.007 }, status: 400, field: 'name' },
   { name: 'gapped core whose Ve contradicts Ae·le', who: 'engineer', method: 'post', url: '/api/catalogue/cores', body: { kind: 'shape', name: 'Contradiction', family: 'E', ae: 1e-4, le: 0.08, ve: 1e-5, windowArea: 1.5e-4, windowHeight: 0.02, bobbinWidth: 0.018, bobbinHeight: 0.006, mlt: 0.06, surfaceArea: 0.003, source: 'test' }, status: 400, field: 've' },
   { name: 'material edit with a non-numeric α', who: 'engineer', method: 'patch', url: '/api/materials/1', body: { alpha: 'one point five' }, status: 400, field: 'alpha' },
+  // Text PostgreSQL cannot store (NUL, an unpaired UTF-16 surrogate), in every kind of free-text field.
+  { name: 'NUL in a design title', who: 'engineer', method: 'post', url: '/api/designs', body: { title: 'Buck\u0000', spec: SPEC }, status: 400, field: 'title' },
+  { name: 'unpaired surrogate in a design title', who: 'engineer', method: 'post', url: '/api/designs', body: { title: 'Buck \ud800', spec: SPEC }, status: 400, field: 'title' },
+  { name: 'NUL in a design note', who: 'engineer', method: 'post', url: '/api/designs', body: { title: 'Buck', spec: SPEC, note: 'n\u0000' }, status: 400, field: 'note' },
+  { name: 'unpaired low surrogate in a revision note', who: 'engineer', method: 'patch', url: '/api/designs/1/revisions/1', body: { note: '\udc00 note' }, status: 400, field: 'note' },
+  { name: 'NUL in a unit note', who: 'winder', method: 'post', url: '/api/shop/orders/1/units', body: { inductance: 1e-5, testFrequency: 1e4, resistance: 0.01, resistanceTemperature: 25, hipot: 'pass', notes: 'ok\u0000' }, status: 400, field: 'notes' },
+  { name: 'unpaired surrogate in a unit note', who: 'winder', method: 'post', url: '/api/shop/orders/1/units', body: { inductance: 1e-5, testFrequency: 1e4, resistance: 0.01, resistanceTemperature: 25, hipot: 'pass', notes: 'ok \ud800' }, status: 400, field: 'notes' },
+  { name: 'NUL in a user core name', who: 'engineer', method: 'post', url: '/api/catalogue/cores', body: { kind: 'ring', name: 'Ring\u0000', family: 'RING', outerDiameter: 0.02, innerDiameter: 0.01, height: 0.007 }, status: 400, field: 'name' },
+  { name: 'NUL in a material name', who: 'engineer', method: 'patch', url: '/api/materials/1', body: { name: 'N87\u0000' }, status: 400, field: 'name' },
+  { name: 'unpaired surrogate in a material name', who: 'engineer', method: 'patch', url: '/api/materials/1', body: { name: 'N87 \udbff' }, status: 400, field: 'name' },
+  { name: 'NUL in a display name', who: 'admin', method: 'post', url: '/api/admin/users', body: { username: 'nulname', displayName: 'X\u0000', role: 'engineer', password: 'long-enough-pw' }, status: 400, field: 'displayName' },
+  { name: 'NUL in the search query ?q=', who: 'engineer', method: 'get', url: '/api/designs?q=buck%00', status: 400, field: 'q' },
+  { name: 'NUL in limits.allowedMaterials', who: 'engineer', method: 'post', url: '/api/calc/search', body: { spec: SPEC, limits: { allowedMaterials: ['1\u0000'] } }, status: 400, field: 'limits.allowedMaterials.0' },
+  { name: 'unpaired surrogate in limits.allowedMaterials', who: 'engineer', method: 'post', url: '/api/calc/search', body: { spec: SPEC, limits: { allowedMaterials: ['\ud800'] } }, status: 400, field: 'limits.allowedMaterials.0' },
+  { name: 'NUL in the sign-in username', who: 'anonymous', method: 'post', url: '/api/auth/sign-in', body: { username: 'ruth\u0000', password: 'whatever-it-is' }, status: 400, field: 'username' },
+  { name: 'unpaired surrogate in the sign-in username', who: 'anonymous', method: 'post', url: '/api/auth/sign-in', body: { username: 'ruth\ud800', password: 'whatever-it-is' }, status: 400, field: 'username' },
 ];
 
 describe('hostile input', () => {
@@ -94,7 +114,7 @@ describe('hostile input', () => {
   });
 
   it.each(CASES)('$name → $status in the error shape, naming the field, with nothing written', async (c) => {
-    const client = { engineer, admin, winder }[c.who];
+    const client = { engineer, admin, winder, anonymous }[c.who];
     const before = await rowCounts();
     let res;
     if (c.raw) {

@@ -50,3 +50,13 @@ describe('GET /api/openapi.json', () => {
     expect(saved.required).toEqual(['designId', 'revision']);
   });
 });
+
+describe('admin user edits', () => {
+  it('say what the schema allows: display name, role, disabled — no e-mail or password', async () => {
+    const { paths } = (await engineer.get('/api/openapi.json')).body;
+    const patch = paths['/admin/users/{id}'].patch;
+    expect(Object.keys(patch.requestBody.content['application/json'].schema.properties).sort()).toEqual(['disabled', 'displayName', 'role']);
+    expect(patch.summary).not.toMatch(/e-mail|password/i);
+    expect(patch.summary).toMatch(/display name/);
+  });
+});

@@ -1,13 +1,9 @@
-import { Writable } from 'node:stream';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { pino } from 'pino';
-import pg from 'pg';
-import { createApp } from '../../server/app.ts';
-import { createDb } from '../../server/db/client.ts';
 import { materials } from '../../server/db/schema.ts';
 import { DEMO_USERS } from '../../server/seed/demo-scenario.ts';
 import { ApiClient, signedInAs } from './support/api-client.ts';
-import { createTestApp, resetDatabase, tableCount, testConfig, type TestApp } from './support/test-app.ts';
+import { createTestApp, resetDatabase, tableCount, type TestApp } from './support/test-app.ts';
+import { createAppCapturingLogs } from './support/log-capture.ts';
 
 let t: TestApp;
 beforeAll(async () => {
@@ -55,19 +51,8 @@ describe('security headers', () => {
 
 describe('logs', () => {
   it('never contain a password, the session secret or a session cookie', async () => {
-    const captured: string[] = [];
-    const sink = new Writable({
-      write(chunk: Buffer, _enc, done) {
-        captured.push(chunk.toString());
-        done();
-      },
-    });
-    const config = testConfig({ LOG_LEVEL: 'trace' });
-    const pool = new pg.Pool({ connectionString: config.databaseUrl, max: 3 });
-    const db = createDb(pool);
+    const { app, db, config, logText, close } = createAppCapturingLogs();
     await resetDatabase(db, config);
-    const logger = pino({ level: 'trace' }, sink);
-    const { app, close } = createApp({ config, pool, db, logger, mailTarget: { host: '127.0.0.1', port: 1, secure: false, from: 'x@localhost' } });
     try {
       for (const user of DEMO_USERS) {
         const client = new ApiClient(app);
@@ -76,7 +61,7 @@ describe('logs', () => {
         await client.post('/api/account/password', { currentPassword: user.password, newPassword: `${user.password}-new` });
         await client.get('/api/no-such-route');
       }
-      const text = captured.join('');
+      const text = logText();
       expect(text.length).toBeGreaterThan(1000); // the requests really were logged
       for (const user of DEMO_USERS) expect(text).not.toContain(user.password);
       expect(text).not.toContain(config.sessionSecret);
@@ -84,7 +69,6 @@ describe('logs', () => {
       expect(text).not.toMatch(/XSRF-TOKEN=/);
     } finally {
       await close();
-      await pool.end();
     }
   });
 });
