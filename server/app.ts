@@ -8,6 +8,7 @@ import { AuditRepository } from './audit/audit.repository.ts';
 import { AuditService } from './audit/audit.service.ts';
 import { authRouter } from './auth/auth.router.ts';
 import { createCsrf } from './auth/csrf.ts';
+import { SessionsRepository } from './auth/sessions.repository.ts';
 import { createDesignServices } from './designs/design-services.ts';
 import { designsRouter } from './designs/designs.router.ts';
 import { createPassport } from './auth/passport.ts';
@@ -127,7 +128,7 @@ export function createApp(deps: AppDeps) {
   api.use(passport.session());
   api.use(csrf.protection);
   api.use('/auth', authRouter({ config, passport, users, audit, issueCsrfToken: csrf.issueToken }));
-  api.use('/account', accountRouter(users));
+  api.use('/account', accountRouter(users, new SessionsRepository(deps.db)));
   api.use('/admin/users', adminUsersRouter(users));
   api.use('/admin/audit', auditRouter(audit));
   api.use('/calc', calcRouter(calc));
