@@ -20,6 +20,7 @@ import { CatalogueService } from './catalogue/catalogue.service.ts';
 import type { Config } from './config.ts';
 import type { Db } from './db/client.ts';
 import { healthRouter } from './health/health.router.ts';
+import { JobQueue } from './jobs/job-queue.ts';
 import { MaterialsRepository } from './materials/materials.repository.ts';
 import { materialsRouter } from './materials/materials.router.ts';
 import { MailDeliveryService, type SmtpTarget } from './mail/mail-delivery.service.ts';
@@ -57,6 +58,7 @@ export interface AppDeps {
 }
 
 export interface Services {
+  jobs: JobQueue;
   audit: AuditService;
   users: UsersService;
   catalogue: CatalogueService;
@@ -70,7 +72,8 @@ export interface Services {
   outbox: OutboxService;
 }
 
-export function createServices({ config, db, logger, mailTarget }: Pick<AppDeps, 'config' | 'db' | 'logger' | 'mailTarget'>): Services {
+export function createServices({ config, pool, db, logger, mailTarget }: Pick<AppDeps, 'config' | 'pool' | 'db' | 'logger' | 'mailTarget'>): Services {
+  const jobs = new JobQueue({ pool, schema: config.jobs.schema, pollSeconds: config.jobs.pollSeconds, logger });
   const audit = new AuditService(new AuditRepository(db));
   const users = new UsersService(new UsersRepository(db), audit, config.bcryptCost);
   const catalogue = new CatalogueService();
@@ -78,11 +81,11 @@ export function createServices({ config, db, logger, mailTarget }: Pick<AppDeps,
   const calc = new CalcService(catalogue, materials);
   const materialLibrary = new MaterialsService(materials, audit);
   const userCores = new UserCoresService(new UserCoresRepository(db), catalogue, audit);
-  const mail = new MailDeliveryService(db, mailTarget, config.smtp.retryDelaysMs, logger);
+  const mail = new MailDeliveryService(db, jobs, mailTarget, config.smtp.retryDelaysMs, logger);
   const shop = new ShopService(new ShopRepository(db), catalogue, mail, audit);
   const review = new ReviewService(new ReviewRepository(db), audit, shop);
   const outbox = new OutboxService(db);
-  return { audit, users, catalogue, materials, calc, materialLibrary, userCores, mail, shop, review, outbox };
+  return { jobs, audit, users, catalogue, materials, calc, materialLibrary, userCores, mail, shop, review, outbox };
 }
 
 export function createApp(deps: AppDeps) {
@@ -166,7 +169,10 @@ export function createApp(deps: AppDeps) {
   return {
     app,
     services,
+    /** Starts the background job workers (this instance then sends queued mail too). */
+    start: () => services.jobs.start(),
     close: async () => {
+      await services.jobs.stop();
       services.mail.close();
       await sessions.close();
     },
