@@ -99,8 +99,8 @@ export function createApp(deps: AppDeps) {
     designServices.designs,
   );
   const openApiDocument = buildOpenApiDocument();
-  const passport = createPassport(users);
   const sessions = createSessionMiddleware(config, pool);
+  const passport = createPassport(users, sessions.readWithSession);
   const csrf = createCsrf(config);
 
   const app = express();
@@ -109,7 +109,12 @@ export function createApp(deps: AppDeps) {
   app.use(
     pinoHttp({
       logger,
-      redact: ['req.headers.cookie', 'req.headers["x-xsrf-token"]', 'res.headers["set-cookie"]'],
+      // One short line per API request: no header dumps (cookies and tokens never reach the logs, and serialising
+      // every header of every request was a large share of a request's cost).
+      serializers: {
+        req: (req: { id: unknown; method: string; url: string }) => ({ id: req.id, method: req.method, url: req.url }),
+        res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
+      },
       customLogLevel: (_req, res, err) => (err || res.statusCode >= 500 ? 'error' : 'info'),
       autoLogging: { ignore: (req) => !req.url?.startsWith('/api') },
     }),
@@ -140,7 +145,7 @@ export function createApp(deps: AppDeps) {
   api.use('/compare', compareRouter(compare));
   api.use('/designs', designsRouter(designServices.designs, designServices.exports));
   api.use('/materials', materialLibraryRouter(services.materialLibrary));
-  api.use('/materials', materialsRouter(materials));
+  api.use('/materials', materialsRouter(materials, (req, name) => sessions.readWithSession(req)?.generations[name]));
   api.use('/revisions', reviewRouter(review));
   api.use('/inbox', inboxRouter(review));
   api.use('/shop', shopRouter(shop));

@@ -90,3 +90,32 @@ describe('changing the password', () => {
     expect((await new ApiClient(t.app).signIn(username, 'a-new-long-passphrase-42')).status).toBe(200);
   });
 });
+
+describe('the signed-in path reads the user and the data fresh on every request', () => {
+  it('a user disabled or demoted in the database (by any app instance) counts at the next request', async () => {
+    const admin = await signedInAs(t.app, 'admin');
+    const winder = await signedInAs(t.app, 'winder');
+    expect((await admin.get('/api/admin/users')).status).toBe(200);
+    const { username } = demoUser('admin');
+    await t.pool.query(`update users set role = 'engineer' where username = $1`, [username]);
+    expect((await admin.get('/api/admin/users')).status).toBe(403);
+    await t.pool.query(`update users set role = 'admin' where username = $1`, [username]);
+    expect((await admin.get('/api/admin/users')).status).toBe(200);
+    await t.pool.query(`update users set disabled = true where username = $1`, [demoUser('winder').username]);
+    expect((await winder.get('/api/materials')).status).toBe(401);
+    await t.pool.query(`update users set disabled = false where username = $1`, [demoUser('winder').username]);
+  });
+
+  it('the materials list answered from cache follows a change written straight to the table', async () => {
+    const client = await signedInAs(t.app, 'reviewer'); // the engineer's password was changed above
+    const first = await client.get('/api/materials');
+    expect((await client.get('/api/materials')).body).toEqual(first.body);
+    const { id, name } = first.body.materials[0] as { id: string; name: string };
+    await t.pool.query('update materials set name = $1 where id = $2', [`${name} (renamed)`, Number(id)]);
+    const after = await client.get('/api/materials');
+    expect(after.body.materials.find((m: { id: string }) => m.id === id).name).toBe(`${name} (renamed)`);
+    expect(after.headers['etag']).not.toBe(first.headers['etag']);
+    const revalidated = await client.agent.get('/api/materials').set('If-None-Match', after.headers['etag'] as string);
+    expect(revalidated.status).toBe(304);
+  });
+});
