@@ -9,6 +9,7 @@ import { AuditRepository } from './audit/audit.repository.ts';
 import { AuditService } from './audit/audit.service.ts';
 import { authRouter } from './auth/auth.router.ts';
 import { createCsrf } from './auth/csrf.ts';
+import { SessionsRepository } from './auth/sessions.repository.ts';
 import { createDesignServices } from './designs/design-services.ts';
 import { designsRouter } from './designs/designs.router.ts';
 import { createPassport } from './auth/passport.ts';
@@ -20,6 +21,7 @@ import { CatalogueService } from './catalogue/catalogue.service.ts';
 import type { Config } from './config.ts';
 import type { Db } from './db/client.ts';
 import { healthRouter } from './health/health.router.ts';
+import { JobQueue } from './jobs/job-queue.ts';
 import { MaterialsRepository } from './materials/materials.repository.ts';
 import { materialsRouter } from './materials/materials.router.ts';
 import { MailDeliveryService, type SmtpTarget } from './mail/mail-delivery.service.ts';
@@ -59,6 +61,7 @@ export interface AppDeps {
 }
 
 export interface Services {
+  jobs: JobQueue;
   audit: AuditService;
   users: UsersService;
   catalogue: CatalogueService;
@@ -72,7 +75,8 @@ export interface Services {
   outbox: OutboxService;
 }
 
-export function createServices({ config, db, logger, mailTarget }: Pick<AppDeps, 'config' | 'db' | 'logger' | 'mailTarget'>): Services {
+export function createServices({ config, pool, db, logger, mailTarget }: Pick<AppDeps, 'config' | 'pool' | 'db' | 'logger' | 'mailTarget'>): Services {
+  const jobs = new JobQueue({ pool, schema: config.jobs.schema, pollSeconds: config.jobs.pollSeconds, logger });
   const audit = new AuditService(new AuditRepository(db));
   const users = new UsersService(new UsersRepository(db), audit, config.bcryptCost);
   const catalogue = new CatalogueService();
@@ -80,11 +84,11 @@ export function createServices({ config, db, logger, mailTarget }: Pick<AppDeps,
   const calc = new CalcService(catalogue, materials);
   const materialLibrary = new MaterialsService(materials, audit);
   const userCores = new UserCoresService(new UserCoresRepository(db), catalogue, audit);
-  const mail = new MailDeliveryService(db, mailTarget, config.smtp.retryDelaysMs, logger);
+  const mail = new MailDeliveryService(db, jobs, mailTarget, config.smtp.retryDelaysMs, logger);
   const shop = new ShopService(new ShopRepository(db), catalogue, mail, audit);
   const review = new ReviewService(new ReviewRepository(db), audit, shop);
   const outbox = new OutboxService(db);
-  return { audit, users, catalogue, materials, calc, materialLibrary, userCores, mail, shop, review, outbox };
+  return { jobs, audit, users, catalogue, materials, calc, materialLibrary, userCores, mail, shop, review, outbox };
 }
 
 export function createApp(deps: AppDeps) {
@@ -98,8 +102,8 @@ export function createApp(deps: AppDeps) {
     designServices.designs,
   );
   const openApiDocument = buildOpenApiDocument();
-  const passport = createPassport(users);
   const sessions = createSessionMiddleware(config, pool);
+  const passport = createPassport(users, sessions.readWithSession);
   const csrf = createCsrf(config);
 
   const app = express();
@@ -108,8 +112,13 @@ export function createApp(deps: AppDeps) {
   app.use(
     pinoHttp({
       logger,
-      serializers: logSerializers,
-      redact: ['req.headers.cookie', 'req.headers["x-xsrf-token"]', 'res.headers["set-cookie"]'],
+      // One short line per API request: no header dumps (cookies and tokens never reach the logs, and serialising
+      // every header of every request was a large share of a request's cost).
+      serializers: {
+        ...logSerializers,
+        req: (req: { id: unknown; method: string; url: string }) => ({ id: req.id, method: req.method, url: req.url }),
+        res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
+      },
       customLogLevel: (_req, res, err) => (err || res.statusCode >= 500 ? 'error' : 'info'),
       autoLogging: { ignore: (req) => !req.url?.startsWith('/api') },
     }),
@@ -134,7 +143,7 @@ export function createApp(deps: AppDeps) {
   api.use(signedInForWrites);
   api.use(csrf.protection);
   api.use('/auth', authRouter({ config, passport, users, audit, issueCsrfToken: csrf.issueToken }));
-  api.use('/account', accountRouter(users));
+  api.use('/account', accountRouter(users, new SessionsRepository(deps.db)));
   api.use('/admin/users', adminUsersRouter(users));
   api.use('/admin/audit', auditRouter(audit));
   api.use('/calc', calcRouter(calc));
@@ -143,7 +152,7 @@ export function createApp(deps: AppDeps) {
   api.use('/compare', compareRouter(compare));
   api.use('/designs', designsRouter(designServices.designs, designServices.exports));
   api.use('/materials', materialLibraryRouter(services.materialLibrary));
-  api.use('/materials', materialsRouter(materials));
+  api.use('/materials', materialsRouter(materials, (req, name) => sessions.readWithSession(req)?.generations[name]));
   api.use('/revisions', reviewRouter(review));
   api.use('/inbox', inboxRouter(review));
   api.use('/shop', shopRouter(shop));
@@ -172,7 +181,10 @@ export function createApp(deps: AppDeps) {
   return {
     app,
     services,
+    /** Starts the background job workers (this instance then sends queued mail too). */
+    start: () => services.jobs.start(),
     close: async () => {
+      await services.jobs.stop();
       services.mail.close();
       await sessions.close();
     },

@@ -25,6 +25,8 @@ const envSchema = z.object({
   SMTP_PASSWORD: z.string().optional(),
   MAIL_FROM: z.string().default('Gapwright <gapwright@localhost>'),
   FAKE_SMTP_PORT: z.coerce.number().int().min(0).max(65535).default(2525),
+  JOBS_SCHEMA: z.string().regex(/^[a-z_][a-z0-9_]{0,40}$/, { error: 'JOBS_SCHEMA must be a lower-case PostgreSQL name' }).default('pgboss'),
+  JOBS_POLL_SECONDS: z.coerce.number().min(0.5).default(2),
   MAIL_RETRY_DELAYS_MS: z
     .string()
     .default('2000,10000,60000,300000')
@@ -50,6 +52,8 @@ export interface Config {
   bcryptCost: number;
   dbConnectTimeoutMs: number;
   /** A real SMTP relay when host is set; otherwise the built-in fake on loopback (development and tests). */
+  /** The background job queue (pg-boss): its schema and how often idle workers look for work. */
+  jobs: { schema: string; pollSeconds: number };
   smtp: { host?: string; port: number; secure: boolean; user?: string; password?: string; from: string; fakePort: number; retryDelaysMs: number[] };
 }
 
@@ -77,6 +81,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     sessionAbsoluteMs: e.SESSION_ABSOLUTE_HOURS * 3_600_000,
     bcryptCost: e.BCRYPT_COST,
     dbConnectTimeoutMs: e.DB_CONNECT_TIMEOUT_MS,
+    jobs: { schema: e.JOBS_SCHEMA, pollSeconds: e.JOBS_POLL_SECONDS },
     smtp: {
       host: e.SMTP_HOST || undefined,
       port: e.SMTP_PORT,

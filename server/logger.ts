@@ -27,6 +27,8 @@ export function createLogger(level: string, destination?: DestinationStream): Lo
       // Never let a password, a session secret or a token reach the logs.
       redact: { paths: ['password', '*.password', 'newPassword', 'currentPassword', 'sessionSecret', 'databaseUrl'], censor: '[redacted]' },
     },
-    destination,
+    // Written asynchronously unless a destination is given: lines that come while a write is under way go out
+    // together in the next one, instead of one blocking write per request. pino flushes what is left at exit.
+    destination ?? pino.destination({ dest: 1, sync: false }),
   );
 }

@@ -28,7 +28,8 @@ export async function startServer(config: Config): Promise<RunningServer> {
     ? { host: config.smtp.host, port: config.smtp.port, secure: config.smtp.secure, user: config.smtp.user, password: config.smtp.password, from: config.smtp.from }
     : { host: '127.0.0.1', port: fakeSmtp!.port, secure: false, from: config.smtp.from };
   if (fakeSmtp) logger.info({ port: fakeSmtp.port }, 'local fake SMTP server is capturing mail for the admin outbox');
-  const { app, close } = createApp({ config, pool, db, logger, mailTarget });
+  const { app, start, close } = createApp({ config, pool, db, logger, mailTarget });
+  await start();
 
   const server = await new Promise<Server>((resolve, reject) => {
     const s = app.listen(config.port, config.host, (err?: Error) => (err ? reject(err) : resolve(s)));

@@ -3,6 +3,7 @@ import session from 'express-session';
 import type { RequestHandler } from 'express';
 import type pg from 'pg';
 import type { Config } from '../config.ts';
+import { readUsersWithSessions } from './session-store.ts';
 
 declare module 'express-session' {
   interface SessionData {
@@ -28,6 +29,7 @@ export function createSessionMiddleware(config: Config, pool: pg.Pool) {
     // express-session touches the store on every request; idleRenewal below renews the expiry instead.
     disableTouch: true,
   });
+  const readWithSession = readUsersWithSessions(store, pool);
   const middleware = session({
     name: sessionCookieName(config),
     secret: config.sessionSecret,
@@ -45,7 +47,7 @@ export function createSessionMiddleware(config: Config, pool: pg.Pool) {
       maxAge: config.sessionIdleMs,
     },
   });
-  return { middleware, close: () => store.close() };
+  return { middleware, readWithSession, close: () => store.close() };
 }
 
 /** Ends a session that has outlived its absolute lifetime, however active it has been. */

@@ -1,8 +1,9 @@
 import { eq, sql } from 'drizzle-orm';
 import nodemailer, { type Transporter } from 'nodemailer';
 import type { Logger } from 'pino';
-import type { Db } from '../db/client.ts';
+import type { Db, Tx } from '../db/client.ts';
 import { mailDeliveries } from '../db/schema.ts';
+import { retryPolicyOf, type JobQueue, type JobRun } from '../jobs/job-queue.ts';
 
 export interface OutgoingMail {
   to: string;
@@ -20,17 +21,24 @@ export interface SmtpTarget {
   from: string;
 }
 
+/** A job of one mail kind: which delivery row it is, and the record the message is built from. */
+interface MailJob {
+  deliveryId: number;
+  ref: number;
+}
+
 /**
- * Sends the app's e-mails with retries. A delivery is recorded first and sent afterwards, so a
- * failing mail server never blocks or undoes what triggered the mail (a release).
+ * Sends the app's e-mails through the job queue. A delivery row and its job are written in the transaction of
+ * whatever the mail reports (a release), so neither exists without the other; the job is retried from the queue,
+ * across restarts and by any app instance. The row keeps what the admin outbox shows: pending / sent / failed,
+ * the attempts made and the last error.
  */
 export class MailDeliveryService {
   private readonly transporter: Transporter;
-  private readonly timers = new Set<NodeJS.Timeout>();
-  private closed = false;
 
   constructor(
     private readonly db: Db,
+    private readonly jobs: JobQueue,
     private readonly target: SmtpTarget,
     private readonly retryDelaysMs: number[],
     private readonly logger: Logger,
@@ -45,47 +53,44 @@ export class MailDeliveryService {
     });
   }
 
-  /** Records the delivery and starts sending it in the background; `build` makes the message when sent. */
-  async queue(orderId: number | null, to: string, subject: string, build: () => Promise<OutgoingMail>): Promise<number> {
-    const [row] = await this.db.insert(mailDeliveries).values({ orderId, recipient: to, subject }).returning({ id: mailDeliveries.id });
-    void this.attempt(row.id, build);
+  /** Declares a kind of mail: `build` makes the message from the record `ref` when it is sent (and resent). */
+  defineKind(kind: string, build: (ref: number) => Promise<OutgoingMail>): void {
+    this.jobs.define<MailJob>(`mail.${kind}`, retryPolicyOf(this.retryDelaysMs), (run) => this.attempt(run, build));
+  }
+
+  /** Records a pending delivery and its job inside `tx`; returns the delivery id. */
+  async queue(tx: Tx, kind: string, delivery: { orderId: number | null; ref: number; to: string; subject: string }): Promise<number> {
+    const [row] = await tx
+      .insert(mailDeliveries)
+      .values({ orderId: delivery.orderId, recipient: delivery.to, subject: delivery.subject })
+      .returning({ id: mailDeliveries.id });
+    await this.jobs.sendInTransaction(tx, `mail.${kind}`, { deliveryId: row.id, ref: delivery.ref } satisfies MailJob, { singletonKey: `delivery:${row.id}` });
     return row.id;
   }
 
-  private async attempt(id: number, build: () => Promise<OutgoingMail>): Promise<void> {
-    if (this.closed) return;
+  private async attempt({ data, attempt, lastAttempt }: JobRun<MailJob>, build: (ref: number) => Promise<OutgoingMail>): Promise<void> {
+    const id = data.deliveryId;
+    const [current] = await this.db.select({ status: mailDeliveries.status }).from(mailDeliveries).where(eq(mailDeliveries.id, id));
+    if (!current || current.status === 'sent') return;
     try {
-      const mail = await build();
+      const mail = await build(data.ref);
       await this.transporter.sendMail({ from: this.target.from, ...mail });
-      await this.db.update(mailDeliveries).set({ status: 'sent', sentAt: new Date(), attempts: sql`${mailDeliveries.attempts} + 1`, lastError: null }).where(eq(mailDeliveries.id, id));
     } catch (err) {
       const message = err instanceof Error ? err.message : String(err);
-      const [row] = await this.db
+      this.logger.warn({ delivery: id, attempt, err: message }, 'mail delivery failed');
+      await this.db
         .update(mailDeliveries)
-        .set({ attempts: sql`${mailDeliveries.attempts} + 1`, lastError: message.slice(0, 500) })
-        .where(eq(mailDeliveries.id, id))
-        .returning({ attempts: mailDeliveries.attempts })
-        .catch(() => [] as { attempts: number }[]);
-      const attempts = row?.attempts ?? this.retryDelaysMs.length + 1;
-      const delay = this.retryDelaysMs[attempts - 1];
-      this.logger.warn({ delivery: id, attempts, err: message }, 'mail delivery failed');
-      if (delay === undefined || this.closed) {
-        await this.db.update(mailDeliveries).set({ status: 'failed' }).where(eq(mailDeliveries.id, id)).catch(() => undefined);
-        return;
-      }
-      const timer = setTimeout(() => {
-        this.timers.delete(timer);
-        void this.attempt(id, build);
-      }, delay);
-      timer.unref();
-      this.timers.add(timer);
+        .set({ attempts: sql`${mailDeliveries.attempts} + 1`, lastError: message.slice(0, 500), ...(lastAttempt ? { status: 'failed' as const } : {}) })
+        .where(eq(mailDeliveries.id, id));
+      throw err; // the queue retries it (or records it failed after the last attempt)
     }
+    await this.db
+      .update(mailDeliveries)
+      .set({ status: 'sent', sentAt: new Date(), attempts: sql`${mailDeliveries.attempts} + 1`, lastError: null })
+      .where(eq(mailDeliveries.id, id));
   }
 
   close(): void {
-    this.closed = true;
-    for (const t of this.timers) clearTimeout(t);
-    this.timers.clear();
     this.transporter.close();
   }
 }

@@ -1,4 +1,4 @@
-import { and, asc, desc, eq, inArray, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, sql, type SQL } from 'drizzle-orm';
 import type { MaterialValues } from '@shared/schemas/materials';
 import type { Db } from '../db/client.ts';
 import { materialImports, materials, users } from '../db/schema.ts';
@@ -17,11 +17,18 @@ export interface MaterialWithAuthor extends MaterialRow {
 const UPDATE_CHUNK = 1000;
 
 export class MaterialsRepository {
-  constructor(readonly db: Db) {}
+  // The current versions by name, prepared once: the list is read on most pages.
+  private readonly currentInUse;
+  private readonly currentWithRetired;
+
+  constructor(readonly db: Db) {
+    const current = (where: SQL | undefined, name: string) => db.select().from(materials).where(where).orderBy(asc(materials.name)).prepare(name);
+    this.currentInUse = current(and(eq(materials.current, true), eq(materials.retired, false)), 'materials_current');
+    this.currentWithRetired = current(eq(materials.current, true), 'materials_current_with_retired');
+  }
 
   listCurrent(includeRetired = false): Promise<MaterialRow[]> {
-    const where = includeRetired ? eq(materials.current, true) : and(eq(materials.current, true), eq(materials.retired, false));
-    return this.db.select().from(materials).where(where).orderBy(asc(materials.name));
+    return (includeRetired ? this.currentWithRetired : this.currentInUse).execute();
   }
 
   findByIds(ids: number[]): Promise<MaterialRow[]> {

@@ -1,14 +1,23 @@
-import { Router } from 'express';
+import { Router, type Request } from 'express';
+import { GenerationCache } from '../http/generation-cache.ts';
 import { requireSignIn } from '../http/access.ts';
 import { toMaterialSummary } from './material-view.ts';
 import type { MaterialsRepository } from './materials.repository.ts';
 
-export function materialsRouter(materials: MaterialsRepository): Router {
+/** The change counter of a kind of data as read with the request's session (undefined if not read). */
+export type GenerationOf = (req: Request, name: string) => string | undefined;
+
+export function materialsRouter(materials: MaterialsRepository, generationOf: GenerationOf = () => undefined): Router {
   const router = Router();
+  const cache = new GenerationCache();
   router.use(requireSignIn);
+  // Read on most pages and changed rarely: answered from cache while the materials' change counter stands still.
   router.get('/', async (req, res) => {
     const includeRetired = req.query['retired'] === 'include';
-    res.json({ materials: (await materials.listCurrent(includeRetired)).map(toMaterialSummary) });
+    const answer = await cache.answer(includeRetired ? 'with-retired' : 'in-use', generationOf(req, 'materials'), async () => ({
+      materials: (await materials.listCurrent(includeRetired)).map(toMaterialSummary),
+    }));
+    res.set('ETag', answer.etag).type('json').send(answer.body);
   });
   return router;
 }

@@ -113,9 +113,8 @@ export class ReviewService {
     );
   }
 
-  async release(actor: Actor, revisionId: number, quantity: number, comment?: string) {
-    let orderId = 0;
-    const outcome = await this.transition(
+  release(actor: Actor, revisionId: number, quantity: number, comment?: string) {
+    return this.transition(
       actor,
       revisionId,
       'released',
@@ -132,14 +131,11 @@ export class ReviewService {
           await this.repo.addTransition(tx, { revisionId: id, fromStatus: 'released', toStatus: 'superseded', actorId: actor.id, comment: `Superseded by revision ${revision.revision}` });
         }
         const order = await this.shop.createOrder(tx, { revision, design, quantity, releasedAt, releasedBy: actor.id });
-        orderId = order.id;
+        await this.shop.queueReleaseMail(tx, order);
         return { to: 'released', details: { orderId: order.id, orderNumber: order.number, superseded } };
       },
       comment,
     );
-    // Sent after the release has committed: a mail failure never blocks or undoes it.
-    await this.shop.queueReleaseMail(orderId);
-    return outcome;
   }
 
   async timeline(revisionId: number) {

@@ -14,6 +14,7 @@ import type { ShopRepository } from './shop.repository.ts';
 import { buildWindingSheet } from './winding-sheet.ts';
 
 export const SHOP_EMAIL_KEY = 'shop_email';
+const RELEASE_MAIL = 'release';
 export const DEFAULT_SHOP_EMAIL = 'shop@harrow-lane.example';
 
 interface StoredSpec {
@@ -30,7 +31,9 @@ export class ShopService {
     private readonly catalogue: CatalogueService,
     private readonly mail: MailDeliveryService,
     private readonly audit: AuditService,
-  ) {}
+  ) {
+    mail.defineKind(RELEASE_MAIL, (orderId) => this.releaseMail(orderId));
+  }
 
   /** Called inside the release transaction: the sheet is built now and never recomputed. */
   async createOrder(tx: Tx, input: { revision: RevisionRow; design: DesignRow; quantity: number; releasedAt: Date; releasedBy: number }) {
@@ -71,11 +74,10 @@ export class ShopService {
     });
   }
 
-  async queueReleaseMail(orderId: number): Promise<number> {
-    const order = await this.repo.order(orderId);
-    if (!order) throw notFound('No such build order.');
-    const sheet = order.sheet as WindingSheet;
-    return this.mail.queue(order.id, await this.shopEmail(), releaseSubject(order.number, sheet), () => this.releaseMail(order.id));
+  /** Inside the release transaction: the hand-off mail is queued with the order, so neither exists alone. */
+  async queueReleaseMail(tx: Tx, order: { id: number; number: string; sheet: unknown }): Promise<number> {
+    const subject = releaseSubject(order.number, order.sheet as WindingSheet);
+    return this.mail.queue(tx, RELEASE_MAIL, { orderId: order.id, ref: order.id, to: await this.shopEmail(), subject });
   }
 
   async releaseMail(orderId: number): Promise<OutgoingMail> {

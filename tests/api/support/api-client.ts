@@ -4,6 +4,8 @@ import { DEMO_USERS } from '../../../server/seed/demo-scenario.ts';
 import type { Role } from '@shared/schemas/auth';
 
 type Method = 'get' | 'post' | 'patch' | 'put' | 'delete';
+/** An app in this process, or the base URL of a server running in its own. */
+type Target = Express | string;
 
 /**
  * A browser-like client: keeps the session cookie, and sends the XSRF-TOKEN cookie back as the
@@ -13,7 +15,7 @@ export class ApiClient {
   readonly agent: ReturnType<typeof request.agent>;
   csrfToken: string | undefined;
 
-  constructor(readonly app: Express) {
+  constructor(readonly app: Target) {
     this.agent = request.agent(app);
   }
 
@@ -55,7 +57,7 @@ export function demoUser(role: Role) {
   return user;
 }
 
-export async function signedInAs(app: Express, role: Role | 'anonymous'): Promise<ApiClient> {
+export async function signedInAs(app: Target, role: Role | 'anonymous'): Promise<ApiClient> {
   const client = new ApiClient(app);
   await client.session();
   if (role === 'anonymous') return client;

@@ -31,6 +31,7 @@ export function testConfig(overrides: Record<string, string> = {}): Config {
     SESSION_SECRET: 'test-session-secret-that-is-long-enough-0123456789',
     LOG_LEVEL: 'silent',
     STATIC_DIR: 'dist/gapwright/browser',
+    JOBS_POLL_SECONDS: '0.5',
     ...overrides,
   });
 }
@@ -39,7 +40,16 @@ export function testConfig(overrides: Record<string, string> = {}): Config {
 export async function resetDatabase(db: Db, config: Config): Promise<void> {
   await applyMigrations(db);
   await db.execute(sql`truncate table audit_log, session, app_settings, captured_mail, mail_deliveries, build_units, build_orders, revision_transitions, design_revisions, designs, user_cores, material_imports, materials, users restart identity cascade`);
+  await clearJobs(db, config.jobs.schema);
   await seedDemoOnce(db, config.bcryptCost);
+}
+
+/** The job queue's stored jobs go with the rows they belong to (its tables exist once a queue has started). */
+async function clearJobs(db: Db, schema: string): Promise<void> {
+  const exists = await db.execute(sql`select to_regclass(${`${schema}.job`}) is not null as found`);
+  if ((exists.rows[0] as { found: boolean }).found) {
+    await db.execute(sql`truncate table ${sql.identifier(schema)}.job, ${sql.identifier(schema)}.archive`);
+  }
 }
 
 /** Resets the suite's database on a short-lived pool, for tests whose server runs elsewhere (own process, harness). */
@@ -58,9 +68,11 @@ export async function createTestApp(overrides: Record<string, string> = {}): Pro
   pool.on('error', () => {});
   const db = createDb(pool);
   await resetDatabase(db, config);
-  const smtp = await startFakeSmtp(db, 0);
-  const mailTarget = { host: '127.0.0.1', port: smtp.port, secure: false, from: 'Gapwright tests <gapwright@localhost>' };
-  const { app, close, services } = createApp({ config, pool, db, logger: pino({ level: 'silent' }), mailTarget });
+  // A relay named in the overrides (e.g. one that is down) is used as given; otherwise a fake SMTP of its own.
+  const smtp = config.smtp.host ? undefined : await startFakeSmtp(db, 0);
+  const mailTarget = { host: config.smtp.host ?? '127.0.0.1', port: smtp?.port ?? config.smtp.port, secure: false, from: 'Gapwright tests <gapwright@localhost>' };
+  const { app, start, close, services } = createApp({ config, pool, db, logger: pino({ level: 'silent' }), mailTarget });
+  await start();
   return {
     app,
     db,
@@ -69,7 +81,7 @@ export async function createTestApp(overrides: Record<string, string> = {}): Pro
     services,
     close: async () => {
       await close();
-      await smtp.close();
+      await smtp?.close();
       await pool.end();
     },
   };

@@ -1,0 +1,106 @@
+import { sql, type SQL } from 'drizzle-orm';
+import PgBoss from 'pg-boss';
+import type pg from 'pg';
+import type { Logger } from 'pino';
+import type { Tx } from '../db/client.ts';
+
+/** How a kind of job is retried: one attempt, then `retries` more, `delaySeconds` apart (doubling if `backoff`). */
+export interface RetryPolicy {
+  retries: number;
+  delaySeconds: number;
+  backoff: boolean;
+}
+
+/** One job as its handler sees it: what was sent, and which attempt this is (1 = the first). */
+export interface JobRun<T> {
+  data: T;
+  attempt: number;
+  /** True when a failure now is final: no retry follows. */
+  lastAttempt: boolean;
+}
+
+interface Kind {
+  retry: RetryPolicy;
+  handler: (run: JobRun<never>) => Promise<void>;
+}
+
+export interface JobQueueOptions {
+  pool: pg.Pool;
+  /** The PostgreSQL schema that holds the queue's tables (tests may give each file its own). */
+  schema: string;
+  pollSeconds: number;
+  logger: Logger;
+}
+
+/**
+ * Background jobs stored in PostgreSQL (pg-boss): a job survives a restart, any app instance picks it up, and a job
+ * can be sent inside the transaction whose outcome it belongs to, so the two are committed (or undone) together.
+ * Each kind is registered once with its handler and retry policy; `start()` creates the queues and the workers.
+ */
+export class JobQueue {
+  private readonly boss: PgBoss;
+  private readonly kinds = new Map<string, Kind>();
+  private started = false;
+
+  constructor(private readonly options: JobQueueOptions) {
+    const { pool, schema } = options;
+    // pg-boss runs on the app's pool, so it needs no connections of its own.
+    this.boss = new PgBoss({ db: { executeSql: (text, values) => pool.query(text, values) }, schema, schedule: false });
+    this.boss.on('error', (err) => options.logger.warn({ err: err.message }, 'job queue error'));
+  }
+
+  /** Declares a kind of job; call before `start()`. */
+  define<T extends object>(name: string, retry: RetryPolicy, handler: (run: JobRun<T>) => Promise<void>): void {
+    if (this.started) throw new Error(`job kind ${name} defined after the queue started`);
+    this.kinds.set(name, { retry, handler: handler as Kind['handler'] });
+  }
+
+  async start(): Promise<void> {
+    if (this.started) return;
+    this.started = true;
+    await this.boss.start();
+    for (const [name, { retry, handler }] of this.kinds) {
+      await this.boss.createQueue(name, { name, retryLimit: retry.retries, retryDelay: retry.delaySeconds, retryBackoff: retry.backoff });
+      await this.boss.work<object>(name, { includeMetadata: true, batchSize: 1, pollingIntervalSeconds: this.options.pollSeconds }, async ([job]) => {
+        await handler({ data: job.data as never, attempt: job.retryCount + 1, lastAttempt: job.retryCount >= job.retryLimit });
+      });
+    }
+  }
+
+  /** Enqueues a job inside `tx`: it exists only if the transaction commits. */
+  async sendInTransaction(tx: Tx, name: string, data: object, options: { singletonKey?: string } = {}): Promise<string | null> {
+    const kind = this.kinds.get(name);
+    if (!kind) throw new Error(`unknown job kind ${name}`);
+    const { retries, delaySeconds, backoff } = kind.retry;
+    return this.boss.send(name, data, {
+      ...options,
+      retryLimit: retries,
+      retryDelay: delaySeconds,
+      retryBackoff: backoff,
+      db: { executeSql: async (text, values) => ({ rows: (await tx.execute(bound(text, values))).rows }) },
+    });
+  }
+
+  /** Lets running jobs finish (up to `timeoutMs`), then stops polling. Pending jobs stay stored for the next start. */
+  async stop(timeoutMs = 10_000): Promise<void> {
+    if (!this.started) return;
+    await this.boss.stop({ graceful: true, wait: true, close: false, timeout: timeoutMs });
+  }
+}
+
+/** pg-boss's own statement ($1, $2 … placeholders) as a Drizzle query with the same values bound as parameters. */
+function bound(text: string, values: unknown[]): SQL {
+  const parts = text.split(/\$(\d+)/);
+  const chunks: SQL[] = [];
+  parts.forEach((part, i) => chunks.push(i % 2 === 0 ? sql.raw(part) : sql`${sql.param(values[Number(part) - 1])}`));
+  return sql.join(chunks);
+}
+
+/** Our retry list (milliseconds between attempts) as pg-boss's policy: its count, first delay, and whether it grows. */
+export function retryPolicyOf(delaysMs: number[]): RetryPolicy {
+  return {
+    retries: delaysMs.length,
+    delaySeconds: Math.round((delaysMs[0] ?? 0) / 1000),
+    backoff: delaysMs.length > 1 && delaysMs[1] > delaysMs[0],
+  };
+}
