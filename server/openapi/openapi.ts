@@ -79,6 +79,7 @@ export function whoMay(endpoint: Endpoint): string {
 
 /** The operation of a declared endpoint, generated from its zod schemas. */
 function declaredRoute(endpoint: Endpoint): RouteConfig {
+  if (/:\w+/.test(endpoint.path) && !endpoint.params) throw new Error(`${routeKey(endpoint)} has path parameters but no params schema (idParamsSchema?)`);
   const status = String(endpoint.status ?? 200);
   const success =
     endpoint.produces !== undefined
