@@ -28,7 +28,8 @@ import { MailDeliveryService, type SmtpTarget } from './mail/mail-delivery.servi
 import { outboxRouter, settingsRouter } from './mail/outbox.router.ts';
 import { OutboxService } from './mail/outbox.service.ts';
 import { ReviewRepository } from './review/review.repository.ts';
-import { inboxRouter, reviewRouter } from './review/review.router.ts';
+import { inboxRouter } from './review/inbox.router.ts';
+import { reviewRouter } from './review/review.router.ts';
 import { ReviewService } from './review/review.service.ts';
 import { ShopRepository } from './shop/shop.repository.ts';
 import { shopRouter } from './shop/shop.router.ts';
@@ -40,7 +41,7 @@ import { CompareService } from './compare/compare.service.ts';
 import { UserCoresRepository } from './catalogue/user-cores.repository.ts';
 import { userCoresRouter } from './catalogue/user-cores.router.ts';
 import { UserCoresService } from './catalogue/user-cores.service.ts';
-import { buildOpenApiDocument } from './openapi/openapi.ts';
+import { buildOpenApiDocument, openApiRouter } from './openapi/openapi.ts';
 import type { AppError } from './http/errors.ts';
 import { apiNotFound, errorMiddleware } from './http/errors.ts';
 import { noStore, securityHeaders } from './http/security-headers.ts';
@@ -126,10 +127,7 @@ export function createApp(deps: AppDeps) {
   app.use(securityHeaders(config));
 
   // Health answers even when the session store (the database) is down.
-  app.use('/api/health', healthRouter(pool));
-  app.get('/api/openapi.json', (_req, res) => {
-    res.json(openApiDocument);
-  });
+  app.use('/api', healthRouter(pool), openApiRouter(openApiDocument));
 
   const api = express.Router();
   api.use(express.json({ limit: '1mb', strict: true }));
@@ -145,16 +143,16 @@ export function createApp(deps: AppDeps) {
   api.use('/auth', authRouter({ config, passport, users, audit, issueCsrfToken: csrf.issueToken }));
   api.use('/account', accountRouter(users, new SessionsRepository(deps.db)));
   api.use('/admin/users', adminUsersRouter(users));
-  api.use('/admin/audit', auditRouter(audit));
+  api.use(auditRouter(audit));
   api.use('/calc', calcRouter(calc));
+  api.use(catalogueRouter(services.userCores));
   api.use('/catalogue', userCoresRouter(services.userCores));
-  api.use('/catalogue', catalogueRouter(catalogue));
   api.use('/compare', compareRouter(compare));
   api.use('/designs', designsRouter(designServices.designs, designServices.exports));
   api.use('/materials', materialLibraryRouter(services.materialLibrary));
   api.use('/materials', materialsRouter(materials, (req, name) => sessions.readWithSession(req)?.generations[name]));
   api.use('/revisions', reviewRouter(review));
-  api.use('/inbox', inboxRouter(review));
+  api.use(inboxRouter(review));
   api.use('/shop', shopRouter(shop));
   api.use('/admin/outbox', outboxRouter(outbox));
   api.use('/admin/settings', settingsRouter(shop));

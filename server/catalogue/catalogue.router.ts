@@ -1,12 +1,11 @@
 import { Router } from 'express';
-import { requireSignIn } from '../http/access.ts';
-import type { CatalogueService } from './catalogue.service.ts';
+import { listCores } from '@shared/api/catalogue';
+import { mount } from '../http/endpoint.ts';
+import type { UserCoresService } from './user-cores.service.ts';
 
-export function catalogueRouter(catalogue: CatalogueService): Router {
+/** The core catalogue as listed: shipped cores and current user cores. Mounted at /api. */
+export function catalogueRouter(cores: UserCoresService): Router {
   const router = Router();
-  router.use(requireSignIn);
-  router.get('/cores', (_req, res) => {
-    res.json({ cores: catalogue.cores() });
-  });
+  mount(router, listCores, async () => ({ cores: await cores.list() }));
   return router;
 }

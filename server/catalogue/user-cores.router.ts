@@ -5,16 +5,13 @@ import { decisionsField, singleCsvUpload, uploadedFile } from '../http/csv-uploa
 import { parseBody, parseIdParam } from '../http/validate.ts';
 import type { UserCoresService } from './user-cores.service.ts';
 
-/** Shipped and user cores (one at a time or a CSV file); mounted before the shipped-only catalogue router so GET /cores lists both. */
+/** Shipped and user cores (one at a time or a CSV file); the listing itself is GET /cores in catalogue.router.ts. */
 export function userCoresRouter(cores: UserCoresService): Router {
   const router = Router();
   router.use(requireSignIn);
   const authors = requireRole('engineer', 'reviewer', 'admin');
   const curators = requireRole('reviewer', 'admin');
 
-  router.get('/cores', async (_req, res) => {
-    res.json({ cores: await cores.list() });
-  });
   router.post('/cores', authors, async (req, res) => {
     res.status(201).json(await cores.create(parseBody(userCoreRequestSchema, req), actorOf(req)));
   });

@@ -1,4 +1,4 @@
-// One entry per mounted API route: what it does, who may call it, and the zod schema of its JSON body or query
+// One entry per API route not yet declared in shared/api (see DEVELOPERS.md, "Declaring an API route"): what it does, who may call it, and the zod schema of its JSON body or query
 // (the same schema the route validates with). `tests/api/openapi.test.ts` fails when a route is missing here.
 import type * as z from 'zod';
 import { changePasswordRequestSchema, createUserRequestSchema, preferencesRequestSchema, signInRequestSchema, updateUserRequestSchema } from '@shared/schemas/auth';
@@ -37,16 +37,12 @@ const UPLOADERS = 'engineer, reviewer, admin';
 const CURATORS = 'reviewer, admin';
 
 export const ROUTE_DOCS: Record<string, RouteDoc> = {
-  'GET /api/health': { summary: 'Liveness and database reachability (answers even when the database is down)', who: 'anyone', answer: '{ status, database, version }' },
-  'GET /api/openapi.json': { summary: 'This document', who: 'anyone', answer: 'OpenAPI 3.1' },
   'GET /api/auth/session': { summary: 'The signed-in user (or null); sets the XSRF-TOKEN cookie', who: 'anyone', answer: '{ user }' },
   'POST /api/auth/sign-in': { summary: 'Sign in with username and password; a new session id; rate-limited', who: 'anyone', body: signInRequestSchema, answer: '{ user }' },
   'POST /api/auth/sign-out': { summary: 'End the session', who: 'anyone', answer: '204' },
   'PATCH /api/account/preferences': { summary: 'Light or dark theme', who: SIGNED_IN, body: preferencesRequestSchema, answer: '{ user }' },
   'POST /api/account/password': { summary: 'Change one’s own password (the current one is required)', who: SIGNED_IN, body: changePasswordRequestSchema, answer: '204' },
-  'GET /api/inbox': { summary: 'What waits for the caller: revisions to review, returned drafts, build orders', who: SIGNED_IN, answer: '{ items: [{ kind, label, designId, revisionId?, orderId?, since }] }' },
 
-  'GET /api/admin/audit': { summary: 'Audit log, newest first, paged', who: 'admin', answer: '{ entries, total }' },
   'GET /api/admin/users': { summary: 'Every account', who: 'admin', answer: '{ users }' },
   'POST /api/admin/users': { summary: 'Create an account', who: 'admin', body: createUserRequestSchema, answer: '{ user } (201)' },
   'PATCH /api/admin/users/:id': { summary: 'Change the display name or the role, or disable or enable the account (disabling or a new role ends the user’s sessions); at least one of displayName, role, disabled', who: 'admin', body: updateUserRequestSchema, answer: '{ user }' },
@@ -94,7 +90,6 @@ export const ROUTE_DOCS: Record<string, RouteDoc> = {
     answer: '{ engineVersion, design, coreId, turns, rows }',
   },
 
-  'GET /api/catalogue/cores': { summary: 'Shipped cores and current user cores (SI units, Ap, origin, version)', who: SIGNED_IN, answer: '{ cores }' },
   'GET /api/catalogue/cores/:id/history': { summary: 'Every version of a user core, newest first', who: SIGNED_IN, answer: '{ versions }' },
   'POST /api/catalogue/cores': { summary: 'Add a user core: a ring from dimensions (IEC 60205) or a gapped set from effective parameters', who: UPLOADERS, body: userCoreRequestSchema, answer: 'the listed core (201)' },
   'GET /api/catalogue/cores/template.csv': { summary: 'Core CSV template: two invented, illustrative rows', who: SIGNED_IN, answer: 'CSV', produces: 'text/csv' },

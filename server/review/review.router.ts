@@ -35,11 +35,3 @@ export function reviewRouter(review: ReviewService): Router {
 
   return router;
 }
-
-export function inboxRouter(review: ReviewService): Router {
-  const router = Router();
-  router.get('/', requireSignIn, async (req, res) => {
-    res.json(await review.inbox(actorOf(req)));
-  });
-  return router;
-}

@@ -1,4 +1,5 @@
 import type { Role } from '@shared/schemas/auth';
+import type { InboxItem } from '@shared/schemas/inbox';
 import type { AuditService } from '../audit/audit.service.ts';
 import type { Actor } from '../http/access.ts';
 import { AppError, badRequest, forbidden, notFound } from '../http/errors.ts';
@@ -147,8 +148,8 @@ export class ReviewService {
   }
 
   /** What is waiting for this person. */
-  async inbox(actor: Actor) {
-    const items: { kind: string; label: string; designId: number; revisionId?: number; orderId?: number; since: string }[] = [];
+  async inbox(actor: Actor): Promise<{ items: InboxItem[] }> {
+    const items: InboxItem[] = [];
     if (actor.role === 'reviewer') {
       for (const r of await this.repo.revisionsInStatus(['in_review', 'approved'])) {
         if (r.ownerId === actor.id || r.createdBy === actor.id) continue;

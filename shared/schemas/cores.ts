@@ -1,6 +1,7 @@
 // User-added cores: a ring from its nominal dimensions (IEC 60205 effective parameters), or a gapped
 // set given by its effective parameters. SI units (m, m², m³); the form converts from mm.
 import * as z from 'zod';
+import { coreShapeSchema } from '@shared/catalogue/core-schema';
 import { text } from './text';
 import { CORE_FAMILIES, type CoreShape } from '@shared/engine/types';
 
@@ -55,13 +56,18 @@ export const shapedCoreRequestSchema = z
 export const userCoreRequestSchema = z.discriminatedUnion('kind', [ringCoreRequestSchema, shapedCoreRequestSchema]);
 export type UserCoreRequest = z.infer<typeof userCoreRequestSchema>;
 
+/** The engine's CoreShape as an answer carries it: the fields only (the consistency checks ran when it was stored). */
+export const coreShapeAnswerSchema = z.object(coreShapeSchema.shape) satisfies z.ZodType<CoreShape>;
+
 /** A core as GET /api/catalogue/cores lists it: shipped or user-added, with its area product (m⁴). */
-export type ListedCore = CoreShape & {
-  areaProduct: number;
-  origin: 'shipped' | 'user';
-  userCoreId?: number;
-  version?: number;
-  retired?: boolean;
-  createdBy?: string | null;
-  createdAt?: string;
-};
+export const listedCoreSchema = coreShapeAnswerSchema.extend({
+  areaProduct: z.number(),
+  origin: z.enum(['shipped', 'user']),
+  userCoreId: z.number().int().optional(),
+  version: z.number().int().optional(),
+  retired: z.boolean().optional(),
+  createdBy: z.string().nullable().optional(),
+  createdAt: z.string().optional(),
+});
+export type ListedCore = z.infer<typeof listedCoreSchema>;
+export const coreListResponseSchema = z.object({ cores: z.array(listedCoreSchema) });

@@ -29,19 +29,19 @@ export const routes: Routes = [
       {
         path: 'materials',
         title: 'Materials · Gapwright',
-        canActivate: [roleGuard(['engineer', 'reviewer', 'admin'])],
+        canActivate: [roleGuard('library')],
         loadComponent: () => import('./materials/material-library').then((m) => m.MaterialLibrary),
       },
       {
         path: 'cores',
         title: 'Cores · Gapwright',
-        canActivate: [roleGuard(['engineer', 'reviewer', 'admin'])],
+        canActivate: [roleGuard('library')],
         loadComponent: () => import('./cores/core-catalogue').then((m) => m.CoreCatalogue),
       },
       {
         path: 'compare',
         title: 'Compare materials · Gapwright',
-        canActivate: [roleGuard(['engineer', 'reviewer', 'admin'])],
+        canActivate: [roleGuard('library')],
         loadComponent: () => import('./compare/material-compare').then((m) => m.MaterialCompare),
       },
       {
@@ -56,23 +56,23 @@ export const routes: Routes = [
       {
         path: 'review',
         title: 'Review and release · Gapwright',
-        canActivate: [roleGuard(['reviewer'])],
+        canActivate: [roleGuard('review')],
         loadComponent: () => import('./review/review-page').then((m) => m.ReviewPage),
       },
       {
         path: 'review/revisions/:id',
         title: 'Revision review · Gapwright',
-        canActivate: [roleGuard(['engineer', 'reviewer', 'admin'])],
+        canActivate: [roleGuard('library')],
         loadComponent: () => import('./review/revision-page').then((m) => m.RevisionPage),
       },
       {
         path: 'shop',
-        canActivate: [roleGuard(['winder', 'reviewer', 'engineer', 'admin'])],
+        canActivate: [roleGuard('shop')],
         loadChildren: () => import('./shop/shop.routes'),
       },
       {
         path: 'admin',
-        canActivate: [roleGuard(['admin'])],
+        canActivate: [roleGuard('admin')],
         loadChildren: () => import('./admin/admin.routes'),
       },
     ],

@@ -49,6 +49,20 @@ describe('GET /api/openapi.json', () => {
     const saved = res.body.paths['/compare/saved-design'].post.requestBody.content['application/json'].schema;
     expect(saved.required).toEqual(['designId', 'revision']);
   });
+
+  it('generates declared routes (shared/api) with their query and answer schemas and who may call them', async () => {
+    const { paths, components } = (await engineer.get('/api/openapi.json')).body;
+    const audit = paths['/admin/audit'].get;
+    expect(audit.parameters.map((p: { name: string; in: string }) => `${p.in}:${p.name}`)).toEqual(['query:offset', 'query:limit']);
+    expect(audit.description).toMatch(/^Who: admin\./);
+    expect(audit.responses['200'].content['application/json'].schema.properties.entries.type).toBe('array');
+    expect(audit.responses['401'].content['application/json'].schema.$ref).toBe('#/components/schemas/Error');
+    const cores = paths['/catalogue/cores'].get.responses['200'].content['application/json'].schema;
+    expect(cores.properties.cores.items.properties.origin.enum).toEqual(['shipped', 'user']);
+    expect(paths['/inbox'].get.responses['200'].content['application/json'].schema.properties.items.items.required).toContain('kind');
+    expect(paths['/health'].get.responses['200'].content['application/json'].schema.properties.database.enum).toEqual(['up', 'down']);
+    expect(components.schemas.Error.required).toEqual(['error']);
+  });
 });
 
 describe('admin user edits', () => {

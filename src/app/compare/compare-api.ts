@@ -1,10 +1,12 @@
 import { HttpClient, httpResource } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
+import { listCores } from '@shared/api/catalogue';
 import type { CompareCurvesResponse, CompareDesignResponse } from '@shared/schemas/compare';
 import type { ListedCore } from '@shared/schemas/cores';
 import type { MaterialSummary } from '@shared/schemas/materials';
 import type { Observable } from 'rxjs';
 
+import { endpointResource } from '../core/api';
 import { errorsShownByCaller } from '../core/error-display';
 
 export type MaterialChoice = Pick<MaterialSummary, 'id' | 'name' | 'family' | 'version'>;
@@ -36,10 +38,7 @@ export class CompareApi {
   }
 
   coresResource() {
-    return httpResource(() => '/api/catalogue/cores', {
-      parse: (body) => (body as { cores: CoreChoice[] }).cores,
-      defaultValue: [] as CoreChoice[],
-    });
+    return endpointResource(listCores, () => ({}), { select: (answer): CoreChoice[] => answer.cores, defaultValue: [] });
   }
 
   curves(request: CurvesRequest): Observable<CompareCurvesResponse> {

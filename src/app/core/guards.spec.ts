@@ -40,7 +40,7 @@ describe('guards', () => {
   it('roleGuard turns an engineer away from an admin page, to home', () => {
     signInAs('engineer');
 
-    const result = TestBed.runInInjectionContext(() => roleGuard(['admin'])(route, stateAt('/admin/users')));
+    const result = TestBed.runInInjectionContext(() => roleGuard('admin')(route, stateAt('/admin/users')));
 
     expect(serialise(result)).toBe('/');
   });
@@ -48,7 +48,7 @@ describe('guards', () => {
   it('roleGuard lets an admin open an admin page', () => {
     signInAs('admin');
 
-    expect(TestBed.runInInjectionContext(() => roleGuard(['admin'])(route, stateAt('/admin/users')))).toBe(true);
+    expect(TestBed.runInInjectionContext(() => roleGuard('admin')(route, stateAt('/admin/users')))).toBe(true);
   });
 });
 

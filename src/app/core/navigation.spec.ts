@@ -26,8 +26,8 @@ describe('navigationFor', () => {
     expect(navigationFor(null)).toEqual([]);
   });
 
-  it('keeps an item only for the roles it names', () => {
-    const items = [...NAVIGATION, { label: 'Shop queue', icon: 'build', path: '/shop', roles: ['winder'] as const }];
+  it('keeps an item only for the roles its permission lets in', () => {
+    const items = [...NAVIGATION, { label: 'Shop queue', icon: 'build', path: '/shop', permission: 'build' as const }];
 
     expect(navigationFor('winder', items).map((item) => item.label)).toEqual(['Home', 'Winding shop', 'Shop queue']);
     expect(navigationFor('engineer', items).map((item) => item.label)).toEqual(['Home', 'Designs', 'Materials', 'Cores', 'Compare', 'Winding shop']);

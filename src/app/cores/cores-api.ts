@@ -1,9 +1,11 @@
-import { HttpClient, httpResource } from '@angular/common/http';
+import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { ImportDecision, ImportPreview } from '@shared/schemas/core-csv';
 import type { ListedCore, UserCoreRequest } from '@shared/schemas/cores';
+import { listCores } from '@shared/api/catalogue';
 import { map, type Observable } from 'rxjs';
 
+import { endpointResource } from '../core/api';
 import { errorsShownByCaller } from '../core/error-display';
 import { uploadCsv, type UploadStep } from '../core/upload-steps';
 
@@ -24,10 +26,7 @@ export class CoresApi {
   private readonly http = inject(HttpClient);
 
   listResource() {
-    return httpResource(() => '/api/catalogue/cores', {
-      parse: (body) => (body as { cores: CatalogueCore[] }).cores,
-      defaultValue: [] as CatalogueCore[],
-    });
+    return endpointResource(listCores, () => ({}), { select: (answer) => answer.cores, defaultValue: [] });
   }
 
   /** Every version of a user core, newest first. */

@@ -12,7 +12,7 @@ export default [
   {
     path: 'new',
     title: 'New design · Gapwright',
-    canActivate: [roleGuard(['engineer', 'reviewer'])],
+    canActivate: [roleGuard('design')],
     loadComponent: () => import('./design-workspace').then((m) => m.DesignWorkspace),
   },
   {

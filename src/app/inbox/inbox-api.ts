@@ -1,17 +1,12 @@
-import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
+import { inbox } from '@shared/api/inbox';
+import type { InboxItem } from '@shared/schemas/inbox';
 import type { Observable } from 'rxjs';
 
+import { Api } from '../core/api';
 import { errorsShownByCaller } from '../core/error-display';
 
-export interface InboxItem {
-  kind: 'review' | 'release' | 'returned' | 'build' | string;
-  label: string;
-  designId: number;
-  revisionId?: number;
-  orderId?: number;
-  since: string;
-}
+export type { InboxItem } from '@shared/schemas/inbox';
 
 /** Where an inbox item leads: a build order for the shop, otherwise the design. */
 export function inboxLink(item: InboxItem): string {
@@ -20,10 +15,10 @@ export function inboxLink(item: InboxItem): string {
 
 @Injectable({ providedIn: 'root' })
 export class InboxApi {
-  private readonly http = inject(HttpClient);
+  private readonly api = inject(Api);
 
   /** `quiet` for background refreshes (the toolbar badge), which must not pop up errors. */
   items(quiet = false): Observable<{ items: InboxItem[] }> {
-    return this.http.get<{ items: InboxItem[] }>('/api/inbox', quiet ? errorsShownByCaller() : {});
+    return this.api.call(inbox, {}, quiet ? errorsShownByCaller() : {});
   }
 }

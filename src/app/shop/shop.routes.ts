@@ -12,7 +12,7 @@ export default [
   {
     path: 'accuracy',
     title: 'Measured versus predicted · Gapwright',
-    canActivate: [roleGuard(['engineer', 'reviewer', 'admin'])],
+    canActivate: [roleGuard('predictionReport')],
     loadComponent: () => import('./prediction-accuracy').then((m) => m.PredictionAccuracy),
   },
   {

@@ -1,10 +1,11 @@
 import { DatePipe } from '@angular/common';
-import { httpResource } from '@angular/common/http';
 import { ChangeDetectionStrategy, Component, computed, signal } from '@angular/core';
 import { MatPaginatorModule, type PageEvent } from '@angular/material/paginator';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatTableModule } from '@angular/material/table';
-import { auditPageResponseSchema } from '@shared/schemas/auth';
+import { auditPage } from '@shared/api/audit';
+
+import { endpointResource } from '../../core/api';
 
 const FIRST_PAGE_SIZE = 25;
 
@@ -20,13 +21,7 @@ export class AuditLog {
   protected readonly pageSize = signal(FIRST_PAGE_SIZE);
 
   // The log grows without bound, so the server pages it; only one page is ever loaded.
-  protected readonly page = httpResource(
-    () => ({
-      url: '/api/admin/audit',
-      params: { offset: this.pageIndex() * this.pageSize(), limit: this.pageSize() },
-    }),
-    { parse: (body) => auditPageResponseSchema.parse(body) },
-  );
+  protected readonly page = endpointResource(auditPage, () => ({ query: { offset: this.pageIndex() * this.pageSize(), limit: this.pageSize() } }));
   protected readonly entries = computed(() => (this.page.hasValue() ? this.page.value().entries : []));
   protected readonly total = computed(() => (this.page.hasValue() ? this.page.value().total : 0));
   protected readonly columns = ['at', 'actor', 'action', 'target', 'details'];
