@@ -43,22 +43,22 @@ describe('calculation request schemas', () => {
   });
 
   it('nests the spec path inside search and evaluate requests', () => {
-    const search = searchRequestSchema.safeParse({ spec: { ...spec, vout: 30 }, materialIds: ['a'] });
+    const search = searchRequestSchema.safeParse({ spec: { ...spec, vout: 30 }, materialIds: ['1'] });
     expect(issueAt(search, 'spec.vout')).toBeDefined();
     expect(issueAt(searchRequestSchema.safeParse({ spec }), 'materialIds')).toBeDefined();
-    const ok = searchRequestSchema.parse({ spec, materialIds: ['a'] });
+    const ok = searchRequestSchema.parse({ spec, materialIds: ['1'] });
     expect(ok.rankBy).toBe('loss');
     expect(ok.limit).toBe(20);
   });
 
   it('validates an evaluate request with auto turns and a wire by gauge', () => {
-    const parsed = evaluateRequestSchema.parse({ spec, coreId: 'ETD34', materialId: 'm', wire: { kind: 'awg', awg: 18, strands: 2 } });
+    const parsed = evaluateRequestSchema.parse({ spec, coreId: 'ETD34', materialId: '7', wire: { kind: 'awg', awg: 18, strands: 2 } });
     expect(parsed.turns).toBe('auto');
     expect(parsed.gap).toBe('auto');
     const both = evaluateRequestSchema.safeParse({
       spec,
       coreId: 'ETD34',
-      materialId: 'm',
+      materialId: '7',
       wire: { kind: 'metric', strandDiameter: 0.5e-3, awg: 24, strands: 1 },
     });
     expect(issueAt(both, 'wire.strandDiameter')).toBeDefined();

@@ -74,7 +74,8 @@ describe('file reading', () => {
   it('numbers rows as a spreadsheet does (header = row 1), with BOM and CRLF', () => {
     const header = MATERIAL_CSV_COLUMNS.join(',');
     const records = parseMaterialCsv(`\uFEFF${header}\r\n${MATERIAL_CSV_COLUMNS.map(() => '1').join(',')}\r\n\r\n${MATERIAL_CSV_COLUMNS.map(() => '2').join(',')}\r\n`);
-    expect(records.map((r) => r.row)).toEqual([2, 3]);
+    // The blank line is spreadsheet row 3, so the second record is row 4.
+    expect(records.map((r) => r.row)).toEqual([2, 4]);
     expect(records[1]!.cells.alpha).toBe('2');
   });
 
