@@ -1,5 +1,5 @@
 import { count, desc, eq } from 'drizzle-orm';
-import type { Db } from '../db/client.ts';
+import type { Db, Tx } from '../db/client.ts';
 import { auditLog, users } from '../db/schema.ts';
 
 export interface AuditRecord {
@@ -14,8 +14,9 @@ export interface AuditRecord {
 export class AuditRepository {
   constructor(private readonly db: Db) {}
 
-  async insert(record: AuditRecord): Promise<void> {
-    await this.db.insert(auditLog).values({
+  /** Inside the transaction `db` when given one, so the entry and the change it records commit together. */
+  async insert(record: AuditRecord, db: Db | Tx = this.db): Promise<void> {
+    await db.insert(auditLog).values({
       actorId: record.actorId ?? null,
       actorName: record.actorName ?? null,
       action: record.action,

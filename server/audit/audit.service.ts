@@ -1,11 +1,13 @@
 import type { AuditEntry } from '@shared/schemas/auth';
+import type { Db, Tx } from '../db/client.ts';
 import type { AuditRecord, AuditRepository } from './audit.repository.ts';
 
 export class AuditService {
   constructor(private readonly repo: AuditRepository) {}
 
-  record(entry: AuditRecord): Promise<void> {
-    return this.repo.insert(entry);
+  /** Give the transaction of the change being recorded: then no change is saved without its entry. */
+  record(entry: AuditRecord, tx?: Db | Tx): Promise<void> {
+    return this.repo.insert(entry, tx);
   }
 
   async page(offset: number, limit: number): Promise<{ entries: AuditEntry[]; total: number }> {

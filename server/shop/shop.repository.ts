@@ -58,13 +58,20 @@ export class ShopRepository {
   }
 
   /** Adds a unit under a lock on the order, and completes the order when enough units passed. */
-  recordUnit(orderId: number, unit: Omit<typeof buildUnits.$inferInsert, 'orderId' | 'unitNumber'>, onLocked: (order: OrderRow) => void) {
+  /** `onLocked` may refuse (throw) once the order is locked; `onSaved` writes what belongs with the unit (its audit entry). */
+  recordUnit(
+    orderId: number,
+    unit: Omit<typeof buildUnits.$inferInsert, 'orderId' | 'unitNumber'>,
+    onLocked: (order: OrderRow) => void,
+    onSaved: (tx: Tx, order: OrderRow, unit: UnitRow) => Promise<void>,
+  ) {
     return this.db.transaction(async (tx) => {
       const [order] = await tx.select().from(buildOrders).where(eq(buildOrders.id, orderId)).for('update');
       if (!order) return undefined;
       onLocked(order);
       const [{ n }] = await tx.select({ n: count() }).from(buildUnits).where(eq(buildUnits.orderId, orderId));
       const [row] = await tx.insert(buildUnits).values({ ...unit, orderId, unitNumber: n + 1 }).returning();
+      await onSaved(tx, order, row);
       const [{ passed }] = await tx.select({ passed: count() }).from(buildUnits).where(and(eq(buildUnits.orderId, orderId), eq(buildUnits.passed, true)));
       let status = order.status;
       if (passed >= order.quantity) {

@@ -152,14 +152,11 @@ export class ShopService {
       (locked) => {
         if (locked.status === 'complete') throw new AppError(409, 'order_complete', `Build order ${locked.number} is complete; no more units can be recorded.`);
       },
+      // In the unit's transaction: a database lost between the two writes leaves neither, never a unit without its entry.
+      (tx, locked, unit) =>
+        this.audit.record({ actorId: actor.id, action: 'shop.unit_recorded', target: `${locked.number} unit ${unit.unitNumber}`, details: { passed: judged.passed } }, tx),
     );
     if (!saved) throw notFound('No such build order.');
-    await this.audit.record({
-      actorId: actor.id,
-      action: 'shop.unit_recorded',
-      target: `${order.number} unit ${saved.unit.unitNumber}`,
-      details: { passed: judged.passed },
-    });
     return { unit: { ...saved.unit, recordedAt: saved.unit.recordedAt.toISOString() }, orderStatus: saved.orderStatus, passedUnits: saved.passed };
   }
 

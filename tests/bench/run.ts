@@ -5,6 +5,7 @@ import { measureInitialBundle } from './bundle.ts';
 import { runEngineBench, type BenchRow } from './engine.ts';
 import { runHttpLoadBench } from './http-load.ts';
 import { runImportBench } from './material-import.ts';
+import { runOutageBench } from './outage.ts';
 import { runWorkspaceBench } from './workspace.ts';
 
 // `npm run bench`: one table of the figures the speed targets are judged on.
@@ -15,6 +16,7 @@ const rows: BenchRow[] = [
   ...(await runHttpLoadBench()),
   ...(await runImportBench()),
   ...(await runWorkspaceBench()),
+  ...(await runOutageBench()),
   ...measureInitialBundle(path.join(repoRoot, 'dist/gapwright/browser')),
 ];
 
