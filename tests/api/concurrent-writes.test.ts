@@ -30,9 +30,11 @@ describe('four parallel writes of one thing', () => {
     const target = list.find((m) => m.name.startsWith('Demo ferrite MF-95'))!;
     const answers = await Promise.all([1.41, 1.42, 1.43, 1.44].map((alpha) => engineer.patch(`/api/materials/${target.id}`, { alpha })));
     expect(statuses(answers)).toEqual([201, 409, 409, 409]);
+    // An edit that waited for the winner's row lock hears that another version was saved at the same moment;
+    // one that started after the winner's commit, that only the current version can be edited.
     for (const refused of answers.filter((a) => a.status === 409)) {
       expect(refused.body.error.code).toBe('conflict');
-      expect(refused.body.error.message).toMatch(/version/);
+      expect(refused.body.error.message).toMatch(/version of (this|a) material/);
     }
     const [row] = await t.db.select().from(materials).where(eq(materials.id, target.id));
     expect(versionsOf(await t.db.select().from(materials).where(eq(materials.lineage, row.lineage)))).toEqual({ versions: [1, 2], current: 1 });
@@ -47,7 +49,7 @@ describe('four parallel writes of one thing', () => {
     expect(statuses(answers)).toEqual([201, 409, 409, 409]);
     for (const refused of answers.filter((a) => a.status === 409)) {
       expect(refused.body.error.code).toBe('conflict');
-      expect(refused.body.error.message).toMatch(/version/);
+      expect(refused.body.error.message).toMatch(/version of (this|a) core/);
     }
     const [row] = await t.db.select().from(userCores).where(eq(userCores.id, id));
     expect(versionsOf(await t.db.select().from(userCores).where(eq(userCores.lineage, row.lineage)))).toEqual({ versions: [1, 2], current: 1 });
