@@ -14,9 +14,9 @@ export interface AuditRecord {
 export class AuditRepository {
   constructor(private readonly db: Db) {}
 
-  /** Inside the transaction `db` when given one, so the entry and the change it records commit together. */
-  async insert(record: AuditRecord, db: Db | Tx = this.db): Promise<void> {
-    await db.insert(auditLog).values({
+  /** Pass the transaction of the change being recorded, so the change and its entry commit or roll back together. */
+  async insert(record: AuditRecord, tx: Tx | Db = this.db): Promise<void> {
+    await tx.insert(auditLog).values({
       actorId: record.actorId ?? null,
       actorName: record.actorName ?? null,
       action: record.action,

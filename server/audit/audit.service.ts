@@ -1,12 +1,12 @@
 import type { AuditEntry } from '@shared/schemas/auth';
-import type { Db, Tx } from '../db/client.ts';
+import type { Tx } from '../db/client.ts';
 import type { AuditRecord, AuditRepository } from './audit.repository.ts';
 
 export class AuditService {
   constructor(private readonly repo: AuditRepository) {}
 
-  /** Give the transaction of the change being recorded: then no change is saved without its entry. */
-  record(entry: AuditRecord, tx?: Db | Tx): Promise<void> {
+  /** Records an entry; give `tx` when it records a change made in that transaction (both commit or neither). */
+  record(entry: AuditRecord, tx?: Tx): Promise<void> {
     return this.repo.insert(entry, tx);
   }
 

@@ -57,8 +57,10 @@ export class ShopRepository {
     return this.db.select().from(buildUnits).where(eq(buildUnits.orderId, orderId)).orderBy(asc(buildUnits.unitNumber));
   }
 
-  /** Adds a unit under a lock on the order, and completes the order when enough units passed. */
-  /** `onLocked` may refuse (throw) once the order is locked; `onSaved` writes what belongs with the unit (its audit entry). */
+  /**
+   * Adds a unit under a lock on the order, and completes the order when enough units passed; `onSaved` runs in the
+   * same transaction (the audit entry), so a failure there undoes the unit too.
+   */
   recordUnit(
     orderId: number,
     unit: Omit<typeof buildUnits.$inferInsert, 'orderId' | 'unitNumber'>,
@@ -71,13 +73,13 @@ export class ShopRepository {
       onLocked(order);
       const [{ n }] = await tx.select({ n: count() }).from(buildUnits).where(eq(buildUnits.orderId, orderId));
       const [row] = await tx.insert(buildUnits).values({ ...unit, orderId, unitNumber: n + 1 }).returning();
-      await onSaved(tx, order, row);
       const [{ passed }] = await tx.select({ passed: count() }).from(buildUnits).where(and(eq(buildUnits.orderId, orderId), eq(buildUnits.passed, true)));
       let status = order.status;
       if (passed >= order.quantity) {
         await tx.update(buildOrders).set({ status: 'complete', completedAt: new Date() }).where(eq(buildOrders.id, orderId));
         status = 'complete';
       }
+      await onSaved(tx, order, row!);
       return { unit: row, orderStatus: status, passed };
     });
   }
@@ -109,8 +111,8 @@ export class ShopRepository {
     return row?.value as T | undefined;
   }
 
-  async putSetting(key: string, value: unknown): Promise<void> {
-    await this.db
+  async putSetting(key: string, value: unknown, db: Tx | Db = this.db): Promise<void> {
+    await db
       .insert(appSettings)
       .values({ key, value })
       .onConflictDoUpdate({ target: appSettings.key, set: { value, updatedAt: new Date() } });

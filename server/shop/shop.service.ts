@@ -65,8 +65,10 @@ export class ShopService {
   }
 
   async setShopEmail(actor: Actor, email: string): Promise<void> {
-    await this.repo.putSetting(SHOP_EMAIL_KEY, email);
-    await this.audit.record({ actorId: actor.id, action: 'settings.shop_email', details: { email } });
+    await this.repo.db.transaction(async (tx) => {
+      await this.repo.putSetting(SHOP_EMAIL_KEY, email, tx);
+      await this.audit.record({ actorId: actor.id, action: 'settings.shop_email', details: { email } }, tx);
+    });
   }
 
   async queueReleaseMail(orderId: number): Promise<number> {
@@ -152,7 +154,6 @@ export class ShopService {
       (locked) => {
         if (locked.status === 'complete') throw new AppError(409, 'order_complete', `Build order ${locked.number} is complete; no more units can be recorded.`);
       },
-      // In the unit's transaction: a database lost between the two writes leaves neither, never a unit without its entry.
       (tx, locked, unit) =>
         this.audit.record({ actorId: actor.id, action: 'shop.unit_recorded', target: `${locked.number} unit ${unit.unitNumber}`, details: { passed: judged.passed } }, tx),
     );
