@@ -15,6 +15,7 @@ export async function runOutageBench(trials = 20): Promise<BenchRow[]> {
       process.stderr.write(`outage trial ${i + 1}: ${result.crashed ? 'crashed' : 'survived'} in ${Date.now() - started} ms\n`);
       results.push(result);
       if (result.crashed) process.stderr.write(`outage trial ${i + 1} crashed:\n${result.crashOutput.slice(-800)}\n`);
+      for (const answer of result.unexpected) process.stderr.write(`outage trial ${i + 1} answered: ${answer}\n`);
     }
   } finally {
     await rig.close();
