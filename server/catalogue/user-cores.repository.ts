@@ -1,6 +1,7 @@
 import { and, asc, desc, eq, inArray } from 'drizzle-orm';
 import type { Db, Tx } from '../db/client.ts';
 import { userCores, users } from '../db/schema.ts';
+import { conflict } from '../http/errors.ts';
 
 export type UserCoreRow = typeof userCores.$inferSelect;
 export interface UserCoreWithAuthor extends UserCoreRow {
@@ -50,9 +51,18 @@ export class UserCoresRepository {
     return new Map(rows.map((r) => [r.name.toLowerCase(), r]));
   }
 
-  /** The given versions stop being current (a new version of each is about to be inserted). */
-  async supersede(tx: Tx, ids: number[]): Promise<void> {
-    if (ids.length) await tx.update(userCores).set({ current: false }).where(inArray(userCores.id, ids));
+  /**
+   * The given versions stop being current (a new version of each is about to be inserted). As for materials,
+   * a version a parallel writer replaced meanwhile is no longer current once its row lock is released: 409.
+   */
+  async supersede(tx: Tx, versionIds: number[]): Promise<void> {
+    const ids = [...new Set(versionIds)];
+    if (!ids.length) return;
+    const rows = await tx.update(userCores).set({ current: false }).where(and(inArray(userCores.id, ids), eq(userCores.current, true))).returning({ id: userCores.id });
+    if (rows.length < ids.length) {
+      const what = ids.length === 1 ? 'this core' : 'one of these cores';
+      throw conflict(`Someone else saved a new version of ${what} at the same moment. Reload and make your change again.`);
+    }
   }
 
   async insertVersions(tx: Tx, rows: NewUserCoreVersion[]): Promise<UserCoreRow[]> {

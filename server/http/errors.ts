@@ -1,5 +1,6 @@
 import type { ErrorRequestHandler, Request, RequestHandler } from 'express';
 import { ZodError } from 'zod';
+import { databaseErrorAnswer } from './database-errors.ts';
 
 export type FieldErrors = Record<string, string>;
 
@@ -54,17 +55,6 @@ interface HttpishError {
   expose?: boolean;
 }
 
-const PG_CONNECTION_CODES = new Set(['ECONNREFUSED', 'ECONNRESET', '57P01', '57P02', '57P03', '08006', '08001', '08003']);
-
-/** True when the error, or any error it wraps (Drizzle wraps the driver's as `cause`), is a lost or refused connection. */
-function isDatabaseUnavailable(err: unknown, depth = 0): boolean {
-  if (!(err instanceof Error) || depth > 5) return false;
-  const code = (err as { code?: string }).code;
-  if (code && PG_CONNECTION_CODES.has(code)) return true;
-  if (/timeout exceeded when trying to connect|Connection terminated|connect ECONNREFUSED/i.test(err.message)) return true;
-  return isDatabaseUnavailable(err.cause, depth + 1);
-}
-
 /**
  * The one error shape: { error: { code, message, fields? } }. Never a stack trace. Every refusal
  * (401/403), wherever it was raised — a route guard or an ownership rule in a service — is reported
@@ -78,6 +68,7 @@ export function errorMiddleware(
     let status = 500;
     let body: { code: string; message: string; fields?: FieldErrors };
     const h = err as HttpishError;
+    const database = databaseErrorAnswer(err);
     if (err instanceof AppError) {
       status = err.status;
       body = { code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}) };
@@ -94,9 +85,8 @@ export function errorMiddleware(
     } else if (h?.code === 'EBADCSRFTOKEN') {
       status = 403;
       body = { code: 'csrf_failed', message: 'The request is missing its security token. Reload the page and try again.' };
-    } else if (isDatabaseUnavailable(err)) {
-      status = 503;
-      body = { code: 'database_unavailable', message: 'The database is not reachable. Try again in a moment.' };
+    } else if (database) {
+      ({ status, ...body } = database);
     } else if (typeof (h?.status ?? h?.statusCode) === 'number' && (h.status ?? h.statusCode)! < 500 && h.expose) {
       status = (h.status ?? h.statusCode)!;
       body = { code: 'bad_request', message: (err as Error).message };

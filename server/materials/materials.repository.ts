@@ -1,6 +1,7 @@
 import { and, asc, desc, eq, inArray, sql, type SQL } from 'drizzle-orm';
 import type { MaterialValues } from '@shared/schemas/materials';
 import type { Db } from '../db/client.ts';
+import { conflict } from '../http/errors.ts';
 import { materialImports, materials, users } from '../db/schema.ts';
 
 export type MaterialRow = typeof materials.$inferSelect;
@@ -73,9 +74,21 @@ export class MaterialsRepository {
     return new Set(rows.map((r) => r.lineage));
   }
 
-  async retireCurrentVersions(tx: Tx, ids: number[]): Promise<void> {
+  /**
+   * The given versions stop being current (a new version of each is about to be inserted). The update waits
+   * for the row lock of a parallel writer and then sees its commit: a version it already replaced is no longer
+   * current, and this writer gets a 409 instead of inserting a second version with the same number.
+   */
+  async retireCurrentVersions(tx: Tx, versionIds: number[]): Promise<void> {
+    const ids = [...new Set(versionIds)];
+    let retired = 0;
     for (let i = 0; i < ids.length; i += UPDATE_CHUNK) {
-      await tx.update(materials).set({ current: false }).where(inArray(materials.id, ids.slice(i, i + UPDATE_CHUNK)));
+      const chunk = ids.slice(i, i + UPDATE_CHUNK);
+      retired += (await tx.update(materials).set({ current: false }).where(and(inArray(materials.id, chunk), eq(materials.current, true))).returning({ id: materials.id })).length;
+    }
+    if (retired < ids.length) {
+      const what = ids.length === 1 ? 'this material' : 'one of these materials';
+      throw conflict(`Someone else saved a new version of ${what} at the same moment. Reload and make your change again.`);
     }
   }
 

@@ -8,8 +8,10 @@ export interface ServerProcess {
   child: ChildProcess;
   port: number;
   baseUrl: string;
-  /** The exit code once the process has ended. */
+  /** The exit code once the process has ended and its stderr is read to the end. */
   exited: Promise<number | null>;
+  /** The last few kilobytes the process wrote to stderr (why it died, when it did). */
+  stderrTail: () => string;
 }
 
 /** A port nobody is listening on right now, on loopback. */
@@ -42,11 +44,14 @@ export async function startServerProcess(databaseUrl: string, env: Record<string
       STATIC_DIR: `${repoRoot}dist/gapwright/browser`,
       ...env,
     },
-    stdio: 'ignore',
+    stdio: ['ignore', 'ignore', 'pipe'],
   });
-  const exited = new Promise<number | null>((resolve) => child.once('exit', (code) => resolve(code)));
+  let stderr = '';
+  child.stderr!.on('data', (chunk: Buffer) => (stderr = (stderr + chunk.toString()).slice(-4000)));
+  const stderrTail = () => stderr;
+  const exited = new Promise<number | null>((resolve) => child.once('close', (code) => resolve(code)));
   for (let i = 0; i < 200; i++) {
-    if (await fetch(`${baseUrl}/api/health`).then((r) => r.ok, () => false)) return { child, port, baseUrl, exited };
+    if (await fetch(`${baseUrl}/api/health`).then((r) => r.ok, () => false)) return { child, port, baseUrl, exited, stderrTail };
     if (child.exitCode !== null) break;
     await new Promise((r) => setTimeout(r, 200));
   }
