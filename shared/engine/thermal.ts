@@ -1,6 +1,6 @@
 /** Surface-dissipation law ΔT = 450·(P/At)^0.826, P in W and At in cm² (At given here in m²). */
 export function surfaceDissipationRise(power: number, surfaceArea: number): number {
-  if (power <= 0) return 0;
+  if (!(power > 0)) return 0;
   return 450 * Math.pow(power / (surfaceArea * 1e4), 0.826);
 }
 
@@ -9,17 +9,28 @@ export function coreVolumeThermalResistance(effectiveVolume: number): number {
   return 53 * Math.pow(effectiveVolume * 1e6, -0.54);
 }
 
-export interface TemperatureRise {
-  bySurface: number;
-  byVolume: number;
+/** The rise by both laws at one loss; reused between calls so the search allocates nothing. */
+export class TemperatureRise {
+  bySurface = 0;
+  byVolume = 0;
   /** The larger of the two, used for design decisions. */
-  design: number;
+  design = 0;
 }
 
-export function temperatureRise(power: number, surfaceArea: number, effectiveVolume: number): TemperatureRise {
-  const bySurface = surfaceDissipationRise(power, surfaceArea);
-  const byVolume = Math.max(0, power) * coreVolumeThermalResistance(effectiveVolume);
-  return { bySurface, byVolume, design: Math.max(bySurface, byVolume) };
+/**
+ * Rise by the surface law and by the volume thermal resistance (K/W, see coreVolumeThermalResistance, prepared
+ * once per core), written into `out`.
+ */
+export function temperatureRise(
+  power: number,
+  surfaceArea: number,
+  volumeThermalResistance: number,
+  out: TemperatureRise = new TemperatureRise(),
+): TemperatureRise {
+  out.bySurface = surfaceDissipationRise(power, surfaceArea);
+  out.byVolume = power * volumeThermalResistance;
+  out.design = out.bySurface > out.byVolume ? out.bySurface : out.byVolume;
+  return out;
 }
 
 export const THERMAL_TOLERANCE = 0.1;
@@ -32,37 +43,42 @@ export const THERMAL_MAX_PASSES = 6;
  */
 export const THERMAL_MODEL_LIMIT = 250;
 
-export interface ThermalSolution {
-  rise: TemperatureRise;
-  passes: number;
-  converged: boolean;
+/** Losses as a function of the part's temperature (°C → W). An object, so a caller can reuse one per search. */
+export interface TemperatureDependentLoss {
+  lossAt(temperature: number): number;
+}
+
+export class ThermalSolution {
+  readonly rise = new TemperatureRise();
+  passes = 0;
+  converged = false;
   /** The losses would heat the part past THERMAL_MODEL_LIMIT; figures are those at that limit. */
-  runaway: boolean;
+  runaway = false;
 }
 
 /**
  * Losses depend on temperature (copper ρ(T), core-loss factor) and temperature on losses: start at ambient and
- * repeat until the rise moves less than 0.1 K, at most 6 passes.
+ * repeat until the rise moves less than 0.1 K, at most 6 passes. The last call of `loss.lossAt` is the one the
+ * reported rise comes from.
  */
 export function solveTemperature(
   ambient: number,
-  lossAt: (temperature: number) => number,
+  loss: TemperatureDependentLoss,
   surfaceArea: number,
-  effectiveVolume: number,
+  volumeThermalResistance: number,
+  out: ThermalSolution = new ThermalSolution(),
 ): ThermalSolution {
-  const capped = (t: number) => Math.min(t, THERMAL_MODEL_LIMIT);
-  let rise = temperatureRise(lossAt(capped(ambient)), surfaceArea, effectiveVolume);
-  let previous = 0;
-  let passes = 1;
-  while (Math.abs(rise.design - previous) >= THERMAL_TOLERANCE && passes < THERMAL_MAX_PASSES) {
-    previous = rise.design;
-    rise = temperatureRise(lossAt(capped(ambient + rise.design)), surfaceArea, effectiveVolume);
+  let rise = 0;
+  let previous = Number.NaN;
+  let passes = 0;
+  while (passes < THERMAL_MAX_PASSES && !(Math.abs(rise - previous) < THERMAL_TOLERANCE)) {
+    previous = rise;
+    // Losses are never evaluated above the model limit: past it the part is in runaway.
+    rise = temperatureRise(loss.lossAt(Math.min(ambient + rise, THERMAL_MODEL_LIMIT)), surfaceArea, volumeThermalResistance, out.rise).design;
     passes += 1;
   }
-  return {
-    rise,
-    passes,
-    converged: Math.abs(rise.design - previous) < THERMAL_TOLERANCE,
-    runaway: ambient + rise.design > THERMAL_MODEL_LIMIT,
-  };
+  out.passes = passes;
+  out.converged = Math.abs(rise - previous) < THERMAL_TOLERANCE;
+  out.runaway = ambient + rise > THERMAL_MODEL_LIMIT;
+  return out;
 }

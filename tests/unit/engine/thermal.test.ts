@@ -1,5 +1,12 @@
 import { describe, expect, it } from 'vitest';
-import { THERMAL_MODEL_LIMIT, coreVolumeThermalResistance, solveTemperature, surfaceDissipationRise, temperatureRise } from '@shared/engine/thermal';
+import {
+  THERMAL_MODEL_LIMIT,
+  ThermalSolution,
+  coreVolumeThermalResistance,
+  solveTemperature,
+  surfaceDissipationRise,
+  temperatureRise,
+} from '@shared/engine/thermal';
 
 describe('surface-dissipation law ΔT = 450·ψ^0.826', () => {
   it('gives ≈25 °C at 0.03 W/cm² and ≈50 °C at 0.07 W/cm² (McLyman, from memory; anchor points [C] in magnetics.md §9.1)', () => {
@@ -26,17 +33,32 @@ describe('core-volume thermal resistance Rth = 53·Ve^−0.54', () => {
 });
 
 describe('loss ↔ temperature iteration', () => {
+  const rthVolume = coreVolumeThermalResistance(7.64e-6);
+
   it('uses the larger rise of the two laws', () => {
-    const rise = temperatureRise(2, 40e-4, 7.64e-6);
+    const rise = temperatureRise(2, 40e-4, rthVolume);
     expect(rise.design).toBe(Math.max(rise.bySurface, rise.byVolume));
+    expect(rise.byVolume).toBeCloseTo(2 * rthVolume, 12);
   });
 
   it('settles to a self-consistent rise within 0.1 K', () => {
     const lossAt = (t: number) => 1.2 * (1 + 0.00393 * (t - 20)) + 0.3;
-    const solution = solveTemperature(40, lossAt, 60e-4, 7.64e-6);
+    const solution = solveTemperature(40, { lossAt }, 60e-4, rthVolume);
     expect(solution.converged).toBe(true);
-    const again = temperatureRise(lossAt(40 + solution.rise.design), 60e-4, 7.64e-6).design;
+    const again = temperatureRise(lossAt(40 + solution.rise.design), 60e-4, rthVolume).design;
     expect(Math.abs(again - solution.rise.design)).toBeLessThan(0.1);
+  });
+
+  it('starts at ambient, and the reported rise comes from the last loss it asked for', () => {
+    const asked: number[] = [];
+    const lossAt = (t: number) => {
+      asked.push(t);
+      return 0.02 * t;
+    };
+    const solution = solveTemperature(40, { lossAt }, 60e-4, rthVolume);
+    expect(asked[0]).toBe(40);
+    expect(asked).toHaveLength(solution.passes);
+    expect(solution.rise.design).toBe(temperatureRise(lossAt(asked.at(-1)!), 60e-4, rthVolume).design);
   });
 
   it('never evaluates losses above the model limit and reports runaway when they would heat the part past it', () => {
@@ -46,11 +68,16 @@ describe('loss ↔ temperature iteration', () => {
       asked.push(t);
       return 0.5 * 2 ** ((t - 40) / 10);
     };
-    const solution = solveTemperature(40, lossAt, 10e-4, 0.7e-6);
+    const solution = solveTemperature(40, { lossAt }, 10e-4, coreVolumeThermalResistance(0.7e-6));
     expect(solution.runaway).toBe(true);
     expect(Math.max(...asked)).toBeLessThanOrEqual(THERMAL_MODEL_LIMIT);
     expect(Number.isFinite(solution.rise.design)).toBe(true);
-    const calm = solveTemperature(40, () => 0.2, 60e-4, 7.64e-6);
+    const calm = solveTemperature(40, { lossAt: () => 0.2 }, 60e-4, rthVolume);
     expect(calm.runaway).toBe(false);
+  });
+
+  it('reuses the solution object it is given', () => {
+    const reused = new ThermalSolution();
+    expect(solveTemperature(40, { lossAt: () => 0.2 }, 60e-4, rthVolume, reused)).toBe(reused);
   });
 });
