@@ -9,28 +9,12 @@ export function coreVolumeThermalResistance(effectiveVolume: number): number {
   return 53 * Math.pow(effectiveVolume * 1e6, -0.54);
 }
 
-/** The rise by both laws at one loss; reused between calls so the search allocates nothing. */
+/** The rise by both laws at one loss (K). */
 export class TemperatureRise {
   bySurface = 0;
   byVolume = 0;
   /** The larger of the two, used for design decisions. */
   design = 0;
-}
-
-/**
- * Rise by the surface law and by the volume thermal resistance (K/W, see coreVolumeThermalResistance, prepared
- * once per core), written into `out`.
- */
-export function temperatureRise(
-  power: number,
-  surfaceArea: number,
-  volumeThermalResistance: number,
-  out: TemperatureRise = new TemperatureRise(),
-): TemperatureRise {
-  out.bySurface = surfaceDissipationRise(power, surfaceArea);
-  out.byVolume = power * volumeThermalResistance;
-  out.design = out.bySurface > out.byVolume ? out.bySurface : out.byVolume;
-  return out;
 }
 
 export const THERMAL_TOLERANCE = 0.1;
@@ -58,8 +42,10 @@ export class ThermalSolution {
 
 /**
  * Losses depend on temperature (copper ρ(T), core-loss factor) and temperature on losses: start at ambient and
- * repeat until the rise moves less than 0.1 K, at most 6 passes. The last call of `loss.lossAt` is the one the
- * reported rise comes from.
+ * repeat until the rise moves less than 0.1 K, at most 6 passes. Each pass takes the larger rise of the surface law
+ * and of the volume thermal resistance (K/W, coreVolumeThermalResistance, prepared once per core). The last call of
+ * `loss.lossAt` is the one the reported rise comes from; the result is written into `out` so the search allocates
+ * nothing.
  */
 export function solveTemperature(
   ambient: number,
@@ -71,12 +57,20 @@ export function solveTemperature(
   let rise = 0;
   let previous = Number.NaN;
   let passes = 0;
+  let bySurface = 0;
+  let byVolume = 0;
   while (passes < THERMAL_MAX_PASSES && !(Math.abs(rise - previous) < THERMAL_TOLERANCE)) {
     previous = rise;
     // Losses are never evaluated above the model limit: past it the part is in runaway.
-    rise = temperatureRise(loss.lossAt(Math.min(ambient + rise, THERMAL_MODEL_LIMIT)), surfaceArea, volumeThermalResistance, out.rise).design;
+    const power = loss.lossAt(Math.min(ambient + rise, THERMAL_MODEL_LIMIT));
+    bySurface = surfaceDissipationRise(power, surfaceArea);
+    byVolume = power * volumeThermalResistance;
+    rise = bySurface > byVolume ? bySurface : byVolume;
     passes += 1;
   }
+  out.rise.bySurface = bySurface;
+  out.rise.byVolume = byVolume;
+  out.rise.design = rise;
   out.passes = passes;
   out.converged = Math.abs(rise - previous) < THERMAL_TOLERANCE;
   out.runaway = ambient + rise > THERMAL_MODEL_LIMIT;

@@ -31,35 +31,48 @@ export function fitsBuildHeight(buildHeight: number, core: CoreShape): boolean {
 
 /**
  * Layers and turns per layer, without allocating. Bobbin: floor(bobbinWidth/pitch) turns per layer, pitch =
- * conductors·d_o. Ring: layer k (from 1) lies on the circumference π·(ID − (2k − 1)·d_o) and holds floor(that/pitch)
- * turns, so the first layer is floor(π·(ID − d_o)/d_o) for a single conductor; its mean turn grows with the build
- * (taken as the full ring window when the wire does not fit at all).
+ * conductors·d_o. Ring cores: see layRingWinding.
  */
 export function layWinding(turns: number, wire: WireOption, core: CoreShape, out: WindingGeometry): void {
-  const pitch = wire.conductorsPerTurn * wire.overallDiameter;
   if (core.ring) {
-    let placed = 0;
-    let layers = 0;
-    let first = 0;
-    while (placed < turns) {
-      const inLayer = Math.floor((Math.PI * (core.ring.id - (2 * layers + 1) * wire.overallDiameter)) / pitch);
-      if (inLayer < 1) {
-        layers = Number.POSITIVE_INFINITY;
-        break;
-      }
-      if (layers === 0) first = inLayer;
-      placed += inLayer;
-      layers += 1;
-    }
-    out.turnsPerLayer = first;
-    out.layers = layers;
-    out.buildHeight = layers * wire.overallDiameter;
-    out.meanTurnLength = ringMeanTurnLength(core.ring, Number.isFinite(out.buildHeight) ? out.buildHeight : core.bobbinHeight);
-  } else {
-    const perLayer = Math.floor(core.bobbinWidth / pitch);
-    out.turnsPerLayer = perLayer;
-    out.layers = perLayer >= 1 ? Math.ceil(turns / perLayer) : Number.POSITIVE_INFINITY;
-    out.buildHeight = out.layers * wire.overallDiameter;
-    out.meanTurnLength = core.mlt;
+    layRingWinding(turns, wire, core.ring, core.bobbinHeight, out);
+    return;
   }
+  const perLayer = Math.floor(core.bobbinWidth / (wire.conductorsPerTurn * wire.overallDiameter));
+  out.turnsPerLayer = perLayer;
+  out.layers = perLayer >= 1 ? Math.ceil(turns / perLayer) : Number.POSITIVE_INFINITY;
+  out.buildHeight = out.layers * wire.overallDiameter;
+  out.meanTurnLength = core.mlt;
+}
+
+/**
+ * Ring: layer k (from 1) lies on the circumference π·(ID − (2k − 1)·d_o) and holds floor(that/pitch) turns, so the
+ * first layer is floor(π·(ID − d_o)/d_o) for a single conductor; the mean turn grows with the build (taken as the
+ * full ring window, `windowBuild`, when the wire does not fit at all).
+ */
+function layRingWinding(
+  turns: number,
+  wire: WireOption,
+  ring: NonNullable<CoreShape['ring']>,
+  windowBuild: number,
+  out: WindingGeometry,
+): void {
+  const pitch = wire.conductorsPerTurn * wire.overallDiameter;
+  let placed = 0;
+  let layers = 0;
+  let first = 0;
+  while (placed < turns) {
+    const inLayer = Math.floor((Math.PI * (ring.id - (2 * layers + 1) * wire.overallDiameter)) / pitch);
+    if (inLayer < 1) {
+      layers = Number.POSITIVE_INFINITY;
+      break;
+    }
+    if (layers === 0) first = inLayer;
+    placed += inLayer;
+    layers += 1;
+  }
+  out.turnsPerLayer = first;
+  out.layers = layers;
+  out.buildHeight = layers * wire.overallDiameter;
+  out.meanTurnLength = ringMeanTurnLength(ring, Number.isFinite(out.buildHeight) ? out.buildHeight : windowBuild);
 }
