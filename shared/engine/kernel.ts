@@ -4,13 +4,14 @@
 import { CandidateLoss } from './candidate-loss';
 import { acCopperLoss, acLossSums, dcCopperLoss, effectiveAcFactor, rippleResistanceWeight, type AcLossSums } from './copper-loss';
 import { windingResistance } from './copper';
-import { HOT_SPOT_ALLOWANCE, MU0 } from './constants';
+import { HOT_SPOT_ALLOWANCE } from './constants';
 import { fluxInFitRange, frequencyInFitRange, igseTriangleLoss, steinmetzLoss } from './core-loss';
 import { roundWireDelta } from './dowell';
 import {
   fringingOutOfRange,
   fringingFactor,
   gappedInductance,
+  gappedInductanceFactor,
   gapWithFringing,
   minimumTurnsUngapped,
   spacerThickness,
@@ -250,7 +251,6 @@ function designAirGap(
   const inductance = gappedInductance(turns, gap, core.ae, core.le, material.permeability, core.windowHeight);
   if (inductance * (1 - limits.inductanceTolerance) < op.inductanceMin * (1 - 1e-6)) failures |= FAILURE.inductanceShort;
   if (fringingOutOfRange(gap, core.ae)) warnings |= WARNING.fringingRange;
-  const reluctanceLength = gap + core.le / material.permeability;
   const fringing = fringingFactor(gap, core.ae, core.windowHeight);
   return {
     kind: 'air-gap',
@@ -258,7 +258,7 @@ function designAirGap(
     totalGap: gap,
     spacer: spacerThickness(gap, core.centreToOuterLegAreaRatio ?? 1),
     fringingFactor: fringing,
-    inductanceFactorWithoutFringing: (MU0 * core.ae) / reluctanceLength,
+    inductanceFactorWithoutFringing: gappedInductanceFactor(gap, core.ae, core.le, material.permeability, core.windowHeight, false),
     inductanceFactor: inductance / (turns * turns),
     inductanceZeroBias: inductance,
     inductanceAtLoad: inductance,
