@@ -1,7 +1,6 @@
 // The numeric core shared by evaluateDesign and searchCandidates. Everything that depends only on the spec, a
 // wire, a material or a core × material pair is prepared once; evaluateCandidate then composes the formula modules'
 // functions without allocating.
-import { CandidateLoss } from './candidate-loss';
 import { acCopperLoss, acLossSums, dcCopperLoss, effectiveAcFactor, rippleResistanceWeight, type AcLossSums } from './copper-loss';
 import { windingResistance } from './copper';
 import { HOT_SPOT_ALLOWANCE } from './constants';
@@ -25,7 +24,7 @@ import { operatingPoint, type OperatingPoint } from './operating-point';
 import { biasedInductance, permeabilityFraction, powderInductanceFactor, powderTurns } from './powder';
 import { fluxDensity, saturationFlux, saturationMargin } from './saturation';
 import { copperSkinDepth } from './skin-depth';
-import { ThermalSolution, coreVolumeThermalResistance, solveTemperature } from './thermal';
+import { ThermalSolution, coreVolumeThermalResistance, solveTemperature, type WoundCoreLoss } from './thermal';
 import type { CoreMaterial, CoreShape, WireOption } from './types';
 import { conductorCopperArea, fitsBuildHeight, layWinding, windowFill } from './winding';
 
@@ -301,7 +300,7 @@ export class CandidateFigures {
   failures = 0;
   warnings = 0;
   /** Scratch of the loss–temperature iteration, reused so an evaluation allocates nothing. */
-  readonly loss = new CandidateLoss();
+  readonly loss: WoundCoreLoss = { resistance20: 0, weightedCurrentSquare: 0, coreLossReference: 0, temperatureCoefficients: undefined };
   readonly thermal = new ThermalSolution();
 }
 
@@ -350,12 +349,12 @@ export function evaluateCandidate(
   if (thermal.runaway) failures |= FAILURE.thermalRunaway;
   const rise = thermal.rise.design;
   out.thermalPasses = thermal.passes;
-  out.resistanceHot = loss.resistance;
-  out.temperatureFactor = loss.temperatureFactor;
-  out.copperLossDc = dcCopperLoss(loss.resistance, op.ioutMax);
-  out.copperLossAc = acCopperLoss(loss.resistance, wireCtx.sums, dowellLayers);
-  out.coreLoss = loss.coreLossReference * loss.temperatureFactor;
-  out.totalLoss = loss.total;
+  out.resistanceHot = thermal.resistance;
+  out.temperatureFactor = thermal.temperatureFactor;
+  out.copperLossDc = dcCopperLoss(thermal.resistance, op.ioutMax);
+  out.copperLossAc = acCopperLoss(thermal.resistance, wireCtx.sums, dowellLayers);
+  out.coreLoss = loss.coreLossReference * thermal.temperatureFactor;
+  out.totalLoss = thermal.totalLoss;
   out.riseBySurface = thermal.rise.bySurface;
   out.riseByVolume = thermal.rise.byVolume;
   out.rise = rise;

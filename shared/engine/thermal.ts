@@ -1,3 +1,6 @@
+import { copperResistanceRatio } from './copper';
+import { coreLossTemperatureFactor, type TemperatureCoefficients } from './core-loss';
+
 /** Surface-dissipation law ΔT = 450·(P/At)^0.826, P in W and At in cm² (At given here in m²). */
 export function surfaceDissipationRise(power: number, surfaceArea: number): number {
   if (!(power > 0)) return 0;
@@ -27,9 +30,19 @@ export const THERMAL_MAX_PASSES = 6;
  */
 export const THERMAL_MODEL_LIMIT = 250;
 
-/** Losses as a function of the part's temperature (°C → W). An object, so a caller can reuse one per search. */
-export interface TemperatureDependentLoss {
-  lossAt(temperature: number): number;
+/**
+ * The losses of a winding on a core as functions of temperature: copper follows ρ(T)/ρ20 (copperResistanceRatio),
+ * the core its material's temperature factor (coreLossTemperatureFactor). Plain numbers, so one object serves a
+ * whole search.
+ */
+export interface WoundCoreLoss {
+  /** Winding resistance at 20 °C (Ω). */
+  resistance20: number;
+  /** Iout² + Σ Fr·I_n²/2: the squared current the DC resistance sees, ripple weighted by its AC factors (A²). */
+  weightedCurrentSquare: number;
+  /** Core loss with the temperature factor 1 (W). */
+  coreLossReference: number;
+  temperatureCoefficients: TemperatureCoefficients | undefined;
 }
 
 export class ThermalSolution {
@@ -38,18 +51,21 @@ export class ThermalSolution {
   converged = false;
   /** The losses would heat the part past THERMAL_MODEL_LIMIT; figures are those at that limit. */
   runaway = false;
+  /** Winding resistance, core-loss temperature factor and total loss at the temperature of the last pass. */
+  resistance = 0;
+  temperatureFactor = 1;
+  totalLoss = 0;
 }
 
 /**
  * Losses depend on temperature (copper ρ(T), core-loss factor) and temperature on losses: start at ambient and
  * repeat until the rise moves less than 0.1 K, at most 6 passes. Each pass takes the larger rise of the surface law
- * and of the volume thermal resistance (K/W, coreVolumeThermalResistance, prepared once per core). The last call of
- * `loss.lossAt` is the one the reported rise comes from; the result is written into `out` so the search allocates
- * nothing.
+ * and of the volume thermal resistance (K/W, coreVolumeThermalResistance, prepared once per core). The losses and
+ * rise reported are those of the last pass; the result is written into `out` so the search allocates nothing.
  */
 export function solveTemperature(
   ambient: number,
-  loss: TemperatureDependentLoss,
+  loss: WoundCoreLoss,
   surfaceArea: number,
   volumeThermalResistance: number,
   out: ThermalSolution = new ThermalSolution(),
@@ -59,10 +75,16 @@ export function solveTemperature(
   let passes = 0;
   let bySurface = 0;
   let byVolume = 0;
+  let resistance = 0;
+  let temperatureFactor = 1;
+  let power = 0;
   while (passes < THERMAL_MAX_PASSES && !(Math.abs(rise - previous) < THERMAL_TOLERANCE)) {
     previous = rise;
     // Losses are never evaluated above the model limit: past it the part is in runaway.
-    const power = loss.lossAt(Math.min(ambient + rise, THERMAL_MODEL_LIMIT));
+    const temperature = Math.min(ambient + rise, THERMAL_MODEL_LIMIT);
+    resistance = loss.resistance20 * copperResistanceRatio(temperature);
+    temperatureFactor = coreLossTemperatureFactor(loss.temperatureCoefficients, temperature);
+    power = resistance * loss.weightedCurrentSquare + loss.coreLossReference * temperatureFactor;
     bySurface = surfaceDissipationRise(power, surfaceArea);
     byVolume = power * volumeThermalResistance;
     rise = bySurface > byVolume ? bySurface : byVolume;
@@ -74,5 +96,8 @@ export function solveTemperature(
   out.passes = passes;
   out.converged = Math.abs(rise - previous) < THERMAL_TOLERANCE;
   out.runaway = ambient + rise > THERMAL_MODEL_LIMIT;
+  out.resistance = resistance;
+  out.temperatureFactor = temperatureFactor;
+  out.totalLoss = power;
   return out;
 }
