@@ -1,4 +1,5 @@
 import type { CoreShape } from './types';
+import { ringMeanTurnLength } from './winding';
 
 /** Required area product Ap = L·Ipk·Irms/(Bmax·J·Ku) (m⁴). */
 export function requiredAreaProduct(
@@ -37,7 +38,7 @@ export function availableGeometryConstant(core: CoreShape): number {
 /** The core's MLT, or for a ring without one the bare section perimeter (OD − ID) + 2·h. */
 export function nominalMeanTurnLength(core: CoreShape): number {
   if (core.mlt > 0 || !core.ring) return core.mlt;
-  return core.ring.od - core.ring.id + 2 * core.ring.height;
+  return ringMeanTurnLength(core.ring, 0);
 }
 
 export interface AreaProductRow {

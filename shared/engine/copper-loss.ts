@@ -36,25 +36,22 @@ export function acLossSums(firstHarmonicDelta: number, weights: HarmonicWeights)
   return { skin, proximity, meanSquare, harmonicsUsed: Math.min(n, count) };
 }
 
+/** Σ Fr(Δ1√n, m)·I_n²/2: the ripple's mean square weighted by the AC factor of each harmonic (A²). */
+export function rippleResistanceWeight(sums: AcLossSums, layers: number): number {
+  return sums.skin + proximityFactor(layers) * sums.proximity;
+}
+
 /** Ripple copper loss Pac = Rdc·Σ Fr(Δ1√n, m)·I_n²/2 from precomputed sums (W). */
 export function acCopperLoss(resistance: number, sums: AcLossSums, layers: number): number {
-  return resistance * (sums.skin + proximityFactor(layers) * sums.proximity);
+  return resistance * rippleResistanceWeight(sums, layers);
 }
 
 /** Effective Rac/Rdc of the ripple current: Σ Fr·I_n²/2 over Σ I_n²/2. */
 export function effectiveAcFactor(sums: AcLossSums, layers: number): number {
-  return (sums.skin + proximityFactor(layers) * sums.proximity) / sums.meanSquare;
+  return rippleResistanceWeight(sums, layers) / sums.meanSquare;
 }
 
-export interface CopperLoss {
-  dc: number;
-  ac: number;
-  total: number;
-}
-
-/** Pdc = Rdc·Iout² and Pac from the ripple harmonics, reported separately (W). */
-export function copperLoss(resistance: number, dcCurrent: number, sums: AcLossSums, layers: number): CopperLoss {
-  const dc = resistance * dcCurrent * dcCurrent;
-  const ac = acCopperLoss(resistance, sums, layers);
-  return { dc, ac, total: dc + ac };
+/** Pdc = Rdc·I² (W). */
+export function dcCopperLoss(resistance: number, dcCurrent: number): number {
+  return resistance * (dcCurrent * dcCurrent);
 }

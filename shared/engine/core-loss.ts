@@ -59,11 +59,12 @@ export function igsePiecewiseLinearLoss(m: SteinmetzCoefficients, times: ArrayLi
   return (igseCoefficient(m) * Math.pow(swing, m.beta - m.alpha) * integral) / period;
 }
 
-/** Temperature factor ct2·T² − ct1·T + ct0 (1 where the material has no correction). */
-export function coreLossTemperatureFactor(material: CoreMaterial, temperature: number): number {
-  const c = material.tempCoefficients;
-  if (!c) return 1;
-  return c.ct2 * temperature * temperature - c.ct1 * temperature + c.ct0;
+export type TemperatureCoefficients = NonNullable<CoreMaterial['tempCoefficients']>;
+
+/** Temperature factor ct2·T² − ct1·T + ct0 of a material's coefficients (1 where it has no correction). */
+export function coreLossTemperatureFactor(coefficients: TemperatureCoefficients | undefined, temperature: number): number {
+  if (!coefficients) return 1;
+  return coefficients.ct2 * temperature * temperature - coefficients.ct1 * temperature + coefficients.ct0;
 }
 
 /**
@@ -89,9 +90,15 @@ export interface FitRangeCheck {
   fluxInRange: boolean;
 }
 
+export function frequencyInFitRange(material: CoreMaterial, frequency: number): boolean {
+  return frequency >= material.fitFrequencyMin && frequency <= material.fitFrequencyMax;
+}
+
+/** Whether the peak AC flux B̂ (half the swing) lies inside the range the coefficients were fitted over. */
+export function fluxInFitRange(material: CoreMaterial, peakFlux: number): boolean {
+  return peakFlux >= material.fitFluxMin && peakFlux <= material.fitFluxMax;
+}
+
 export function fitRangeCheck(material: CoreMaterial, frequency: number, peakFlux: number): FitRangeCheck {
-  return {
-    frequencyInRange: frequency >= material.fitFrequencyMin && frequency <= material.fitFrequencyMax,
-    fluxInRange: peakFlux >= material.fitFluxMin && peakFlux <= material.fitFluxMax,
-  };
+  return { frequencyInRange: frequencyInFitRange(material, frequency), fluxInRange: fluxInFitRange(material, peakFlux) };
 }

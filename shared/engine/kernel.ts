@@ -1,13 +1,16 @@
 // The numeric core shared by evaluateDesign and searchCandidates. Everything that depends only on the spec, a
-// wire, a material or a core × material pair is prepared once; evaluateCandidate then runs without allocating.
-import { acLossSums, type AcLossSums } from './copper-loss';
-import { COPPER_RESISTIVITY_20C, COPPER_TEMPERATURE_COEFFICIENT, HOT_SPOT_ALLOWANCE, MU0 } from './constants';
-import { igseCoefficient, triangleDutyFactor } from './core-loss';
-import { proximityFactor, roundWireDelta } from './dowell';
+// wire, a material or a core × material pair is prepared once; evaluateCandidate then composes the formula modules'
+// functions without allocating.
+import { acCopperLoss, acLossSums, dcCopperLoss, effectiveAcFactor, rippleResistanceWeight, type AcLossSums } from './copper-loss';
+import { windingResistance } from './copper';
+import { HOT_SPOT_ALLOWANCE } from './constants';
+import { fluxInFitRange, frequencyInFitRange, igseTriangleLoss, steinmetzLoss } from './core-loss';
+import { roundWireDelta } from './dowell';
 import {
   fringingOutOfRange,
   fringingFactor,
   gappedInductance,
+  gappedInductanceFactor,
   gapWithFringing,
   minimumTurnsUngapped,
   spacerThickness,
@@ -19,10 +22,11 @@ import { harmonicWeights, type HarmonicWeights } from './harmonics';
 import { resolveLimits, type ConverterSpec, type DesignLimits } from './inputs';
 import { operatingPoint, type OperatingPoint } from './operating-point';
 import { biasedInductance, permeabilityFraction, powderInductanceFactor, powderTurns } from './powder';
+import { fluxDensity, saturationFlux, saturationMargin } from './saturation';
 import { copperSkinDepth } from './skin-depth';
-import { THERMAL_MAX_PASSES, THERMAL_MODEL_LIMIT, THERMAL_TOLERANCE, coreVolumeThermalResistance } from './thermal';
+import { ThermalSolution, coreVolumeThermalResistance, solveTemperature, type WoundCoreLoss } from './thermal';
 import type { CoreMaterial, CoreShape, WireOption } from './types';
-import { conductorCopperArea } from './winding';
+import { conductorCopperArea, fitsBuildHeight, layWinding, windowFill } from './winding';
 
 /** Ferrite without a stated limit: Curie temperature typically ≥ 200 °C (common practice, no source). */
 export const DEFAULT_FERRITE_TEMPERATURE_LIMIT = 200;
@@ -110,37 +114,30 @@ export function prepareWire(wire: WireOption, ctx: SpecContext): WireContext {
 
 export interface MaterialContext {
   material: CoreMaterial;
-  /** Core-loss density at the reference temperature is this × ΔB^β (W/m³). */
-  igsePerSwing: number;
-  steinmetzPerSwing: number;
+  /** iGSE density (W/m³) of this spec's triangular flux at ΔB = 1 T and the reference temperature; scales as ΔB^β. */
+  igseAtUnitSwing: number;
+  /** Steinmetz density at ΔB = 1 T (B̂ = ½ T), likewise. */
+  steinmetzAtUnitSwing: number;
   frequencyInFit: boolean;
 }
 
 export function prepareMaterial(material: CoreMaterial, ctx: SpecContext): MaterialContext {
   const f = ctx.spec.frequency;
-  const d = ctx.op.dutyAtVinMax;
-  const fAlpha = Math.pow(f, material.alpha);
   return {
     material,
-    igsePerSwing: igseCoefficient(material) * fAlpha * triangleDutyFactor(d, material.alpha),
-    // Steinmetz takes the peak B̂ = ΔB/2.
-    steinmetzPerSwing: (material.k * fAlpha) / Math.pow(2, material.beta),
-    frequencyInFit: f >= material.fitFrequencyMin && f <= material.fitFrequencyMax,
+    igseAtUnitSwing: igseTriangleLoss(material, f, 1, ctx.op.dutyAtVinMax),
+    steinmetzAtUnitSwing: steinmetzLoss(material, f, 0.5),
+    frequencyInFit: frequencyInFitRange(material, f),
   };
 }
 
 export interface CoreContext {
   core: CoreShape;
   thermalResistanceByVolume: number;
-  surfaceAreaCm2: number;
 }
 
 export function prepareCore(core: CoreShape): CoreContext {
-  return {
-    core,
-    thermalResistanceByVolume: coreVolumeThermalResistance(core.ve),
-    surfaceAreaCm2: core.surfaceArea * 1e4,
-  };
+  return { core, thermalResistanceByVolume: coreVolumeThermalResistance(core.ve) };
 }
 
 /** Turns, gap and inductance of one core × material, independent of the wire. */
@@ -253,7 +250,6 @@ function designAirGap(
   const inductance = gappedInductance(turns, gap, core.ae, core.le, material.permeability, core.windowHeight);
   if (inductance * (1 - limits.inductanceTolerance) < op.inductanceMin * (1 - 1e-6)) failures |= FAILURE.inductanceShort;
   if (fringingOutOfRange(gap, core.ae)) warnings |= WARNING.fringingRange;
-  const reluctanceLength = gap + core.le / material.permeability;
   const fringing = fringingFactor(gap, core.ae, core.windowHeight);
   return {
     kind: 'air-gap',
@@ -261,7 +257,7 @@ function designAirGap(
     totalGap: gap,
     spacer: spacerThickness(gap, core.centreToOuterLegAreaRatio ?? 1),
     fringingFactor: fringing,
-    inductanceFactorWithoutFringing: (MU0 * core.ae) / reluctanceLength,
+    inductanceFactorWithoutFringing: gappedInductanceFactor(gap, core.ae, core.le, material.permeability, core.windowHeight, false),
     inductanceFactor: inductance / (turns * turns),
     inductanceZeroBias: inductance,
     inductanceAtLoad: inductance,
@@ -303,37 +299,9 @@ export class CandidateFigures {
   thermalPasses = 0;
   failures = 0;
   warnings = 0;
-}
-
-/** Winding layers and turns per layer without allocating (ring cores lose circumference layer by layer). */
-function layOut(turns: number, wire: WireOption, core: CoreShape, out: CandidateFigures): void {
-  const pitch = wire.conductorsPerTurn * wire.overallDiameter;
-  if (core.ring) {
-    let placed = 0;
-    let layers = 0;
-    let first = 0;
-    while (placed < turns) {
-      const inLayer = Math.floor((Math.PI * (core.ring.id - (2 * layers + 1) * wire.overallDiameter)) / pitch);
-      if (inLayer < 1) {
-        layers = Number.POSITIVE_INFINITY;
-        break;
-      }
-      if (layers === 0) first = inLayer;
-      placed += inLayer;
-      layers += 1;
-    }
-    out.turnsPerLayer = first;
-    out.layers = layers;
-    out.buildHeight = layers * wire.overallDiameter;
-    const build = Number.isFinite(out.buildHeight) ? out.buildHeight : core.bobbinHeight;
-    out.meanTurnLength = core.ring.od - core.ring.id + 2 * core.ring.height + Math.PI * build;
-  } else {
-    const perLayer = Math.floor(core.bobbinWidth / pitch);
-    out.turnsPerLayer = perLayer;
-    out.layers = perLayer >= 1 ? Math.ceil(turns / perLayer) : Number.POSITIVE_INFINITY;
-    out.buildHeight = out.layers * wire.overallDiameter;
-    out.meanTurnLength = core.mlt;
-  }
+  /** Scratch of the loss–temperature iteration, reused so an evaluation allocates nothing. */
+  readonly loss: WoundCoreLoss = { resistance20: 0, weightedCurrentSquare: 0, coreLossReference: 0, temperatureCoefficients: undefined };
+  readonly thermal = new ThermalSolution();
 }
 
 export function evaluateCandidate(
@@ -352,77 +320,56 @@ export function evaluateCandidate(
   let failures = mag.failures;
   let warnings = mag.warnings;
 
-  layOut(n, wire, core, out);
-  out.copperFill = (n * wireCtx.copperArea) / core.windowArea;
-  if (!(out.buildHeight <= core.bobbinHeight)) failures |= FAILURE.build;
+  layWinding(n, wire, core, out);
+  out.copperFill = windowFill(n, wireCtx.copperArea, core.windowArea);
+  if (!fitsBuildHeight(out.buildHeight, core)) failures |= FAILURE.build;
   if (out.copperFill > limits.windowUtilisation) failures |= FAILURE.fill;
 
-  const mlt = out.meanTurnLength;
-  out.resistance20 = (COPPER_RESISTIVITY_20C * n * mlt) / wireCtx.copperArea;
+  out.resistance20 = windingResistance(n, out.meanTurnLength, wireCtx.copperArea, 20);
   const dowellLayers = (Number.isFinite(out.layers) ? out.layers : 1) * wireCtx.layersPerWindingLayer;
-  const rippleWeighted = wireCtx.sums.skin + proximityFactor(dowellLayers) * wireCtx.sums.proximity;
-  out.acFactor = rippleWeighted / wireCtx.sums.meanSquare;
+  const rippleWeighted = rippleResistanceWeight(wireCtx.sums, dowellLayers);
+  out.acFactor = effectiveAcFactor(wireCtx.sums, dowellLayers);
 
-  const areaTurns = n * core.ae;
-  out.fluxSwing = op.voltSeconds / areaTurns;
-  out.fluxDc = (mag.inductanceAtLoad * op.ioutMax) / areaTurns;
-  out.fluxPeak = (mag.inductanceAtPeak * op.saturationCheckCurrent) / areaTurns;
+  out.fluxSwing = op.voltSeconds / (n * core.ae);
+  out.fluxDc = fluxDensity(mag.inductanceAtLoad, op.ioutMax, n, core.ae);
+  out.fluxPeak = fluxDensity(mag.inductanceAtPeak, op.saturationCheckCurrent, n, core.ae);
   out.fluxPeakLocal = core.amin !== undefined && core.amin < core.ae ? (out.fluxPeak * core.ae) / core.amin : out.fluxPeak;
+  // Both densities scale as ΔB^β from their value at ΔB = 1 T, prepared once per material.
   const swingPowBeta = Math.pow(out.fluxSwing, material.beta);
-  out.coreLossDensityIgse = matCtx.igsePerSwing * swingPowBeta;
-  out.coreLossDensitySteinmetz = matCtx.steinmetzPerSwing * swingPowBeta;
-  const coreLossReference = out.coreLossDensityIgse * core.ve;
+  out.coreLossDensityIgse = matCtx.igseAtUnitSwing * swingPowBeta;
+  out.coreLossDensitySteinmetz = matCtx.steinmetzAtUnitSwing * swingPowBeta;
 
-  const dcSquare = op.ioutMax * op.ioutMax;
-  const tc = material.tempCoefficients;
-  let rise = 0;
-  let previous = Number.NaN;
-  let passes = 0;
-  let totalLoss = 0;
-  let riseBySurface = 0;
-  let riseByVolume = 0;
-  let resistance = 0;
-  let tempFactor = 1;
-  // The iteration of thermal.ts solveTemperature, inlined so no closure is made per candidate.
-  while (passes < THERMAL_MAX_PASSES && !(Math.abs(rise - previous) < THERMAL_TOLERANCE)) {
-    previous = rise;
-    // Losses are never evaluated above the model limit: past it the part is in runaway (flagged below).
-    const temperature = Math.min(limits.ambient + rise, THERMAL_MODEL_LIMIT);
-    resistance = out.resistance20 * (1 + COPPER_TEMPERATURE_COEFFICIENT * (temperature - 20));
-    tempFactor = tc ? tc.ct2 * temperature * temperature - tc.ct1 * temperature + tc.ct0 : 1;
-    totalLoss = resistance * (dcSquare + rippleWeighted) + coreLossReference * tempFactor;
-    riseBySurface = totalLoss > 0 ? 450 * Math.pow(totalLoss / coreCtx.surfaceAreaCm2, 0.826) : 0;
-    riseByVolume = totalLoss * coreCtx.thermalResistanceByVolume;
-    rise = riseBySurface > riseByVolume ? riseBySurface : riseByVolume;
-    passes += 1;
-  }
-  if (!(Math.abs(rise - previous) < THERMAL_TOLERANCE)) warnings |= WARNING.thermalNotConverged;
-  out.thermalPasses = passes;
-  out.resistanceHot = resistance;
-  out.temperatureFactor = tempFactor;
-  out.copperLossDc = resistance * dcSquare;
-  out.copperLossAc = resistance * rippleWeighted;
-  out.coreLoss = coreLossReference * tempFactor;
-  out.totalLoss = totalLoss;
-  out.riseBySurface = riseBySurface;
-  out.riseByVolume = riseByVolume;
+  const loss = out.loss;
+  loss.resistance20 = out.resistance20;
+  loss.weightedCurrentSquare = op.ioutMax * op.ioutMax + rippleWeighted;
+  loss.coreLossReference = out.coreLossDensityIgse * core.ve;
+  loss.temperatureCoefficients = material.tempCoefficients;
+  const thermal = solveTemperature(limits.ambient, loss, core.surfaceArea, coreCtx.thermalResistanceByVolume, out.thermal);
+  if (!thermal.converged) warnings |= WARNING.thermalNotConverged;
+  if (thermal.runaway) failures |= FAILURE.thermalRunaway;
+  const rise = thermal.rise.design;
+  out.thermalPasses = thermal.passes;
+  out.resistanceHot = thermal.resistance;
+  out.temperatureFactor = thermal.temperatureFactor;
+  out.copperLossDc = dcCopperLoss(thermal.resistance, op.ioutMax);
+  out.copperLossAc = acCopperLoss(thermal.resistance, wireCtx.sums, dowellLayers);
+  out.coreLoss = loss.coreLossReference * thermal.temperatureFactor;
+  out.totalLoss = thermal.totalLoss;
+  out.riseBySurface = thermal.rise.bySurface;
+  out.riseByVolume = thermal.rise.byVolume;
   out.rise = rise;
   out.hotSpot = limits.ambient + rise + HOT_SPOT_ALLOWANCE;
-  if (limits.ambient + rise > THERMAL_MODEL_LIMIT) failures |= FAILURE.thermalRunaway;
 
-  // Bsat falls linearly through its 25 °C and 100 °C values; never read it beyond the model limit, nor below zero.
-  const saturationTemperature = Math.min(out.hotSpot, THERMAL_MODEL_LIMIT);
-  out.saturationFluxHot = Math.max(0, material.bsat25 + ((material.bsat100 - material.bsat25) * (saturationTemperature - 25)) / 75);
-  out.saturationMargin = out.saturationFluxHot > 0 ? 1 - out.fluxPeakLocal / out.saturationFluxHot : -1;
+  out.saturationFluxHot = saturationFlux(material, out.hotSpot);
+  out.saturationMargin = saturationMargin(out.fluxPeakLocal, out.saturationFluxHot);
   if (out.saturationMargin < limits.saturationMargin) failures |= FAILURE.saturation;
   if (mag.kind === 'air-gap' && out.fluxPeak > limits.bMax * (1 + 1e-9)) warnings |= WARNING.fluxAboveLimit;
   if (rise > limits.maxRise) failures |= FAILURE.temperatureRise;
   if (out.hotSpot > limits.insulationClass) failures |= FAILURE.insulation;
   if (out.hotSpot > materialTemperatureLimit(material)) failures |= FAILURE.materialTemperature;
-  if (limits.lossBudget !== undefined && totalLoss > limits.lossBudget) failures |= FAILURE.lossBudget;
+  if (limits.lossBudget !== undefined && out.totalLoss > limits.lossBudget) failures |= FAILURE.lossBudget;
   if (!matCtx.frequencyInFit) warnings |= WARNING.frequencyFit;
-  const peakAcFlux = out.fluxSwing / 2;
-  if (peakAcFlux < material.fitFluxMin || peakAcFlux > material.fitFluxMax) warnings |= WARNING.fluxFit;
+  if (!fluxInFitRange(material, out.fluxSwing / 2)) warnings |= WARNING.fluxFit;
 
   out.failures = failures;
   out.warnings = warnings;

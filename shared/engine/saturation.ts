@@ -1,8 +1,14 @@
+import { THERMAL_MODEL_LIMIT } from './thermal';
 import type { CoreMaterial } from './types';
 
-/** Bsat(T), linear through (25 °C, bsat25) and (100 °C, bsat100), extrapolated outside. */
+/**
+ * Bsat(T), linear through (25 °C, bsat25) and (100 °C, bsat100) and extrapolated beyond, but read at most at the
+ * thermal model limit (losses are not evaluated past it either) and never below zero: a negative Bsat is not a
+ * material property.
+ */
 export function saturationFlux(material: CoreMaterial, temperature: number): number {
-  return material.bsat25 + ((material.bsat100 - material.bsat25) * (temperature - 25)) / 75;
+  const t = Math.min(temperature, THERMAL_MODEL_LIMIT);
+  return Math.max(0, material.bsat25 + ((material.bsat100 - material.bsat25) * (t - 25)) / 75);
 }
 
 /** Core flux at current I: B = L·I/(N·Ae); fringe flux passes through the core too. */
@@ -10,21 +16,7 @@ export function fluxDensity(inductance: number, current: number, turns: number, 
   return (inductance * current) / (turns * area);
 }
 
-export interface SaturationCheck {
-  peakFlux: number;
-  saturationFlux: number;
-  /** 1 − Bpk/Bsat(T). */
-  margin: number;
-  ok: boolean;
-}
-
-export function saturationCheck(
-  material: CoreMaterial,
-  peakFlux: number,
-  temperature: number,
-  requiredMargin = 0.2,
-): SaturationCheck {
-  const bsat = saturationFlux(material, temperature);
-  const margin = 1 - peakFlux / bsat;
-  return { peakFlux, saturationFlux: bsat, margin, ok: margin >= requiredMargin };
+/** Saturation margin 1 − Bpk/Bsat(T); −1 (none at all) when nothing is left of Bsat. */
+export function saturationMargin(peakFlux: number, saturationFlux: number): number {
+  return saturationFlux > 0 ? 1 - peakFlux / saturationFlux : -1;
 }

@@ -1,17 +1,12 @@
 import type { CoreShape, WireOption } from './types';
 
-export interface WindingLayout {
+/** Where a winding lies, written by layWinding into a reused object (the search allocates nothing). */
+export interface WindingGeometry {
   turnsPerLayer: number;
   layers: number;
-  /** Radial build of the winding (m). */
+  /** Radial build of the winding (m); infinite when not even one turn fits a layer. */
   buildHeight: number;
-  /** Copper area over core window area. */
-  copperFill: number;
   meanTurnLength: number;
-  wireLength: number;
-  fitsBuild: boolean;
-  /** Why it does not fit, in plain words; absent when it fits. */
-  reason?: string;
 }
 
 /** Copper area of one turn (m²). */
@@ -19,30 +14,9 @@ export function conductorCopperArea(wire: WireOption): number {
   return (wire.strands * Math.PI * wire.strandDiameter * wire.strandDiameter) / 4;
 }
 
-/** Pitch of one turn along the layer: conductors laid side by side. */
-function turnPitch(wire: WireOption): number {
-  return wire.conductorsPerTurn * wire.overallDiameter;
-}
-
-/**
- * Ring core: layer k (from 1) lies on the circumference π·(ID − (2k − 1)·d_o) and holds floor(that/pitch) turns,
- * so the first layer is floor(π·(ID − d_o)/d_o) for a single conductor.
- */
-function ringLayers(turns: number, innerDiameter: number, wire: WireOption): { first: number; layers: number } {
-  const pitch = turnPitch(wire);
-  const d = wire.overallDiameter;
-  let placed = 0;
-  let layers = 0;
-  let first = 0;
-  while (placed < turns) {
-    const circumference = Math.PI * (innerDiameter - (2 * layers + 1) * d);
-    const inLayer = Math.floor(circumference / pitch);
-    if (inLayer < 1) return { first, layers: Number.POSITIVE_INFINITY };
-    if (layers === 0) first = inLayer;
-    placed += inLayer;
-    layers += 1;
-  }
-  return { first, layers };
+/** Copper fill Ku = N·A_Cu/Wa. */
+export function windowFill(turns: number, copperArea: number, windowArea: number): number {
+  return (turns * copperArea) / windowArea;
 }
 
 /** Mean turn of a ring winding: the section perimeter offset to mid-build, 2·(OD − ID)/2 + 2·h + π·build. */
@@ -50,35 +24,55 @@ export function ringMeanTurnLength(ring: { od: number; id: number; height: numbe
   return ring.od - ring.id + 2 * ring.height + Math.PI * buildHeight;
 }
 
-export function windingLayout(turns: number, wire: WireOption, core: CoreShape): WindingLayout {
-  const copperFill = (turns * conductorCopperArea(wire)) / core.windowArea;
-  let turnsPerLayer: number;
-  let layers: number;
-  let meanTurnLength = core.mlt;
+/** Whether the build fits the bobbin (or ring) height; an infinite build never does. */
+export function fitsBuildHeight(buildHeight: number, core: CoreShape): boolean {
+  return buildHeight <= core.bobbinHeight;
+}
+
+/**
+ * Layers and turns per layer, without allocating. Bobbin: floor(bobbinWidth/pitch) turns per layer, pitch =
+ * conductors·d_o. Ring cores: see layRingWinding.
+ */
+export function layWinding(turns: number, wire: WireOption, core: CoreShape, out: WindingGeometry): void {
   if (core.ring) {
-    const ring = ringLayers(turns, core.ring.id, wire);
-    turnsPerLayer = ring.first;
-    layers = ring.layers;
-  } else {
-    turnsPerLayer = Math.floor(core.bobbinWidth / turnPitch(wire));
-    layers = turnsPerLayer >= 1 ? Math.ceil(turns / turnsPerLayer) : Number.POSITIVE_INFINITY;
+    layRingWinding(turns, wire, core.ring, core.bobbinHeight, out);
+    return;
   }
-  const buildHeight = layers * wire.overallDiameter;
-  if (core.ring && Number.isFinite(buildHeight)) meanTurnLength = ringMeanTurnLength(core.ring, buildHeight);
-  const fitsBuild = Number.isFinite(buildHeight) && buildHeight <= core.bobbinHeight;
-  const layout: WindingLayout = {
-    turnsPerLayer,
-    layers,
-    buildHeight,
-    copperFill,
-    meanTurnLength,
-    wireLength: turns * meanTurnLength,
-    fitsBuild,
-  };
-  if (!fitsBuild) {
-    layout.reason = Number.isFinite(buildHeight)
-      ? `Winding needs ${(buildHeight * 1e3).toFixed(2)} mm build height (${layers} layers), ${core.ring ? 'the ring' : 'the bobbin'} allows ${(core.bobbinHeight * 1e3).toFixed(2)} mm.`
-      : `The wire is too thick to lay even one turn per layer on ${core.id}.`;
+  const perLayer = Math.floor(core.bobbinWidth / (wire.conductorsPerTurn * wire.overallDiameter));
+  out.turnsPerLayer = perLayer;
+  out.layers = perLayer >= 1 ? Math.ceil(turns / perLayer) : Number.POSITIVE_INFINITY;
+  out.buildHeight = out.layers * wire.overallDiameter;
+  out.meanTurnLength = core.mlt;
+}
+
+/**
+ * Ring: layer k (from 1) lies on the circumference π·(ID − (2k − 1)·d_o) and holds floor(that/pitch) turns, so the
+ * first layer is floor(π·(ID − d_o)/d_o) for a single conductor; the mean turn grows with the build (taken as the
+ * full ring window, `windowBuild`, when the wire does not fit at all).
+ */
+function layRingWinding(
+  turns: number,
+  wire: WireOption,
+  ring: NonNullable<CoreShape['ring']>,
+  windowBuild: number,
+  out: WindingGeometry,
+): void {
+  const pitch = wire.conductorsPerTurn * wire.overallDiameter;
+  let placed = 0;
+  let layers = 0;
+  let first = 0;
+  while (placed < turns) {
+    const inLayer = Math.floor((Math.PI * (ring.id - (2 * layers + 1) * wire.overallDiameter)) / pitch);
+    if (inLayer < 1) {
+      layers = Number.POSITIVE_INFINITY;
+      break;
+    }
+    if (layers === 0) first = inLayer;
+    placed += inLayer;
+    layers += 1;
   }
-  return layout;
+  out.turnsPerLayer = first;
+  out.layers = layers;
+  out.buildHeight = layers * wire.overallDiameter;
+  out.meanTurnLength = ringMeanTurnLength(ring, Number.isFinite(out.buildHeight) ? out.buildHeight : windowBuild);
 }

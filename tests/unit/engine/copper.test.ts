@@ -3,7 +3,7 @@ import fc from 'fast-check';
 import { copperResistivity, windingResistance } from '@shared/engine/copper';
 import { copperSkinDepth, skinDepthForResistivity } from '@shared/engine/skin-depth';
 import { dowellFactor, dowellProximityTerm, dowellSkinTerm, roundWireDelta } from '@shared/engine/dowell';
-import { acLossSums, copperLoss } from '@shared/engine/copper-loss';
+import { acCopperLoss, acLossSums, dcCopperLoss, effectiveAcFactor } from '@shared/engine/copper-loss';
 import { harmonicWeights } from '@shared/engine/harmonics';
 
 /** Independent per-layer summation of the one-dimensional layer model (Dowell, Proc. IEE 113(8), 1966 — from memory): Fr = (1/m)·Σ Δ[(k² + (k−1)²)G1 − 4k(k−1)G2]. */
@@ -26,8 +26,8 @@ describe('copper resistivity', () => {
   });
 
   it('gives AWG 18 about 20.95 mΩ/m at 20 °C', () => {
-    // Computed [C] with IEC 60028 ρ20 (diameter from ASTM B258-02 via "American wire gauge" article: AWG 18 = 1.024 mm)
-    expect(windingResistance(1, 1, 1.024e-3, 1, 20) * 1e3).toBeCloseTo(20.95, 1);
+    // Computed with IEC 60028 ρ20 (diameter from ASTM B258-02 via "American wire gauge" article: AWG 18 = 1.024 mm)
+    expect(windingResistance(1, 1, (Math.PI * 1.024e-3 ** 2) / 4, 20) * 1e3).toBeCloseTo(20.95, 1);
   });
 });
 
@@ -89,17 +89,17 @@ describe('ripple copper loss', () => {
     ] as const) {
       let direct = 0;
       for (let n = 1; n <= 200; n++) direct += dowellFactor(delta1 * Math.sqrt(n), m) * weights.meanSquare[n - 1]!;
-      const loss = copperLoss(1, 0, acLossSums(delta1, weights), m).ac;
+      const loss = acCopperLoss(1, acLossSums(delta1, weights), m);
       // The sum stops once a term is below 1e-6 of the running total, so the dropped tail is of order 1e-5.
       expect(Math.abs(loss - direct) / direct).toBeLessThan(1e-4);
     }
   });
 
   it('reduces to Rdc·ΔI²/12 for thin wire (Δ → 0) and reports Pdc separately', () => {
-    const loss = copperLoss(0.01, 10, acLossSums(1e-4, weights), 4);
+    const sums = acLossSums(1e-4, weights);
     // RMS of a triangle, derived algebraically: AC RMS² = ΔI²/12 = 0.75 A²
-    expect(loss.ac).toBeCloseTo(0.01 * 0.75, 6);
-    expect(loss.dc).toBeCloseTo(0.01 * 100, 12);
-    expect(loss.total).toBeCloseTo(loss.dc + loss.ac, 12);
+    expect(acCopperLoss(0.01, sums, 4)).toBeCloseTo(0.01 * 0.75, 6);
+    expect(effectiveAcFactor(sums, 4)).toBeCloseTo(1, 6);
+    expect(dcCopperLoss(0.01, 10)).toBeCloseTo(0.01 * 100, 12);
   });
 });

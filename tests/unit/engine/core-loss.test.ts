@@ -105,9 +105,9 @@ describe('Steinmetz units and temperature', () => {
 
   it('has a parabolic factor equal to 1 at its minimum and above 1 either side (common practice, no source)', () => {
     const material = { ...ferriteA, tempCoefficients: parabolicTemperatureCoefficients(90, 1e-4) };
-    expect(coreLossTemperatureFactor(material, 90)).toBeCloseTo(1, 12);
+    expect(coreLossTemperatureFactor(material.tempCoefficients, 90)).toBeCloseTo(1, 12);
     // 1 + ct2·(T − Tmin)² = 1 + 1e-4·50² = 1.25 [C]
-    expect(coreLossTemperatureFactor(material, 40)).toBeCloseTo(1.25, 12);
-    expect(coreLossTemperatureFactor(material, 140)).toBeCloseTo(1.25, 12);
+    expect(coreLossTemperatureFactor(material.tempCoefficients, 40)).toBeCloseTo(1.25, 12);
+    expect(coreLossTemperatureFactor(material.tempCoefficients, 140)).toBeCloseTo(1.25, 12);
   });
 });

@@ -65,7 +65,7 @@ describe('evaluateDesign on a gapped ferrite core', () => {
     expect(result.thermal.riseBySurface).toBeCloseTo(surfaceDissipationRise(result.totalLoss, etd34Like.surfaceArea), 9);
     expect(result.thermal.riseByVolume).toBeCloseTo(result.totalLoss * coreVolumeThermalResistance(etd34Like.ve), 9);
     // the last pass evaluated losses less than 0.1 K away from the reported temperature
-    const factor = coreLossTemperatureFactor(ferriteA, result.thermal.surfaceTemperature);
+    const factor = coreLossTemperatureFactor(ferriteA.tempCoefficients, result.thermal.surfaceTemperature);
     expect(Math.abs(result.coreLoss.temperatureFactor - factor)).toBeLessThan(0.01);
     const igse = igseTriangleLoss(ferriteA, 100e3, result.flux.swing, 1 / 3);
     expect(result.coreLoss.igseDensity / (igse * result.coreLoss.temperatureFactor)).toBeCloseTo(1, 12);

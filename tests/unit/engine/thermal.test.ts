@@ -1,5 +1,14 @@
 import { describe, expect, it } from 'vitest';
-import { THERMAL_MODEL_LIMIT, coreVolumeThermalResistance, solveTemperature, surfaceDissipationRise, temperatureRise } from '@shared/engine/thermal';
+import { copperResistanceRatio } from '@shared/engine/copper';
+import { coreLossTemperatureFactor } from '@shared/engine/core-loss';
+import {
+  THERMAL_MODEL_LIMIT,
+  ThermalSolution,
+  coreVolumeThermalResistance,
+  solveTemperature,
+  surfaceDissipationRise,
+  type WoundCoreLoss,
+} from '@shared/engine/thermal';
 
 describe('surface-dissipation law ΔT = 450·ψ^0.826', () => {
   it('gives ≈25 °C at 0.03 W/cm² and ≈50 °C at 0.07 W/cm² (McLyman, Transformer and Inductor Design Handbook — from memory; anchor points computed from the formula)', () => {
@@ -26,31 +35,46 @@ describe('core-volume thermal resistance Rth = 53·Ve^−0.54', () => {
 });
 
 describe('loss ↔ temperature iteration', () => {
-  it('uses the larger rise of the two laws', () => {
-    const rise = temperatureRise(2, 40e-4, 7.64e-6);
-    expect(rise.design).toBe(Math.max(rise.bySurface, rise.byVolume));
+  const rthVolume = coreVolumeThermalResistance(7.64e-6);
+  const loss = (over: Partial<WoundCoreLoss>): WoundCoreLoss => ({
+    resistance20: 0,
+    weightedCurrentSquare: 0,
+    coreLossReference: 0,
+    temperatureCoefficients: undefined,
+    ...over,
   });
 
-  it('settles to a self-consistent rise within 0.1 K', () => {
-    const lossAt = (t: number) => 1.2 * (1 + 0.00393 * (t - 20)) + 0.3;
-    const solution = solveTemperature(40, lossAt, 60e-4, 7.64e-6);
+  it('uses the larger rise of the two laws: the surface law and loss × Rth(Ve)', () => {
+    const solution = solveTemperature(40, loss({ coreLossReference: 2 }), 40e-4, rthVolume);
+    expect(solution.totalLoss).toBe(2);
+    expect(solution.rise.bySurface).toBe(surfaceDissipationRise(2, 40e-4));
+    expect(solution.rise.byVolume).toBeCloseTo(2 * rthVolume, 12);
+    expect(solution.rise.design).toBe(Math.max(solution.rise.bySurface, solution.rise.byVolume));
+  });
+
+  it('settles to a self-consistent rise within 0.1 K, copper following ρ(T)/ρ20 (copper α20, from memory)', () => {
+    const solution = solveTemperature(40, loss({ resistance20: 0.012, weightedCurrentSquare: 100, coreLossReference: 0.3 }), 60e-4, rthVolume);
     expect(solution.converged).toBe(true);
-    const again = temperatureRise(lossAt(40 + solution.rise.design), 60e-4, 7.64e-6).design;
-    expect(Math.abs(again - solution.rise.design)).toBeLessThan(0.1);
+    // The last pass evaluated the losses at a temperature within 0.1 K of the one reported.
+    const lossTemperature = 20 + (solution.resistance / 0.012 - 1) / 0.00393;
+    expect(Math.abs(lossTemperature - (40 + solution.rise.design))).toBeLessThan(0.1);
+    expect(solution.resistance / 0.012).toBeCloseTo(copperResistanceRatio(lossTemperature), 12);
+    expect(solution.totalLoss).toBeCloseTo(solution.resistance * 100 + 0.3, 12);
   });
 
   it('never evaluates losses above the model limit and reports runaway when they would heat the part past it', () => {
-    const asked: number[] = [];
-    // A loss that doubles every 10 K: no steady state exists below the limit.
-    const lossAt = (t: number) => {
-      asked.push(t);
-      return 0.5 * 2 ** ((t - 40) / 10);
-    };
-    const solution = solveTemperature(40, lossAt, 10e-4, 0.7e-6);
+    // A core loss that grows with T² (invented coefficients): no steady state exists below the limit.
+    const temperatureCoefficients = { ct2: 1e-3, ct1: 0, ct0: 1 };
+    const solution = solveTemperature(40, loss({ coreLossReference: 0.5, temperatureCoefficients }), 10e-4, coreVolumeThermalResistance(0.7e-6));
     expect(solution.runaway).toBe(true);
-    expect(Math.max(...asked)).toBeLessThanOrEqual(THERMAL_MODEL_LIMIT);
+    expect(solution.temperatureFactor).toBe(coreLossTemperatureFactor(temperatureCoefficients, THERMAL_MODEL_LIMIT));
     expect(Number.isFinite(solution.rise.design)).toBe(true);
-    const calm = solveTemperature(40, () => 0.2, 60e-4, 7.64e-6);
+    const calm = solveTemperature(40, loss({ coreLossReference: 0.2 }), 60e-4, rthVolume);
     expect(calm.runaway).toBe(false);
+  });
+
+  it('reuses the solution object it is given', () => {
+    const reused = new ThermalSolution();
+    expect(solveTemperature(40, loss({ coreLossReference: 0.2 }), 60e-4, rthVolume, reused)).toBe(reused);
   });
 });
