@@ -55,18 +55,36 @@ function countsFromVitestJson(file: string): Counts | undefined {
   };
 }
 
-async function vitestProject(project: string, env: NodeJS.ProcessEnv = {}): Promise<void> {
-  const jsonFile = path.join(resultsDir, `${project}.json`);
+async function vitestRun(project: string, env: NodeJS.ProcessEnv = {}, shard?: { index: number; count: number }): Promise<Counts> {
+  const jsonFile = path.join(resultsDir, shard ? `${project}-${shard.index}.json` : `${project}.json`);
   rmSync(jsonFile, { force: true });
-  const { code } = await run(
-    process.execPath,
-    [path.join(repoRoot, 'node_modules/vitest/vitest.mjs'), 'run', '--project', project, '--reporter=default', '--reporter=json', `--outputFile.json=${jsonFile}`],
-    env,
-  );
+  const args = [path.join(repoRoot, 'node_modules/vitest/vitest.mjs'), 'run', '--project', project, '--reporter=default', '--reporter=json', `--outputFile.json=${jsonFile}`];
+  if (shard) args.push(`--shard=${shard.index}/${shard.count}`);
+  const { code } = await run(process.execPath, args, env);
   const counts = countsFromVitestJson(jsonFile) ?? { passed: 0, failed: 1, skipped: 0 };
   if (code !== 0 && counts.failed === 0) counts.failed = 1; // the runner itself failed
-  totals[project] = counts;
+  return counts;
 }
+
+async function vitestProject(project: string, env: NodeJS.ProcessEnv = {}): Promise<void> {
+  totals[project] = await vitestRun(project, env);
+}
+
+/**
+ * The API files in shards that run side by side, each shard with a database of its own (files in one shard run one
+ * after another, as they truncate and reseed their database). Much of an API file's time is waiting (bcrypt, a
+ * server process starting, PostgreSQL stopping and starting), so two shards fit two cores.
+ */
+async function shardedApiTests(shardCount: number): Promise<void> {
+  const shards = Array.from({ length: shardCount }, (_, i) => {
+    const db = throwawayDatabase(`api${i + 1}`);
+    cleanups.push(db.drop);
+    return vitestRun('api', { TEST_DATABASE_URL: db.url, TEST_RESULTS_DIR: resultsDir }, { index: i + 1, count: shardCount });
+  });
+  const counts = await Promise.all(shards);
+  totals['api'] = counts.reduce((a, c) => ({ passed: a.passed + c.passed, failed: a.failed + c.failed, skipped: a.skipped + c.skipped }), { passed: 0, failed: 0, skipped: 0 });
+}
+const API_SHARDS = Math.max(1, Number(process.env['TEST_API_SHARDS'] ?? 2));
 
 // Strict TypeScript over every part of the tree, one check per configuration.
 const TYPE_CONFIGS = ['tsconfig.server.json', 'tsconfig.browser-tests.json', 'tsconfig.app.json', 'tsconfig.spec.json'];
@@ -152,9 +170,13 @@ try {
     if (suite === 'lint') await lintChecks();
     if (suite === 'unit') await vitestProject('unit');
     if (suite === 'component') await componentTests();
-    if (suite === 'api' || suite === 'browser') {
+    if (suite === 'api') {
       ensureDebianTools();
-      if (suite === 'browser') ensureClientBuild(repoRoot, 'dist/gapwright/browser/index.html');
+      await shardedApiTests(API_SHARDS);
+    }
+    if (suite === 'browser') {
+      ensureDebianTools();
+      ensureClientBuild(repoRoot, 'dist/gapwright/browser/index.html');
       const db = throwawayDatabase(suite);
       cleanups.push(db.drop);
       await vitestProject(suite, { TEST_DATABASE_URL: db.url, TEST_RESULTS_DIR: resultsDir });
