@@ -10,8 +10,11 @@ import { AuditService } from './audit/audit.service.ts';
 import { authRouter } from './auth/auth.router.ts';
 import { createCsrf } from './auth/csrf.ts';
 import { SessionsRepository } from './auth/sessions.repository.ts';
-import { createDesignServices } from './designs/design-services.ts';
+import { DesignsRepository } from './designs/designs.repository.ts';
+import { DesignsService } from './designs/designs.service.ts';
 import { designsRouter } from './designs/designs.router.ts';
+import { exportsRouter } from './exports/exports.router.ts';
+import { ExportsService } from './exports/exports.service.ts';
 import { createPassport } from './auth/passport.ts';
 import { absoluteLifetime, createSessionMiddleware, idleRenewal } from './auth/session.ts';
 import { calcRouter } from './calc/calc.router.ts';
@@ -95,12 +98,13 @@ export function createServices({ config, pool, db, logger, mailTarget }: Pick<Ap
 export function createApp(deps: AppDeps) {
   const { config, pool, logger } = deps;
   const services = createServices(deps);
-  const designServices = createDesignServices(deps.db, services);
+  const designs = new DesignsService(new DesignsRepository(deps.db), services.calc, services.materials, services.audit);
+  const exports = new ExportsService(designs, services.calc);
   const { audit, users, catalogue, materials, calc, shop, review, outbox } = services;
   const compare = new CompareService(
     materials,
     { core: (id) => services.userCores.core(id), wire: (choice) => catalogue.wire(choice) },
-    designServices.designs,
+    designs,
   );
   const openApiDocument = buildOpenApiDocument();
   const sessions = createSessionMiddleware(config, pool);
@@ -148,10 +152,11 @@ export function createApp(deps: AppDeps) {
   api.use(catalogueRouter(services.userCores));
   api.use('/catalogue', userCoresRouter(services.userCores));
   api.use('/compare', compareRouter(compare));
-  api.use('/designs', designsRouter(designServices.designs, designServices.exports));
+  api.use(designsRouter(designs));
+  api.use(exportsRouter(exports));
   api.use('/materials', materialLibraryRouter(services.materialLibrary));
   api.use('/materials', materialsRouter(materials, (req, name) => sessions.readWithSession(req)?.generations[name]));
-  api.use('/revisions', reviewRouter(review));
+  api.use(reviewRouter(review));
   api.use(inboxRouter(review));
   api.use('/shop', shopRouter(shop));
   api.use('/admin/outbox', outboxRouter(outbox));

@@ -1,74 +1,20 @@
 import { Router } from 'express';
-import {
-  copyDesignRequestSchema,
-  createDesignRequestSchema,
-  designFileSchema,
-  designListQuerySchema,
-  EXPORT_KINDS,
-  newRevisionRequestSchema,
-  revisionDiffQuerySchema,
-  updateRevisionRequestSchema,
-  type ExportKind,
-} from '@shared/schemas/designs';
-import type { ExportsService } from '../exports/exports.service.ts';
-import { actorOf, requireRole, requireSignIn } from '../http/access.ts';
-import { notFound } from '../http/errors.ts';
-import { parseBody, parseIdParam, parseQuery } from '../http/validate.ts';
-import { DESIGNER_ROLES, type DesignsService } from './designs.service.ts';
+import { copyDesign, createDesign, diffRevisions, getDesign, getRevision, importDesign, listDesigns, newRevision, updateRevision } from '@shared/api/designs';
+import { actorOf } from '../http/access.ts';
+import { mount } from '../http/endpoint.ts';
+import type { DesignsService } from './designs.service.ts';
 
-/** Everyone signed in reads designs; engineers create them and change their own drafts. */
-export function designsRouter(designs: DesignsService, exports: ExportsService): Router {
+/** Mounted at /api. Everyone signed in reads designs; designers create them and change their own drafts. */
+export function designsRouter(designs: DesignsService): Router {
   const router = Router();
-  router.use(requireSignIn);
-  // Refused before the body is read: a role that may not design gets 403, not a validation error.
-  const designers = requireRole(...DESIGNER_ROLES);
-
-  router.get('/', async (req, res) => {
-    res.json(await designs.list(actorOf(req), parseQuery(designListQuerySchema, req)));
-  });
-
-  router.post('/', designers, async (req, res) => {
-    res.status(201).json(await designs.create(actorOf(req), parseBody(createDesignRequestSchema, req)));
-  });
-
-  router.post('/import', designers, async (req, res) => {
-    res.status(201).json(await designs.importFile(actorOf(req), parseBody(designFileSchema, req)));
-  });
-
-  router.get('/:id', async (req, res) => {
-    res.json(await designs.get(actorOf(req), parseIdParam(req)));
-  });
-
-  router.post('/:id/copy', designers, async (req, res) => {
-    res.status(201).json(await designs.copy(actorOf(req), parseIdParam(req), parseBody(copyDesignRequestSchema, req)));
-  });
-
-  router.get('/:id/diff', async (req, res) => {
-    const { from, to } = parseQuery(revisionDiffQuerySchema, req);
-    res.json(await designs.diff(parseIdParam(req), from, to));
-  });
-
-  router.post('/:id/revisions', designers, async (req, res) => {
-    res.status(201).json(await designs.newRevision(actorOf(req), parseIdParam(req), parseBody(newRevisionRequestSchema, req)));
-  });
-
-  router.get('/:id/revisions/:rev', async (req, res) => {
-    res.json(await designs.revision(parseIdParam(req), parseIdParam(req, 'rev')));
-  });
-
-  router.patch('/:id/revisions/:rev', designers, async (req, res) => {
-    res.json(await designs.update(actorOf(req), parseIdParam(req), parseIdParam(req, 'rev'), parseBody(updateRevisionRequestSchema, req)));
-  });
-
-  router.get('/:id/revisions/:rev/exports/:kind', async (req, res) => {
-    const kind = String(req.params['kind']);
-    if (!(EXPORT_KINDS as readonly string[]).includes(kind)) throw notFound(`No export "${kind}"; choose one of ${EXPORT_KINDS.join(', ')}.`);
-    const file = await exports.export(parseIdParam(req), parseIdParam(req, 'rev'), kind as ExportKind);
-    // attachment() guesses a type from the extension; the server's own type is set after it.
-    res.attachment(file.fileName);
-    res.setHeader('Content-Type', file.contentType);
-    res.send(file.body);
-  });
-
+  mount(router, listDesigns, ({ query, req }) => designs.list(actorOf(req), query));
+  mount(router, createDesign, ({ body, req }) => designs.create(actorOf(req), body));
+  mount(router, importDesign, ({ body, req }) => designs.importFile(actorOf(req), body));
+  mount(router, getDesign, ({ params, req }) => designs.get(actorOf(req), params.id));
+  mount(router, copyDesign, ({ params, body, req }) => designs.copy(actorOf(req), params.id, body));
+  mount(router, diffRevisions, ({ params, query }) => designs.diff(params.id, query.from, query.to));
+  mount(router, newRevision, ({ params, body, req }) => designs.newRevision(actorOf(req), params.id, body));
+  mount(router, getRevision, ({ params, req }) => designs.revision(params.id, params.rev, actorOf(req)));
+  mount(router, updateRevision, ({ params, body, req }) => designs.update(actorOf(req), params.id, params.rev, body));
   return router;
 }

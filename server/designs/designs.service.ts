@@ -1,5 +1,5 @@
 import type { EvaluationResult } from '@shared/engine/index';
-import type { Role } from '@shared/schemas/auth';
+import { may } from '@shared/api/permissions';
 import type {
   Construction,
   CopyDesignRequest,
@@ -25,11 +25,9 @@ import type { Actor } from '../http/access.ts';
 import { conflict, forbidden, notFound } from '../http/errors.ts';
 import type { MaterialsRepository } from '../materials/materials.repository.ts';
 import { diffObjects } from './flatten.ts';
+import { ownsAndDesigns, revisionAccess, type Caller } from './revision-access.ts';
 import type { DesignWithOwner, DesignsRepository, NewRevisionRow, RevisionRow } from './designs.repository.ts';
 
-/** Roles that may create and edit designs of their own. */
-// Reviewers may do everything engineers may; admins keep the site and do not design.
-export const DESIGNER_ROLES: readonly Role[] = ['engineer', 'reviewer'];
 
 export interface EvaluatedConstruction {
   construction: Construction;
@@ -78,11 +76,12 @@ export class DesignsService {
     return this.detail(actor, design, revisions);
   }
 
-  async revision(id: number, revision: number): Promise<RevisionDetail & { design: { id: number; number: string; title: string } }> {
+  /** One revision; what the caller may do with it is stated when a caller is given. */
+  async revision(id: number, revision: number, actor: Caller | null = null): Promise<RevisionDetail & { design: { id: number; number: string; title: string } }> {
     const design = await this.mustFind(id);
     const row = await this.repo.revision(id, revision);
     if (!row) throw notFound(`Design ${design.number} has no revision ${revision}.`);
-    return { ...revisionDetail(row), design: { id: design.id, number: design.number, title: design.title } };
+    return { ...revisionDetail(actor, design, row), design: { id: design.id, number: design.number, title: design.title } };
   }
 
   async create(actor: Actor, request: CreateDesignRequest, action = 'design.created'): Promise<DesignDetail> {
@@ -140,7 +139,7 @@ export class DesignsService {
       await this.audit.record({ actorId: actor.id, action: 'design.revision.updated', target: `${design.number} r${revision}`, details: { fields: Object.keys(request) } }, tx);
       return changed;
     });
-    return revisionDetail(updated);
+    return revisionDetail(actor, design, updated);
   }
 
   async newRevision(actor: Actor, id: number, request: NewRevisionRequest): Promise<RevisionDetail> {
@@ -171,7 +170,7 @@ export class DesignsService {
       await this.audit.record({ actorId: actor.id, action: 'design.revision.created', target: `${design.number} r${revision.revision}` }, tx);
       return revision;
     });
-    return revisionDetail(created);
+    return revisionDetail(actor, design, created);
   }
 
   async diff(id: number, from: number, to: number): Promise<RevisionDiff> {
@@ -239,7 +238,7 @@ export class DesignsService {
   }
 
   private mustDesign(actor: Actor): void {
-    if (!DESIGNER_ROLES.includes(actor.role)) throw forbidden(`Only engineers and reviewers create and edit designs; you are signed in as ${actor.role}.`);
+    if (!may(actor.role, 'design')) throw forbidden(`Only engineers and reviewers create and edit designs; you are signed in as ${actor.role}.`);
   }
 
   private mustOwn(actor: Actor, design: DesignWithOwner): void {
@@ -255,9 +254,10 @@ export class DesignsService {
       owner: { id: design.ownerId, displayName: design.ownerName },
       createdAt: design.createdAt.toISOString(),
       updatedAt: design.updatedAt.toISOString(),
-      canEdit: design.ownerId === actor.id && DESIGNER_ROLES.includes(actor.role),
-      revisions: revisions.map(revisionSummary),
-      latest: revisionDetail(latest),
+      canEdit: ownsAndDesigns(actor, design),
+      canRevise: ownsAndDesigns(actor, design) && latest.status !== 'draft',
+      revisions: revisions.map((row) => revisionSummary(actor, design, row)),
+      latest: revisionDetail(actor, design, latest),
     };
   }
 }
@@ -284,7 +284,7 @@ function revisionValues(
   };
 }
 
-function revisionSummary(row: RevisionRow): RevisionSummary {
+function revisionSummary(actor: Caller | null, design: { ownerId: number }, row: RevisionRow): RevisionSummary {
   const evaluation = storedEvaluation(row.result);
   return {
     id: row.id,
@@ -295,12 +295,13 @@ function revisionSummary(row: RevisionRow): RevisionSummary {
     createdAt: row.createdAt.toISOString(),
     updatedAt: row.updatedAt.toISOString(),
     totalLoss: evaluation?.totalLoss ?? null,
+    ...revisionAccess(actor, design, row),
   };
 }
 
-export function revisionDetail(row: RevisionRow): RevisionDetail {
+export function revisionDetail(actor: Caller | null, design: { ownerId: number }, row: RevisionRow): RevisionDetail {
   return {
-    ...revisionSummary(row),
+    ...revisionSummary(actor, design, row),
     spec: row.spec as DesignSpec,
     construction: (row.construction as Construction | null) ?? null,
     result: (row.result as StoredResult | null) ?? null,

@@ -5,17 +5,8 @@ import { changePasswordRequestSchema, createUserRequestSchema, preferencesReques
 import { coreLossRequestSchema, evaluateRequestSchema, operatingPointRequestSchema, searchRequestSchema } from '@shared/schemas/calc';
 import { compareCurvesRequestSchema, compareDesignRequestSchema, compareSavedDesignRequestSchema } from '@shared/schemas/compare';
 import { userCoreRequestSchema } from '@shared/schemas/cores';
-import {
-  copyDesignRequestSchema,
-  createDesignRequestSchema,
-  designFileSchema,
-  designListQuerySchema,
-  newRevisionRequestSchema,
-  revisionDiffQuerySchema,
-  updateRevisionRequestSchema,
-} from '@shared/schemas/designs';
 import { materialEditSchema, materialExportQuerySchema } from '@shared/schemas/materials';
-import { releaseRequestSchema, returnRequestSchema, shopSettingsSchema, transitionRequestSchema, unitMeasurementSchema } from '@shared/schemas/review';
+import { shopSettingsSchema, unitMeasurementSchema } from '@shared/schemas/review';
 
 export interface RouteDoc {
   summary: string;
@@ -32,7 +23,6 @@ export interface RouteDoc {
 }
 
 const SIGNED_IN = 'signed in';
-const DESIGNERS = 'engineer, reviewer';
 const UPLOADERS = 'engineer, reviewer, admin';
 const CURATORS = 'reviewer, admin';
 
@@ -111,32 +101,6 @@ export const ROUTE_DOCS: Record<string, RouteDoc> = {
   'POST /api/materials/:id/retire': { summary: 'Hide a material from new searches (designs keep it)', who: CURATORS, answer: 'the material' },
   'POST /api/materials/:id/unretire': { summary: 'Bring a retired material back', who: CURATORS, answer: 'the material' },
 
-  'GET /api/designs': { summary: 'Designs, searched, sorted and paged', who: SIGNED_IN, query: designListQuerySchema, answer: '{ items, total, page, pageSize }' },
-  'GET /api/designs/:id': { summary: 'A design with its revisions and the latest revision in full', who: SIGNED_IN, answer: 'DesignDetail' },
-  'GET /api/designs/:id/diff': { summary: 'Differences between two revisions (spec, construction, results)', who: SIGNED_IN, query: revisionDiffQuerySchema, answer: '{ from, to, spec, construction, result }' },
-  'GET /api/designs/:id/revisions/:rev': { summary: 'One revision in full', who: SIGNED_IN, answer: 'RevisionDetail' },
-  'GET /api/designs/:id/revisions/:rev/exports/:kind': {
-    summary: 'design.json (re-importable), candidates.csv, bom.csv or spice.lib of a saved revision',
-    who: SIGNED_IN,
-    answer: 'the file',
-    produces: 'application/octet-stream',
-  },
-  'POST /api/designs': { summary: 'A new design (revision 1, draft) owned by the caller; the construction is evaluated', who: DESIGNERS, body: createDesignRequestSchema, answer: 'DesignDetail (201)' },
-  'POST /api/designs/import': { summary: 'A new design from an exported design file (results recomputed, never trusted)', who: DESIGNERS, body: designFileSchema, answer: 'DesignDetail (201)' },
-  'POST /api/designs/:id/copy': { summary: 'A copy owned by the caller', who: DESIGNERS, body: copyDesignRequestSchema, answer: 'DesignDetail (201)' },
-  'POST /api/designs/:id/revisions': { summary: 'A new draft revision from the latest or a given one (owner only)', who: DESIGNERS, body: newRevisionRequestSchema, answer: 'RevisionDetail (201)' },
-  'PATCH /api/designs/:id/revisions/:rev': { summary: 'Change a draft revision (owner only); the construction is evaluated again', who: DESIGNERS, body: updateRevisionRequestSchema, answer: 'RevisionDetail' },
-
-  'GET /api/revisions/:id/timeline': { summary: 'Review steps of the design’s revisions with who, when and comments', who: SIGNED_IN, answer: '{ designId, entries }' },
-  'POST /api/revisions/:id/submit': { summary: 'Submit a draft for review (owner only)', who: DESIGNERS, body: transitionRequestSchema, answer: '{ revisionId, status }' },
-  'POST /api/revisions/:id/approve': { summary: 'Approve a revision in review (never the author)', who: 'reviewer', body: transitionRequestSchema, answer: '{ revisionId, status }' },
-  'POST /api/revisions/:id/return': { summary: 'Return a revision to its author with a comment', who: 'reviewer', body: returnRequestSchema, answer: '{ revisionId, status }' },
-  'POST /api/revisions/:id/release': {
-    summary: 'Release an approved revision: freezes it, writes the winding sheet and build order, mails the shop',
-    who: 'reviewer',
-    body: releaseRequestSchema,
-    answer: '{ revisionId, status, orderId, orderNumber, superseded }',
-  },
 
   'GET /api/shop/orders': { summary: 'Build orders (?status=open|complete|all)', who: 'winder, reviewer, engineer, admin', answer: '{ orders }' },
   'GET /api/shop/orders/:id': { summary: 'One build order with its frozen winding sheet and the units recorded', who: 'winder, reviewer, engineer, admin', answer: 'BuildOrder' },

@@ -2,9 +2,11 @@ import { and, desc, eq, inArray, ne, sql } from 'drizzle-orm';
 import type { Db, Tx } from '../db/client.ts';
 import { designRevisions, designs, revisionTransitions, users } from '../db/schema.ts';
 
+import type { DesignRow, RevisionRow } from '../designs/designs.repository.ts';
+
 export type { Tx } from '../db/client.ts';
-export type RevisionRow = typeof designRevisions.$inferSelect;
-export type DesignRow = typeof designs.$inferSelect;
+// The designs feature owns these tables; review reads and moves their rows.
+export type { DesignRow, RevisionRow } from '../designs/designs.repository.ts';
 type Status = RevisionRow['status'];
 
 export class ReviewRepository {

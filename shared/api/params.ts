@@ -9,3 +9,6 @@ export const positiveIdSchema = z
 
 /** `params` of a route with one `:id`. */
 export const idParamsSchema = z.object({ id: positiveIdSchema });
+
+/** `params` of a route with a design `:id` and a revision number `:rev`. */
+export const revisionParamsSchema = z.object({ id: positiveIdSchema, rev: positiveIdSchema });

@@ -133,43 +133,51 @@ export type DesignFile = z.infer<typeof designFileSchema>;
 export const EXPORT_KINDS = ['design.json', 'candidates.csv', 'bom.csv', 'spice.lib'] as const;
 export type ExportKind = (typeof EXPORT_KINDS)[number];
 
-// Response shapes the client reads.
+// Answer schemas: what the server sends and the client parses (the types are inferred from them).
 
-export interface DesignListItem {
-  id: number;
-  number: string;
-  title: string;
-  owner: { id: number; displayName: string };
-  status: DesignStatus;
-  revision: number;
-  summary: string;
-  updatedAt: string;
-}
+const ownerSchema = z.object({ id: z.number().int(), displayName: z.string() });
 
-export interface DesignListResponse {
-  items: DesignListItem[];
-  total: number;
-  page: number;
-  pageSize: number;
-}
+export const designListItemSchema = z.object({
+  id: z.number().int(),
+  number: z.string(),
+  title: z.string(),
+  owner: ownerSchema,
+  status: z.enum(DESIGN_STATUSES),
+  revision: z.number().int(),
+  summary: z.string(),
+  updatedAt: z.string(),
+});
+export type DesignListItem = z.infer<typeof designListItemSchema>;
 
-export interface RevisionSummary {
+export const designListResponseSchema = z.object({
+  items: z.array(designListItemSchema),
+  total: z.number().int(),
+  page: z.number().int(),
+  pageSize: z.number().int(),
+});
+export type DesignListResponse = z.infer<typeof designListResponseSchema>;
+
+export const revisionSummarySchema = z.object({
   /** Database id of the revision: the review and release routes address revisions by it. */
-  id: number;
-  revision: number;
-  status: DesignStatus;
-  engineVersion: string | null;
-  note: string | null;
-  createdAt: string;
-  updatedAt: string;
-  totalLoss: number | null;
-}
+  id: z.number().int().meta({ description: 'Database id of the revision: the review and release routes address revisions by it' }),
+  revision: z.number().int(),
+  status: z.enum(DESIGN_STATUSES),
+  engineVersion: z.string().nullable(),
+  note: z.string().nullable(),
+  createdAt: z.string(),
+  updatedAt: z.string(),
+  totalLoss: z.number().nullable(),
+  canEdit: z.boolean().meta({ description: 'The caller may change this revision (their own draft)' }),
+  canSubmit: z.boolean().meta({ description: 'The caller may submit it for review' }),
+  canApprove: z.boolean().meta({ description: 'The caller may approve it' }),
+  canReturn: z.boolean().meta({ description: 'The caller may return it to its author' }),
+  canRelease: z.boolean().meta({ description: 'The caller may release it to the winding shop' }),
+});
+export type RevisionSummary = z.infer<typeof revisionSummarySchema>;
 
 /** What a revision keeps of the engine's answer: the wire option evaluated and every figure. */
-export interface StoredResult {
-  wire: unknown;
-  evaluation: unknown;
-}
+export const storedResultSchema = z.object({ wire: z.unknown(), evaluation: z.unknown() });
+export type StoredResult = z.infer<typeof storedResultSchema>;
 
 /** The engine result saved on a revision (the `result` column), or null when none was chosen yet. */
 export function storedEvaluation(stored: unknown): EvaluationResult | null {
@@ -181,38 +189,39 @@ export function storedWire(stored: unknown): WireOption | null {
   return ((stored as StoredResult | null)?.wire as WireOption | undefined) ?? null;
 }
 
-export interface RevisionDetail extends RevisionSummary {
-  spec: DesignSpec;
-  construction: Construction | null;
-  result: StoredResult | null;
-  materialId: number | null;
-}
+export const revisionDetailSchema = revisionSummarySchema.extend({
+  spec: designSpecSchema,
+  construction: constructionSchema.nullable(),
+  result: storedResultSchema.nullable(),
+  materialId: z.number().int().nullable(),
+});
+export type RevisionDetail = z.infer<typeof revisionDetailSchema>;
 
-export interface DesignDetail {
-  id: number;
-  number: string;
-  title: string;
-  owner: { id: number; displayName: string };
-  createdAt: string;
-  updatedAt: string;
-  canEdit: boolean;
-  revisions: RevisionSummary[];
-  latest: RevisionDetail;
-}
+export const designDetailSchema = z.object({
+  id: z.number().int(),
+  number: z.string(),
+  title: z.string(),
+  owner: ownerSchema,
+  createdAt: z.string(),
+  updatedAt: z.string(),
+  canEdit: z.boolean().meta({ description: 'The caller owns the design and may design: they may change its drafts' }),
+  canRevise: z.boolean().meta({ description: 'The caller may start a new draft revision (the latest is no longer a draft)' }),
+  revisions: z.array(revisionSummarySchema),
+  latest: revisionDetailSchema,
+});
+export type DesignDetail = z.infer<typeof designDetailSchema>;
 
-export interface DiffEntry {
-  path: string;
-  from: unknown;
-  to: unknown;
-}
+const diffEntrySchema = z.object({ path: z.string(), from: z.unknown(), to: z.unknown() });
+export type DiffEntry = z.infer<typeof diffEntrySchema>;
 
-export interface RevisionDiff {
-  from: number;
-  to: number;
-  spec: DiffEntry[];
-  construction: DiffEntry[];
-  result: DiffEntry[];
-}
+export const revisionDiffSchema = z.object({
+  from: z.number().int(),
+  to: z.number().int(),
+  spec: z.array(diffEntrySchema),
+  construction: z.array(diffEntrySchema),
+  result: z.array(diffEntrySchema),
+});
+export type RevisionDiff = z.infer<typeof revisionDiffSchema>;
 
 /** The wire request that rebuilds a catalogue wire option: AWG sizes by gauge, others by bare diameter. */
 export function wireRequestOf(wire: { id: string; kind: string; strandDiameter: number; strands: number }): Construction['wire'] {

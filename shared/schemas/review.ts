@@ -1,4 +1,5 @@
 import * as z from 'zod';
+import { DESIGN_STATUSES } from './designs';
 import { text } from './text';
 
 export const transitionRequestSchema = z
@@ -50,3 +51,28 @@ export const unitMeasurementSchema = z
   })
   .strict();
 export type UnitMeasurementRequest = z.infer<typeof unitMeasurementSchema>;
+
+// Answers of the review routes.
+
+export const timelineEntrySchema = z.object({
+  id: z.number().int(),
+  revisionId: z.number().int(),
+  fromStatus: z.string().nullable(),
+  toStatus: z.string(),
+  comment: z.string().nullable(),
+  at: z.string(),
+  actor: z.string().nullable().meta({ description: 'Display name; null when the user was removed' }),
+});
+export type TimelineEntry = z.infer<typeof timelineEntrySchema>;
+
+export const timelineSchema = z.object({ designId: z.number().int(), entries: z.array(timelineEntrySchema) });
+export type Timeline = z.infer<typeof timelineSchema>;
+
+export const transitionOutcomeSchema = z.object({
+  revisionId: z.number().int(),
+  status: z.enum(DESIGN_STATUSES),
+  orderId: z.number().int().optional().meta({ description: 'On release: the build order written' }),
+  orderNumber: z.string().optional(),
+  superseded: z.array(z.number().int()).optional().meta({ description: 'On release: ids of the revisions it superseded' }),
+});
+export type TransitionOutcome = z.infer<typeof transitionOutcomeSchema>;

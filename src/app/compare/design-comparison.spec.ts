@@ -3,6 +3,7 @@ import type { ComponentFixture } from '@angular/core/testing';
 import type { CompareDesignResponse } from '@shared/schemas/compare';
 import { afterEach, describe, expect, it } from 'vitest';
 
+import { designDetail, revisionSummary } from '../testing/designs';
 import { fieldLabelled, typeInto } from '../testing/form-fields';
 import { renderWithHttpTesting } from '../testing/render';
 import { DesignComparison } from './design-comparison';
@@ -30,7 +31,7 @@ describe('DesignComparison', () => {
     ({ fixture, http, page } = await renderWithHttpTesting(DesignComparison, { designId: '5', revision: '2' }, { settle: false }));
     http.expectOne((r) => r.url === '/api/designs').flush({ items: [], total: 0, page: 0, pageSize: 100 });
     http.expectOne('/api/catalogue/cores').flush({ cores: [] });
-    http.expectOne('/api/designs/5').flush({ id: 5, number: 'GW-0005', revisions: [{ id: 9, revision: 2, status: 'draft', totalLoss: 1.5 }] });
+    http.expectOne('/api/designs/5').flush(designDetail({ revisions: [revisionSummary({ id: 9, revision: 2, totalLoss: 1.5 })] }));
   }
 
   it('compares the revision named by the page at once and marks the material the design was built with', async () => {

@@ -10,7 +10,8 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSortModule, type Sort } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { Router, RouterLink } from '@angular/router';
-import type { DesignListItem, DesignListResponse } from '@shared/schemas/designs';
+import { may } from '@shared/api/permissions';
+import { DESIGN_SORT_KEYS, type DesignListItem, type DesignListResponse, type DesignSortKey } from '@shared/schemas/designs';
 import { catchError, debounceTime, map, of, startWith, switchMap } from 'rxjs';
 
 import { Notifier } from '../core/notifier';
@@ -18,6 +19,8 @@ import { Session } from '../core/session';
 import { DesignsApi, type DesignListParams } from './designs-api';
 
 const STATUS_LABELS: Record<string, string> = { draft: 'Draft', in_review: 'In review', approved: 'Approved', released: 'Released', superseded: 'Superseded' };
+
+const sortKey = (column: string): DesignSortKey => DESIGN_SORT_KEYS.find((key) => key === column) ?? 'updated';
 
 /** Every design, paged, sorted and searched on the server. */
 @Component({
@@ -34,7 +37,7 @@ export class DesignList {
   private readonly session = inject(Session);
 
   protected readonly params = signal<DesignListParams>({ scope: 'all', q: '', sort: 'updated', dir: 'desc', page: 0, pageSize: 20 });
-  protected readonly canDesign = computed(() => ['engineer', 'reviewer'].includes(this.session.user()?.role ?? ''));
+  protected readonly canDesign = computed(() => may(this.session.role(), 'design'));
   protected readonly columns = ['number', 'title', 'summary', 'status', 'owner', 'updated', 'actions'];
   protected readonly statusLabels = STATUS_LABELS;
 
@@ -70,7 +73,7 @@ export class DesignList {
   }
 
   protected sorted(sort: Sort): void {
-    this.params.update((p) => ({ ...p, sort: sort.direction ? sort.active : 'updated', dir: sort.direction || 'desc', page: 0 }));
+    this.params.update((p) => ({ ...p, sort: sort.direction ? sortKey(sort.active) : 'updated', dir: sort.direction || 'desc', page: 0 }));
   }
 
   protected paged(event: PageEvent): void {

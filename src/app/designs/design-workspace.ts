@@ -6,6 +6,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Router, RouterLink } from '@angular/router';
+import { may } from '@shared/api/permissions';
 import type { SearchCandidate } from '@shared/engine/index';
 import { EXPORT_KINDS, wireRequestOf, type Construction, type DesignDetail, type DesignSpec, type ExportKind, type StoredResult } from '@shared/schemas/designs';
 import { distinctUntilChanged, map, startWith } from 'rxjs';
@@ -82,17 +83,14 @@ export class DesignWorkspace {
     { initialValue: null as DesignSpec | null },
   );
 
-  private readonly isDesigner = computed(() => ['engineer', 'reviewer'].includes(this.session.user()?.role ?? ''));
+  private readonly isDesigner = computed(() => may(this.session.role(), 'design'));
   protected readonly latest = computed(() => this.detail()?.latest ?? null);
   protected readonly editable = computed(() => {
     const d = this.detail();
     if (!d) return this.isDesigner();
-    return d.canEdit && d.latest.status === 'draft';
+    return d.latest.canEdit;
   });
-  protected readonly canStartRevision = computed(() => {
-    const d = this.detail();
-    return !!d && d.canEdit && d.latest.status !== 'draft';
-  });
+  protected readonly canStartRevision = computed(() => this.detail()?.canRevise ?? false);
 
   constructor() {
     effect(() => {

@@ -1,10 +1,14 @@
-import { HttpClient, HttpParams } from '@angular/common/http';
+import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
+import { copyDesign, createDesign, diffRevisions, getDesign, listDesigns, newRevision, updateRevision } from '@shared/api/designs';
+import { exportRevision } from '@shared/api/exports';
+import { endpointUrl } from '@shared/api/endpoint';
 import type { EvaluationResult, SearchResult, WireOption, CoreMaterial } from '@shared/engine/index';
 import type {
   Construction,
   DesignDetail,
   DesignListResponse,
+  DesignSortKey,
   DesignSpec,
   ExportKind,
   RevisionDetail,
@@ -13,12 +17,13 @@ import type {
 import type { Observable } from 'rxjs';
 import { map } from 'rxjs';
 
+import { Api } from '../core/api';
 import { errorsShownByCaller } from '../core/error-display';
 
 export interface DesignListParams {
   scope: 'mine' | 'all';
   q: string;
-  sort: string;
+  sort: DesignSortKey;
   dir: 'asc' | 'desc';
   page: number;
   pageSize: number;
@@ -51,35 +56,34 @@ export type MaterialView = CoreMaterial & { retired?: boolean };
 @Injectable({ providedIn: 'root' })
 export class DesignsApi {
   private readonly http = inject(HttpClient);
+  private readonly api = inject(Api);
 
   list(params: DesignListParams): Observable<DesignListResponse> {
-    let query = new HttpParams();
-    for (const [key, value] of Object.entries(params)) if (value !== '') query = query.set(key, String(value));
-    return this.http.get<DesignListResponse>('/api/designs', { params: query });
+    return this.api.call(listDesigns, { query: { ...params, q: params.q || undefined } });
   }
 
   get(id: number): Observable<DesignDetail> {
-    return this.http.get<DesignDetail>(`/api/designs/${id}`);
+    return this.api.call(getDesign, { params: { id: String(id) } });
   }
 
   create(title: string, spec: DesignSpec, construction: Construction | null): Observable<DesignDetail> {
-    return this.http.post<DesignDetail>('/api/designs', { title, spec, ...(construction ? { construction } : {}) }, errorsShownByCaller());
+    return this.api.call(createDesign, { body: { title, spec, ...(construction ? { construction } : {}) } }, errorsShownByCaller());
   }
 
   update(id: number, revision: number, change: { title?: string; spec?: DesignSpec; construction?: Construction | null }): Observable<RevisionDetail> {
-    return this.http.patch<RevisionDetail>(`/api/designs/${id}/revisions/${revision}`, change, errorsShownByCaller());
+    return this.api.call(updateRevision, { params: { id: String(id), rev: String(revision) }, body: change }, errorsShownByCaller());
   }
 
   newRevision(id: number): Observable<RevisionDetail> {
-    return this.http.post<RevisionDetail>(`/api/designs/${id}/revisions`, {});
+    return this.api.call(newRevision, { params: { id: String(id) }, body: {} });
   }
 
   copy(id: number): Observable<DesignDetail> {
-    return this.http.post<DesignDetail>(`/api/designs/${id}/copy`, {});
+    return this.api.call(copyDesign, { params: { id: String(id) }, body: {} });
   }
 
   diff(id: number, from: number, to: number): Observable<RevisionDiff> {
-    return this.http.get<RevisionDiff>(`/api/designs/${id}/diff`, { params: { from, to } });
+    return this.api.call(diffRevisions, { params: { id: String(id) }, query: { from, to } });
   }
 
   materials(): Observable<MaterialView[]> {
@@ -111,6 +115,6 @@ export class DesignsApi {
   }
 
   exportUrl(id: number, revision: number, kind: ExportKind): string {
-    return `/api/designs/${id}/revisions/${revision}/exports/${kind}`;
+    return endpointUrl(exportRevision, { id, rev: revision, kind });
   }
 }

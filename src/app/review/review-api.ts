@@ -1,32 +1,13 @@
-import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
+import { approveRevision, releaseRevision, returnRevision, revisionTimeline, submitRevision } from '@shared/api/review';
+import type { Timeline, TransitionOutcome } from '@shared/schemas/review';
 import type { Observable } from 'rxjs';
 
+import { Api } from '../core/api';
 import { errorsShownByCaller } from '../core/error-display';
 
-export type RevisionStatus = 'draft' | 'in_review' | 'approved' | 'released' | 'superseded';
-
-export interface TimelineEntry {
-  id: number;
-  revisionId: number;
-  fromStatus: string | null;
-  toStatus: string;
-  comment: string | null;
-  at: string;
-  actor: string | null;
-}
-
-export interface Timeline {
-  designId: number;
-  entries: TimelineEntry[];
-}
-
-export interface TransitionOutcome {
-  revisionId: number;
-  status: RevisionStatus;
-  orderId?: number;
-  orderNumber?: string;
-}
+export type { DesignStatus as RevisionStatus } from '@shared/schemas/designs';
+export type { Timeline, TimelineEntry, TransitionOutcome } from '@shared/schemas/review';
 
 export const STATUS_LABELS: Record<string, string> = {
   draft: 'Draft',
@@ -39,30 +20,27 @@ export const STATUS_LABELS: Record<string, string> = {
 /** The review and release flow of one design revision; the server decides who may do what. */
 @Injectable({ providedIn: 'root' })
 export class ReviewApi {
-  private readonly http = inject(HttpClient);
+  private readonly api = inject(Api);
 
   timeline(revisionId: number): Observable<Timeline> {
-    return this.http.get<Timeline>(`/api/revisions/${revisionId}/timeline`);
+    return this.api.call(revisionTimeline, { params: { id: String(revisionId) } });
   }
 
+  // Failures come back to the dialog, which shows them under its fields.
+
   submit(revisionId: number, comment?: string): Observable<TransitionOutcome> {
-    return this.post(revisionId, 'submit', comment ? { comment } : {});
+    return this.api.call(submitRevision, { params: { id: String(revisionId) }, body: comment ? { comment } : {} }, errorsShownByCaller());
   }
 
   approve(revisionId: number, comment?: string): Observable<TransitionOutcome> {
-    return this.post(revisionId, 'approve', comment ? { comment } : {});
+    return this.api.call(approveRevision, { params: { id: String(revisionId) }, body: comment ? { comment } : {} }, errorsShownByCaller());
   }
 
   returnToDraft(revisionId: number, comment: string): Observable<TransitionOutcome> {
-    return this.post(revisionId, 'return', { comment });
+    return this.api.call(returnRevision, { params: { id: String(revisionId) }, body: { comment } }, errorsShownByCaller());
   }
 
   release(revisionId: number, quantity: number, comment?: string): Observable<TransitionOutcome> {
-    return this.post(revisionId, 'release', comment ? { quantity, comment } : { quantity });
-  }
-
-  /** Failures come back to the dialog, which shows them under its fields. */
-  private post(revisionId: number, action: string, body: object): Observable<TransitionOutcome> {
-    return this.http.post<TransitionOutcome>(`/api/revisions/${revisionId}/${action}`, body, errorsShownByCaller());
+    return this.api.call(releaseRevision, { params: { id: String(revisionId) }, body: comment ? { quantity, comment } : { quantity } }, errorsShownByCaller());
   }
 }

@@ -1,21 +1,18 @@
 import { DatePipe } from '@angular/common';
-import { HttpClient } from '@angular/common/http';
 import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
 import { MatCardModule } from '@angular/material/card';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
-import type { DesignDetail } from '@shared/schemas/designs';
+import type { DesignDetail, RevisionSummary } from '@shared/schemas/designs';
 import { forkJoin, map, of, switchMap } from 'rxjs';
 
 import { InboxApi, type InboxItem } from '../inbox/inbox-api';
+import { DesignsApi } from '../designs/designs-api';
 import { RevisionActions } from './revision-actions';
-import type { RevisionStatus } from './review-api';
 
 interface ReviewCard {
   item: InboxItem;
-  revisionId: number;
-  status: RevisionStatus;
-  ownerId: number;
+  revision: RevisionSummary;
   ownerName: string;
   subject: string;
 }
@@ -36,7 +33,7 @@ interface ReviewCard {
       } @else if (!cards().length) {
         <p>Nothing is waiting for review or release.</p>
       }
-      @for (card of cards(); track card.revisionId) {
+      @for (card of cards(); track card.revision.id) {
         <mat-card appearance="outlined" class="gw-review-card">
           <mat-card-header>
             <mat-card-title>
@@ -46,9 +43,7 @@ interface ReviewCard {
           </mat-card-header>
           <mat-card-content>
             <gw-revision-actions
-              [revisionId]="card.revisionId"
-              [status]="card.status"
-              [ownerId]="card.ownerId"
+              [revision]="card.revision"
               [subject]="card.subject"
               (changed)="reload()"
             />
@@ -75,7 +70,7 @@ interface ReviewCard {
 })
 export class ReviewPage {
   private readonly inbox = inject(InboxApi);
-  private readonly http = inject(HttpClient);
+  private readonly designs = inject(DesignsApi);
 
   protected readonly cards = signal<ReviewCard[]>([]);
   protected readonly loading = signal(true);
@@ -88,16 +83,16 @@ export class ReviewPage {
     this.inbox
       .items()
       .pipe(
-        map(({ items }) => items.filter((item) => (item.kind === 'review' || item.kind === 'release') && item.revisionId !== undefined)),
+        map(({ items }) => items.filter((item) => item.kind === 'review' || item.kind === 'release')),
         switchMap((items) =>
           items.length
-            ? forkJoin(items.map((item) => this.http.get<DesignDetail>(`/api/designs/${item.designId}`).pipe(map((design) => toCard(item, design)))))
+            ? forkJoin(items.map((item) => this.designs.get(item.designId).pipe(map((design) => toCard(item, design)))))
             : of([]),
         ),
       )
       .subscribe({
         next: (cards) => {
-          this.cards.set(cards);
+          this.cards.set(cards.filter((card) => card !== null));
           this.loading.set(false);
         },
         error: () => this.loading.set(false),
@@ -105,14 +100,9 @@ export class ReviewPage {
   }
 }
 
-function toCard(item: InboxItem, design: DesignDetail): ReviewCard {
-  const revision = design.revisions.find((r) => item.label.includes(`rev ${r.revision} `));
-  return {
-    item,
-    revisionId: item.revisionId!,
-    status: item.kind === 'review' ? 'in_review' : 'approved',
-    ownerId: design.owner.id,
-    ownerName: design.owner.displayName,
-    subject: `${design.number} rev ${revision?.revision ?? design.latest.revision}`,
-  };
+/** The inbox item's revision, found by its id among the design's revisions; items whose revision is gone are left out. */
+function toCard(item: InboxItem, design: DesignDetail): ReviewCard | null {
+  const revision = design.revisions.find((r) => r.id === item.revisionId);
+  if (!revision) return null;
+  return { item, revision, ownerName: design.owner.displayName, subject: `${design.number} rev ${revision.revision}` };
 }

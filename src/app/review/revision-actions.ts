@@ -1,17 +1,17 @@
 import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, effect, inject, input, linkedSignal, output, signal } from '@angular/core';
+import type { RevisionSummary } from '@shared/schemas/designs';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
 
 import { Notifier } from '../core/notifier';
-import { Session } from '../core/session';
-import { ReviewApi, STATUS_LABELS, type RevisionStatus, type TimelineEntry, type TransitionOutcome } from './review-api';
+import { ReviewApi, STATUS_LABELS, type TimelineEntry, type TransitionOutcome } from './review-api';
 import { TransitionDialog, type TransitionAction, type TransitionDialogData } from './transition-dialog';
 
 /**
  * The review steps one person may take on one revision, each behind a confirmation, and the revision
- * history (who, when, comment) below. The server has the last word; this only hides what would be refused.
+ * history (who, when, comment) below. The server states which steps the caller may take (`can…` flags).
  */
 @Component({
   selector: 'gw-revision-actions',
@@ -87,13 +87,12 @@ import { TransitionDialog, type TransitionAction, type TransitionDialogData } fr
 })
 export class RevisionActions {
   private readonly api = inject(ReviewApi);
-  private readonly session = inject(Session);
   private readonly dialog = inject(MatDialog);
   private readonly notifier = inject(Notifier);
 
-  readonly revisionId = input.required<number>();
-  readonly status = input.required<RevisionStatus>();
-  readonly ownerId = input.required<number>();
+  /** The revision with what the caller may do with it, as the server stated it. */
+  readonly revision = input.required<Pick<RevisionSummary, 'id' | 'status' | 'canSubmit' | 'canApprove' | 'canReturn' | 'canRelease'>>();
+  protected readonly revisionId = computed(() => this.revision().id);
   /** How the revision is named in questions, e.g. "GW-0001 rev 2". */
   readonly subject = input('this revision');
   /** Emitted after a step has been carried out, with the new status. */
@@ -106,20 +105,20 @@ export class RevisionActions {
     release: 'Release',
   };
 
-  protected readonly currentStatus = linkedSignal(() => this.status());
+  protected readonly currentStatus = linkedSignal(() => this.revision().status);
   protected readonly statusLabel = computed(() => STATUS_LABELS[this.currentStatus()] ?? this.currentStatus());
   protected readonly timeline = signal<TimelineEntry[]>([]);
 
-  protected readonly actions = computed<TransitionAction[]>(() => {
-    const user = this.session.user();
-    if (!user) return [];
-    const status = this.currentStatus();
-    const isOwner = user.id === this.ownerId();
-    if (isOwner) return status === 'draft' && (user.role === 'engineer' || user.role === 'reviewer') ? ['submit'] : [];
-    if (user.role !== 'reviewer') return [];
-    if (status === 'in_review') return ['approve', 'return'];
-    if (status === 'approved') return ['release', 'return'];
-    return [];
+  /** The steps the server allows, in this order; none after a step until the owner of this view reloads the revision. */
+  protected readonly actions = linkedSignal<TransitionAction[]>(() => {
+    const r = this.revision();
+    const allowed: [TransitionAction, boolean][] = [
+      ['submit', r.canSubmit],
+      ['approve', r.canApprove],
+      ['release', r.canRelease],
+      ['return', r.canReturn],
+    ];
+    return allowed.filter(([, may]) => may).map(([action]) => action);
   });
 
   constructor() {
@@ -144,6 +143,7 @@ export class RevisionActions {
       .subscribe((outcome) => {
         if (!outcome) return;
         this.currentStatus.set(outcome.status);
+        this.actions.set([]);
         this.notifier.info(
           outcome.orderNumber
             ? `Released; build order ${outcome.orderNumber} sent to the winding shop.`

@@ -1,16 +1,16 @@
-import { HttpClient } from '@angular/common/http';
 import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal } from '@angular/core';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
-import type { DesignDetail } from '@shared/schemas/designs';
+import type { DesignDetail, RevisionSummary } from '@shared/schemas/designs';
 import { switchMap, map } from 'rxjs';
 
-import { ReviewApi, type RevisionStatus } from './review-api';
+import { DesignsApi } from '../designs/designs-api';
+import { ReviewApi } from './review-api';
 import { RevisionActions } from './revision-actions';
 
 interface RevisionContext {
   design: DesignDetail;
-  status: RevisionStatus;
+  revision: RevisionSummary;
 }
 
 /**
@@ -30,9 +30,7 @@ interface RevisionContext {
           verifies them, before quantity builds.
         </p>
         <gw-revision-actions
-          [revisionId]="revisionId()"
-          [status]="c.status"
-          [ownerId]="c.design.owner.id"
+          [revision]="c.revision"
           [subject]="c.design.number"
           (changed)="load(revisionId())"
         />
@@ -56,7 +54,7 @@ interface RevisionContext {
 })
 export class RevisionPage {
   private readonly api = inject(ReviewApi);
-  private readonly http = inject(HttpClient);
+  private readonly designs = inject(DesignsApi);
 
   /** Route parameter. */
   readonly id = input.required<string>();
@@ -72,10 +70,11 @@ export class RevisionPage {
     this.api
       .timeline(revisionId)
       .pipe(
-        switchMap((timeline) => {
-          const own = timeline.entries.filter((e) => e.revisionId === revisionId);
-          const status = (own.at(-1)?.toStatus ?? 'draft') as RevisionStatus;
-          return this.http.get<DesignDetail>(`/api/designs/${timeline.designId}`).pipe(map((design) => ({ design, status })));
+        switchMap((timeline) => this.designs.get(timeline.designId)),
+        map((design) => {
+          const revision = design.revisions.find((r) => r.id === revisionId);
+          if (!revision) throw new Error(`revision ${revisionId} is not among its design's revisions`);
+          return { design, revision };
         }),
       )
       .subscribe({ next: (c) => this.context.set(c), error: () => this.failed.set(true) });

@@ -5,6 +5,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
+import { may } from '@shared/api/permissions';
 import { microhenry, milliohm, kilohertz } from '@shared/shop/sheet-text';
 
 import { Session } from '../core/session';
@@ -33,7 +34,7 @@ export class OrderPage {
   protected readonly failed = signal(false);
   protected readonly orderId = computed(() => Number(this.id()));
   protected readonly pdfUrl = computed(() => this.api.pdfUrl(this.orderId()));
-  protected readonly isWinder = computed(() => this.session.role() === 'winder');
+  protected readonly mayBuild = computed(() => may(this.session.role(), 'build'));
   protected readonly passed = computed(() => this.order()?.units.filter((u) => u.passed).length ?? 0);
   protected readonly columns = ['unitNumber', 'inductance', 'resistance', 'hipot', 'result', 'findings', 'recordedAt'];
   protected readonly hipotLabels = HIPOT_LABELS;

@@ -4,6 +4,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatTabsModule } from '@angular/material/tabs';
 import { RouterLink } from '@angular/router';
+import { may } from '@shared/api/permissions';
 
 import { Session } from '../core/session';
 
@@ -50,7 +51,7 @@ export class OrderQueue {
     'Build orders come from released revisions; every sheet is an engineering estimate. Build and test a prototype ' +
     '(inductance against DC current, temperature rise) before quantity builds, and treat ferrite cores as live unless insulated.';
   private readonly role = inject(Session).role;
-  protected readonly seesAccuracy = computed(() => this.role() !== null && this.role() !== 'winder');
+  protected readonly seesAccuracy = computed(() => may(this.role(), 'predictionReport'));
   private readonly orders = signal<OrderSummary[]>([]);
   protected readonly loading = signal(true);
   protected readonly open = computed(() => this.orders().filter((o) => o.status === 'open'));
