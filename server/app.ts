@@ -140,9 +140,9 @@ export function createApp(deps: AppDeps) {
   api.use(passport.session());
   api.use(signedInForWrites);
   api.use(csrf.protection);
-  api.use('/auth', authRouter({ config, passport, users, audit, issueCsrfToken: csrf.issueToken }));
-  api.use('/account', accountRouter(users, new SessionsRepository(deps.db)));
-  api.use('/admin/users', adminUsersRouter(users));
+  api.use(authRouter({ config, passport, users, audit, issueCsrfToken: csrf.issueToken }));
+  api.use(accountRouter(users, new SessionsRepository(deps.db)));
+  api.use(adminUsersRouter(users));
   api.use(auditRouter(audit));
   api.use('/calc', calcRouter(calc));
   api.use(catalogueRouter(services.userCores));

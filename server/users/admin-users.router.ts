@@ -1,27 +1,14 @@
 import { Router } from 'express';
-import { createUserRequestSchema, updateUserRequestSchema } from '@shared/schemas/auth';
-import { actorOf, requireRole } from '../http/access.ts';
-import { parseBody, parseIdParam } from '../http/validate.ts';
+import { createUser, listUsers, updateUser } from '@shared/api/users';
+import { actorOf } from '../http/access.ts';
+import { mount } from '../http/endpoint.ts';
 import type { UsersService } from './users.service.ts';
 
+/** Mounted at /api. */
 export function adminUsersRouter(users: UsersService): Router {
   const router = Router();
-  router.use(requireRole('admin'));
-
-  router.get('/', async (_req, res) => {
-    res.json({ users: await users.list() });
-  });
-
-  router.post('/', async (req, res) => {
-    const input = parseBody(createUserRequestSchema, req);
-    res.status(201).json({ user: await users.create(actorOf(req), input) });
-  });
-
-  router.patch('/:id', async (req, res) => {
-    const id = parseIdParam(req);
-    const changes = parseBody(updateUserRequestSchema, req);
-    res.json({ user: await users.update(actorOf(req), id, changes) });
-  });
-
+  mount(router, listUsers, async () => ({ users: await users.list() }));
+  mount(router, createUser, async ({ body, req }) => ({ user: await users.create(actorOf(req), body) }));
+  mount(router, updateUser, async ({ params, body, req }) => ({ user: await users.update(actorOf(req), params.id, body) }));
   return router;
 }

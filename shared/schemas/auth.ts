@@ -40,6 +40,8 @@ export const userSchema = z.object({
 export type User = z.infer<typeof userSchema>;
 
 export const sessionResponseSchema = z.object({ user: userSchema.nullable() });
+/** The answer of a change to one account (preferences, an admin's create or update). */
+export const userResponseSchema = z.object({ user: userSchema });
 
 export const signInRequestSchema = z
   .object({
