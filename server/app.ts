@@ -25,7 +25,7 @@ import { JobQueue } from './jobs/job-queue.ts';
 import { MaterialsRepository } from './materials/materials.repository.ts';
 import { materialsRouter } from './materials/materials.router.ts';
 import { MailDeliveryService, type SmtpTarget } from './mail/mail-delivery.service.ts';
-import { outboxRouter, settingsRouter } from './mail/outbox.router.ts';
+import { outboxRouter } from './mail/outbox.router.ts';
 import { OutboxService } from './mail/outbox.service.ts';
 import { ReviewRepository } from './review/review.repository.ts';
 import { inboxRouter } from './review/inbox.router.ts';
@@ -34,6 +34,7 @@ import { ReviewService } from './review/review.service.ts';
 import { ShopRepository } from './shop/shop.repository.ts';
 import { shopRouter } from './shop/shop.router.ts';
 import { ShopService } from './shop/shop.service.ts';
+import { settingsRouter } from './settings/settings.router.ts';
 import { materialLibraryRouter } from './materials/material-library.router.ts';
 import { MaterialsService } from './materials/materials.service.ts';
 import { compareRouter } from './compare/compare.router.ts';
@@ -154,8 +155,8 @@ export function createApp(deps: AppDeps) {
   api.use('/revisions', reviewRouter(review));
   api.use(inboxRouter(review));
   api.use('/shop', shopRouter(shop));
-  api.use('/admin/outbox', outboxRouter(outbox));
-  api.use('/admin/settings', settingsRouter(shop));
+  api.use(outboxRouter(outbox));
+  api.use(settingsRouter(shop));
   api.use(apiNotFound);
   app.use('/api', api);
 

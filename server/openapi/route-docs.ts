@@ -14,7 +14,7 @@ import {
   updateRevisionRequestSchema,
 } from '@shared/schemas/designs';
 import { materialEditSchema, materialExportQuerySchema } from '@shared/schemas/materials';
-import { releaseRequestSchema, returnRequestSchema, shopSettingsSchema, transitionRequestSchema, unitMeasurementSchema } from '@shared/schemas/review';
+import { releaseRequestSchema, returnRequestSchema, transitionRequestSchema, unitMeasurementSchema } from '@shared/schemas/review';
 
 export interface RouteDoc {
   summary: string;
@@ -36,11 +36,6 @@ const UPLOADERS = 'engineer, reviewer, admin';
 const CURATORS = 'reviewer, admin';
 
 export const ROUTE_DOCS: Record<string, RouteDoc> = {
-  'GET /api/admin/outbox': { summary: 'Mail sent to the winding shop and its delivery state', who: 'admin', answer: '{ messages, deliveries }' },
-  'GET /api/admin/outbox/:id/attachments/:index': { summary: 'One attachment of a sent mail (the winding sheet PDF)', who: 'admin', answer: 'the file', produces: 'application/octet-stream' },
-  'GET /api/admin/settings': { summary: 'The winding shop’s e-mail address', who: 'admin', answer: '{ shopEmail }' },
-  'PUT /api/admin/settings': { summary: 'Set the winding shop’s e-mail address', who: 'admin', body: shopSettingsSchema, answer: '{ shopEmail }' },
-
   'POST /api/calc/operating-point': {
     summary: 'Buck operating point: duty range, inductance, ripple, peak and RMS current, energy, CCM boundary, ripple harmonics',
     who: SIGNED_IN,

@@ -7,6 +7,8 @@ import * as catalogue from './catalogue';
 import type { Endpoint } from './endpoint';
 import * as health from './health';
 import * as inbox from './inbox';
+import * as outbox from './outbox';
+import * as settings from './settings';
 import * as users from './users';
 
-export const ENDPOINTS: readonly Endpoint[] = [health, audit, catalogue, inbox, auth, account, users].flatMap((feature) => Object.values(feature));
+export const ENDPOINTS: readonly Endpoint[] = [health, audit, catalogue, inbox, auth, account, users, outbox, settings].flatMap((feature) => Object.values(feature));
