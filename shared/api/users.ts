@@ -1,4 +1,4 @@
-import { createUserRequestSchema, updateUserRequestSchema, userListResponseSchema, userResponseSchema } from '@shared/schemas/auth';
+import { adminUserResponseSchema, createUserRequestSchema, updateUserRequestSchema, userListResponseSchema } from '@shared/schemas/auth';
 import { defineEndpoint } from './endpoint';
 import { idParamsSchema } from './params';
 
@@ -15,7 +15,7 @@ export const createUser = defineEndpoint({
   path: '/admin/users',
   access: 'admin',
   body: createUserRequestSchema,
-  answer: userResponseSchema,
+  answer: adminUserResponseSchema,
   status: 201,
   summary: 'Create an account',
 });
@@ -26,7 +26,7 @@ export const updateUser = defineEndpoint({
   access: 'admin',
   params: idParamsSchema,
   body: updateUserRequestSchema,
-  answer: userResponseSchema,
+  answer: adminUserResponseSchema,
   summary:
     'Change the display name or the role, or disable or enable the account (disabling or a new role ends the user’s sessions); at least one of displayName, role, disabled',
 });

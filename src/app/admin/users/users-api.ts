@@ -1,6 +1,6 @@
 import { Injectable, inject } from '@angular/core';
 import { createUser, listUsers, updateUser } from '@shared/api/users';
-import type { CreateUserRequest, UpdateUserRequest, User } from '@shared/schemas/auth';
+import type { AdminUser, CreateUserRequest, UpdateUserRequest } from '@shared/schemas/auth';
 import { map, type Observable } from 'rxjs';
 
 import { Api, endpointResource } from '../../core/api';
@@ -16,11 +16,11 @@ export class UsersApi {
   }
 
   /** Failures come back to the form, which shows them under the fields. */
-  create(request: CreateUserRequest): Observable<User> {
+  create(request: CreateUserRequest): Observable<AdminUser> {
     return this.api.call(createUser, { body: request }, errorsShownByCaller()).pipe(map(({ user }) => user));
   }
 
-  update(id: number, change: UpdateUserRequest): Observable<User> {
+  update(id: number, change: UpdateUserRequest): Observable<AdminUser> {
     return this.api.call(updateUser, { params: { id: String(id) }, body: change }).pipe(map(({ user }) => user));
   }
 }
