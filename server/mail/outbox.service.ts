@@ -1,5 +1,6 @@
 import { desc, eq } from 'drizzle-orm';
 import { simpleParser } from 'mailparser';
+import type { OutboxResponse } from '@shared/schemas/outbox';
 import type { Db } from '../db/client.ts';
 import { capturedMail, mailDeliveries } from '../db/schema.ts';
 import { notFound } from '../http/errors.ts';
@@ -8,7 +9,7 @@ import { notFound } from '../http/errors.ts';
 export class OutboxService {
   constructor(private readonly db: Db) {}
 
-  async list() {
+  async list(): Promise<OutboxResponse> {
     const rows = await this.db.select().from(capturedMail).orderBy(desc(capturedMail.receivedAt)).limit(200);
     const messages = await Promise.all(
       rows.map(async (row) => {

@@ -1,12 +1,11 @@
 // One entry per API route not yet declared in shared/api (see DEVELOPERS.md, "Declaring an API route"): what it does, who may call it, and the zod schema of its JSON body or query
 // (the same schema the route validates with). `tests/api/openapi.test.ts` fails when a route is missing here.
 import type * as z from 'zod';
-import { changePasswordRequestSchema, createUserRequestSchema, preferencesRequestSchema, signInRequestSchema, updateUserRequestSchema } from '@shared/schemas/auth';
 import { coreLossRequestSchema, evaluateRequestSchema, operatingPointRequestSchema, searchRequestSchema } from '@shared/schemas/calc';
 import { compareCurvesRequestSchema, compareDesignRequestSchema, compareSavedDesignRequestSchema } from '@shared/schemas/compare';
 import { userCoreRequestSchema } from '@shared/schemas/cores';
 import { materialEditSchema, materialExportQuerySchema } from '@shared/schemas/materials';
-import { shopSettingsSchema, unitMeasurementSchema } from '@shared/schemas/review';
+import { unitMeasurementSchema } from '@shared/schemas/review';
 
 export interface RouteDoc {
   summary: string;
@@ -27,20 +26,6 @@ const UPLOADERS = 'engineer, reviewer, admin';
 const CURATORS = 'reviewer, admin';
 
 export const ROUTE_DOCS: Record<string, RouteDoc> = {
-  'GET /api/auth/session': { summary: 'The signed-in user (or null); sets the XSRF-TOKEN cookie', who: 'anyone', answer: '{ user }' },
-  'POST /api/auth/sign-in': { summary: 'Sign in with username and password; a new session id; rate-limited', who: 'anyone', body: signInRequestSchema, answer: '{ user }' },
-  'POST /api/auth/sign-out': { summary: 'End the session', who: 'anyone', answer: '204' },
-  'PATCH /api/account/preferences': { summary: 'Light or dark theme', who: SIGNED_IN, body: preferencesRequestSchema, answer: '{ user }' },
-  'POST /api/account/password': { summary: 'Change one’s own password (the current one is required)', who: SIGNED_IN, body: changePasswordRequestSchema, answer: '204' },
-
-  'GET /api/admin/users': { summary: 'Every account', who: 'admin', answer: '{ users }' },
-  'POST /api/admin/users': { summary: 'Create an account', who: 'admin', body: createUserRequestSchema, answer: '{ user } (201)' },
-  'PATCH /api/admin/users/:id': { summary: 'Change the display name or the role, or disable or enable the account (disabling or a new role ends the user’s sessions); at least one of displayName, role, disabled', who: 'admin', body: updateUserRequestSchema, answer: '{ user }' },
-  'GET /api/admin/outbox': { summary: 'Mail sent to the winding shop and its delivery state', who: 'admin', answer: '{ messages, deliveries }' },
-  'GET /api/admin/outbox/:id/attachments/:index': { summary: 'One attachment of a sent mail (the winding sheet PDF)', who: 'admin', answer: 'the file', produces: 'application/octet-stream' },
-  'GET /api/admin/settings': { summary: 'The winding shop’s e-mail address', who: 'admin', answer: '{ shopEmail }' },
-  'PUT /api/admin/settings': { summary: 'Set the winding shop’s e-mail address', who: 'admin', body: shopSettingsSchema, answer: '{ shopEmail }' },
-
   'POST /api/calc/operating-point': {
     summary: 'Buck operating point: duty range, inductance, ripple, peak and RMS current, energy, CCM boundary, ripple harmonics',
     who: SIGNED_IN,

@@ -1,27 +1,15 @@
 import { Router } from 'express';
-import { createUserRequestSchema, updateUserRequestSchema } from '@shared/schemas/auth';
-import { actorOf, requireRole } from '../http/access.ts';
-import { parseBody, parseIdParam } from '../http/validate.ts';
+import { createUser, listUsers, updateUser } from '@shared/api/users';
+import { actorOf } from '../http/access.ts';
+import { mount } from '../http/endpoint.ts';
+import { toAdminUserView } from './user-view.ts';
 import type { UsersService } from './users.service.ts';
 
+/** Mounted at /api. */
 export function adminUsersRouter(users: UsersService): Router {
   const router = Router();
-  router.use(requireRole('admin'));
-
-  router.get('/', async (_req, res) => {
-    res.json({ users: await users.list() });
-  });
-
-  router.post('/', async (req, res) => {
-    const input = parseBody(createUserRequestSchema, req);
-    res.status(201).json({ user: await users.create(actorOf(req), input) });
-  });
-
-  router.patch('/:id', async (req, res) => {
-    const id = parseIdParam(req);
-    const changes = parseBody(updateUserRequestSchema, req);
-    res.json({ user: await users.update(actorOf(req), id, changes) });
-  });
-
+  mount(router, listUsers, async ({ req }) => ({ users: (await users.list()).map((user) => toAdminUserView(user, actorOf(req))) }));
+  mount(router, createUser, async ({ body, req }) => ({ user: toAdminUserView(await users.create(actorOf(req), body), actorOf(req)) }));
+  mount(router, updateUser, async ({ params, body, req }) => ({ user: toAdminUserView(await users.update(actorOf(req), params.id, body), actorOf(req)) }));
   return router;
 }

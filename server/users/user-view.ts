@@ -1,4 +1,5 @@
-import type { User } from '@shared/schemas/auth';
+import type { AdminUser, User } from '@shared/schemas/auth';
+import type { Actor } from '../http/access.ts';
 import type { UserRow } from './users.repository.ts';
 
 /** The public view of a user: never the password hash. */
@@ -14,4 +15,10 @@ export function toUserView(row: UserRow): User {
     createdAt: row.createdAt.toISOString(),
     lastSignInAt: row.lastSignInAt?.toISOString() ?? null,
   };
+}
+
+/** A user as the admin list shows it to `actor`: the own account can be neither disabled nor demoted (UsersService.update). */
+export function toAdminUserView(user: User, actor: Actor): AdminUser {
+  const other = user.id !== actor.id;
+  return { ...user, canChangeRole: other, canDisable: other };
 }

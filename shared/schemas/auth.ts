@@ -40,6 +40,8 @@ export const userSchema = z.object({
 export type User = z.infer<typeof userSchema>;
 
 export const sessionResponseSchema = z.object({ user: userSchema.nullable() });
+/** The answer of a change to one account (preferences, an admin's create or update). */
+export const userResponseSchema = z.object({ user: userSchema });
 
 export const signInRequestSchema = z
   .object({
@@ -81,7 +83,14 @@ export const updateUserRequestSchema = z
   .refine((v) => Object.keys(v).length > 0, { error: 'Nothing to change' });
 export type UpdateUserRequest = z.infer<typeof updateUserRequestSchema>;
 
-export const userListResponseSchema = z.object({ users: z.array(userSchema) });
+/**
+ * An account as the admin user list shows it, with what the signed-in admin may do to it (the server's rule:
+ * nobody disables their own account or removes their own admin role).
+ */
+export const adminUserSchema = userSchema.extend({ canChangeRole: z.boolean(), canDisable: z.boolean() });
+export type AdminUser = z.infer<typeof adminUserSchema>;
+export const userListResponseSchema = z.object({ users: z.array(adminUserSchema) });
+export const adminUserResponseSchema = z.object({ user: adminUserSchema });
 
 export const auditEntrySchema = z.object({
   id: z.number().int(),

@@ -28,11 +28,6 @@ export const releaseRequestSchema = z
   .strict();
 export type ReleaseRequest = z.infer<typeof releaseRequestSchema>;
 
-export const shopSettingsSchema = z
-  .object({ shopEmail: z.email({ error: 'Not a valid e-mail address' }).max(200) })
-  .strict();
-export type ShopSettings = z.infer<typeof shopSettingsSchema>;
-
 const finite = (field: string, min: number, max: number, unit: string) =>
   z
     .number({ error: `${field} must be a number` })

@@ -89,6 +89,19 @@ describe('admin routes as admin', () => {
     expect(res.body.error.fields).toHaveProperty('disabled');
   });
 
+  it('says on each listed account whether this admin may disable it or change its role: not their own', async () => {
+    const admin = await signedInAs(t.app, 'admin');
+    const me = (await admin.get('/api/auth/session')).body.user;
+    const { users } = (await admin.get('/api/admin/users')).body as { users: { id: number; canDisable: boolean; canChangeRole: boolean }[] };
+    const own = users.find((user) => user.id === me.id);
+    expect(own).toMatchObject({ canDisable: false, canChangeRole: false });
+    const others = users.filter((user) => user.id !== me.id);
+    expect(others.length).toBeGreaterThan(0);
+    for (const other of others) expect(other).toMatchObject({ canDisable: true, canChangeRole: true });
+    const renamed = await admin.patch(`/api/admin/users/${me.id}`, { displayName: 'Site Admin' });
+    expect(renamed.body.user).toMatchObject({ canDisable: false, canChangeRole: false });
+  });
+
   it('pages the audit log', async () => {
     const admin = await signedInAs(t.app, 'admin');
     const res = await admin.get('/api/admin/audit?offset=0&limit=5');

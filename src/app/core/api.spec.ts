@@ -2,6 +2,7 @@ import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { ApplicationRef, Injector, provideZonelessChangeDetection, runInInjectionContext, signal } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
+import { changePassword } from '@shared/api/account';
 import { auditPage } from '@shared/api/audit';
 import { inbox } from '@shared/api/inbox';
 import { beforeEach, describe, expect, it, vi } from 'vitest';
@@ -30,6 +31,20 @@ describe('calls to declared endpoints', () => {
     TestBed.inject(Api).call(inbox, {}).subscribe({ error: failed });
     backend.expectOne('/api/inbox').flush({ items: [{ kind: 'party', label: 'x', designId: 1, since: 'now' }] });
     expect(failed).toHaveBeenCalled();
+  });
+
+  it('completes a call whose declared answer is 204 No Content, sending the body', () => {
+    const done = vi.fn();
+    const failed = vi.fn();
+    TestBed.inject(Api)
+      .call(changePassword, { body: { currentPassword: 'old-secret', newPassword: 'new-secret-1' } })
+      .subscribe({ next: done, error: failed });
+    const request = backend.expectOne('/api/account/password');
+    expect(request.request.method).toBe('POST');
+    expect(request.request.body).toEqual({ currentPassword: 'old-secret', newPassword: 'new-secret-1' });
+    request.flush(null, { status: 204, statusText: 'No Content' });
+    expect(failed).not.toHaveBeenCalled();
+    expect(done).toHaveBeenCalledWith(undefined);
   });
 
   it('gives an httpResource the query and the answer schema as its parse', async () => {

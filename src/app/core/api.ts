@@ -27,7 +27,10 @@ export class Api {
 
   call<E extends Endpoint>(endpoint: E, input: CallInput<E>, options: { context?: HttpContext } = {}): Observable<AnswerOf<E>> {
     const { url, method, params, body } = request(endpoint, input);
-    return this.http.request(method, url, { params, body, context: options.context }).pipe(map((answer) => endpoint.answer.parse(answer) as AnswerOf<E>));
+    // A 204 has no body (HttpClient gives null); its declared answer is z.void().
+    return this.http
+      .request(method, url, { params, body, context: options.context })
+      .pipe(map((answer) => endpoint.answer.parse(endpoint.status === 204 ? undefined : answer) as AnswerOf<E>));
   }
 }
 

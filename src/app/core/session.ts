@@ -1,22 +1,15 @@
-import { HttpClient } from '@angular/common/http';
 import { Injectable, computed, inject, signal } from '@angular/core';
-import {
-  sessionResponseSchema,
-  userSchema,
-  type SignInRequest,
-  type User,
-} from '@shared/schemas/auth';
+import { session, signIn, signOut } from '@shared/api/auth';
+import type { SignInRequest, User } from '@shared/schemas/auth';
 import { firstValueFrom, from, map, switchMap, tap, type Observable } from 'rxjs';
-import * as z from 'zod';
 
+import { Api } from './api';
 import { errorsShownByCaller } from './error-display';
-
-export const userResponseSchema = z.object({ user: userSchema });
 
 /** Who is signed in, as the server last told us. */
 @Injectable({ providedIn: 'root' })
 export class Session {
-  private readonly http = inject(HttpClient);
+  private readonly api = inject(Api);
   private readonly currentUser = signal<User | null>(null);
 
   readonly user = this.currentUser.asReadonly();
@@ -26,8 +19,8 @@ export class Session {
   /** Asks the server for the current session; this also gives the browser its XSRF cookie. */
   async restore(): Promise<void> {
     try {
-      const body = await firstValueFrom(this.http.get('/api/auth/session'));
-      this.currentUser.set(sessionResponseSchema.parse(body).user);
+      const { user } = await firstValueFrom(this.api.call(session, {}));
+      this.currentUser.set(user);
     } catch {
       // The interceptor has already told the person; the app still starts, signed out.
       this.currentUser.set(null);
@@ -35,21 +28,18 @@ export class Session {
   }
 
   signIn(request: SignInRequest): Observable<User> {
-    return this.http
-      .post('/api/auth/sign-in', request, errorsShownByCaller())
-      .pipe(
-        map((body) => {
-          const { user } = sessionResponseSchema.parse(body);
-          if (!user) throw new Error('Sign-in did not complete. Please try again.');
-          return user;
-        }),
-        tap((user) => this.currentUser.set(user)),
-      );
+    return this.api.call(signIn, { body: request }, errorsShownByCaller()).pipe(
+      map(({ user }) => {
+        if (!user) throw new Error('Sign-in did not complete. Please try again.');
+        return user;
+      }),
+      tap((user) => this.currentUser.set(user)),
+    );
   }
 
   /** Ends the session, then fetches a fresh one so the next sign-in has a valid XSRF token. */
   signOut(): Observable<void> {
-    return this.http.post<void>('/api/auth/sign-out', null).pipe(
+    return this.api.call(signOut, {}).pipe(
       tap(() => this.currentUser.set(null)),
       switchMap(() => from(this.restore())),
     );

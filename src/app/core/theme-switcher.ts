@@ -1,9 +1,9 @@
-import { HttpClient } from '@angular/common/http';
 import { DOCUMENT, Injectable, computed, effect, inject, signal } from '@angular/core';
-import { preferencesRequestSchema, themeSchema, type Theme } from '@shared/schemas/auth';
-import { map } from 'rxjs';
+import { setPreferences } from '@shared/api/account';
+import { themeSchema, type Theme } from '@shared/schemas/auth';
 
-import { Session, userResponseSchema } from './session';
+import { Api } from './api';
+import { Session } from './session';
 
 const STORAGE_KEY = 'gapwright.theme';
 
@@ -14,7 +14,7 @@ const STORAGE_KEY = 'gapwright.theme';
 @Injectable({ providedIn: 'root' })
 export class ThemeSwitcher {
   private readonly document = inject(DOCUMENT);
-  private readonly http = inject(HttpClient);
+  private readonly api = inject(Api);
   private readonly session = inject(Session);
 
   private readonly chosen = signal<Theme | null>(this.readStoredChoice());
@@ -37,10 +37,7 @@ export class ThemeSwitcher {
     const next: Theme = this.theme() === 'dark' ? 'light' : 'dark';
     this.chosen.set(next);
     if (!this.session.signedIn()) return;
-    this.http
-      .patch('/api/account/preferences', preferencesRequestSchema.parse({ theme: next }))
-      .pipe(map((body) => userResponseSchema.parse(body).user))
-      .subscribe((user) => this.session.replaceUser(user));
+    this.api.call(setPreferences, { body: { theme: next } }).subscribe(({ user }) => this.session.replaceUser(user));
   }
 
   private apply(choice: Theme | null): void {

@@ -1,38 +1,20 @@
-import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
+import { outbox, outboxAttachment } from '@shared/api/outbox';
+import { endpointUrl } from '@shared/api/endpoint';
+import type { OutboxResponse } from '@shared/schemas/outbox';
 import type { Observable } from 'rxjs';
 
-export interface CapturedMessage {
-  id: number;
-  receivedAt: string;
-  from: string | null;
-  to: string;
-  subject: string;
-  text: string;
-  attachments: { index: number; fileName: string; contentType: string; size: number }[];
-}
-
-export interface MailDelivery {
-  id: number;
-  orderId: number | null;
-  recipient: string;
-  subject: string;
-  status: 'pending' | 'sent' | 'failed';
-  attempts: number;
-  lastError: string | null;
-  createdAt: string;
-  sentAt: string | null;
-}
+import { Api } from '../../core/api';
 
 @Injectable({ providedIn: 'root' })
 export class OutboxApi {
-  private readonly http = inject(HttpClient);
+  private readonly api = inject(Api);
 
-  list(): Observable<{ messages: CapturedMessage[]; deliveries: MailDelivery[] }> {
-    return this.http.get<{ messages: CapturedMessage[]; deliveries: MailDelivery[] }>('/api/admin/outbox');
+  list(): Observable<OutboxResponse> {
+    return this.api.call(outbox, {});
   }
 
   attachmentUrl(messageId: number, index: number): string {
-    return `/api/admin/outbox/${messageId}/attachments/${index}`;
+    return endpointUrl(outboxAttachment, { id: messageId, index });
   }
 }

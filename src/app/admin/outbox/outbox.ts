@@ -5,8 +5,9 @@ import { MatExpansionModule } from '@angular/material/expansion';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatTableModule } from '@angular/material/table';
+import type { CapturedMessage, MailDelivery } from '@shared/schemas/outbox';
 
-import { OutboxApi, type CapturedMessage, type MailDelivery } from './outbox-api';
+import { OutboxApi } from './outbox-api';
 
 /** Mail the app tried to send (delivery states, retries) and what the local fake SMTP server caught. */
 @Component({

@@ -4,7 +4,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
-import { PASSWORD_MAX, PASSWORD_MIN, ROLES, type Role, type User } from '@shared/schemas/auth';
+import { PASSWORD_MAX, PASSWORD_MIN, ROLES, type AdminUser, type Role } from '@shared/schemas/auth';
 
 import { showServerFieldErrors } from '../../core/server-field-errors';
 import { ROLE_LABELS } from '../../core/roles';
@@ -23,7 +23,7 @@ export class UserCreateForm {
   private readonly usersApi = inject(UsersApi);
   private readonly formDirective = viewChild.required(FormGroupDirective);
 
-  readonly created = output<User>();
+  readonly created = output<AdminUser>();
 
   protected readonly roles = ROLES;
   protected readonly roleLabels = ROLE_LABELS;

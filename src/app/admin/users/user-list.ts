@@ -1,5 +1,5 @@
 import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, inject, signal, viewChild } from '@angular/core';
+import { ChangeDetectionStrategy, Component, inject, signal, viewChild } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatExpansionModule } from '@angular/material/expansion';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -9,11 +9,10 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSort, MatSortModule } from '@angular/material/sort';
 import { MatTableDataSource, MatTableModule } from '@angular/material/table';
-import { ROLES, type Role, type UpdateUserRequest, type User } from '@shared/schemas/auth';
+import { ROLES, type AdminUser, type Role, type UpdateUserRequest } from '@shared/schemas/auth';
 
 import { Notifier } from '../../core/notifier';
 import { ROLE_LABELS } from '../../core/roles';
-import { Session } from '../../core/session';
 import { UserCreateForm } from './user-create-form';
 import { UsersApi } from './users-api';
 import { bindTableSource } from '../../core/table-binding';
@@ -40,16 +39,14 @@ import { bindTableSource } from '../../core/table-binding';
 export class UserList {
   private readonly usersApi = inject(UsersApi);
   private readonly notifier = inject(Notifier);
-  private readonly session = inject(Session);
   private readonly sort = viewChild.required(MatSort);
   private readonly paginator = viewChild.required(MatPaginator);
 
   protected readonly users = this.usersApi.listResource();
-  protected readonly myId = computed(() => this.session.user()?.id ?? null);
   protected readonly roles = ROLES;
   protected readonly roleLabels = ROLE_LABELS;
   protected readonly columns = ['username', 'displayName', 'email', 'role', 'status', 'lastSignInAt', 'actions'];
-  protected readonly dataSource = new MatTableDataSource<User>([]);
+  protected readonly dataSource = new MatTableDataSource<AdminUser>([]);
   protected readonly filterText = signal('');
 
   constructor() {
@@ -67,20 +64,20 @@ export class UserList {
     this.dataSource.paginator?.firstPage();
   }
 
-  protected addCreated(user: User): void {
+  protected addCreated(user: AdminUser): void {
     this.users.update((list) => [...list, user]);
     this.notifier.info(`User ${user.username} created.`);
   }
 
-  protected changeRole(user: User, role: Role): void {
+  protected changeRole(user: AdminUser, role: Role): void {
     if (role !== user.role) this.save(user, { role });
   }
 
-  protected toggleDisabled(user: User): void {
+  protected toggleDisabled(user: AdminUser): void {
     this.save(user, { disabled: !user.disabled });
   }
 
-  private save(user: User, change: UpdateUserRequest): void {
+  private save(user: AdminUser, change: UpdateUserRequest): void {
     this.usersApi.update(user.id, change).subscribe({
       next: (updated) => {
         this.users.update((list) => list.map((each) => (each.id === updated.id ? updated : each)));

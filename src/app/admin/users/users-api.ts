@@ -1,40 +1,26 @@
-import { HttpClient, httpResource } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
-import {
-  createUserRequestSchema,
-  updateUserRequestSchema,
-  userListResponseSchema,
-  type CreateUserRequest,
-  type UpdateUserRequest,
-  type User,
-} from '@shared/schemas/auth';
+import { createUser, listUsers, updateUser } from '@shared/api/users';
+import type { AdminUser, CreateUserRequest, UpdateUserRequest } from '@shared/schemas/auth';
 import { map, type Observable } from 'rxjs';
 
+import { Api, endpointResource } from '../../core/api';
 import { errorsShownByCaller } from '../../core/error-display';
-import { userResponseSchema } from '../../core/session';
 
 @Injectable({ providedIn: 'root' })
 export class UsersApi {
-  private readonly http = inject(HttpClient);
+  private readonly api = inject(Api);
 
   /** Call from an injection context (a field initialiser); the list reloads with `reload()`. */
   listResource() {
-    return httpResource(() => '/api/admin/users', {
-      parse: (body) => userListResponseSchema.parse(body).users,
-      defaultValue: [] as User[],
-    });
+    return endpointResource(listUsers, () => ({}), { select: (answer) => answer.users, defaultValue: [] });
   }
 
   /** Failures come back to the form, which shows them under the fields. */
-  create(request: CreateUserRequest): Observable<User> {
-    return this.http
-      .post('/api/admin/users', createUserRequestSchema.parse(request), errorsShownByCaller())
-      .pipe(map((body) => userResponseSchema.parse(body).user));
+  create(request: CreateUserRequest): Observable<AdminUser> {
+    return this.api.call(createUser, { body: request }, errorsShownByCaller()).pipe(map(({ user }) => user));
   }
 
-  update(id: number, change: UpdateUserRequest): Observable<User> {
-    return this.http
-      .patch(`/api/admin/users/${id}`, updateUserRequestSchema.parse(change))
-      .pipe(map((body) => userResponseSchema.parse(body).user));
+  update(id: number, change: UpdateUserRequest): Observable<AdminUser> {
+    return this.api.call(updateUser, { params: { id: String(id) }, body: change }).pipe(map(({ user }) => user));
   }
 }
