@@ -13,18 +13,19 @@ import {
 import type { ExportsService } from '../exports/exports.service.ts';
 import { actorOf, requireRole, requireSignIn } from '../http/access.ts';
 import { notFound } from '../http/errors.ts';
+import type { GenerationOf } from '../materials/materials.router.ts';
 import { parseBody, parseIdParam, parseQuery } from '../http/validate.ts';
 import { DESIGNER_ROLES, type DesignsService } from './designs.service.ts';
 
 /** Everyone signed in reads designs; engineers create them and change their own drafts. */
-export function designsRouter(designs: DesignsService, exports: ExportsService): Router {
+export function designsRouter(designs: DesignsService, exports: ExportsService, generationOf: GenerationOf = () => undefined): Router {
   const router = Router();
   router.use(requireSignIn);
   // Refused before the body is read: a role that may not design gets 403, not a validation error.
   const designers = requireRole(...DESIGNER_ROLES);
 
   router.get('/', async (req, res) => {
-    res.json(await designs.list(actorOf(req), parseQuery(designListQuerySchema, req)));
+    res.json(await designs.list(actorOf(req), parseQuery(designListQuerySchema, req), generationOf(req, 'designs')));
   });
 
   router.post('/', designers, async (req, res) => {
