@@ -9,6 +9,10 @@ beforeAll(async () => {
 });
 afterAll(() => t.close());
 
+/** The signed session cookie's value set by an answer. */
+const sessionCookieOf = (res: request.Response) =>
+  /^gapwright\.sid=([^;]*)/.exec(([] as string[]).concat(res.headers['set-cookie'] ?? []).find((c) => c.startsWith('gapwright.sid=')) ?? '')![1];
+
 const sessionsOf = async (userId: number) =>
   (await t.pool.query(`select count(*)::int as n from session where sess->'passport'->>'user' = $1`, [String(userId)])).rows[0].n as number;
 
@@ -124,7 +128,7 @@ describe('the signed-in path reads the user and the data fresh on every request'
     const client = new ApiClient(t.app);
     const { username, password } = demoUser('admin');
     const signIn = await client.signIn(username, password);
-    const sid = /^gapwright\.sid=([^;]*)/.exec(([] as string[]).concat(signIn.headers['set-cookie'] ?? []).find((c) => c.startsWith('gapwright.sid=')) ?? '')![1];
+    const sid = sessionCookieOf(signIn);
     const withCookie = (cookie: string) => request(t.app).get('/api/admin/users').set('Cookie', `gapwright.sid=${cookie}`);
     // The first read renews the idle clock (a session write); the reads after it, within the renewal interval, write nothing.
     expect((await withCookie(sid)).status).toBe(200);
@@ -143,7 +147,7 @@ describe('the signed-in path reads the user and the data fresh on every request'
     await t.pool.query(`update users set disabled = false where username = $1`, [username]);
     const again = new ApiClient(t.app);
     const second = await again.signIn(username, password);
-    const sid2 = /^gapwright\.sid=([^;]*)/.exec(([] as string[]).concat(second.headers['set-cookie'] ?? []).find((c) => c.startsWith('gapwright.sid=')) ?? '')![1];
+    const sid2 = sessionCookieOf(second);
     expect((await withCookie(sid2)).status).toBe(200);
     expect((await withCookie(sid2)).status).toBe(200);
     expect((await again.post('/api/auth/sign-out')).status).toBe(204);
