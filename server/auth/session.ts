@@ -63,13 +63,16 @@ export function absoluteLifetime(config: Config): RequestHandler {
   };
 }
 
+/** How often an active session's idle clock is reset (ms): a tenth of the idle time, at least once a minute. */
+export const renewalInterval = (config: Config) => Math.min(60_000, config.sessionIdleMs / 10);
+
 /**
  * Keeps an active session alive: at most once per tenth of the idle time (and at least once a minute) the session
  * is marked, so it is saved with a fresh expiry and the cookie is sent again. The idle timeout is thereby enforced
  * to within a tenth of itself, without a store write on every request.
  */
 export function idleRenewal(config: Config): RequestHandler {
-  const every = Math.min(60_000, config.sessionIdleMs / 10);
+  const every = renewalInterval(config);
   return (req, _res, next) => {
     const current = req.session;
     // Only sessions that hold something (a sign-in or a CSRF token); an anonymous request must not create one.

@@ -2,12 +2,13 @@ import { Router } from 'express';
 import { copyDesign, createDesign, diffRevisions, getDesign, getRevision, importDesign, listDesigns, newRevision, updateRevision } from '@shared/api/designs';
 import { actorOf } from '../http/access.ts';
 import { mount } from '../http/endpoint.ts';
+import type { GenerationOf } from '../http/generation.ts';
 import type { DesignsService } from './designs.service.ts';
 
 /** Mounted at /api. Everyone signed in reads designs; designers create them and change their own drafts. */
-export function designsRouter(designs: DesignsService): Router {
+export function designsRouter(designs: DesignsService, generationOf: GenerationOf = () => undefined): Router {
   const router = Router();
-  mount(router, listDesigns, ({ query, req }) => designs.list(actorOf(req), query));
+  mount(router, listDesigns, ({ query, req }) => designs.list(actorOf(req), query, generationOf(req, 'designs')));
   mount(router, createDesign, ({ body, req }) => designs.create(actorOf(req), body));
   mount(router, importDesign, ({ body, req }) => designs.importFile(actorOf(req), body));
   mount(router, getDesign, ({ params, req }) => designs.get(actorOf(req), params.id));

@@ -23,6 +23,7 @@ import type { AuditService } from '../audit/audit.service.ts';
 import type { CalcService } from '../calc/calc.service.ts';
 import type { Actor } from '../http/access.ts';
 import { conflict, forbidden, notFound } from '../http/errors.ts';
+import { GenerationMemo } from '../http/generation-cache.ts';
 import type { MaterialsRepository } from '../materials/materials.repository.ts';
 import { diffObjects } from './flatten.ts';
 import { ownsAndDesigns, revisionAccess, type Caller } from './revision-access.ts';
@@ -51,7 +52,19 @@ export class DesignsService {
     private readonly audit: AuditService,
   ) {}
 
-  async list(actor: Actor, query: DesignListQuery): Promise<DesignListResponse> {
+  private readonly listed = new GenerationMemo<DesignListResponse>();
+
+  /**
+   * A page of the list. With `generation` (the designs' change counter read with the request's session) a page
+   * already built under the same counter is given again: the list is read on most visits and changes rarely.
+   */
+  list(actor: Actor, query: DesignListQuery, generation?: string): Promise<DesignListResponse> {
+    // Only "mine" depends on who asks; every signed-in user sees the same "all" pages.
+    const key = JSON.stringify([query.scope === 'mine' ? actor.id : 0, query.scope, query.q, query.status, query.sort, query.dir, query.page, query.pageSize]);
+    return this.listed.get(key, generation, () => this.buildList(actor, query));
+  }
+
+  private async buildList(actor: Actor, query: DesignListQuery): Promise<DesignListResponse> {
     const { rows, total } = await this.repo.list(query, actor.id);
     return {
       total,

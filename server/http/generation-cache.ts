@@ -26,3 +26,25 @@ export class GenerationCache {
     return entry;
   }
 }
+
+/**
+ * Values kept per key while the change counter they were built under stands still, like GenerationCache but for
+ * answers that vary with their query: at most `limit` keys, the oldest dropped first. Without a counter nothing is
+ * cached.
+ */
+export class GenerationMemo<T> {
+  private readonly entries = new Map<string, { generation: string; value: T }>();
+
+  constructor(private readonly limit = 200) {}
+
+  async get(key: string, generation: string | undefined, build: () => Promise<T>): Promise<T> {
+    if (generation === undefined) return build();
+    const hit = this.entries.get(key);
+    if (hit && hit.generation === generation) return hit.value;
+    const value = await build();
+    this.entries.delete(key);
+    this.entries.set(key, { generation, value });
+    if (this.entries.size > this.limit) this.entries.delete(this.entries.keys().next().value!);
+    return value;
+  }
+}

@@ -1,11 +1,11 @@
 import { Router, type Request } from 'express';
+import type { GenerationOf } from '../http/generation.ts';
 import { GenerationCache } from '../http/generation-cache.ts';
 import { requireSignIn } from '../http/access.ts';
 import { toMaterialSummary } from './material-view.ts';
 import type { MaterialsRepository } from './materials.repository.ts';
 
 /** The change counter of a kind of data as read with the request's session (undefined if not read). */
-export type GenerationOf = (req: Request, name: string) => string | undefined;
 
 export function materialsRouter(materials: MaterialsRepository, generationOf: GenerationOf = () => undefined): Router {
   const router = Router();

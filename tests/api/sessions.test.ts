@@ -1,3 +1,4 @@
+import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ApiClient, demoUser, signedInAs } from './support/api-client.ts';
 import { createTestApp, tableCount, type TestApp } from './support/test-app.ts';
@@ -7,6 +8,10 @@ beforeAll(async () => {
   t = await createTestApp();
 });
 afterAll(() => t.close());
+
+/** The signed session cookie's value set by an answer. */
+const sessionCookieOf = (res: request.Response) =>
+  /^gapwright\.sid=([^;]*)/.exec(([] as string[]).concat(res.headers['set-cookie'] ?? []).find((c) => c.startsWith('gapwright.sid=')) ?? '')![1];
 
 const sessionsOf = async (userId: number) =>
   (await t.pool.query(`select count(*)::int as n from session where sess->'passport'->>'user' = $1`, [String(userId)])).rows[0].n as number;
@@ -117,5 +122,52 @@ describe('the signed-in path reads the user and the data fresh on every request'
     expect(after.headers['etag']).not.toBe(first.headers['etag']);
     const revalidated = await client.agent.get('/api/materials').set('If-None-Match', after.headers['etag'] as string);
     expect(revalidated.status).toBe(304);
+  });
+
+  it('a signed-in read between idle renewals (no session write) still refuses a disabled, demoted or signed-out user and a forged cookie', async () => {
+    const client = new ApiClient(t.app);
+    const { username, password } = demoUser('admin');
+    const signIn = await client.signIn(username, password);
+    const sid = sessionCookieOf(signIn);
+    const withCookie = (cookie: string) => request(t.app).get('/api/admin/users').set('Cookie', `gapwright.sid=${cookie}`);
+    // The first read renews the idle clock (a session write); the reads after it, within the renewal interval, write nothing.
+    expect((await withCookie(sid)).status).toBe(200);
+    const answer = await withCookie(sid);
+    expect(answer.status).toBe(200);
+    expect(answer.headers['cache-control']).toBe('no-store');
+    expect(answer.headers['set-cookie']).toBeUndefined();
+    // A cookie whose signature is not ours, or an id without a signature, is no session.
+    const [signedId, signature] = [sid.slice(0, sid.lastIndexOf('.')), sid.slice(sid.lastIndexOf('.') + 1)];
+    expect((await withCookie(`${signedId}.${signature.slice(0, -1)}${signature.endsWith('A') ? 'B' : 'A'}`)).status).toBe(401);
+    expect((await withCookie(signedId)).status).toBe(401);
+    await t.pool.query(`update users set role = 'engineer' where username = $1`, [username]);
+    expect((await withCookie(sid)).status).toBe(403);
+    await t.pool.query(`update users set role = 'admin', disabled = true where username = $1`, [username]);
+    expect((await withCookie(sid)).status).toBe(401);
+    await t.pool.query(`update users set disabled = false where username = $1`, [username]);
+    const again = new ApiClient(t.app);
+    const second = await again.signIn(username, password);
+    const sid2 = sessionCookieOf(second);
+    expect((await withCookie(sid2)).status).toBe(200);
+    expect((await withCookie(sid2)).status).toBe(200);
+    expect((await again.post('/api/auth/sign-out')).status).toBe(204);
+    expect((await withCookie(sid2)).status).toBe(401);
+  });
+
+  it('the designs list answered from cache follows changes to a design, a revision and an owner’s name written straight to the tables', async () => {
+    const client = await signedInAs(t.app, 'reviewer');
+    const first = await client.get('/api/designs?sort=number&dir=asc');
+    expect(first.status).toBe(200);
+    expect((await client.get('/api/designs?sort=number&dir=asc')).body).toEqual(first.body);
+    const item = first.body.items[0] as { id: number; title: string; status: string; owner: { id: number; displayName: string } };
+    await t.pool.query('update designs set title = $1 where id = $2', [`${item.title} (renamed)`, item.id]);
+    const renamed = (await client.get('/api/designs?sort=number&dir=asc')).body.items[0];
+    expect(renamed.title).toBe(`${item.title} (renamed)`);
+    await t.pool.query('update users set display_name = $1 where id = $2', ['Someone Else', item.owner.id]);
+    expect((await client.get('/api/designs?sort=number&dir=asc')).body.items[0].owner.displayName).toBe('Someone Else');
+    const other = item.status === 'draft' ? 'in_review' : 'draft';
+    await t.pool.query('update design_revisions set status = $1 where design_id = $2 and revision = (select max(revision) from design_revisions where design_id = $2)', [other, item.id]);
+    expect((await client.get('/api/designs?sort=number&dir=asc')).body.items[0].status).toBe(other);
+    await t.pool.query('update users set display_name = $1 where id = $2', [item.owner.displayName, item.owner.id]);
   });
 });
