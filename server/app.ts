@@ -144,7 +144,7 @@ export function createApp(deps: AppDeps) {
   api.use('/account', accountRouter(users, new SessionsRepository(deps.db)));
   api.use('/admin/users', adminUsersRouter(users));
   api.use(auditRouter(audit));
-  api.use('/calc', calcRouter(calc));
+  api.use(calcRouter(calc));
   api.use(catalogueRouter(services.userCores));
   api.use('/catalogue', userCoresRouter(services.userCores));
   api.use('/compare', compareRouter(compare));

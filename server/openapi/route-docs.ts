@@ -2,7 +2,6 @@
 // (the same schema the route validates with). `tests/api/openapi.test.ts` fails when a route is missing here.
 import type * as z from 'zod';
 import { changePasswordRequestSchema, createUserRequestSchema, preferencesRequestSchema, signInRequestSchema, updateUserRequestSchema } from '@shared/schemas/auth';
-import { coreLossRequestSchema, evaluateRequestSchema, operatingPointRequestSchema, searchRequestSchema } from '@shared/schemas/calc';
 import { compareCurvesRequestSchema, compareDesignRequestSchema, compareSavedDesignRequestSchema } from '@shared/schemas/compare';
 import { userCoreRequestSchema } from '@shared/schemas/cores';
 import {
@@ -51,25 +50,6 @@ export const ROUTE_DOCS: Record<string, RouteDoc> = {
   'GET /api/admin/settings': { summary: 'The winding shop’s e-mail address', who: 'admin', answer: '{ shopEmail }' },
   'PUT /api/admin/settings': { summary: 'Set the winding shop’s e-mail address', who: 'admin', body: shopSettingsSchema, answer: '{ shopEmail }' },
 
-  'POST /api/calc/operating-point': {
-    summary: 'Buck operating point: duty range, inductance, ripple, peak and RMS current, energy, CCM boundary, ripple harmonics',
-    who: SIGNED_IN,
-    body: operatingPointRequestSchema,
-    answer: '{ dutyAtVinMin, dutyAtVinMax, inductance, ripplePeakToPeak, peakCurrent, rmsCurrent, energy, ccmBoundaryCurrent, harmonics: [{ n, amplitude }], … }',
-  },
-  'POST /api/calc/core-loss': { summary: 'Core-loss density by Steinmetz (peak B = ΔB/2) and iGSE', who: SIGNED_IN, body: coreLossRequestSchema, answer: '{ steinmetz, igse } in W/m³' },
-  'POST /api/calc/search': {
-    summary: 'Ranked candidates over catalogue cores × materials × wire options, with the Pareto front and reasons for infeasible ones',
-    who: SIGNED_IN,
-    body: searchRequestSchema,
-    answer: 'SearchResult',
-  },
-  'POST /api/calc/evaluate': {
-    summary: 'Every figure of one explicit design (add ?sweep=frequency for a loss-versus-frequency sweep)',
-    who: SIGNED_IN,
-    body: evaluateRequestSchema,
-    answer: '{ wire, result, lossVersusFrequency? }',
-  },
   'POST /api/compare/curves': {
     summary: 'Core-loss density of several materials over a frequency sweep and a ΔB sweep, fitted ranges and extrapolated points marked',
     who: SIGNED_IN,

@@ -1,9 +1,10 @@
 // Every declared endpoint. The OpenAPI document and the access-matrix test read this list; a feature's
 // router mounts its own declarations (server/http/endpoint.ts). Add a feature's module here when converting it.
 import * as audit from './audit';
+import * as calc from './calc';
 import * as catalogue from './catalogue';
 import type { Endpoint } from './endpoint';
 import * as health from './health';
 import * as inbox from './inbox';
 
-export const ENDPOINTS: readonly Endpoint[] = [health, audit, catalogue, inbox].flatMap((feature) => Object.values(feature));
+export const ENDPOINTS: readonly Endpoint[] = [health, audit, calc, catalogue, inbox].flatMap((feature) => Object.values(feature));

@@ -48,10 +48,6 @@ const UNDECLARED: Record<string, Policy> = {
   'GET /api/admin/settings': ADMIN,
   'PUT /api/admin/settings': ADMIN,
 
-  'POST /api/calc/operating-point': 'signed-in',
-  'POST /api/calc/core-loss': 'signed-in',
-  'POST /api/calc/search': 'signed-in',
-  'POST /api/calc/evaluate': 'signed-in',
   'POST /api/compare/curves': 'signed-in',
   'POST /api/compare/design': 'signed-in',
   'POST /api/compare/saved-design': 'signed-in',

@@ -1,6 +1,8 @@
 import { HttpClient, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
-import type { EvaluationResult, SearchResult, WireOption, CoreMaterial } from '@shared/engine/index';
+import { evaluate, operatingPoint, search } from '@shared/api/calc';
+import type { CoreMaterial } from '@shared/engine/index';
+import type { EvaluateAnswer, OperatingPointAnswer, SearchAnswer } from '@shared/schemas/calc-answers';
 import type {
   Construction,
   DesignDetail,
@@ -13,6 +15,7 @@ import type {
 import type { Observable } from 'rxjs';
 import { map } from 'rxjs';
 
+import { Api } from '../core/api';
 import { errorsShownByCaller } from '../core/error-display';
 
 export interface DesignListParams {
@@ -24,33 +27,12 @@ export interface DesignListParams {
   pageSize: number;
 }
 
-export interface OperatingPointView {
-  dutyAtVinMin: number;
-  dutyAtVinMax: number;
-  inductance: number;
-  inductanceNominal: number;
-  ripplePeakToPeak: number;
-  rippleAtVinMin: number;
-  peakCurrent: number;
-  valleyCurrent: number;
-  rmsCurrent: number;
-  energy: number;
-  saturationCheckCurrent: number;
-  warnings: { code: string; severity: string; message: string }[];
-}
-
-export interface EvaluateView {
-  engineVersion: string;
-  wire: WireOption;
-  result: EvaluationResult;
-  lossVersusFrequency?: { frequency: number; copperDc: number; copperAc: number; core: number; total: number; rise: number }[];
-}
-
 export type MaterialView = CoreMaterial & { retired?: boolean };
 
 @Injectable({ providedIn: 'root' })
 export class DesignsApi {
   private readonly http = inject(HttpClient);
+  private readonly api = inject(Api);
 
   list(params: DesignListParams): Observable<DesignListResponse> {
     let query = new HttpParams();
@@ -86,28 +68,18 @@ export class DesignsApi {
     return this.http.get<{ materials: MaterialView[] }>('/api/materials').pipe(map((body) => body.materials));
   }
 
-  operatingPoint(spec: DesignSpec): Observable<OperatingPointView> {
-    return this.http.post<OperatingPointView>(
-      '/api/calc/operating-point',
-      { ...spec.converter, ...(spec.limits?.inductanceTolerance !== undefined ? { inductanceTolerance: spec.limits.inductanceTolerance } : {}) },
-      errorsShownByCaller(),
-    );
+  operatingPoint(spec: DesignSpec): Observable<OperatingPointAnswer> {
+    const tolerance = spec.limits?.inductanceTolerance;
+    return this.api.call(operatingPoint, { body: { ...spec.converter, ...(tolerance !== undefined ? { inductanceTolerance: tolerance } : {}) } }, errorsShownByCaller());
   }
 
-  search(spec: DesignSpec, materialIds: string[]): Observable<SearchResult> {
-    return this.http.post<SearchResult>(
-      '/api/calc/search',
-      { spec: spec.converter, limits: spec.limits, families: spec.families?.length ? spec.families : undefined, materialIds, limit: 50 },
-      errorsShownByCaller(),
-    );
+  search(spec: DesignSpec, materialIds: string[]): Observable<SearchAnswer> {
+    const families = spec.families?.length ? spec.families : undefined;
+    return this.api.call(search, { body: { spec: spec.converter, limits: spec.limits, families, materialIds, limit: 50 } }, errorsShownByCaller());
   }
 
-  evaluate(spec: DesignSpec, construction: Construction): Observable<EvaluateView> {
-    return this.http.post<EvaluateView>(
-      '/api/calc/evaluate?sweep=frequency',
-      { spec: spec.converter, limits: spec.limits, ...construction },
-      errorsShownByCaller(),
-    );
+  evaluate(spec: DesignSpec, construction: Construction): Observable<EvaluateAnswer> {
+    return this.api.call(evaluate, { query: { sweep: 'frequency' }, body: { spec: spec.converter, limits: spec.limits, ...construction } }, errorsShownByCaller());
   }
 
   exportUrl(id: number, revision: number, kind: ExportKind): string {
