@@ -147,7 +147,7 @@ export function createApp(deps: AppDeps) {
   api.use(calcRouter(calc));
   api.use(catalogueRouter(services.userCores));
   api.use('/catalogue', userCoresRouter(services.userCores));
-  api.use('/compare', compareRouter(compare));
+  api.use(compareRouter(compare));
   api.use('/designs', designsRouter(designServices.designs, designServices.exports));
   api.use('/materials', materialLibraryRouter(services.materialLibrary));
   api.use('/materials', materialsRouter(materials, (req, name) => sessions.readWithSession(req)?.generations[name]));

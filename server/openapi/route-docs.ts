@@ -2,7 +2,6 @@
 // (the same schema the route validates with). `tests/api/openapi.test.ts` fails when a route is missing here.
 import type * as z from 'zod';
 import { changePasswordRequestSchema, createUserRequestSchema, preferencesRequestSchema, signInRequestSchema, updateUserRequestSchema } from '@shared/schemas/auth';
-import { compareCurvesRequestSchema, compareDesignRequestSchema, compareSavedDesignRequestSchema } from '@shared/schemas/compare';
 import { userCoreRequestSchema } from '@shared/schemas/cores';
 import {
   copyDesignRequestSchema,
@@ -49,26 +48,6 @@ export const ROUTE_DOCS: Record<string, RouteDoc> = {
   'GET /api/admin/outbox/:id/attachments/:index': { summary: 'One attachment of a sent mail (the winding sheet PDF)', who: 'admin', answer: 'the file', produces: 'application/octet-stream' },
   'GET /api/admin/settings': { summary: 'The winding shop’s e-mail address', who: 'admin', answer: '{ shopEmail }' },
   'PUT /api/admin/settings': { summary: 'Set the winding shop’s e-mail address', who: 'admin', body: shopSettingsSchema, answer: '{ shopEmail }' },
-
-  'POST /api/compare/curves': {
-    summary: 'Core-loss density of several materials over a frequency sweep and a ΔB sweep, fitted ranges and extrapolated points marked',
-    who: SIGNED_IN,
-    body: compareCurvesRequestSchema,
-    answer: '{ deltaB, frequency, duty, materials: [{ id, name, fit, versusFrequency, versusFlux }] }',
-  },
-  'POST /api/compare/design': {
-    summary: 'One unsaved design (core, turns, wire) with every current material; gap re-solved per material',
-    who: SIGNED_IN,
-    body: compareDesignRequestSchema,
-    answer: '{ engineVersion, coreId, turns, rows: [{ materialId, status, coreLoss, totalLoss, … }] }',
-  },
-  'POST /api/compare/saved-design': {
-    summary:
-      'A saved revision with every current material and its own material version (usedByDesign); 404 for an unknown design or revision, 409 when the revision has no construction',
-    who: SIGNED_IN,
-    body: compareSavedDesignRequestSchema,
-    answer: '{ engineVersion, design, coreId, turns, rows }',
-  },
 
   'GET /api/catalogue/cores/:id/history': { summary: 'Every version of a user core, newest first', who: SIGNED_IN, answer: '{ versions }' },
   'POST /api/catalogue/cores': { summary: 'Add a user core: a ring from dimensions (IEC 60205) or a gapped set from effective parameters', who: UPLOADERS, body: userCoreRequestSchema, answer: 'the listed core (201)' },

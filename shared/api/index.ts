@@ -3,8 +3,9 @@
 import * as audit from './audit';
 import * as calc from './calc';
 import * as catalogue from './catalogue';
+import * as compare from './compare';
 import type { Endpoint } from './endpoint';
 import * as health from './health';
 import * as inbox from './inbox';
 
-export const ENDPOINTS: readonly Endpoint[] = [health, audit, calc, catalogue, inbox].flatMap((feature) => Object.values(feature));
+export const ENDPOINTS: readonly Endpoint[] = [health, audit, calc, catalogue, compare, inbox].flatMap((feature) => Object.values(feature));

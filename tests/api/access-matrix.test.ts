@@ -48,9 +48,6 @@ const UNDECLARED: Record<string, Policy> = {
   'GET /api/admin/settings': ADMIN,
   'PUT /api/admin/settings': ADMIN,
 
-  'POST /api/compare/curves': 'signed-in',
-  'POST /api/compare/design': 'signed-in',
-  'POST /api/compare/saved-design': 'signed-in',
 
   'GET /api/catalogue/cores/:id/history': 'signed-in',
   'POST /api/catalogue/cores': UPLOADERS,
