@@ -146,7 +146,7 @@ export function createApp(deps: AppDeps) {
   api.use(auditRouter(audit));
   api.use(calcRouter(calc));
   api.use(catalogueRouter(services.userCores));
-  api.use('/catalogue', userCoresRouter(services.userCores));
+  api.use(userCoresRouter(services.userCores));
   api.use(compareRouter(compare));
   api.use('/designs', designsRouter(designServices.designs, designServices.exports));
   api.use('/materials', materialLibraryRouter(services.materialLibrary));

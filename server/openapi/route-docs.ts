@@ -2,7 +2,6 @@
 // (the same schema the route validates with). `tests/api/openapi.test.ts` fails when a route is missing here.
 import type * as z from 'zod';
 import { changePasswordRequestSchema, createUserRequestSchema, preferencesRequestSchema, signInRequestSchema, updateUserRequestSchema } from '@shared/schemas/auth';
-import { userCoreRequestSchema } from '@shared/schemas/cores';
 import {
   copyDesignRequestSchema,
   createDesignRequestSchema,
@@ -48,15 +47,6 @@ export const ROUTE_DOCS: Record<string, RouteDoc> = {
   'GET /api/admin/outbox/:id/attachments/:index': { summary: 'One attachment of a sent mail (the winding sheet PDF)', who: 'admin', answer: 'the file', produces: 'application/octet-stream' },
   'GET /api/admin/settings': { summary: 'The winding shop’s e-mail address', who: 'admin', answer: '{ shopEmail }' },
   'PUT /api/admin/settings': { summary: 'Set the winding shop’s e-mail address', who: 'admin', body: shopSettingsSchema, answer: '{ shopEmail }' },
-
-  'GET /api/catalogue/cores/:id/history': { summary: 'Every version of a user core, newest first', who: SIGNED_IN, answer: '{ versions }' },
-  'POST /api/catalogue/cores': { summary: 'Add a user core: a ring from dimensions (IEC 60205) or a gapped set from effective parameters', who: UPLOADERS, body: userCoreRequestSchema, answer: 'the listed core (201)' },
-  'GET /api/catalogue/cores/template.csv': { summary: 'Core CSV template: two invented, illustrative rows', who: SIGNED_IN, answer: 'CSV', produces: 'text/csv' },
-  'POST /api/catalogue/cores/import/preview': { summary: 'Every row of a core CSV file with its status and problems by column; nothing written', who: UPLOADERS, upload: 'preview', answer: '{ fileName, rows, summary }' },
-  'POST /api/catalogue/cores/import/commit': { summary: 'All rows of a core CSV file in one transaction, or none', who: UPLOADERS, upload: 'commit', answer: '{ fileName, created, versioned, skipped, coreIds } (201)' },
-  'PUT /api/catalogue/cores/:id': { summary: 'A new version of a current user core', who: UPLOADERS, body: userCoreRequestSchema, answer: 'the listed core (201)' },
-  'POST /api/catalogue/cores/:id/retire': { summary: 'Hide a user core from new searches (designs keep it)', who: CURATORS, answer: 'the listed core' },
-  'POST /api/catalogue/cores/:id/unretire': { summary: 'Bring a retired user core back', who: CURATORS, answer: 'the listed core' },
 
   'GET /api/materials': { summary: 'Current materials in SI units (?retired=include for retired ones too)', who: SIGNED_IN, answer: '{ materials }' },
   'GET /api/materials/library': { summary: 'Current versions with author, unit set, uploaded k and CSV cells', who: SIGNED_IN, answer: '{ materials }' },

@@ -196,10 +196,8 @@ export interface MaterialValues {
   provenance: string;
 }
 
-export interface CellProblem {
-  column: string;
-  message: string;
-}
+export const cellProblemSchema = z.object({ column: z.string(), message: z.string() });
+export type CellProblem = z.infer<typeof cellProblemSchema>;
 
 export function materialValuesFromRow(row: MaterialCsvRow): MaterialValues {
   const scale = UNIT_SCALES[row.unit_set];
@@ -295,18 +293,16 @@ export type ImportDecision = z.infer<typeof importDecisionSchema>;
 /** Per existing name (as written in the file): make a new version, or leave the stored one alone. */
 export const importDecisionsSchema = z.record(text().max(80), importDecisionSchema);
 
-export type PreviewStatus = 'new' | 'exists' | 'error';
-export interface PreviewRow {
-  row: number;
-  name: string;
-  status: PreviewStatus;
-  problems: CellProblem[];
-}
-export interface ImportPreview {
-  fileName: string;
-  rows: PreviewRow[];
-  summary: { rows: number; new: number; exists: number; errors: number };
-}
+export const previewRowSchema = z.object({ row: z.number().int(), name: z.string(), status: z.enum(['new', 'exists', 'error']), problems: z.array(cellProblemSchema) });
+export type PreviewRow = z.infer<typeof previewRowSchema>;
+export type PreviewStatus = PreviewRow['status'];
+/** What a CSV import would do with each row; nothing is written. */
+export const importPreviewSchema = z.object({
+  fileName: z.string(),
+  rows: z.array(previewRowSchema),
+  summary: z.object({ rows: z.number().int(), new: z.number().int(), exists: z.number().int(), errors: z.number().int() }),
+});
+export type ImportPreview = z.infer<typeof importPreviewSchema>;
 
 export const materialExportQuerySchema = z
   .object({

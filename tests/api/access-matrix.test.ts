@@ -49,14 +49,6 @@ const UNDECLARED: Record<string, Policy> = {
   'PUT /api/admin/settings': ADMIN,
 
 
-  'GET /api/catalogue/cores/:id/history': 'signed-in',
-  'POST /api/catalogue/cores': UPLOADERS,
-  'GET /api/catalogue/cores/template.csv': 'signed-in',
-  'POST /api/catalogue/cores/import/preview': UPLOADERS,
-  'POST /api/catalogue/cores/import/commit': UPLOADERS,
-  'PUT /api/catalogue/cores/:id': UPLOADERS,
-  'POST /api/catalogue/cores/:id/retire': CURATORS,
-  'POST /api/catalogue/cores/:id/unretire': CURATORS,
 
   'GET /api/materials': 'signed-in',
   'GET /api/materials/library': 'signed-in',
