@@ -149,8 +149,8 @@ export function createApp(deps: AppDeps) {
   api.use(userCoresRouter(services.userCores));
   api.use(compareRouter(compare));
   api.use('/designs', designsRouter(designServices.designs, designServices.exports));
-  api.use('/materials', materialLibraryRouter(services.materialLibrary));
-  api.use('/materials', materialsRouter(materials, (req, name) => sessions.readWithSession(req)?.generations[name]));
+  api.use(materialLibraryRouter(services.materialLibrary));
+  api.use(materialsRouter(materials, (req, name) => sessions.readWithSession(req)?.generations[name]));
   api.use('/revisions', reviewRouter(review));
   api.use(inboxRouter(review));
   api.use('/shop', shopRouter(shop));

@@ -48,17 +48,6 @@ export const ROUTE_DOCS: Record<string, RouteDoc> = {
   'GET /api/admin/settings': { summary: 'The winding shop’s e-mail address', who: 'admin', answer: '{ shopEmail }' },
   'PUT /api/admin/settings': { summary: 'Set the winding shop’s e-mail address', who: 'admin', body: shopSettingsSchema, answer: '{ shopEmail }' },
 
-  'GET /api/materials': { summary: 'Current materials in SI units (?retired=include for retired ones too)', who: SIGNED_IN, answer: '{ materials }' },
-  'GET /api/materials/library': { summary: 'Current versions with author, unit set, uploaded k and CSV cells', who: SIGNED_IN, answer: '{ materials }' },
-  'GET /api/materials/template.csv': { summary: 'Material CSV template: two invented, illustrative materials', who: SIGNED_IN, answer: 'CSV', produces: 'text/csv' },
-  'GET /api/materials/export.csv': { summary: 'The library or the materials named by ids, formula-like cells escaped', who: SIGNED_IN, query: materialExportQuerySchema, answer: 'CSV', produces: 'text/csv' },
-  'GET /api/materials/imports': { summary: 'Who uploaded which material file and what it did', who: SIGNED_IN, answer: '{ imports }' },
-  'GET /api/materials/:id/history': { summary: 'Every version of a material, newest first', who: SIGNED_IN, answer: '{ versions }' },
-  'POST /api/materials/import/preview': { summary: 'Every row of a material CSV file with its status and problems by column; nothing written', who: UPLOADERS, upload: 'preview', answer: '{ fileName, rows, summary }' },
-  'POST /api/materials/import/commit': { summary: 'All rows of a material CSV file in one transaction, or none', who: UPLOADERS, upload: 'commit', answer: '{ importId, created, versioned, skipped, materialIds } (201)' },
-  'PATCH /api/materials/:id': { summary: 'Changed cells (CSV column names, the row’s own unit set) make a new version', who: UPLOADERS, body: materialEditSchema, answer: 'the material (201)' },
-  'POST /api/materials/:id/retire': { summary: 'Hide a material from new searches (designs keep it)', who: CURATORS, answer: 'the material' },
-  'POST /api/materials/:id/unretire': { summary: 'Bring a retired material back', who: CURATORS, answer: 'the material' },
 
   'GET /api/designs': { summary: 'Designs, searched, sorted and paged', who: SIGNED_IN, query: designListQuerySchema, answer: '{ items, total, page, pageSize }' },
   'GET /api/designs/:id': { summary: 'A design with its revisions and the latest revision in full', who: SIGNED_IN, answer: 'DesignDetail' },

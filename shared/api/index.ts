@@ -7,5 +7,6 @@ import * as compare from './compare';
 import type { Endpoint } from './endpoint';
 import * as health from './health';
 import * as inbox from './inbox';
+import * as materials from './materials';
 
-export const ENDPOINTS: readonly Endpoint[] = [health, audit, calc, catalogue, compare, inbox].flatMap((feature) => Object.values(feature));
+export const ENDPOINTS: readonly Endpoint[] = [health, audit, calc, catalogue, compare, inbox, materials].flatMap((feature) => Object.values(feature));

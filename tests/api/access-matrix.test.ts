@@ -50,17 +50,6 @@ const UNDECLARED: Record<string, Policy> = {
 
 
 
-  'GET /api/materials': 'signed-in',
-  'GET /api/materials/library': 'signed-in',
-  'GET /api/materials/template.csv': 'signed-in',
-  'GET /api/materials/export.csv': 'signed-in',
-  'GET /api/materials/imports': 'signed-in',
-  'GET /api/materials/:id/history': 'signed-in',
-  'POST /api/materials/import/preview': UPLOADERS,
-  'POST /api/materials/import/commit': UPLOADERS,
-  'PATCH /api/materials/:id': UPLOADERS,
-  'POST /api/materials/:id/retire': CURATORS,
-  'POST /api/materials/:id/unretire': CURATORS,
 
   'GET /api/designs': 'signed-in',
   'GET /api/designs/:id': 'signed-in',

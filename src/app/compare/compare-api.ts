@@ -1,7 +1,7 @@
-import { HttpClient, httpResource } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { listCores } from '@shared/api/catalogue';
 import { compareCurves, compareDesign, compareSavedDesign } from '@shared/api/compare';
+import { listMaterials } from '@shared/api/materials';
 import type { CompareCurvesResponse, CompareDesignResponse } from '@shared/schemas/compare';
 import type { ListedCore } from '@shared/schemas/cores';
 import type { MaterialSummary } from '@shared/schemas/materials';
@@ -29,14 +29,10 @@ export interface DesignRequest {
 
 @Injectable({ providedIn: 'root' })
 export class CompareApi {
-  private readonly http = inject(HttpClient);
   private readonly api = inject(Api);
 
   materialsResource() {
-    return httpResource(() => '/api/materials', {
-      parse: (body) => (body as { materials: MaterialChoice[] }).materials,
-      defaultValue: [] as MaterialChoice[],
-    });
+    return endpointResource(listMaterials, () => ({ query: {} }), { select: (answer): MaterialChoice[] => answer.materials, defaultValue: [] });
   }
 
   coresResource() {

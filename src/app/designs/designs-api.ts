@@ -1,6 +1,7 @@
 import { HttpClient, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { evaluate, operatingPoint, search } from '@shared/api/calc';
+import { listMaterials } from '@shared/api/materials';
 import type { CoreMaterial } from '@shared/engine/index';
 import type { EvaluateAnswer, OperatingPointAnswer, SearchAnswer } from '@shared/schemas/calc-answers';
 import type {
@@ -65,7 +66,7 @@ export class DesignsApi {
   }
 
   materials(): Observable<MaterialView[]> {
-    return this.http.get<{ materials: MaterialView[] }>('/api/materials').pipe(map((body) => body.materials));
+    return this.api.call(listMaterials, { query: {} }).pipe(map((answer) => answer.materials));
   }
 
   operatingPoint(spec: DesignSpec): Observable<OperatingPointAnswer> {
