@@ -28,14 +28,10 @@ function csvForm(file: File, decisions?: Record<string, string>): FormData {
 }
 
 /**
- * POST one CSV file in the field "file" (and, for a commit, the per-name decisions as JSON in "decisions"),
- * reporting upload progress. The caller shows the errors (row and column problems belong beside the file).
+ * POST one CSV file to a declared upload endpoint in the field "file" (and, for a commit, the per-name decisions
+ * as JSON in "decisions"), reporting upload progress; the answer is parsed with the endpoint's answer schema.
+ * The caller shows the errors (row and column problems belong beside the file).
  */
-export function uploadCsv<T>(http: HttpClient, url: string, file: File, decisions?: Record<string, string>): Observable<UploadStep<T>> {
-  return uploadSteps(http.post<T>(url, csvForm(file, decisions), { ...errorsShownByCaller(), reportProgress: true, observe: 'events' }));
-}
-
-/** `uploadCsv` to a declared upload endpoint; the answer is parsed with its answer schema. */
 export function uploadToEndpoint<E extends Endpoint>(http: HttpClient, endpoint: E, file: File, decisions?: Record<string, string>): Observable<UploadStep<AnswerOf<E>>> {
   const events = http.request(endpoint.method, endpointUrl(endpoint), { body: csvForm(file, decisions), ...errorsShownByCaller(), reportProgress: true, observe: 'events' });
   return uploadSteps(events).pipe(map((step) => (step.kind === 'done' ? { kind: 'done', body: endpoint.answer.parse(step.body) as AnswerOf<E> } : step)));
