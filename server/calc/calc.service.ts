@@ -9,8 +9,6 @@ import {
   rippleHarmonics,
   searchCandidates,
   steinmetzLoss,
-  type ConverterSpec,
-  type DesignLimits,
 } from '@shared/engine/index';
 import type { CoreMaterial } from '@shared/engine/types';
 import type {
@@ -56,26 +54,10 @@ export class CalcService {
 
   operatingPoint(request: OperatingPointRequest) {
     const { inductanceTolerance, ...spec } = request;
-    const op = engineCall(() => operatingPoint(spec as ConverterSpec, inductanceTolerance ?? 0.1));
+    const op = engineCall(() => operatingPoint(spec, inductanceTolerance ?? 0.1));
     const amplitudes = rippleHarmonics(op.rippleAtVinMax, op.dutyAtVinMax, HARMONICS_REPORTED);
-    return {
-      engineVersion: ENGINE_VERSION,
-      dutyAtVinMin: op.dutyAtVinMin,
-      dutyAtVinMax: op.dutyAtVinMax,
-      inductance: op.inductanceMin,
-      inductanceNominal: op.inductanceNominal,
-      ripplePeakToPeak: op.rippleAtVinMax,
-      rippleAtVinMin: op.rippleAtVinMin,
-      rippleRatio: op.rippleRatio,
-      peakCurrent: op.peakCurrent,
-      valleyCurrent: op.valleyCurrent,
-      rmsCurrent: op.rmsCurrent,
-      energy: op.storedEnergy,
-      ccmBoundaryCurrent: op.ccmBoundaryCurrent,
-      saturationCheckCurrent: op.saturationCheckCurrent,
-      harmonics: Array.from(amplitudes, (amplitude, i) => ({ n: i + 1, amplitude })),
-      warnings: op.warnings,
-    };
+    // The engine's names end to end: the answer schema is tied to OperatingPoint.
+    return { engineVersion: ENGINE_VERSION, ...op, harmonics: Array.from(amplitudes, (amplitude, i) => ({ n: i + 1, amplitude })) };
   }
 
   coreLoss({ material, frequency, deltaB, duty, waveform }: CoreLossRequest) {
@@ -108,8 +90,8 @@ export class CalcService {
     if (!cores.length) throw badRequest('No catalogue core matches the requested ids and families.', { coreIds: 'No matching core' });
     const result = engineCall(() =>
       searchCandidates({
-        spec: request.spec as ConverterSpec,
-        limits: request.limits as Partial<DesignLimits> | undefined,
+        spec: request.spec,
+        limits: request.limits,
         cores,
         materials,
         wires: this.catalogue.standardWires(),
@@ -128,8 +110,8 @@ export class CalcService {
       : await this.resolveMaterials([request.materialId!], [], 'materialId');
     const wire = this.catalogue.wire(request.wire);
     const input = {
-      spec: request.spec as ConverterSpec,
-      limits: request.limits as Partial<DesignLimits> | undefined,
+      spec: request.spec,
+      limits: request.limits,
       core,
       material,
       turns: request.turns,
@@ -163,7 +145,7 @@ export class CalcService {
       ...m,
       id: m.id ?? `inline-${i + 1}`,
       density: m.density ?? TYPICAL_DENSITY[m.family],
-    })) as CoreMaterial[];
+    }));
     return [...stored, ...given];
   }
 }

@@ -1,40 +1,31 @@
 import { Router } from 'express';
-import { userCoreRequestSchema } from '@shared/schemas/cores';
-import { actorOf, requireRole, requireSignIn } from '../http/access.ts';
+import {
+  commitCoreImport,
+  coreTemplate,
+  createUserCore,
+  editUserCore,
+  previewCoreImport,
+  retireUserCore,
+  unretireUserCore,
+  userCoreHistory,
+} from '@shared/api/catalogue';
+import { actorOf } from '../http/access.ts';
 import { decisionsField, singleCsvUpload, uploadedFile } from '../http/csv-upload.ts';
-import { parseBody, parseIdParam } from '../http/validate.ts';
+import { mount } from '../http/endpoint.ts';
 import type { UserCoresService } from './user-cores.service.ts';
 
-/** Shipped and user cores (one at a time or a CSV file); the listing itself is GET /cores in catalogue.router.ts. */
+/** User cores (one at a time or a CSV file); the listing itself is GET /catalogue/cores in catalogue.router.ts. Mounted at /api. */
 export function userCoresRouter(cores: UserCoresService): Router {
   const router = Router();
-  router.use(requireSignIn);
-  const authors = requireRole('engineer', 'reviewer', 'admin');
-  const curators = requireRole('reviewer', 'admin');
-
-  router.post('/cores', authors, async (req, res) => {
-    res.status(201).json(await cores.create(parseBody(userCoreRequestSchema, req), actorOf(req)));
-  });
-  router.get('/cores/template.csv', (_req, res) => {
+  mount(router, createUserCore, ({ body, req }) => cores.create(body, actorOf(req)));
+  mount(router, coreTemplate, ({ res }) => {
     res.attachment('gapwright-cores-template.csv').type('text/csv; charset=utf-8').send(cores.template());
   });
-  router.post('/cores/import/preview', authors, singleCsvUpload(), async (req, res) => {
-    res.json(await cores.preview(uploadedFile(req)));
-  });
-  router.post('/cores/import/commit', authors, singleCsvUpload(), async (req, res) => {
-    res.status(201).json(await cores.commit(uploadedFile(req), decisionsField(req), actorOf(req)));
-  });
-  router.get('/cores/:id/history', async (req, res) => {
-    res.json({ versions: await cores.history(parseIdParam(req)) });
-  });
-  router.put('/cores/:id', authors, async (req, res) => {
-    res.status(201).json(await cores.edit(parseIdParam(req), parseBody(userCoreRequestSchema, req), actorOf(req)));
-  });
-  router.post('/cores/:id/retire', curators, async (req, res) => {
-    res.json(await cores.setRetired(parseIdParam(req), true, actorOf(req)));
-  });
-  router.post('/cores/:id/unretire', curators, async (req, res) => {
-    res.json(await cores.setRetired(parseIdParam(req), false, actorOf(req)));
-  });
+  mount(router, previewCoreImport, ({ req }) => cores.preview(uploadedFile(req)), [singleCsvUpload()]);
+  mount(router, commitCoreImport, ({ req }) => cores.commit(uploadedFile(req), decisionsField(req), actorOf(req)), [singleCsvUpload()]);
+  mount(router, userCoreHistory, async ({ params }) => ({ versions: await cores.history(params.id) }));
+  mount(router, editUserCore, ({ params, body, req }) => cores.edit(params.id, body, actorOf(req)));
+  mount(router, retireUserCore, ({ params, req }) => cores.setRetired(params.id, true, actorOf(req)));
+  mount(router, unretireUserCore, ({ params, req }) => cores.setRetired(params.id, false, actorOf(req)));
   return router;
 }

@@ -1,21 +1,13 @@
 import { Router } from 'express';
-import { compareCurvesRequestSchema, compareDesignRequestSchema, compareSavedDesignRequestSchema } from '@shared/schemas/compare';
-import { requireSignIn } from '../http/access.ts';
-import { parseBody } from '../http/validate.ts';
+import { compareCurves, compareDesign, compareSavedDesign } from '@shared/api/compare';
+import { mount } from '../http/endpoint.ts';
 import type { CompareService } from './compare.service.ts';
 
-/** Stateless comparisons; every signed-in role may use them. */
+/** Stateless comparisons; every signed-in role may use them. Mounted at /api. */
 export function compareRouter(compare: CompareService): Router {
   const router = Router();
-  router.use(requireSignIn);
-  router.post('/curves', async (req, res) => {
-    res.json(await compare.curves(parseBody(compareCurvesRequestSchema, req)));
-  });
-  router.post('/design', async (req, res) => {
-    res.json(await compare.design(parseBody(compareDesignRequestSchema, req)));
-  });
-  router.post('/saved-design', async (req, res) => {
-    res.json(await compare.savedDesign(parseBody(compareSavedDesignRequestSchema, req)));
-  });
+  mount(router, compareCurves, ({ body }) => compare.curves(body));
+  mount(router, compareDesign, ({ body }) => compare.design(body));
+  mount(router, compareSavedDesign, ({ body }) => compare.savedDesign(body));
   return router;
 }

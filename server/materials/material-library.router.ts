@@ -1,58 +1,38 @@
 import { Router } from 'express';
-import { materialEditSchema, materialExportQuerySchema } from '@shared/schemas/materials';
-import { actorOf, requireRole, requireSignIn } from '../http/access.ts';
+import {
+  commitMaterialImport,
+  editMaterial,
+  exportMaterials,
+  materialHistory,
+  materialImports,
+  materialLibrary,
+  materialTemplate,
+  previewMaterialImport,
+  retireMaterial,
+  unretireMaterial,
+} from '@shared/api/materials';
+import { actorOf } from '../http/access.ts';
 import { decisionsField, singleCsvUpload, uploadedFile } from '../http/csv-upload.ts';
-import { parseBody, parseIdParam, parseQuery } from '../http/validate.ts';
+import { mount } from '../http/endpoint.ts';
 import type { MaterialsService } from './materials.service.ts';
 
-/** The library: upload, edit, retire, export, history. Mounted before the plain listing router. */
+/** The library: upload, edit, retire, export, history. Mounted at /api before the plain listing router. */
 export function materialLibraryRouter(service: MaterialsService): Router {
   const router = Router();
-  router.use(requireSignIn);
-  const uploaders = requireRole('engineer', 'reviewer', 'admin');
-  const curators = requireRole('reviewer', 'admin');
-
-  router.get('/library', async (_req, res) => {
-    res.json({ materials: await service.list() });
-  });
-
-  router.get('/template.csv', (_req, res) => {
+  mount(router, materialLibrary, async () => ({ materials: await service.list() }));
+  mount(router, materialTemplate, ({ res }) => {
     res.attachment('gapwright-materials-template.csv').type('text/csv; charset=utf-8').send(service.template());
   });
-
-  router.get('/export.csv', async (req, res) => {
-    const { ids } = parseQuery(materialExportQuerySchema, req);
-    const csv = await service.exportCsv(ids?.map(Number));
+  mount(router, exportMaterials, async ({ query, res }) => {
+    const csv = await service.exportCsv(query.ids?.map(Number));
     res.attachment('gapwright-materials.csv').type('text/csv; charset=utf-8').send(csv);
   });
-
-  router.get('/imports', async (_req, res) => {
-    res.json({ imports: await service.imports() });
-  });
-
-  router.post('/import/preview', uploaders, singleCsvUpload(), async (req, res) => {
-    res.json(await service.preview(uploadedFile(req)));
-  });
-
-  router.post('/import/commit', uploaders, singleCsvUpload(), async (req, res) => {
-    res.status(201).json(await service.commit(uploadedFile(req), decisionsField(req), actorOf(req)));
-  });
-
-  router.get('/:id/history', async (req, res) => {
-    res.json({ versions: await service.history(parseIdParam(req)) });
-  });
-
-  router.patch('/:id', uploaders, async (req, res) => {
-    res.status(201).json(await service.edit(parseIdParam(req), parseBody(materialEditSchema, req), actorOf(req)));
-  });
-
-  router.post('/:id/retire', curators, async (req, res) => {
-    res.json(await service.setRetired(parseIdParam(req), true, actorOf(req)));
-  });
-
-  router.post('/:id/unretire', curators, async (req, res) => {
-    res.json(await service.setRetired(parseIdParam(req), false, actorOf(req)));
-  });
-
+  mount(router, materialImports, async () => ({ imports: await service.imports() }));
+  mount(router, previewMaterialImport, ({ req }) => service.preview(uploadedFile(req)), [singleCsvUpload()]);
+  mount(router, commitMaterialImport, ({ req }) => service.commit(uploadedFile(req), decisionsField(req), actorOf(req)), [singleCsvUpload()]);
+  mount(router, materialHistory, async ({ params }) => ({ versions: await service.history(params.id) }));
+  mount(router, editMaterial, ({ params, body, req }) => service.edit(params.id, body, actorOf(req)));
+  mount(router, retireMaterial, ({ params, req }) => service.setRetired(params.id, true, actorOf(req)));
+  mount(router, unretireMaterial, ({ params, req }) => service.setRetired(params.id, false, actorOf(req)));
   return router;
 }

@@ -1,7 +1,8 @@
 import { Router, type Request } from 'express';
 import type { GenerationOf } from '../http/generation.ts';
 import { GenerationCache } from '../http/generation-cache.ts';
-import { requireSignIn } from '../http/access.ts';
+import { listMaterials } from '@shared/api/materials';
+import { mount } from '../http/endpoint.ts';
 import { toMaterialSummary } from './material-view.ts';
 import type { MaterialsRepository } from './materials.repository.ts';
 
@@ -10,10 +11,9 @@ import type { MaterialsRepository } from './materials.repository.ts';
 export function materialsRouter(materials: MaterialsRepository, generationOf: GenerationOf = () => undefined): Router {
   const router = Router();
   const cache = new GenerationCache();
-  router.use(requireSignIn);
   // Read on most pages and changed rarely: answered from cache while the materials' change counter stands still.
-  router.get('/', async (req, res) => {
-    const includeRetired = req.query['retired'] === 'include';
+  mount(router, listMaterials, async ({ query, req, res }) => {
+    const includeRetired = query.retired === 'include';
     const answer = await cache.answer(includeRetired ? 'with-retired' : 'in-use', generationOf(req, 'materials'), async () => ({
       materials: (await materials.listCurrent(includeRetired)).map(toMaterialSummary),
     }));

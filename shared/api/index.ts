@@ -3,17 +3,34 @@
 import * as account from './account';
 import * as audit from './audit';
 import * as auth from './auth';
+import * as calc from './calc';
 import * as catalogue from './catalogue';
+import * as compare from './compare';
 import * as designs from './designs';
 import type { Endpoint } from './endpoint';
 import * as exportsApi from './exports';
 import * as health from './health';
 import * as inbox from './inbox';
+import * as materials from './materials';
 import * as outbox from './outbox';
 import * as review from './review';
 import * as settings from './settings';
 import * as users from './users';
 
-export const ENDPOINTS: readonly Endpoint[] = [health, audit, catalogue, inbox, auth, account, users, outbox, settings, designs, exportsApi, review].flatMap((feature) =>
-  Object.values(feature),
-);
+export const ENDPOINTS: readonly Endpoint[] = [
+  health,
+  audit,
+  catalogue,
+  inbox,
+  auth,
+  account,
+  users,
+  outbox,
+  settings,
+  designs,
+  exportsApi,
+  review,
+  calc,
+  compare,
+  materials,
+].flatMap((feature) => Object.values(feature));

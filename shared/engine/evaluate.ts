@@ -17,7 +17,7 @@ import {
   type WireContext,
 } from './kernel';
 import type { OperatingPoint } from './operating-point';
-import type { CoreMaterial, CoreShape, WireOption } from './types';
+import type { CoreFamily, CoreMaterial, CoreShape, GapKind, MaterialFamily, WireKind, WireOption } from './types';
 
 export interface EvaluateInput {
   spec: ConverterSpec;
@@ -36,8 +36,8 @@ export interface EvaluationResult {
   operatingPoint: OperatingPoint;
   core: {
     id: string;
-    family: string;
-    gapKind: string;
+    family: CoreFamily;
+    gapKind: GapKind;
     ae: number;
     le: number;
     ve: number;
@@ -47,8 +47,8 @@ export interface EvaluationResult {
     /** Erickson's Kg = Ae²·Wa/MLT (m⁵). */
     geometryConstant: number;
   };
-  material: { id: string; name: string; family: string };
-  wire: { id: string; kind: string; strandDiameter: number; strands: number; copperArea: number; currentDensity: number };
+  material: { id: string; name: string; family: MaterialFamily };
+  wire: { id: string; kind: WireKind; strandDiameter: number; strands: number; copperArea: number; currentDensity: number };
   turns: number;
   gap: {
     /** Total gap in the path (m); 0 for distributed-gap cores. */

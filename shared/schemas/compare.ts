@@ -36,29 +36,25 @@ export const compareCurvesRequestSchema = z
   .meta({ description: 'Core-loss density of materials over a frequency sweep and a ΔB sweep (Steinmetz and triangular iGSE)' });
 export type CompareCurvesRequest = z.infer<typeof compareCurvesRequestSchema>;
 
-export interface CurvePoint {
-  /** Frequency (Hz) on the frequency sweep, peak-to-peak ΔB (T) on the flux sweep. */
-  x: number;
-  steinmetz: number;
-  igse: number;
-  /** Outside the range the coefficients were fitted on (frequency, or peak flux ΔB/2). */
-  extrapolated: boolean;
-}
-export interface MaterialCurves {
-  id: string;
-  name: string;
-  family: string;
-  version: number;
-  fit: { frequencyMin: number; frequencyMax: number; fluxMin: number; fluxMax: number };
-  versusFrequency: CurvePoint[];
-  versusFlux: CurvePoint[];
-}
-export interface CompareCurvesResponse {
-  deltaB: number;
-  frequency: number;
-  duty: number;
-  materials: MaterialCurves[];
-}
+export const curvePointSchema = z.object({
+  x: z.number().meta({ description: 'Frequency (Hz) on the frequency sweep, peak-to-peak ΔB (T) on the flux sweep' }),
+  steinmetz: z.number(),
+  igse: z.number(),
+  extrapolated: z.boolean().meta({ description: 'Outside the range the coefficients were fitted on (frequency, or peak flux ΔB/2)' }),
+});
+export type CurvePoint = z.infer<typeof curvePointSchema>;
+export const materialCurvesSchema = z.object({
+  id: z.string(),
+  name: z.string(),
+  family: z.string(),
+  version: z.number().int(),
+  fit: z.object({ frequencyMin: z.number(), frequencyMax: z.number(), fluxMin: z.number(), fluxMax: z.number() }),
+  versusFrequency: z.array(curvePointSchema),
+  versusFlux: z.array(curvePointSchema),
+});
+export type MaterialCurves = z.infer<typeof materialCurvesSchema>;
+export const compareCurvesResponseSchema = z.object({ deltaB: z.number(), frequency: z.number(), duty: z.number(), materials: z.array(materialCurvesSchema) });
+export type CompareCurvesResponse = z.infer<typeof compareCurvesResponseSchema>;
 
 export const compareDesignRequestSchema = z
   .object({
@@ -83,44 +79,36 @@ export const compareSavedDesignRequestSchema = z
   .meta({ description: "A saved revision's core, turns and wire evaluated with every current material; gap re-solved per material" });
 export type CompareSavedDesignRequest = z.infer<typeof compareSavedDesignRequestSchema>;
 
-export interface DesignComparisonRow {
-  materialId: string;
-  /** The material version the saved revision was built with. */
-  usedByDesign?: boolean;
-  name: string;
-  family: string;
-  status: 'ok' | 'incompatible' | 'error';
-  reason?: string;
-  feasible?: boolean;
-  gap?: number;
-  coreLoss?: number;
-  copperLoss?: number;
-  totalLoss?: number;
-  coreLossDensity?: number;
-  peakFlux?: number;
-  temperatureRise?: number;
-  extrapolated?: boolean;
-}
-export interface ComparedRevision {
-  id: number;
-  number: string;
-  title: string;
-  revision: number;
-  materialId: string;
-}
+const optionalNumber = z.number().optional();
+export const designComparisonRowSchema = z.object({
+  materialId: z.string(),
+  usedByDesign: z.boolean().optional().meta({ description: 'The material version the saved revision was built with' }),
+  name: z.string(),
+  family: z.string(),
+  status: z.enum(['ok', 'incompatible', 'error']),
+  reason: z.string().optional(),
+  feasible: z.boolean().optional(),
+  gap: optionalNumber,
+  coreLoss: optionalNumber,
+  copperLoss: optionalNumber,
+  totalLoss: optionalNumber,
+  coreLossDensity: optionalNumber,
+  peakFlux: optionalNumber,
+  temperatureRise: optionalNumber,
+  extrapolated: z.boolean().optional(),
+});
+export type DesignComparisonRow = z.infer<typeof designComparisonRowSchema>;
+export const comparedRevisionSchema = z.object({ id: z.number().int(), number: z.string(), title: z.string(), revision: z.number().int(), materialId: z.string() });
+export type ComparedRevision = z.infer<typeof comparedRevisionSchema>;
 /** Where the design's core works: peak-to-peak flux swing (T), switching frequency (Hz), duty at Vin max. */
-export interface DesignFluxPoint {
-  deltaB: number;
-  frequency: number;
-  duty: number;
-}
-export interface CompareDesignResponse {
-  engineVersion: string;
-  /** The same for every material (same core and turns); absent when no material could be evaluated. */
-  fluxPoint?: DesignFluxPoint;
-  /** Set when a saved revision was compared. */
-  design?: ComparedRevision;
-  coreId: string;
-  turns: number;
-  rows: DesignComparisonRow[];
-}
+export const designFluxPointSchema = z.object({ deltaB: z.number(), frequency: z.number(), duty: z.number() });
+export type DesignFluxPoint = z.infer<typeof designFluxPointSchema>;
+export const compareDesignResponseSchema = z.object({
+  engineVersion: z.string(),
+  fluxPoint: designFluxPointSchema.optional().meta({ description: 'The same for every material (same core and turns); absent when no material could be evaluated' }),
+  design: comparedRevisionSchema.optional().meta({ description: 'Set when a saved revision was compared' }),
+  coreId: z.string(),
+  turns: z.number().int(),
+  rows: z.array(designComparisonRowSchema),
+});
+export type CompareDesignResponse = z.infer<typeof compareDesignResponseSchema>;

@@ -71,3 +71,13 @@ export const listedCoreSchema = coreShapeAnswerSchema.extend({
 });
 export type ListedCore = z.infer<typeof listedCoreSchema>;
 export const coreListResponseSchema = z.object({ cores: z.array(listedCoreSchema) });
+export const coreHistoryResponseSchema = z.object({ versions: z.array(listedCoreSchema) });
+/** What an import of a core CSV file did. */
+export const coreImportResultSchema = z.object({
+  fileName: z.string(),
+  created: z.number().int(),
+  versioned: z.number().int(),
+  skipped: z.number().int(),
+  coreIds: z.array(z.number().int()),
+});
+export type CoreImportResult = z.infer<typeof coreImportResultSchema>;

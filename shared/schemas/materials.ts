@@ -196,10 +196,8 @@ export interface MaterialValues {
   provenance: string;
 }
 
-export interface CellProblem {
-  column: string;
-  message: string;
-}
+export const cellProblemSchema = z.object({ column: z.string(), message: z.string() });
+export type CellProblem = z.infer<typeof cellProblemSchema>;
 
 export function materialValuesFromRow(row: MaterialCsvRow): MaterialValues {
   const scale = UNIT_SCALES[row.unit_set];
@@ -295,18 +293,16 @@ export type ImportDecision = z.infer<typeof importDecisionSchema>;
 /** Per existing name (as written in the file): make a new version, or leave the stored one alone. */
 export const importDecisionsSchema = z.record(text().max(80), importDecisionSchema);
 
-export type PreviewStatus = 'new' | 'exists' | 'error';
-export interface PreviewRow {
-  row: number;
-  name: string;
-  status: PreviewStatus;
-  problems: CellProblem[];
-}
-export interface ImportPreview {
-  fileName: string;
-  rows: PreviewRow[];
-  summary: { rows: number; new: number; exists: number; errors: number };
-}
+export const previewRowSchema = z.object({ row: z.number().int(), name: z.string(), status: z.enum(['new', 'exists', 'error']), problems: z.array(cellProblemSchema) });
+export type PreviewRow = z.infer<typeof previewRowSchema>;
+export type PreviewStatus = PreviewRow['status'];
+/** What a CSV import would do with each row; nothing is written. */
+export const importPreviewSchema = z.object({
+  fileName: z.string(),
+  rows: z.array(previewRowSchema),
+  summary: z.object({ rows: z.number().int(), new: z.number().int(), exists: z.number().int(), errors: z.number().int() }),
+});
+export type ImportPreview = z.infer<typeof importPreviewSchema>;
 
 export const materialExportQuerySchema = z
   .object({
@@ -319,21 +315,74 @@ export const materialExportQuerySchema = z
   })
   .strict();
 
+/** The engine's CoreMaterial as an answer carries it. */
+export const coreMaterialSchema = z.object({
+  id: z.string(),
+  name: z.string(),
+  family: z.enum(MATERIAL_FAMILIES),
+  k: z.number(),
+  alpha: z.number(),
+  beta: z.number(),
+  fitFrequencyMin: z.number(),
+  fitFrequencyMax: z.number(),
+  fitFluxMin: z.number(),
+  fitFluxMax: z.number(),
+  tempCoefficients: z.object({ ct0: z.number(), ct1: z.number(), ct2: z.number() }).optional(),
+  bsat25: z.number(),
+  bsat100: z.number(),
+  permeability: z.number(),
+  rollOff: z.object({ a: z.number(), b: z.number(), c: z.number() }).optional(),
+  density: z.number(),
+  maxTemperature: z.number().optional(),
+}) satisfies z.ZodType<CoreMaterial>;
+
 /** A stored material version as GET /api/materials lists it: the engine's fields plus version, provenance and state. */
-export type MaterialSummary = CoreMaterial & {
-  lineage: string;
-  version: number;
-  retired: boolean;
-  unitSet: MaterialUnitSet;
-  kUploaded: number;
-  referenceTemperature: number | null;
-  provenance: string;
-  createdAt: string;
-};
+export const materialSummarySchema = coreMaterialSchema.extend({
+  lineage: z.string(),
+  version: z.number().int(),
+  retired: z.boolean(),
+  unitSet: z.enum(MATERIAL_UNIT_SETS),
+  kUploaded: z.number(),
+  referenceTemperature: z.number().nullable(),
+  provenance: z.string(),
+  createdAt: z.string(),
+});
+export type MaterialSummary = z.infer<typeof materialSummarySchema>;
+export const materialListResponseSchema = z.object({ materials: z.array(materialSummarySchema) });
+export const materialListQuerySchema = z.object({
+  retired: z.enum(['include']).optional().meta({ description: '"include" lists retired materials too' }),
+});
 
 /** A material as the library lists it (GET /api/materials/library, history, edits): with author and its CSV cells. */
-export type LibraryMaterial = MaterialSummary & {
-  current: boolean;
-  createdBy: string | null;
-  cells: Record<MaterialCsvColumn, string>;
-};
+export const libraryMaterialSchema = materialSummarySchema.extend({
+  current: z.boolean(),
+  createdBy: z.string().nullable(),
+  cells: z.record(z.enum(MATERIAL_CSV_COLUMNS), z.string()),
+});
+export type LibraryMaterial = z.infer<typeof libraryMaterialSchema>;
+export const libraryResponseSchema = z.object({ materials: z.array(libraryMaterialSchema) });
+export const materialHistoryResponseSchema = z.object({ versions: z.array(libraryMaterialSchema) });
+
+/** One uploaded material CSV file and what it did. */
+export const materialImportEntrySchema = z.object({
+  id: z.number().int(),
+  fileName: z.string(),
+  uploadedBy: z.string().nullable(),
+  uploadedAt: z.string(),
+  rowCount: z.number().int(),
+  createdCount: z.number().int(),
+  versionedCount: z.number().int(),
+  skippedCount: z.number().int(),
+});
+export type MaterialImportEntry = z.infer<typeof materialImportEntrySchema>;
+export const materialImportsResponseSchema = z.object({ imports: z.array(materialImportEntrySchema) });
+
+/** What a committed material CSV import did. */
+export const materialCommitResultSchema = z.object({
+  importId: z.number().int(),
+  created: z.number().int(),
+  versioned: z.number().int(),
+  skipped: z.number().int(),
+  materialIds: z.array(z.number().int()),
+});
+export type MaterialCommitResult = z.infer<typeof materialCommitResultSchema>;

@@ -23,13 +23,13 @@ describe('POST /api/calc/operating-point', () => {
     expect(res.status).toBe(200);
     const op = res.body;
     // L = Vout(1 − Vout/Vin,max)/(fs·r·Iout) = 12·(2/3)/(1e5·0.3·10) = 26.67 µH [C]
-    expect(relative(op.inductance, 26.667e-6)).toBeLessThan(1e-3);
+    expect(relative(op.inductanceMin, 26.667e-6)).toBeLessThan(1e-3);
     expect(op.dutyAtVinMin).toBeCloseTo(0.5, 6); // D = Vout/Vin ideal
     expect(op.dutyAtVinMax).toBeCloseTo(1 / 3, 6);
-    expect(op.ripplePeakToPeak).toBeCloseTo(3, 4); // 0.3 × 10 A
+    expect(op.rippleAtVinMax).toBeCloseTo(3, 4); // 0.3 × 10 A
     expect(op.peakCurrent).toBeCloseTo(11.5, 4); // Iout + ΔI/2
     expect(op.rmsCurrent).toBeCloseTo(Math.sqrt(100 + 9 / 12), 4); // 10.04 A, sqrt(Iout² + ΔI²/12)
-    expect(relative(op.energy, 0.5 * 26.667e-6 * 11.5 ** 2)).toBeLessThan(1e-3); // ½·L·Ipk² = 1.763 mJ
+    expect(relative(op.storedEnergy, 0.5 * 26.667e-6 * 11.5 ** 2)).toBeLessThan(1e-3); // ½·L·Ipk² = 1.763 mJ
     expect(op.ccmBoundaryCurrent).toBeCloseTo(1.5, 4); // ΔI/2
   });
 

@@ -1,12 +1,13 @@
-import { HttpClient, httpResource } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { listCores } from '@shared/api/catalogue';
+import { compareCurves, compareDesign, compareSavedDesign } from '@shared/api/compare';
+import { listMaterials } from '@shared/api/materials';
 import type { CompareCurvesResponse, CompareDesignResponse } from '@shared/schemas/compare';
 import type { ListedCore } from '@shared/schemas/cores';
 import type { MaterialSummary } from '@shared/schemas/materials';
 import type { Observable } from 'rxjs';
 
-import { endpointResource } from '../core/api';
+import { Api, endpointResource } from '../core/api';
 import { errorsShownByCaller } from '../core/error-display';
 
 export type MaterialChoice = Pick<MaterialSummary, 'id' | 'name' | 'family' | 'version'>;
@@ -28,13 +29,10 @@ export interface DesignRequest {
 
 @Injectable({ providedIn: 'root' })
 export class CompareApi {
-  private readonly http = inject(HttpClient);
+  private readonly api = inject(Api);
 
   materialsResource() {
-    return httpResource(() => '/api/materials', {
-      parse: (body) => (body as { materials: MaterialChoice[] }).materials,
-      defaultValue: [] as MaterialChoice[],
-    });
+    return endpointResource(listMaterials, () => ({ query: {} }), { select: (answer): MaterialChoice[] => answer.materials, defaultValue: [] });
   }
 
   coresResource() {
@@ -42,14 +40,14 @@ export class CompareApi {
   }
 
   curves(request: CurvesRequest): Observable<CompareCurvesResponse> {
-    return this.http.post<CompareCurvesResponse>('/api/compare/curves', request, errorsShownByCaller());
+    return this.api.call(compareCurves, { body: request }, errorsShownByCaller());
   }
 
   design(request: DesignRequest): Observable<CompareDesignResponse> {
-    return this.http.post<CompareDesignResponse>('/api/compare/design', request, errorsShownByCaller());
+    return this.api.call(compareDesign, { body: request }, errorsShownByCaller());
   }
 
   savedDesign(designId: number, revision: number): Observable<CompareDesignResponse> {
-    return this.http.post<CompareDesignResponse>('/api/compare/saved-design', { designId, revision }, errorsShownByCaller());
+    return this.api.call(compareSavedDesign, { body: { designId, revision } }, errorsShownByCaller());
   }
 }

@@ -6,9 +6,32 @@ import { fieldLabelled, typeInto } from '../testing/form-fields';
 import { renderWithHttpTesting } from '../testing/render';
 import { MaterialCompare } from './material-compare';
 
+// Whole listed materials: the answer is parsed with the declared answer schema (invented figures).
+const LISTED = {
+  family: 'ferrite',
+  version: 1,
+  k: 1,
+  alpha: 1.5,
+  beta: 2.5,
+  fitFrequencyMin: 1e4,
+  fitFrequencyMax: 1e6,
+  fitFluxMin: 0.01,
+  fitFluxMax: 0.3,
+  bsat25: 0.5,
+  bsat100: 0.4,
+  permeability: 2000,
+  density: 4800,
+  lineage: 'sample',
+  retired: false,
+  unitSet: 'W/m3-Hz-T',
+  kUploaded: 1,
+  referenceTemperature: null,
+  provenance: 'invented',
+  createdAt: '2026-01-01T00:00:00.000Z',
+};
 const MATERIALS = [
-  { id: '1', name: 'Sample ferrite A', family: 'ferrite', version: 1 },
-  { id: '2', name: 'Sample ferrite B', family: 'ferrite', version: 1 },
+  { ...LISTED, id: '1', name: 'Sample ferrite A' },
+  { ...LISTED, id: '2', name: 'Sample ferrite B' },
 ];
 
 describe('MaterialCompare', () => {

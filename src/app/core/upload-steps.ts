@@ -1,4 +1,5 @@
 import { HttpEventType, type HttpClient, type HttpEvent } from '@angular/common/http';
+import { type AnswerOf, type Endpoint, endpointUrl } from '@shared/api/endpoint';
 import { filter, map, type Observable } from 'rxjs';
 
 import { errorsShownByCaller } from './error-display';
@@ -19,13 +20,19 @@ export function uploadSteps<T>(events: Observable<HttpEvent<T>>): Observable<Upl
   );
 }
 
-/**
- * POST one CSV file in the field "file" (and, for a commit, the per-name decisions as JSON in "decisions"),
- * reporting upload progress. The caller shows the errors (row and column problems belong beside the file).
- */
-export function uploadCsv<T>(http: HttpClient, url: string, file: File, decisions?: Record<string, string>): Observable<UploadStep<T>> {
+function csvForm(file: File, decisions?: Record<string, string>): FormData {
   const form = new FormData();
   if (decisions) form.append('decisions', JSON.stringify(decisions));
   form.append('file', file, file.name);
-  return uploadSteps(http.post<T>(url, form, { ...errorsShownByCaller(), reportProgress: true, observe: 'events' }));
+  return form;
+}
+
+/**
+ * POST one CSV file to a declared upload endpoint in the field "file" (and, for a commit, the per-name decisions
+ * as JSON in "decisions"), reporting upload progress; the answer is parsed with the endpoint's answer schema.
+ * The caller shows the errors (row and column problems belong beside the file).
+ */
+export function uploadToEndpoint<E extends Endpoint>(http: HttpClient, endpoint: E, file: File, decisions?: Record<string, string>): Observable<UploadStep<AnswerOf<E>>> {
+  const events = http.request(endpoint.method, endpointUrl(endpoint), { body: csvForm(file, decisions), ...errorsShownByCaller(), reportProgress: true, observe: 'events' });
+  return uploadSteps(events).pipe(map((step) => (step.kind === 'done' ? { kind: 'done', body: endpoint.answer.parse(step.body) as AnswerOf<E> } : step)));
 }

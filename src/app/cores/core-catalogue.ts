@@ -10,6 +10,7 @@ import { MatSelectModule } from '@angular/material/select';
 import { MatSort, MatSortModule } from '@angular/material/sort';
 import { MatTableDataSource, MatTableModule } from '@angular/material/table';
 import { formatIn, toDisplay } from '@shared/units/index';
+import { may } from '@shared/api/permissions';
 
 import { Notifier } from '../core/notifier';
 import { Session } from '../core/session';
@@ -62,8 +63,8 @@ export class CoreCatalogue {
   protected readonly families = computed(() => [...new Set(this.cores.value().map((c) => c.family))]);
   protected readonly columns = ['id', 'family', 'ae', 'le', 've', 'windowArea', 'areaProduct', 'origin', 'source', 'actions'];
   protected readonly historyColumns = ['version', 'ae', 'le', 've', 'windowArea', 'source', 'createdBy', 'createdAt'];
-  protected readonly mayRetire = computed(() => ['reviewer', 'admin'].includes(this.session.user()?.role ?? ''));
-  protected readonly mayEdit = computed(() => ['engineer', 'reviewer', 'admin'].includes(this.session.user()?.role ?? ''));
+  protected readonly mayRetire = computed(() => may(this.session.role(), 'curate'));
+  protected readonly mayEdit = computed(() => may(this.session.role(), 'upload'));
   /** The user core whose next version is being written in one of the forms above the table. */
   protected readonly editingCore = signal<CatalogueCore | null>(null);
   protected readonly editingRing = computed(() => (this.editingCore()?.ring ? this.editingCore() : null));

@@ -1,29 +1,25 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
-import type { ImportDecision, ImportPreview } from '@shared/schemas/core-csv';
+import type { AnswerOf } from '@shared/api/endpoint';
+import { commitCoreImport, createUserCore, editUserCore, listCores, previewCoreImport, retireUserCore, unretireUserCore, userCoreHistory } from '@shared/api/catalogue';
+import type { ImportDecision } from '@shared/schemas/core-csv';
 import type { ListedCore, UserCoreRequest } from '@shared/schemas/cores';
-import { listCores } from '@shared/api/catalogue';
 import { map, type Observable } from 'rxjs';
 
-import { endpointResource } from '../core/api';
+import { Api, endpointResource } from '../core/api';
 import { errorsShownByCaller } from '../core/error-display';
-import { uploadCsv, type UploadStep } from '../core/upload-steps';
+import { uploadToEndpoint, type UploadStep } from '../core/upload-steps';
 
 /** A core as the catalogue lists it (shared with the server's listing). */
 export type CatalogueCore = ListedCore;
 
 /** What an import of a core CSV file did. */
-export interface CoreImportResult {
-  fileName: string;
-  created: number;
-  versioned: number;
-  skipped: number;
-  coreIds: number[];
-}
+export type { CoreImportResult } from '@shared/schemas/cores';
 
 @Injectable({ providedIn: 'root' })
 export class CoresApi {
   private readonly http = inject(HttpClient);
+  private readonly api = inject(Api);
 
   listResource() {
     return endpointResource(listCores, () => ({}), { select: (answer) => answer.cores, defaultValue: [] });
@@ -31,30 +27,30 @@ export class CoresApi {
 
   /** Every version of a user core, newest first. */
   history(userCoreId: number): Observable<CatalogueCore[]> {
-    return this.http.get<{ versions: CatalogueCore[] }>(`/api/catalogue/cores/${userCoreId}/history`).pipe(map((body) => body.versions));
+    return this.api.call(userCoreHistory, { params: { id: String(userCoreId) } }).pipe(map((answer) => answer.versions));
   }
 
   /** Retired user cores leave new searches; designs that use them keep them. */
   setRetired(userCoreId: number, retired: boolean): Observable<CatalogueCore> {
-    return this.http.post<CatalogueCore>(`/api/catalogue/cores/${userCoreId}/${retired ? 'retire' : 'unretire'}`, {});
+    return this.api.call(retired ? retireUserCore : unretireUserCore, { params: { id: String(userCoreId) } });
   }
 
   /** A new version of a user core (its current version's id). */
   edit(userCoreId: number, request: UserCoreRequest): Observable<CatalogueCore> {
-    return this.http.put<CatalogueCore>(`/api/catalogue/cores/${userCoreId}`, request, errorsShownByCaller());
+    return this.api.call(editUserCore, { params: { id: String(userCoreId) }, body: request }, errorsShownByCaller());
   }
 
   create(request: UserCoreRequest): Observable<CatalogueCore> {
-    return this.http.post<CatalogueCore>('/api/catalogue/cores', request, errorsShownByCaller());
+    return this.api.call(createUserCore, { body: request }, errorsShownByCaller());
   }
 
   /** Every row of a core CSV file with its status and problems; nothing is written. */
-  previewImport(file: File): Observable<UploadStep<ImportPreview>> {
-    return uploadCsv<ImportPreview>(this.http, '/api/catalogue/cores/import/preview', file);
+  previewImport(file: File): Observable<UploadStep<AnswerOf<typeof previewCoreImport>>> {
+    return uploadToEndpoint(this.http, previewCoreImport, file);
   }
 
   /** All rows or none; `decisions` says what to do with each name that already exists. */
-  commitImport(file: File, decisions: Record<string, ImportDecision>): Observable<UploadStep<CoreImportResult>> {
-    return uploadCsv<CoreImportResult>(this.http, '/api/catalogue/cores/import/commit', file, decisions);
+  commitImport(file: File, decisions: Record<string, ImportDecision>): Observable<UploadStep<AnswerOf<typeof commitCoreImport>>> {
+    return uploadToEndpoint(this.http, commitCoreImport, file, decisions);
   }
 }

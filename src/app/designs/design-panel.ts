@@ -8,6 +8,7 @@ import { MatSelectModule } from '@angular/material/select';
 import { THERMAL_MODEL_LIMIT } from '@shared/engine/thermal';
 import type { Construction, DesignSpec } from '@shared/schemas/designs';
 import { axisIn } from '@shared/units/index';
+import type { EvaluateAnswer } from '@shared/schemas/calc-answers';
 import type { EChartsCoreOption } from 'echarts/core';
 import { NgxEchartsDirective } from 'ngx-echarts';
 import { Subject, catchError, debounceTime, map, of, switchMap, tap } from 'rxjs';
@@ -17,7 +18,7 @@ import { errorMessageOf } from '../core/api-error';
 import { QuantityPipe } from '../units/quantity';
 import { QuantityInput } from '../units/quantity-input';
 import { CoresApi } from '../cores/cores-api';
-import { DesignsApi, type EvaluateView, type MaterialView } from './designs-api';
+import { DesignsApi, type MaterialView } from './designs-api';
 import { percent, show, showUnit } from './format';
 
 type WireKind = 'awg' | 'metric' | 'litz';
@@ -36,10 +37,10 @@ export class DesignPanel {
   readonly spec = input<DesignSpec | null>(null);
   readonly construction = input<Construction | null>(null);
   /** Figures already computed for that construction (a picked candidate or the saved snapshot). */
-  readonly known = input<EvaluateView | null>(null);
+  readonly known = input<EvaluateAnswer | null>(null);
   readonly materials = input<MaterialView[]>([]);
   readonly editable = input(true);
-  readonly changed = output<{ construction: Construction; view: EvaluateView }>();
+  readonly changed = output<{ construction: Construction; view: EvaluateAnswer }>();
 
   protected readonly form = new FormGroup({
     coreId: new FormControl('', { nonNullable: true, validators: [Validators.required] }),
@@ -52,7 +53,7 @@ export class DesignPanel {
     strands: new FormControl<number | null>(1, { validators: [Validators.required, Validators.min(1), Validators.max(5000)] }),
   });
   protected readonly wireKind = signal<WireKind>('awg');
-  protected readonly view = signal<EvaluateView | null>(null);
+  protected readonly view = signal<EvaluateAnswer | null>(null);
   protected readonly evaluating = signal(false);
   protected readonly error = signal<string | null>(null);
   private readonly edits = new Subject<void>();
@@ -136,7 +137,7 @@ export class DesignPanel {
     this.edits.next();
   }
 
-  private load(construction: Construction | null, known: EvaluateView | null): void {
+  private load(construction: Construction | null, known: EvaluateAnswer | null): void {
     if (!construction) {
       this.view.set(null);
       return;

@@ -8,7 +8,8 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Router, RouterLink } from '@angular/router';
 import { may } from '@shared/api/permissions';
 import type { SearchCandidate } from '@shared/engine/index';
-import { EXPORT_KINDS, wireRequestOf, type Construction, type DesignDetail, type DesignSpec, type ExportKind, type StoredResult } from '@shared/schemas/designs';
+import { EXPORT_KINDS, wireRequestOf, type Construction, type DesignDetail, type DesignSpec, type ExportKind, storedEvaluation, storedWire } from '@shared/schemas/designs';
+import type { EvaluateAnswer } from '@shared/schemas/calc-answers';
 import { distinctUntilChanged, map, startWith } from 'rxjs';
 
 import { apiErrorOf, errorMessageOf } from '../core/api-error';
@@ -16,7 +17,7 @@ import { Notifier } from '../core/notifier';
 import { Session } from '../core/session';
 import { CandidatesPanel } from './candidates-panel';
 import { DesignPanel } from './design-panel';
-import { DesignsApi, type EvaluateView, type MaterialView } from './designs-api';
+import { DesignsApi, type MaterialView } from './designs-api';
 import { OperatingPointPanel } from './operating-point-panel';
 import { RevisionActions } from '../review/revision-actions';
 import { RevisionsPanel } from './revisions-panel';
@@ -69,8 +70,8 @@ export class DesignWorkspace {
   protected readonly saving = signal(false);
   protected readonly saveError = signal<string | null>(null);
   protected readonly construction = signal<Construction | null>(null);
-  protected readonly known = signal<EvaluateView | null>(null);
-  private readonly current = signal<{ construction: Construction; view: EvaluateView } | null>(null);
+  protected readonly known = signal<EvaluateAnswer | null>(null);
+  private readonly current = signal<{ construction: Construction; view: EvaluateAnswer } | null>(null);
   protected readonly exportKinds = EXPORT_KINDS;
   protected readonly exportLabels = EXPORT_LABELS;
 
@@ -144,9 +145,11 @@ export class DesignWorkspace {
     this.detail.set(detail);
     this.title.setValue(detail.title);
     this.specForm.patchValue(formFromSpec(detail.latest.spec));
-    const stored = detail.latest.result as StoredResult | null;
+    const result = storedEvaluation(detail.latest.result);
+    const wire = storedWire(detail.latest.result);
+    const stored = result && wire ? { engineVersion: detail.latest.engineVersion ?? '', wire, result } : null;
     const construction = detail.latest.construction;
-    this.known.set(stored ? ({ engineVersion: detail.latest.engineVersion ?? '', wire: stored.wire, result: stored.evaluation } as EvaluateView) : null);
+    this.known.set(stored);
     this.construction.set(construction);
     this.current.set(construction && stored ? { construction, view: this.known()! } : null);
   }
@@ -154,7 +157,7 @@ export class DesignWorkspace {
   protected pick(candidate: SearchCandidate): void {
     const r = candidate.result;
     const construction: Construction = { coreId: r.core.id, materialId: r.material.id, turns: r.turns, gap: r.gap.total, wire: wireRequestOf(candidate.wire) };
-    const view: EvaluateView = { engineVersion: '', wire: candidate.wire, result: r };
+    const view: EvaluateAnswer = { engineVersion: '', wire: candidate.wire, result: r };
     this.known.set(view);
     this.construction.set(construction);
     this.current.set({ construction, view });
@@ -162,7 +165,7 @@ export class DesignWorkspace {
     queueMicrotask(() => document.getElementById('gw-design-title')?.scrollIntoView({ behavior: 'smooth', block: 'start' }));
   }
 
-  protected edited(change: { construction: Construction; view: EvaluateView }): void {
+  protected edited(change: { construction: Construction; view: EvaluateAnswer }): void {
     this.current.set(change);
   }
 

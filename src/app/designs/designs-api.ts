@@ -1,9 +1,12 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
+import { evaluate, operatingPoint, search } from '@shared/api/calc';
 import { copyDesign, createDesign, diffRevisions, getDesign, listDesigns, newRevision, updateRevision } from '@shared/api/designs';
-import { exportRevision } from '@shared/api/exports';
 import { endpointUrl } from '@shared/api/endpoint';
-import type { EvaluationResult, SearchResult, WireOption, CoreMaterial } from '@shared/engine/index';
+import { exportRevision } from '@shared/api/exports';
+import { listMaterials } from '@shared/api/materials';
+import type { CoreMaterial, EvaluationResult, SearchResult, WireOption } from '@shared/engine/index';
+import type { EvaluateAnswer, OperatingPointAnswer, SearchAnswer } from '@shared/schemas/calc-answers';
 import type {
   Construction,
   DesignDetail,
@@ -27,28 +30,6 @@ export interface DesignListParams {
   dir: 'asc' | 'desc';
   page: number;
   pageSize: number;
-}
-
-export interface OperatingPointView {
-  dutyAtVinMin: number;
-  dutyAtVinMax: number;
-  inductance: number;
-  inductanceNominal: number;
-  ripplePeakToPeak: number;
-  rippleAtVinMin: number;
-  peakCurrent: number;
-  valleyCurrent: number;
-  rmsCurrent: number;
-  energy: number;
-  saturationCheckCurrent: number;
-  warnings: { code: string; severity: string; message: string }[];
-}
-
-export interface EvaluateView {
-  engineVersion: string;
-  wire: WireOption;
-  result: EvaluationResult;
-  lossVersusFrequency?: { frequency: number; copperDc: number; copperAc: number; core: number; total: number; rise: number }[];
 }
 
 export type MaterialView = CoreMaterial & { retired?: boolean };
@@ -87,31 +68,21 @@ export class DesignsApi {
   }
 
   materials(): Observable<MaterialView[]> {
-    return this.http.get<{ materials: MaterialView[] }>('/api/materials').pipe(map((body) => body.materials));
+    return this.api.call(listMaterials, { query: {} }).pipe(map((answer) => answer.materials));
   }
 
-  operatingPoint(spec: DesignSpec): Observable<OperatingPointView> {
-    return this.http.post<OperatingPointView>(
-      '/api/calc/operating-point',
-      { ...spec.converter, ...(spec.limits?.inductanceTolerance !== undefined ? { inductanceTolerance: spec.limits.inductanceTolerance } : {}) },
-      errorsShownByCaller(),
-    );
+  operatingPoint(spec: DesignSpec): Observable<OperatingPointAnswer> {
+    const tolerance = spec.limits?.inductanceTolerance;
+    return this.api.call(operatingPoint, { body: { ...spec.converter, ...(tolerance !== undefined ? { inductanceTolerance: tolerance } : {}) } }, errorsShownByCaller());
   }
 
-  search(spec: DesignSpec, materialIds: string[]): Observable<SearchResult> {
-    return this.http.post<SearchResult>(
-      '/api/calc/search',
-      { spec: spec.converter, limits: spec.limits, families: spec.families?.length ? spec.families : undefined, materialIds, limit: 50 },
-      errorsShownByCaller(),
-    );
+  search(spec: DesignSpec, materialIds: string[]): Observable<SearchAnswer> {
+    const families = spec.families?.length ? spec.families : undefined;
+    return this.api.call(search, { body: { spec: spec.converter, limits: spec.limits, families, materialIds, limit: 50 } }, errorsShownByCaller());
   }
 
-  evaluate(spec: DesignSpec, construction: Construction): Observable<EvaluateView> {
-    return this.http.post<EvaluateView>(
-      '/api/calc/evaluate?sweep=frequency',
-      { spec: spec.converter, limits: spec.limits, ...construction },
-      errorsShownByCaller(),
-    );
+  evaluate(spec: DesignSpec, construction: Construction): Observable<EvaluateAnswer> {
+    return this.api.call(evaluate, { query: { sweep: 'frequency' }, body: { spec: spec.converter, limits: spec.limits, ...construction } }, errorsShownByCaller());
   }
 
   exportUrl(id: number, revision: number, kind: ExportKind): string {

@@ -3,15 +3,16 @@ import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import type { DesignSpec } from '@shared/schemas/designs';
 import { axisFor } from '@shared/units/index';
+import type { OperatingPointAnswer } from '@shared/schemas/calc-answers';
 import type { EChartsCoreOption } from 'echarts/core';
 import { NgxEchartsDirective } from 'ngx-echarts';
 import { catchError, debounceTime, distinctUntilChanged, map, of, startWith, switchMap } from 'rxjs';
 
 import { errorMessageOf } from '../core/api-error';
-import { DesignsApi, type OperatingPointView } from './designs-api';
+import { DesignsApi } from './designs-api';
 import { percent, show } from './format';
 
-type OpState = { status: 'idle' } | { status: 'loading' } | { status: 'ok'; op: OperatingPointView } | { status: 'error'; message: string };
+type OpState = { status: 'idle' } | { status: 'loading' } | { status: 'ok'; op: OperatingPointAnswer } | { status: 'error'; message: string };
 
 /** The operating point beside the spec form: recalculated as the spec changes (debounced, latest wins). */
 @Component({
@@ -36,11 +37,11 @@ type OpState = { status: 'idle' } | { status: 'loading' } | { status: 'ok'; op: 
           <dt>Duty cycle</dt>
           <dd>{{ pct(op.dutyAtVinMax) }} … {{ pct(op.dutyAtVinMin) }}</dd>
           <dt>Inductance (minimum)</dt>
-          <dd data-figure="inductance">{{ fmt(op.inductance, 'inductance') }}</dd>
+          <dd data-figure="inductance">{{ fmt(op.inductanceMin, 'inductance') }}</dd>
           <dt>Nominal to build</dt>
           <dd>{{ fmt(op.inductanceNominal, 'inductance') }}</dd>
           <dt>Ripple at Vin max</dt>
-          <dd>{{ fmt(op.ripplePeakToPeak, 'current') }} p-p</dd>
+          <dd>{{ fmt(op.rippleAtVinMax, 'current') }} p-p</dd>
           <dt>Peak current</dt>
           <dd data-figure="peak">{{ fmt(op.peakCurrent, 'current') }}</dd>
           <dt>RMS current</dt>

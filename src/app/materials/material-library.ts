@@ -10,6 +10,7 @@ import { MatPaginator, MatPaginatorModule } from '@angular/material/paginator';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSort, MatSortModule } from '@angular/material/sort';
 import { MatTableDataSource, MatTableModule } from '@angular/material/table';
+import { may } from '@shared/api/permissions';
 
 import { Notifier } from '../core/notifier';
 import { Session } from '../core/session';
@@ -51,8 +52,8 @@ export class MaterialLibrary {
   protected readonly materials = this.api.listResource();
   protected readonly imports = this.api.importsResource();
   /** Uploading and editing both add versions. */
-  protected readonly mayAddVersions = computed(() => ['engineer', 'reviewer', 'admin'].includes(this.session.user()?.role ?? ''));
-  protected readonly mayRetire = computed(() => ['reviewer', 'admin'].includes(this.session.user()?.role ?? ''));
+  protected readonly mayAddVersions = computed(() => may(this.session.role(), 'upload'));
+  protected readonly mayRetire = computed(() => may(this.session.role(), 'curate'));
   protected readonly columns = computed(() => [
     'select', 'name', 'family', 'version', 'steinmetz', 'fit', 'provenance', 'createdBy', 'createdAt', 'state', 'actions',
   ]);

@@ -1,0 +1,116 @@
+// Answer schemas of the four calculation endpoints, tied to the engine's result types (`satisfies`), so the
+// engine, the server's answer, the OpenAPI document and the client's parse keep one shape and one set of names.
+import * as z from 'zod';
+import type { EngineIssue, EvaluationResult, LossAtFrequency, OperatingPoint, SearchResult, WireOption } from '@shared/engine/index';
+import { CORE_FAMILIES, MATERIAL_FAMILIES } from '@shared/engine/types';
+
+export const engineIssueSchema = z.object({ code: z.string(), severity: z.enum(['error', 'warning']), message: z.string() }) satisfies z.ZodType<EngineIssue>;
+
+export const operatingPointSchema = z.object({
+  frequency: z.number(),
+  vout: z.number(),
+  ioutMax: z.number(),
+  ioutMin: z.number(),
+  dutyAtVinMax: z.number(),
+  dutyAtVinMin: z.number(),
+  onVoltageAtVinMax: z.number(),
+  voltSeconds: z.number(),
+  inductanceMin: z.number().meta({ description: 'Required (minimum) inductance (H)' }),
+  inductanceNominal: z.number().meta({ description: 'Nominal inductance to build so the low-tolerance part still meets the minimum (H)' }),
+  rippleAtVinMax: z.number().meta({ description: 'Peak-to-peak ripple at Vin max with the minimum inductance (A)' }),
+  rippleAtVinMin: z.number(),
+  rippleRatio: z.number(),
+  peakCurrent: z.number(),
+  valleyCurrent: z.number(),
+  rmsCurrent: z.number(),
+  storedEnergy: z.number().meta({ description: '½·L·Ipk² with the minimum inductance (J)' }),
+  ccmBoundaryCurrent: z.number(),
+  saturationCheckCurrent: z.number(),
+  warnings: z.array(engineIssueSchema),
+}) satisfies z.ZodType<OperatingPoint>;
+
+/** The operating point as the engine gives it, plus the ripple harmonics (A, peak) and the engine version. */
+export const operatingPointAnswerSchema = operatingPointSchema.extend({
+  engineVersion: z.string(),
+  harmonics: z.array(z.object({ n: z.number().int(), amplitude: z.number() })),
+});
+export type OperatingPointAnswer = z.infer<typeof operatingPointAnswerSchema>;
+
+export const coreLossAnswerSchema = z.object({
+  steinmetz: z.number().meta({ description: 'Steinmetz density at peak B = ΔB/2 (W/m³)' }),
+  igse: z.number().meta({ description: 'iGSE density (W/m³)' }),
+});
+
+export const wireOptionSchema = z.object({
+  id: z.string(),
+  kind: z.enum(['awg', 'metric', 'litz']),
+  strandDiameter: z.number(),
+  strands: z.number(),
+  overallDiameter: z.number(),
+  conductorsPerTurn: z.number(),
+  grade: z.union([z.literal(1), z.literal(2)]).optional(),
+}) satisfies z.ZodType<WireOption>;
+
+const numbers = <K extends string>(...keys: K[]) => z.object(Object.fromEntries(keys.map((key) => [key, z.number()])) as Record<K, z.ZodNumber>);
+
+export const evaluationResultSchema = z.object({
+  feasible: z.boolean(),
+  issues: z.array(engineIssueSchema),
+  operatingPoint: operatingPointSchema,
+  core: numbers('ae', 'le', 've', 'windowArea', 'areaProductAvailable', 'areaProductRequired', 'geometryConstant').extend({
+    id: z.string(),
+    family: z.enum(CORE_FAMILIES),
+    gapKind: z.enum(['air-gap', 'distributed']),
+  }),
+  material: z.object({ id: z.string(), name: z.string(), family: z.enum(MATERIAL_FAMILIES) }),
+  wire: numbers('strandDiameter', 'strands', 'copperArea', 'currentDensity').extend({ id: z.string(), kind: z.enum(['awg', 'metric', 'litz']) }),
+  turns: z.number(),
+  gap: numbers('total', 'spacer', 'fringingFactor', 'relativeToCore'),
+  inductanceFactor: numbers('withoutFringing', 'withFringing'),
+  inductance: numbers('required', 'targetNominal', 'nominal', 'minimum', 'atLoad', 'atPeak', 'permeabilityAtPeak'),
+  flux: numbers('dc', 'acPeak', 'swing', 'peak', 'peakAtMinimumSection', 'checkCurrent', 'saturationAtHotSpot', 'saturationMargin', 'requiredMargin'),
+  winding: numbers('turnsPerLayer', 'layers', 'buildHeight', 'buildAvailable', 'copperFill', 'meanTurnLength', 'wireLength'),
+  copper: numbers('resistance20', 'resistanceHot', 'acFactor', 'skinDepth', 'penetrationRatio', 'dcLoss', 'acLoss'),
+  coreLoss: numbers('steinmetzDensity', 'igseDensity', 'temperatureFactor', 'loss'),
+  totalLoss: z.number(),
+  thermal: numbers('riseBySurface', 'riseByVolume', 'rise', 'surfaceTemperature', 'hotSpot', 'hotSpotAllowance', 'passes'),
+}) satisfies z.ZodType<EvaluationResult>;
+
+export const lossAtFrequencySchema = numbers('frequency', 'copperDc', 'copperAc', 'core', 'total', 'rise') satisfies z.ZodType<LossAtFrequency>;
+
+/** POST /calc/evaluate: the wire as evaluated, every figure, and the loss sweep when asked for. */
+export const evaluateAnswerSchema = z.object({
+  engineVersion: z.string(),
+  wire: wireOptionSchema,
+  result: evaluationResultSchema,
+  lossVersusFrequency: z.array(lossAtFrequencySchema).optional(),
+});
+export type EvaluateAnswer = z.infer<typeof evaluateAnswerSchema>;
+
+export const evaluateQuerySchema = z.object({
+  sweep: z.enum(['frequency']).optional().meta({ description: '"frequency" adds a loss-versus-frequency sweep' }),
+});
+
+const searchCandidateSchema = z.object({ rank: z.number(), pareto: z.boolean(), wire: wireOptionSchema, result: evaluationResultSchema });
+
+export const searchResultSchema = z.object({
+  rankBy: z.enum(['loss', 'volume', 'temperature']),
+  candidates: z.array(searchCandidateSchema),
+  paretoFront: z.array(searchCandidateSchema),
+  infeasible: z.array(
+    z.object({
+      coreId: z.string(),
+      materialId: z.string().optional(),
+      wireId: z.string().optional(),
+      turns: z.number().optional(),
+      totalLoss: z.number().optional(),
+      reasons: z.array(engineIssueSchema),
+    }),
+  ),
+  counts: numbers('cores', 'materials', 'wireOptions', 'evaluated', 'feasible', 'prefiltered', 'incompatible'),
+  requiredAreaProduct: z.number(),
+  wireOptionIds: z.array(z.string()),
+}) satisfies z.ZodType<SearchResult>;
+
+export const searchAnswerSchema = searchResultSchema.extend({ engineVersion: z.string() });
+export type SearchAnswer = z.infer<typeof searchAnswerSchema>;
