@@ -12,6 +12,8 @@ export default tseslint.config(
     files: ['**/*.ts', '**/*.js'],
     extends: [eslint.configs.recommended, ...tseslint.configs.recommended, ...tseslint.configs.stylistic],
     rules: {
+      // A no-op callback (a default listener, a control's change hook before Angular registers one) is deliberate.
+      '@typescript-eslint/no-empty-function': ['error', { allow: ['arrowFunctions'] }],
       '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_', caughtErrors: 'none' }],
     },
   },

@@ -8,8 +8,9 @@ const alias = {
 
 // The three vitest projects: pure unit tests (engine, catalogue, units), API tests against a
 // real PostgreSQL database, and browser tests driving Debian's Chromium. `npm test` runs
-// tests/run.ts, which runs five suites in turn — types (tsc), unit, component (Angular's
-// `ng test`), api and browser — preparing the database and browser for the last two.
+// tests/run.ts, which runs six suites in turn — types (tsc), lint (ESLint and Prettier), unit,
+// component (Angular's `ng test`), api (two shards side by side, a database each) and browser —
+// preparing the databases and the browser for the last two.
 export default defineConfig({
   resolve: { alias },
   test: {

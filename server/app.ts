@@ -81,7 +81,13 @@ export interface Services {
   outbox: OutboxService;
 }
 
-export function createServices({ config, pool, db, logger, mailTarget }: Pick<AppDeps, 'config' | 'pool' | 'db' | 'logger' | 'mailTarget'>): Services {
+export function createServices({
+  config,
+  pool,
+  db,
+  logger,
+  mailTarget,
+}: Pick<AppDeps, 'config' | 'pool' | 'db' | 'logger' | 'mailTarget'>): Services {
   const jobs = new JobQueue({ pool, schema: config.jobs.schema, pollSeconds: config.jobs.pollSeconds, logger });
   const audit = new AuditService(new AuditRepository(db));
   const users = new UsersService(new UsersRepository(db), audit, config.bcryptCost);

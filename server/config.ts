@@ -7,10 +7,16 @@ const envSchema = z.object({
   PORT: z.coerce.number().int().min(0).max(65535).default(4300),
   DATABASE_URL: z.url({ error: 'DATABASE_URL must be a postgres:// URL' }),
   SESSION_SECRET: z.string().min(32, { error: 'SESSION_SECRET must be at least 32 characters' }),
-  COOKIE_SECURE: z.enum(['true', 'false']).default('false').transform((v) => v === 'true'),
+  COOKIE_SECURE: z
+    .enum(['true', 'false'])
+    .default('false')
+    .transform((v) => v === 'true'),
   TRUST_PROXY: z.coerce.number().int().min(0).max(5).default(0),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
-  SEED_DEMO: z.enum(['true', 'false']).default('true').transform((v) => v === 'true'),
+  SEED_DEMO: z
+    .enum(['true', 'false'])
+    .default('true')
+    .transform((v) => v === 'true'),
   STATIC_DIR: z.string().default('dist/gapwright/browser'),
   SIGN_IN_LIMIT: z.coerce.number().int().min(1).default(10),
   SIGN_IN_WINDOW_MINUTES: z.coerce.number().int().min(1).default(15),
@@ -20,18 +26,26 @@ const envSchema = z.object({
   DB_CONNECT_TIMEOUT_MS: z.coerce.number().int().min(100).default(3000),
   SMTP_HOST: z.string().optional(),
   SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(587),
-  SMTP_SECURE: z.enum(['true', 'false']).default('false').transform((v) => v === 'true'),
+  SMTP_SECURE: z
+    .enum(['true', 'false'])
+    .default('false')
+    .transform((v) => v === 'true'),
   SMTP_USER: z.string().optional(),
   SMTP_PASSWORD: z.string().optional(),
   MAIL_FROM: z.string().default('Gapwright <gapwright@localhost>'),
   FAKE_SMTP_PORT: z.coerce.number().int().min(0).max(65535).default(2525),
-  JOBS_SCHEMA: z.string().regex(/^[a-z_][a-z0-9_]{0,40}$/, { error: 'JOBS_SCHEMA must be a lower-case PostgreSQL name' }).default('pgboss'),
+  JOBS_SCHEMA: z
+    .string()
+    .regex(/^[a-z_][a-z0-9_]{0,40}$/, { error: 'JOBS_SCHEMA must be a lower-case PostgreSQL name' })
+    .default('pgboss'),
   JOBS_POLL_SECONDS: z.coerce.number().min(0.5).default(2),
   MAIL_RETRY_DELAYS_MS: z
     .string()
     .default('2000,10000,60000,300000')
     .transform((v) => v.split(',').map((n) => Number(n.trim())))
-    .refine((list) => list.every((n) => Number.isFinite(n) && n >= 0), { error: 'MAIL_RETRY_DELAYS_MS must be comma-separated milliseconds' }),
+    .refine((list) => list.every((n) => Number.isFinite(n) && n >= 0), {
+      error: 'MAIL_RETRY_DELAYS_MS must be comma-separated milliseconds',
+    }),
 });
 
 export interface Config {
@@ -54,7 +68,16 @@ export interface Config {
   /** A real SMTP relay when host is set; otherwise the built-in fake on loopback (development and tests). */
   /** The background job queue (pg-boss): its schema and how often idle workers look for work. */
   jobs: { schema: string; pollSeconds: number };
-  smtp: { host?: string; port: number; secure: boolean; user?: string; password?: string; from: string; fakePort: number; retryDelaysMs: number[] };
+  smtp: {
+    host?: string;
+    port: number;
+    secure: boolean;
+    user?: string;
+    password?: string;
+    from: string;
+    fakePort: number;
+    retryDelaysMs: number[];
+  };
 }
 
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {

@@ -25,7 +25,14 @@ export async function startServer(config: Config): Promise<RunningServer> {
   // Without a real relay configured, release mails go to a local fake SMTP server (admin outbox).
   const fakeSmtp = config.smtp.host ? undefined : await startFakeSmtp(db, config.smtp.fakePort);
   const mailTarget = config.smtp.host
-    ? { host: config.smtp.host, port: config.smtp.port, secure: config.smtp.secure, user: config.smtp.user, password: config.smtp.password, from: config.smtp.from }
+    ? {
+        host: config.smtp.host,
+        port: config.smtp.port,
+        secure: config.smtp.secure,
+        user: config.smtp.user,
+        password: config.smtp.password,
+        from: config.smtp.from,
+      }
     : { host: '127.0.0.1', port: fakeSmtp!.port, secure: false, from: config.smtp.from };
   if (fakeSmtp) logger.info({ port: fakeSmtp.port }, 'local fake SMTP server is capturing mail for the admin outbox');
   const { app, start, close } = createApp({ config, pool, db, logger, mailTarget });

@@ -58,7 +58,15 @@ function countsFromVitestJson(file: string): Counts | undefined {
 async function vitestRun(project: string, env: NodeJS.ProcessEnv = {}, shard?: { index: number; count: number }): Promise<Counts> {
   const jsonFile = path.join(resultsDir, shard ? `${project}-${shard.index}.json` : `${project}.json`);
   rmSync(jsonFile, { force: true });
-  const args = [path.join(repoRoot, 'node_modules/vitest/vitest.mjs'), 'run', '--project', project, '--reporter=default', '--reporter=json', `--outputFile.json=${jsonFile}`];
+  const args = [
+    path.join(repoRoot, 'node_modules/vitest/vitest.mjs'),
+    'run',
+    '--project',
+    project,
+    '--reporter=default',
+    '--reporter=json',
+    `--outputFile.json=${jsonFile}`,
+  ];
   if (shard) args.push(`--shard=${shard.index}/${shard.count}`);
   const { code } = await run(process.execPath, args, env);
   const counts = countsFromVitestJson(jsonFile) ?? { passed: 0, failed: 1, skipped: 0 };
@@ -82,7 +90,11 @@ async function shardedApiTests(shardCount: number): Promise<void> {
     return vitestRun('api', { TEST_DATABASE_URL: db.url, TEST_RESULTS_DIR: resultsDir }, { index: i + 1, count: shardCount });
   });
   const counts = await Promise.all(shards);
-  totals['api'] = counts.reduce((a, c) => ({ passed: a.passed + c.passed, failed: a.failed + c.failed, skipped: a.skipped + c.skipped }), { passed: 0, failed: 0, skipped: 0 });
+  totals['api'] = counts.reduce((a, c) => ({ passed: a.passed + c.passed, failed: a.failed + c.failed, skipped: a.skipped + c.skipped }), {
+    passed: 0,
+    failed: 0,
+    skipped: 0,
+  });
 }
 const API_SHARDS = Math.max(1, Number(process.env['TEST_API_SHARDS'] ?? 2));
 
@@ -115,10 +127,15 @@ async function lintChecks(): Promise<void> {
 }
 
 async function componentTests(): Promise<void> {
-  const { code, output } = await run(process.execPath, [path.join(repoRoot, 'node_modules/@angular/cli/bin/ng.js'), 'test', '--watch=false'], {
-    NG_CLI_ANALYTICS: 'false',
-  });
+  const { code, output } = await run(
+    process.execPath,
+    [path.join(repoRoot, 'node_modules/@angular/cli/bin/ng.js'), 'test', '--watch=false'],
+    {
+      NG_CLI_ANALYTICS: 'false',
+    },
+  );
   // Strip colour codes, then read vitest's own summary line ("Tests  12 passed (12)").
+  // eslint-disable-next-line no-control-regex -- finding control characters is the point of this pattern
   const plain = output.replace(/\u001b\[[0-9;]*m/g, '');
   const line = plain.split('\n').find((l) => /^\s*Tests\s+/.test(l)) ?? '';
   const passed = Number(/(\d+) passed/.exec(line)?.[1] ?? 0);
@@ -193,11 +210,14 @@ try {
   }
 }
 
-const sum = Object.values(totals).reduce((a, c) => ({ passed: a.passed + c.passed, failed: a.failed + c.failed, skipped: a.skipped + c.skipped }), {
-  passed: 0,
-  failed: 0,
-  skipped: 0,
-});
+const sum = Object.values(totals).reduce(
+  (a, c) => ({ passed: a.passed + c.passed, failed: a.failed + c.failed, skipped: a.skipped + c.skipped }),
+  {
+    passed: 0,
+    failed: 0,
+    skipped: 0,
+  },
+);
 process.stdout.write('\n');
 for (const [suite, c] of Object.entries(totals)) {
   const took = seconds[suite] === undefined ? '' : ` (${seconds[suite].toFixed(0)} s)`;

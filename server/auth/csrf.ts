@@ -32,7 +32,8 @@ const sameText = (a: string, b: string) => {
 };
 
 /** Does this request carry a stored session (a sign-in or a synchroniser token)? Then its own token is required. */
-const sessionHoldsToken = (req: Request) => req.session?.csrfToken !== undefined || (req.session !== undefined && 'passport' in req.session);
+const sessionHoldsToken = (req: Request) =>
+  req.session?.csrfToken !== undefined || (req.session !== undefined && 'passport' in req.session);
 
 /**
  * CSRF protection for every write, in two forms:

@@ -39,7 +39,12 @@ export function signedSessionId(cookieHeader: string | undefined, cookie: RegExp
  * signature, an ended session, a disabled user, a lifetime passed, a renewal due) goes the full way, which ends,
  * renews or anonymises the session as before.
  */
-export function createSessionLayer(config: Config, pool: pg.Pool, full: RequestHandler, fullExtras: (req: Request) => SessionExtras | undefined) {
+export function createSessionLayer(
+  config: Config,
+  pool: pg.Pool,
+  full: RequestHandler,
+  fullExtras: (req: Request) => SessionExtras | undefined,
+) {
   const name = sessionCookieName(config);
   const cookie = new RegExp(`(?:^|;)\\s*${name.replace(/[.]/g, '\\.')}=([^;]*)`);
   const renewEvery = renewalInterval(config);
@@ -52,22 +57,27 @@ export function createSessionLayer(config: Config, pool: pg.Pool, full: RequestH
     now - sess.renewedAt < renewEvery;
 
   const middleware: RequestHandler = (req, res, next) => {
-    const sid = READS.has(req.method) && !req.path.startsWith('/auth/') ? signedSessionId(req.headers.cookie, cookie, config.sessionSecret) : undefined;
+    const sid =
+      READS.has(req.method) && !req.path.startsWith('/auth/')
+        ? signedSessionId(req.headers.cookie, cookie, config.sessionSecret)
+        : undefined;
     if (sid === undefined) {
       full(req, res, next);
       return;
     }
-    pool.query<SessionRow>({ name: 'session-with-user', text: SESSION_WITH_USER, values: [sid, nowInSeconds()] }).then(({ rows: [row] }) => {
-      if (!row || row.id === null || !current(row.sess, Date.now())) {
-        full(req, res, next);
-        return;
-      }
-      const extras = extrasOf(row);
-      req.user = extras.actor!;
-      req.sessionID = sid;
-      read.set(req, extras);
-      next();
-    }, next);
+    pool
+      .query<SessionRow>({ name: 'session-with-user', text: SESSION_WITH_USER, values: [sid, nowInSeconds()] })
+      .then(({ rows: [row] }) => {
+        if (!row || row.id === null || !current(row.sess, Date.now())) {
+          full(req, res, next);
+          return;
+        }
+        const extras = extrasOf(row);
+        req.user = extras.actor!;
+        req.sessionID = sid;
+        read.set(req, extras);
+        next();
+      }, next);
   };
 
   /** What was read with this request's session (either way), or undefined: an anonymous request. */

@@ -11,13 +11,7 @@ import {
   steinmetzLoss,
 } from '@shared/engine/index';
 import type { CoreMaterial } from '@shared/engine/types';
-import type {
-  CoreLossRequest,
-  EvaluateRequest,
-  InlineMaterial,
-  OperatingPointRequest,
-  SearchRequest,
-} from '@shared/schemas/calc';
+import type { CoreLossRequest, EvaluateRequest, InlineMaterial, OperatingPointRequest, SearchRequest } from '@shared/schemas/calc';
 import type { CatalogueService } from '../catalogue/catalogue.service.ts';
 import { badRequest } from '../http/errors.ts';
 import { toCoreMaterial } from '../materials/material-view.ts';
@@ -88,16 +82,17 @@ export class CalcService {
     const families = request.families ?? request.limits?.allowedFamilies;
     if (families?.length) cores = cores.filter((c) => families.includes(c.family));
     if (!cores.length) throw badRequest('No catalogue core matches the requested ids and families.', { coreIds: 'No matching core' });
-    const result = engineCall(() =>
-      searchCandidates({
-        spec: request.spec,
-        limits: request.limits,
-        cores,
-        materials,
-        wires: this.catalogue.standardWires(),
-        rankBy: request.rankBy,
-        limit: request.limit,
-      }),
+    const result = engineCall(
+      () =>
+        searchCandidates({
+          spec: request.spec,
+          limits: request.limits,
+          cores,
+          materials,
+          wires: this.catalogue.standardWires(),
+          rankBy: request.rankBy,
+          limit: request.limit,
+        }),
       'spec.',
     );
     return { engineVersion: ENGINE_VERSION, ...result };
@@ -119,9 +114,7 @@ export class CalcService {
       wire,
     };
     const result = engineCall(() => evaluateDesign(input), 'spec.');
-    const sweep = options.withFrequencySweep
-      ? lossVersusFrequency(input, frequencySweepAround(request.spec.frequency))
-      : undefined;
+    const sweep = options.withFrequencySweep ? lossVersusFrequency(input, frequencySweepAround(request.spec.frequency)) : undefined;
     return { engineVersion: ENGINE_VERSION, wire, result, ...(sweep ? { lossVersusFrequency: sweep } : {}) };
   }
 
@@ -129,7 +122,10 @@ export class CalcService {
   private async resolveMaterials(ids: string[], inline: InlineMaterial[], field = 'materialIds'): Promise<CoreMaterial[]> {
     const numeric = ids.map((raw, i) => {
       const id = Number(raw);
-      if (!Number.isInteger(id) || id < 1) throw badRequest(`Material id "${raw}" is not valid.`, { [ids.length > 1 || field === 'materialIds' ? `${field}.${i}` : field]: 'Not a material id' });
+      if (!Number.isInteger(id) || id < 1)
+        throw badRequest(`Material id "${raw}" is not valid.`, {
+          [ids.length > 1 || field === 'materialIds' ? `${field}.${i}` : field]: 'Not a material id',
+        });
       return id;
     });
     const rows = await this.materials.findByIds(numeric);

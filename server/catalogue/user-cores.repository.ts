@@ -58,7 +58,11 @@ export class UserCoresRepository {
   async supersede(tx: Tx, versionIds: number[]): Promise<void> {
     const ids = [...new Set(versionIds)];
     if (!ids.length) return;
-    const rows = await tx.update(userCores).set({ current: false }).where(and(inArray(userCores.id, ids), eq(userCores.current, true))).returning({ id: userCores.id });
+    const rows = await tx
+      .update(userCores)
+      .set({ current: false })
+      .where(and(inArray(userCores.id, ids), eq(userCores.current, true)))
+      .returning({ id: userCores.id });
     if (rows.length < ids.length) {
       const what = ids.length === 1 ? 'this core' : 'one of these cores';
       throw conflict(`Someone else saved a new version of ${what} at the same moment. Reload and make your change again.`);
@@ -71,7 +75,11 @@ export class UserCoresRepository {
   }
 
   async setRetired(id: number, retired: boolean, db: Tx | Db = this.db): Promise<UserCoreRow | undefined> {
-    const [row] = await db.update(userCores).set({ retired }).where(and(eq(userCores.id, id), eq(userCores.current, true))).returning();
+    const [row] = await db
+      .update(userCores)
+      .set({ retired })
+      .where(and(eq(userCores.id, id), eq(userCores.current, true)))
+      .returning();
     return row;
   }
 }

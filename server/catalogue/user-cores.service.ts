@@ -39,7 +39,13 @@ function listed(shape: CoreShape, origin: CoreOrigin, row?: UserCoreWithAuthor):
     areaProduct: shape.ae * shape.windowArea,
     origin,
     ...(row
-      ? { userCoreId: row.id, version: row.version, retired: row.retired, createdBy: row.createdByName, createdAt: row.createdAt.toISOString() }
+      ? {
+          userCoreId: row.id,
+          version: row.version,
+          retired: row.retired,
+          createdBy: row.createdByName,
+          createdAt: row.createdAt.toISOString(),
+        }
       : {}),
   };
 }
@@ -49,14 +55,25 @@ export function shapeFromRequest(request: UserCoreRequest): CoreShape {
   const { shape, error } = checkedUserCoreShape(request);
   if (error) {
     const fields = fieldErrorsFromZod(error);
-    throw badRequest(`The core is not consistent: ${Object.entries(fields).map(([k, v]) => `${k}: ${v}`).slice(0, 3).join('; ')}`, fields);
+    throw badRequest(
+      `The core is not consistent: ${Object.entries(fields)
+        .map(([k, v]) => `${k}: ${v}`)
+        .slice(0, 3)
+        .join('; ')}`,
+      fields,
+    );
   }
   return shape;
 }
 
 /** A user core file holds at most this many rows: every current core joins every search. */
 export const MAX_CORE_ROWS = 1_000;
-const CORE_TABLE: CsvTableFormat<CoreCsvColumn> = { columns: CORE_CSV_COLUMNS, required: REQUIRED_CORE_COLUMNS, noun: 'core', maxRows: MAX_CORE_ROWS };
+const CORE_TABLE: CsvTableFormat<CoreCsvColumn> = {
+  columns: CORE_CSV_COLUMNS,
+  required: REQUIRED_CORE_COLUMNS,
+  noun: 'core',
+  maxRows: MAX_CORE_ROWS,
+};
 
 /** A lineage of its own for a new core: its name, a time stamp, and a counter where two names give one slug. */
 function newLineage(name: string, stamp: string, taken: Set<string>): string {
@@ -106,10 +123,19 @@ export class UserCoresService {
   }
 
   private async assertNameFree(name: string, exceptLineage?: string) {
-    const shipped = sameName(this.catalogue.shippedCores().map((c) => ({ name: c.id })), name);
-    if (shipped) throw conflict(`"${name}" is the name of the shipped core "${shipped.name}"; choose another name.`, { name: 'Name of a shipped core' });
+    const shipped = sameName(
+      this.catalogue.shippedCores().map((c) => ({ name: c.id })),
+      name,
+    );
+    if (shipped)
+      throw conflict(`"${name}" is the name of the shipped core "${shipped.name}"; choose another name.`, {
+        name: 'Name of a shipped core',
+      });
     const clash = sameName(await this.repo.listCurrent(), name, (r) => r.lineage === exceptLineage);
-    if (clash) throw conflict(`A user core is already called "${clash.name}" (the same name as "${name}").`, { name: `Same name as "${clash.name}"` });
+    if (clash)
+      throw conflict(`A user core is already called "${clash.name}" (the same name as "${name}").`, {
+        name: `Same name as "${clash.name}"`,
+      });
   }
 
   async create(request: UserCoreRequest, actor: Actor) {
@@ -117,7 +143,15 @@ export class UserCoresService {
     await this.assertNameFree(request.name);
     const lineage = newLineage(request.name, Date.now().toString(36), new Set());
     const row = await this.repo.db.transaction(async (tx) => {
-      const added = await this.repo.addVersion(tx, { lineage, version: 1, name: request.name, family: shape.family, shape, createdBy: actor.id, retired: false });
+      const added = await this.repo.addVersion(tx, {
+        lineage,
+        version: 1,
+        name: request.name,
+        family: shape.family,
+        shape,
+        createdBy: actor.id,
+        retired: false,
+      });
       await this.audit.record({ actorId: actor.id, action: 'core.added', target: request.name, details: { id: added.id } }, tx);
       return added;
     });
@@ -134,10 +168,21 @@ export class UserCoresService {
     const row = await this.repo.db.transaction(async (tx) => {
       const added = await this.repo.addVersion(
         tx,
-        { lineage: previous.lineage, version: previous.version + 1, name: request.name, family: shape.family, shape, createdBy: actor.id, retired: previous.retired },
+        {
+          lineage: previous.lineage,
+          version: previous.version + 1,
+          name: request.name,
+          family: shape.family,
+          shape,
+          createdBy: actor.id,
+          retired: previous.retired,
+        },
         previous.id,
       );
-      await this.audit.record({ actorId: actor.id, action: 'core.edited', target: request.name, details: { id: added.id, version: added.version } }, tx);
+      await this.audit.record(
+        { actorId: actor.id, action: 'core.edited', target: request.name, details: { id: added.id, version: added.version } },
+        tx,
+      );
       return added;
     });
     await this.refresh();
@@ -148,7 +193,10 @@ export class UserCoresService {
     const row = await this.repo.db.transaction(async (tx) => {
       const changed = await this.repo.setRetired(id, retired, tx);
       if (!changed) throw notFound(`No current user core with id ${id}.`);
-      await this.audit.record({ actorId: actor.id, action: retired ? 'core.retired' : 'core.unretired', target: changed.name, details: { id } }, tx);
+      await this.audit.record(
+        { actorId: actor.id, action: retired ? 'core.retired' : 'core.unretired', target: changed.name, details: { id } },
+        tx,
+      );
       return changed;
     });
     await this.refresh();
@@ -213,7 +261,10 @@ export class UserCoresService {
       await this.repo.supersede(tx, superseded);
       const inserted = await this.repo.insertVersions(tx, toInsert);
       const created = toInsert.length - superseded.length;
-      await this.audit.record({ actorId: actor.id, action: 'cores.imported', target: fileName, details: { created, versioned: superseded.length, skipped } }, tx);
+      await this.audit.record(
+        { actorId: actor.id, action: 'cores.imported', target: fileName, details: { created, versioned: superseded.length, skipped } },
+        tx,
+      );
       return { created, versioned: superseded.length, skipped, coreIds: inserted.map((r) => r.id) };
     });
     await this.refresh();

@@ -121,13 +121,21 @@ export class CompareService {
       });
     }
     if (construction.turns === 'auto') {
-      throw conflict(`${label} has no resolved turn count; open it and save it once so the engine fixes the turns.`, { revision: 'Turns not resolved' });
+      throw conflict(`${label} has no resolved turn count; open it and save it once so the engine fixes the turns.`, {
+        revision: 'Turns not resolved',
+      });
     }
     const own = construction.materialId;
     const listed = request.materialIds?.length ? await this.rows(request.materialIds) : await this.materials.listCurrent();
     const rows = listed.some((r) => String(r.id) === own) ? listed : [...listed, ...(await this.rows([own]))];
     const result = await this.compareRows(
-      { spec: saved.spec.converter, limits: saved.spec.limits, coreId: construction.coreId, turns: construction.turns, wire: construction.wire },
+      {
+        spec: saved.spec.converter,
+        limits: saved.spec.limits,
+        coreId: construction.coreId,
+        turns: construction.turns,
+        wire: construction.wire,
+      },
       rows,
     );
     return {

@@ -16,22 +16,26 @@ import {
   varchar,
 } from 'drizzle-orm/pg-core';
 
-export const users = pgTable('users', {
-  id: serial('id').primaryKey(),
-  username: varchar('username', { length: 40 }).notNull().unique(),
-  displayName: varchar('display_name', { length: 80 }).notNull(),
-  email: varchar('email', { length: 200 }),
-  role: varchar('role', { length: 16, enum: ['engineer', 'reviewer', 'winder', 'admin'] }).notNull(),
-  passwordHash: text('password_hash').notNull(),
-  theme: varchar('theme', { length: 8, enum: ['light', 'dark'] }),
-  disabled: boolean('disabled').notNull().default(false),
-  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-  updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
-  lastSignInAt: timestamp('last_sign_in_at', { withTimezone: true }),
-}, (t) => [
-  check('users_role_check', sql`${t.role} in ('engineer', 'reviewer', 'winder', 'admin')`),
-  check('users_theme_check', sql`${t.theme} is null or ${t.theme} in ('light', 'dark')`),
-]);
+export const users = pgTable(
+  'users',
+  {
+    id: serial('id').primaryKey(),
+    username: varchar('username', { length: 40 }).notNull().unique(),
+    displayName: varchar('display_name', { length: 80 }).notNull(),
+    email: varchar('email', { length: 200 }),
+    role: varchar('role', { length: 16, enum: ['engineer', 'reviewer', 'winder', 'admin'] }).notNull(),
+    passwordHash: text('password_hash').notNull(),
+    theme: varchar('theme', { length: 8, enum: ['light', 'dark'] }),
+    disabled: boolean('disabled').notNull().default(false),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
+    lastSignInAt: timestamp('last_sign_in_at', { withTimezone: true }),
+  },
+  (t) => [
+    check('users_role_check', sql`${t.role} in ('engineer', 'reviewer', 'winder', 'admin')`),
+    check('users_theme_check', sql`${t.theme} is null or ${t.theme} in ('light', 'dark')`),
+  ],
+);
 
 export const auditLog = pgTable(
   'audit_log',
@@ -62,7 +66,9 @@ export const session = pgTable(
 export const appSettings = pgTable('app_settings', {
   key: varchar('key', { length: 60 }).primaryKey(),
   value: jsonb('value').notNull(),
-  updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().default(sql`now()`),
+  updatedAt: timestamp('updated_at', { withTimezone: true })
+    .notNull()
+    .default(sql`now()`),
 });
 
 /**
@@ -107,7 +113,9 @@ export const materials = pgTable(
   },
   (t) => [
     uniqueIndex('materials_lineage_version_idx').on(t.lineage, t.version),
-    uniqueIndex('materials_current_name_idx').on(sql`lower(${t.name})`).where(sql`${t.current}`),
+    uniqueIndex('materials_current_name_idx')
+      .on(sql`lower(${t.name})`)
+      .where(sql`${t.current}`),
     check('materials_alpha_check', sql`${t.alpha} > 0 and ${t.alpha} < 4`),
     check('materials_beta_check', sql`${t.beta} > 0 and ${t.beta} < 5`),
     check('materials_k_check', sql`${t.k} > 0`),
@@ -214,7 +222,9 @@ export const buildOrders = pgTable('build_orders', {
     .unique()
     .references(() => designRevisions.id),
   quantity: integer('quantity').notNull(),
-  status: varchar('status', { length: 12, enum: ['open', 'complete'] }).notNull().default('open'),
+  status: varchar('status', { length: 12, enum: ['open', 'complete'] })
+    .notNull()
+    .default('open'),
   sheet: jsonb('sheet').notNull(),
   createdBy: integer('created_by').references(() => users.id, { onDelete: 'set null' }),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
@@ -251,7 +261,9 @@ export const mailDeliveries = pgTable('mail_deliveries', {
   orderId: integer('order_id').references(() => buildOrders.id, { onDelete: 'cascade' }),
   recipient: varchar('recipient', { length: 200 }).notNull(),
   subject: varchar('subject', { length: 200 }).notNull(),
-  status: varchar('status', { length: 10, enum: ['pending', 'sent', 'failed'] }).notNull().default('pending'),
+  status: varchar('status', { length: 10, enum: ['pending', 'sent', 'failed'] })
+    .notNull()
+    .default('pending'),
   attempts: integer('attempts').notNull().default(0),
   lastError: text('last_error'),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),

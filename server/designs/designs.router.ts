@@ -1,5 +1,15 @@
 import { Router } from 'express';
-import { copyDesign, createDesign, diffRevisions, getDesign, getRevision, importDesign, listDesigns, newRevision, updateRevision } from '@shared/api/designs';
+import {
+  copyDesign,
+  createDesign,
+  diffRevisions,
+  getDesign,
+  getRevision,
+  importDesign,
+  listDesigns,
+  newRevision,
+  updateRevision,
+} from '@shared/api/designs';
 import { actorOf } from '../http/access.ts';
 import { mount } from '../http/endpoint.ts';
 import type { GenerationOf } from '../http/generation.ts';

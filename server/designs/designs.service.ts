@@ -29,7 +29,6 @@ import { diffObjects } from './flatten.ts';
 import { ownsAndDesigns, revisionAccess, type Caller } from './revision-access.ts';
 import type { DesignWithOwner, DesignsRepository, NewRevisionRow, RevisionRow } from './designs.repository.ts';
 
-
 export interface EvaluatedConstruction {
   construction: Construction;
   result: StoredResult;
@@ -40,7 +39,10 @@ export interface EvaluatedConstruction {
 export function converterSummary(spec: DesignSpec | undefined): string {
   const c = spec?.converter;
   if (!c) return '';
-  const vin = c.vinMin === c.vinMax ? formatQuantity(c.vinMin, 'voltage', 3) : `${formatQuantity(c.vinMin, 'voltage', 3).replace(/ .*$/, '')}–${formatQuantity(c.vinMax, 'voltage', 3)}`;
+  const vin =
+    c.vinMin === c.vinMax
+      ? formatQuantity(c.vinMin, 'voltage', 3)
+      : `${formatQuantity(c.vinMin, 'voltage', 3).replace(/ .*$/, '')}–${formatQuantity(c.vinMax, 'voltage', 3)}`;
   return `${vin} → ${formatQuantity(c.vout, 'voltage', 3)}, ${formatQuantity(c.ioutMax, 'current', 3)}, ${formatQuantity(c.frequency, 'frequency', 3)}`;
 }
 
@@ -60,7 +62,16 @@ export class DesignsService {
    */
   list(actor: Actor, query: DesignListQuery, generation?: string): Promise<DesignListResponse> {
     // Only "mine" depends on who asks; every signed-in user sees the same "all" pages.
-    const key = JSON.stringify([query.scope === 'mine' ? actor.id : 0, query.scope, query.q, query.status, query.sort, query.dir, query.page, query.pageSize]);
+    const key = JSON.stringify([
+      query.scope === 'mine' ? actor.id : 0,
+      query.scope,
+      query.q,
+      query.status,
+      query.sort,
+      query.dir,
+      query.page,
+      query.pageSize,
+    ]);
     return this.listed.get(key, generation, () => this.buildList(actor, query));
   }
 
@@ -90,7 +101,11 @@ export class DesignsService {
   }
 
   /** One revision; what the caller may do with it is stated when a caller is given. */
-  async revision(id: number, revision: number, actor: Caller | null = null): Promise<RevisionDetail & { design: { id: number; number: string; title: string } }> {
+  async revision(
+    id: number,
+    revision: number,
+    actor: Caller | null = null,
+  ): Promise<RevisionDetail & { design: { id: number; number: string; title: string } }> {
     const design = await this.mustFind(id);
     const row = await this.repo.revision(id, revision);
     if (!row) throw notFound(`Design ${design.number} has no revision ${revision}.`);
@@ -118,13 +133,22 @@ export class DesignsService {
     const construction = (from.construction as Construction | null) ?? undefined;
     return this.create(
       actor,
-      { title: request.title ?? `Copy of ${source.title}`.slice(0, 120), spec: from.spec as DesignSpec, construction, note: `Copied from ${source.number} revision ${from.revision}` },
+      {
+        title: request.title ?? `Copy of ${source.title}`.slice(0, 120),
+        spec: from.spec as DesignSpec,
+        construction,
+        note: `Copied from ${source.number} revision ${from.revision}`,
+      },
       'design.copied',
     );
   }
 
   importFile(actor: Actor, file: DesignFile): Promise<DesignDetail> {
-    return this.create(actor, { title: file.title, spec: file.spec, construction: file.construction ?? undefined, note: 'Imported from a design file' }, 'design.imported');
+    return this.create(
+      actor,
+      { title: file.title, spec: file.spec, construction: file.construction ?? undefined, note: 'Imported from a design file' },
+      'design.imported',
+    );
   }
 
   async update(actor: Actor, id: number, revision: number, request: UpdateRevisionRequest): Promise<RevisionDetail> {
@@ -133,7 +157,10 @@ export class DesignsService {
     this.mustOwn(actor, design);
     const row = await this.repo.revision(id, revision);
     if (!row) throw notFound(`Design ${design.number} has no revision ${revision}.`);
-    if (row.status !== 'draft') throw conflict(`Revision ${revision} of ${design.number} is ${row.status.replace('_', ' ')} and can no longer change; start a new revision.`);
+    if (row.status !== 'draft')
+      throw conflict(
+        `Revision ${revision} of ${design.number} is ${row.status.replace('_', ' ')} and can no longer change; start a new revision.`,
+      );
     const spec = request.spec ?? (row.spec as DesignSpec);
     const construction = request.construction === undefined ? (row.construction as Construction | null) : request.construction;
     const evaluated = construction ? await this.evaluate(spec, construction) : undefined;
@@ -149,7 +176,15 @@ export class DesignsService {
       });
       if (!changed) throw conflict(`Revision ${revision} of ${design.number} left the draft state while it was being saved.`);
       await this.repo.touchDesign(tx, id, request.title);
-      await this.audit.record({ actorId: actor.id, action: 'design.revision.updated', target: `${design.number} r${revision}`, details: { fields: Object.keys(request) } }, tx);
+      await this.audit.record(
+        {
+          actorId: actor.id,
+          action: 'design.revision.updated',
+          target: `${design.number} r${revision}`,
+          details: { fields: Object.keys(request) },
+        },
+        tx,
+      );
       return changed;
     });
     return revisionDetail(actor, design, updated);
@@ -165,7 +200,9 @@ export class DesignsService {
       const from = request.from ? revisions.find((r) => r.revision === request.from) : latest;
       if (!from) throw notFound(`Design ${design.number} has no revision ${request.from}.`);
       if (latest.status === 'draft') {
-        throw conflict(`Revision ${latest.revision} of ${design.number} is still a draft; change it instead of starting another.`, { from: 'The latest revision is a draft' });
+        throw conflict(`Revision ${latest.revision} of ${design.number} is still a draft; change it instead of starting another.`, {
+          from: 'The latest revision is a draft',
+        });
       }
       const revision = await this.repo.insertRevision(tx, {
         designId: id,
@@ -180,7 +217,10 @@ export class DesignsService {
         createdBy: actor.id,
       });
       await this.repo.touchDesign(tx, id);
-      await this.audit.record({ actorId: actor.id, action: 'design.revision.created', target: `${design.number} r${revision.revision}` }, tx);
+      await this.audit.record(
+        { actorId: actor.id, action: 'design.revision.created', target: `${design.number} r${revision.revision}` },
+        tx,
+      );
       return revision;
     });
     return revisionDetail(actor, design, created);
@@ -196,7 +236,9 @@ export class DesignsService {
       to,
       spec: diffObjects(a.spec, b.spec),
       construction: diffObjects(a.construction, b.construction),
-      result: diffObjects(storedEvaluation(a.result) ?? undefined, storedEvaluation(b.result) ?? undefined).filter((d) => !d.path.startsWith('issues')),
+      result: diffObjects(storedEvaluation(a.result) ?? undefined, storedEvaluation(b.result) ?? undefined).filter(
+        (d) => !d.path.startsWith('issues'),
+      ),
     };
   }
 
@@ -251,11 +293,13 @@ export class DesignsService {
   }
 
   private mustDesign(actor: Actor): void {
-    if (!may(actor.role, 'design')) throw forbidden(`Only engineers and reviewers create and edit designs; you are signed in as ${actor.role}.`);
+    if (!may(actor.role, 'design'))
+      throw forbidden(`Only engineers and reviewers create and edit designs; you are signed in as ${actor.role}.`);
   }
 
   private mustOwn(actor: Actor, design: DesignWithOwner): void {
-    if (design.ownerId !== actor.id) throw forbidden(`Design ${design.number} belongs to ${design.ownerName}; copy it to make changes of your own.`);
+    if (design.ownerId !== actor.id)
+      throw forbidden(`Design ${design.number} belongs to ${design.ownerName}; copy it to make changes of your own.`);
   }
 
   private detail(actor: Actor, design: DesignWithOwner, revisions: RevisionRow[]): DesignDetail {

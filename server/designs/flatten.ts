@@ -1,5 +1,5 @@
 /** Nested JSON as dotted paths to leaf values; arrays are compared whole (as JSON text). */
-export function flatten(value: unknown, prefix = '', out: Map<string, unknown> = new Map()): Map<string, unknown> {
+export function flatten(value: unknown, prefix = '', out = new Map<string, unknown>()): Map<string, unknown> {
   if (value !== null && typeof value === 'object' && !Array.isArray(value)) {
     for (const [key, child] of Object.entries(value as Record<string, unknown>)) {
       flatten(child, prefix ? `${prefix}.${key}` : key, out);

@@ -25,7 +25,11 @@ export const ownsAndDesigns = (caller: Caller | null, design: { ownerId: number 
  * design's owner nor the revision's author) approves a revision in review, releases an approved one, and
  * returns either to draft.
  */
-export function revisionAccess(caller: Caller | null, design: { ownerId: number }, revision: { status: DesignStatus; createdBy: number | null }): RevisionAccess {
+export function revisionAccess(
+  caller: Caller | null,
+  design: { ownerId: number },
+  revision: { status: DesignStatus; createdBy: number | null },
+): RevisionAccess {
   const owns = ownsAndDesigns(caller, design);
   const reviews = caller !== null && may(caller.role, 'review') && design.ownerId !== caller.id && revision.createdBy !== caller.id;
   const { status } = revision;

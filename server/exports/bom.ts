@@ -42,10 +42,28 @@ export function buildBom({ result, materialName }: BomInput): BomRow[] {
         : 'ungapped';
   rows.push({ item: 'Core set', description: `${result.core.id} in ${materialName}`, quantity: 1, unit: 'set', note: gapNote });
   if (!ring) {
-    rows.push({ item: 'Bobbin', description: `coil former for ${result.core.id}, ${result.winding.layers} layer(s) of ${result.winding.turnsPerLayer} turns`, quantity: 1, unit: 'pc', note: 'pin count and orientation to the board layout' });
-    rows.push({ item: 'Clips', description: `clamps or clips for ${result.core.id}`, quantity: 2, unit: 'pc', note: 'or glue the halves; keep the gap free of stress' });
+    rows.push({
+      item: 'Bobbin',
+      description: `coil former for ${result.core.id}, ${result.winding.layers} layer(s) of ${result.winding.turnsPerLayer} turns`,
+      quantity: 1,
+      unit: 'pc',
+      note: 'pin count and orientation to the board layout',
+    });
+    rows.push({
+      item: 'Clips',
+      description: `clamps or clips for ${result.core.id}`,
+      quantity: 2,
+      unit: 'pc',
+      note: 'or glue the halves; keep the gap free of stress',
+    });
   } else {
-    rows.push({ item: 'Edge insulation', description: 'coating or edge protection of the ring', quantity: 1, unit: 'pc', note: 'toroid: no bobbin' });
+    rows.push({
+      item: 'Edge insulation',
+      description: 'coating or edge protection of the ring',
+      quantity: 1,
+      unit: 'pc',
+      note: 'toroid: no bobbin',
+    });
   }
   const length = wireLengthWithLeads(result);
   const wireKind = result.wire.kind === 'litz' ? 'litz' : 'enamelled round copper wire (IEC 60317)';

@@ -27,7 +27,11 @@ export const CANDIDATE_COLUMNS = [
 
 const round = (x: number, digits: number) => Number(x.toFixed(digits));
 
-export function candidatesCsv(design: { number: string; title: string }, search: SearchResult, materialNames: ReadonlyMap<string, string>): string {
+export function candidatesCsv(
+  design: { number: string; title: string },
+  search: SearchResult,
+  materialNames: ReadonlyMap<string, string>,
+): string {
   const rows: (string | number | boolean)[][] = [];
   for (const c of search.candidates) {
     const r = c.result;
@@ -51,7 +55,10 @@ export function candidatesCsv(design: { number: string; title: string }, search:
       round(r.thermal.rise, 2),
       round(r.winding.copperFill, 4),
       round(r.flux.saturationMargin, 4),
-      r.issues.filter((i) => i.severity === 'warning').map((i) => i.message).join(' | '),
+      r.issues
+        .filter((i) => i.severity === 'warning')
+        .map((i) => i.message)
+        .join(' | '),
     ]);
   }
   for (const x of search.infeasible) {
@@ -78,7 +85,12 @@ export function candidatesCsv(design: { number: string; title: string }, search:
       x.reasons.map((i) => i.message).join(' | '),
     ]);
   }
-  return stringify(rows, { header: true, columns: [...CANDIDATE_COLUMNS], escape_formulas: true, cast: { boolean: (b) => (b ? 'yes' : 'no') } });
+  return stringify(rows, {
+    header: true,
+    columns: [...CANDIDATE_COLUMNS],
+    escape_formulas: true,
+    cast: { boolean: (b) => (b ? 'yes' : 'no') },
+  });
 }
 
 export function bomCsv(rows: readonly { item: string; description: string; quantity: number; unit: string; note: string }[]): string {

@@ -1,4 +1,4 @@
-import type { EvaluationResult, SearchResult } from '@shared/engine/index';
+import type { SearchResult } from '@shared/engine/index';
 import { DESIGN_FILE_FORMAT, storedEvaluation, type ExportKind } from '@shared/schemas/designs';
 import type { CalcService } from '../calc/calc.service.ts';
 import type { DesignsService } from '../designs/designs.service.ts';
@@ -36,7 +36,11 @@ export class ExportsService {
         construction: revision.construction,
         result: revision.result,
       };
-      return { fileName: `${base}.design.json`, contentType: 'application/json; charset=utf-8', body: `${JSON.stringify(file, null, 2)}\n` };
+      return {
+        fileName: `${base}.design.json`,
+        contentType: 'application/json; charset=utf-8',
+        body: `${JSON.stringify(file, null, 2)}\n`,
+      };
     }
     if (kind === 'candidates.csv') {
       const search = (await this.calc.search({
@@ -47,17 +51,31 @@ export class ExportsService {
         rankBy: 'loss',
         limit: 50,
       })) as SearchResult;
-      return { fileName: `${base}-candidates.csv`, contentType: 'text/csv; charset=utf-8', body: candidatesCsv(revision.design, search, await this.designs.materialNames()) };
+      return {
+        fileName: `${base}-candidates.csv`,
+        contentType: 'text/csv; charset=utf-8',
+        body: candidatesCsv(revision.design, search, await this.designs.materialNames()),
+      };
     }
     const evaluation = storedEvaluation(revision.result);
-    if (!evaluation) throw conflict(`Revision ${revision.revision} of ${revision.design.number} has no chosen construction yet; pick a candidate first.`);
+    if (!evaluation)
+      throw conflict(`Revision ${revision.revision} of ${revision.design.number} has no chosen construction yet; pick a candidate first.`);
     if (kind === 'bom.csv') {
       const names = await this.designs.materialNames();
       const materialName = names.get(String(revision.materialId)) ?? evaluation.material.name;
-      return { fileName: `${base}-bom.csv`, contentType: 'text/csv; charset=utf-8', body: bomCsv(buildBom({ result: evaluation, materialName })) };
+      return {
+        fileName: `${base}-bom.csv`,
+        contentType: 'text/csv; charset=utf-8',
+        body: bomCsv(buildBom({ result: evaluation, materialName })),
+      };
     }
     const body = buildSpiceSubcircuit(
-      { designNumber: revision.design.number, title: revision.design.title, revision: revision.revision, engineVersion: revision.engineVersion ?? 'unknown' },
+      {
+        designNumber: revision.design.number,
+        title: revision.design.title,
+        revision: revision.revision,
+        engineVersion: revision.engineVersion ?? 'unknown',
+      },
       evaluation,
     );
     return { fileName: `${base}.lib`, contentType: 'text/plain; charset=utf-8', body };

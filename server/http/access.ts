@@ -13,7 +13,8 @@ export interface Actor {
 declare global {
   // eslint-disable-next-line @typescript-eslint/no-namespace
   namespace Express {
-    // passport's req.user
+    // passport's req.user: declaration merging needs an interface
+    // eslint-disable-next-line @typescript-eslint/no-empty-object-type
     interface User extends Actor {}
   }
 }

@@ -92,17 +92,25 @@ export function parseCsvTable<C extends string>(text: string, format: CsvTableFo
   const header = headerRecord?.record;
   if (!header) throw fileProblem('The file is empty.');
   if (data.length > maxRows) {
-    throw fileProblem(`The file has more than ${maxRows} ${noun} rows (the limit is ${maxRows} per file); nothing was imported. Split it into smaller files.`);
+    throw fileProblem(
+      `The file has more than ${maxRows} ${noun} rows (the limit is ${maxRows} per file); nothing was imported. Split it into smaller files.`,
+    );
   }
   const columns = header.map((c) => c.trim().toLowerCase());
   const headerFields: Record<string, string> = {};
   columns.forEach((c, i) => {
-    if (!(format.columns as readonly string[]).includes(c)) headerFields[`header.${c || `column ${i + 1}`}`] = `Unknown column "${c.slice(0, 40)}"`;
+    if (!(format.columns as readonly string[]).includes(c))
+      headerFields[`header.${c || `column ${i + 1}`}`] = `Unknown column "${c.slice(0, 40)}"`;
     else if (columns.indexOf(c) !== i) headerFields[`header.${c}`] = `Column "${c}" appears twice`;
   });
   for (const c of format.required) if (!columns.includes(c)) headerFields[`header.${c}`] = `Missing column "${c}"`;
   if (Object.keys(headerFields).length) {
-    throw new AppError(400, 'invalid_input', `The header row does not match the template: ${Object.values(headerFields).slice(0, 4).join('; ')}.`, headerFields);
+    throw new AppError(
+      400,
+      'invalid_input',
+      `The header row does not match the template: ${Object.values(headerFields).slice(0, 4).join('; ')}.`,
+      headerFields,
+    );
   }
   if (!data.length) throw fileProblem(`The file has a header row but no ${noun} rows.`, { file: `No ${noun} rows` });
 
@@ -145,7 +153,9 @@ export function analyseRecords<C extends string, V, E>(
   const analysis: RowAnalysis<V, E> = { rows: [], valid: [] };
   for (const record of records) {
     const { values, problems } = validate(record.cells);
-    const allProblems: CellProblem[] = record.shapeProblem ? [{ column: '(row)', message: `Row ${record.shapeProblem}` }, ...problems] : [...problems];
+    const allProblems: CellProblem[] = record.shapeProblem
+      ? [{ column: '(row)', message: `Row ${record.shapeProblem}` }, ...problems]
+      : [...problems];
     const name = ((record.cells as Partial<Record<string, string>>)['name'] ?? '').trim();
     const key = name.toLowerCase();
     if (key) {
@@ -179,12 +189,23 @@ export function rowErrors(rows: PreviewRow[]): AppError {
   const fields: Record<string, string> = {};
   for (const row of rows) for (const p of row.problems) fields[`row ${row.row}.${p.column}`] ??= p.message;
   const count = rows.filter((r) => r.problems.length).length;
-  const first = Object.entries(fields).slice(0, 3).map(([k, v]) => `${k}: ${v}`).join('; ');
-  return new AppError(400, 'invalid_rows', `${count} row${count === 1 ? '' : 's'} cannot be imported; nothing was written. ${first}`, fields);
+  const first = Object.entries(fields)
+    .slice(0, 3)
+    .map(([k, v]) => `${k}: ${v}`)
+    .join('; ');
+  return new AppError(
+    400,
+    'invalid_rows',
+    `${count} row${count === 1 ? '' : 's'} cannot be imported; nothing was written. ${first}`,
+    fields,
+  );
 }
 
 /** Existing names without a decision: the commit is refused until each has "new-version" or "skip". */
-export function undecidedNames<V extends { name: string }, E>(valid: RowAnalysis<V, E>['valid'], decided: (lowerName: string) => boolean): AppError | undefined {
+export function undecidedNames<V extends { name: string }, E>(
+  valid: RowAnalysis<V, E>['valid'],
+  decided: (lowerName: string) => boolean,
+): AppError | undefined {
   const undecided: Record<string, string> = {};
   for (const v of valid) {
     if (v.existing && !decided(v.values.name.toLowerCase())) {

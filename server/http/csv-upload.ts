@@ -25,9 +25,14 @@ export function singleCsvUpload(): RequestHandler {
     upload(req, res, (error: unknown) => {
       if (!error) return next(unsafeUpload(req) ?? undefined);
       const code = (error as { code?: string }).code;
-      if (code === 'LIMIT_FILE_SIZE') return next(new AppError(413, 'payload_too_large', `The file is larger than ${uploadLimit}.`, { file: `Larger than ${uploadLimit}` }));
-      if (code === 'LIMIT_FILE_COUNT' || code === 'LIMIT_UNEXPECTED_FILE') return next(badRequest('Send one CSV file in the field "file".', { file: 'One file only, in the field "file"' }));
-      if (typeof code === 'string' && code.startsWith('LIMIT_')) return next(badRequest('The upload has too many or too large form fields.', { file: 'Malformed upload' }));
+      if (code === 'LIMIT_FILE_SIZE')
+        return next(
+          new AppError(413, 'payload_too_large', `The file is larger than ${uploadLimit}.`, { file: `Larger than ${uploadLimit}` }),
+        );
+      if (code === 'LIMIT_FILE_COUNT' || code === 'LIMIT_UNEXPECTED_FILE')
+        return next(badRequest('Send one CSV file in the field "file".', { file: 'One file only, in the field "file"' }));
+      if (typeof code === 'string' && code.startsWith('LIMIT_'))
+        return next(badRequest('The upload has too many or too large form fields.', { file: 'Malformed upload' }));
       next(badRequest('The upload is not a well-formed multipart form.', { file: 'Malformed upload' }));
     });
   };
@@ -36,7 +41,8 @@ export function singleCsvUpload(): RequestHandler {
 /** The form fields and the file's name hold only text the database can store (they reach the import log). */
 function unsafeUpload(req: Request): AppError | null {
   const file = (req as { file?: UploadedFile }).file;
-  if (file && !isStorableText(file.originalname)) return badRequest(`The file name: ${UNSTORABLE_TEXT_MESSAGE.toLowerCase()}.`, { file: UNSTORABLE_TEXT_MESSAGE });
+  if (file && !isStorableText(file.originalname))
+    return badRequest(`The file name: ${UNSTORABLE_TEXT_MESSAGE.toLowerCase()}.`, { file: UNSTORABLE_TEXT_MESSAGE });
   return findUnsafeInput(req.body);
 }
 

@@ -45,9 +45,15 @@ const UNIQUE_CLASHES: Record<string, (value: string) => { message: string; field
     message: `Another material is already called "${value}" (saved at the same moment).`,
     fields: { name: 'Name already used' },
   }),
-  materials_lineage_version_idx: () => ({ message: 'Someone else saved a new version of this material at the same moment. Reload it and make your change again.' }),
-  user_cores_lineage_version_idx: () => ({ message: 'Someone else saved a new version of this core at the same moment. Reload it and make your change again.' }),
-  design_revisions_design_revision_idx: () => ({ message: 'Someone else started a new revision of this design at the same moment. Reload the design.' }),
+  materials_lineage_version_idx: () => ({
+    message: 'Someone else saved a new version of this material at the same moment. Reload it and make your change again.',
+  }),
+  user_cores_lineage_version_idx: () => ({
+    message: 'Someone else saved a new version of this core at the same moment. Reload it and make your change again.',
+  }),
+  design_revisions_design_revision_idx: () => ({
+    message: 'Someone else started a new revision of this design at the same moment. Reload the design.',
+  }),
   build_orders_revision_id_unique: () => ({ message: 'This revision has already been released to the winding shop.' }),
 };
 

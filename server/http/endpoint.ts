@@ -13,7 +13,9 @@ export interface HandlerContext<E extends Endpoint> extends ParsedInput<E> {
  * What a handler gives back: the answer (sent as JSON with the declared status), or nothing when it wrote
  * the response itself (files). A handler may set another status first (`res.status(503)`).
  */
-export type EndpointHandler<E extends Endpoint> = (context: HandlerContext<E>) => Promise<AnswerInputOf<E> | void> | AnswerInputOf<E> | void;
+export type EndpointHandler<E extends Endpoint> = (
+  context: HandlerContext<E>,
+) => Promise<AnswerInputOf<E> | void> | AnswerInputOf<E> | void;
 
 /** The role check an endpoint's permission asks for; refusals go to the error middleware, which audits them. */
 export function accessCheck(endpoint: Endpoint): RequestHandler[] {

@@ -7,12 +7,20 @@ import { remove } from 'confusables';
  * key are the same name.
  */
 export function nameKey(name: string): string {
-  const visible = name.normalize('NFKC').replace(/\p{Default_Ignorable_Code_Point}/gu, '').replace(/\s+/gu, ' ').trim();
+  const visible = name
+    .normalize('NFKC')
+    .replace(/\p{Default_Ignorable_Code_Point}/gu, '')
+    .replace(/\s+/gu, ' ')
+    .trim();
   return remove(visible).toLowerCase();
 }
 
 /** The first of `rows` whose name is the same name as `name`, by `nameKey`. */
-export function sameName<T extends { name: string }>(rows: Iterable<T>, name: string, except: (row: T) => boolean = () => false): T | undefined {
+export function sameName<T extends { name: string }>(
+  rows: Iterable<T>,
+  name: string,
+  except: (row: T) => boolean = () => false,
+): T | undefined {
   const key = nameKey(name);
   for (const row of rows) if (!except(row) && nameKey(row.name) === key) return row;
   return undefined;

@@ -61,9 +61,13 @@ export class JobQueue {
     await this.boss.start();
     for (const [name, { retry, handler }] of this.kinds) {
       await this.boss.createQueue(name, { name, retryLimit: retry.retries, retryDelay: retry.delaySeconds, retryBackoff: retry.backoff });
-      await this.boss.work<object>(name, { includeMetadata: true, batchSize: 1, pollingIntervalSeconds: this.options.pollSeconds }, async ([job]) => {
-        await handler({ data: job.data as never, attempt: job.retryCount + 1, lastAttempt: job.retryCount >= job.retryLimit });
-      });
+      await this.boss.work<object>(
+        name,
+        { includeMetadata: true, batchSize: 1, pollingIntervalSeconds: this.options.pollSeconds },
+        async ([job]) => {
+          await handler({ data: job.data as never, attempt: job.retryCount + 1, lastAttempt: job.retryCount >= job.retryLimit });
+        },
+      );
     }
   }
 

@@ -64,7 +64,9 @@ export class MailDeliveryService {
       .insert(mailDeliveries)
       .values({ orderId: delivery.orderId, recipient: delivery.to, subject: delivery.subject })
       .returning({ id: mailDeliveries.id });
-    await this.jobs.sendInTransaction(tx, `mail.${kind}`, { deliveryId: row.id, ref: delivery.ref } satisfies MailJob, { singletonKey: `delivery:${row.id}` });
+    await this.jobs.sendInTransaction(tx, `mail.${kind}`, { deliveryId: row.id, ref: delivery.ref } satisfies MailJob, {
+      singletonKey: `delivery:${row.id}`,
+    });
     return row.id;
   }
 
@@ -80,7 +82,11 @@ export class MailDeliveryService {
       this.logger.warn({ delivery: id, attempt, err: message }, 'mail delivery failed');
       await this.db
         .update(mailDeliveries)
-        .set({ attempts: sql`${mailDeliveries.attempts} + 1`, lastError: message.slice(0, 500), ...(lastAttempt ? { status: 'failed' as const } : {}) })
+        .set({
+          attempts: sql`${mailDeliveries.attempts} + 1`,
+          lastError: message.slice(0, 500),
+          ...(lastAttempt ? { status: 'failed' as const } : {}),
+        })
         .where(eq(mailDeliveries.id, id));
       throw err; // the queue retries it (or records it failed after the last attempt)
     }

@@ -21,7 +21,12 @@ export class OutboxService {
           to: row.envelopeTo,
           subject: parsed.subject ?? '(no subject)',
           text: parsed.text ?? '',
-          attachments: parsed.attachments.map((a, i) => ({ index: i + 1, fileName: a.filename ?? `attachment-${i + 1}`, contentType: a.contentType, size: a.size })),
+          attachments: parsed.attachments.map((a, i) => ({
+            index: i + 1,
+            fileName: a.filename ?? `attachment-${i + 1}`,
+            contentType: a.contentType,
+            size: a.size,
+          })),
         };
       }),
     );

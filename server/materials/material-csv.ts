@@ -1,8 +1,4 @@
-import {
-  MATERIAL_CSV_COLUMNS,
-  REQUIRED_MATERIAL_COLUMNS,
-  type MaterialCsvColumn,
-} from '@shared/schemas/materials';
+import { MATERIAL_CSV_COLUMNS, REQUIRED_MATERIAL_COLUMNS, type MaterialCsvColumn } from '@shared/schemas/materials';
 import { parseCsvTable, stringifyCsvTable, type CsvRecord } from '../http/csv-table.ts';
 
 // The unit tests of the material format read uploads through this module.
@@ -12,7 +8,12 @@ export const MAX_MATERIAL_ROWS = 10_000;
 
 /** Header, delimiter and size checks, then one record per data row with its row number. */
 export function parseMaterialCsv(text: string): CsvRecord<MaterialCsvColumn>[] {
-  return parseCsvTable(text, { columns: MATERIAL_CSV_COLUMNS, required: REQUIRED_MATERIAL_COLUMNS, noun: 'material', maxRows: MAX_MATERIAL_ROWS });
+  return parseCsvTable(text, {
+    columns: MATERIAL_CSV_COLUMNS,
+    required: REQUIRED_MATERIAL_COLUMNS,
+    noun: 'material',
+    maxRows: MAX_MATERIAL_ROWS,
+  });
 }
 
 /** CSV text of rows in template column order; formula-like cells are escaped for spreadsheets. */

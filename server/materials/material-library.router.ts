@@ -29,7 +29,9 @@ export function materialLibraryRouter(service: MaterialsService): Router {
   });
   mount(router, materialImports, async () => ({ imports: await service.imports() }));
   mount(router, previewMaterialImport, ({ req }) => service.preview(uploadedFile(req)), [singleCsvUpload()]);
-  mount(router, commitMaterialImport, ({ req }) => service.commit(uploadedFile(req), decisionsField(req), actorOf(req)), [singleCsvUpload()]);
+  mount(router, commitMaterialImport, ({ req }) => service.commit(uploadedFile(req), decisionsField(req), actorOf(req)), [
+    singleCsvUpload(),
+  ]);
   mount(router, materialHistory, async ({ params }) => ({ versions: await service.history(params.id) }));
   mount(router, editMaterial, ({ params, body, req }) => service.edit(params.id, body, actorOf(req)));
   mount(router, retireMaterial, ({ params, req }) => service.setRetired(params.id, true, actorOf(req)));

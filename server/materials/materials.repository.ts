@@ -9,7 +9,13 @@ export type MaterialImportRow = typeof materialImports.$inferSelect;
 /** A transaction handle or the database itself. */
 export type Tx = Parameters<Parameters<Db['transaction']>[0]>[0] | Db;
 
-export type NewMaterialVersion = MaterialValues & { lineage: string; version: number; retired?: boolean; importId: number | null; createdBy: number | null };
+export type NewMaterialVersion = MaterialValues & {
+  lineage: string;
+  version: number;
+  retired?: boolean;
+  importId: number | null;
+  createdBy: number | null;
+};
 
 export interface MaterialWithAuthor extends MaterialRow {
   createdByName: string | null;
@@ -23,7 +29,8 @@ export class MaterialsRepository {
   private readonly currentWithRetired;
 
   constructor(readonly db: Db) {
-    const current = (where: SQL | undefined, name: string) => db.select().from(materials).where(where).orderBy(asc(materials.name)).prepare(name);
+    const current = (where: SQL | undefined, name: string) =>
+      db.select().from(materials).where(where).orderBy(asc(materials.name)).prepare(name);
     this.currentInUse = current(and(eq(materials.current, true), eq(materials.retired, false)), 'materials_current');
     this.currentWithRetired = current(eq(materials.current, true), 'materials_current_with_retired');
   }
@@ -84,7 +91,13 @@ export class MaterialsRepository {
     let retired = 0;
     for (let i = 0; i < ids.length; i += UPDATE_CHUNK) {
       const chunk = ids.slice(i, i + UPDATE_CHUNK);
-      retired += (await tx.update(materials).set({ current: false }).where(and(inArray(materials.id, chunk), eq(materials.current, true))).returning({ id: materials.id })).length;
+      retired += (
+        await tx
+          .update(materials)
+          .set({ current: false })
+          .where(and(inArray(materials.id, chunk), eq(materials.current, true)))
+          .returning({ id: materials.id })
+      ).length;
     }
     if (retired < ids.length) {
       const what = ids.length === 1 ? 'this material' : 'one of these materials';
@@ -119,7 +132,11 @@ export class MaterialsRepository {
   }
 
   async setRetired(id: number, retired: boolean, db: Tx | Db = this.db): Promise<MaterialRow | undefined> {
-    const [row] = await db.update(materials).set({ retired }).where(and(eq(materials.id, id), eq(materials.current, true))).returning();
+    const [row] = await db
+      .update(materials)
+      .set({ retired })
+      .where(and(eq(materials.id, id), eq(materials.current, true)))
+      .returning();
     return row;
   }
 

@@ -1,4 +1,4 @@
-import { Router, type Request } from 'express';
+import { Router } from 'express';
 import type { GenerationOf } from '../http/generation.ts';
 import { GenerationCache } from '../http/generation-cache.ts';
 import { listMaterials } from '@shared/api/materials';

@@ -10,14 +10,7 @@ import {
 } from '@shared/schemas/materials';
 import type { AuditService } from '../audit/audit.service.ts';
 import type { Actor } from '../http/access.ts';
-import {
-  analyseRecords,
-  decodeCsvText,
-  rowErrors,
-  summarisePreview,
-  undecidedNames,
-  type RowAnalysis,
-} from '../http/csv-table.ts';
+import { analyseRecords, decodeCsvText, rowErrors, summarisePreview, undecidedNames, type RowAnalysis } from '../http/csv-table.ts';
 import type { UploadedFile } from '../http/csv-upload.ts';
 import { badRequest, conflict, notFound } from '../http/errors.ts';
 import { nameKey, sameName } from '../http/name-key.ts';
@@ -30,7 +23,13 @@ import type { MaterialRow, MaterialsRepository, MaterialWithAuthor, Tx } from '.
 type Analysis = RowAnalysis<MaterialValues, MaterialRow>;
 
 export function lineageSlug(name: string): string {
-  return name.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '').slice(0, 70) || 'material';
+  return (
+    name
+      .toLowerCase()
+      .replace(/[^a-z0-9]+/g, '-')
+      .replace(/^-|-$/g, '')
+      .slice(0, 70) || 'material'
+  );
 }
 
 function uniqueLineage(name: string, taken: Set<string>): string {
@@ -169,7 +168,8 @@ export class MaterialsService {
       const existing = await this.repo.currentByLowerName(tx);
       const row = [...existing.values()].find((r) => r.id === id);
       if (!row) {
-        if (await this.repo.findById(id)) throw conflict('Only the current version of a material can be edited.', { id: 'Not the current version' });
+        if (await this.repo.findById(id))
+          throw conflict('Only the current version of a material can be edited.', { id: 'Not the current version' });
         throw notFound(`No material with id ${id}.`);
       }
       const cells: Record<string, string> = { ...materialCellsFromValues(valuesOf(row)) };
@@ -177,19 +177,31 @@ export class MaterialsService {
       const { values, problems } = validateMaterialCells(cells);
       if (!values) {
         const fields = Object.fromEntries(problems.map((p) => [p.column, p.message]));
-        throw badRequest(`The edit is not valid: ${problems.map((p) => p.message).slice(0, 3).join('; ')}`, fields);
+        throw badRequest(
+          `The edit is not valid: ${problems
+            .map((p) => p.message)
+            .slice(0, 3)
+            .join('; ')}`,
+          fields,
+        );
       }
       if (JSON.stringify(materialCellsFromValues(values)) === JSON.stringify(materialCellsFromValues(valuesOf(row)))) {
         throw badRequest('The edit changes nothing; no new version was made.', { '(body)': 'Nothing changed' });
       }
       const clash = sameName(existing.values(), values.name, (r) => r.id === row.id);
-      if (clash) throw conflict(`Another material is already called "${clash.name}" (the same name as "${values.name}").`, { name: `Same name as "${clash.name}"` });
+      if (clash)
+        throw conflict(`Another material is already called "${clash.name}" (the same name as "${values.name}").`, {
+          name: `Same name as "${clash.name}"`,
+        });
       await this.repo.retireCurrentVersions(tx, [row.id]);
       const [insertedId] = await this.repo.insertVersions(tx, [
         { ...values, lineage: row.lineage, version: row.version + 1, retired: row.retired, importId: null, createdBy: actor.id },
       ]);
       const inserted = (await this.repo.findById(insertedId!, tx))!;
-      await this.audit.record({ actorId: actor.id, action: 'material.edited', target: inserted.name, details: { id: inserted.id, version: inserted.version } }, tx);
+      await this.audit.record(
+        { actorId: actor.id, action: 'material.edited', target: inserted.name, details: { id: inserted.id, version: inserted.version } },
+        tx,
+      );
       return inserted;
     });
     return materialDetail({ ...result, createdByName: actor.displayName });
@@ -199,10 +211,14 @@ export class MaterialsService {
     const row = await this.repo.db.transaction(async (tx) => {
       const changed = await this.repo.setRetired(id, retired, tx);
       if (!changed) {
-        if (await this.repo.findById(id, tx)) throw conflict('Only the current version of a material can be retired or restored.', { id: 'Not the current version' });
+        if (await this.repo.findById(id, tx))
+          throw conflict('Only the current version of a material can be retired or restored.', { id: 'Not the current version' });
         throw notFound(`No material with id ${id}.`);
       }
-      await this.audit.record({ actorId: actor.id, action: retired ? 'material.retired' : 'material.unretired', target: changed.name, details: { id } }, tx);
+      await this.audit.record(
+        { actorId: actor.id, action: retired ? 'material.retired' : 'material.unretired', target: changed.name, details: { id } },
+        tx,
+      );
       return changed;
     });
     return materialDetail({ ...row, createdByName: null });

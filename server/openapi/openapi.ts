@@ -45,7 +45,12 @@ function queryParameters(schema: z.ZodType) {
 }
 
 function operation(method: string, path: string, doc: RouteDoc) {
-  const pathParameters = [...path.matchAll(/:(\w+)/g)].map(([, name]) => ({ name, in: 'path', required: true, schema: { type: 'string' } }));
+  const pathParameters = [...path.matchAll(/:(\w+)/g)].map(([, name]) => ({
+    name,
+    in: 'path',
+    required: true,
+    schema: { type: 'string' },
+  }));
   const parameters = [...pathParameters, ...(doc.query ? queryParameters(doc.query) : [])];
   const success = method === 'POST' && /\(201\)/.test(doc.answer) ? '201' : doc.answer === '204' ? '204' : '200';
   return {
@@ -79,7 +84,8 @@ export function whoMay(endpoint: Endpoint): string {
 
 /** The operation of a declared endpoint, generated from its zod schemas. */
 function declaredRoute(endpoint: Endpoint): RouteConfig {
-  if (/:\w+/.test(endpoint.path) && !endpoint.params) throw new Error(`${routeKey(endpoint)} has path parameters but no params schema (idParamsSchema?)`);
+  if (/:\w+/.test(endpoint.path) && !endpoint.params)
+    throw new Error(`${routeKey(endpoint)} has path parameters but no params schema (idParamsSchema?)`);
   const status = String(endpoint.status ?? 200);
   const success =
     endpoint.produces !== undefined
@@ -116,7 +122,8 @@ export function buildOpenApiDocument() {
   registry.registerComponent('securitySchemes', 'session', { type: 'apiKey', in: 'cookie', name: 'gapwright.sid' });
   registry.registerComponent('schemas', 'Error', jsonSchema(errorSchema) as never);
   for (const endpoint of ENDPOINTS) {
-    if (routeKey(endpoint) in ROUTE_DOCS) throw new Error(`${routeKey(endpoint)} is declared in shared/api and still listed in route-docs.ts`);
+    if (routeKey(endpoint) in ROUTE_DOCS)
+      throw new Error(`${routeKey(endpoint)} is declared in shared/api and still listed in route-docs.ts`);
     registry.registerPath(declaredRoute(endpoint));
   }
   const document = new OpenApiGeneratorV31(registry.definitions).generateDocument({

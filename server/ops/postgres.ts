@@ -26,7 +26,10 @@ export interface ClusterLocation {
 }
 
 export function clusterPaths(location: ClusterLocation = {}) {
-  const root = location.root ?? process.env['GAPWRIGHT_DATA_DIR'] ?? (isRoot() ? '/var/lib/gapwright' : path.join(homedir(), '.local/share/gapwright'));
+  const root =
+    location.root ??
+    process.env['GAPWRIGHT_DATA_DIR'] ??
+    (isRoot() ? '/var/lib/gapwright' : path.join(homedir(), '.local/share/gapwright'));
   const port = location.port ?? Number(process.env['GAPWRIGHT_PG_PORT'] ?? 54329);
   return {
     root,
@@ -138,7 +141,18 @@ export function ensureCluster(location: ClusterLocation = {}): LocalCluster {
     }
     runOrThrow(
       path.join(bin, 'pg_ctl'),
-      ['-D', dataDir, '-l', paths.logFile, '-w', '-t', '60', '-o', `-c listen_addresses=127.0.0.1 -p ${paths.port} -k ${paths.runDir}`, 'start'],
+      [
+        '-D',
+        dataDir,
+        '-l',
+        paths.logFile,
+        '-w',
+        '-t',
+        '60',
+        '-o',
+        `-c listen_addresses=127.0.0.1 -p ${paths.port} -k ${paths.runDir}`,
+        'start',
+      ],
       'pg_ctl start',
     );
   }
@@ -184,4 +198,3 @@ export function stopCluster(location: ClusterLocation = {}, mode: 'fast' | 'imme
   runOrThrow(path.join(bin, 'pg_ctl'), ['-D', dataDir, '-m', mode, '-w', 'stop'], 'pg_ctl stop');
   log('stopped.');
 }
-

@@ -23,7 +23,10 @@ export class ReviewRepository {
   }
 
   async setStatus(tx: Tx, id: number, status: Status, extra: Partial<RevisionRow> = {}): Promise<void> {
-    await tx.update(designRevisions).set({ status, updatedAt: new Date(), ...extra }).where(eq(designRevisions.id, id));
+    await tx
+      .update(designRevisions)
+      .set({ status, updatedAt: new Date(), ...extra })
+      .where(eq(designRevisions.id, id));
   }
 
   /** Earlier released revisions of the same design become superseded when a newer one is released. */
@@ -39,9 +42,6 @@ export class ReviewRepository {
   async addTransition(tx: Tx | Db, t: typeof revisionTransitions.$inferInsert): Promise<void> {
     await tx.insert(revisionTransitions).values(t);
   }
-
-
-
 
   timeline(revisionIds: number[]) {
     if (!revisionIds.length) return Promise.resolve([]);

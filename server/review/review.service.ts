@@ -11,7 +11,11 @@ type Status = RevisionRow['status'];
 const REVIEW_ROLES: Role[] = ['reviewer'];
 
 const stateConflict = (revision: RevisionRow, action: string, expected: Status[]) =>
-  new AppError(409, 'wrong_state', `Revision ${revision.revision} is ${revision.status.replace('_', ' ')}; it can be ${action} only when ${expected.join(' or ').replace('_', ' ')}.`);
+  new AppError(
+    409,
+    'wrong_state',
+    `Revision ${revision.revision} is ${revision.status.replace('_', ' ')}; it can be ${action} only when ${expected.join(' or ').replace('_', ' ')}.`,
+  );
 
 /**
  * The review and release flow: draft → in review → approved → released (→ superseded by a later
@@ -39,7 +43,13 @@ export class ReviewService {
       const { revision, design } = row;
       guard(revision, design);
       const { to, details } = await apply(tx, revision, design);
-      await this.repo.addTransition(tx, { revisionId, fromStatus: revision.status, toStatus: to, actorId: actor.id, comment: comment ?? null });
+      await this.repo.addTransition(tx, {
+        revisionId,
+        fromStatus: revision.status,
+        toStatus: to,
+        actorId: actor.id,
+        comment: comment ?? null,
+      });
       await this.audit.record(
         {
           actorId: actor.id,
@@ -64,7 +74,9 @@ export class ReviewService {
         if (revision.status !== 'draft') throw stateConflict(revision, 'submitted', ['draft']);
         const result = storedEvaluation(revision.result);
         if (!result || !revision.construction) {
-          throw badRequest('Choose and save a construction (core, material, turns, gap, wire) before submitting.', { construction: 'No saved construction' });
+          throw badRequest('Choose and save a construction (core, material, turns, gap, wire) before submitting.', {
+            construction: 'No saved construction',
+          });
         }
         if (!result.feasible) {
           const reasons = result.issues.filter((i) => i.severity === 'error').map((i) => i.message);
@@ -86,7 +98,8 @@ export class ReviewService {
       'approved',
       (revision, design) => {
         if (!REVIEW_ROLES.includes(actor.role)) throw forbidden('Only a reviewer can approve a design.');
-        if (design.ownerId === actor.id || revision.createdBy === actor.id) throw forbidden('The author of a design cannot approve it; ask another reviewer.');
+        if (design.ownerId === actor.id || revision.createdBy === actor.id)
+          throw forbidden('The author of a design cannot approve it; ask another reviewer.');
         if (revision.status !== 'in_review') throw stateConflict(revision, 'approved', ['in_review']);
       },
       async (tx, revision) => {
@@ -104,7 +117,8 @@ export class ReviewService {
       'returned',
       (revision) => {
         if (!REVIEW_ROLES.includes(actor.role)) throw forbidden('Only a reviewer can return a design.');
-        if (revision.status !== 'in_review' && revision.status !== 'approved') throw stateConflict(revision, 'returned', ['in_review', 'approved']);
+        if (revision.status !== 'in_review' && revision.status !== 'approved')
+          throw stateConflict(revision, 'returned', ['in_review', 'approved']);
       },
       async (tx, revision) => {
         await this.repo.setStatus(tx, revision.id, 'draft', { approvedBy: null });
@@ -121,7 +135,8 @@ export class ReviewService {
       'released',
       (revision, design) => {
         if (!REVIEW_ROLES.includes(actor.role)) throw forbidden('Only a reviewer can release a design.');
-        if (design.ownerId === actor.id || revision.createdBy === actor.id) throw forbidden('The author of a design cannot release it; ask another reviewer.');
+        if (design.ownerId === actor.id || revision.createdBy === actor.id)
+          throw forbidden('The author of a design cannot release it; ask another reviewer.');
         if (revision.status !== 'approved') throw stateConflict(revision, 'released', ['approved']);
       },
       async (tx, revision, design) => {
@@ -129,7 +144,13 @@ export class ReviewService {
         await this.repo.setStatus(tx, revision.id, 'released', { releasedAt });
         const superseded = await this.repo.supersedeReleased(tx, design.id, revision.id);
         for (const id of superseded) {
-          await this.repo.addTransition(tx, { revisionId: id, fromStatus: 'released', toStatus: 'superseded', actorId: actor.id, comment: `Superseded by revision ${revision.revision}` });
+          await this.repo.addTransition(tx, {
+            revisionId: id,
+            fromStatus: 'released',
+            toStatus: 'superseded',
+            actorId: actor.id,
+            comment: `Superseded by revision ${revision.revision}`,
+          });
         }
         const order = await this.shop.createOrder(tx, { revision, design, quantity, releasedAt, releasedBy: actor.id });
         await this.shop.queueReleaseMail(tx, order);
@@ -175,7 +196,13 @@ export class ReviewService {
     }
     if (actor.role === 'winder') {
       for (const o of await this.shop.openOrders()) {
-        items.push({ kind: 'build', label: `Build ${o.number}: ${o.designNumber} rev ${o.revision}, ${o.built}/${o.quantity} passed`, designId: o.designId, orderId: o.id, since: o.createdAt });
+        items.push({
+          kind: 'build',
+          label: `Build ${o.number}: ${o.designNumber} rev ${o.revision}, ${o.built}/${o.quantity} passed`,
+          designId: o.designId,
+          orderId: o.id,
+          since: o.createdAt,
+        });
       }
     }
     return { items };

@@ -20,7 +20,18 @@ export const DEMO_DESIGNS: readonly DemoDesign[] = [
   {
     title: 'Telecom rail 48 V → 12 V, 8 A (invented demo converter)',
     spec: {
-      converter: { vinMin: 36, vinNom: 48, vinMax: 60, vout: 12, ioutMax: 8, ioutMin: 1, frequency: 200e3, rippleRatio: 0.3, rectifier: 'synchronous', currentLimit: 11 },
+      converter: {
+        vinMin: 36,
+        vinNom: 48,
+        vinMax: 60,
+        vout: 12,
+        ioutMax: 8,
+        ioutMin: 1,
+        frequency: 200e3,
+        rippleRatio: 0.3,
+        rectifier: 'synchronous',
+        currentLimit: 11,
+      },
       limits: { ambient: 50, maxRise: 40 },
       families: ['ETD', 'PQ', 'E', 'RM'],
     },
@@ -28,14 +39,37 @@ export const DEMO_DESIGNS: readonly DemoDesign[] = [
   {
     title: 'Industrial board 24 V → 5 V, 4 A (invented demo converter)',
     spec: {
-      converter: { vinMin: 18, vinNom: 24, vinMax: 32, vout: 5, ioutMax: 4, ioutMin: 0.4, frequency: 250e3, rippleRatio: 0.3, rectifier: 'diode', diodeDrop: 0.45, currentLimit: 5.5 },
+      converter: {
+        vinMin: 18,
+        vinNom: 24,
+        vinMax: 32,
+        vout: 5,
+        ioutMax: 4,
+        ioutMin: 0.4,
+        frequency: 250e3,
+        rippleRatio: 0.3,
+        rectifier: 'diode',
+        diodeDrop: 0.45,
+        currentLimit: 5.5,
+      },
       limits: { ambient: 60, maxRise: 40 },
     },
   },
   {
     title: 'Point-of-load 12 V → 1.2 V, 15 A (invented demo converter)',
     spec: {
-      converter: { vinMin: 10.8, vinNom: 12, vinMax: 13.2, vout: 1.2, ioutMax: 15, ioutMin: 2, frequency: 500e3, rippleRatio: 0.35, rectifier: 'synchronous', currentLimit: 20 },
+      converter: {
+        vinMin: 10.8,
+        vinNom: 12,
+        vinMax: 13.2,
+        vout: 1.2,
+        ioutMax: 15,
+        ioutMin: 2,
+        frequency: 500e3,
+        rippleRatio: 0.35,
+        rectifier: 'synchronous',
+        currentLimit: 20,
+      },
       limits: { ambient: 55, maxRise: 40 },
     },
   },
@@ -45,7 +79,10 @@ export const DEMO_DESIGNS: readonly DemoDesign[] = [
 export async function seedDemoDesigns(tx: Tx): Promise<number> {
   const [owner] = await tx.select().from(users).where(eq(users.username, 'erin'));
   if (!owner) return 0;
-  const rows = await tx.select().from(materials).where(and(eq(materials.current, true), eq(materials.retired, false)));
+  const rows = await tx
+    .select()
+    .from(materials)
+    .where(and(eq(materials.current, true), eq(materials.retired, false)));
   const engineMaterials = rows.map(toCoreMaterial);
   const catalogue = new CatalogueService();
   let created = 0;
@@ -60,8 +97,14 @@ export async function seedDemoDesigns(tx: Tx): Promise<number> {
       limit: 1,
     });
     const best = search.candidates[0];
-    const [placeholder] = await tx.insert(designs).values({ number: `tmp-seed-${created}`, title: demo.title, ownerId: owner.id }).returning();
-    await tx.update(designs).set({ number: designNumber(placeholder.id) }).where(eq(designs.id, placeholder.id));
+    const [placeholder] = await tx
+      .insert(designs)
+      .values({ number: `tmp-seed-${created}`, title: demo.title, ownerId: owner.id })
+      .returning();
+    await tx
+      .update(designs)
+      .set({ number: designNumber(placeholder.id) })
+      .where(eq(designs.id, placeholder.id));
     const evaluation = best?.result;
     const result: StoredResult | null = best ? { wire: best.wire, evaluation } : null;
     await tx.insert(designRevisions).values({

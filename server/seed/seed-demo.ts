@@ -52,7 +52,13 @@ interface HashedUser {
 
 function hashDemoPasswords(bcryptCost: number): Promise<HashedUser[]> {
   return Promise.all(
-    DEMO_USERS.map(async ({ username, displayName, email, role, password }) => ({ username, displayName, email, role, passwordHash: await bcrypt.hash(password, bcryptCost) })),
+    DEMO_USERS.map(async ({ username, displayName, email, role, password }) => ({
+      username,
+      displayName,
+      email,
+      role,
+      passwordHash: await bcrypt.hash(password, bcryptCost),
+    })),
   );
 }
 
@@ -62,37 +68,40 @@ async function seedUsers(tx: Tx, hashed: HashedUser[]): Promise<void> {
 
 async function seedMaterials(tx: Tx): Promise<void> {
   await tx.insert(materials).values(
-      DEMO_MATERIALS.map((m) => {
-        const k = kFromAnchor(m);
-        const t = m.minimumLossAt;
-        return {
-          lineage: m.name.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, ''),
-          version: 1,
-          name: m.name,
-          family: m.family,
-          unitSet: 'W/m3-Hz-T' as const,
-          kUploaded: k,
-          k,
-          alpha: m.alpha,
-          beta: m.beta,
-          fitFrequencyMin: m.fit.fMin,
-          fitFrequencyMax: m.fit.fMax,
-          fitFluxMin: m.fit.bMin,
-          fitFluxMax: m.fit.bMax,
-          // Parabola normalised to 1 at its minimum (common practice, no source).
-          ct2: t?.ct2 ?? null,
-          ct1: t ? 2 * t.ct2 * t.temperature : null,
-          ct0: t ? 1 + t.ct2 * t.temperature ** 2 : null,
-          referenceTemperature: t?.temperature ?? null,
-          bsat25: m.bsat25,
-          bsat100: m.bsat100,
-          permeability: m.permeability,
-          rollOffA: m.rollOff ? 1 : null,
-          rollOffB: m.rollOff ? m.rollOff.h50 ** -m.rollOff.c : null,
-          rollOffC: m.rollOff?.c ?? null,
-          density: m.density,
-          provenance: 'Invented for the Gapwright demo; illustrative, not a real material.',
-        };
-      }),
-    );
+    DEMO_MATERIALS.map((m) => {
+      const k = kFromAnchor(m);
+      const t = m.minimumLossAt;
+      return {
+        lineage: m.name
+          .toLowerCase()
+          .replace(/[^a-z0-9]+/g, '-')
+          .replace(/^-|-$/g, ''),
+        version: 1,
+        name: m.name,
+        family: m.family,
+        unitSet: 'W/m3-Hz-T' as const,
+        kUploaded: k,
+        k,
+        alpha: m.alpha,
+        beta: m.beta,
+        fitFrequencyMin: m.fit.fMin,
+        fitFrequencyMax: m.fit.fMax,
+        fitFluxMin: m.fit.bMin,
+        fitFluxMax: m.fit.bMax,
+        // Parabola normalised to 1 at its minimum (common practice, no source).
+        ct2: t?.ct2 ?? null,
+        ct1: t ? 2 * t.ct2 * t.temperature : null,
+        ct0: t ? 1 + t.ct2 * t.temperature ** 2 : null,
+        referenceTemperature: t?.temperature ?? null,
+        bsat25: m.bsat25,
+        bsat100: m.bsat100,
+        permeability: m.permeability,
+        rollOffA: m.rollOff ? 1 : null,
+        rollOffB: m.rollOff ? m.rollOff.h50 ** -m.rollOff.c : null,
+        rollOffC: m.rollOff?.c ?? null,
+        density: m.density,
+        provenance: 'Invented for the Gapwright demo; illustrative, not a real material.',
+      };
+    }),
+  );
 }

@@ -4,7 +4,8 @@ import type { WindingSheet } from '@shared/shop/sheet';
 import { sheetSections } from '@shared/shop/sheet-text';
 
 const require = createRequire(import.meta.url);
-const fontFile = (subset: string, weight: number) => require.resolve(`@fontsource/noto-sans/files/noto-sans-${subset}-${weight}-normal.woff`);
+const fontFile = (subset: string, weight: number) =>
+  require.resolve(`@fontsource/noto-sans/files/noto-sans-${subset}-${weight}-normal.woff`);
 
 // Noto Sans is split into script subsets; Greek letters (Ω, µ is Latin-1) come from the greek subset.
 const FONTS = {
@@ -27,7 +28,11 @@ function runs(text: string): { greek: boolean; text: string }[] {
 
 /** The winding sheet as a PDF with Noto Sans embedded (shipped with the app, nothing fetched). */
 export function renderSheetPdf(sheet: WindingSheet): Promise<Buffer> {
-  const doc = new PDFDocument({ size: 'A4', margin: 48, info: { Title: `${sheet.header.designNumber} rev ${sheet.header.revision} winding sheet`, Creator: 'Gapwright' } });
+  const doc = new PDFDocument({
+    size: 'A4',
+    margin: 48,
+    info: { Title: `${sheet.header.designNumber} rev ${sheet.header.revision} winding sheet`, Creator: 'Gapwright' },
+  });
   doc.registerFont('regular', FONTS.regular);
   doc.registerFont('bold', FONTS.bold);
   doc.registerFont('greek', FONTS.greek);
@@ -38,7 +43,10 @@ export function renderSheetPdf(sheet: WindingSheet): Promise<Buffer> {
   const write = (text: string, font: 'regular' | 'bold', size: number, options: PDFKit.Mixins.TextOptions = {}) => {
     const parts = runs(text);
     parts.forEach((part, i) => {
-      doc.font(part.greek ? 'greek' : font).fontSize(size).text(part.text, { ...options, continued: i < parts.length - 1 });
+      doc
+        .font(part.greek ? 'greek' : font)
+        .fontSize(size)
+        .text(part.text, { ...options, continued: i < parts.length - 1 });
     });
   };
 
@@ -55,7 +63,10 @@ export function renderSheetPdf(sheet: WindingSheet): Promise<Buffer> {
   doc.x = left + 8;
   write('Caution', 'bold', 10, { width: boxWidth });
   write(sheet.caution, 'regular', 9, { width: boxWidth });
-  doc.rect(left, boxTop - 6, valueWidth + labelWidth, doc.y - boxTop + 12).lineWidth(1).stroke('#B5632D');
+  doc
+    .rect(left, boxTop - 6, valueWidth + labelWidth, doc.y - boxTop + 12)
+    .lineWidth(1)
+    .stroke('#B5632D');
   doc.x = left;
   doc.moveDown(0.5);
 
@@ -64,7 +75,10 @@ export function renderSheetPdf(sheet: WindingSheet): Promise<Buffer> {
     write(section.title, 'bold', 12);
     for (const [label, value] of section.lines) {
       const y = doc.y;
-      doc.font('bold').fontSize(9).text(label, left, y, { width: labelWidth - 8 });
+      doc
+        .font('bold')
+        .fontSize(9)
+        .text(label, left, y, { width: labelWidth - 8 });
       const labelBottom = doc.y;
       doc.y = y;
       doc.x = left + labelWidth;

@@ -72,8 +72,14 @@ export class ShopRepository {
       if (!order) return undefined;
       onLocked(order);
       const [{ n }] = await tx.select({ n: count() }).from(buildUnits).where(eq(buildUnits.orderId, orderId));
-      const [row] = await tx.insert(buildUnits).values({ ...unit, orderId, unitNumber: n + 1 }).returning();
-      const [{ passed }] = await tx.select({ passed: count() }).from(buildUnits).where(and(eq(buildUnits.orderId, orderId), eq(buildUnits.passed, true)));
+      const [row] = await tx
+        .insert(buildUnits)
+        .values({ ...unit, orderId, unitNumber: n + 1 })
+        .returning();
+      const [{ passed }] = await tx
+        .select({ passed: count() })
+        .from(buildUnits)
+        .where(and(eq(buildUnits.orderId, orderId), eq(buildUnits.passed, true)));
       let status = order.status;
       if (passed >= order.quantity) {
         await tx.update(buildOrders).set({ status: 'complete', completedAt: new Date() }).where(eq(buildOrders.id, orderId));

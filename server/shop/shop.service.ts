@@ -63,7 +63,6 @@ export class ShopService {
     return this.repo.insertOrder(tx, { number, revisionId: revision.id, quantity: input.quantity, sheet, createdBy: input.releasedBy });
   }
 
-
   async shopEmail(): Promise<string> {
     return (await this.repo.setting<string>(SHOP_EMAIL_KEY)) ?? DEFAULT_SHOP_EMAIL;
   }
@@ -155,13 +154,26 @@ export class ShopService {
         recordedBy: actor.id,
       },
       (locked) => {
-        if (locked.status === 'complete') throw new AppError(409, 'order_complete', `Build order ${locked.number} is complete; no more units can be recorded.`);
+        if (locked.status === 'complete')
+          throw new AppError(409, 'order_complete', `Build order ${locked.number} is complete; no more units can be recorded.`);
       },
       (tx, locked, unit) =>
-        this.audit.record({ actorId: actor.id, action: 'shop.unit_recorded', target: `${locked.number} unit ${unit.unitNumber}`, details: { passed: judged.passed } }, tx),
+        this.audit.record(
+          {
+            actorId: actor.id,
+            action: 'shop.unit_recorded',
+            target: `${locked.number} unit ${unit.unitNumber}`,
+            details: { passed: judged.passed },
+          },
+          tx,
+        ),
     );
     if (!saved) throw notFound('No such build order.');
-    return { unit: { ...saved.unit, recordedAt: saved.unit.recordedAt.toISOString() }, orderStatus: saved.orderStatus, passedUnits: saved.passed };
+    return {
+      unit: { ...saved.unit, recordedAt: saved.unit.recordedAt.toISOString() },
+      orderStatus: saved.orderStatus,
+      passedUnits: saved.passed,
+    };
   }
 
   /** Measured against predicted for every build, and the prediction error by material and by core. */
@@ -198,5 +210,8 @@ function releaseSubject(orderNumber: string, sheet: WindingSheet): string {
 }
 
 export function sheetFileName(sheet: WindingSheet): string {
-  return `${sheet.header.designNumber}-rev${sheet.header.revision}-${sheet.header.orderNumber}-winding-sheet.pdf`.replace(/[^A-Za-z0-9._-]/g, '_');
+  return `${sheet.header.designNumber}-rev${sheet.header.revision}-${sheet.header.orderNumber}-winding-sheet.pdf`.replace(
+    /[^A-Za-z0-9._-]/g,
+    '_',
+  );
 }

@@ -24,9 +24,11 @@ export interface SheetInput {
 const mm = (m: number, digits = 2) => `${(m * 1e3).toFixed(digits)} mm`;
 
 function wireDescription(wire: WireOption): string {
-  if (wire.kind === 'litz') return `Litz ${wire.strands} × ${mm(wire.strandDiameter, 3)} strands, bundle about ${mm(wire.overallDiameter)} over serving`;
+  if (wire.kind === 'litz')
+    return `Litz ${wire.strands} × ${mm(wire.strandDiameter, 3)} strands, bundle about ${mm(wire.overallDiameter)} over serving`;
   const grade = wire.grade ? `, IEC 60317 grade ${wire.grade}` : '';
-  const size = wire.kind === 'awg' ? `${wire.id.split(' ×')[0]} (${mm(wire.strandDiameter, 3)} bare)` : `${mm(wire.strandDiameter, 3)} bare`;
+  const size =
+    wire.kind === 'awg' ? `${wire.id.split(' ×')[0]} (${mm(wire.strandDiameter, 3)} bare)` : `${mm(wire.strandDiameter, 3)} bare`;
   return `Enamelled round copper ${size}${grade}, ${wire.strands} in hand (max overall ${mm(wire.overallDiameter, 3)} each)`;
 }
 
@@ -68,7 +70,13 @@ export function buildWindingSheet(input: SheetInput): WindingSheet {
               `or each half by ${mm(r.gap.total / 2, 3)}. Alternative only if the engineer agrees: a non-magnetic spacer of ` +
               `${mm(r.gap.spacer, 3)} under all legs (more stray field).`,
           }
-        : { kind: 'none (distributed gap)', total: 0, groundDepth: 0, spacerAlternative: 0, note: 'No gap: the material sets the permeability.' },
+        : {
+            kind: 'none (distributed gap)',
+            total: 0,
+            groundDepth: 0,
+            spacerAlternative: 0,
+            note: 'No gap: the material sets the permeability.',
+          },
       bobbin: isRing
         ? 'No bobbin: wind directly on the coated ring (add an edge-protecting wrap if the coating is thin).'
         : `Bobbin for ${r.core.id}` + (core ? `, winding width ${mm(core.bobbinWidth, 1)}, build height ${mm(core.bobbinHeight, 1)}` : ''),
@@ -100,7 +108,9 @@ export function buildWindingSheet(input: SheetInput): WindingSheet {
       direction: 'Clockwise viewed from the pin side (from the start lead for a ring)',
       traverse: 'Progressive, close-wound, turns side by side; wires in hand laid flat and parallel, not twisted',
       interlayerTape: isRing || r.winding.layers < 2 ? 'None' : 'One wrap of polyester tape between layers',
-      margins: input.insulation.required ? 'Margins as required by the insulation specification of the design owner' : 'None (no safety insulation required)',
+      margins: input.insulation.required
+        ? 'Margins as required by the insulation specification of the design owner'
+        : 'None (no safety insulation required)',
       outerWrap: 'Two wraps of polyester tape',
     },
     terminations: [

@@ -42,15 +42,24 @@ export class UsersService {
 
   async create(actor: Actor, input: CreateUserRequest): Promise<User> {
     const username = input.username.toLowerCase();
-    const clash = sameName((await this.repo.list()).map((u) => ({ name: u.username })), username);
+    const clash = sameName(
+      (await this.repo.list()).map((u) => ({ name: u.username })),
+      username,
+    );
     if (clash) {
       const same = clash.name === username ? '' : ` (as "${clash.name}")`;
       throw conflict(`Username "${username}" is taken${same}.`, { username: `This username is taken${same}` });
     }
     const passwordHash = await this.hashPassword(input.password);
     const row = await this.repo.transaction(async (tx) => {
-      const created = await this.repo.insert({ username, displayName: input.displayName, email: input.email ?? null, role: input.role, passwordHash }, tx);
-      await this.audit.record({ actorId: actor.id, action: 'user.created', target: `user:${created.username}`, details: { role: created.role } }, tx);
+      const created = await this.repo.insert(
+        { username, displayName: input.displayName, email: input.email ?? null, role: input.role, passwordHash },
+        tx,
+      );
+      await this.audit.record(
+        { actorId: actor.id, action: 'user.created', target: `user:${created.username}`, details: { role: created.role } },
+        tx,
+      );
       return created;
     });
     return toUserView(row);

@@ -1,5 +1,11 @@
 import { coreLossRequestSchema, evaluateRequestSchema, operatingPointRequestSchema, searchRequestSchema } from '@shared/schemas/calc';
-import { coreLossAnswerSchema, evaluateAnswerSchema, evaluateQuerySchema, operatingPointAnswerSchema, searchAnswerSchema } from '@shared/schemas/calc-answers';
+import {
+  coreLossAnswerSchema,
+  evaluateAnswerSchema,
+  evaluateQuerySchema,
+  operatingPointAnswerSchema,
+  searchAnswerSchema,
+} from '@shared/schemas/calc-answers';
 import { defineEndpoint } from './endpoint';
 
 export const operatingPoint = defineEndpoint({

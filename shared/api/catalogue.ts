@@ -1,6 +1,12 @@
 import * as z from 'zod';
 import { importPreviewSchema } from '@shared/schemas/materials';
-import { coreHistoryResponseSchema, coreImportResultSchema, coreListResponseSchema, listedCoreSchema, userCoreRequestSchema } from '@shared/schemas/cores';
+import {
+  coreHistoryResponseSchema,
+  coreImportResultSchema,
+  coreListResponseSchema,
+  listedCoreSchema,
+  userCoreRequestSchema,
+} from '@shared/schemas/cores';
 import { defineEndpoint } from './endpoint';
 import { idParamsSchema } from './params';
 

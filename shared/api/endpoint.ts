@@ -59,7 +59,8 @@ export type CallInput<E extends Endpoint> = (E['params'] extends z.ZodType ? { p
 export function endpointUrl(endpoint: Endpoint, params?: Record<string, unknown>): string {
   const path = endpoint.path.replace(/:(\w+)/g, (_m, name: string) => {
     const value = params?.[name];
-    if (value === undefined || value === null) throw new Error(`${endpoint.method} ${endpoint.path}: the path parameter "${name}" is missing`);
+    if (value === undefined || value === null)
+      throw new Error(`${endpoint.method} ${endpoint.path}: the path parameter "${name}" is missing`);
     return encodeURIComponent(String(value));
   });
   return `/api${path}`;

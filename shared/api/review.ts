@@ -1,4 +1,10 @@
-import { releaseRequestSchema, returnRequestSchema, timelineSchema, transitionOutcomeSchema, transitionRequestSchema } from '@shared/schemas/review';
+import {
+  releaseRequestSchema,
+  returnRequestSchema,
+  timelineSchema,
+  transitionOutcomeSchema,
+  transitionRequestSchema,
+} from '@shared/schemas/review';
 import { defineEndpoint } from './endpoint';
 import { idParamsSchema } from './params';
 

@@ -117,7 +117,9 @@ export const shapedCoreRowSchema = z
     window_area_mm2: requiredCell,
     window_height_mm: requiredCell,
     window_width_mm: requiredCell,
-    centre_leg: text().trim().pipe(z.enum(['round', 'rect'], { error: 'must be "round" or "rect"' })),
+    centre_leg: text()
+      .trim()
+      .pipe(z.enum(['round', 'rect'], { error: 'must be "round" or "rect"' })),
     centre_leg_width_mm: requiredCell,
     centre_leg_depth_mm: optionalCell,
     outline_width_mm: requiredCell,

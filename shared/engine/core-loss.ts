@@ -29,9 +29,7 @@ export function triangleDutyFactor(duty: number, alpha: number): number {
 
 /** iGSE for triangular (PWM) flux with peak-to-peak ΔB and rise fraction D (W/m³). */
 export function igseTriangleLoss(m: SteinmetzCoefficients, frequency: number, fluxSwing: number, duty: number): number {
-  return (
-    igseCoefficient(m) * Math.pow(fluxSwing, m.beta) * Math.pow(frequency, m.alpha) * triangleDutyFactor(duty, m.alpha)
-  );
+  return igseCoefficient(m) * Math.pow(fluxSwing, m.beta) * Math.pow(frequency, m.alpha) * triangleDutyFactor(duty, m.alpha);
 }
 
 /**

@@ -235,7 +235,10 @@ function checkExplicitInputs(input: EvaluateInput): void {
     throw new EngineInputError('gap', `Gap must be zero or positive (m), got ${input.gap}.`);
   }
   if (input.core.gapKind === 'air-gap' && input.material.family === 'powder') {
-    throw new EngineInputError('materialId', `${input.material.name} is a distributed-gap material; ${input.core.id} needs a gapped material.`);
+    throw new EngineInputError(
+      'materialId',
+      `${input.material.name} is a distributed-gap material; ${input.core.id} needs a gapped material.`,
+    );
   }
 }
 

@@ -75,7 +75,10 @@ export function describeIssues({ ctx, core, material, mag, figures: f }: IssueSu
     );
   }
   if (failed(FAILURE.temperatureRise)) {
-    error('temperature-rise', `Temperature rise ${fmt(f.rise, 1)} K exceeds the ${fmt(limits.maxRise, 0)} K limit (total loss ${fmt(f.totalLoss)} W).`);
+    error(
+      'temperature-rise',
+      `Temperature rise ${fmt(f.rise, 1)} K exceeds the ${fmt(limits.maxRise, 0)} K limit (total loss ${fmt(f.totalLoss)} W).`,
+    );
   }
   if (failed(FAILURE.insulation)) {
     error(
@@ -84,7 +87,10 @@ export function describeIssues({ ctx, core, material, mag, figures: f }: IssueSu
     );
   }
   if (failed(FAILURE.materialTemperature)) {
-    error('material-temperature', `Hot spot ${fmt(f.hotSpot, 0)} °C exceeds the ${material.name} limit of ${fmt(materialTemperatureLimit(material), 0)} °C.`);
+    error(
+      'material-temperature',
+      `Hot spot ${fmt(f.hotSpot, 0)} °C exceeds the ${material.name} limit of ${fmt(materialTemperatureLimit(material), 0)} °C.`,
+    );
   }
   if (failed(FAILURE.lossBudget)) {
     error('loss-budget', `Total loss ${fmt(f.totalLoss)} W exceeds the budget of ${fmt(limits.lossBudget ?? 0)} W.`);

@@ -226,17 +226,19 @@ function designAirGap(
 ): MagneticDesign {
   const { op, limits } = ctx;
   const target = op.inductanceNominal;
-  const geometry: GapGeometry = { area: core.ae, pathLength: core.le, windowHeight: core.windowHeight, permeability: material.permeability };
+  const geometry: GapGeometry = {
+    area: core.ae,
+    pathLength: core.le,
+    windowHeight: core.windowHeight,
+    permeability: material.permeability,
+  };
   let failures = 0;
   let warnings = 0;
   let turns: number;
   if (turnsInput !== 'auto') turns = turnsInput;
   else if (gapInput !== 'auto') turns = turnsForGap(target, gapInput, geometry);
   else {
-    turns = Math.max(
-      turnsForFluxLimit(target, op.saturationCheckCurrent, limits.bMax, core.ae),
-      minimumTurnsUngapped(target, geometry),
-    );
+    turns = Math.max(turnsForFluxLimit(target, op.saturationCheckCurrent, limits.bMax, core.ae), minimumTurnsUngapped(target, geometry));
   }
   let gap: number;
   if (gapInput !== 'auto') gap = gapInput;

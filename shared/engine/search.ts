@@ -90,9 +90,7 @@ export function searchCandidates(input: SearchInput): SearchResult {
   const ctx = prepareSpec(input.spec, input.limits);
   const { op, limits } = ctx;
   const cores = limits.allowedFamilies ? input.cores.filter((c) => limits.allowedFamilies!.includes(c.family)) : input.cores;
-  const materials = limits.allowedMaterials
-    ? input.materials.filter((m) => limits.allowedMaterials!.includes(m.id))
-    : input.materials;
+  const materials = limits.allowedMaterials ? input.materials.filter((m) => limits.allowedMaterials!.includes(m.id)) : input.materials;
 
   const required = requiredAreaProduct(
     op.inductanceNominal,
@@ -172,8 +170,7 @@ export function searchCandidates(input: SearchInput): SearchResult {
           pairFeasible = true;
         } else if (!pairFeasible) {
           const count = popcount(figures.failures);
-          const better =
-            bestFailedWire < 0 || count < bestFailures || (count === bestFailures && figures.totalLoss < bestFailedLoss);
+          const better = bestFailedWire < 0 || count < bestFailures || (count === bestFailures && figures.totalLoss < bestFailedLoss);
           if (better) {
             bestFailedWire = w;
             bestFailures = count;
@@ -193,9 +190,7 @@ export function searchCandidates(input: SearchInput): SearchResult {
 
   // Pareto front on (volume, loss): sweep by volume ascending, keep strictly falling loss.
   const pareto = new Uint8Array(feasibleCount);
-  const byVolume = Array.from({ length: feasibleCount }, (_, i) => i).sort(
-    (a, b) => volume[a]! - volume[b]! || loss[a]! - loss[b]!,
-  );
+  const byVolume = Array.from({ length: feasibleCount }, (_, i) => i).sort((a, b) => volume[a]! - volume[b]! || loss[a]! - loss[b]!);
   let bestLoss = Number.POSITIVE_INFINITY;
   const front: number[] = [];
   for (const i of byVolume) {

@@ -54,7 +54,8 @@ export function chooseWire(
   const add = (w: WireOption | undefined) => {
     if (w && !options.some((o) => o.id === w.id)) options.push(w);
   };
-  if (chosen === undefined) return { strandDiameter: 0, strands: 0, requiredCopperArea, useLitz: true, options: litzOptions(wires, requiredCopperArea) };
+  if (chosen === undefined)
+    return { strandDiameter: 0, strands: 0, requiredCopperArea, useLitz: true, options: litzOptions(wires, requiredCopperArea) };
 
   const strandsFor = (d: number) => Math.max(1, Math.ceil(requiredCopperArea / strandArea(d) - 1e-9));
   const strands = strandsFor(chosen);

@@ -4,7 +4,11 @@ import * as z from 'zod';
 import type { EngineIssue, EvaluationResult, LossAtFrequency, OperatingPoint, SearchResult, WireOption } from '@shared/engine/index';
 import { CORE_FAMILIES, MATERIAL_FAMILIES } from '@shared/engine/types';
 
-export const engineIssueSchema = z.object({ code: z.string(), severity: z.enum(['error', 'warning']), message: z.string() }) satisfies z.ZodType<EngineIssue>;
+export const engineIssueSchema = z.object({
+  code: z.string(),
+  severity: z.enum(['error', 'warning']),
+  message: z.string(),
+}) satisfies z.ZodType<EngineIssue>;
 
 export const operatingPointSchema = z.object({
   frequency: z.number(),
@@ -51,7 +55,8 @@ export const wireOptionSchema = z.object({
   grade: z.union([z.literal(1), z.literal(2)]).optional(),
 }) satisfies z.ZodType<WireOption>;
 
-const numbers = <K extends string>(...keys: K[]) => z.object(Object.fromEntries(keys.map((key) => [key, z.number()])) as Record<K, z.ZodNumber>);
+const numbers = <K extends string>(...keys: K[]) =>
+  z.object(Object.fromEntries(keys.map((key) => [key, z.number()])) as Record<K, z.ZodNumber>);
 
 export const evaluationResultSchema = z.object({
   feasible: z.boolean(),
@@ -63,12 +68,25 @@ export const evaluationResultSchema = z.object({
     gapKind: z.enum(['air-gap', 'distributed']),
   }),
   material: z.object({ id: z.string(), name: z.string(), family: z.enum(MATERIAL_FAMILIES) }),
-  wire: numbers('strandDiameter', 'strands', 'copperArea', 'currentDensity').extend({ id: z.string(), kind: z.enum(['awg', 'metric', 'litz']) }),
+  wire: numbers('strandDiameter', 'strands', 'copperArea', 'currentDensity').extend({
+    id: z.string(),
+    kind: z.enum(['awg', 'metric', 'litz']),
+  }),
   turns: z.number(),
   gap: numbers('total', 'spacer', 'fringingFactor', 'relativeToCore'),
   inductanceFactor: numbers('withoutFringing', 'withFringing'),
   inductance: numbers('required', 'targetNominal', 'nominal', 'minimum', 'atLoad', 'atPeak', 'permeabilityAtPeak'),
-  flux: numbers('dc', 'acPeak', 'swing', 'peak', 'peakAtMinimumSection', 'checkCurrent', 'saturationAtHotSpot', 'saturationMargin', 'requiredMargin'),
+  flux: numbers(
+    'dc',
+    'acPeak',
+    'swing',
+    'peak',
+    'peakAtMinimumSection',
+    'checkCurrent',
+    'saturationAtHotSpot',
+    'saturationMargin',
+    'requiredMargin',
+  ),
   winding: numbers('turnsPerLayer', 'layers', 'buildHeight', 'buildAvailable', 'copperFill', 'meanTurnLength', 'wireLength'),
   copper: numbers('resistance20', 'resistanceHot', 'acFactor', 'skinDepth', 'penetrationRatio', 'dcLoss', 'acLoss'),
   coreLoss: numbers('steinmetzDensity', 'igseDensity', 'temperatureFactor', 'loss'),
@@ -76,7 +94,14 @@ export const evaluationResultSchema = z.object({
   thermal: numbers('riseBySurface', 'riseByVolume', 'rise', 'surfaceTemperature', 'hotSpot', 'hotSpotAllowance', 'passes'),
 }) satisfies z.ZodType<EvaluationResult>;
 
-export const lossAtFrequencySchema = numbers('frequency', 'copperDc', 'copperAc', 'core', 'total', 'rise') satisfies z.ZodType<LossAtFrequency>;
+export const lossAtFrequencySchema = numbers(
+  'frequency',
+  'copperDc',
+  'copperAc',
+  'core',
+  'total',
+  'rise',
+) satisfies z.ZodType<LossAtFrequency>;
 
 /** POST /calc/evaluate: the wire as evaluated, every figure, and the loss sweep when asked for. */
 export const evaluateAnswerSchema = z.object({

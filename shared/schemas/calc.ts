@@ -111,8 +111,12 @@ export const designLimitsSchema = z
       .meta({ description: 'Most round wires in hand before litz is used (1…50)' })
       .optional(),
     minPermeabilityAtPeak: rangeNumber('minPermeabilityAtPeak', 0, 1, '', 'Smallest L(Ipk)/L0 of a powder core').optional(),
-    allowedFamilies: uniqueListSchema(z.enum(CORE_FAMILIES), CORE_FAMILIES.length, 'allowedFamilies').meta({ description: 'Core families to consider' }).optional(),
-    allowedMaterials: uniqueListSchema(text().min(1).max(80), 200, 'allowedMaterials').meta({ description: 'Material ids to consider' }).optional(),
+    allowedFamilies: uniqueListSchema(z.enum(CORE_FAMILIES), CORE_FAMILIES.length, 'allowedFamilies')
+      .meta({ description: 'Core families to consider' })
+      .optional(),
+    allowedMaterials: uniqueListSchema(text().min(1).max(80), 200, 'allowedMaterials')
+      .meta({ description: 'Material ids to consider' })
+      .optional(),
   })
   .strict()
   .meta({ description: 'Design limits; omitted fields take the engine defaults' });
@@ -211,7 +215,9 @@ export const searchRequestSchema = z
     materialIds: uniqueListSchema(storedIdTextSchema(), 200, 'materialIds').meta({ description: 'Catalogue material ids' }).optional(),
     materials: z.array(inlineMaterialSchema).max(20).meta({ description: 'Inline materials' }).optional(),
     coreIds: uniqueListSchema(idSchema, 2000, 'coreIds').meta({ description: 'Restrict to these cores' }).optional(),
-    families: uniqueListSchema(z.enum(CORE_FAMILIES), CORE_FAMILIES.length, 'families').meta({ description: 'Restrict to these core families' }).optional(),
+    families: uniqueListSchema(z.enum(CORE_FAMILIES), CORE_FAMILIES.length, 'families')
+      .meta({ description: 'Restrict to these core families' })
+      .optional(),
     rankBy: rankBySchema.default('loss'),
     limit: z
       .number({ error: 'limit must be a whole number' })

@@ -25,12 +25,24 @@ const { deltaB: DELTA_B, frequency: FREQUENCY } = CURVE_LIMITS;
 export const compareCurvesRequestSchema = z
   .object({
     materialIds: uniqueListSchema(materialIdSchema, 12, 'materialIds', 1),
-    deltaB: range('deltaB', DELTA_B.min, DELTA_B.max, 'T').default(0.2).meta({ description: 'Peak-to-peak flux swing of the frequency sweep (T)' }),
-    frequency: range('frequency', FREQUENCY.min, FREQUENCY.max, 'Hz').default(100e3).meta({ description: 'Frequency of the flux sweep (Hz)' }),
-    duty: finite('duty').gt(0, { error: 'duty must be between 0 and 1 (exclusive)' }).lt(1, { error: 'duty must be between 0 and 1 (exclusive)' }).default(0.5),
+    deltaB: range('deltaB', DELTA_B.min, DELTA_B.max, 'T')
+      .default(0.2)
+      .meta({ description: 'Peak-to-peak flux swing of the frequency sweep (T)' }),
+    frequency: range('frequency', FREQUENCY.min, FREQUENCY.max, 'Hz')
+      .default(100e3)
+      .meta({ description: 'Frequency of the flux sweep (Hz)' }),
+    duty: finite('duty')
+      .gt(0, { error: 'duty must be between 0 and 1 (exclusive)' })
+      .lt(1, { error: 'duty must be between 0 and 1 (exclusive)' })
+      .default(0.5),
     frequencyRange: sweepRangeSchema('frequencyRange', FREQUENCY.min, FREQUENCY.max, 'Hz').default({ min: 10e3, max: 2e6 }),
     fluxRange: sweepRangeSchema('fluxRange', DELTA_B.min, DELTA_B.max, 'T').default({ min: 0.01, max: 0.6 }),
-    points: z.number().int('points must be a whole number').min(5, 'points must be between 5 and 200').max(200, 'points must be between 5 and 200').default(41),
+    points: z
+      .number()
+      .int('points must be a whole number')
+      .min(5, 'points must be between 5 and 200')
+      .max(200, 'points must be between 5 and 200')
+      .default(41),
   })
   .strict()
   .meta({ description: 'Core-loss density of materials over a frequency sweep and a ΔB sweep (Steinmetz and triangular iGSE)' });
@@ -53,7 +65,12 @@ export const materialCurvesSchema = z.object({
   versusFlux: z.array(curvePointSchema),
 });
 export type MaterialCurves = z.infer<typeof materialCurvesSchema>;
-export const compareCurvesResponseSchema = z.object({ deltaB: z.number(), frequency: z.number(), duty: z.number(), materials: z.array(materialCurvesSchema) });
+export const compareCurvesResponseSchema = z.object({
+  deltaB: z.number(),
+  frequency: z.number(),
+  duty: z.number(),
+  materials: z.array(materialCurvesSchema),
+});
 export type CompareCurvesResponse = z.infer<typeof compareCurvesResponseSchema>;
 
 export const compareDesignRequestSchema = z
@@ -61,9 +78,15 @@ export const compareDesignRequestSchema = z
     spec: converterSpecSchema,
     limits: designLimitsSchema.optional(),
     coreId: text().trim().min(1).max(80).meta({ description: 'Catalogue or user core id' }),
-    turns: z.number({ error: 'turns must be a whole number' }).int('turns must be a whole number').min(1, 'turns must be between 1 and 2000').max(2000, 'turns must be between 1 and 2000'),
+    turns: z
+      .number({ error: 'turns must be a whole number' })
+      .int('turns must be a whole number')
+      .min(1, 'turns must be between 1 and 2000')
+      .max(2000, 'turns must be between 1 and 2000'),
     wire: wireRequestSchema,
-    materialIds: uniqueListSchema(materialIdSchema, 200, 'materialIds').optional().meta({ description: 'Restrict to these materials (default: every current one)' }),
+    materialIds: uniqueListSchema(materialIdSchema, 200, 'materialIds')
+      .optional()
+      .meta({ description: 'Restrict to these materials (default: every current one)' }),
   })
   .strict()
   .meta({ description: 'One design (same core, turns, wire) evaluated with every current material; gap re-solved per material' });
@@ -72,8 +95,14 @@ export type CompareDesignRequest = z.infer<typeof compareDesignRequestSchema>;
 export const compareSavedDesignRequestSchema = z
   .object({
     designId: storedIdSchema('design id'),
-    revision: z.number({ error: 'revision must be a revision number' }).int('revision must be a revision number').min(1, 'revision must be a revision number').max(100_000, 'revision must be a revision number'),
-    materialIds: uniqueListSchema(materialIdSchema, 200, 'materialIds').optional().meta({ description: "Restrict to these materials (default: every current one plus the revision's own)" }),
+    revision: z
+      .number({ error: 'revision must be a revision number' })
+      .int('revision must be a revision number')
+      .min(1, 'revision must be a revision number')
+      .max(100_000, 'revision must be a revision number'),
+    materialIds: uniqueListSchema(materialIdSchema, 200, 'materialIds')
+      .optional()
+      .meta({ description: "Restrict to these materials (default: every current one plus the revision's own)" }),
   })
   .strict()
   .meta({ description: "A saved revision's core, turns and wire evaluated with every current material; gap re-solved per material" });
@@ -98,14 +127,22 @@ export const designComparisonRowSchema = z.object({
   extrapolated: z.boolean().optional(),
 });
 export type DesignComparisonRow = z.infer<typeof designComparisonRowSchema>;
-export const comparedRevisionSchema = z.object({ id: z.number().int(), number: z.string(), title: z.string(), revision: z.number().int(), materialId: z.string() });
+export const comparedRevisionSchema = z.object({
+  id: z.number().int(),
+  number: z.string(),
+  title: z.string(),
+  revision: z.number().int(),
+  materialId: z.string(),
+});
 export type ComparedRevision = z.infer<typeof comparedRevisionSchema>;
 /** Where the design's core works: peak-to-peak flux swing (T), switching frequency (Hz), duty at Vin max. */
 export const designFluxPointSchema = z.object({ deltaB: z.number(), frequency: z.number(), duty: z.number() });
 export type DesignFluxPoint = z.infer<typeof designFluxPointSchema>;
 export const compareDesignResponseSchema = z.object({
   engineVersion: z.string(),
-  fluxPoint: designFluxPointSchema.optional().meta({ description: 'The same for every material (same core and turns); absent when no material could be evaluated' }),
+  fluxPoint: designFluxPointSchema
+    .optional()
+    .meta({ description: 'The same for every material (same core and turns); absent when no material could be evaluated' }),
   design: comparedRevisionSchema.optional().meta({ description: 'Set when a saved revision was compared' }),
   coreId: z.string(),
   turns: z.number().int(),

@@ -39,7 +39,9 @@ export const CORE_KINDS = ['ring', 'shape'] as const;
 export type CoreKind = (typeof CORE_KINDS)[number];
 
 type DimensionColumn = Exclude<CoreCsvColumn, 'name' | 'kind' | 'family' | 'source'>;
-type RequestField = keyof Omit<Extract<UserCoreRequest, { kind: 'ring' }>, 'kind' | 'name' | 'family' | 'source'> | keyof Omit<Extract<UserCoreRequest, { kind: 'shape' }>, 'kind' | 'name' | 'family' | 'source'>;
+type RequestField =
+  | keyof Omit<Extract<UserCoreRequest, { kind: 'ring' }>, 'kind' | 'name' | 'family' | 'source'>
+  | keyof Omit<Extract<UserCoreRequest, { kind: 'shape' }>, 'kind' | 'name' | 'family' | 'source'>;
 
 /** Each dimension column: the request field it fills and the divisor from the column's unit to SI. */
 const DIMENSIONS: Record<DimensionColumn, { field: RequestField; unit: 'mm' | 'mm²' | 'mm³'; toSi: number }> = {
@@ -61,7 +63,18 @@ const DIMENSIONS: Record<DimensionColumn, { field: RequestField; unit: 'mm' | 'm
 /** The dimension columns each kind uses; a row's other dimension cells must be empty. */
 export const KIND_COLUMNS: Record<CoreKind, readonly DimensionColumn[]> = {
   ring: ['od_mm', 'id_mm', 'height_mm'],
-  shape: ['ae_mm2', 'amin_mm2', 'le_mm', 've_mm3', 'window_mm2', 'window_height_mm', 'bobbin_width_mm', 'bobbin_height_mm', 'mlt_mm', 'surface_mm2'],
+  shape: [
+    'ae_mm2',
+    'amin_mm2',
+    'le_mm',
+    've_mm3',
+    'window_mm2',
+    'window_height_mm',
+    'bobbin_width_mm',
+    'bobbin_height_mm',
+    'mlt_mm',
+    'surface_mm2',
+  ],
 };
 const OPTIONAL_DIMENSIONS: readonly DimensionColumn[] = ['amin_mm2'];
 
@@ -80,6 +93,7 @@ const COLUMN_OF_FIELD: Record<string, CoreCsvColumn> = {
 // Plain decimal numbers with an optional exponent; no thousands separators, no decimal comma, no hex.
 const NUMBER_TEXT = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
 const FORMULA_START = /^[=+\-@\t\r]/;
+// eslint-disable-next-line no-control-regex -- finding control characters is the point of this pattern
 const CONTROL_CHARACTERS = /[\u0000-\u0008\u000b\u000c\u000e-\u001f]/;
 const shown = (text: string) => (text.length > 24 ? `${text.slice(0, 24)}…` : text);
 
@@ -95,7 +109,12 @@ function numberOf(column: DimensionColumn, raw: string): { value?: number; probl
   return { value };
 }
 
-const CAMEL_FIELDS = new RegExp(`\\b(${Object.keys(COLUMN_OF_FIELD).filter((f) => /[A-Z]/.test(f)).join('|')})\\b`, 'g');
+const CAMEL_FIELDS = new RegExp(
+  `\\b(${Object.keys(COLUMN_OF_FIELD)
+    .filter((f) => /[A-Z]/.test(f))
+    .join('|')})\\b`,
+  'g',
+);
 
 /**
  * A message of the request or core schema in CSV terms: field names become column names and limits in
@@ -106,7 +125,10 @@ function inCsvTerms(field: string, column: CoreCsvColumn, message: string): stri
   text = text.replace(CAMEL_FIELDS, (name) => COLUMN_OF_FIELD[name]!);
   const dimension = DIMENSIONS[column as DimensionColumn];
   if (dimension) {
-    text = text.replace(/(\d+(?:\.\d+)?(?:e[+-]?\d+)?) (m³|m²|m)(?![a-zA-Z])/, (_all, value: string) => `${Number((Number(value) * dimension.toSi).toPrecision(12))} ${dimension.unit}`);
+    text = text.replace(
+      /(\d+(?:\.\d+)?(?:e[+-]?\d+)?) (m³|m²|m)(?![a-zA-Z])/,
+      (_all, value: string) => `${Number((Number(value) * dimension.toSi).toPrecision(12))} ${dimension.unit}`,
+    );
   }
   return text.startsWith(`${column} `) ? text : `${column}: ${text}`;
 }
@@ -133,7 +155,8 @@ const columnIndex = (column: string) => (CORE_CSV_COLUMNS as readonly string[]).
 const inColumnOrder = (problems: CellProblem[]) => problems.sort((a, b) => columnIndex(a.column) - columnIndex(b.column));
 
 function textProblem(column: 'name' | 'source', text: string): CellProblem | undefined {
-  if (FORMULA_START.test(text)) return { column, message: `${column} must not start with =, +, - or @ (a spreadsheet would run it as a formula)` };
+  if (FORMULA_START.test(text))
+    return { column, message: `${column} must not start with =, +, - or @ (a spreadsheet would run it as a formula)` };
   if (CONTROL_CHARACTERS.test(text)) return { column, message: `${column} must not contain control characters` };
   return undefined;
 }

@@ -30,9 +30,20 @@ export const ringCoreRequestSchema = z
     source: noteSchema.default(''),
   })
   .strict()
-  .refine((r) => r.innerDiameter < r.outerDiameter, { path: ['innerDiameter'], message: 'innerDiameter must be smaller than outerDiameter' });
+  .refine((r) => r.innerDiameter < r.outerDiameter, {
+    path: ['innerDiameter'],
+    message: 'innerDiameter must be smaller than outerDiameter',
+  });
 
-export const GAPPED_CORE_FAMILIES = ['E', 'ETD', 'EFD', 'EQ', 'PQ', 'RM', 'POT'] as const satisfies readonly (typeof CORE_FAMILIES)[number][];
+export const GAPPED_CORE_FAMILIES = [
+  'E',
+  'ETD',
+  'EFD',
+  'EQ',
+  'PQ',
+  'RM',
+  'POT',
+] as const satisfies readonly (typeof CORE_FAMILIES)[number][];
 
 export const shapedCoreRequestSchema = z
   .object({

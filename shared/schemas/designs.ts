@@ -16,8 +16,12 @@ export const designSpecSchema = z
   .object({
     converter: converterSpecSchema,
     limits: designLimitsSchema.optional(),
-    families: uniqueListSchema(z.enum(CORE_FAMILIES), CORE_FAMILIES.length, 'families').meta({ description: 'Core families to search' }).optional(),
-    materialIds: uniqueListSchema(materialIdSchema, 200, 'materialIds').meta({ description: 'Materials to search (stored material ids)' }).optional(),
+    families: uniqueListSchema(z.enum(CORE_FAMILIES), CORE_FAMILIES.length, 'families')
+      .meta({ description: 'Core families to search' })
+      .optional(),
+    materialIds: uniqueListSchema(materialIdSchema, 200, 'materialIds')
+      .meta({ description: 'Materials to search (stored material ids)' })
+      .optional(),
   })
   .strict()
   .meta({ description: 'What the inductor must do: the converter, the limits, and which cores and materials may be used' });
@@ -70,7 +74,10 @@ export const updateRevisionRequestSchema = z
     note: text().trim().max(2000).nullable().optional(),
   })
   .strict()
-  .refine((v) => Object.values(v).some((x) => x !== undefined), { error: 'Give at least one of title, spec, construction or note', path: ['spec'] })
+  .refine((v) => Object.values(v).some((x) => x !== undefined), {
+    error: 'Give at least one of title, spec, construction or note',
+    path: ['spec'],
+  })
   .meta({ description: 'Change a draft revision; the server re-evaluates the construction' });
 export type UpdateRevisionRequest = z.infer<typeof updateRevisionRequestSchema>;
 

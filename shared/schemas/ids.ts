@@ -34,11 +34,15 @@ export function distinct<T>(values: readonly T[]): T[] {
  */
 export function uniqueListSchema<T extends z.ZodType>(item: T, max: number, field: string, min = 0) {
   const tooMany = `${field} may hold at most ${max} distinct values`;
-  return z
-    .array(item)
-    // Repeats are dropped, but a list far longer than the cap is refused before every item is checked.
-    .max(max * 10, { error: tooMany })
-    .transform((values) => distinct(values))
-    .refine((values) => values.length <= max, { error: tooMany })
-    .refine((values) => values.length >= min, { error: min === 1 ? `${field} needs at least one value` : `${field} needs at least ${min} values` });
+  return (
+    z
+      .array(item)
+      // Repeats are dropped, but a list far longer than the cap is refused before every item is checked.
+      .max(max * 10, { error: tooMany })
+      .transform((values) => distinct(values))
+      .refine((values) => values.length <= max, { error: tooMany })
+      .refine((values) => values.length >= min, {
+        error: min === 1 ? `${field} needs at least one value` : `${field} needs at least ${min} values`,
+      })
+  );
 }

@@ -38,7 +38,15 @@ export const MATERIAL_CSV_COLUMNS = [
 export type MaterialCsvColumn = (typeof MATERIAL_CSV_COLUMNS)[number];
 
 /** Columns that may be left out of the header (their cells are then empty). */
-export const OPTIONAL_MATERIAL_COLUMNS: readonly MaterialCsvColumn[] = ['ct0', 'ct1', 'ct2', 't_ref', 'rolloff_a', 'rolloff_b', 'rolloff_c'];
+export const OPTIONAL_MATERIAL_COLUMNS: readonly MaterialCsvColumn[] = [
+  'ct0',
+  'ct1',
+  'ct2',
+  't_ref',
+  'rolloff_a',
+  'rolloff_b',
+  'rolloff_c',
+];
 export const REQUIRED_MATERIAL_COLUMNS: readonly MaterialCsvColumn[] = MATERIAL_CSV_COLUMNS.filter(
   (c) => !OPTIONAL_MATERIAL_COLUMNS.includes(c),
 );
@@ -92,7 +100,8 @@ function numberCell(range: { min?: number; max?: number; exclusiveMin?: number }
 }
 
 const required = (range: { min?: number; max?: number; exclusiveMin?: number }) => numberCell(range, true) as z.ZodType<number, string>;
-const optional = (range: { min?: number; max?: number; exclusiveMin?: number }) => numberCell(range, false) as z.ZodType<number | undefined, string>;
+const optional = (range: { min?: number; max?: number; exclusiveMin?: number }) =>
+  numberCell(range, false) as z.ZodType<number | undefined, string>;
 
 function textCell(max: number) {
   return text().transform((raw, ctx) => {
@@ -101,6 +110,7 @@ function textCell(max: number) {
     if (text === '') fail('is required');
     else if (text.length > max) fail(`must be at most ${max} characters`);
     else if (FORMULA_START.test(text)) fail('must not start with =, +, -, @ (a spreadsheet would run it as a formula)');
+    // eslint-disable-next-line no-control-regex -- finding control characters is the point of this pattern
     else if (/[\u0000-\u0008\u000b\u000c\u000e-\u001f]/.test(text)) fail('must not contain control characters');
     return text;
   });
@@ -146,7 +156,8 @@ export const materialCsvRowSchema = z
     const scale = UNIT_SCALES[row.unit_set];
     if (row.f_min !== undefined && row.f_max !== undefined && row.f_min > row.f_max) issue('f_min', 'must not exceed f_max');
     if (row.b_min !== undefined && row.b_max !== undefined && row.b_min > row.b_max) issue('b_min', 'must not exceed b_max');
-    if (row.f_max !== undefined && row.f_max * scale.frequency > 100e6) issue('f_max', `must be at most 100 MHz (${100e6 / scale.frequency} ${scale.frequencyUnit})`);
+    if (row.f_max !== undefined && row.f_max * scale.frequency > 100e6)
+      issue('f_max', `must be at most 100 MHz (${100e6 / scale.frequency} ${scale.frequencyUnit})`);
     if (row.b_max !== undefined && row.b_max * scale.flux > 2) issue('b_max', `must be at most 2 T (${2 / scale.flux} ${scale.fluxUnit})`);
     for (const column of ['bsat_25', 'bsat_100'] as const) {
       const value = row[column];
@@ -157,14 +168,16 @@ export const materialCsvRowSchema = z
     const partial = (columns: MaterialCsvColumn[]) => {
       const given = columns.filter((c) => row[c as keyof typeof row] !== undefined);
       if (given.length && given.length < columns.length) {
-        for (const c of columns.filter((c) => !given.includes(c))) issue(c, `is required when ${given.join(', ')} ${given.length > 1 ? 'are' : 'is'} given`);
+        for (const c of columns.filter((c) => !given.includes(c)))
+          issue(c, `is required when ${given.join(', ')} ${given.length > 1 ? 'are' : 'is'} given`);
       }
     };
     partial(['ct0', 'ct1', 'ct2']);
     partial(['rolloff_a', 'rolloff_b', 'rolloff_c']);
     if (row.k !== undefined && row.alpha !== undefined && row.beta !== undefined) {
       const kSi = kToSi(row.k, row.unit_set, row.alpha, row.beta);
-      if (!Number.isFinite(kSi) || kSi <= 0 || kSi > 1e12) issue('k', `gives ${kSi.toPrecision(3)} in SI units; must be between 0 and 1e12`);
+      if (!Number.isFinite(kSi) || kSi <= 0 || kSi > 1e12)
+        issue('k', `gives ${kSi.toPrecision(3)} in SI units; must be between 0 and 1e12`);
     }
   });
 export type MaterialCsvRow = z.output<typeof materialCsvRowSchema>;
@@ -280,9 +293,10 @@ export function materialCellsFromValues(values: MaterialValues): Record<Material
 /** Editing a material: the same cells as a CSV row (numbers may be sent as numbers), giving a new version. */
 export const materialEditSchema = z
   .object(
-    Object.fromEntries(
-      MATERIAL_CSV_COLUMNS.map((c) => [c, z.union([text().max(500), z.number()]).optional()]),
-    ) as Record<MaterialCsvColumn, z.ZodOptional<z.ZodUnion<[z.ZodString, z.ZodNumber]>>>,
+    Object.fromEntries(MATERIAL_CSV_COLUMNS.map((c) => [c, z.union([text().max(500), z.number()]).optional()])) as Record<
+      MaterialCsvColumn,
+      z.ZodOptional<z.ZodUnion<[z.ZodString, z.ZodNumber]>>
+    >,
   )
   .strict()
   .refine((edit) => Object.values(edit).some((v) => v !== undefined), { error: 'Give at least one column to change', path: ['(body)'] });
@@ -293,7 +307,12 @@ export type ImportDecision = z.infer<typeof importDecisionSchema>;
 /** Per existing name (as written in the file): make a new version, or leave the stored one alone. */
 export const importDecisionsSchema = z.record(text().max(80), importDecisionSchema);
 
-export const previewRowSchema = z.object({ row: z.number().int(), name: z.string(), status: z.enum(['new', 'exists', 'error']), problems: z.array(cellProblemSchema) });
+export const previewRowSchema = z.object({
+  row: z.number().int(),
+  name: z.string(),
+  status: z.enum(['new', 'exists', 'error']),
+  problems: z.array(cellProblemSchema),
+});
 export type PreviewRow = z.infer<typeof previewRowSchema>;
 export type PreviewStatus = PreviewRow['status'];
 /** What a CSV import would do with each row; nothing is written. */

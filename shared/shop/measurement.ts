@@ -25,7 +25,10 @@ export interface UnitFinding {
 }
 
 /** Each check of one built unit against the sheet's limits, in words the shop can act on. */
-export function judgeUnit(limits: SheetTestLimits, m: UnitMeasurement): { passed: boolean; resistanceAt20: number; findings: UnitFinding[] } {
+export function judgeUnit(
+  limits: SheetTestLimits,
+  m: UnitMeasurement,
+): { passed: boolean; resistanceAt20: number; findings: UnitFinding[] } {
   const findings: UnitFinding[] = [];
   const { inductance } = limits;
   const lOk = m.inductance >= inductance.min && m.inductance <= inductance.max;

@@ -43,7 +43,10 @@ export function sheetSections(s: WindingSheet): SheetSection[] {
       lines: [
         ['Start', s.winding.startPin],
         ['Finish', s.winding.finishPin],
-        ['Turns', `${s.winding.turns} turns in ${s.winding.layers} layer(s): ${s.winding.turnsPerLayer} per full layer, ${s.winding.lastLayerTurns} on the last`],
+        [
+          'Turns',
+          `${s.winding.turns} turns in ${s.winding.layers} layer(s): ${s.winding.turnsPerLayer} per full layer, ${s.winding.lastLayerTurns} on the last`,
+        ],
         ['Direction', s.winding.direction],
         ['Traverse', s.winding.traverse],
         ['Interlayer tape', s.winding.interlayerTape],
@@ -60,7 +63,10 @@ export function sheetSections(s: WindingSheet): SheetSection[] {
           'Inductance',
           `${microhenry(t.inductance.min)} to ${microhenry(t.inductance.max)} (nominal ${microhenry(t.inductance.nominal)}) at ${kilohertz(t.inductance.testFrequency)}, ${fmt(t.inductance.testLevel)} V rms, no DC bias`,
         ],
-        ['DC resistance', `at most ${milliohm(t.resistanceMax20)} at 20 °C (correct readings at other temperatures with 0.393 %/K for copper)`],
+        [
+          'DC resistance',
+          `at most ${milliohm(t.resistanceMax20)} at 20 °C (correct readings at other temperatures with 0.393 %/K for copper)`,
+        ],
         ['Hipot', t.hipot.instruction],
       ],
     },

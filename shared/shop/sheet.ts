@@ -31,9 +31,24 @@ export interface WindingSheet {
   parts: {
     coreSet: string;
     coreMaterial: string;
-    gap: { kind: 'centre-leg ground' | 'none (distributed gap)'; total: number; groundDepth: number; spacerAlternative: number; note: string };
+    gap: {
+      kind: 'centre-leg ground' | 'none (distributed gap)';
+      total: number;
+      groundDepth: number;
+      spacerAlternative: number;
+      note: string;
+    };
     bobbin: string;
-    wire: { description: string; kind: string; strandDiameter: number; strands: number; overallDiameter: number; grade: number | null; length: number; mass: number };
+    wire: {
+      description: string;
+      kind: string;
+      strandDiameter: number;
+      strands: number;
+      overallDiameter: number;
+      grade: number | null;
+      length: number;
+      mass: number;
+    };
     tapes: string[];
   };
   winding: {

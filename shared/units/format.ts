@@ -1,7 +1,18 @@
 // Shows SI values in engineering notation with SI prefixes: 4.7e-6 H → "4.7 µH".
 import { QUANTITIES, type QuantityKind } from './quantities';
 
-const PREFIXES: Record<number, string> = { [-15]: 'f', [-12]: 'p', [-9]: 'n', [-6]: 'µ', [-3]: 'm', 0: '', 3: 'k', 6: 'M', 9: 'G', 12: 'T' };
+const PREFIXES: Record<number, string> = {
+  [-15]: 'f',
+  [-12]: 'p',
+  [-9]: 'n',
+  [-6]: 'µ',
+  [-3]: 'm',
+  0: '',
+  3: 'k',
+  6: 'M',
+  9: 'G',
+  12: 'T',
+};
 
 /** The power of ten (a multiple of three, femto to tera) whose prefix shows `value` with 1 to 3 digits before the point. */
 export function engineeringExponent(value: number): number {

@@ -26,9 +26,7 @@ describe('App shell', () => {
   }
 
   const navigationLabels = (page: HTMLElement) =>
-    [...page.querySelectorAll('nav[aria-label="Main navigation"] [matListItemTitle]')].map((each) =>
-      each.textContent?.trim(),
-    );
+    [...page.querySelectorAll('nav[aria-label="Main navigation"] [matListItemTitle]')].map((each) => each.textContent?.trim());
 
   it('shows an engineer Home but not Users or Audit log', async () => {
     const page = await renderSignedInAs('engineer');
@@ -39,7 +37,18 @@ describe('App shell', () => {
   it('shows an admin Users and Audit log', async () => {
     const page = await renderSignedInAs('admin');
 
-    expect(navigationLabels(page)).toEqual(['Home', 'Designs', 'Materials', 'Cores', 'Compare', 'Winding shop', 'Users', 'Audit log', 'Outbox', 'Settings']);
+    expect(navigationLabels(page)).toEqual([
+      'Home',
+      'Designs',
+      'Materials',
+      'Cores',
+      'Compare',
+      'Winding shop',
+      'Users',
+      'Audit log',
+      'Outbox',
+      'Settings',
+    ]);
   });
 
   it("puts the user's display name and role in the account menu button", async () => {

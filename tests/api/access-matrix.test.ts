@@ -14,9 +14,6 @@ import { createTestApp, type TestApp } from './support/test-app.ts';
 // 403, and anonymous visitors 401 — each refusal written to the audit log (OWASP ASVS 8.2.1).
 type Policy = 'public' | 'signed-in' | readonly Role[];
 
-const UPLOADERS = ['engineer', 'reviewer', 'admin'] as const;
-const CURATORS = ['reviewer', 'admin'] as const;
-
 // Routes bound to the owner: the placeholder id 1 is a demo design (and revision) owned by the demo
 // engineer, so only that engineer passes; reviewers pass on their own designs (tests/api/designs.test.ts).
 const OWNER_OF_DESIGN_1 = ['engineer'] as const;
@@ -31,9 +28,6 @@ const DECLARED: Record<string, Policy> = Object.fromEntries(
 
 // Routes not yet declared: written out here until their router is converted.
 const UNDECLARED: Record<string, Policy> = {
-
-
-
   'GET /api/shop/orders': 'signed-in',
   'GET /api/shop/orders/:id': 'signed-in',
   'GET /api/shop/orders/:id/sheet.pdf': 'signed-in',
@@ -55,7 +49,10 @@ const BODIES: Record<string, unknown> = {
 };
 
 const concrete = (pattern: string) =>
-  pattern.replace(':kind', 'spice').replace(':index', '1').replace(/:[a-z]+/g, '1');
+  pattern
+    .replace(':kind', 'spice')
+    .replace(':index', '1')
+    .replace(/:[a-z]+/g, '1');
 
 let t: TestApp;
 const clients = {} as Record<Role | 'anonymous', ApiClient>;
@@ -67,7 +64,10 @@ beforeAll(async () => {
 afterAll(() => t.close());
 
 async function denialsFor(target: string): Promise<number> {
-  const { rows } = await t.pool.query<{ n: number }>("select count(*)::int as n from audit_log where action = 'access.denied' and target = $1", [target]);
+  const { rows } = await t.pool.query<{ n: number }>(
+    "select count(*)::int as n from audit_log where action = 'access.denied' and target = $1",
+    [target],
+  );
   return rows[0].n;
 }
 
@@ -81,7 +81,9 @@ describe('the access-control matrix', () => {
 
   const cases = Object.entries(POLICY).flatMap(([route, policy]) =>
     ([...ROLES, 'anonymous'] as const).map((who) => {
-      const allowed = policy === 'public' || (policy === 'signed-in' ? who !== 'anonymous' : who !== 'anonymous' && (policy as readonly string[]).includes(who));
+      const allowed =
+        policy === 'public' ||
+        (policy === 'signed-in' ? who !== 'anonymous' : who !== 'anonymous' && (policy as readonly string[]).includes(who));
       const expected = allowed ? 'allowed' : who === 'anonymous' ? 401 : 403;
       return { route, who, expected };
     }),

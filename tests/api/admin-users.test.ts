@@ -11,7 +11,11 @@ afterAll(() => t.close());
 
 const ADMIN_ROUTES: { method: 'get' | 'post' | 'patch'; url: string; body?: unknown }[] = [
   { method: 'get', url: '/api/admin/users' },
-  { method: 'post', url: '/api/admin/users', body: { username: 'newbie', displayName: 'New', role: 'engineer', password: 'long-enough-pw' } },
+  {
+    method: 'post',
+    url: '/api/admin/users',
+    body: { username: 'newbie', displayName: 'New', role: 'engineer', password: 'long-enough-pw' },
+  },
   { method: 'patch', url: '/api/admin/users/1', body: { role: 'admin' } },
   { method: 'get', url: '/api/admin/audit' },
 ];
@@ -29,7 +33,9 @@ describe.each<[Role | 'anonymous', number]>([
     expect(res.status).toBe(expected);
     expect(res.body.error.code).toBe(expected === 401 ? 'unauthenticated' : 'forbidden');
     expect(await tableCount(t.db, 'users')).toBe(usersBefore);
-    const denial = await t.pool.query("select 1 from audit_log where action = 'access.denied' and target like $1", [`${method.toUpperCase()} ${url}%`]);
+    const denial = await t.pool.query("select 1 from audit_log where action = 'access.denied' and target like $1", [
+      `${method.toUpperCase()} ${url}%`,
+    ]);
     expect(denial.rowCount).toBeGreaterThan(0);
   });
 });
@@ -45,25 +51,51 @@ describe('admin routes as admin', () => {
 
   it('creates a user who can then sign in, and refuses a taken username with 409 naming the field', async () => {
     const admin = await signedInAs(t.app, 'admin');
-    const created = await admin.post('/api/admin/users', { username: 'nadia', displayName: 'Nadia V.', role: 'winder', password: 'a long passphrase' });
+    const created = await admin.post('/api/admin/users', {
+      username: 'nadia',
+      displayName: 'Nadia V.',
+      role: 'winder',
+      password: 'a long passphrase',
+    });
     expect(created.status).toBe(201);
     expect(created.body.user).toMatchObject({ username: 'nadia', role: 'winder' });
     expect((await new ApiClient(t.app).signIn('nadia', 'a long passphrase')).status).toBe(200);
-    const duplicate = await admin.post('/api/admin/users', { username: 'nadia', displayName: 'Again', role: 'winder', password: 'a long passphrase' });
+    const duplicate = await admin.post('/api/admin/users', {
+      username: 'nadia',
+      displayName: 'Again',
+      role: 'winder',
+      password: 'a long passphrase',
+    });
     expect(duplicate.status).toBe(409);
     expect(duplicate.body.error.fields).toHaveProperty('username');
   });
 
   it('refuses unknown fields (mass assignment) and short passwords, naming each field', async () => {
     const admin = await signedInAs(t.app, 'admin');
-    const extra = await admin.post('/api/admin/users', { username: 'mallory', displayName: 'M', role: 'engineer', password: 'long-enough-pw', passwordHash: 'x' });
+    const extra = await admin.post('/api/admin/users', {
+      username: 'mallory',
+      displayName: 'M',
+      role: 'engineer',
+      password: 'long-enough-pw',
+      passwordHash: 'x',
+    });
     expect(extra.status).toBe(400);
     const short = await admin.post('/api/admin/users', { username: 'shorty', displayName: 'S', role: 'engineer', password: 'seven77' });
     expect(short.status).toBe(400);
     expect(short.body.error.fields.password).toMatch(/8 characters/);
-    const longPass = await admin.post('/api/admin/users', { username: 'longpass', displayName: 'L', role: 'engineer', password: 'x'.repeat(64) });
+    const longPass = await admin.post('/api/admin/users', {
+      username: 'longpass',
+      displayName: 'L',
+      role: 'engineer',
+      password: 'x'.repeat(64),
+    });
     expect(longPass.status).toBe(201);
-    const badRole = await admin.post('/api/admin/users', { username: 'roleless', displayName: 'R', role: 'superuser', password: 'long-enough-pw' });
+    const badRole = await admin.post('/api/admin/users', {
+      username: 'roleless',
+      displayName: 'R',
+      role: 'superuser',
+      password: 'long-enough-pw',
+    });
     expect(badRole.status).toBe(400);
     expect(badRole.body.error.fields).toHaveProperty('role');
   });
@@ -92,7 +124,9 @@ describe('admin routes as admin', () => {
   it('says on each listed account whether this admin may disable it or change its role: not their own', async () => {
     const admin = await signedInAs(t.app, 'admin');
     const me = (await admin.get('/api/auth/session')).body.user;
-    const { users } = (await admin.get('/api/admin/users')).body as { users: { id: number; canDisable: boolean; canChangeRole: boolean }[] };
+    const { users } = (await admin.get('/api/admin/users')).body as {
+      users: { id: number; canDisable: boolean; canChangeRole: boolean }[];
+    };
     const own = users.find((user) => user.id === me.id);
     expect(own).toMatchObject({ canDisable: false, canChangeRole: false });
     const others = users.filter((user) => user.id !== me.id);
@@ -123,7 +157,10 @@ describe('my account', () => {
     const short = await client.post('/api/account/password', { currentPassword: demoUser('reviewer').password, newPassword: 'short' });
     expect(short.status).toBe(400);
     expect(short.body.error.fields).toHaveProperty('newPassword');
-    const ok = await client.post('/api/account/password', { currentPassword: demoUser('reviewer').password, newPassword: 'brand-new-pass' });
+    const ok = await client.post('/api/account/password', {
+      currentPassword: demoUser('reviewer').password,
+      newPassword: 'brand-new-pass',
+    });
     expect(ok.status).toBe(204);
     expect((await new ApiClient(t.app).signIn('ruth', 'brand-new-pass')).status).toBe(200);
   });

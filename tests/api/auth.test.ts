@@ -30,7 +30,9 @@ describe('sign-in', () => {
     expect(res.body).toEqual({ error: { code: 'invalid_credentials', message: expect.any(String) } });
     const admin = await signedInAs(t.app, 'admin');
     const audit = await admin.get('/api/admin/audit?limit=50');
-    expect(audit.body.entries.some((e: { action: string; target: string }) => e.action === 'auth.sign_in_failed' && e.target === 'user:erin')).toBe(true);
+    expect(
+      audit.body.entries.some((e: { action: string; target: string }) => e.action === 'auth.sign_in_failed' && e.target === 'user:erin'),
+    ).toBe(true);
   });
 
   it('stores passwords as bcrypt hashes with cost 12 (ASVS 11.4.2)', async () => {

@@ -90,13 +90,22 @@ describe('POST /api/calc/core-loss', () => {
     [0.5, 0.9129],
     [0.2, 1.0826],
     [0.1, 1.361],
-  ])('gives iGSE/Steinmetz = %s → %s for a triangle at α = 1.5 (computed from the iGSE of Venkatachalam, Sullivan, Abdallah, Tacca, COMPEL 2002)', async (duty, ratio) => {
-    const res = await engineer.post('/api/calc/core-loss', { material, frequency: 100e3, deltaB: 0.2, duty, waveform: 'triangle' });
-    expect(res.body.igse / res.body.steinmetz).toBeCloseTo(ratio, 3);
-  });
+  ])(
+    'gives iGSE/Steinmetz = %s → %s for a triangle at α = 1.5 (computed from the iGSE of Venkatachalam, Sullivan, Abdallah, Tacca, COMPEL 2002)',
+    async (duty, ratio) => {
+      const res = await engineer.post('/api/calc/core-loss', { material, frequency: 100e3, deltaB: 0.2, duty, waveform: 'triangle' });
+      expect(res.body.igse / res.body.steinmetz).toBeCloseTo(ratio, 3);
+    },
+  );
 
   it('refuses α out of range and a duty of 1, naming the fields', async () => {
-    const res = await engineer.post('/api/calc/core-loss', { material: { ...material, alpha: 5 }, frequency: 100e3, deltaB: 0.2, duty: 1, waveform: 'triangle' });
+    const res = await engineer.post('/api/calc/core-loss', {
+      material: { ...material, alpha: 5 },
+      frequency: 100e3,
+      deltaB: 0.2,
+      duty: 1,
+      waveform: 'triangle',
+    });
     expect(res.status).toBe(400);
     expect(res.body.error.fields['material.alpha']).toMatch(/between 1 and 3/);
     expect(res.body.error.fields['duty']).toMatch(/between 0 and 1/);
@@ -187,7 +196,16 @@ describe.each<[Role | 'anonymous', number]>([
   it(`answer ${expected}`, async () => {
     const client = await signedInAs(t.app, role);
     expect((await client.post('/api/calc/operating-point', EXAMPLE_SPEC)).status).toBe(expected);
-    expect((await client.post('/api/calc/core-loss', { material: { k: 2, alpha: 1.5, beta: 2.5 }, frequency: 1e5, deltaB: 0.1, duty: 0.3, waveform: 'triangle' })).status).toBe(expected);
+    expect(
+      (
+        await client.post('/api/calc/core-loss', {
+          material: { k: 2, alpha: 1.5, beta: 2.5 },
+          frequency: 1e5,
+          deltaB: 0.1,
+          duty: 0.3,
+          waveform: 'triangle',
+        })
+      ).status,
+    ).toBe(expected);
   });
 });
-

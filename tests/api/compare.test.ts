@@ -11,9 +11,21 @@ beforeAll(async () => {
   engineer = await signedInAs(t.app, 'engineer');
   // A material with round coefficients so the expected losses can be worked out by hand.
   const cells: Record<string, string> = {
-    name: 'Round-number ferrite', family: 'ferrite', unit_set: 'W/m3-Hz-T', k: '1', alpha: '1.5', beta: '2.5',
-    f_min: '50000', f_max: '300000', b_min: '0.02', b_max: '0.2', bsat_25: '0.5', bsat_100: '0.4', mu_i: '2000',
-    density: '4800', provenance: 'Invented for a test',
+    name: 'Round-number ferrite',
+    family: 'ferrite',
+    unit_set: 'W/m3-Hz-T',
+    k: '1',
+    alpha: '1.5',
+    beta: '2.5',
+    f_min: '50000',
+    f_max: '300000',
+    b_min: '0.02',
+    b_max: '0.2',
+    bsat_25: '0.5',
+    bsat_100: '0.4',
+    mu_i: '2000',
+    density: '4800',
+    provenance: 'Invented for a test',
   };
   const csv = `${MATERIAL_CSV_COLUMNS.join(',')}\n${MATERIAL_CSV_COLUMNS.map((c) => cells[c] ?? '').join(',')}\n`;
   const res = await engineer.agent
@@ -29,8 +41,13 @@ const EXAMPLE_SPEC = { vinMin: 24, vinMax: 36, vout: 12, ioutMax: 10, frequency:
 describe('POST /api/compare/curves', () => {
   it('gives Steinmetz with the peak flux ΔB/2 and flags points outside the fitted range', async () => {
     const res = await engineer.post('/api/compare/curves', {
-      materialIds: [knownId], deltaB: 0.2, frequency: 100e3, duty: 0.5,
-      frequencyRange: { min: 10e3, max: 1e6 }, fluxRange: { min: 0.01, max: 1 }, points: 5,
+      materialIds: [knownId],
+      deltaB: 0.2,
+      frequency: 100e3,
+      duty: 0.5,
+      frequencyRange: { min: 10e3, max: 1e6 },
+      fluxRange: { min: 0.01, max: 1 },
+      points: 5,
     });
     expect(res.status).toBe(200);
     const [curves] = res.body.materials;
@@ -65,10 +82,21 @@ describe('POST /api/compare/curves', () => {
 describe('POST /api/compare/design', () => {
   it('evaluates one design with every current material; powders are incompatible with a gapped set', async () => {
     const res = await engineer.post('/api/compare/design', {
-      spec: EXAMPLE_SPEC, coreId: 'ETD34/17/11', turns: 20, wire: { kind: 'awg', awg: 18, strands: 2 },
+      spec: EXAMPLE_SPEC,
+      coreId: 'ETD34/17/11',
+      turns: 20,
+      wire: { kind: 'awg', awg: 18, strands: 2 },
     });
     expect(res.status).toBe(200);
-    const rows = res.body.rows as { name: string; family: string; status: string; reason?: string; coreLoss?: number; totalLoss?: number; gap?: number }[];
+    const rows = res.body.rows as {
+      name: string;
+      family: string;
+      status: string;
+      reason?: string;
+      coreLoss?: number;
+      totalLoss?: number;
+      gap?: number;
+    }[];
     const materials = (await engineer.get('/api/materials')).body.materials as unknown[];
     expect(rows).toHaveLength(materials.length);
     const powder = rows.find((r) => r.family === 'powder')!;
@@ -85,7 +113,10 @@ describe('POST /api/compare/design', () => {
 
   it('refuses an unknown core by field', async () => {
     const res = await engineer.post('/api/compare/design', {
-      spec: EXAMPLE_SPEC, coreId: 'NOPE', turns: 20, wire: { kind: 'awg', awg: 18, strands: 2 },
+      spec: EXAMPLE_SPEC,
+      coreId: 'NOPE',
+      turns: 20,
+      wire: { kind: 'awg', awg: 18, strands: 2 },
     });
     expect(res.status).toBe(400);
     expect(res.body.error.fields.coreId).toMatch(/Unknown core/);
@@ -94,13 +125,30 @@ describe('POST /api/compare/design', () => {
 
 describe('POST /api/compare/saved-design', () => {
   const SPEC = { converter: { ...EXAMPLE_SPEC, rectifier: 'ideal' } };
-  const construction = () => ({ coreId: 'ETD39/20/13', materialId: knownId, turns: 'auto', gap: 'auto', wire: { kind: 'awg', awg: 16, strands: 2 } });
-  type Row = { materialId: string; status: string; usedByDesign?: boolean; coreLoss?: number; totalLoss?: number; gap?: number };
+  const construction = () => ({
+    coreId: 'ETD39/20/13',
+    materialId: knownId,
+    turns: 'auto',
+    gap: 'auto',
+    wire: { kind: 'awg', awg: 16, strands: 2 },
+  });
+  interface Row {
+    materialId: string;
+    status: string;
+    usedByDesign?: boolean;
+    coreLoss?: number;
+    totalLoss?: number;
+    gap?: number;
+  }
 
   it("evaluates a saved revision's core, turns and wire with every material, its own material marked", async () => {
     const created = await engineer.post('/api/designs', { title: 'Saved comparison', spec: SPEC, construction: construction() });
     expect(created.status).toBe(201);
-    const saved = created.body.latest as { revision: number; construction: { turns: number; gap: number }; result: { evaluation: { coreLoss: { loss: number }; totalLoss: number } } };
+    const saved = created.body.latest as {
+      revision: number;
+      construction: { turns: number; gap: number };
+      result: { evaluation: { coreLoss: { loss: number }; totalLoss: number } };
+    };
 
     const res = await engineer.post('/api/compare/saved-design', { designId: created.body.id, revision: saved.revision });
     expect(res.status).toBe(200);

@@ -26,7 +26,12 @@ function versionsOf(rows: { version: number; current: boolean }[]) {
 
 describe('four parallel writes of one thing', () => {
   it('edits of one material: one new version, three 409s naming the material changed meanwhile', async () => {
-    const list = (await engineer.get('/api/materials/library')).body.materials as { id: number; name: string; version: number; lineage?: string }[];
+    const list = (await engineer.get('/api/materials/library')).body.materials as {
+      id: number;
+      name: string;
+      version: number;
+      lineage?: string;
+    }[];
     const target = list.find((m) => m.name.startsWith('Demo ferrite MF-95'))!;
     const answers = await Promise.all([1.41, 1.42, 1.43, 1.44].map((alpha) => engineer.patch(`/api/materials/${target.id}`, { alpha })));
     expect(statuses(answers)).toEqual([201, 409, 409, 409]);
@@ -37,22 +42,38 @@ describe('four parallel writes of one thing', () => {
       expect(refused.body.error.message).toMatch(/version of (this|a) material/);
     }
     const [row] = await t.db.select().from(materials).where(eq(materials.id, target.id));
-    expect(versionsOf(await t.db.select().from(materials).where(eq(materials.lineage, row.lineage)))).toEqual({ versions: [1, 2], current: 1 });
+    expect(versionsOf(await t.db.select().from(materials).where(eq(materials.lineage, row.lineage)))).toEqual({
+      versions: [1, 2],
+      current: 1,
+    });
   });
 
   it('edits of one user core: one new version, three 409s', async () => {
-    const ring = { kind: 'ring', name: 'Parallel ring 20/10/7', family: 'POWDER_TOROID', outerDiameter: 20e-3, innerDiameter: 10e-3, height: 7e-3, source: 'our own sample' };
+    const ring = {
+      kind: 'ring',
+      name: 'Parallel ring 20/10/7',
+      family: 'POWDER_TOROID',
+      outerDiameter: 20e-3,
+      innerDiameter: 10e-3,
+      height: 7e-3,
+      source: 'our own sample',
+    };
     const created = await engineer.post('/api/catalogue/cores', ring);
     expect(created.status).toBe(201);
     const id = created.body.userCoreId as number;
-    const answers = await Promise.all([8, 9, 10, 11].map((mm) => engineer.put(`/api/catalogue/cores/${id}`, { ...ring, height: mm * 1e-3 })));
+    const answers = await Promise.all(
+      [8, 9, 10, 11].map((mm) => engineer.put(`/api/catalogue/cores/${id}`, { ...ring, height: mm * 1e-3 })),
+    );
     expect(statuses(answers)).toEqual([201, 409, 409, 409]);
     for (const refused of answers.filter((a) => a.status === 409)) {
       expect(refused.body.error.code).toBe('conflict');
       expect(refused.body.error.message).toMatch(/version of (this|a) core/);
     }
     const [row] = await t.db.select().from(userCores).where(eq(userCores.id, id));
-    expect(versionsOf(await t.db.select().from(userCores).where(eq(userCores.lineage, row.lineage)))).toEqual({ versions: [1, 2], current: 1 });
+    expect(versionsOf(await t.db.select().from(userCores).where(eq(userCores.lineage, row.lineage)))).toEqual({
+      versions: [1, 2],
+      current: 1,
+    });
   });
 
   it('creations of one username by the admin: one account, three 409s naming the username', async () => {

@@ -22,8 +22,13 @@ afterAll(() => t.close());
 
 const IMPORT = '/api/catalogue/cores/import';
 const counts = () => tableCounts(t.db, TABLES);
-const upload = (client: ApiClient, step: 'preview' | 'commit', content: string, fileName = 'cores.csv', decisions?: Record<string, string> | string) =>
-  uploadCsv(client, `${IMPORT}/${step}`, content, fileName, decisions);
+const upload = (
+  client: ApiClient,
+  step: 'preview' | 'commit',
+  content: string,
+  fileName = 'cores.csv',
+  decisions?: Record<string, string> | string,
+) => uploadCsv(client, `${IMPORT}/${step}`, content, fileName, decisions);
 
 interface ListedCore {
   id: string;
@@ -57,7 +62,10 @@ describe('the core template', () => {
     const preview = await upload(engineer, 'preview', template, 'template.csv');
     expect(preview.status).toBe(200);
     expect(preview.body.summary).toEqual({ rows: 2, new: 2, exists: 0, errors: 0 });
-    expect(preview.body.rows.map((r: { row: number; name: string }) => [r.row, r.name])).toEqual([[2, RING_NAME], [3, SHAPE_NAME]]);
+    expect(preview.body.rows.map((r: { row: number; name: string }) => [r.row, r.name])).toEqual([
+      [2, RING_NAME],
+      [3, SHAPE_NAME],
+    ]);
   });
 
   it('commits both; the ring is listed with its IEC 60205 values and the set with its own', async () => {
@@ -114,7 +122,10 @@ describe('the core template', () => {
     expect(unknownDecision.status).toBe(400);
     expect(await counts()).toEqual(before);
 
-    const decided = await upload(engineer, 'commit', template, 'template.csv', { [RING_NAME.toUpperCase()]: 'new-version', [SHAPE_NAME]: 'skip' });
+    const decided = await upload(engineer, 'commit', template, 'template.csv', {
+      [RING_NAME.toUpperCase()]: 'new-version',
+      [SHAPE_NAME]: 'skip',
+    });
     expect(decided.status).toBe(201);
     expect(decided.body).toMatchObject({ created: 0, versioned: 1, skipped: 1 });
 
@@ -198,7 +209,12 @@ describe('roles', () => {
 
   it('reviewers may import', async () => {
     const reviewer = await signedInAs(t.app, 'reviewer');
-    const res = await upload(reviewer, 'commit', `${HEADER}\nReviewer ring,ring,POWDER_TOROID,25,15,10,,,,,,,,,,,our own sample\n`, 'reviewer.csv');
+    const res = await upload(
+      reviewer,
+      'commit',
+      `${HEADER}\nReviewer ring,ring,POWDER_TOROID,25,15,10,,,,,,,,,,,our own sample\n`,
+      'reviewer.csv',
+    );
     expect(res.status).toBe(201);
     expect(res.body.created).toBe(1);
   });

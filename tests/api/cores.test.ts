@@ -10,7 +10,15 @@ beforeAll(async () => {
 });
 afterAll(() => t.close());
 
-const RING = { kind: 'ring', name: 'Lab ring 25/15/10', family: 'POWDER_TOROID', outerDiameter: 25e-3, innerDiameter: 15e-3, height: 10e-3, source: 'our own sample' };
+const RING = {
+  kind: 'ring',
+  name: 'Lab ring 25/15/10',
+  family: 'POWDER_TOROID',
+  outerDiameter: 25e-3,
+  innerDiameter: 15e-3,
+  height: 10e-3,
+  source: 'our own sample',
+};
 
 describe('user cores', () => {
   it('computes a ring from its dimensions by IEC 60205 and lists it beside the shipped cores', async () => {
@@ -37,7 +45,9 @@ describe('user cores', () => {
     expect(history.body.versions.map((v: { version: number }) => v.version)).toEqual([2, 1]);
     const compare = await engineer.post('/api/compare/design', {
       spec: { vinMin: 24, vinMax: 36, vout: 12, ioutMax: 2, frequency: 100e3, rippleRatio: 0.3 },
-      coreId: 'Lab ring 25/15/10', turns: 30, wire: { kind: 'awg', awg: 22, strands: 1 },
+      coreId: 'Lab ring 25/15/10',
+      turns: 30,
+      wire: { kind: 'awg', awg: 22, strands: 1 },
     });
     expect(compare.status).toBe(200);
     const powder = compare.body.rows.find((r: { family: string }) => r.family === 'powder');
@@ -54,8 +64,19 @@ describe('user cores', () => {
     const shipped = await engineer.post('/api/catalogue/cores', { ...RING, name: 'ETD34/17/11' });
     expect(shipped.status).toBe(409);
     const shaped = await engineer.post('/api/catalogue/cores', {
-      kind: 'shape', name: 'Lab E', family: 'E', ae: 100e-6, le: 80e-3, ve: 12e-6, windowArea: 150e-6, windowHeight: 20e-3,
-      bobbinWidth: 18e-3, bobbinHeight: 6e-3, mlt: 60e-3, surfaceArea: 3e-3, source: 'measured',
+      kind: 'shape',
+      name: 'Lab E',
+      family: 'E',
+      ae: 100e-6,
+      le: 80e-3,
+      ve: 12e-6,
+      windowArea: 150e-6,
+      windowHeight: 20e-3,
+      bobbinWidth: 18e-3,
+      bobbinHeight: 6e-3,
+      mlt: 60e-3,
+      surfaceArea: 3e-3,
+      source: 'measured',
     });
     expect(shaped.status).toBe(400);
     expect(shaped.body.error.fields.ve).toMatch(/differs from Ae·le/);

@@ -22,9 +22,13 @@ beforeAll(async () => {
 afterAll(() => t.close());
 
 const counts = () => tableCounts(t.db, TABLES);
-const materialRow = (name: string, provenance: string) => `${name},ferrite,W/m3-Hz-T,3,1.4,2.6,1,2,0,1,,,,,0.5,0.4,2000,,,,4800,${provenance}`;
+const materialRow = (name: string, provenance: string) =>
+  `${name},ferrite,W/m3-Hz-T,3,1.4,2.6,1,2,0,1,,,,,0.5,0.4,2000,,,,4800,${provenance}`;
 const coreRow = (name: string, height = '7') => `${name},ring,RING,20,10,${height},,,,,,,,,,,invented`;
-type PreviewRow = { row: number; name: string };
+interface PreviewRow {
+  row: number;
+  name: string;
+}
 
 describe('row limits count records', () => {
   it('previews 6,000 material rows that each hold a quoted line break as 6,000 rows, numbered by their first line', async () => {
@@ -52,14 +56,23 @@ describe('row limits count records', () => {
     expect(commit.status).toBe(400);
     expect(Object.keys(commit.body.error.fields)).toContain('row 7.height_mm');
     const preview = await uploadCsv(engineer, `${CORES}/preview`, text, 'lined.csv');
-    expect((preview.body.rows as PreviewRow[]).map((r) => [r.row, r.name])).toEqual([[3, 'Lined ring A'], [7, 'Lined ring B']]);
+    expect((preview.body.rows as PreviewRow[]).map((r) => [r.row, r.name])).toEqual([
+      [3, 'Lined ring A'],
+      [7, 'Lined ring B'],
+    ]);
   });
 
   it('refuses a core file one record over the limit as a whole, naming the limit, with every table unchanged', async () => {
     const before = await counts();
     const rows = Array.from({ length: 1_001 }, (_, i) => coreRow(`Over ring ${i}`));
     for (const step of ['preview', 'commit'] as const) {
-      const res = await uploadCsv(engineer, `${CORES}/${step}`, `${CORE_HEADER}\n\n${rows.join('\n\n')}\n`, 'over.csv', step === 'commit' ? {} : undefined);
+      const res = await uploadCsv(
+        engineer,
+        `${CORES}/${step}`,
+        `${CORE_HEADER}\n\n${rows.join('\n\n')}\n`,
+        'over.csv',
+        step === 'commit' ? {} : undefined,
+      );
       expect(res.status).toBe(400);
       expect(res.body.error.fields.file).toMatch(/more than 1000 core rows \(the limit is 1000 per file\)/);
     }
@@ -83,9 +96,17 @@ describe('line endings', () => {
     const commit = await uploadCsv(engineer, `${CORES}/commit`, text, 'mixed.csv', {});
     expect(commit.status).toBe(201);
     expect(commit.body.created).toBe(6);
-    const materials = [MATERIAL_HEADER, materialRow('Mixed M1', 'x'), materialRow('Mixed M2', 'x')].join('\r\n').replace(/\r\n$/, '') + '\n' + materialRow('Mixed M3', 'x') + '\r\n';
+    const materials =
+      [MATERIAL_HEADER, materialRow('Mixed M1', 'x'), materialRow('Mixed M2', 'x')].join('\r\n').replace(/\r\n$/, '') +
+      '\n' +
+      materialRow('Mixed M3', 'x') +
+      '\r\n';
     const preview = await uploadCsv(engineer, `${MATERIALS}/preview`, materials, 'mixed.csv');
     expect(preview.status).toBe(200);
-    expect((preview.body.rows as PreviewRow[]).map((r) => [r.row, r.name])).toEqual([[2, 'Mixed M1'], [3, 'Mixed M2'], [4, 'Mixed M3']]);
+    expect((preview.body.rows as PreviewRow[]).map((r) => [r.row, r.name])).toEqual([
+      [2, 'Mixed M1'],
+      [3, 'Mixed M2'],
+      [4, 'Mixed M3'],
+    ]);
   });
 });

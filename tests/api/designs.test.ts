@@ -25,13 +25,29 @@ beforeAll(async () => {
 afterAll(() => t.close());
 
 // Worked buck example: 24–36 V → 12 V, 10 A, 100 kHz, ripple 0.3 at Vin max (ideal CCM buck relations, computed by hand).
-const SPEC = { converter: { vinMin: 24, vinMax: 36, vout: 12, ioutMax: 10, frequency: 100e3, rippleRatio: 0.3, rectifier: 'synchronous' as const } };
-const construction = () => ({ coreId: 'ETD39/20/13', materialId, turns: 'auto' as const, gap: 'auto' as const, wire: { kind: 'awg' as const, awg: 16, strands: 2 } });
+const SPEC = {
+  converter: { vinMin: 24, vinMax: 36, vout: 12, ioutMax: 10, frequency: 100e3, rippleRatio: 0.3, rectifier: 'synchronous' as const },
+};
+const construction = () => ({
+  coreId: 'ETD39/20/13',
+  materialId,
+  turns: 'auto' as const,
+  gap: 'auto' as const,
+  wire: { kind: 'awg' as const, awg: 16, strands: 2 },
+});
 
 async function createDesign(client: ApiClient, title = 'Bench supply inductor') {
   const res = await client.post('/api/designs', { title, spec: SPEC, construction: construction() });
   expect(res.status, JSON.stringify(res.body)).toBe(201);
-  return res.body as { id: number; number: string; latest: { revision: number; result: { evaluation: { totalLoss: number; turns: number; inductance: { required: number } } }; construction: { turns: number; gap: number } } };
+  return res.body as {
+    id: number;
+    number: string;
+    latest: {
+      revision: number;
+      result: { evaluation: { totalLoss: number; turns: number; inductance: { required: number } } };
+      construction: { turns: number; gap: number };
+    };
+  };
 }
 
 describe('designs: seeded demo', () => {
@@ -72,7 +88,10 @@ describe('designs: create, read, list', () => {
   it('names the invalid fields of a spec', async () => {
     const res = await erin.post('/api/designs', { title: '', spec: { converter: { ...SPEC.converter, vout: 40 } } });
     expect(res.status).toBe(400);
-    expect(res.body.error.fields).toMatchObject({ title: 'title is required', 'spec.converter.vout': expect.stringMatching(/below vinMin/) });
+    expect(res.body.error.fields).toMatchObject({
+      title: 'title is required',
+      'spec.converter.vout': expect.stringMatching(/below vinMin/),
+    });
   });
 
   it('lets a reviewer design (everything an engineer may), refuses an admin (403) and no one (401)', async () => {

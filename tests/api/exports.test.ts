@@ -6,9 +6,13 @@ import { createTestApp, type TestApp } from './support/test-app.ts';
 let t: TestApp;
 let erin: ApiClient;
 let winder: ApiClient;
+// eslint-disable-next-line @typescript-eslint/no-explicit-any -- the test reads whichever stored figure it checks
 let design: { id: number; number: string; latest: { result: { evaluation: Record<string, any> } } };
 
-const SPEC = { converter: { vinMin: 24, vinMax: 36, vout: 12, ioutMax: 10, frequency: 100e3, rippleRatio: 0.3, rectifier: 'synchronous' }, families: ['ETD'] };
+const SPEC = {
+  converter: { vinMin: 24, vinMax: 36, vout: 12, ioutMax: 10, frequency: 100e3, rippleRatio: 0.3, rectifier: 'synchronous' },
+  families: ['ETD'],
+};
 
 beforeAll(async () => {
   t = await createTestApp();

@@ -60,7 +60,12 @@ describe('SIGTERM during a slow request', () => {
           port,
           method: 'POST',
           path: '/api/auth/sign-in',
-          headers: { 'Content-Type': 'application/json', 'Content-Length': String(Buffer.byteLength(body)), Cookie: cookies.join('; '), 'X-XSRF-TOKEN': token },
+          headers: {
+            'Content-Type': 'application/json',
+            'Content-Length': String(Buffer.byteLength(body)),
+            Cookie: cookies.join('; '),
+            'X-XSRF-TOKEN': token,
+          },
         },
         (res) => {
           let text = '';

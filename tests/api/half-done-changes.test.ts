@@ -82,11 +82,19 @@ describe('CSV uploads: the file name and the form fields are checked as well', (
     ['__proto__ as a decision key', 'materials.csv', '{"__proto__": "skip"}', 'decisions.__proto__'],
   ])('%s → 400 naming it, nothing imported', async (_name, fileName, decisions, field) => {
     const template = (await erin.get('/api/materials/template.csv')).text;
-    const before = { materials: await tableCount(t.db, 'materials'), imports: await tableCount(t.db, 'material_imports'), audit: await tableCount(t.db, 'audit_log') };
+    const before = {
+      materials: await tableCount(t.db, 'materials'),
+      imports: await tableCount(t.db, 'material_imports'),
+      audit: await tableCount(t.db, 'audit_log'),
+    };
     const res = await uploadCsv(erin, '/api/materials/import/commit', template, fileName, decisions);
     expect(res.status).toBe(400);
     expect(Object.keys(res.body.error.fields)).toEqual([field]);
-    expect({ materials: await tableCount(t.db, 'materials'), imports: await tableCount(t.db, 'material_imports'), audit: await tableCount(t.db, 'audit_log') }).toEqual(before);
+    expect({
+      materials: await tableCount(t.db, 'materials'),
+      imports: await tableCount(t.db, 'material_imports'),
+      audit: await tableCount(t.db, 'audit_log'),
+    }).toEqual(before);
   });
 });
 

@@ -61,7 +61,13 @@ describe('a release mail pending when the app stops', () => {
     server = await startApp();
     // The fixture writes the design straight to the tables; services that are never started run no job worker.
     const config = testConfig();
-    const services = createServices({ config, pool, db: db(), logger: pino({ level: 'silent' }), mailTarget: { host: '127.0.0.1', port: smtpPort, secure: false, from: 'x@localhost' } });
+    const services = createServices({
+      config,
+      pool,
+      db: db(),
+      logger: pino({ level: 'silent' }),
+      mailTarget: { host: '127.0.0.1', port: smtpPort, secure: false, from: 'x@localhost' },
+    });
     const { revision } = await insertEvaluatedDesign({ db: db(), services } as unknown as TestApp, 'erin');
     const author = await signedInAs(server.baseUrl, 'engineer');
     const reviewer = await signedInAs(server.baseUrl, 'reviewer');
@@ -71,7 +77,12 @@ describe('a release mail pending when the app stops', () => {
     expect(released.status).toBe(200);
     const { orderId, orderNumber } = released.body as { orderId: number; orderNumber: string };
 
-    const delivery = () => db().select().from(mailDeliveries).where(eq(mailDeliveries.orderId, orderId)).then((rows) => rows[0]);
+    const delivery = () =>
+      db()
+        .select()
+        .from(mailDeliveries)
+        .where(eq(mailDeliveries.orderId, orderId))
+        .then((rows) => rows[0]);
     // The first attempt fails (connection refused) and the delivery stays pending, to be retried.
     const failed = await until('a failed attempt', async () => {
       const row = await delivery();

@@ -21,15 +21,40 @@ afterAll(() => t.close());
 
 const IMPORT = '/api/materials/import';
 const counts = () => tableCounts(t.db, TABLES);
-const upload = (client: ApiClient, step: 'preview' | 'commit', content: Buffer | string, fileName = 'materials.csv', decisions?: Record<string, string>) =>
-  uploadCsv(client, `${IMPORT}/${step}`, content, fileName, decisions);
+const upload = (
+  client: ApiClient,
+  step: 'preview' | 'commit',
+  content: Buffer | string,
+  fileName = 'materials.csv',
+  decisions?: Record<string, string>,
+) => uploadCsv(client, `${IMPORT}/${step}`, content, fileName, decisions);
 
 const HEADER = MATERIAL_CSV_COLUMNS.join(',');
 function csvRow(name: string, overrides: Record<string, string> = {}): string {
   const cells: Record<string, string> = {
-    name, family: 'ferrite', unit_set: 'W/m3-Hz-T', k: '3.2', alpha: '1.4', beta: '2.6', f_min: '50000', f_max: '300000',
-    b_min: '0.02', b_max: '0.25', ct0: '', ct1: '', ct2: '', t_ref: '', bsat_25: '0.5', bsat_100: '0.4', mu_i: '2300',
-    rolloff_a: '', rolloff_b: '', rolloff_c: '', density: '4800', provenance: 'Invented test row', ...overrides,
+    name,
+    family: 'ferrite',
+    unit_set: 'W/m3-Hz-T',
+    k: '3.2',
+    alpha: '1.4',
+    beta: '2.6',
+    f_min: '50000',
+    f_max: '300000',
+    b_min: '0.02',
+    b_max: '0.25',
+    ct0: '',
+    ct1: '',
+    ct2: '',
+    t_ref: '',
+    bsat_25: '0.5',
+    bsat_100: '0.4',
+    mu_i: '2300',
+    rolloff_a: '',
+    rolloff_b: '',
+    rolloff_c: '',
+    density: '4800',
+    provenance: 'Invented test row',
+    ...overrides,
   };
   return MATERIAL_CSV_COLUMNS.map((c) => cells[c]).join(',');
 }
@@ -103,7 +128,10 @@ describe('hostile and broken material CSV files', () => {
   });
 
   it('refuses two files and a missing file', async () => {
-    const none = await engineer.agent.post(`${IMPORT}/preview`).set('X-XSRF-TOKEN', engineer.csrfToken ?? '').field('x', '1');
+    const none = await engineer.agent
+      .post(`${IMPORT}/preview`)
+      .set('X-XSRF-TOKEN', engineer.csrfToken ?? '')
+      .field('x', '1');
     expect(none.status).toBe(400);
     expect(none.body.error.fields.file).toMatch(/Choose a CSV file/);
     const two = await engineer.agent
@@ -135,12 +163,18 @@ describe('valid uploads', () => {
     expect(undecided.body.error.fields['row 2.name']).toMatch(/new-version.*skip/);
     expect(await counts()).toEqual(before);
 
-    const decided = await upload(engineer, 'commit', text, 'lab.csv', { 'Lab ferrite, 2026 fit': 'new-version', 'lab ferrite two': 'skip' });
+    const decided = await upload(engineer, 'commit', text, 'lab.csv', {
+      'Lab ferrite, 2026 fit': 'new-version',
+      'lab ferrite two': 'skip',
+    });
     expect(decided.status).toBe(201);
     expect(decided.body).toMatchObject({ created: 0, versioned: 1, skipped: 1 });
     const [id] = decided.body.materialIds as number[];
     const history = await engineer.get(`/api/materials/${id}/history`);
-    expect(history.body.versions.map((v: { version: number; current: boolean }) => [v.version, v.current])).toEqual([[2, true], [1, false]]);
+    expect(history.body.versions.map((v: { version: number; current: boolean }) => [v.version, v.current])).toEqual([
+      [2, true],
+      [1, false],
+    ]);
 
     const imports = await engineer.get('/api/materials/imports');
     expect(imports.body.imports[0]).toMatchObject({ fileName: 'lab.csv', rowCount: 2, versionedCount: 1, skippedCount: 1 });
@@ -184,7 +218,20 @@ describe('valid uploads', () => {
     for (const original of library) {
       const copy = after.find((m) => m['name'] === `RT ${String(original['name'])}`);
       expect(copy, String(original['name'])).toBeDefined();
-      for (const key of ['k', 'kUploaded', 'alpha', 'beta', 'fitFrequencyMin', 'fitFrequencyMax', 'fitFluxMin', 'fitFluxMax', 'bsat25', 'bsat100', 'permeability', 'density']) {
+      for (const key of [
+        'k',
+        'kUploaded',
+        'alpha',
+        'beta',
+        'fitFrequencyMin',
+        'fitFrequencyMax',
+        'fitFluxMin',
+        'fitFluxMax',
+        'bsat25',
+        'bsat100',
+        'permeability',
+        'density',
+      ]) {
         const a = original[key] as number;
         const b = copy![key] as number;
         expect(Math.abs(a - b) / Math.abs(a || 1), `${String(original['name'])} ${key}`).toBeLessThan(1e-12);
@@ -198,7 +245,12 @@ describe('valid uploads', () => {
   it('escapes formula-like cells on export', async () => {
     const list = (await engineer.get('/api/materials/library')).body.materials as { id: number; name: string }[];
     const target = list.find((m) => m.name === 'Lab ferrite two')!;
-    const edited = await engineer.patch(`/api/materials/${target.id}`, { provenance: 'note: =1+1 inside is fine', ct0: '-1.5', ct1: '0.01', ct2: '0.0001' });
+    const edited = await engineer.patch(`/api/materials/${target.id}`, {
+      provenance: 'note: =1+1 inside is fine',
+      ct0: '-1.5',
+      ct1: '0.01',
+      ct2: '0.0001',
+    });
     expect(edited.status).toBe(201);
     const csv = await engineer.get(`/api/materials/export.csv?ids=${edited.body.id}`);
     // The negative number starts with "-", so the export prefixes it with an apostrophe.

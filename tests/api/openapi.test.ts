@@ -16,7 +16,9 @@ describe('GET /api/openapi.json', () => {
     const res = await engineer.get('/api/openapi.json');
     expect(res.status).toBe(200);
     const documented = Object.entries(res.body.paths as Record<string, Record<string, unknown>>)
-      .flatMap(([path, operations]) => Object.keys(operations).map((method) => `${method.toUpperCase()} /api${path.replace(/\{(\w+)\}/g, ':$1')}`))
+      .flatMap(([path, operations]) =>
+        Object.keys(operations).map((method) => `${method.toUpperCase()} /api${path.replace(/\{(\w+)\}/g, ':$1')}`),
+      )
       .sort();
     expect(documented).toEqual(listRoutes(t.app));
   });
@@ -40,7 +42,15 @@ describe('GET /api/openapi.json', () => {
     const res = await engineer.get('/api/openapi.json');
     expect(res.status).toBe(200);
     expect(res.body.openapi).toBe('3.1.0');
-    for (const path of ['/calc/operating-point', '/calc/core-loss', '/calc/search', '/calc/evaluate', '/compare/curves', '/compare/design', '/compare/saved-design']) {
+    for (const path of [
+      '/calc/operating-point',
+      '/calc/core-loss',
+      '/calc/search',
+      '/calc/evaluate',
+      '/compare/curves',
+      '/compare/design',
+      '/compare/saved-design',
+    ]) {
       expect(res.body.paths[path].post.requestBody.content['application/json'].schema).toBeTypeOf('object');
     }
     const op = res.body.paths['/calc/operating-point'].post.requestBody.content['application/json'].schema;
@@ -69,7 +79,11 @@ describe('admin user edits', () => {
   it('say what the schema allows: display name, role, disabled — no e-mail or password', async () => {
     const { paths } = (await engineer.get('/api/openapi.json')).body;
     const patch = paths['/admin/users/{id}'].patch;
-    expect(Object.keys(patch.requestBody.content['application/json'].schema.properties).sort()).toEqual(['disabled', 'displayName', 'role']);
+    expect(Object.keys(patch.requestBody.content['application/json'].schema.properties).sort()).toEqual([
+      'disabled',
+      'displayName',
+      'role',
+    ]);
     expect(patch.summary).not.toMatch(/e-mail|password/i);
     expect(patch.summary).toMatch(/display name/);
   });

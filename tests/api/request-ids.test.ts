@@ -25,7 +25,11 @@ beforeAll(async () => {
 }, 60_000);
 afterAll(() => t.close());
 
-const expectFieldRefused = (res: { status: number; body: { error?: { fields?: Record<string, string> } } }, field: string, message: RegExp) => {
+const expectFieldRefused = (
+  res: { status: number; body: { error?: { fields?: Record<string, string> } } },
+  field: string,
+  message: RegExp,
+) => {
   expect(res.status, JSON.stringify(res.body)).toBe(400);
   expect(res.body.error?.fields?.[field]).toMatch(message);
 };
@@ -34,9 +38,24 @@ describe('ids beyond the database integer range', () => {
   it.each([TOO_BIG, WAY_TOO_BIG])('are refused with 400 naming the field: %s', async (id) => {
     const range = /whole numbers from 1 to 2147483647/;
     expectFieldRefused(await engineer.post('/api/calc/search', { spec: SPEC, materialIds: [id] }), 'materialIds.0', range);
-    expectFieldRefused(await engineer.post('/api/calc/evaluate', { spec: SPEC, coreId: 'ETD34/17/11', materialId: id, turns: 'auto', gap: 'auto', wire: WIRE }), 'materialId', range);
+    expectFieldRefused(
+      await engineer.post('/api/calc/evaluate', {
+        spec: SPEC,
+        coreId: 'ETD34/17/11',
+        materialId: id,
+        turns: 'auto',
+        gap: 'auto',
+        wire: WIRE,
+      }),
+      'materialId',
+      range,
+    );
     expectFieldRefused(await engineer.post('/api/compare/curves', { materialIds: [ferriteId, id] }), 'materialIds.1', range);
-    expectFieldRefused(await engineer.post('/api/compare/design', { spec: SPEC, coreId: 'ETD34/17/11', turns: 20, wire: WIRE, materialIds: [id] }), 'materialIds.0', range);
+    expectFieldRefused(
+      await engineer.post('/api/compare/design', { spec: SPEC, coreId: 'ETD34/17/11', turns: 20, wire: WIRE, materialIds: [id] }),
+      'materialIds.0',
+      range,
+    );
     expectFieldRefused(await engineer.post('/api/compare/saved-design', { designId: Number(id), revision: 1 }), 'designId', range);
     const design = await engineer.post('/api/designs', {
       title: 'Id range',
@@ -57,7 +76,12 @@ describe('ids beyond the database integer range', () => {
 describe('lists in requests', () => {
   it('searches a material named 200 times as one material, for any role that may search', async () => {
     const once = await engineer.post('/api/calc/search', { spec: SPEC, materialIds: [ferriteId], families: ['ETD'], limit: 20 });
-    const repeated = await engineer.post('/api/calc/search', { spec: SPEC, materialIds: Array(200).fill(ferriteId), families: Array(50).fill('ETD'), limit: 20 });
+    const repeated = await engineer.post('/api/calc/search', {
+      spec: SPEC,
+      materialIds: Array(200).fill(ferriteId),
+      families: Array(50).fill('ETD'),
+      limit: 20,
+    });
     expect(repeated.status).toBe(200);
     expect(repeated.body.counts).toEqual(once.body.counts);
     expect(repeated.body.counts.materials).toBe(1);
@@ -74,10 +98,22 @@ describe('lists in requests', () => {
     const ids = Array.from({ length: 13 }, (_, i) => String(i + 1));
     expectFieldRefused(await engineer.post('/api/compare/curves', { materialIds: ids }), 'materialIds', /at most 12 distinct values/);
     const many = Array.from({ length: 201 }, (_, i) => String(i + 1));
-    expectFieldRefused(await engineer.post('/api/calc/search', { spec: SPEC, materialIds: many }), 'materialIds', /at most 200 distinct values/);
-    expectFieldRefused(await engineer.post('/api/compare/design', { spec: SPEC, coreId: 'ETD34/17/11', turns: 20, wire: WIRE, materialIds: many }), 'materialIds', /at most 200 distinct values/);
+    expectFieldRefused(
+      await engineer.post('/api/calc/search', { spec: SPEC, materialIds: many }),
+      'materialIds',
+      /at most 200 distinct values/,
+    );
+    expectFieldRefused(
+      await engineer.post('/api/compare/design', { spec: SPEC, coreId: 'ETD34/17/11', turns: 20, wire: WIRE, materialIds: many }),
+      'materialIds',
+      /at most 200 distinct values/,
+    );
     const flood = Array(2001).fill(ferriteId);
-    expectFieldRefused(await engineer.post('/api/calc/search', { spec: SPEC, materialIds: flood }), 'materialIds', /at most 200 distinct values/);
+    expectFieldRefused(
+      await engineer.post('/api/calc/search', { spec: SPEC, materialIds: flood }),
+      'materialIds',
+      /at most 200 distinct values/,
+    );
     const exportIds = Array.from({ length: 1001 }, (_, i) => i + 1).join(',');
     expectFieldRefused(await winder.get(`/api/materials/export.csv?ids=${exportIds}`), 'ids', /at most 1000 distinct values/);
   });

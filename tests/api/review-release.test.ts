@@ -106,7 +106,9 @@ describe('review and release', () => {
     const empty = await ruth.post(`/api/revisions/${revision.id}/return`, { comment: '  ' });
     expect(empty.status).toBe(400);
     expect(empty.body.error.fields.comment).toMatch(/what needs to change/);
-    expect((await ruth.post(`/api/revisions/${revision.id}/return`, { comment: 'Use a larger core: hot spot too close to class B' })).status).toBe(200);
+    expect(
+      (await ruth.post(`/api/revisions/${revision.id}/return`, { comment: 'Use a larger core: hot spot too close to class B' })).status,
+    ).toBe(200);
     expect(await statusOf(revision.id)).toBe('draft');
     const inbox = await erin.get('/api/inbox');
     const item = inbox.body.items.find((i: { revisionId: number }) => i.revisionId === revision.id);
@@ -161,11 +163,14 @@ describe('release hand-off to the winding shop', () => {
     const message = outbox.body.messages.find((m: { subject: string }) => m.subject.includes(orderNumber));
     expect(message.attachments).toHaveLength(1);
     expect(message.attachments[0].contentType).toBe('application/pdf');
-    const pdf = await ada.agent.get(`/api/admin/outbox/${message.id}/attachments/1`).buffer(true).parse((res, cb) => {
-      const chunks: Buffer[] = [];
-      res.on('data', (c: Buffer) => chunks.push(c));
-      res.on('end', () => cb(null, Buffer.concat(chunks)));
-    });
+    const pdf = await ada.agent
+      .get(`/api/admin/outbox/${message.id}/attachments/1`)
+      .buffer(true)
+      .parse((res, cb) => {
+        const chunks: Buffer[] = [];
+        res.on('data', (c: Buffer) => chunks.push(c));
+        res.on('end', () => cb(null, Buffer.concat(chunks)));
+      });
     expect(pdf.status).toBe(200);
     const body = pdf.body as Buffer;
     expect(body.subarray(0, 5).toString()).toBe('%PDF-');
@@ -175,7 +180,18 @@ describe('release hand-off to the winding shop', () => {
     const results = process.env['TEST_RESULTS_DIR'] ?? path.resolve('test-results');
     mkdirSync(results, { recursive: true });
     writeFileSync(path.join(results, 'winding-sheet.pdf'), body);
-    execFileSync('pdftoppm', ['-png', '-r', '80', '-f', '1', '-l', '1', '-singlefile', path.join(dir, 'sheet.pdf'), path.join(results, 'winding-sheet-page1')]);
+    execFileSync('pdftoppm', [
+      '-png',
+      '-r',
+      '80',
+      '-f',
+      '1',
+      '-l',
+      '1',
+      '-singlefile',
+      path.join(dir, 'sheet.pdf'),
+      path.join(results, 'winding-sheet-page1'),
+    ]);
     const text = execFileSync('pdftotext', ['-layout', path.join(dir, 'sheet.pdf'), '-'], { encoding: 'utf8' });
     expect(text).toContain(`${turns} turns`);
     expect(text).toContain(`${(gapTotal * 1e3).toPrecision(3).replace(/\.?0+$/, '')}`);
@@ -206,7 +222,13 @@ describe('release hand-off to the winding shop', () => {
     const r20 = order.sheet.predicted.resistance20;
     // A reading at 40 °C of a winding whose R20 is the prediction: R40 = R20·(1 + 0.00393·20)
     // (IEC 60028: ρ20 = 1.7241e-8 Ω·m; α20 = 0.00393 /K, IEC 60028 — from memory).
-    const good = { inductance: limits.inductance.nominal, testFrequency: limits.inductance.testFrequency, resistance: r20 * (1 + 0.00393 * 20), resistanceTemperature: 40, hipot: 'not_tested' };
+    const good = {
+      inductance: limits.inductance.nominal,
+      testFrequency: limits.inductance.testFrequency,
+      resistance: r20 * (1 + 0.00393 * 20),
+      resistanceTemperature: 40,
+      hipot: 'not_tested',
+    };
 
     expect((await erin.post(`/api/shop/orders/${orderId}/units`, good)).status).toBe(403); // only winders record
 
@@ -216,13 +238,21 @@ describe('release hand-off to the winding shop', () => {
     expect(first.body.unit.resistanceAt20).toBeCloseTo(r20, 9);
     expect(first.body.orderStatus).toBe('open');
 
-    const low = await wendell.post(`/api/shop/orders/${orderId}/units`, { ...good, inductance: limits.inductance.min * 0.9, notes: 'gap ground too deep?' });
+    const low = await wendell.post(`/api/shop/orders/${orderId}/units`, {
+      ...good,
+      inductance: limits.inductance.min * 0.9,
+      notes: 'gap ground too deep?',
+    });
     expect(low.status).toBe(201);
     expect(low.body.unit.passed).toBe(false);
     const finding = low.body.unit.findings.find((f: { check: string }) => f.check === 'inductance');
     expect(finding.passed).toBe(false);
 
-    const hot = await wendell.post(`/api/shop/orders/${orderId}/units`, { ...good, resistance: limits.resistanceMax20 * 1.2, resistanceTemperature: 20 });
+    const hot = await wendell.post(`/api/shop/orders/${orderId}/units`, {
+      ...good,
+      resistance: limits.resistanceMax20 * 1.2,
+      resistanceTemperature: 20,
+    });
     expect(hot.body.unit.passed).toBe(false);
 
     const second = await wendell.post(`/api/shop/orders/${orderId}/units`, good);
@@ -233,7 +263,13 @@ describe('release hand-off to the winding shop', () => {
   });
 
   it('refuses impossible measurements by field', async () => {
-    const res = await wendell.post(`/api/shop/orders/${orderId}/units`, { inductance: -1, testFrequency: 1e4, resistance: 0.01, resistanceTemperature: 500, hipot: 'maybe' });
+    const res = await wendell.post(`/api/shop/orders/${orderId}/units`, {
+      inductance: -1,
+      testFrequency: 1e4,
+      resistance: 0.01,
+      resistanceTemperature: 500,
+      hipot: 'maybe',
+    });
     expect(res.status).toBe(400);
     expect(Object.keys(res.body.error.fields).sort()).toEqual(['hipot', 'inductance', 'resistanceTemperature']);
   });
@@ -262,7 +298,12 @@ describe('release hand-off to the winding shop', () => {
 describe('a mail server that is down', () => {
   it('never blocks or undoes the release; the delivery is retried and then marked failed', async () => {
     // Its own job schema: the other test app of this file, whose mail server works, must not take the job.
-    const offline = await createTestApp({ MAIL_RETRY_DELAYS_MS: '20,20', SMTP_HOST: '127.0.0.1', SMTP_PORT: '1', JOBS_SCHEMA: 'jobs_offline' });
+    const offline = await createTestApp({
+      MAIL_RETRY_DELAYS_MS: '20,20',
+      SMTP_HOST: '127.0.0.1',
+      SMTP_PORT: '1',
+      JOBS_SCHEMA: 'jobs_offline',
+    });
     try {
       const { app } = offline;
       const test = offline;

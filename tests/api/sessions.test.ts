@@ -11,7 +11,9 @@ afterAll(() => t.close());
 
 /** The signed session cookie's value set by an answer. */
 const sessionCookieOf = (res: request.Response) =>
-  /^gapwright\.sid=([^;]*)/.exec(([] as string[]).concat(res.headers['set-cookie'] ?? []).find((c) => c.startsWith('gapwright.sid=')) ?? '')![1];
+  /^gapwright\.sid=([^;]*)/.exec(
+    ([] as string[]).concat(res.headers['set-cookie'] ?? []).find((c) => c.startsWith('gapwright.sid=')) ?? '',
+  )![1];
 
 const sessionsOf = async (userId: number) =>
   (await t.pool.query(`select count(*)::int as n from session where sess->'passport'->>'user' = $1`, [String(userId)])).rows[0].n as number;
@@ -46,7 +48,11 @@ describe('anonymous visitors store no session', () => {
     const [issued, random] = token.split('.');
     const forged = `${issued}.${random}.${'A'.repeat(43)}`;
     const body = { username: 'erin', password: demoUser('engineer').password };
-    const withForged = await client.agent.post('/api/auth/sign-in').set('Cookie', `XSRF-TOKEN=${forged}`).set('X-XSRF-TOKEN', forged).send(body);
+    const withForged = await client.agent
+      .post('/api/auth/sign-in')
+      .set('Cookie', `XSRF-TOKEN=${forged}`)
+      .set('X-XSRF-TOKEN', forged)
+      .send(body);
     expect(withForged.status).toBe(403);
     expect(withForged.body.error.code).toBe('csrf_failed');
 
@@ -166,7 +172,10 @@ describe('the signed-in path reads the user and the data fresh on every request'
     await t.pool.query('update users set display_name = $1 where id = $2', ['Someone Else', item.owner.id]);
     expect((await client.get('/api/designs?sort=number&dir=asc')).body.items[0].owner.displayName).toBe('Someone Else');
     const other = item.status === 'draft' ? 'in_review' : 'draft';
-    await t.pool.query('update design_revisions set status = $1 where design_id = $2 and revision = (select max(revision) from design_revisions where design_id = $2)', [other, item.id]);
+    await t.pool.query(
+      'update design_revisions set status = $1 where design_id = $2 and revision = (select max(revision) from design_revisions where design_id = $2)',
+      [other, item.id],
+    );
     expect((await client.get('/api/designs?sort=number&dir=asc')).body.items[0].status).toBe(other);
     await t.pool.query('update users set display_name = $1 where id = $2', [item.owner.displayName, item.owner.id]);
   });

@@ -124,7 +124,15 @@ function syntheticWires(): WireOption[] {
   const wires: WireOption[] = [];
   for (const d of [0.2, 0.25, 0.315, 0.4, 0.45, 0.5, 0.56, 0.63, 0.71, 0.8, 0.9, 1.0, 1.12, 1.25, 1.4, 1.6]) {
     for (let n = 1; n <= 8; n++) {
-      wires.push({ id: `${d} mm ×${n}`, kind: 'metric', strandDiameter: d * 1e-3, strands: n, overallDiameter: d * 1.07e-3, conductorsPerTurn: n, grade: 1 });
+      wires.push({
+        id: `${d} mm ×${n}`,
+        kind: 'metric',
+        strandDiameter: d * 1e-3,
+        strands: n,
+        overallDiameter: d * 1.07e-3,
+        conductorsPerTurn: n,
+        grade: 1,
+      });
     }
   }
   for (const [n, d] of [
@@ -132,7 +140,14 @@ function syntheticWires(): WireOption[] {
     [660, 0.1],
     [1050, 0.071],
   ] as const) {
-    wires.push({ id: `litz ${n}×${d}`, kind: 'litz', strandDiameter: d * 1e-3, strands: n, overallDiameter: 1.3 * Math.sqrt(n) * d * 1e-3, conductorsPerTurn: 1 });
+    wires.push({
+      id: `litz ${n}×${d}`,
+      kind: 'litz',
+      strandDiameter: d * 1e-3,
+      strands: n,
+      overallDiameter: 1.3 * Math.sqrt(n) * d * 1e-3,
+      conductorsPerTurn: 1,
+    });
   }
   return wires;
 }
@@ -235,7 +250,9 @@ function searchLatency(cores: CoreShape[], materials: CoreMaterial[], wires: Wir
 export async function runEngineBench(): Promise<BenchRow[]> {
   const { cores, wires, source } = await loadCatalogue();
   const materials = inventedMaterials();
-  const rows: BenchRow[] = [{ name: 'engine bench data', value: `${source}; ${cores.length} cores × ${materials.length} invented materials` }];
+  const rows: BenchRow[] = [
+    { name: 'engine bench data', value: `${source}; ${cores.length} cores × ${materials.length} invented materials` },
+  ];
   const kernel = evaluationsPerSecond(cores, materials, wires);
   rows.push({
     name: 'engine evaluations per second (one core)',

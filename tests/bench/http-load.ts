@@ -1,6 +1,4 @@
 import { readFileSync } from 'node:fs';
-import path from 'node:path';
-import { fileURLToPath } from 'node:url';
 import type { EventEmitter } from 'node:events';
 import autocannon, { type Result } from 'autocannon';
 import { dropDatabase, ensureCluster, ensureDatabase } from '../../server/ops/postgres.ts';
@@ -10,7 +8,6 @@ import type { BenchRow } from './engine.ts';
 import { percentile } from './stats.ts';
 
 // Load on the real server, in its own process, over loopback only, bounded in time.
-const repoRoot = fileURLToPath(new URL('../..', import.meta.url));
 const SPEC = { vinMin: 24, vinMax: 36, vout: 12, ioutMax: 10, frequency: 100e3, rippleRatio: 0.3 };
 
 const ms = (v: number) => `${v.toFixed(1)} ms`;
@@ -41,11 +38,22 @@ export async function runHttpLoadBench({ durationSeconds = 30, connections = 50,
     });
     keep(await fetch(`${base}/api/auth/session`));
     const engineer = DEMO_USERS.find((u) => u.role === 'engineer')!;
-    keep(await fetch(`${base}/api/auth/sign-in`, { method: 'POST', headers: headers(), body: JSON.stringify({ username: engineer.username, password: engineer.password }) }));
-    const materialIds = ((await (await fetch(`${base}/api/materials`, { headers: headers() })).json()) as { materials: { id: string }[] }).materials.map((m) => m.id);
+    keep(
+      await fetch(`${base}/api/auth/sign-in`, {
+        method: 'POST',
+        headers: headers(),
+        body: JSON.stringify({ username: engineer.username, password: engineer.password }),
+      }),
+    );
+    const materialIds = (
+      (await (await fetch(`${base}/api/materials`, { headers: headers() })).json()) as { materials: { id: string }[] }
+    ).materials.map((m) => m.id);
     const searchBody = JSON.stringify({ spec: SPEC, materialIds, limit: 20 });
     const search = (await (await fetch(`${base}/api/calc/search`, { method: 'POST', headers: headers(), body: searchBody })).json()) as {
-      candidates: { result: { core: { id: string }; material: { id: string }; turns: number }; wire: { kind: string; strandDiameter: number; strands: number } }[];
+      candidates: {
+        result: { core: { id: string }; material: { id: string }; turns: number };
+        wire: { kind: string; strandDiameter: number; strands: number };
+      }[];
     };
     const best = search.candidates[0];
     const evaluateBody = JSON.stringify({
@@ -105,15 +113,28 @@ export async function runHttpLoadBench({ durationSeconds = 30, connections = 50,
     const seconds = durationSeconds * rounds;
 
     latencies.sort((a, b) => a - b);
-    const p95 = (name: string) => percentile([...probe[name]].sort((a, b) => a - b), 95);
+    const p95 = (name: string) =>
+      percentile(
+        [...probe[name]].sort((a, b) => a - b),
+        95,
+      );
     return [
-      { name: `HTTP load (${connections} connections, ${seconds} s, mixed signed-in routes)`, value: `${totals.requests} requests, ${(totals.requests / seconds).toFixed(0)} req/s` },
+      {
+        name: `HTTP load (${connections} connections, ${seconds} s, mixed signed-in routes)`,
+        value: `${totals.requests} requests, ${(totals.requests / seconds).toFixed(0)} req/s`,
+      },
       { name: 'HTTP load errors / timeouts / non-2xx', value: `${totals.errors} / ${totals.timeouts} / ${totals.non2xx}` },
-      { name: 'HTTP load latency p50 / p95 / p99', value: `${ms(percentile(latencies, 50))} / ${ms(percentile(latencies, 95))} / ${ms(percentile(latencies, 99))}` },
+      {
+        name: 'HTTP load latency p50 / p95 / p99',
+        value: `${ms(percentile(latencies, 50))} / ${ms(percentile(latencies, 95))} / ${ms(percentile(latencies, 99))}`,
+      },
       { name: 'under that load: health p95', value: ms(p95('health')) },
       { name: 'under that load: evaluate p95', value: ms(p95('evaluate')) },
       { name: 'under that load: search p95', value: ms(p95('search')) },
-      { name: 'under that load: calc p95 / health p95', value: `evaluate ${(p95('evaluate') / p95('health')).toFixed(2)}, search ${(p95('search') / p95('health')).toFixed(2)}` },
+      {
+        name: 'under that load: calc p95 / health p95',
+        value: `evaluate ${(p95('evaluate') / p95('health')).toFixed(2)}, search ${(p95('search') / p95('health')).toFixed(2)}`,
+      },
       {
         name: rounds > 1 ? `server RSS start → after each ${durationSeconds} s round` : 'server RSS start → end',
         value: [rssStart, ...rssAfterRound].map((mb) => mb.toFixed(0)).join(' → ') + ' MB',

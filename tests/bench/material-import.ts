@@ -71,8 +71,14 @@ export async function runImportBench(): Promise<BenchRow[]> {
     const commitSeconds = (performance.now() - commitStart) / 1000;
     const verdict = (s: number) => (s <= TARGET_SECONDS ? `within the ${TARGET_SECONDS} s target` : `OVER the ${TARGET_SECONDS} s target`);
     return [
-      { name: `material CSV preview (${ROWS.toLocaleString('en')} rows, ${(file.buffer.length / 1024).toFixed(0)} KiB)`, value: `${previewSeconds.toFixed(2)} s, ${preview.summary.errors} errors` },
-      { name: `material CSV validate + commit (${ROWS.toLocaleString('en')} rows)`, value: `${commitSeconds.toFixed(2)} s, ${result.created} created — ${verdict(commitSeconds)}` },
+      {
+        name: `material CSV preview (${ROWS.toLocaleString('en')} rows, ${(file.buffer.length / 1024).toFixed(0)} KiB)`,
+        value: `${previewSeconds.toFixed(2)} s, ${preview.summary.errors} errors`,
+      },
+      {
+        name: `material CSV validate + commit (${ROWS.toLocaleString('en')} rows)`,
+        value: `${commitSeconds.toFixed(2)} s, ${result.created} created — ${verdict(commitSeconds)}`,
+      },
     ];
   } finally {
     await pool.end();

@@ -23,11 +23,17 @@ export async function runOutageBench(trials = 20): Promise<BenchRow[]> {
   const crashed = results.filter((r) => r.crashed).length;
   process.stdout.write(`outage trials: ${crashed} of ${trials} crashed\n`);
   const statuses: Record<number, number> = {};
-  for (const r of results) for (const [status, n] of Object.entries(r.statuses)) statuses[Number(status)] = (statuses[Number(status)] ?? 0) + n;
+  for (const r of results)
+    for (const [status, n] of Object.entries(r.statuses)) statuses[Number(status)] = (statuses[Number(status)] ?? 0) + n;
   const others = Object.entries(statuses).filter(([s]) => !['200', '201', '503'].includes(s));
   return [
     { name: 'outage trials crashed', value: `${crashed} of ${trials}` },
-    { name: 'outage answers', value: Object.entries(statuses).map(([s, n]) => `${n}× ${s === '0' ? 'no answer' : s}`).join(', ') },
+    {
+      name: 'outage answers',
+      value: Object.entries(statuses)
+        .map(([s, n]) => `${n}× ${s === '0' ? 'no answer' : s}`)
+        .join(', '),
+    },
     { name: 'outage answers other than 200/201/503', value: others.length ? others.map(([s, n]) => `${n}× ${s}`).join(', ') : 'none' },
     { name: 'outage trials not recovered', value: String(results.filter((r) => !r.recovered).length) },
     {

@@ -33,6 +33,8 @@ const rows: BenchRow[] = [];
 for (const name of asked.length ? asked : Object.keys(SECTIONS)) rows.push(...(await SECTIONS[name]!()));
 
 const width = Math.max(...rows.map((r) => r.name.length));
-process.stdout.write(`\nGapwright benchmark — ${new Date().toISOString().slice(0, 10)}, ${os.cpus().length} cores, ${(os.totalmem() / 2 ** 30).toFixed(0)} GiB, Node ${process.version}\n\n`);
+process.stdout.write(
+  `\nGapwright benchmark — ${new Date().toISOString().slice(0, 10)}, ${os.cpus().length} cores, ${(os.totalmem() / 2 ** 30).toFixed(0)} GiB, Node ${process.version}\n\n`,
+);
 for (const row of rows) process.stdout.write(`  ${row.name.padEnd(width)}  ${row.value}\n`);
 process.stdout.write('\n');

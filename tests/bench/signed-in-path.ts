@@ -21,7 +21,13 @@ async function startFloor(databaseUrl: string) {
   const exited = new Promise((resolve) => child.once('exit', resolve));
   const url = `http://127.0.0.1:${port}`;
   for (let i = 0; i < 100; i++) {
-    if (await fetch(`${url}/bare`).then((r) => r.ok, () => false)) return { url, stop: () => (child.kill('SIGTERM'), exited) };
+    if (
+      await fetch(`${url}/bare`).then(
+        (r) => r.ok,
+        () => false,
+      )
+    )
+      return { url, stop: () => (child.kill('SIGTERM'), exited) };
     await new Promise((r) => setTimeout(r, 200));
   }
   child.kill('SIGKILL');
@@ -52,10 +58,20 @@ export async function runSignedInPathBench({ durationSeconds = 15, connections =
       }
       return res;
     };
-    const headers = () => ({ cookie: [...jar].map(([k, v]) => `${k}=${v}`).join('; '), 'x-xsrf-token': decodeURIComponent(jar.get('XSRF-TOKEN') ?? ''), 'content-type': 'application/json' });
+    const headers = () => ({
+      cookie: [...jar].map(([k, v]) => `${k}=${v}`).join('; '),
+      'x-xsrf-token': decodeURIComponent(jar.get('XSRF-TOKEN') ?? ''),
+      'content-type': 'application/json',
+    });
     keep(await fetch(`${app.baseUrl}/api/auth/session`));
     const engineer = DEMO_USERS.find((u) => u.role === 'engineer')!;
-    const signIn = keep(await fetch(`${app.baseUrl}/api/auth/sign-in`, { method: 'POST', headers: headers(), body: JSON.stringify({ username: engineer.username, password: engineer.password }) }));
+    const signIn = keep(
+      await fetch(`${app.baseUrl}/api/auth/sign-in`, {
+        method: 'POST',
+        headers: headers(),
+        body: JSON.stringify({ username: engineer.username, password: engineer.password }),
+      }),
+    );
     if (!signIn.ok) throw new Error(`sign-in failed: ${signIn.status}`);
     const run = (url: string, h: Record<string, string> = {}) => reqPerSecond(url, h, connections, durationSeconds / rounds);
 
@@ -75,7 +91,10 @@ export async function runSignedInPathBench({ durationSeconds = 15, connections =
       return `${rate.toFixed(0)} req/s = ${(rate / base).toFixed(2)} of ${of} (${base.toFixed(0)} req/s)`;
     };
     return [
-      { name: 'signed-in path vs its floor (bare Express 5 + one pg query)', value: `${connections} connections, ${rounds} rounds of ${durationSeconds / rounds} s each, median` },
+      {
+        name: 'signed-in path vs its floor (bare Express 5 + one pg query)',
+        value: `${connections} connections, ${rounds} rounds of ${durationSeconds / rounds} s each, median`,
+      },
       { name: 'signed-in GET /api/materials', value: ratio(pairs.materials, 'the floor') },
       { name: 'signed-in GET /api/designs', value: ratio(pairs.designs, 'the floor') },
       { name: 'GET /api/health', value: ratio(pairs.health, 'a bare Express route') },
@@ -89,5 +108,6 @@ export async function runSignedInPathBench({ durationSeconds = 15, connections =
 }
 
 if (process.argv[1] === fileURLToPath(import.meta.url)) {
-  for (const row of await runSignedInPathBench({ durationSeconds: Number(process.argv[2] ?? 15) })) process.stdout.write(`${row.name}: ${row.value}\n`);
+  for (const row of await runSignedInPathBench({ durationSeconds: Number(process.argv[2] ?? 15) }))
+    process.stdout.write(`${row.name}: ${row.value}\n`);
 }

@@ -10,7 +10,6 @@ const RUNS = 5;
 /** The design panel waits this long after the last keystroke before it asks the server (design-panel.ts). */
 const EDIT_DEBOUNCE_MS = 300;
 
-
 /**
  * In Chromium against the real server (needs `npm run build` first): time from pressing "Search candidates" to the
  * table drawn for the demo telecom spec, and from a turns change to the re-evaluated figures on screen.
@@ -65,10 +64,15 @@ export async function runWorkspaceBench(): Promise<BenchRow[]> {
           new Promise<number>((resolve) => {
             // This file is also type-checked without the DOM library (the benchmark runner imports it): the few
             // browser objects used here are described by hand.
-            type Node = { textContent: string | null; addEventListener(type: string, listener: () => void, options: object): void };
+            interface Node {
+              textContent: string | null;
+              addEventListener(type: string, listener: () => void, options: object): void;
+            }
             const page = globalThis as unknown as {
               document: { querySelector(selector: string): Node };
-              MutationObserver: new (callback: (changes: unknown, observer: { disconnect(): void }) => void) => { observe(target: Node, options: object): void };
+              MutationObserver: new (callback: (changes: unknown, observer: { disconnect(): void }) => void) => {
+                observe(target: Node, options: object): void;
+              };
             };
             const figure = page.document.querySelector('[data-figure="turns"]');
             const input = page.document.querySelector('input[formcontrolname="turns"]');
@@ -95,7 +99,10 @@ export async function runWorkspaceBench(): Promise<BenchRow[]> {
     const requestMs = median(requestTimes);
     return [
       { name: 'workspace: "search" to candidates table (demo telecom spec, median of 5)', value: `${searchMs.toFixed(0)} ms` },
-      { name: 'workspace: turns change to figures on screen, timed in the page (median of 5)', value: `${evaluateMs.toFixed(0)} ms (${(evaluateMs - EDIT_DEBOUNCE_MS).toFixed(0)} ms after the ${EDIT_DEBOUNCE_MS} ms debounce)` },
+      {
+        name: 'workspace: turns change to figures on screen, timed in the page (median of 5)',
+        value: `${evaluateMs.toFixed(0)} ms (${(evaluateMs - EDIT_DEBOUNCE_MS).toFixed(0)} ms after the ${EDIT_DEBOUNCE_MS} ms debounce)`,
+      },
       { name: 'workspace: of which the evaluate request (with its loss sweep)', value: `${requestMs.toFixed(0)} ms` },
     ];
   } finally {

@@ -23,7 +23,13 @@ const engineer = DEMO_USERS.find((u) => u.role === 'engineer')!;
 const csvCell = (text: string) => `"${text.replaceAll('"', '""')}"`;
 
 /** The template's row starting with `templateName`, renamed (and changed by `edit`). */
-async function templateRow(page: Page, url: string, templateName: string, name: string, edit: (row: string) => string = (r) => r): Promise<string> {
+async function templateRow(
+  page: Page,
+  url: string,
+  templateName: string,
+  name: string,
+  edit: (row: string) => string = (r) => r,
+): Promise<string> {
   const lines = (await (await page.request.get(url)).text()).trim().split('\n');
   return edit(lines.find((l) => l.startsWith(templateName))!.replace(templateName, csvCell(name)));
 }
@@ -50,10 +56,16 @@ describe('markup in names on charts', () => {
     await signIn(page, engineer.username, engineer.password);
 
     const powder = await templateRow(page, '/api/materials/template.csv', 'Example powder EP-2 (illustrative)', MATERIAL_NAME);
-    const material = (await page.evaluate(csvCommit('/api/materials/import/commit', `${MATERIAL_CSV_COLUMNS.join(',')}\n${powder}\n`, 'markup.csv'))) as { materialIds: number[] };
+    const material = (await page.evaluate(
+      csvCommit('/api/materials/import/commit', `${MATERIAL_CSV_COLUMNS.join(',')}\n${powder}\n`, 'markup.csv'),
+    )) as { materialIds: number[] };
     const materialId = String(material.materialIds[0]);
-    const ring = await templateRow(page, '/api/catalogue/cores/template.csv', 'Example ring 20/10/7 (illustrative)', CORE_NAME, (r) => r.replace(',20,10,7,', ',60,30,25,'));
-    const core = (await page.evaluate(csvCommit('/api/catalogue/cores/import/commit', `${CORE_CSV_COLUMNS.join(',')}\n${ring}\n`, 'markup-cores.csv'))) as { created: number };
+    const ring = await templateRow(page, '/api/catalogue/cores/template.csv', 'Example ring 20/10/7 (illustrative)', CORE_NAME, (r) =>
+      r.replace(',20,10,7,', ',60,30,25,'),
+    );
+    const core = (await page.evaluate(
+      csvCommit('/api/catalogue/cores/import/commit', `${CORE_CSV_COLUMNS.join(',')}\n${ring}\n`, 'markup-cores.csv'),
+    )) as { created: number };
     expect(core.created).toBe(1);
     const design = (await page.evaluate(
       apiWriteJson('POST', '/api/designs', {
@@ -68,7 +80,10 @@ describe('markup in names on charts', () => {
     const designUrl = `${h.baseUrl}/designs/${design.id}`;
     await page.goto(designUrl);
     await page.getByRole('button', { name: 'Search candidates' }).click();
-    await page.getByTestId('search-status').filter({ hasText: /feasible of/ }).waitFor({ timeout: 30_000 });
+    await page
+      .getByTestId('search-status')
+      .filter({ hasText: /feasible of/ })
+      .waitFor({ timeout: 30_000 });
     const point = page.locator('.gw-point', { hasText: CORE_NAME }).first();
     await point.waitFor();
     const candidates = page.locator('gw-candidates-panel [echarts]');

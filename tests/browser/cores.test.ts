@@ -20,7 +20,9 @@ describe('user cores from a CSV file and from effective parameters', () => {
     await page.getByRole('button', { name: 'Import cores from a CSV file' }).click();
     const template = await page.request.get('/api/catalogue/cores/template.csv');
     expect(template.status()).toBe(200);
-    await page.getByLabel('Core CSV file', { exact: true }).setInputFiles({ name: 'cores.csv', mimeType: 'text/csv', buffer: await template.body() });
+    await page
+      .getByLabel('Core CSV file', { exact: true })
+      .setInputFiles({ name: 'cores.csv', mimeType: 'text/csv', buffer: await template.body() });
     await page.getByText(/2 rows: 2 new/).waitFor();
     expect(await seriousAxeFindings(page)).toEqual([]);
     await page.getByRole('button', { name: 'Import these cores' }).click();
@@ -70,7 +72,9 @@ describe('user cores from a CSV file and from effective parameters', () => {
 
     // The same template again: the E set becomes version 2, the ring is skipped.
     await page.getByRole('button', { name: 'Import cores from a CSV file' }).click();
-    await page.getByLabel('Core CSV file', { exact: true }).setInputFiles({ name: 'cores-again.csv', mimeType: 'text/csv', buffer: await template.body() });
+    await page
+      .getByLabel('Core CSV file', { exact: true })
+      .setInputFiles({ name: 'cores-again.csv', mimeType: 'text/csv', buffer: await template.body() });
     await page.getByText(/2 rows: 0 new, 2 /).waitFor();
     await page.getByRole('combobox', { name: 'What to do with Example E-core EX-1 (illustrative)' }).click();
     await page.getByRole('option', { name: 'New version' }).click();

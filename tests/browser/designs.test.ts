@@ -17,7 +17,10 @@ describe('design workspace', () => {
     await signIn(page, erin.username, erin.password);
 
     await page.getByRole('navigation', { name: 'Main navigation' }).getByRole('link', { name: 'Designs' }).click();
-    await page.getByRole('cell', { name: /invented demo converter/ }).first().waitFor();
+    await page
+      .getByRole('cell', { name: /invented demo converter/ })
+      .first()
+      .waitFor();
     expect(await seriousAxeFindings(page)).toEqual([]);
     await page.screenshot({ path: screenshotPath('designs-list'), fullPage: true });
 
@@ -44,7 +47,10 @@ describe('design workspace', () => {
     await page.screenshot({ path: screenshotPath('designs-spec'), fullPage: true });
 
     await page.getByRole('button', { name: 'Search candidates' }).click();
-    await page.getByTestId('search-status').filter({ hasText: /feasible of/ }).waitFor({ timeout: 30_000 });
+    await page
+      .getByTestId('search-status')
+      .filter({ hasText: /feasible of/ })
+      .waitFor({ timeout: 30_000 });
     await page.locator('[data-testid="candidates-table"] tr.mat-mdc-row').first().waitFor();
 
     // Pick a point of the Pareto front on the chart itself.
@@ -99,7 +105,9 @@ describe('design workspace', () => {
     const otherCore = (await other.innerText()).replace(' (ours)', '').trim();
     await other.click();
     await page.locator('[data-figure="core"]', { hasText: otherCore }).waitFor();
-    expect(await page.getByRole('spinbutton', { name: 'Turns' }).inputValue()).toBe(await page.locator('[data-figure="turns"]').innerText());
+    expect(await page.getByRole('spinbutton', { name: 'Turns' }).inputValue()).toBe(
+      await page.locator('[data-figure="turns"]').innerText(),
+    );
 
     // The design page in the dark theme: no serious or critical axe findings either.
     await page.getByRole('button', { name: 'Switch to dark theme' }).click();

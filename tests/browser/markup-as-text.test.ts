@@ -19,7 +19,14 @@ describe('markup in names', () => {
   it('shows a display name with markup as text in the users table', async () => {
     const { context, page } = await h.newPage();
     await signIn(page, user('admin').username, user('admin').password);
-    const status = await page.evaluate(apiWrite('POST', '/api/admin/users', { username: 'mallory', displayName: HOSTILE_NAME, role: 'engineer', password: 'a long passphrase' }));
+    const status = await page.evaluate(
+      apiWrite('POST', '/api/admin/users', {
+        username: 'mallory',
+        displayName: HOSTILE_NAME,
+        role: 'engineer',
+        password: 'a long passphrase',
+      }),
+    );
     expect(status).toBe(201);
     await page.goto('/admin/users');
     await page.getByText(HOSTILE_NAME, { exact: true }).first().waitFor();

@@ -68,7 +68,11 @@ describe('editing a material in the library', () => {
 
     // A demo design built with version 1 still names it on its design page (it is no longer current).
     await page.goto('/designs');
-    await page.getByRole('row', { name: /Industrial board 24 V/ }).getByRole('link').first().click();
+    await page
+      .getByRole('row', { name: /Industrial board 24 V/ })
+      .getByRole('link')
+      .first()
+      .click();
     const materialField = page.locator('gw-design-panel').getByRole('combobox', { name: 'Material' });
     await materialField.filter({ hasText: `${MATERIAL} (the version this design uses; since replaced)` }).waitFor();
     await context.close();

@@ -23,7 +23,9 @@ describe('material library, comparison and cores', () => {
 
     const template = await page.request.get('/api/materials/template.csv');
     expect(template.status()).toBe(200);
-    await page.getByLabel('Material CSV file', { exact: true }).setInputFiles({ name: 'template.csv', mimeType: 'text/csv', buffer: await template.body() });
+    await page
+      .getByLabel('Material CSV file', { exact: true })
+      .setInputFiles({ name: 'template.csv', mimeType: 'text/csv', buffer: await template.body() });
     await page.getByRole('heading', { name: 'Preview of template.csv' }).waitFor();
     await page.getByText('2 rows: 2 new, 0 already in the library, 0 with problems.').waitFor();
     expect(await seriousAxeFindings(page)).toEqual([]);
@@ -68,7 +70,11 @@ describe('material library, comparison and cores', () => {
     const { context, page } = await h.newPage();
     await signIn(page, engineer.username, engineer.password);
     await page.goto('/designs');
-    await page.getByRole('row', { name: /Telecom rail 48 V/ }).getByRole('link').first().click();
+    await page
+      .getByRole('row', { name: /Telecom rail 48 V/ })
+      .getByRole('link')
+      .first()
+      .click();
     await page.getByRole('link', { name: 'Compare materials on revision 1' }).click();
     await page.waitForURL(/\/compare\?design=\d+&revision=1/);
     await page.getByRole('heading', { name: /revision 1 · Telecom rail 48 V/ }).waitFor();
@@ -96,7 +102,9 @@ describe('material library, comparison and cores', () => {
     await page.getByRole('cell', { name: 'Demo ferrite MF-95 (illustrative)', exact: true }).waitFor();
     const header = 'name,family,unit_set,k,alpha,beta,f_min,f_max,b_min,b_max,bsat_25,bsat_100,mu_i,density,provenance';
     const csv = `${header}\nBad one,ferrite,W/m3-Hz-T,-1,0.5,2.6,50000,300000,0.02,0.25,0.5,0.4,2000,4800,test\n`;
-    await page.getByLabel('Material CSV file', { exact: true }).setInputFiles({ name: 'bad.csv', mimeType: 'text/csv', buffer: Buffer.from(csv) });
+    await page
+      .getByLabel('Material CSV file', { exact: true })
+      .setInputFiles({ name: 'bad.csv', mimeType: 'text/csv', buffer: Buffer.from(csv) });
     await page.getByText('1 rows: 0 new, 0 already in the library, 1 with problems.', { exact: false }).waitFor();
     await page.getByText('k must be greater than 0 (got -1)').waitFor();
     await page.getByText('alpha must be between 1 and 3 (got 0.5)').waitFor();

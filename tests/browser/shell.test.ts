@@ -12,7 +12,10 @@ afterAll(() => h?.close());
 const userWith = (role: Role) => DEMO_USERS.find((u) => u.role === role)!;
 
 const EXPECTED_NAVIGATION: Record<Role, { sees: string[]; doesNotSee: string[] }> = {
-  engineer: { sees: ['Home', 'Designs', 'Materials', 'Cores', 'Compare', 'Winding shop'], doesNotSee: ['Users', 'Audit log', 'Review', 'Outbox'] },
+  engineer: {
+    sees: ['Home', 'Designs', 'Materials', 'Cores', 'Compare', 'Winding shop'],
+    doesNotSee: ['Users', 'Audit log', 'Review', 'Outbox'],
+  },
   reviewer: { sees: ['Home', 'Designs', 'Review', 'Winding shop'], doesNotSee: ['Users', 'Audit log', 'Outbox'] },
   winder: { sees: ['Home', 'Winding shop'], doesNotSee: ['Designs', 'Materials', 'Users', 'Audit log'] },
   admin: { sees: ['Home', 'Users', 'Audit log', 'Outbox', 'Settings'], doesNotSee: ['Review'] },
@@ -26,7 +29,10 @@ describe.each(Object.keys(EXPECTED_NAVIGATION) as Role[])('signed in as %s', (ro
     const nav = page.getByRole('navigation', { name: 'Main navigation' });
     for (const label of EXPECTED_NAVIGATION[role].sees) await nav.getByRole('link', { name: label }).waitFor();
     for (const label of EXPECTED_NAVIGATION[role].doesNotSee) expect(await nav.getByRole('link', { name: label }).count()).toBe(0);
-    await page.getByText(/engineering estimates/i).first().waitFor();
+    await page
+      .getByText(/engineering estimates/i)
+      .first()
+      .waitFor();
     await page.screenshot({ path: screenshotPath(`shell-${role}`), fullPage: true });
     await page.getByRole('button', { name: 'Account menu' }).click();
     await page.getByRole('menuitem', { name: 'Sign out' }).click();
@@ -101,11 +107,18 @@ describe('accessibility (axe): no serious or critical findings', () => {
       if (role) {
         const user = userWith(role);
         await signIn(page, user.username, user.password);
-        await page.evaluate((t) => fetch('/api/account/preferences', {
-          method: 'PATCH',
-          headers: { 'Content-Type': 'application/json', 'X-XSRF-TOKEN': decodeURIComponent(/XSRF-TOKEN=([^;]+)/.exec(document.cookie)?.[1] ?? '') },
-          body: JSON.stringify({ theme: t }),
-        }), theme);
+        await page.evaluate(
+          (t) =>
+            fetch('/api/account/preferences', {
+              method: 'PATCH',
+              headers: {
+                'Content-Type': 'application/json',
+                'X-XSRF-TOKEN': decodeURIComponent(/XSRF-TOKEN=([^;]+)/.exec(document.cookie)?.[1] ?? ''),
+              },
+              body: JSON.stringify({ theme: t }),
+            }),
+          theme,
+        );
       }
       await page.goto(path);
       await page.getByRole('heading', { name: ready, exact: true }).first().waitFor();

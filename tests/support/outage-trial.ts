@@ -74,7 +74,9 @@ export class OutageRig {
       const revisionId = await firstDraftRevision(databaseUrl);
       await engineer.expectOk('POST', `/api/revisions/${revisionId}/submit`, {});
       await reviewer.expectOk('POST', `/api/revisions/${revisionId}/approve`, {});
-      const released = (await reviewer.expectOk('POST', `/api/revisions/${revisionId}/release`, { quantity: 100000 })) as { orderId: number };
+      const released = (await reviewer.expectOk('POST', `/api/revisions/${revisionId}/release`, { quantity: 100000 })) as {
+        orderId: number;
+      };
       const order = (await winder.expectOk('GET', `/api/shop/orders/${released.orderId}`)) as {
         sheet: { tests: { inductance: { nominal: number; testFrequency: number } }; predicted: { resistance20: number } };
       };
@@ -131,7 +133,9 @@ export class OutageRig {
 
     let recovered = false;
     for (let i = 0; i < 100 && !recovered && alive(); i++) {
-      recovered = (await tally(engineer.send('POST', '/api/designs', { title: 'Outage trial: after the restart', spec: DEMO_DESIGNS[0].spec }))) === 201;
+      recovered =
+        (await tally(engineer.send('POST', '/api/designs', { title: 'Outage trial: after the restart', spec: DEMO_DESIGNS[0].spec }))) ===
+        201;
       if (!recovered) await pause(100);
     }
     await pause(200); // and the loops write again

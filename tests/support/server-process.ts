@@ -51,7 +51,13 @@ export async function startServerProcess(databaseUrl: string, env: Record<string
   const stderrTail = () => stderr;
   const exited = new Promise<number | null>((resolve) => child.once('close', (code) => resolve(code)));
   for (let i = 0; i < 200; i++) {
-    if (await fetch(`${baseUrl}/api/health`).then((r) => r.ok, () => false)) return { child, port, baseUrl, exited, stderrTail };
+    if (
+      await fetch(`${baseUrl}/api/health`).then(
+        (r) => r.ok,
+        () => false,
+      )
+    )
+      return { child, port, baseUrl, exited, stderrTail };
     if (child.exitCode !== null) break;
     await new Promise((r) => setTimeout(r, 200));
   }

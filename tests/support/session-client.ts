@@ -45,7 +45,8 @@ export class SessionClient {
   /** The parsed body of a 2xx answer; anything else throws with what came back. */
   async expectOk(method: string, path: string, body?: unknown): Promise<unknown> {
     const answer = await this.send(method, path, body);
-    if (answer.status < 200 || answer.status > 299) throw new Error(`${method} ${path} answered ${answer.status}: ${answer.text.slice(0, 300)}`);
+    if (answer.status < 200 || answer.status > 299)
+      throw new Error(`${method} ${path} answered ${answer.status}: ${answer.text.slice(0, 300)}`);
     return answer.text ? JSON.parse(answer.text) : undefined;
   }
 }

@@ -33,11 +33,7 @@ describe('PasswordForm', () => {
     await submit('', 'short', 'different');
 
     http.expectNone('/api/account/password');
-    expect(errorTexts()).toEqual([
-      'Enter your current password',
-      'At least 8 characters',
-      'Does not match the new password',
-    ]);
+    expect(errorTexts()).toEqual(['Enter your current password', 'At least 8 characters', 'Does not match the new password']);
   });
 
   it("shows the server's field message under the current-password field", async () => {

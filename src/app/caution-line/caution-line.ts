@@ -5,8 +5,8 @@ import { ChangeDetectionStrategy, Component } from '@angular/core';
   selector: 'gw-caution-line',
   template: `
     <p class="gw-caution">
-      Gapwright results are engineering estimates. Inductors get hot and can saturate; mains-connected designs need
-      insulation set by the applicable standards and local codes. Have every design reviewed by a qualified engineer.
+      Gapwright results are engineering estimates. Inductors get hot and can saturate; mains-connected designs need insulation set by the
+      applicable standards and local codes. Have every design reviewed by a qualified engineer.
     </p>
   `,
   styles: `

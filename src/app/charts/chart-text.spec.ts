@@ -4,7 +4,9 @@ import { escapeHtml, tooltipLines } from './chart-text';
 
 describe('chart text', () => {
   it('turns every markup character into an entity', () => {
-    expect(escapeHtml(`<meta http-equiv="refresh" content='0;url=/x'> & more`)).toBe('&lt;meta http-equiv=&quot;refresh&quot; content=&#39;0;url=/x&#39;&gt; &amp; more');
+    expect(escapeHtml(`<meta http-equiv="refresh" content='0;url=/x'> & more`)).toBe(
+      '&lt;meta http-equiv=&quot;refresh&quot; content=&#39;0;url=/x&#39;&gt; &amp; more',
+    );
   });
 
   it('escapes each line and joins the lines with breaks', () => {

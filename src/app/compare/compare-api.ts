@@ -32,7 +32,10 @@ export class CompareApi {
   private readonly api = inject(Api);
 
   materialsResource() {
-    return endpointResource(listMaterials, () => ({ query: {} }), { select: (answer): MaterialChoice[] => answer.materials, defaultValue: [] });
+    return endpointResource(listMaterials, () => ({ query: {} }), {
+      select: (answer): MaterialChoice[] => answer.materials,
+      defaultValue: [],
+    });
   }
 
   coresResource() {

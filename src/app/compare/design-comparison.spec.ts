@@ -15,7 +15,19 @@ const RESPONSE: CompareDesignResponse = {
   coreId: 'ETD34/17/11',
   turns: 21,
   rows: [
-    { materialId: '11', usedByDesign: true, name: 'Sample ferrite A', family: 'ferrite', status: 'ok', feasible: true, gap: 0.0011, coreLoss: 0.4, copperLoss: 1.1, totalLoss: 1.5, temperatureRise: 31 },
+    {
+      materialId: '11',
+      usedByDesign: true,
+      name: 'Sample ferrite A',
+      family: 'ferrite',
+      status: 'ok',
+      feasible: true,
+      gap: 0.0011,
+      coreLoss: 0.4,
+      copperLoss: 1.1,
+      totalLoss: 1.5,
+      temperatureRise: 31,
+    },
     { materialId: '12', name: 'Sample powder B', family: 'powder', status: 'incompatible', reason: 'needs a ring' },
   ],
 };
@@ -52,10 +64,18 @@ describe('DesignComparison', () => {
 
   it('puts the server’s message about the revision under the revision field', async () => {
     await openedOnRevision();
-    http.expectOne('/api/compare/saved-design').flush(
-      { error: { code: 'conflict', message: 'GW-0005 revision 2 has no construction yet.', fields: { revision: 'No construction to compare' } } },
-      { status: 409, statusText: 'Conflict' },
-    );
+    http
+      .expectOne('/api/compare/saved-design')
+      .flush(
+        {
+          error: {
+            code: 'conflict',
+            message: 'GW-0005 revision 2 has no construction yet.',
+            fields: { revision: 'No construction to compare' },
+          },
+        },
+        { status: 409, statusText: 'Conflict' },
+      );
     await fixture.whenStable();
     expect([...page.querySelectorAll('mat-error')].map((e) => e.textContent?.trim())).toEqual(['No construction to compare']);
     expect(page.querySelector('table')).toBeNull();
@@ -76,7 +96,9 @@ describe('DesignComparison', () => {
     typeInto(page, 'Ripple ratio ΔI/Iout', '40 %');
     await fixture.whenStable();
     expect(fieldLabelled(page, 'Switching frequency').value).toBe('250 kHz');
-    [...page.querySelectorAll<HTMLButtonElement>('button[type="submit"]')].find((b) => b.textContent?.includes('Compare on this design'))!.click();
+    [...page.querySelectorAll<HTMLButtonElement>('button[type="submit"]')]
+      .find((b) => b.textContent?.includes('Compare on this design'))!
+      .click();
 
     const request = http.expectOne('/api/compare/design');
     // 250 kHz = 250 000 Hz, 40 % = 0.4: SI prefixes and per cent (BIPM SI Brochure, 9th ed. — from memory).

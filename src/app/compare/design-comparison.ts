@@ -1,5 +1,17 @@
 import { DecimalPipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, ElementRef, computed, effect, inject, input, output, signal, untracked, viewChild } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  ElementRef,
+  computed,
+  effect,
+  inject,
+  input,
+  output,
+  signal,
+  untracked,
+  viewChild,
+} from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -26,7 +38,13 @@ import { CompareApi } from './compare-api';
 export type DesignSource = 'saved' | 'typed';
 
 /** The converter of a typed-in design: quantity fields, limits in SI. */
-const QUANTITY_FIELDS: readonly { name: 'vinMin' | 'vinMax' | 'vout' | 'ioutMax' | 'frequency' | 'rippleRatio'; label: string; kind: QuantityKind; min: number; max?: number }[] = [
+const QUANTITY_FIELDS: readonly {
+  name: 'vinMin' | 'vinMax' | 'vout' | 'ioutMax' | 'frequency' | 'rippleRatio';
+  label: string;
+  kind: QuantityKind;
+  min: number;
+  max?: number;
+}[] = [
   { name: 'vinMin', label: 'Vin min', kind: 'voltage', min: 0.5 },
   { name: 'vinMax', label: 'Vin max', kind: 'voltage', min: 0.5 },
   { name: 'vout', label: 'Vout', kind: 'voltage', min: 0.1 },
@@ -84,10 +102,9 @@ export class DesignComparison {
     revision: new FormControl<number | null>(null, { validators: [Validators.required] }),
   });
   protected readonly chosenDesign = toSignal(this.savedForm.controls.designId.valueChanges, { initialValue: null });
-  protected readonly revisions = toSignal(
-    this.savedForm.controls.designId.valueChanges.pipe(switchMap((id) => this.revisionsOf(id))),
-    { initialValue: [] as RevisionSummary[] },
-  );
+  protected readonly revisions = toSignal(this.savedForm.controls.designId.valueChanges.pipe(switchMap((id) => this.revisionsOf(id))), {
+    initialValue: [] as RevisionSummary[],
+  });
 
   protected readonly typedForm = new FormGroup({
     // Quantities in SI, typed with units ("36 V", "100 kHz", "30 %"); limits are the fields' own (QUANTITY_FIELDS).
@@ -184,7 +201,14 @@ export class DesignComparison {
     const v = this.typedForm.getRawValue();
     this.run(
       this.api.design({
-        spec: { vinMin: v.vinMin!, vinMax: v.vinMax!, vout: v.vout!, ioutMax: v.ioutMax!, frequency: v.frequency!, rippleRatio: v.rippleRatio! },
+        spec: {
+          vinMin: v.vinMin!,
+          vinMax: v.vinMax!,
+          vout: v.vout!,
+          ioutMax: v.ioutMax!,
+          frequency: v.frequency!,
+          rippleRatio: v.rippleRatio!,
+        },
         coreId: v.coreId,
         turns: v.turns,
         wire: { kind: 'awg', awg: v.awg, strands: v.strands },

@@ -5,13 +5,29 @@ import { formatIn } from '@shared/units/index';
 export type LossMethod = 'igse' | 'steinmetz';
 export type SweepAxis = 'frequency' | 'flux';
 
-const PALETTE = ['#b5562b', '#00796b', '#5e35b1', '#c62828', '#2e7d32', '#1565c0', '#6d4c41', '#ad1457', '#f9a825', '#37474f', '#00838f', '#8e24aa'];
+const PALETTE = [
+  '#b5562b',
+  '#00796b',
+  '#5e35b1',
+  '#c62828',
+  '#2e7d32',
+  '#1565c0',
+  '#6d4c41',
+  '#ad1457',
+  '#f9a825',
+  '#37474f',
+  '#00838f',
+  '#8e24aa',
+];
 
 /**
  * Split a curve into the fitted part (solid) and the extrapolated parts (dashed). Neighbouring points are
  * repeated so the two lines meet at the edge of the fitted range.
  */
-export function splitByFit(points: readonly CurvePoint[], method: LossMethod): { fitted: ([number, number] | null)[]; extrapolated: ([number, number] | null)[] } {
+export function splitByFit(
+  points: readonly CurvePoint[],
+  method: LossMethod,
+): { fitted: ([number, number] | null)[]; extrapolated: ([number, number] | null)[] } {
   const fitted: ([number, number] | null)[] = [];
   const extrapolated: ([number, number] | null)[] = [];
   points.forEach((p, i) => {
@@ -24,7 +40,12 @@ export function splitByFit(points: readonly CurvePoint[], method: LossMethod): {
 }
 
 /** Log-log loss curves of several materials, fitted ranges solid and shaded, extrapolation dashed. */
-export function lossChartOptions(materials: readonly MaterialCurves[], axis: SweepAxis, method: LossMethod, dark: boolean): EChartsCoreOption {
+export function lossChartOptions(
+  materials: readonly MaterialCurves[],
+  axis: SweepAxis,
+  method: LossMethod,
+  dark: boolean,
+): EChartsCoreOption {
   const text = dark ? '#e6e1e5' : '#1d1b20';
   const grid = dark ? '#49454f' : '#cac4d0';
   const series = materials.flatMap((m, i) => {

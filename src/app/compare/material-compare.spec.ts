@@ -48,7 +48,12 @@ describe('MaterialCompare', () => {
     http.expectOne('/api/catalogue/cores').flush({ cores: [] });
     await fixture.whenStable();
     // The first drawing uses the defaults, shown with their units.
-    expect(http.expectOne('/api/compare/curves').request.body).toEqual({ materialIds: ['1', '2'], deltaB: 0.2, frequency: 100e3, duty: 0.5 });
+    expect(http.expectOne('/api/compare/curves').request.body).toEqual({
+      materialIds: ['1', '2'],
+      deltaB: 0.2,
+      frequency: 100e3,
+      duty: 0.5,
+    });
     expect(fieldLabelled(page, 'ΔB for the frequency sweep, peak to peak').value).toBe('200 mT');
     expect(fieldLabelled(page, 'Frequency for the ΔB sweep').value).toBe('100 kHz');
 

@@ -56,8 +56,20 @@ export class MaterialCompare {
     duty: new FormControl(0.5, { nonNullable: true, validators: [Validators.required, Validators.min(0.01), Validators.max(0.99)] }),
   });
   protected readonly curveFields = [
-    { name: 'deltaB', label: 'ΔB for the frequency sweep, peak to peak', kind: 'fluxDensity', limits: CURVE_LIMITS.deltaB, placeholder: 'e.g. 200 mT' },
-    { name: 'frequency', label: 'Frequency for the ΔB sweep', kind: 'frequency', limits: CURVE_LIMITS.frequency, placeholder: 'e.g. 100 kHz' },
+    {
+      name: 'deltaB',
+      label: 'ΔB for the frequency sweep, peak to peak',
+      kind: 'fluxDensity',
+      limits: CURVE_LIMITS.deltaB,
+      placeholder: 'e.g. 200 mT',
+    },
+    {
+      name: 'frequency',
+      label: 'Frequency for the ΔB sweep',
+      kind: 'frequency',
+      limits: CURVE_LIMITS.frequency,
+      placeholder: 'e.g. 100 kHz',
+    },
   ] as const;
   protected readonly method = signal<LossMethod>('igse');
   protected readonly curves = signal<CompareCurvesResponse | null>(null);

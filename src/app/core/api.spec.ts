@@ -22,8 +22,12 @@ describe('calls to declared endpoints', () => {
     TestBed.inject(Api).call(inbox, {}).subscribe(answer);
     const request = backend.expectOne('/api/inbox');
     expect(request.request.method).toBe('GET');
-    request.flush({ items: [{ kind: 'build', label: 'Build BO-0001', designId: 1, orderId: 4, since: '2026-01-01T00:00:00.000Z', extra: 'dropped' }] });
-    expect(answer).toHaveBeenCalledWith({ items: [{ kind: 'build', label: 'Build BO-0001', designId: 1, orderId: 4, since: '2026-01-01T00:00:00.000Z' }] });
+    request.flush({
+      items: [{ kind: 'build', label: 'Build BO-0001', designId: 1, orderId: 4, since: '2026-01-01T00:00:00.000Z', extra: 'dropped' }],
+    });
+    expect(answer).toHaveBeenCalledWith({
+      items: [{ kind: 'build', label: 'Build BO-0001', designId: 1, orderId: 4, since: '2026-01-01T00:00:00.000Z' }],
+    });
   });
 
   it('fails instead of passing on an answer that does not match the contract', () => {
@@ -49,7 +53,9 @@ describe('calls to declared endpoints', () => {
 
   it('gives an httpResource the query and the answer schema as its parse', async () => {
     const offset = signal(50);
-    const page = runInInjectionContext(TestBed.inject(Injector), () => endpointResource(auditPage, () => ({ query: { offset: offset(), limit: 25 } })));
+    const page = runInInjectionContext(TestBed.inject(Injector), () =>
+      endpointResource(auditPage, () => ({ query: { offset: offset(), limit: 25 } })),
+    );
     TestBed.tick();
     backend.expectOne('/api/admin/audit?offset=50&limit=25').flush({ entries: [], total: 3 });
     await TestBed.inject(ApplicationRef).whenStable();

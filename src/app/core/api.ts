@@ -8,7 +8,11 @@ type QueryValue = string | number | boolean | readonly (string | number | boolea
 /** Query values as Angular sends them; undefined ones are left out. */
 function queryParams(query: unknown): Record<string, QueryValue> | undefined {
   if (query === undefined || query === null) return undefined;
-  return Object.fromEntries(Object.entries(query as Record<string, QueryValue | undefined>).filter((entry): entry is [string, QueryValue] => entry[1] !== undefined));
+  return Object.fromEntries(
+    Object.entries(query as Record<string, QueryValue | undefined>).filter(
+      (entry): entry is [string, QueryValue] => entry[1] !== undefined,
+    ),
+  );
 }
 
 function request(endpoint: Endpoint, input: { params?: unknown; query?: unknown; body?: unknown }) {
@@ -38,7 +42,10 @@ export class Api {
  * An `httpResource` of a declared endpoint whose `parse` is the answer schema; `input` returning undefined
  * sends nothing. Call it in an injection context (a field initialiser).
  */
-export function endpointResource<E extends Endpoint>(endpoint: E, input: () => CallInput<E> | undefined): HttpResourceRef<AnswerOf<E> | undefined>;
+export function endpointResource<E extends Endpoint>(
+  endpoint: E,
+  input: () => CallInput<E> | undefined,
+): HttpResourceRef<AnswerOf<E> | undefined>;
 export function endpointResource<E extends Endpoint, T>(
   endpoint: E,
   input: () => CallInput<E> | undefined,

@@ -67,7 +67,9 @@ export class CsvImport<R> {
     this.failure.set(null);
     this.run('previewing', this.preview()(file), (preview) => {
       // Existing names start as "new version": re-uploading a corrected file is the common case.
-      this.decisions.set(Object.fromEntries(preview.rows.filter((r) => r.status === 'exists').map((r) => [r.name, 'new-version' as const])));
+      this.decisions.set(
+        Object.fromEntries(preview.rows.filter((r) => r.status === 'exists').map((r) => [r.name, 'new-version' as const])),
+      );
       this.result.set(preview);
       this.phase.set('previewed');
     });

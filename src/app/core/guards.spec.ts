@@ -22,8 +22,7 @@ describe('guards', () => {
   });
 
   const signInAs = (role: Role) => TestBed.inject(Session).replaceUser(userWithRole(role));
-  const serialise = (result: unknown) =>
-    result instanceof UrlTree ? TestBed.inject(Router).serializeUrl(result) : result;
+  const serialise = (result: unknown) => (result instanceof UrlTree ? TestBed.inject(Router).serializeUrl(result) : result);
 
   it('authGuard sends a signed-out visitor to sign in, remembering where they were going', () => {
     const result = TestBed.runInInjectionContext(() => authGuard(route, stateAt('/account')));

@@ -14,7 +14,18 @@ describe('navigationFor', () => {
   });
 
   it('gives an admin Home, Users and Audit log', () => {
-    expect(labelsFor('admin')).toEqual(['Home', 'Designs', 'Materials', 'Cores', 'Compare', 'Winding shop', 'Users', 'Audit log', 'Outbox', 'Settings']);
+    expect(labelsFor('admin')).toEqual([
+      'Home',
+      'Designs',
+      'Materials',
+      'Cores',
+      'Compare',
+      'Winding shop',
+      'Users',
+      'Audit log',
+      'Outbox',
+      'Settings',
+    ]);
   });
 
   it('gives reviewers the review page and winders only the winding shop', () => {
@@ -30,6 +41,13 @@ describe('navigationFor', () => {
     const items = [...NAVIGATION, { label: 'Shop queue', icon: 'build', path: '/shop', permission: 'build' as const }];
 
     expect(navigationFor('winder', items).map((item) => item.label)).toEqual(['Home', 'Winding shop', 'Shop queue']);
-    expect(navigationFor('engineer', items).map((item) => item.label)).toEqual(['Home', 'Designs', 'Materials', 'Cores', 'Compare', 'Winding shop']);
+    expect(navigationFor('engineer', items).map((item) => item.label)).toEqual([
+      'Home',
+      'Designs',
+      'Materials',
+      'Cores',
+      'Compare',
+      'Winding shop',
+    ]);
   });
 });

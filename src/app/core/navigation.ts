@@ -25,10 +25,7 @@ export const NAVIGATION: readonly NavigationItem[] = [
   { label: 'Settings', icon: 'settings', path: '/admin/settings', permission: 'admin' },
 ];
 
-export function navigationFor(
-  role: Role | null,
-  items: readonly NavigationItem[] = NAVIGATION,
-): readonly NavigationItem[] {
+export function navigationFor(role: Role | null, items: readonly NavigationItem[] = NAVIGATION): readonly NavigationItem[] {
   if (role === null) return [];
   return items.filter((item) => may(role, item.permission));
 }

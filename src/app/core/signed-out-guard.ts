@@ -4,5 +4,4 @@ import { Router, type CanActivateFn } from '@angular/router';
 import { Session } from './session';
 
 /** The sign-in page is for signed-out visitors; someone already signed in goes home. */
-export const signedOutGuard: CanActivateFn = () =>
-  inject(Session).signedIn() ? inject(Router).createUrlTree(['/']) : true;
+export const signedOutGuard: CanActivateFn = () => (inject(Session).signedIn() ? inject(Router).createUrlTree(['/']) : true);

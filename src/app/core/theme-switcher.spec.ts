@@ -35,7 +35,7 @@ describe('ThemeSwitcher', () => {
     expect(html().classList.contains('gw-theme-dark')).toBe(true);
   });
 
-  it('lets the signed-in user\'s saved preference win over the stored choice', () => {
+  it("lets the signed-in user's saved preference win over the stored choice", () => {
     localStorage.setItem(STORAGE_KEY, 'dark');
     const switcher = TestBed.inject(ThemeSwitcher);
     TestBed.tick();

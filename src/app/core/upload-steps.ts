@@ -32,7 +32,19 @@ function csvForm(file: File, decisions?: Record<string, string>): FormData {
  * as JSON in "decisions"), reporting upload progress; the answer is parsed with the endpoint's answer schema.
  * The caller shows the errors (row and column problems belong beside the file).
  */
-export function uploadToEndpoint<E extends Endpoint>(http: HttpClient, endpoint: E, file: File, decisions?: Record<string, string>): Observable<UploadStep<AnswerOf<E>>> {
-  const events = http.request(endpoint.method, endpointUrl(endpoint), { body: csvForm(file, decisions), ...errorsShownByCaller(), reportProgress: true, observe: 'events' });
-  return uploadSteps(events).pipe(map((step) => (step.kind === 'done' ? { kind: 'done', body: endpoint.answer.parse(step.body) as AnswerOf<E> } : step)));
+export function uploadToEndpoint<E extends Endpoint>(
+  http: HttpClient,
+  endpoint: E,
+  file: File,
+  decisions?: Record<string, string>,
+): Observable<UploadStep<AnswerOf<E>>> {
+  const events = http.request(endpoint.method, endpointUrl(endpoint), {
+    body: csvForm(file, decisions),
+    ...errorsShownByCaller(),
+    reportProgress: true,
+    observe: 'events',
+  });
+  return uploadSteps(events).pipe(
+    map((step) => (step.kind === 'done' ? { kind: 'done', body: endpoint.answer.parse(step.body) as AnswerOf<E> } : step)),
+  );
 }

@@ -126,7 +126,9 @@ export class CoreCatalogue {
     if (core.userCoreId === undefined) return;
     this.api.setRetired(core.userCoreId, retired).subscribe({
       next: () => {
-        this.notifier.info(retired ? `${core.id} retired: new searches leave it out, designs that use it keep it.` : `${core.id} is back in use.`);
+        this.notifier.info(
+          retired ? `${core.id} retired: new searches leave it out, designs that use it keep it.` : `${core.id} is back in use.`,
+        );
         this.cores.reload();
       },
       error: () => this.cores.reload(),

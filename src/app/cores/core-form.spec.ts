@@ -52,7 +52,13 @@ describe('CoreForm', () => {
     await submit();
     const request = http.expectOne('/api/catalogue/cores');
     expect(request.request.body).toEqual({
-      kind: 'ring', name: 'ETD34/17/11', family: 'POWDER_TOROID', outerDiameter: 0.025, innerDiameter: 0.015, height: 0.01, source: '',
+      kind: 'ring',
+      name: 'ETD34/17/11',
+      family: 'POWDER_TOROID',
+      outerDiameter: 0.025,
+      innerDiameter: 0.015,
+      height: 0.01,
+      source: '',
     });
     request.flush(
       { error: { code: 'conflict', message: 'A shipped core.', fields: { name: 'Name of a shipped core' } } },
@@ -67,9 +73,24 @@ describe('CoreForm editing a user ring core', () => {
   it('starts from the stored dimensions in mm and saves a new version with PUT', async () => {
     // An invented user ring as the catalogue lists it (SI units); 20/10/7 mm as in the IEC 60205 example.
     const stored = {
-      id: 'Lab ring 20/10/7', family: 'RING', gapKind: 'distributed', ae: 33.63e-6, le: 43.55e-3, ve: 1465e-9, windowArea: 78.5e-6,
-      windowHeight: 7e-3, bobbinWidth: 31.4e-3, bobbinHeight: 5e-3, mlt: 30e-3, surfaceArea: 1e-3, areaProduct: 2.64e-9,
-      ring: { od: 0.02, id: 0.01, height: 0.007 }, source: `${IEC60205_SOURCE_NOTE}; our drawing`, origin: 'user' as const, userCoreId: 7, version: 2,
+      id: 'Lab ring 20/10/7',
+      family: 'RING',
+      gapKind: 'distributed',
+      ae: 33.63e-6,
+      le: 43.55e-3,
+      ve: 1465e-9,
+      windowArea: 78.5e-6,
+      windowHeight: 7e-3,
+      bobbinWidth: 31.4e-3,
+      bobbinHeight: 5e-3,
+      mlt: 30e-3,
+      surfaceArea: 1e-3,
+      areaProduct: 2.64e-9,
+      ring: { od: 0.02, id: 0.01, height: 0.007 },
+      source: `${IEC60205_SOURCE_NOTE}; our drawing`,
+      origin: 'user' as const,
+      userCoreId: 7,
+      version: 2,
     };
     const { fixture, http, page } = await renderWithHttpTesting(CoreForm, { editing: stored });
     expect(fieldLabelled(page, 'Outer diameter (mm)').value).toBe('20');
@@ -81,7 +102,13 @@ describe('CoreForm editing a user ring core', () => {
     await fixture.whenStable();
     const request = http.expectOne('/api/catalogue/cores/7');
     expect(request.request.method).toBe('PUT');
-    expect(request.request.body).toMatchObject({ kind: 'ring', name: 'Lab ring 20/10/7', family: 'RING', height: 0.008, source: 'our drawing' });
+    expect(request.request.body).toMatchObject({
+      kind: 'ring',
+      name: 'Lab ring 20/10/7',
+      family: 'RING',
+      height: 0.008,
+      source: 'our drawing',
+    });
     expect(request.request.body.outerDiameter).toBeCloseTo(0.02, 12);
     http.verify();
   });

@@ -23,7 +23,10 @@ export class CoreForm extends UserCoreForm {
   private readonly formDirective = viewChild.required(FormGroupDirective);
 
   protected readonly form = new FormGroup({
-    name: new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.maxLength(60), Validators.pattern(/^[^=+\-@]/)] }),
+    name: new FormControl('', {
+      nonNullable: true,
+      validators: [Validators.required, Validators.maxLength(60), Validators.pattern(/^[^=+\-@]/)],
+    }),
     family: new FormControl<'RING' | 'POWDER_TOROID'>('POWDER_TOROID', { nonNullable: true, validators: [Validators.required] }),
     outerDiameter: new FormControl<number | null>(null, { validators: [Validators.required, Validators.min(0.5), Validators.max(500)] }),
     innerDiameter: new FormControl<number | null>(null, { validators: [Validators.required, Validators.min(0.2), Validators.max(500)] }),

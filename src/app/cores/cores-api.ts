@@ -1,7 +1,16 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { AnswerOf } from '@shared/api/endpoint';
-import { commitCoreImport, createUserCore, editUserCore, listCores, previewCoreImport, retireUserCore, unretireUserCore, userCoreHistory } from '@shared/api/catalogue';
+import {
+  commitCoreImport,
+  createUserCore,
+  editUserCore,
+  listCores,
+  previewCoreImport,
+  retireUserCore,
+  unretireUserCore,
+  userCoreHistory,
+} from '@shared/api/catalogue';
 import type { ImportDecision } from '@shared/schemas/core-csv';
 import type { ListedCore, UserCoreRequest } from '@shared/schemas/cores';
 import { map, type Observable } from 'rxjs';

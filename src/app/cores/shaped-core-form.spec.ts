@@ -52,7 +52,17 @@ describe('ShapedCoreForm', () => {
     const body = request.request.body as Record<string, unknown>;
     expect(body).toMatchObject({ kind: 'shape', name: 'Lab set 36', family: 'ETD', source: 'our drawing 2026-11' });
     expect(body).not.toHaveProperty('amin');
-    const expected = { ae: 1e-4, le: 0.08, ve: 8e-6, windowArea: 1.5e-4, windowHeight: 0.02, bobbinWidth: 0.018, bobbinHeight: 0.006, mlt: 0.06, surfaceArea: 0.003 };
+    const expected = {
+      ae: 1e-4,
+      le: 0.08,
+      ve: 8e-6,
+      windowArea: 1.5e-4,
+      windowHeight: 0.02,
+      bobbinWidth: 0.018,
+      bobbinHeight: 0.006,
+      mlt: 0.06,
+      surfaceArea: 0.003,
+    };
     for (const [field, value] of Object.entries(expected)) expect(body[field] as number).toBeCloseTo(value, 12);
     request.flush(
       { error: { code: 'invalid_input', message: 'The core is not consistent', fields: { ve: 'Ve differs from Ae·le by 9.0 %' } } },

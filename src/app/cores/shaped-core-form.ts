@@ -46,7 +46,10 @@ export class ShapedCoreForm extends UserCoreForm {
   protected readonly families = GAPPED_CORE_FAMILIES;
   protected readonly parameters = PARAMETERS;
   protected readonly form = new FormGroup({
-    name: new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.maxLength(60), Validators.pattern(/^[^=+\-@]/)] }),
+    name: new FormControl('', {
+      nonNullable: true,
+      validators: [Validators.required, Validators.maxLength(60), Validators.pattern(/^[^=+\-@]/)],
+    }),
     family: new FormControl<GappedFamily>('ETD', { nonNullable: true, validators: [Validators.required] }),
     ae: parameterControl(true),
     amin: parameterControl(false),

@@ -56,7 +56,10 @@ export function candidateRows(search: SearchResult, materialNames: ReadonlyMap<s
       rise: r.thermal.rise,
       fill: r.winding.copperFill,
       fluxMargin: r.flux.saturationMargin,
-      reasons: r.issues.filter((i) => i.severity === 'warning').map((i) => i.message).join(' '),
+      reasons: r.issues
+        .filter((i) => i.severity === 'warning')
+        .map((i) => i.message)
+        .join(' '),
       candidate: c,
     };
   });

@@ -28,7 +28,10 @@ const row = (key: string, pareto: boolean): CandidateRow => ({
 
 describe('candidates chart', () => {
   it('shows core, material and wire names with markup as text in the tooltip', () => {
-    const options = candidatesChartOptions([row('a', true), row('b', false)], 'a') as { series: { data: { name: string; value: number[] }[] }[]; tooltip: { formatter: typeof candidateTooltip } };
+    const options = candidatesChartOptions([row('a', true), row('b', false)], 'a') as {
+      series: { data: { name: string; value: number[] }[] }[];
+      tooltip: { formatter: typeof candidateTooltip };
+    };
     const point = options.series[0].data[0];
     const host = document.createElement('div');
     host.innerHTML = options.tooltip.formatter(point);

@@ -11,7 +11,11 @@ export const VOLUME_AXIS = axisIn('cm³');
 export function candidatesChartOptions(rows: readonly CandidateRow[], selectedKey: string | null): EChartsCoreOption {
   const feasible = rows.filter((r) => r.feasible);
   if (!feasible.length) return {};
-  const point = (r: CandidateRow) => ({ value: [VOLUME_AXIS.toAxis(r.volume!), r.totalLoss!], name: `${r.coreId} · ${r.materialName} · ${r.wireId}`, key: r.key });
+  const point = (r: CandidateRow) => ({
+    value: [VOLUME_AXIS.toAxis(r.volume!), r.totalLoss!],
+    name: `${r.coreId} · ${r.materialName} · ${r.wireId}`,
+    key: r.key,
+  });
   const front = feasible.filter((r) => r.pareto).sort((a, b) => a.volume! - b.volume!);
   return {
     animation: false,

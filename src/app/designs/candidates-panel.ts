@@ -37,7 +37,16 @@ interface PointPosition {
 
 @Component({
   selector: 'gw-candidates-panel',
-  imports: [MatButtonModule, MatFormFieldModule, MatProgressBarModule, MatSelectModule, MatSortModule, MatTableModule, NgxEchartsDirective, QuantityPipe],
+  imports: [
+    MatButtonModule,
+    MatFormFieldModule,
+    MatProgressBarModule,
+    MatSelectModule,
+    MatSortModule,
+    MatTableModule,
+    NgxEchartsDirective,
+    QuantityPipe,
+  ],
   templateUrl: './candidates-panel.html',
   styleUrl: './candidates-panel.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -66,7 +75,11 @@ export class CandidatesPanel {
       switchMap(({ spec }) => {
         if (!spec) return of<SearchState>(this.hasResults() ? { status: 'stale' } : { status: 'idle' });
         const startedAt = performance.now();
-        const materialIds = spec.materialIds?.length ? spec.materialIds : this.materials().filter((m) => !m.retired).map((m) => m.id);
+        const materialIds = spec.materialIds?.length
+          ? spec.materialIds
+          : this.materials()
+              .filter((m) => !m.retired)
+              .map((m) => m.id);
         return this.api.search(spec, materialIds).pipe(
           map((result): SearchState => ({ status: 'done', result, ms: performance.now() - startedAt })),
           catchError((error: unknown) => of<SearchState>({ status: 'error', message: errorMessageOf(error) })),
@@ -97,7 +110,13 @@ export class CandidatesPanel {
   protected readonly materialFilter = signal<string>('');
   protected readonly feasibilityFilter = signal<'all' | 'feasible' | 'infeasible'>('all');
   protected readonly familiesInRows = computed(() => [...new Set(this.rows().map((r) => r.family))].sort());
-  protected readonly materialsInRows = computed(() => [...new Map(this.rows().filter((r) => r.materialId).map((r) => [r.materialId, r.materialName]))]);
+  protected readonly materialsInRows = computed(() => [
+    ...new Map(
+      this.rows()
+        .filter((r) => r.materialId)
+        .map((r) => [r.materialId, r.materialName]),
+    ),
+  ]);
   protected readonly selectedKey = signal<string | null>(null);
   protected readonly selected = computed(() => this.rows().find((r) => r.key === this.selectedKey()) ?? null);
   protected readonly dataSource = new MatTableDataSource<CandidateRow>([]);
@@ -110,7 +129,13 @@ export class CandidatesPanel {
     this.dataSource.sortingDataAccessor = (row, column) => {
       const value = (row as unknown as Record<string, unknown>)[column];
       // Unevaluated rows sort last whichever way.
-      return typeof value === 'number' ? value : column === 'core' ? row.coreId : column === 'material' ? row.materialName : Number.MAX_VALUE;
+      return typeof value === 'number'
+        ? value
+        : column === 'core'
+          ? row.coreId
+          : column === 'material'
+            ? row.materialName
+            : Number.MAX_VALUE;
     };
     this.dataSource.filterPredicate = (row) =>
       (!this.familyFilter() || row.family === this.familyFilter()) &&

@@ -18,14 +18,31 @@ import { Notifier } from '../core/notifier';
 import { Session } from '../core/session';
 import { DesignsApi, type DesignListParams } from './designs-api';
 
-const STATUS_LABELS: Record<string, string> = { draft: 'Draft', in_review: 'In review', approved: 'Approved', released: 'Released', superseded: 'Superseded' };
+const STATUS_LABELS: Record<string, string> = {
+  draft: 'Draft',
+  in_review: 'In review',
+  approved: 'Approved',
+  released: 'Released',
+  superseded: 'Superseded',
+};
 
 const sortKey = (column: string): DesignSortKey => DESIGN_SORT_KEYS.find((key) => key === column) ?? 'updated';
 
 /** Every design, paged, sorted and searched on the server. */
 @Component({
   selector: 'gw-design-list',
-  imports: [DatePipe, RouterLink, MatButtonModule, MatButtonToggleModule, MatFormFieldModule, MatInputModule, MatPaginatorModule, MatProgressBarModule, MatSortModule, MatTableModule],
+  imports: [
+    DatePipe,
+    RouterLink,
+    MatButtonModule,
+    MatButtonToggleModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatPaginatorModule,
+    MatProgressBarModule,
+    MatSortModule,
+    MatTableModule,
+  ],
   templateUrl: './design-list.html',
   styleUrl: './design-list.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -26,7 +26,17 @@ type WireKind = 'awg' | 'metric' | 'litz';
 /** The chosen design: every figure, three charts, warnings; core, material, turns, gap and wire re-evaluate live. */
 @Component({
   selector: 'gw-design-panel',
-  imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatProgressBarModule, MatSelectModule, NgxEchartsDirective, QuantityInput, QuantityPipe, CautionLine],
+  imports: [
+    ReactiveFormsModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatProgressBarModule,
+    MatSelectModule,
+    NgxEchartsDirective,
+    QuantityInput,
+    QuantityPipe,
+    CautionLine,
+  ],
   templateUrl: './design-panel.html',
   styleUrl: './design-panel.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -128,7 +138,10 @@ export class DesignPanel {
           this.form.patchValue({ turns: outcome.view.result.turns, gap: outcome.view.result.gap.total });
           this.silent = false;
         }
-        this.changed.emit({ construction: { ...outcome.construction, turns: outcome.view.result.turns, gap: outcome.view.result.gap.total }, view: outcome.view });
+        this.changed.emit({
+          construction: { ...outcome.construction, turns: outcome.view.result.turns, gap: outcome.view.result.gap.total },
+          view: outcome.view,
+        });
       });
   }
 
@@ -187,7 +200,13 @@ export class DesignPanel {
       tooltip: { trigger: 'axis' },
       xAxis: { type: 'category', data: ['Copper DC', 'Copper AC', 'Core (iGSE)', 'Total'] },
       yAxis: { type: 'value', name: 'W' },
-      series: [{ type: 'bar', data: [r.copper.dcLoss, r.copper.acLoss, r.coreLoss.loss, r.totalLoss], label: { show: true, position: 'top', formatter: (p: { value: number }) => p.value.toFixed(3) } }],
+      series: [
+        {
+          type: 'bar',
+          data: [r.copper.dcLoss, r.copper.acLoss, r.coreLoss.loss, r.totalLoss],
+          label: { show: true, position: 'top', formatter: (p: { value: number }) => p.value.toFixed(3) },
+        },
+      ],
     };
   });
 
@@ -209,8 +228,17 @@ export class DesignPanel {
           markLine: {
             symbol: 'none',
             data: [
-              { yAxis: f.saturationAtHotSpot, name: 'Bsat hot', label: { formatter: `Bsat at ${Math.round(Math.min(r.thermal.hotSpot, THERMAL_MODEL_LIMIT))} °C` } },
-              { yAxis: f.saturationAtHotSpot * (1 - f.requiredMargin), name: 'limit', label: { formatter: 'with margin' }, lineStyle: { type: 'dotted' } },
+              {
+                yAxis: f.saturationAtHotSpot,
+                name: 'Bsat hot',
+                label: { formatter: `Bsat at ${Math.round(Math.min(r.thermal.hotSpot, THERMAL_MODEL_LIMIT))} °C` },
+              },
+              {
+                yAxis: f.saturationAtHotSpot * (1 - f.requiredMargin),
+                name: 'limit',
+                label: { formatter: 'with margin' },
+                lineStyle: { type: 'dotted' },
+              },
             ],
           },
         },
@@ -222,17 +250,32 @@ export class DesignPanel {
     const sweep = this.view()?.lossVersusFrequency ?? [];
     if (!sweep.length) return {};
     const x = axisIn('kHz');
-    const series = (name: string, pick: (p: (typeof sweep)[number]) => number) => ({ type: 'line', name, data: sweep.map((p) => [x.toAxis(p.frequency), pick(p)]) });
+    const series = (name: string, pick: (p: (typeof sweep)[number]) => number) => ({
+      type: 'line',
+      name,
+      data: sweep.map((p) => [x.toAxis(p.frequency), pick(p)]),
+    });
     const fs = this.spec()?.converter.frequency;
     return {
       animation: false,
       grid: { left: 56, right: 16, top: 32, bottom: 40 },
       legend: { top: 0 },
       tooltip: { trigger: 'axis' },
-      xAxis: { type: 'log', name: x.unit, nameLocation: 'middle', nameGap: 24, min: x.toAxis(sweep[0].frequency), max: x.toAxis(sweep.at(-1)!.frequency), axisLabel: { formatter: (v: number) => String(Math.round(v)) } },
+      xAxis: {
+        type: 'log',
+        name: x.unit,
+        nameLocation: 'middle',
+        nameGap: 24,
+        min: x.toAxis(sweep[0].frequency),
+        max: x.toAxis(sweep.at(-1)!.frequency),
+        axisLabel: { formatter: (v: number) => String(Math.round(v)) },
+      },
       yAxis: { type: 'value', name: 'W' },
       series: [
-        { ...series('Total', (p) => p.total), markLine: fs ? { symbol: 'none', data: [{ xAxis: x.toAxis(fs) }], label: { formatter: 'fs' } } : undefined },
+        {
+          ...series('Total', (p) => p.total),
+          markLine: fs ? { symbol: 'none', data: [{ xAxis: x.toAxis(fs) }], label: { formatter: 'fs' } } : undefined,
+        },
         series('Copper', (p) => p.copperDc + p.copperAc),
         series('Core', (p) => p.core),
       ],

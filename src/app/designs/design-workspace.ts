@@ -8,7 +8,16 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Router, RouterLink } from '@angular/router';
 import { may } from '@shared/api/permissions';
 import type { SearchCandidate } from '@shared/engine/index';
-import { EXPORT_KINDS, wireRequestOf, type Construction, type DesignDetail, type DesignSpec, type ExportKind, storedEvaluation, storedWire } from '@shared/schemas/designs';
+import {
+  EXPORT_KINDS,
+  wireRequestOf,
+  type Construction,
+  type DesignDetail,
+  type DesignSpec,
+  type ExportKind,
+  storedEvaluation,
+  storedWire,
+} from '@shared/schemas/designs';
 import type { EvaluateAnswer } from '@shared/schemas/calc-answers';
 import { distinctUntilChanged, map, startWith } from 'rxjs';
 
@@ -156,7 +165,13 @@ export class DesignWorkspace {
 
   protected pick(candidate: SearchCandidate): void {
     const r = candidate.result;
-    const construction: Construction = { coreId: r.core.id, materialId: r.material.id, turns: r.turns, gap: r.gap.total, wire: wireRequestOf(candidate.wire) };
+    const construction: Construction = {
+      coreId: r.core.id,
+      materialId: r.material.id,
+      turns: r.turns,
+      gap: r.gap.total,
+      wire: wireRequestOf(candidate.wire),
+    };
     const view: EvaluateAnswer = { engineVersion: '', wire: candidate.wire, result: r };
     this.known.set(view);
     this.construction.set(construction);

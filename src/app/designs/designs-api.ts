@@ -5,7 +5,7 @@ import { copyDesign, createDesign, diffRevisions, getDesign, listDesigns, newRev
 import { endpointUrl } from '@shared/api/endpoint';
 import { exportRevision } from '@shared/api/exports';
 import { listMaterials } from '@shared/api/materials';
-import type { CoreMaterial, EvaluationResult, SearchResult, WireOption } from '@shared/engine/index';
+import type { CoreMaterial } from '@shared/engine/index';
 import type { EvaluateAnswer, OperatingPointAnswer, SearchAnswer } from '@shared/schemas/calc-answers';
 import type {
   Construction,
@@ -51,7 +51,11 @@ export class DesignsApi {
     return this.api.call(createDesign, { body: { title, spec, ...(construction ? { construction } : {}) } }, errorsShownByCaller());
   }
 
-  update(id: number, revision: number, change: { title?: string; spec?: DesignSpec; construction?: Construction | null }): Observable<RevisionDetail> {
+  update(
+    id: number,
+    revision: number,
+    change: { title?: string; spec?: DesignSpec; construction?: Construction | null },
+  ): Observable<RevisionDetail> {
     return this.api.call(updateRevision, { params: { id: String(id), rev: String(revision) }, body: change }, errorsShownByCaller());
   }
 
@@ -73,16 +77,28 @@ export class DesignsApi {
 
   operatingPoint(spec: DesignSpec): Observable<OperatingPointAnswer> {
     const tolerance = spec.limits?.inductanceTolerance;
-    return this.api.call(operatingPoint, { body: { ...spec.converter, ...(tolerance !== undefined ? { inductanceTolerance: tolerance } : {}) } }, errorsShownByCaller());
+    return this.api.call(
+      operatingPoint,
+      { body: { ...spec.converter, ...(tolerance !== undefined ? { inductanceTolerance: tolerance } : {}) } },
+      errorsShownByCaller(),
+    );
   }
 
   search(spec: DesignSpec, materialIds: string[]): Observable<SearchAnswer> {
     const families = spec.families?.length ? spec.families : undefined;
-    return this.api.call(search, { body: { spec: spec.converter, limits: spec.limits, families, materialIds, limit: 50 } }, errorsShownByCaller());
+    return this.api.call(
+      search,
+      { body: { spec: spec.converter, limits: spec.limits, families, materialIds, limit: 50 } },
+      errorsShownByCaller(),
+    );
   }
 
   evaluate(spec: DesignSpec, construction: Construction): Observable<EvaluateAnswer> {
-    return this.api.call(evaluate, { query: { sweep: 'frequency' }, body: { spec: spec.converter, limits: spec.limits, ...construction } }, errorsShownByCaller());
+    return this.api.call(
+      evaluate,
+      { query: { sweep: 'frequency' }, body: { spec: spec.converter, limits: spec.limits, ...construction } },
+      errorsShownByCaller(),
+    );
   }
 
   exportUrl(id: number, revision: number, kind: ExportKind): string {

@@ -12,7 +12,8 @@ import { errorMessageOf } from '../core/api-error';
 import { DesignsApi } from './designs-api';
 import { percent, show } from './format';
 
-type OpState = { status: 'idle' } | { status: 'loading' } | { status: 'ok'; op: OperatingPointAnswer } | { status: 'error'; message: string };
+type OpState =
+  { status: 'idle' } | { status: 'loading' } | { status: 'ok'; op: OperatingPointAnswer } | { status: 'error'; message: string };
 
 /** The operating point beside the spec form: recalculated as the spec changes (debounced, latest wins). */
 @Component({
@@ -113,7 +114,9 @@ export class OperatingPointPanel {
 
   protected readonly chartLabel = computed(() => {
     const op = this.op();
-    return op ? `Inductor current over two periods at Vin max: valley ${show(op.valleyCurrent, 'current')}, peak ${show(op.peakCurrent, 'current')}` : '';
+    return op
+      ? `Inductor current over two periods at Vin max: valley ${show(op.valleyCurrent, 'current')}, peak ${show(op.peakCurrent, 'current')}`
+      : '';
   });
 
   protected readonly chart = computed<EChartsCoreOption>(() => {

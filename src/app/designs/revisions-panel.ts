@@ -9,7 +9,13 @@ import { errorMessageOf } from '../core/api-error';
 import { DesignsApi } from './designs-api';
 import { show } from './format';
 
-const STATUS_LABELS: Record<string, string> = { draft: 'Draft', in_review: 'In review', approved: 'Approved', released: 'Released', superseded: 'Superseded' };
+const STATUS_LABELS: Record<string, string> = {
+  draft: 'Draft',
+  in_review: 'In review',
+  approved: 'Approved',
+  released: 'Released',
+  superseded: 'Superseded',
+};
 
 /** Revision history and a side-by-side diff of spec, construction and results between two revisions. */
 @Component({
@@ -20,9 +26,18 @@ const STATUS_LABELS: Record<string, string> = { draft: 'Draft', in_review: 'In r
       <h2 id="gw-revisions-title">Revisions</h2>
       <div class="gw-table-scroll" role="region" aria-label="Revision history, scrollable" tabindex="0">
         <table class="gw-plain">
-          <caption class="gw-visually-hidden">Revision history</caption>
+          <caption class="gw-visually-hidden">
+            Revision history
+          </caption>
           <thead>
-            <tr><th scope="col">Revision</th><th scope="col">Status</th><th scope="col">Total loss</th><th scope="col">Engine</th><th scope="col">Updated</th><th scope="col">Note</th></tr>
+            <tr>
+              <th scope="col">Revision</th>
+              <th scope="col">Status</th>
+              <th scope="col">Total loss</th>
+              <th scope="col">Engine</th>
+              <th scope="col">Updated</th>
+              <th scope="col">Note</th>
+            </tr>
           </thead>
           <tbody>
             @for (r of design().revisions; track r.revision) {
@@ -68,11 +83,32 @@ const STATUS_LABELS: Record<string, string> = { draft: 'Draft', in_review: 'In r
           @if (section.rows.length) {
             <div class="gw-table-scroll" role="region" [attr.aria-label]="section.title + ' differences, scrollable'" tabindex="0">
               <table class="gw-plain gw-diff">
-                <caption class="gw-visually-hidden">{{ section.title }}: revision {{ d.from }} against {{ d.to }}</caption>
-                <thead><tr><th scope="col">Figure</th><th scope="col">Revision {{ d.from }}</th><th scope="col">Revision {{ d.to }}</th></tr></thead>
+                <caption class="gw-visually-hidden">
+                  {{
+                    section.title
+                  }}: revision
+                  {{
+                    d.from
+                  }}
+                  against
+                  {{
+                    d.to
+                  }}
+                </caption>
+                <thead>
+                  <tr>
+                    <th scope="col">Figure</th>
+                    <th scope="col">Revision {{ d.from }}</th>
+                    <th scope="col">Revision {{ d.to }}</th>
+                  </tr>
+                </thead>
                 <tbody>
                   @for (row of section.rows; track row.path) {
-                    <tr><th scope="row">{{ row.path }}</th><td>{{ value(row.from) }}</td><td>{{ value(row.to) }}</td></tr>
+                    <tr>
+                      <th scope="row">{{ row.path }}</th>
+                      <td>{{ value(row.from) }}</td>
+                      <td>{{ value(row.to) }}</td>
+                    </tr>
                   }
                 </tbody>
               </table>

@@ -76,7 +76,20 @@ describe('SpecFormComponent', () => {
 
   it('asks for a fixed inductance instead of a ripple when chosen, and round-trips a stored spec', async () => {
     const form = fixture.componentInstance.form;
-    form.patchValue(formFromSpec({ converter: { vinMin: 10.8, vinMax: 13.2, vout: 1.2, ioutMax: 15, frequency: 500e3, inductance: 220e-9, rectifier: 'diode', diodeDrop: 0.4 } }));
+    form.patchValue(
+      formFromSpec({
+        converter: {
+          vinMin: 10.8,
+          vinMax: 13.2,
+          vout: 1.2,
+          ioutMax: 15,
+          frequency: 500e3,
+          inductance: 220e-9,
+          rectifier: 'diode',
+          diodeDrop: 0.4,
+        },
+      }),
+    );
     await fixture.whenStable();
     expect(field('Inductance (minimum)').value).toBe('220 nH');
     expect(field('Diode drop').value).toBe('400 mV');

@@ -46,7 +46,11 @@ const given = (value: number | null | undefined): value is number => value !== n
 export function specFromForm(v: SpecFormValue): DesignSpec | null {
   if (![v.vinMin, v.vinMax, v.vout, v.ioutMax, v.frequency].every(given)) return null;
   const ripple =
-    v.rippleMode === 'ratio' ? { rippleRatio: v.rippleRatio } : v.rippleMode === 'current' ? { rippleCurrent: v.rippleCurrent } : { inductance: v.inductance };
+    v.rippleMode === 'ratio'
+      ? { rippleRatio: v.rippleRatio }
+      : v.rippleMode === 'current'
+        ? { rippleCurrent: v.rippleCurrent }
+        : { inductance: v.inductance };
   if (!given(Object.values(ripple)[0])) return null;
   const optional = <K extends string>(key: K, value: number | null) => (given(value) ? { [key]: value } : {});
   const limits = {

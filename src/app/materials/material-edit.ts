@@ -65,7 +65,8 @@ function convertedCells(cells: Cells, to: MaterialUnitSet): Partial<Cells> {
   const from = cells.unit_set as MaterialUnitSet;
   const alpha = Number(cells.alpha.trim());
   const beta = Number(cells.beta.trim());
-  const kFactor = NUMBER_TEXT.test(cells.alpha.trim()) && NUMBER_TEXT.test(cells.beta.trim()) ? kFromSi(kToSi(1, from, alpha, beta), to, alpha, beta) : 1;
+  const kFactor =
+    NUMBER_TEXT.test(cells.alpha.trim()) && NUMBER_TEXT.test(cells.beta.trim()) ? kFromSi(kToSi(1, from, alpha, beta), to, alpha, beta) : 1;
   const out: Partial<Cells> = { k: scaled(cells.k, kFactor) };
   for (const c of FREQUENCY_COLUMNS) out[c] = scaled(cells[c], UNIT_SCALES[from].frequency / UNIT_SCALES[to].frequency);
   for (const c of FLUX_COLUMNS) out[c] = scaled(cells[c], UNIT_SCALES[from].flux / UNIT_SCALES[to].flux);

@@ -55,7 +55,17 @@ export class MaterialLibrary {
   protected readonly mayAddVersions = computed(() => may(this.session.role(), 'upload'));
   protected readonly mayRetire = computed(() => may(this.session.role(), 'curate'));
   protected readonly columns = computed(() => [
-    'select', 'name', 'family', 'version', 'steinmetz', 'fit', 'provenance', 'createdBy', 'createdAt', 'state', 'actions',
+    'select',
+    'name',
+    'family',
+    'version',
+    'steinmetz',
+    'fit',
+    'provenance',
+    'createdBy',
+    'createdAt',
+    'state',
+    'actions',
   ]);
   protected readonly historyColumns = ['version', 'steinmetz', 'fit', 'provenance', 'createdBy', 'createdAt'];
   protected readonly history = signal<{ lineage: string; name: string; versions: LibraryMaterial[] } | null>(null);
@@ -70,7 +80,10 @@ export class MaterialLibrary {
 
   constructor() {
     this.dataSource.filterPredicate = (m, filter) =>
-      [m.name, m.family, m.provenance, m.createdBy ?? '', m.unitSet, m.retired ? 'retired' : 'in use'].join(' ').toLowerCase().includes(filter);
+      [m.name, m.family, m.provenance, m.createdBy ?? '', m.unitSet, m.retired ? 'retired' : 'in use']
+        .join(' ')
+        .toLowerCase()
+        .includes(filter);
     this.dataSource.sortingDataAccessor = (m, column) => {
       switch (column) {
         case 'steinmetz':

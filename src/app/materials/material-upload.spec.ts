@@ -64,10 +64,12 @@ describe('MaterialUpload', () => {
 
   it('shows a refused file’s message and its fields', async () => {
     await chooseFile('a;b\n');
-    http.expectOne('/api/materials/import/preview').flush(
-      { error: { code: 'invalid_input', message: 'The header row is separated by ";".', fields: { header: 'Not comma-separated' } } },
-      { status: 400, statusText: 'Bad Request' },
-    );
+    http
+      .expectOne('/api/materials/import/preview')
+      .flush(
+        { error: { code: 'invalid_input', message: 'The header row is separated by ";".', fields: { header: 'Not comma-separated' } } },
+        { status: 400, statusText: 'Bad Request' },
+      );
     await fixture.whenStable();
     const alert = page.querySelector('[role="alert"]')!;
     expect(alert.textContent).toContain('The header row is separated by ";".');

@@ -41,6 +41,10 @@ export class ReviewApi {
   }
 
   release(revisionId: number, quantity: number, comment?: string): Observable<TransitionOutcome> {
-    return this.api.call(releaseRevision, { params: { id: String(revisionId) }, body: comment ? { quantity, comment } : { quantity } }, errorsShownByCaller());
+    return this.api.call(
+      releaseRevision,
+      { params: { id: String(revisionId) }, body: comment ? { quantity, comment } : { quantity } },
+      errorsShownByCaller(),
+    );
   }
 }

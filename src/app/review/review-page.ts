@@ -25,8 +25,8 @@ interface ReviewCard {
     <div class="gw-page">
       <h1>Review and release</h1>
       <p class="gw-caution-box">
-        Approving or releasing says a qualified person has checked the design: the figures are engineering estimates and
-        must be verified on a prototype before quantity builds.
+        Approving or releasing says a qualified person has checked the design: the figures are engineering estimates and must be verified on
+        a prototype before quantity builds.
       </p>
       @if (loading()) {
         <mat-progress-bar mode="indeterminate" aria-label="Loading revisions waiting for review" />
@@ -37,16 +37,14 @@ interface ReviewCard {
         <mat-card appearance="outlined" class="gw-review-card">
           <mat-card-header>
             <mat-card-title>
-              <h2 class="gw-card-title"><a [routerLink]="['/designs', card.item.designId]">{{ card.item.label }}</a></h2>
+              <h2 class="gw-card-title">
+                <a [routerLink]="['/designs', card.item.designId]">{{ card.item.label }}</a>
+              </h2>
             </mat-card-title>
             <mat-card-subtitle>By {{ card.ownerName }}, waiting since {{ card.item.since | date: 'medium' }}</mat-card-subtitle>
           </mat-card-header>
           <mat-card-content>
-            <gw-revision-actions
-              [revision]="card.revision"
-              [subject]="card.subject"
-              (changed)="reload()"
-            />
+            <gw-revision-actions [revision]="card.revision" [subject]="card.subject" (changed)="reload()" />
           </mat-card-content>
         </mat-card>
       }

@@ -30,8 +30,24 @@ describe('RevisionActions', () => {
     http.expectOne('/api/revisions/11/timeline').flush({
       designId: 3,
       entries: [
-        { id: 1, revisionId: 11, fromStatus: 'draft', toStatus: 'in_review', comment: 'Ready for a look', at: '2026-03-01T10:00:00.000Z', actor: 'Erin Example' },
-        { id: 2, revisionId: 99, fromStatus: 'draft', toStatus: 'in_review', comment: 'another revision', at: '2026-03-01T10:00:00.000Z', actor: 'Erin Example' },
+        {
+          id: 1,
+          revisionId: 11,
+          fromStatus: 'draft',
+          toStatus: 'in_review',
+          comment: 'Ready for a look',
+          at: '2026-03-01T10:00:00.000Z',
+          actor: 'Erin Example',
+        },
+        {
+          id: 2,
+          revisionId: 99,
+          fromStatus: 'draft',
+          toStatus: 'in_review',
+          comment: 'another revision',
+          at: '2026-03-01T10:00:00.000Z',
+          actor: 'Erin Example',
+        },
       ],
     });
     await fixture.whenStable();

@@ -18,7 +18,9 @@ import { TransitionDialog, type TransitionAction, type TransitionDialogData } fr
   imports: [DatePipe, MatButtonModule, MatIconModule],
   template: `
     <section class="gw-revision-actions" [attr.aria-label]="'Review of ' + subject()">
-      <p class="gw-status">Status: <strong>{{ statusLabel() }}</strong></p>
+      <p class="gw-status">
+        Status: <strong>{{ statusLabel() }}</strong>
+      </p>
       @if (actions().length) {
         <div class="gw-action-buttons">
           @for (action of actions(); track action) {

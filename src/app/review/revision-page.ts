@@ -26,14 +26,10 @@ interface RevisionContext {
         <h1>{{ c.design.number }} — {{ c.design.title }}</h1>
         <p>Owner {{ c.design.owner.displayName }} · <a [routerLink]="['/designs', c.design.id]">Open the design</a></p>
         <p class="gw-caution-box">
-          The figures behind this revision are engineering estimates; a qualified engineer reviews them, and a prototype
-          verifies them, before quantity builds.
+          The figures behind this revision are engineering estimates; a qualified engineer reviews them, and a prototype verifies them,
+          before quantity builds.
         </p>
-        <gw-revision-actions
-          [revision]="c.revision"
-          [subject]="c.design.number"
-          (changed)="load(revisionId())"
-        />
+        <gw-revision-actions [revision]="c.revision" [subject]="c.design.number" (changed)="load(revisionId())" />
       } @else if (failed()) {
         <h1>Revision</h1>
         <p class="gw-form-error" role="alert">This revision could not be loaded.</p>

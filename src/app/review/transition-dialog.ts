@@ -24,7 +24,8 @@ const WORDING: Record<TransitionAction, { title: string; question: string; confi
   return: { title: 'Return with comments', question: 'Send {s} back to its author as a draft?', confirm: 'Return' },
   release: {
     title: 'Release to the winding shop',
-    question: 'Release {s}? The winding sheet is frozen, a build order is created and the shop is e-mailed. A released revision can never be changed.',
+    question:
+      'Release {s}? The winding sheet is frozen, a build order is created and the shop is e-mailed. A released revision can never be changed.',
     confirm: 'Release',
   },
 };
@@ -93,7 +94,8 @@ export class TransitionDialog {
       validators: this.data.action === 'return' ? [Validators.required, Validators.maxLength(2000)] : [Validators.maxLength(2000)],
     }),
     quantity: new FormControl<number | null>(this.data.action === 'release' ? 1 : null, {
-      validators: this.data.action === 'release' ? [Validators.required, Validators.min(1), Validators.max(100000), Validators.pattern(/^\d+$/)] : [],
+      validators:
+        this.data.action === 'release' ? [Validators.required, Validators.min(1), Validators.max(100000), Validators.pattern(/^\d+$/)] : [],
     }),
   });
 

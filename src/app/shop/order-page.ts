@@ -51,9 +51,7 @@ export class OrderPage {
   }
 
   protected added(recorded: RecordedUnit): void {
-    this.order.update((order) =>
-      order ? { ...order, status: recorded.orderStatus, units: [...order.units, recorded.unit] } : order,
-    );
+    this.order.update((order) => (order ? { ...order, status: recorded.orderStatus, units: [...order.units, recorded.unit] } : order));
   }
 
   protected temperature(value: number): string {

@@ -21,7 +21,9 @@ import { ShopApi, type OrderSummary } from './shop-api';
       <p class="gw-caution-box">{{ caution }}</p>
       @if (seesAccuracy()) {
         <p>
-          <a mat-stroked-button routerLink="/shop/accuracy"><mat-icon aria-hidden="true">scatter_plot</mat-icon> Measured versus predicted</a>
+          <a mat-stroked-button routerLink="/shop/accuracy"
+            ><mat-icon aria-hidden="true">scatter_plot</mat-icon> Measured versus predicted</a
+          >
         </p>
       }
       @if (loading()) {

@@ -15,10 +15,16 @@ import { bindTableSource } from '../core/table-binding';
   template: `
     <div class="gw-table-scroll" role="region" [attr.aria-label]="caption() + ', scrollable'" tabindex="0">
       <table mat-table [dataSource]="dataSource" matSort matSortActive="createdAt" matSortDirection="desc">
-        <caption class="gw-visually-hidden">{{ caption() }}</caption>
+        <caption class="gw-visually-hidden">
+          {{
+            caption()
+          }}
+        </caption>
         <ng-container matColumnDef="number">
           <th mat-header-cell *matHeaderCellDef mat-sort-header>Order</th>
-          <td mat-cell *matCellDef="let order" class="gw-nowrap"><a [routerLink]="['/shop/orders', order.id]">{{ order.number }}</a></td>
+          <td mat-cell *matCellDef="let order" class="gw-nowrap">
+            <a [routerLink]="['/shop/orders', order.id]">{{ order.number }}</a>
+          </td>
         </ng-container>
         <ng-container matColumnDef="designNumber">
           <th mat-header-cell *matHeaderCellDef mat-sort-header>Design</th>

@@ -42,7 +42,17 @@ export class PredictionAccuracy {
   protected readonly report = signal<PredictionReport | null>(null);
   protected readonly loading = signal(true);
   protected readonly chartOptions = computed(() => accuracyChartOptions(this.report()?.units ?? []));
-  protected readonly unitColumns = ['orderNumber', 'designNumber', 'material', 'core', 'inductance', 'inductanceRatio', 'resistance', 'resistanceRatio', 'passed'];
+  protected readonly unitColumns = [
+    'orderNumber',
+    'designNumber',
+    'material',
+    'core',
+    'inductance',
+    'inductanceRatio',
+    'resistance',
+    'resistanceRatio',
+    'passed',
+  ];
   protected readonly summaryColumns = ['key', 'units', 'lMean', 'lSpread', 'rMean', 'rSpread'];
   protected readonly units = new MatTableDataSource<PredictionSample>([]);
   protected readonly microhenry = microhenry;

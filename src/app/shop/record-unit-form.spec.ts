@@ -22,7 +22,9 @@ describe('RecordUnitForm', () => {
 
   async function chooseHipot(value: 'pass' | 'fail' | 'not_tested'): Promise<void> {
     // The select's options live in an overlay; setting the control is what a choice does.
-    (fixture.componentInstance as unknown as { form: { controls: { hipot: { setValue(v: string): void } } } }).form.controls.hipot.setValue(value);
+    (fixture.componentInstance as unknown as { form: { controls: { hipot: { setValue(v: string): void } } } }).form.controls.hipot.setValue(
+      value,
+    );
     await fixture.whenStable();
   }
 
@@ -75,10 +77,18 @@ describe('RecordUnitForm', () => {
     await chooseHipot('not_tested');
     await submit();
 
-    http.expectOne('/api/shop/orders/5/units').flush(
-      { error: { code: 'validation', message: 'Some fields need attention', fields: { testFrequency: 'testFrequency must be between 10 and 10000000 Hz' } } },
-      { status: 400, statusText: 'Bad Request' },
-    );
+    http
+      .expectOne('/api/shop/orders/5/units')
+      .flush(
+        {
+          error: {
+            code: 'validation',
+            message: 'Some fields need attention',
+            fields: { testFrequency: 'testFrequency must be between 10 and 10000000 Hz' },
+          },
+        },
+        { status: 400, statusText: 'Bad Request' },
+      );
     await fixture.whenStable();
 
     expect(errorTexts()).toEqual(['testFrequency must be between 10 and 10000000 Hz']);

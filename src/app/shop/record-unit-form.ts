@@ -19,9 +19,27 @@ type Hipot = UnitMeasurementRequest['hipot'];
   template: `
     <form [formGroup]="form" (ngSubmit)="save()" novalidate aria-label="Record a built unit">
       <div class="gw-unit-grid">
-        <gw-quantity-input label="Measured inductance" kind="inductance" formControlName="inductance" [required]="true" placeholder="e.g. 33 uH" />
-        <gw-quantity-input label="Test frequency" kind="frequency" formControlName="testFrequency" [required]="true" placeholder="e.g. 10 kHz" />
-        <gw-quantity-input label="DC resistance" kind="resistance" formControlName="resistance" [required]="true" placeholder="e.g. 12 mOhm" />
+        <gw-quantity-input
+          label="Measured inductance"
+          kind="inductance"
+          formControlName="inductance"
+          [required]="true"
+          placeholder="e.g. 33 uH"
+        />
+        <gw-quantity-input
+          label="Test frequency"
+          kind="frequency"
+          formControlName="testFrequency"
+          [required]="true"
+          placeholder="e.g. 10 kHz"
+        />
+        <gw-quantity-input
+          label="DC resistance"
+          kind="resistance"
+          formControlName="resistance"
+          [required]="true"
+          placeholder="e.g. 12 mOhm"
+        />
         <gw-quantity-input
           label="Temperature at the DCR reading"
           kind="temperature"
@@ -119,7 +137,12 @@ export class RecordUnitForm {
         this.busy.set(false);
         const frequency = v.testFrequency;
         // resetForm also clears the submitted state, so the emptied fields do not show errors.
-        this.formDirective().resetForm({ resistanceTemperature: v.resistanceTemperature, testFrequency: frequency, hipot: null, notes: '' });
+        this.formDirective().resetForm({
+          resistanceTemperature: v.resistanceTemperature,
+          testFrequency: frequency,
+          hipot: null,
+          notes: '',
+        });
         this.recorded.emit(recorded);
       },
       error: (error: unknown) => {

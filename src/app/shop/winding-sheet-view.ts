@@ -13,20 +13,34 @@ import type { WindingSheet } from '@shared/shop/sheet';
       <header class="gw-sheet-header">
         <h2 id="gw-sheet-title">Winding sheet — {{ sheet().header.designNumber }} rev {{ sheet().header.revision }}</h2>
         <dl class="gw-sheet-facts">
-          <div><dt>Design</dt><dd>{{ sheet().header.designNumber }}</dd></div>
-          <div><dt>Revision</dt><dd>{{ sheet().header.revision }}</dd></div>
-          <div><dt>Build order</dt><dd>{{ sheet().header.orderNumber }}</dd></div>
-          <div><dt>Quantity</dt><dd>{{ sheet().header.quantity }}</dd></div>
+          <div>
+            <dt>Design</dt>
+            <dd>{{ sheet().header.designNumber }}</dd>
+          </div>
+          <div>
+            <dt>Revision</dt>
+            <dd>{{ sheet().header.revision }}</dd>
+          </div>
+          <div>
+            <dt>Build order</dt>
+            <dd>{{ sheet().header.orderNumber }}</dd>
+          </div>
+          <div>
+            <dt>Quantity</dt>
+            <dd>{{ sheet().header.quantity }}</dd>
+          </div>
         </dl>
       </header>
-      <aside class="gw-sheet-caution" role="note" aria-label="Caution">
-        <strong>Caution.</strong> {{ sheet().caution }}
-      </aside>
+      <aside class="gw-sheet-caution" role="note" aria-label="Caution"><strong>Caution.</strong> {{ sheet().caution }}</aside>
       @for (section of sections(); track section.title) {
         <section class="gw-sheet-section">
           <h3>{{ section.title }}</h3>
           <table class="gw-sheet-lines">
-            <caption class="gw-visually-hidden">{{ section.title }}</caption>
+            <caption class="gw-visually-hidden">
+              {{
+                section.title
+              }}
+            </caption>
             <tbody>
               @for (line of section.lines; track $index) {
                 <tr>

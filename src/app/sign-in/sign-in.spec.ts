@@ -44,7 +44,6 @@ describe('SignIn', () => {
 
   afterEach(() => http.verify());
 
-
   const type = (label: string, value: string) => typeInto(page, label, value);
 
   async function submitWith(username: string, password: string): Promise<void> {

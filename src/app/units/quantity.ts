@@ -12,7 +12,12 @@ import { formatQuantity, isDisplayUnit, toDisplay, trimmedNumber, type DisplayUn
 export class QuantityPipe implements PipeTransform {
   private readonly locale = inject(LOCALE_ID);
 
-  transform(value: number | null | undefined, unit: QuantityKind | DisplayUnit, digits?: string | number, show: 'unit' | 'bare' = 'unit'): string {
+  transform(
+    value: number | null | undefined,
+    unit: QuantityKind | DisplayUnit,
+    digits?: string | number,
+    show: 'unit' | 'bare' = 'unit',
+  ): string {
     if (value === null || value === undefined || !Number.isFinite(value)) return '—';
     if (!isDisplayUnit(unit)) return formatQuantity(value, unit, typeof digits === 'number' ? digits : undefined);
     const shown = toDisplay(value, unit);

@@ -4,10 +4,19 @@ import type { ApiClient } from './api-client.ts';
 import { tableCount } from './test-app.ts';
 
 /** POST a CSV file as the browser does (multipart field "file", decisions as JSON in "decisions"). */
-export function uploadCsv(client: ApiClient, url: string, content: Buffer | string, fileName: string, decisions?: Record<string, string> | string) {
+export function uploadCsv(
+  client: ApiClient,
+  url: string,
+  content: Buffer | string,
+  fileName: string,
+  decisions?: Record<string, string> | string,
+) {
   let req = client.agent.post(url).set('X-XSRF-TOKEN', client.csrfToken ?? '');
   if (decisions !== undefined) req = req.field('decisions', typeof decisions === 'string' ? decisions : JSON.stringify(decisions));
-  return req.attach('file', Buffer.isBuffer(content) ? content : Buffer.from(content, 'utf8'), { filename: fileName, contentType: 'text/csv' });
+  return req.attach('file', Buffer.isBuffer(content) ? content : Buffer.from(content, 'utf8'), {
+    filename: fileName,
+    contentType: 'text/csv',
+  });
 }
 
 export async function tableCounts(db: Db, tables: readonly string[]): Promise<Record<string, number>> {
@@ -24,7 +33,14 @@ function fieldMatching(fields: Record<string, string> | undefined, key: RegExp):
  * field `key` ("file", "header.x" or "row N.column") saying `message`; the preview either lists the same
  * problem on that row and column (a readable file) or is refused the same way.
  */
-export async function expectRefusedFile(client: ApiClient, importUrl: string, content: Buffer, fileName: string, key: RegExp, message: RegExp): Promise<void> {
+export async function expectRefusedFile(
+  client: ApiClient,
+  importUrl: string,
+  content: Buffer,
+  fileName: string,
+  key: RegExp,
+  message: RegExp,
+): Promise<void> {
   const commit = await uploadCsv(client, `${importUrl}/commit`, content, fileName, {});
   expect(commit.status).toBeGreaterThanOrEqual(400);
   expect(commit.status).toBeLessThan(500);

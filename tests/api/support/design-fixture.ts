@@ -4,7 +4,15 @@ import { designRevisions, designs, users } from '../../../server/db/schema.ts';
 import type { TestApp } from './test-app.ts';
 
 // Worked buck example: 24–36 V → 12 V, 10 A, 100 kHz, ripple 0.3 (ideal CCM buck relations, computed by hand).
-export const EXAMPLE_SPEC = { vinMin: 24, vinMax: 36, vout: 12, ioutMax: 10, frequency: 100e3, rippleRatio: 0.3, rectifier: 'ideal' as const };
+export const EXAMPLE_SPEC = {
+  vinMin: 24,
+  vinMax: 36,
+  vout: 12,
+  ioutMax: 10,
+  frequency: 100e3,
+  rippleRatio: 0.3,
+  rectifier: 'ideal' as const,
+};
 
 let counter = 0;
 
@@ -21,7 +29,11 @@ export async function insertEvaluatedDesign(t: TestApp, ownerUsername: string, e
   counter += 1;
   const [design] = await t.db
     .insert(designs)
-    .values({ number: `TST-${String(counter).padStart(4, '0')}-${Date.now() % 100000}`, title: `Review fixture ${counter}`, ownerId: owner.id })
+    .values({
+      number: `TST-${String(counter).padStart(4, '0')}-${Date.now() % 100000}`,
+      title: `Review fixture ${counter}`,
+      ownerId: owner.id,
+    })
     .returning();
   const [revision] = await t.db
     .insert(designRevisions)
@@ -30,7 +42,13 @@ export async function insertEvaluatedDesign(t: TestApp, ownerUsername: string, e
       revision: 1,
       status: 'draft',
       spec: { ...EXAMPLE_SPEC, ...extraSpec },
-      construction: { coreId: best.result.core.id, materialId: best.result.material.id, turns: best.result.turns, gap: best.result.gap.total, wire: best.wire },
+      construction: {
+        coreId: best.result.core.id,
+        materialId: best.result.material.id,
+        turns: best.result.turns,
+        gap: best.result.gap.total,
+        wire: best.wire,
+      },
       // The shape the design workspace saves: the wire option evaluated and every figure.
       result: { wire: best.wire, evaluation: best.result },
       engineVersion: ENGINE_VERSION,
@@ -45,6 +63,9 @@ export async function insertEvaluatedDesign(t: TestApp, ownerUsername: string, e
 export async function addRevision(t: TestApp, designId: number, revisionNumber: number) {
   const [first] = await t.db.select().from(designRevisions).where(eq(designRevisions.designId, designId));
   const { id: _id, createdAt: _c, updatedAt: _u, status: _s, approvedBy: _a, releasedAt: _r, ...copy } = first;
-  const [revision] = await t.db.insert(designRevisions).values({ ...copy, revision: revisionNumber, status: 'draft' }).returning();
+  const [revision] = await t.db
+    .insert(designRevisions)
+    .values({ ...copy, revision: revisionNumber, status: 'draft' })
+    .returning();
   return revision;
 }

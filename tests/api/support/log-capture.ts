@@ -17,7 +17,13 @@ export function createAppCapturingLogs() {
   const config = testConfig({ LOG_LEVEL: 'trace' });
   const pool = new pg.Pool({ connectionString: config.databaseUrl, max: 3 });
   const db = createDb(pool);
-  const { app, close, services } = createApp({ config, pool, db, logger: pino({ level: 'trace' }, sink), mailTarget: { host: '127.0.0.1', port: 1, secure: false, from: 'x@localhost' } });
+  const { app, close, services } = createApp({
+    config,
+    pool,
+    db,
+    logger: pino({ level: 'trace' }, sink),
+    mailTarget: { host: '127.0.0.1', port: 1, secure: false, from: 'x@localhost' },
+  });
   return {
     app,
     db,

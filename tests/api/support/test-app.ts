@@ -39,7 +39,9 @@ export function testConfig(overrides: Record<string, string> = {}): Config {
 /** Every table emptied and the demo scenario seeded again: each test file starts from the same state. */
 export async function resetDatabase(db: Db, config: Config): Promise<void> {
   await applyMigrations(db);
-  await db.execute(sql`truncate table audit_log, session, app_settings, captured_mail, mail_deliveries, build_units, build_orders, revision_transitions, design_revisions, designs, user_cores, material_imports, materials, users restart identity cascade`);
+  await db.execute(
+    sql`truncate table audit_log, session, app_settings, captured_mail, mail_deliveries, build_units, build_orders, revision_transitions, design_revisions, designs, user_cores, material_imports, materials, users restart identity cascade`,
+  );
   await clearJobs(db, config.jobs.schema);
   await seedDemoOnce(db, config.bcryptCost);
 }
@@ -70,7 +72,12 @@ export async function createTestApp(overrides: Record<string, string> = {}): Pro
   await resetDatabase(db, config);
   // A relay named in the overrides (e.g. one that is down) is used as given; otherwise a fake SMTP of its own.
   const smtp = config.smtp.host ? undefined : await startFakeSmtp(db, 0);
-  const mailTarget = { host: config.smtp.host ?? '127.0.0.1', port: smtp?.port ?? config.smtp.port, secure: false, from: 'Gapwright tests <gapwright@localhost>' };
+  const mailTarget = {
+    host: config.smtp.host ?? '127.0.0.1',
+    port: smtp?.port ?? config.smtp.port,
+    secure: false,
+    from: 'Gapwright tests <gapwright@localhost>',
+  };
   const { app, start, close, services } = createApp({ config, pool, db, logger: pino({ level: 'silent' }), mailTarget });
   await start();
   return {

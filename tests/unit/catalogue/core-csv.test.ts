@@ -4,13 +4,34 @@ import { userCoreShape } from '@shared/schemas/user-core-shape';
 import { expectWithin } from './within';
 
 // Invented rows, no maker's part.
-const RING = { name: 'Unit ring', kind: 'ring', family: 'RING', od_mm: '20', id_mm: '10', height_mm: '7', source: 'invented unit-test ring' };
+const RING = {
+  name: 'Unit ring',
+  kind: 'ring',
+  family: 'RING',
+  od_mm: '20',
+  id_mm: '10',
+  height_mm: '7',
+  source: 'invented unit-test ring',
+};
 const SET = {
-  name: 'Unit E set', kind: 'shape', family: 'E', ae_mm2: '80', amin_mm2: '75', le_mm: '70', ve_mm3: '5600', window_mm2: '120',
-  window_height_mm: '20', bobbin_width_mm: '18', bobbin_height_mm: '5', mlt_mm: '55', surface_mm2: '2800', source: 'invented unit-test set',
+  name: 'Unit E set',
+  kind: 'shape',
+  family: 'E',
+  ae_mm2: '80',
+  amin_mm2: '75',
+  le_mm: '70',
+  ve_mm3: '5600',
+  window_mm2: '120',
+  window_height_mm: '20',
+  bobbin_width_mm: '18',
+  bobbin_height_mm: '5',
+  mlt_mm: '55',
+  surface_mm2: '2800',
+  source: 'invented unit-test set',
 };
 
-const problemsByColumn = (cells: Record<string, string>) => Object.fromEntries(validateCoreCells(cells).problems.map((p) => [p.column, p.message]));
+const problemsByColumn = (cells: Record<string, string>) =>
+  Object.fromEntries(validateCoreCells(cells).problems.map((p) => [p.column, p.message]));
 
 describe('the core CSV columns', () => {
   it('gives every dimension column to exactly one kind', () => {
@@ -24,7 +45,15 @@ describe('a ring row', () => {
     const { values, problems } = validateCoreCells(RING);
 
     expect(problems).toEqual([]);
-    expect(values).toEqual({ kind: 'ring', name: 'Unit ring', family: 'RING', outerDiameter: 0.02, innerDiameter: 0.01, height: 0.007, source: 'invented unit-test ring' });
+    expect(values).toEqual({
+      kind: 'ring',
+      name: 'Unit ring',
+      family: 'RING',
+      outerDiameter: 0.02,
+      innerDiameter: 0.01,
+      height: 0.007,
+      source: 'invented unit-test ring',
+    });
   });
 
   it('gives the IEC 60205 effective parameters of 20/10/7 mm', () => {
@@ -90,7 +119,9 @@ describe('a shape row', () => {
 
   it('runs the shared core consistency checks under the column names', () => {
     // Ve = Ae·le = 80 mm² × 70 mm = 5600 mm³; 9000 mm³ is 60.7 % off (the shared schema allows 5 %)
-    expect(problemsByColumn({ ...SET, ve_mm3: '9000' })).toEqual({ ve_mm3: 've_mm3: Ve differs from Ae·le by 60.7 % (at most 5 % allowed)' });
+    expect(problemsByColumn({ ...SET, ve_mm3: '9000' })).toEqual({
+      ve_mm3: 've_mm3: Ve differs from Ae·le by 60.7 % (at most 5 % allowed)',
+    });
     expect(problemsByColumn({ ...SET, amin_mm2: '90' })).toEqual({ amin_mm2: 'amin_mm2: Amin must not exceed Ae' });
     expect(problemsByColumn({ ...SET, bobbin_width_mm: '25' })['bobbin_width_mm']).toMatch(/cannot exceed the window height/);
   });

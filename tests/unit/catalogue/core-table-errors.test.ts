@@ -81,7 +81,9 @@ describe('assertUniqueCoreIds', () => {
       { fileName: 'powder-toroid.csv', cores: [{ ...ring!, family: 'POWDER_TOROID' } as CoreShape] },
     ];
 
-    expect(() => assertUniqueCoreIds(tables)).toThrow(/powder-toroid\.csv, row 1, column "designation": "R20\/10\/7" is already used in ring\.csv/);
+    expect(() => assertUniqueCoreIds(tables)).toThrow(
+      /powder-toroid\.csv, row 1, column "designation": "R20\/10\/7" is already used in ring\.csv/,
+    );
   });
 });
 

@@ -1,11 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import {
-  awgDiameter,
-  enamelledDiameter,
-  formatNominalMillimetres,
-  litzBundleDiameter,
-  standardWireOptions,
-} from '@shared/catalogue/wire';
+import { awgDiameter, enamelledDiameter, formatNominalMillimetres, litzBundleDiameter, standardWireOptions } from '@shared/catalogue/wire';
 import { loadStandardWireOptions, loadWireTables, parseMetricWireRows } from '@core-data/wire-catalogue';
 import { expectWithin } from './within';
 

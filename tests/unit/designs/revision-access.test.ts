@@ -5,12 +5,21 @@ import { revisionAccess } from '../../../server/designs/revision-access.ts';
 // revision-actions spec checked on the client before the server stated them).
 const OWNER = 7;
 const design = { ownerId: OWNER };
-const allowed = (access: ReturnType<typeof revisionAccess>) => Object.entries(access).filter(([, may]) => may).map(([flag]) => flag);
+const allowed = (access: ReturnType<typeof revisionAccess>) =>
+  Object.entries(access)
+    .filter(([, may]) => may)
+    .map(([flag]) => flag);
 
 describe('revisionAccess', () => {
   it('lets the owner who designs edit and submit a draft, and nothing once it is in review', () => {
-    expect(allowed(revisionAccess({ id: OWNER, role: 'engineer' }, design, { status: 'draft', createdBy: OWNER }))).toEqual(['canEdit', 'canSubmit']);
-    expect(allowed(revisionAccess({ id: OWNER, role: 'reviewer' }, design, { status: 'draft', createdBy: OWNER }))).toEqual(['canEdit', 'canSubmit']);
+    expect(allowed(revisionAccess({ id: OWNER, role: 'engineer' }, design, { status: 'draft', createdBy: OWNER }))).toEqual([
+      'canEdit',
+      'canSubmit',
+    ]);
+    expect(allowed(revisionAccess({ id: OWNER, role: 'reviewer' }, design, { status: 'draft', createdBy: OWNER }))).toEqual([
+      'canEdit',
+      'canSubmit',
+    ]);
     expect(allowed(revisionAccess({ id: OWNER, role: 'engineer' }, design, { status: 'in_review', createdBy: OWNER }))).toEqual([]);
   });
 

@@ -68,14 +68,16 @@ describe('calculation request schemas', () => {
   it('bounds the core-loss request: α 1–3, β 1.5–4, duty inside (0, 1)', () => {
     const good = { material: { k: 3, alpha: 1.4, beta: 2.6 }, frequency: 100e3, deltaB: 0.1, duty: 0.3, waveform: 'triangle' };
     expect(coreLossRequestSchema.safeParse(good).success).toBe(true);
-    expect(issueAt(coreLossRequestSchema.safeParse({ ...good, material: { k: 3, alpha: 3.5, beta: 2.6 } }), 'material.alpha')?.message).toBe(
-      'alpha must be between 1 and 3',
-    );
+    expect(
+      issueAt(coreLossRequestSchema.safeParse({ ...good, material: { k: 3, alpha: 3.5, beta: 2.6 } }), 'material.alpha')?.message,
+    ).toBe('alpha must be between 1 and 3');
     expect(issueAt(coreLossRequestSchema.safeParse({ ...good, duty: 1 }), 'duty')).toBeDefined();
   });
 
   it('produces JSON Schema with field descriptions', () => {
-    const json = z.toJSONSchema(searchRequestSchema, { io: 'input' }) as { properties: Record<string, { properties?: Record<string, { description?: string }> }> };
+    const json = z.toJSONSchema(searchRequestSchema, { io: 'input' }) as {
+      properties: Record<string, { properties?: Record<string, { description?: string }> }>;
+    };
     expect(json.properties['spec']?.properties?.['frequency']?.description).toMatch(/Switching frequency/);
     expect(() => z.toJSONSchema(evaluateRequestSchema, { io: 'input' })).not.toThrow();
     expect(() => z.toJSONSchema(coreLossRequestSchema)).not.toThrow();

@@ -30,7 +30,7 @@ describe('evaluateDesign on a gapped ferrite core', () => {
     expect(result.gap.spacer).toBeCloseTo(result.gap.total / 2, 15);
   });
 
-  it('computes flux from volt-seconds and L·I/(N·Ae) (Faraday\'s law and N·Φ = L·I, derived algebraically)', () => {
+  it("computes flux from volt-seconds and L·I/(N·Ae) (Faraday's law and N·Φ = L·I, derived algebraically)", () => {
     // ΔB = (Vin − Vout)·D/(fs·N·Ae) = 24·(1/3)/(1e5·11·97.1e-6) = 74.9 mT
     expect(result.flux.swing * 1e3).toBeCloseTo(74.9, 1);
     // Bpk = L·Ipk/(N·Ae) = 26.67e-6·11.5/(11·97.1e-6) = 0.2871 T
@@ -155,7 +155,10 @@ describe('evaluateDesign when the losses outrun the cooling (thermal runaway)', 
   });
 
   it('evaluates the losses at the 250 °C model limit: Rhot/R20 = ρ(250 °C)/ρ20 (copper α20, from memory)', () => {
-    expect(runaway.copper.resistanceHot / runaway.copper.resistance20).toBeCloseTo(copperResistivity(THERMAL_MODEL_LIMIT) / COPPER_RESISTIVITY_20C, 9);
+    expect(runaway.copper.resistanceHot / runaway.copper.resistance20).toBeCloseTo(
+      copperResistivity(THERMAL_MODEL_LIMIT) / COPPER_RESISTIVITY_20C,
+      9,
+    );
     for (const figure of [runaway.totalLoss, runaway.coreLoss.loss, runaway.thermal.rise, runaway.flux.saturationMargin]) {
       expect(Number.isFinite(figure)).toBe(true);
     }

@@ -12,7 +12,12 @@ import {
 import { etd34Like, ferriteA } from './fixtures';
 
 const L = 8e-5 / 3; // 26.67 µH, the worked buck example: 12·(1 − 12/36)/(1e5·0.3·10), computed
-const geometry = { area: etd34Like.ae, pathLength: etd34Like.le, windowHeight: etd34Like.windowHeight, permeability: ferriteA.permeability };
+const geometry = {
+  area: etd34Like.ae,
+  pathLength: etd34Like.le,
+  windowHeight: etd34Like.windowHeight,
+  permeability: ferriteA.permeability,
+};
 
 describe('turns from the flux limit', () => {
   it('gives N = ceil(L·Ipk/(Bmax·Ae)) = 11 for the worked buck example on an ETD34-like core', () => {

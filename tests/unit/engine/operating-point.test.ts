@@ -54,7 +54,15 @@ describe('buck operating point', () => {
         fc.double({ min: 0.2, max: 1, noNaN: true }),
         fc.double({ min: 0, max: 0.5, noNaN: true }),
         (vin, ratio, diodeDrop, switchDrop) => {
-          const spec: ConverterSpec = { ...sectionOneSpec, vinMin: vin, vinMax: vin, vout: vin * ratio, rectifier: 'diode', diodeDrop, switchDrop };
+          const spec: ConverterSpec = {
+            ...sectionOneSpec,
+            vinMin: vin,
+            vinMax: vin,
+            vout: vin * ratio,
+            rectifier: 'diode',
+            diodeDrop,
+            switchDrop,
+          };
           const d = dutyCycle(spec, vin, 5);
           const on = vin - switchDrop - spec.vout;
           const off = spec.vout + diodeDrop;

@@ -53,7 +53,12 @@ describe('loss ↔ temperature iteration', () => {
   });
 
   it('settles to a self-consistent rise within 0.1 K, copper following ρ(T)/ρ20 (copper α20, from memory)', () => {
-    const solution = solveTemperature(40, loss({ resistance20: 0.012, weightedCurrentSquare: 100, coreLossReference: 0.3 }), 60e-4, rthVolume);
+    const solution = solveTemperature(
+      40,
+      loss({ resistance20: 0.012, weightedCurrentSquare: 100, coreLossReference: 0.3 }),
+      60e-4,
+      rthVolume,
+    );
     expect(solution.converged).toBe(true);
     // The last pass evaluated the losses at a temperature within 0.1 K of the one reported.
     const lossTemperature = 20 + (solution.resistance / 0.012 - 1) / 0.00393;
@@ -65,7 +70,12 @@ describe('loss ↔ temperature iteration', () => {
   it('never evaluates losses above the model limit and reports runaway when they would heat the part past it', () => {
     // A core loss that grows with T² (invented coefficients): no steady state exists below the limit.
     const temperatureCoefficients = { ct2: 1e-3, ct1: 0, ct0: 1 };
-    const solution = solveTemperature(40, loss({ coreLossReference: 0.5, temperatureCoefficients }), 10e-4, coreVolumeThermalResistance(0.7e-6));
+    const solution = solveTemperature(
+      40,
+      loss({ coreLossReference: 0.5, temperatureCoefficients }),
+      10e-4,
+      coreVolumeThermalResistance(0.7e-6),
+    );
     expect(solution.runaway).toBe(true);
     expect(solution.temperatureFactor).toBe(coreLossTemperatureFactor(temperatureCoefficients, THERMAL_MODEL_LIMIT));
     expect(Number.isFinite(solution.rise.design)).toBe(true);

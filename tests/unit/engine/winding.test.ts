@@ -1,6 +1,13 @@
 import { describe, expect, it } from 'vitest';
 import type { CoreShape, WireOption } from '@shared/engine/types';
-import { conductorCopperArea, fitsBuildHeight, layWinding, ringMeanTurnLength, windowFill, type WindingGeometry } from '@shared/engine/winding';
+import {
+  conductorCopperArea,
+  fitsBuildHeight,
+  layWinding,
+  ringMeanTurnLength,
+  windowFill,
+  type WindingGeometry,
+} from '@shared/engine/winding';
 import { chooseWire, roundWireInHand } from '@shared/engine/wire-choice';
 import { copperSkinDepth } from '@shared/engine/skin-depth';
 import { etd34Like, powderRing, roundWire, wireSet } from './fixtures';
@@ -62,7 +69,7 @@ describe('wire choice', () => {
     expect(choice.strands).toBe(5);
     expect(choice.useLitz).toBe(false);
     expect(choice.options[0]!.strands).toBe(5);
-    expect(choice.options[0]!.strands * Math.PI * (0.45e-3) ** 2 / 4).toBeGreaterThanOrEqual(0.75e-6);
+    expect((choice.options[0]!.strands * Math.PI * 0.45e-3 ** 2) / 4).toBeGreaterThanOrEqual(0.75e-6);
   });
 
   it('picks a thinner single wire when that already carries the current', () => {

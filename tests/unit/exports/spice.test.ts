@@ -58,7 +58,7 @@ describe('SPICE subcircuit', () => {
 
   it('has a core-loss resistance that dissipates the iGSE core loss at the RMS inductor voltage', () => {
     // Square wave across L at Vin max: Vin − Vout = 24 V for D = 1/3, −12 V for 2/3 (ideal switches, D = Vout/Vin from volt-second balance, computed).
-    expect(v.inductorVoltageRms).toBeCloseTo(Math.sqrt((24 ** 2) / 3 + (12 ** 2 * 2) / 3), 6);
+    expect(v.inductorVoltageRms).toBeCloseTo(Math.sqrt(24 ** 2 / 3 + (12 ** 2 * 2) / 3), 6);
     expect(v.inductorVoltageRms ** 2 / element('RCORE') / result.coreLoss.loss).toBeCloseTo(1, 4);
   });
 
@@ -104,12 +104,22 @@ describe('candidates CSV', () => {
       rankBy: 'loss' as const,
       candidates: [{ rank: 1, pareto: true, wire: catalogue.wire({ kind: 'awg', awg: 16, strands: 2 }), result }],
       paretoFront: [],
-      infeasible: [{ coreId: 'E13/7/4', materialId: 'test-ferrite', reasons: [{ code: 'fill', severity: 'error' as const, message: 'Winding does not fit' }] }],
+      infeasible: [
+        {
+          coreId: 'E13/7/4',
+          materialId: 'test-ferrite',
+          reasons: [{ code: 'fill', severity: 'error' as const, message: 'Winding does not fit' }],
+        },
+      ],
       counts: { cores: 2, materials: 1, wireOptions: 1, evaluated: 2, feasible: 1, prefiltered: 0, incompatible: 0 },
       requiredAreaProduct: 1e-8,
       wireOptionIds: [],
     };
-    const csv = candidatesCsv({ number: 'GW-0001', title: '=HYPERLINK("http://x")' }, search, new Map([['test-ferrite', 'Test ferrite (invented)']]));
+    const csv = candidatesCsv(
+      { number: 'GW-0001', title: '=HYPERLINK("http://x")' },
+      search,
+      new Map([['test-ferrite', 'Test ferrite (invented)']]),
+    );
     const rows = parse(csv, { columns: true }) as Record<string, string>[];
     expect(rows).toHaveLength(2);
     expect(rows[0]['design']).toBe('GW-0001');

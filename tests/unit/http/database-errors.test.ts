@@ -7,7 +7,10 @@ function driverError(message: string, extra: Record<string, unknown> = {}): Erro
   return Object.assign(new Error(message), extra);
 }
 function wrapped(cause: Error, params: unknown[] = []): Error {
-  return Object.assign(new Error(`Failed query: insert into "designs" ...\nparams: ${params.join(',')}`, { cause }), { query: 'insert ...', params });
+  return Object.assign(new Error(`Failed query: insert into "designs" ...\nparams: ${params.join(',')}`, { cause }), {
+    query: 'insert ...',
+    params,
+  });
 }
 
 describe('errors from PostgreSQL in the one error shape', () => {
@@ -30,23 +33,31 @@ describe('errors from PostgreSQL in the one error shape', () => {
   });
 
   it('does not take user text inside a failed query for a lost connection', () => {
-    const err = wrapped(driverError('value too long for type character varying(120)', { code: '22001' }), ['Connection terminated unexpectedly']);
+    const err = wrapped(driverError('value too long for type character varying(120)', { code: '22001' }), [
+      'Connection terminated unexpectedly',
+    ]);
     expect(databaseErrorAnswer(err)).toBeUndefined();
   });
 
   it('answers 409 naming what clashed for a unique violation', () => {
-    const username = wrapped(driverError('duplicate key value violates unique constraint "users_username_unique"', {
-      code: '23505',
-      constraint: 'users_username_unique',
-      detail: 'Key (username)=(quinn) already exists.',
-    }));
+    const username = wrapped(
+      driverError('duplicate key value violates unique constraint "users_username_unique"', {
+        code: '23505',
+        constraint: 'users_username_unique',
+        detail: 'Key (username)=(quinn) already exists.',
+      }),
+    );
     expect(databaseErrorAnswer(username)).toEqual({
       status: 409,
       code: 'conflict',
       message: 'Username "quinn" is taken.',
       fields: { username: 'This username is taken' },
     });
-    const version = driverError('duplicate key', { code: '23505', constraint: 'materials_lineage_version_idx', detail: 'Key (lineage, version)=(mf-95, 2) already exists.' });
+    const version = driverError('duplicate key', {
+      code: '23505',
+      constraint: 'materials_lineage_version_idx',
+      detail: 'Key (lineage, version)=(mf-95, 2) already exists.',
+    });
     expect(databaseErrorAnswer(version)).toMatchObject({ status: 409, message: expect.stringMatching(/new version of this material/) });
     const unknown = driverError('duplicate key', { code: '23505', constraint: 'some_future_idx' });
     expect(databaseErrorAnswer(unknown)).toMatchObject({ status: 409, code: 'conflict' });

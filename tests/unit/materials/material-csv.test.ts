@@ -1,17 +1,23 @@
 import { describe, expect, it } from 'vitest';
 import { steinmetzLoss } from '@shared/engine/core-loss';
-import {
-  MATERIAL_CSV_COLUMNS,
-  kFromSi,
-  kToSi,
-  materialCellsFromValues,
-  validateMaterialCells,
-} from '@shared/schemas/materials';
+import { MATERIAL_CSV_COLUMNS, kFromSi, kToSi, materialCellsFromValues, validateMaterialCells } from '@shared/schemas/materials';
 import { decodeCsvText, parseMaterialCsv, stringifyMaterialCsv } from '../../../server/materials/material-csv.ts';
 
 const FERRITE_CELLS = {
-  name: 'Unit ferrite', family: 'ferrite', unit_set: 'mW/cm3-kHz-mT', k: '0.0032', alpha: '1.4', beta: '2.6',
-  f_min: '50', f_max: '300', b_min: '20', b_max: '250', bsat_25: '500', bsat_100: '400', mu_i: '2300', density: '4800',
+  name: 'Unit ferrite',
+  family: 'ferrite',
+  unit_set: 'mW/cm3-kHz-mT',
+  k: '0.0032',
+  alpha: '1.4',
+  beta: '2.6',
+  f_min: '50',
+  f_max: '300',
+  b_min: '20',
+  b_max: '250',
+  bsat_25: '500',
+  bsat_100: '400',
+  mu_i: '2300',
+  density: '4800',
   provenance: 'Invented unit-test row',
 };
 
@@ -73,7 +79,9 @@ describe('row validation', () => {
 describe('file reading', () => {
   it('numbers rows as a spreadsheet does (header = row 1), with BOM and CRLF', () => {
     const header = MATERIAL_CSV_COLUMNS.join(',');
-    const records = parseMaterialCsv(`\uFEFF${header}\r\n${MATERIAL_CSV_COLUMNS.map(() => '1').join(',')}\r\n\r\n${MATERIAL_CSV_COLUMNS.map(() => '2').join(',')}\r\n`);
+    const records = parseMaterialCsv(
+      `\uFEFF${header}\r\n${MATERIAL_CSV_COLUMNS.map(() => '1').join(',')}\r\n\r\n${MATERIAL_CSV_COLUMNS.map(() => '2').join(',')}\r\n`,
+    );
     // The blank line is spreadsheet row 3, so the second record is row 4.
     expect(records.map((r) => r.row)).toEqual([2, 4]);
     expect(records[1]!.cells.alpha).toBe('2');

@@ -107,7 +107,20 @@ describe('formatQuantity', () => {
 });
 
 describe('round trips', () => {
-  const kinds: QuantityKind[] = ['voltage', 'current', 'frequency', 'inductance', 'resistance', 'power', 'fluxDensity', 'length', 'currentDensity', 'temperature', 'temperatureRise', 'ratio'];
+  const kinds: QuantityKind[] = [
+    'voltage',
+    'current',
+    'frequency',
+    'inductance',
+    'resistance',
+    'power',
+    'fluxDensity',
+    'length',
+    'currentDensity',
+    'temperature',
+    'temperatureRise',
+    'ratio',
+  ];
 
   it('parse(format(x)) returns x within the shown precision', () => {
     fc.assert(

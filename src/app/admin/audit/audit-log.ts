@@ -21,7 +21,9 @@ export class AuditLog {
   protected readonly pageSize = signal(FIRST_PAGE_SIZE);
 
   // The log grows without bound, so the server pages it; only one page is ever loaded.
-  protected readonly page = endpointResource(auditPage, () => ({ query: { offset: this.pageIndex() * this.pageSize(), limit: this.pageSize() } }));
+  protected readonly page = endpointResource(auditPage, () => ({
+    query: { offset: this.pageIndex() * this.pageSize(), limit: this.pageSize() },
+  }));
   protected readonly entries = computed(() => (this.page.hasValue() ? this.page.value().entries : []));
   protected readonly total = computed(() => (this.page.hasValue() ? this.page.value().total : 0));
   protected readonly columns = ['at', 'actor', 'action', 'target', 'details'];
