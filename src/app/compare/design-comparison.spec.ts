@@ -64,18 +64,16 @@ describe('DesignComparison', () => {
 
   it('puts the server’s message about the revision under the revision field', async () => {
     await openedOnRevision();
-    http
-      .expectOne('/api/compare/saved-design')
-      .flush(
-        {
-          error: {
-            code: 'conflict',
-            message: 'GW-0005 revision 2 has no construction yet.',
-            fields: { revision: 'No construction to compare' },
-          },
+    http.expectOne('/api/compare/saved-design').flush(
+      {
+        error: {
+          code: 'conflict',
+          message: 'GW-0005 revision 2 has no construction yet.',
+          fields: { revision: 'No construction to compare' },
         },
-        { status: 409, statusText: 'Conflict' },
-      );
+      },
+      { status: 409, statusText: 'Conflict' },
+    );
     await fixture.whenStable();
     expect([...page.querySelectorAll('mat-error')].map((e) => e.textContent?.trim())).toEqual(['No construction to compare']);
     expect(page.querySelector('table')).toBeNull();

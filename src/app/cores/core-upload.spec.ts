@@ -82,18 +82,16 @@ describe('CoreUpload', () => {
 
   it('shows a refused file’s message and its fields', async () => {
     await chooseFile('a;b\n');
-    http
-      .expectOne('/api/catalogue/cores/import/preview')
-      .flush(
-        {
-          error: {
-            code: 'invalid_input',
-            message: 'The header row is separated by ";"; Gapwright core files use commas.',
-            fields: { header: 'Not comma-separated' },
-          },
+    http.expectOne('/api/catalogue/cores/import/preview').flush(
+      {
+        error: {
+          code: 'invalid_input',
+          message: 'The header row is separated by ";"; Gapwright core files use commas.',
+          fields: { header: 'Not comma-separated' },
         },
-        { status: 400, statusText: 'Bad Request' },
-      );
+      },
+      { status: 400, statusText: 'Bad Request' },
+    );
     await fixture.whenStable();
 
     const alert = page.querySelector('[role="alert"]')!;

@@ -121,18 +121,16 @@ describe('MaterialEdit', () => {
     button('Save as version 4').click();
     await fixture.whenStable();
 
-    http
-      .expectOne('/api/materials/12')
-      .flush(
-        {
-          error: {
-            code: 'invalid_input',
-            message: 'The edit is not valid: alpha must be between 1 and 3 (got 3.5)',
-            fields: { alpha: 'alpha must be between 1 and 3 (got 3.5)' },
-          },
+    http.expectOne('/api/materials/12').flush(
+      {
+        error: {
+          code: 'invalid_input',
+          message: 'The edit is not valid: alpha must be between 1 and 3 (got 3.5)',
+          fields: { alpha: 'alpha must be between 1 and 3 (got 3.5)' },
         },
-        { status: 400, statusText: 'Bad Request' },
-      );
+      },
+      { status: 400, statusText: 'Bad Request' },
+    );
     await fixture.whenStable();
     expect(fieldOf(ALPHA).querySelector('mat-error')?.textContent?.trim()).toBe('alpha must be between 1 and 3 (got 3.5)');
     expect(fieldLabelled(page, ALPHA).getAttribute('aria-invalid')).toBe('true');

@@ -77,18 +77,16 @@ describe('RecordUnitForm', () => {
     await chooseHipot('not_tested');
     await submit();
 
-    http
-      .expectOne('/api/shop/orders/5/units')
-      .flush(
-        {
-          error: {
-            code: 'validation',
-            message: 'Some fields need attention',
-            fields: { testFrequency: 'testFrequency must be between 10 and 10000000 Hz' },
-          },
+    http.expectOne('/api/shop/orders/5/units').flush(
+      {
+        error: {
+          code: 'validation',
+          message: 'Some fields need attention',
+          fields: { testFrequency: 'testFrequency must be between 10 and 10000000 Hz' },
         },
-        { status: 400, statusText: 'Bad Request' },
-      );
+      },
+      { status: 400, statusText: 'Bad Request' },
+    );
     await fixture.whenStable();
 
     expect(errorTexts()).toEqual(['testFrequency must be between 10 and 10000000 Hz']);
