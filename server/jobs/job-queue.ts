@@ -1,5 +1,6 @@
 import { sql, type SQL } from 'drizzle-orm';
 import PgBoss from 'pg-boss';
+import plans from 'pg-boss/src/plans.js';
 import type pg from 'pg';
 import type { Logger } from 'pino';
 import type { Tx } from '../db/client.ts';
@@ -43,9 +44,24 @@ export class JobQueue {
   private started = false;
 
   constructor(private readonly options: JobQueueOptions) {
-    const { pool, schema } = options;
+    const { pool, schema, logger } = options;
+    // pg-boss 10 completes or fails a finished job without awaiting the statement (manager.js, onFetch): if the
+    // database goes away at that moment the rejection is unhandled and ends the process. Those two statements are
+    // logged instead; the job stays active, expires and is retried when the database is back.
+    const unawaited = new Set([plans.completeJobs(schema), plans.failJobsById(schema)]);
+    const executeSql = (text: string, values: unknown[]) => {
+      const run = pool.query(text, values);
+      if (!unawaited.has(text)) return run;
+      return run.catch((err: unknown) => {
+        logger.warn(
+          { err: err instanceof Error ? err.message : String(err) },
+          'job queue: a finished job could not be marked; it will be retried',
+        );
+        return { rows: [{ count: '0' }] };
+      });
+    };
     // pg-boss runs on the app's pool, so it needs no connections of its own.
-    this.boss = new PgBoss({ db: { executeSql: (text, values) => pool.query(text, values) }, schema, schedule: false });
+    this.boss = new PgBoss({ db: { executeSql }, schema, schedule: false });
     this.boss.on('error', (err) => options.logger.warn({ err: err.message }, 'job queue error'));
   }
 
