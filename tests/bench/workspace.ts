@@ -91,6 +91,8 @@ export async function runWorkspaceBench(): Promise<BenchRow[]> {
       await turnsField.fill(String(turns));
       const response = await request;
       evaluateTimes.push(await shown);
+      // The timing's responseEnd is -1 until the body has arrived.
+      await response.finished();
       const timing = response.request().timing();
       requestTimes.push(timing.responseEnd - timing.requestStart);
     }
