@@ -67,11 +67,12 @@ export interface AxeFinding {
 export async function seriousAxeFindings(page: Page): Promise<AxeFinding[]> {
   // A field error fading in is half transparent for a moment, and axe reads its contrast from the blend: let every
   // finite animation end first (endless ones, such as a progress bar, are left; at most two seconds).
-  await page.evaluate(async () => {
+  // Passed as text: this file is also type-checked without the DOM library.
+  await page.evaluate(`(async () => {
     const finite = document.getAnimations().filter((a) => Number.isFinite(Number(a.effect?.getComputedTiming().endTime)));
     const settled = Promise.all(finite.map((a) => a.finished.catch(() => undefined)));
     await Promise.race([settled, new Promise((resolve) => setTimeout(resolve, 2000))]);
-  });
+  })()`);
   const result = await new AxeBuilder({ page }).analyze();
   return result.violations
     .filter((v) => v.impact === 'serious' || v.impact === 'critical')
