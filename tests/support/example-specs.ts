@@ -1,0 +1,55 @@
+// Six buck converters that span the range a designer meets (the expert-search issue's examples A–F), SI units.
+// Tests and `tests/bench/top-picks.ts` use them; they are invented, not any product's specification.
+import type { ConverterSpec } from '@shared/engine/inputs';
+
+export const EXAMPLE_SPECS: Readonly<Record<'A' | 'B' | 'C' | 'D' | 'E' | 'F', ConverterSpec>> = {
+  A: { vinMin: 7, vinMax: 8.4, vout: 3.3, ioutMax: 0.3, frequency: 500e3, rippleRatio: 1.0, rectifier: 'ideal' },
+  B: { vinMin: 10, vinMax: 14, vout: 5, ioutMax: 5, frequency: 200e3, rippleRatio: 0.3, rectifier: 'ideal' },
+  C: {
+    vinMin: 36,
+    vinMax: 60,
+    vout: 12,
+    ioutMax: 10,
+    frequency: 100e3,
+    rippleRatio: 0.3,
+    rectifier: 'diode',
+    diodeDrop: 0.6,
+    switchDrop: 0.3,
+    inductorResistance: 0.02,
+  },
+  D: {
+    vinMin: 42,
+    vinMax: 54,
+    vout: 12,
+    ioutMax: 40,
+    frequency: 150e3,
+    rippleRatio: 0.25,
+    rectifier: 'synchronous',
+    highSideResistance: 0.004,
+    lowSideResistance: 0.003,
+    currentLimit: 55,
+  },
+  E: {
+    vinMin: 10.8,
+    vinMax: 13.2,
+    vout: 1.2,
+    ioutMax: 60,
+    frequency: 500e3,
+    rippleRatio: 0.3,
+    rectifier: 'synchronous',
+    highSideResistance: 0.002,
+    lowSideResistance: 0.001,
+  },
+  F: {
+    vinMin: 1.8,
+    vinMax: 2.2,
+    vout: 0.9,
+    ioutMax: 6,
+    frequency: 2e6,
+    rippleRatio: 0.3,
+    rectifier: 'synchronous',
+    highSideResistance: 0.01,
+    lowSideResistance: 0.006,
+    inductorResistance: 0.003,
+  },
+};
