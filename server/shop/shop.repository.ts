@@ -25,7 +25,7 @@ function stored<T>(schema: z.ZodType<T>, value: unknown, what: string): T {
   return parsed.data;
 }
 
-export const storedSheet = (value: unknown): WindingSheet => stored(windingSheetSchema, value, 'winding sheet');
+const storedSheet = (value: unknown): WindingSheet => stored(windingSheetSchema, value, 'winding sheet');
 const storedOrder = (row: OrderRow): StoredOrder => ({ ...row, sheet: storedSheet(row.sheet) });
 const storedUnit = (row: UnitRow): StoredUnit => ({ ...row, findings: stored(findingsSchema, row.findings, 'unit findings') });
 
