@@ -34,22 +34,16 @@ function rowsOf<Row>(rows: unknown[]): Row[] {
   return rows as Row[];
 }
 
-// PostgreSQL takes at most 65,535 parameters a statement; an insert sends one per column and row.
-const MAX_PARAMETERS = 65_535;
 const UPDATE_CHUNK = 1000;
 
 /** The queries of one versioned table, typed by its row (`Row`) and its own columns (`Values`). */
 export class VersionStore<Row extends VersionRow, Values extends { name: string }> {
-  private readonly insertChunk: number;
-
   constructor(
     readonly db: Db,
     private readonly table: VersionedTable,
     /** "material", "core": how a refusal names one item. */
     private readonly noun: string,
-  ) {
-    this.insertChunk = Math.floor(MAX_PARAMETERS / Object.keys(getTableColumns(table)).length);
-  }
+  ) {}
 
   /**
    * Waits until no other transaction is adding items to this table, and keeps the others waiting until this one
@@ -131,17 +125,32 @@ export class VersionStore<Row extends VersionRow, Values extends { name: string 
     }
   }
 
-  /** Many versions, in as few statements as the parameter limit allows; their ids in the order given. */
+  /**
+   * Many versions in one statement, their ids in the order given. Each column goes as one array parameter
+   * through unnest: a 10,000-row import sends a few dozen parameters where a multi-row VALUES insert sends
+   * 300,000 in 5 statements and takes five to ten times as long. Columns, their SQL types and value mapping
+   * come from the table's Drizzle definition, so nothing here restates a column.
+   */
   async insertVersions(tx: Tx, rows: NewVersion<Values>[]): Promise<number[]> {
-    const ids: number[] = [];
-    for (let i = 0; i < rows.length; i += this.insertChunk) {
-      const inserted = await tx
-        .insert(this.table)
-        .values(rows.slice(i, i + this.insertChunk))
-        .returning({ id: this.table.id });
-      ids.push(...inserted.map((r) => r.id as number));
-    }
-    return ids;
+    if (!rows.length) return [];
+    const given = new Set(rows.flatMap((row) => Object.keys(row)));
+    const columns = Object.entries(getTableColumns(this.table)).filter(([key]) => given.has(key));
+    const arrays = columns.map(([key, column]) => {
+      const values = rows.map((row) => {
+        const value = (row as Record<string, unknown>)[key];
+        return value === undefined || value === null ? null : column.mapToDriverValue(value);
+      });
+      // The type is the schema's own (varchar(80), double precision, jsonb…), never request text.
+      return sql`${sql.param(values)}::${sql.raw(column.getSQLType())}[]`;
+    });
+    const names = sql.join(
+      columns.map(([, column]) => sql.identifier(column.name)),
+      sql`, `,
+    );
+    const result = await tx.execute<{ id: number }>(
+      sql`insert into ${this.table} (${names}) select * from unnest(${sql.join(arrays, sql`, `)}) returning ${sql.identifier(this.table.id.name)}`,
+    );
+    return result.rows.map((r) => r.id);
   }
 
   async insertVersion(tx: Tx, row: NewVersion<Values>): Promise<Row> {
