@@ -11,9 +11,14 @@ import { checkedUserCoreShape } from './user-core-shape';
 
 export { importDecisionsSchema, type CellProblem, type ImportDecision, type ImportPreview, type PreviewRow } from './csv-import';
 
-/** The dimension columns of a ring row (nominal dimensions) and of a shape row (effective parameters). */
-const RING_COLUMNS = ['od_mm', 'id_mm', 'height_mm'] as const;
-const SHAPE_COLUMNS = [
+/** Columns in the order the template writes them. */
+export const CORE_CSV_COLUMNS = [
+  'name',
+  'kind',
+  'family',
+  'od_mm',
+  'id_mm',
+  'height_mm',
   'ae_mm2',
   'amin_mm2',
   'le_mm',
@@ -24,10 +29,8 @@ const SHAPE_COLUMNS = [
   'bobbin_height_mm',
   'mlt_mm',
   'surface_mm2',
+  'source',
 ] as const;
-
-/** Columns in the order the template writes them. */
-export const CORE_CSV_COLUMNS = ['name', 'kind', 'family', ...RING_COLUMNS, ...SHAPE_COLUMNS, 'source'] as const;
 export type CoreCsvColumn = (typeof CORE_CSV_COLUMNS)[number];
 
 /** The header must have these; the dimension columns may be left out (a file of rings only needs no shape columns). */
@@ -59,7 +62,21 @@ const DIMENSIONS: Record<DimensionColumn, { field: RequestField; unit: 'mm' | 'm
 };
 
 /** The dimension columns each kind uses; a row's other dimension cells must be empty. */
-export const KIND_COLUMNS: Record<CoreKind, readonly DimensionColumn[]> = { ring: RING_COLUMNS, shape: SHAPE_COLUMNS };
+export const KIND_COLUMNS: Record<CoreKind, readonly DimensionColumn[]> = {
+  ring: ['od_mm', 'id_mm', 'height_mm'],
+  shape: [
+    'ae_mm2',
+    'amin_mm2',
+    'le_mm',
+    've_mm3',
+    'window_mm2',
+    'window_height_mm',
+    'bobbin_width_mm',
+    'bobbin_height_mm',
+    'mlt_mm',
+    'surface_mm2',
+  ],
+};
 const OPTIONAL_DIMENSIONS: readonly DimensionColumn[] = ['amin_mm2'];
 
 /** The CSV column of a request field (userCoreRequestSchema) or a CoreShape field (shared core schema). */
