@@ -23,7 +23,7 @@ export function userCoresRouter(cores: UserCoresService): Router {
   });
   mount(router, previewCoreImport, ({ req }) => cores.preview(uploadedFile(req)), [singleCsvUpload()]);
   mount(router, commitCoreImport, ({ req }) => cores.commit(uploadedFile(req), decisionsField(req), actorOf(req)), [singleCsvUpload()]);
-  mount(router, userCoreHistory, async ({ params }) => ({ versions: await cores.history(params.id) }));
+  mount(router, userCoreHistory, async ({ params, req }) => ({ versions: await cores.history(params.id, actorOf(req).role) }));
   mount(router, editUserCore, ({ params, body, req }) => cores.edit(params.id, body, actorOf(req)));
   mount(router, retireUserCore, ({ params, req }) => cores.setRetired(params.id, true, actorOf(req)));
   mount(router, unretireUserCore, ({ params, req }) => cores.setRetired(params.id, false, actorOf(req)));

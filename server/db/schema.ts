@@ -1,4 +1,5 @@
 import { sql } from 'drizzle-orm';
+import type { CoreShape } from '@shared/engine/types';
 import {
   type AnyPgColumn,
   boolean,
@@ -148,11 +149,17 @@ export const userCores = pgTable(
     retired: boolean('retired').notNull().default(false),
     name: varchar('name', { length: 80 }).notNull(),
     family: varchar('family', { length: 20 }).notNull(),
-    shape: jsonb('shape').notNull(),
+    shape: jsonb('shape').$type<CoreShape>().notNull(),
     createdBy: integer('created_by').references(() => users.id, { onDelete: 'set null' }),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [uniqueIndex('user_cores_lineage_version_idx').on(t.lineage, t.version)],
+  (t) => [
+    uniqueIndex('user_cores_lineage_version_idx').on(t.lineage, t.version),
+    // As for materials: two current cores never share a name (the catalogue finds a core by its name).
+    uniqueIndex('user_cores_current_name_idx')
+      .on(sql`lower(${t.name})`)
+      .where(sql`${t.current}`),
+  ],
 );
 
 export const REVISION_STATUSES = ['draft', 'in_review', 'approved', 'released', 'superseded'] as const;

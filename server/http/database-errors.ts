@@ -48,6 +48,10 @@ const UNIQUE_CLASHES: Record<string, (value: string) => { message: string; field
   materials_lineage_version_idx: () => ({
     message: 'Someone else saved a new version of this material at the same moment. Reload it and make your change again.',
   }),
+  user_cores_current_name_idx: (value) => ({
+    message: `Another user core is already called "${value}" (saved at the same moment).`,
+    fields: { name: 'Name already used' },
+  }),
   user_cores_lineage_version_idx: () => ({
     message: 'Someone else saved a new version of this core at the same moment. Reload it and make your change again.',
   }),

@@ -19,7 +19,7 @@ import type { MaterialsService } from './materials.service.ts';
 /** The library: upload, edit, retire, export, history. Mounted at /api before the plain listing router. */
 export function materialLibraryRouter(service: MaterialsService): Router {
   const router = Router();
-  mount(router, materialLibrary, async () => ({ materials: await service.list() }));
+  mount(router, materialLibrary, ({ req }) => service.list(actorOf(req).role));
   mount(router, materialTemplate, ({ res }) => {
     res.attachment('gapwright-materials-template.csv').type('text/csv; charset=utf-8').send(service.template());
   });
@@ -32,7 +32,7 @@ export function materialLibraryRouter(service: MaterialsService): Router {
   mount(router, commitMaterialImport, ({ req }) => service.commit(uploadedFile(req), decisionsField(req), actorOf(req)), [
     singleCsvUpload(),
   ]);
-  mount(router, materialHistory, async ({ params }) => ({ versions: await service.history(params.id) }));
+  mount(router, materialHistory, async ({ params, req }) => ({ versions: await service.history(params.id, actorOf(req).role) }));
   mount(router, editMaterial, ({ params, body, req }) => service.edit(params.id, body, actorOf(req)));
   mount(router, retireMaterial, ({ params, req }) => service.setRetired(params.id, true, actorOf(req)));
   mount(router, unretireMaterial, ({ params, req }) => service.setRetired(params.id, false, actorOf(req)));

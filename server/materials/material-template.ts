@@ -1,4 +1,4 @@
-import type { MaterialCsvColumn } from '@shared/schemas/materials';
+import type { MaterialCsvColumn } from '@shared/schemas/material-csv';
 
 /**
  * The downloadable template: two invented, illustrative materials, one in each unit set. Neither is any

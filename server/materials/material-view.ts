@@ -1,5 +1,5 @@
 import type { CoreMaterial } from '@shared/engine/types';
-import type { MaterialSummary } from '@shared/schemas/materials';
+import type { MaterialSummary } from '@shared/schemas/material-answers';
 import type { MaterialRow } from './materials.repository.ts';
 
 /** The engine's view of a stored material version (SI units). */

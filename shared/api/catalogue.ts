@@ -1,5 +1,5 @@
 import * as z from 'zod';
-import { importPreviewSchema } from '@shared/schemas/materials';
+import { importPreviewSchema } from '@shared/schemas/csv-import';
 import {
   coreHistoryResponseSchema,
   coreImportResultSchema,

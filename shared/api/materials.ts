@@ -1,16 +1,14 @@
 import * as z from 'zod';
+import { importPreviewSchema } from '@shared/schemas/csv-import';
 import {
-  importPreviewSchema,
   libraryMaterialSchema,
   libraryResponseSchema,
   materialCommitResultSchema,
-  materialEditSchema,
-  materialExportQuerySchema,
   materialHistoryResponseSchema,
   materialImportsResponseSchema,
-  materialListQuerySchema,
   materialListResponseSchema,
-} from '@shared/schemas/materials';
+} from '@shared/schemas/material-answers';
+import { materialEditSchema, materialExportQuerySchema, materialListQuerySchema } from '@shared/schemas/material-requests';
 import { defineEndpoint } from './endpoint';
 import { idParamsSchema } from './params';
 

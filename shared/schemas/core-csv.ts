@@ -5,10 +5,11 @@
 // `userCoreRequestSchema` and the shared core schema; every problem names the CSV column it comes from.
 import type * as z from 'zod';
 import { userCoreRequestSchema, type UserCoreRequest } from './cores';
-import type { CellProblem } from './materials';
+import { CONTROL_CHARACTERS, decimalCommaHint, FORMULA_START, NUMBER_TEXT, shownCell } from './csv-cells';
+import type { CellProblem } from './csv-import';
 import { checkedUserCoreShape } from './user-core-shape';
 
-export { importDecisionsSchema, type CellProblem, type ImportDecision, type ImportPreview, type PreviewRow } from './materials';
+export { importDecisionsSchema, type CellProblem, type ImportDecision, type ImportPreview, type PreviewRow } from './csv-import';
 
 type UnitSuffix = 'mm' | 'mm2' | 'mm3';
 /** A dimension column's name ends in its unit (see UNIT_OF_SUFFIX). */
@@ -94,19 +95,9 @@ const COLUMN_OF_FIELD: Record<string, CoreCsvColumn> = {
   ring: 'id_mm',
 };
 
-// Plain decimal numbers with an optional exponent; no thousands separators, no decimal comma, no hex.
-const NUMBER_TEXT = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
-const FORMULA_START = /^[=+\-@\t\r]/;
-// eslint-disable-next-line no-control-regex -- finding control characters is the point of this pattern
-const CONTROL_CHARACTERS = /[\u0000-\u0008\u000b\u000c\u000e-\u001f]/;
-const shown = (text: string) => (text.length > 24 ? `${text.slice(0, 24)}…` : text);
-
 function numberOf(column: DimensionColumn, raw: string): { value?: number; problem?: string } {
   const text = raw.trim();
-  if (!NUMBER_TEXT.test(text)) {
-    const hint = /^\d+,\d+$/.test(text) ? ' (use a point as the decimal separator)' : '';
-    return { problem: `${column} "${shown(text)}" is not a number${hint}` };
-  }
+  if (!NUMBER_TEXT.test(text)) return { problem: `${column} "${shownCell(text)}" is not a number${decimalCommaHint(text)}` };
   const value = Number(text);
   if (!Number.isFinite(value)) return { problem: `${column} must be a finite number` };
   if (value <= 0) return { problem: `${column} must be greater than 0 (got ${value})` };

@@ -2,6 +2,7 @@
 // set given by its effective parameters. SI units (m, m², m³); the form converts from mm.
 import * as z from 'zod';
 import { coreShapeSchema } from '@shared/catalogue/core-schema';
+import { recordActionsSchema } from './record-actions';
 import { text } from './text';
 import { CORE_FAMILIES, type CoreShape } from '@shared/engine/types';
 
@@ -70,16 +71,21 @@ export type UserCoreRequest = z.infer<typeof userCoreRequestSchema>;
 /** The engine's CoreShape as an answer carries it: the fields only (the consistency checks ran when it was stored). */
 export const coreShapeAnswerSchema = z.object(coreShapeSchema.shape) satisfies z.ZodType<CoreShape>;
 
-/** A core as GET /api/catalogue/cores lists it: shipped or user-added, with its area product (m⁴). */
-export const listedCoreSchema = coreShapeAnswerSchema.extend({
-  areaProduct: z.number(),
-  origin: z.enum(['shipped', 'user']),
-  userCoreId: z.number().int().optional(),
-  version: z.number().int().optional(),
-  retired: z.boolean().optional(),
-  createdBy: z.string().nullable().optional(),
-  createdAt: z.string().optional(),
-});
+/**
+ * A core as GET /api/catalogue/cores lists it: shipped or user-added, with its area product (m⁴) and what the
+ * signed-in user may do with it (nothing, for a shipped core).
+ */
+export const listedCoreSchema = coreShapeAnswerSchema
+  .extend({
+    areaProduct: z.number(),
+    origin: z.enum(['shipped', 'user']),
+    userCoreId: z.number().int().optional(),
+    version: z.number().int().optional(),
+    retired: z.boolean().optional(),
+    createdBy: z.string().nullable().optional(),
+    createdAt: z.string().optional(),
+  })
+  .extend(recordActionsSchema.shape);
 export type ListedCore = z.infer<typeof listedCoreSchema>;
 export const coreListResponseSchema = z.object({ cores: z.array(listedCoreSchema) });
 export const coreHistoryResponseSchema = z.object({ versions: z.array(listedCoreSchema) });

@@ -76,6 +76,33 @@ describe('four parallel writes of one thing', () => {
     });
   });
 
+  it('creations of one user core name: one core, three 409s naming the name', async () => {
+    const ring = (height: number) => ({
+      kind: 'ring',
+      name: 'Parallel new ring',
+      family: 'RING',
+      outerDiameter: 20e-3,
+      innerDiameter: 10e-3,
+      height: height * 1e-3,
+      source: 'our own sample',
+    });
+    const answers = await Promise.all([7, 8, 9, 10].map((mm) => engineer.post('/api/catalogue/cores', ring(mm))));
+    expect(statuses(answers)).toEqual([201, 409, 409, 409]);
+    for (const refused of answers.filter((a) => a.status === 409)) {
+      expect(refused.body.error.code).toBe('conflict');
+      expect(refused.body.error.fields).toHaveProperty('name');
+    }
+    expect(await t.db.select().from(userCores).where(eq(userCores.name, 'Parallel new ring'))).toHaveLength(1);
+  });
+
+  it('the database itself refuses two current user cores of one name (any case)', async () => {
+    const [core] = await t.db.select().from(userCores).where(eq(userCores.name, 'Parallel new ring'));
+    const copy = { ...core!, id: undefined, createdAt: undefined, lineage: 'another-lineage', name: 'PARALLEL NEW RING' };
+    await expect(t.db.insert(userCores).values(copy)).rejects.toMatchObject({ cause: { constraint: 'user_cores_current_name_idx' } });
+    // A version that is no longer current may keep the name.
+    await t.db.insert(userCores).values({ ...copy, current: false });
+  });
+
   it('creations of one username by the admin: one account, three 409s naming the username', async () => {
     const answers = await Promise.all(
       ['Quinn A', 'Quinn B', 'Quinn C', 'Quinn D'].map((displayName) =>

@@ -10,6 +10,12 @@ beforeAll(async () => {
 });
 afterAll(() => t.close());
 
+interface Flags {
+  canEdit: boolean;
+  canRetire: boolean;
+  canRestore: boolean;
+}
+
 const RING = {
   kind: 'ring',
   name: 'Lab ring 25/15/10',
@@ -63,6 +69,9 @@ describe('user cores', () => {
     expect(inverted.body.error.fields.innerDiameter).toMatch(/smaller than outerDiameter/);
     const shipped = await engineer.post('/api/catalogue/cores', { ...RING, name: 'ETD34/17/11' });
     expect(shipped.status).toBe(409);
+    const taken = await engineer.post('/api/catalogue/cores', { ...RING, name: 'LAB RING 25/15/10' });
+    expect(taken.status).toBe(409);
+    expect(taken.body.error.fields.name).toMatch(/Same name as "Lab ring 25\/15\/10"/);
     const shaped = await engineer.post('/api/catalogue/cores', {
       kind: 'shape',
       name: 'Lab E',
@@ -83,6 +92,29 @@ describe('user cores', () => {
     const winder = await signedInAs(t.app, 'winder');
     expect((await winder.post('/api/catalogue/cores', { ...RING, name: 'Winder ring' })).status).toBe(403);
     expect(await tableCount(t.db, 'user_cores')).toBe(before);
+  });
+});
+
+describe('what the server says each user may do with a core', () => {
+  const flags = (core: { canEdit: boolean; canRetire: boolean; canRestore: boolean }) => [core.canEdit, core.canRetire, core.canRestore];
+
+  it('engineers edit user cores, reviewers also retire and restore them; shipped cores allow nothing', async () => {
+    const reviewer = await signedInAs(t.app, 'reviewer');
+    const byEngineer = (await engineer.get('/api/catalogue/cores')).body.cores as ({ id: string; userCoreId?: number } & Flags)[];
+    expect(flags(byEngineer.find((c) => c.id === 'ETD34/17/11')!)).toEqual([false, false, false]);
+    const mine = byEngineer.find((c) => c.id === 'Lab ring 25/15/10')!;
+    expect(flags(mine)).toEqual([true, false, false]);
+    const byReviewer = (await reviewer.get('/api/catalogue/cores')).body.cores as ({ id: string } & Flags)[];
+    expect(flags(byReviewer.find((c) => c.id === 'Lab ring 25/15/10')!)).toEqual([true, true, false]);
+
+    const retired = await reviewer.post(`/api/catalogue/cores/${mine.userCoreId}/retire`);
+    expect(flags(retired.body)).toEqual([true, false, true]);
+    const history = (await reviewer.get(`/api/catalogue/cores/${mine.userCoreId}/history`)).body.versions as Flags[];
+    expect(history.map(flags)).toEqual([
+      [true, false, true],
+      [false, false, false],
+    ]);
+    expect(flags((await reviewer.post(`/api/catalogue/cores/${mine.userCoreId}/unretire`)).body)).toEqual([true, true, false]);
   });
 });
 

@@ -238,6 +238,13 @@ describe('valid uploads', () => {
   });
 });
 
+interface Listed {
+  id: number;
+  canEdit: boolean;
+  canRetire: boolean;
+  canRestore: boolean;
+}
+
 describe('editing, retiring and roles', () => {
   it('an edit makes a new version and keeps the old row', async () => {
     const list = (await engineer.get('/api/materials/library')).body.materials as { id: number; name: string; version: number }[];
@@ -269,6 +276,26 @@ describe('editing, retiring and roles', () => {
     const search = (await engineer.get('/api/materials')).body.materials as { id: string }[];
     expect(search.map((m) => m.id)).not.toContain(String(list[0]!.id));
     expect((await reviewer.post(`/api/materials/${list[0]!.id}/unretire`)).body.retired).toBe(false);
+  });
+
+  it('states what each user may do with each material', async () => {
+    const flags = (m: Listed) => [m.canEdit, m.canRetire, m.canRestore];
+    const library = async (client: ApiClient) =>
+      (await client.get('/api/materials/library')).body as { materials: Listed[]; canImport: boolean };
+    const reviewer = await signedInAs(t.app, 'reviewer');
+    const [forWinder, forEngineer, forReviewer] = await Promise.all([library(winder), library(engineer), library(reviewer)]);
+    expect([forWinder.canImport, forEngineer.canImport, forReviewer.canImport]).toEqual([false, true, true]);
+    const id = forEngineer.materials[0]!.id;
+    const of = (answer: { materials: Listed[] }) => flags(answer.materials.find((m) => m.id === id)!);
+    expect([of(forWinder), of(forEngineer), of(forReviewer)]).toEqual([
+      [false, false, false],
+      [true, false, false],
+      [true, true, false],
+    ]);
+    const retired = await reviewer.post(`/api/materials/${id}/retire`);
+    expect(flags(retired.body)).toEqual([true, false, true]);
+    expect(of(await library(engineer))).toEqual([true, false, false]);
+    expect(flags((await reviewer.post(`/api/materials/${id}/unretire`)).body)).toEqual([true, true, false]);
   });
 
   it('anonymous users are refused', async () => {

@@ -4,7 +4,7 @@ import { compareCurves, compareDesign, compareSavedDesign } from '@shared/api/co
 import { listMaterials } from '@shared/api/materials';
 import type { CompareCurvesResponse, CompareDesignResponse } from '@shared/schemas/compare';
 import type { ListedCore } from '@shared/schemas/cores';
-import type { MaterialSummary } from '@shared/schemas/materials';
+import type { MaterialSummary } from '@shared/schemas/material-answers';
 import type { Observable } from 'rxjs';
 
 import { Api, endpointResource } from '../core/api';

@@ -4,11 +4,11 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
-import type { ImportDecision, ImportPreview } from '@shared/schemas/materials';
+import type { ImportDecision, ImportPreview } from '@shared/schemas/csv-import';
 import type { Observable } from 'rxjs';
 
 import { apiErrorOf, errorMessageOf } from './api-error';
-import type { UploadStep } from './upload-steps';
+import type { CsvImportCalls, UploadStep } from './upload-steps';
 
 /** The words of one CSV import (cores, materials). */
 export interface CsvImportTexts {
@@ -21,6 +21,21 @@ export interface CsvImportTexts {
   /** Shown while the commit is written, e.g. "Writing the cores…". */
   writing: string;
   commitButton: string;
+}
+
+/**
+ * The words of a library's import from its nouns, e.g. ("material", "materials", "already in the library"):
+ * "Material CSV file", "Choose a material CSV file…", "Import these materials".
+ */
+export function csvImportTexts(noun: string, plural: string, existing: string): CsvImportTexts {
+  return {
+    fileLabel: `${noun.charAt(0).toUpperCase()}${noun.slice(1)} CSV file`,
+    chooseButton: `Choose a ${noun} CSV file…`,
+    templateLink: `Download the ${noun} template`,
+    existing,
+    writing: `Writing the ${plural}…`,
+    commitButton: `Import these ${plural}`,
+  };
 }
 
 type Phase = 'idle' | 'previewing' | 'previewed' | 'committing';
@@ -40,8 +55,8 @@ let nextId = 0;
 export class CsvImport<R> {
   readonly texts = input.required<CsvImportTexts>();
   readonly templateHref = input.required<string>();
-  readonly preview = input.required<(file: File) => Observable<UploadStep<ImportPreview>>>();
-  readonly commit = input.required<(file: File, decisions: Record<string, ImportDecision>) => Observable<UploadStep<R>>>();
+  /** The feature's two upload calls: the preview, then the commit with a decision per existing name. */
+  readonly calls = input.required<CsvImportCalls<ImportPreview, R>>();
   readonly imported = output<R>();
 
   protected readonly progressLabelId = `gw-csv-import-progress-${nextId++}`;
@@ -65,7 +80,7 @@ export class CsvImport<R> {
     this.file.set(file);
     this.result.set(null);
     this.failure.set(null);
-    this.run('previewing', this.preview()(file), (preview) => {
+    this.run('previewing', this.calls().preview(file), (preview) => {
       // Existing names start as "new version": re-uploading a corrected file is the common case.
       this.decisions.set(
         Object.fromEntries(preview.rows.filter((r) => r.status === 'exists').map((r) => [r.name, 'new-version' as const])),
@@ -82,7 +97,7 @@ export class CsvImport<R> {
   protected importAll(): void {
     const file = this.file();
     if (!file || !this.canCommit()) return;
-    this.run('committing', this.commit()(file, this.decisions()), (done) => {
+    this.run('committing', this.calls().commit(file, this.decisions()), (done) => {
       this.reset();
       this.imported.emit(done);
     });

@@ -1,4 +1,4 @@
-import { effect, type Signal } from '@angular/core';
+import { effect } from '@angular/core';
 import type { MatPaginator } from '@angular/material/paginator';
 import type { MatSort } from '@angular/material/sort';
 import type { MatTableDataSource } from '@angular/material/table';
@@ -10,8 +10,8 @@ import type { MatTableDataSource } from '@angular/material/table';
 export function bindTableSource<T>(
   dataSource: MatTableDataSource<T>,
   rows: () => T[],
-  sort: Signal<MatSort | undefined>,
-  paginator: Signal<MatPaginator | undefined>,
+  sort: () => MatSort | undefined,
+  paginator: () => MatPaginator | undefined,
 ): void {
   effect(() => {
     dataSource.data = rows();

@@ -48,3 +48,21 @@ export function uploadToEndpoint<E extends Endpoint>(
     map((step) => (step.kind === 'done' ? { kind: 'done', body: endpoint.answer.parse(step.body) as AnswerOf<E> } : step)),
   );
 }
+
+/** The two calls of a CSV import as the shared import flow takes them: a preview, then the commit with decisions. */
+export interface CsvImportCalls<P, R> {
+  preview: (file: File) => Observable<UploadStep<P>>;
+  commit: (file: File, decisions: Record<string, string>) => Observable<UploadStep<R>>;
+}
+
+/** A library's preview and commit upload endpoints as the import flow's two calls. */
+export function csvImportCalls<P extends Endpoint, C extends Endpoint>(
+  http: HttpClient,
+  preview: P,
+  commit: C,
+): CsvImportCalls<AnswerOf<P>, AnswerOf<C>> {
+  return {
+    preview: (file) => uploadToEndpoint(http, preview, file),
+    commit: (file, decisions) => uploadToEndpoint(http, commit, file, decisions),
+  };
+}

@@ -1,25 +1,23 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, ElementRef, computed, inject, signal, viewChild } from '@angular/core';
-import { MatButtonModule } from '@angular/material/button';
 import { MatExpansionModule } from '@angular/material/expansion';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
-import { MatPaginator, MatPaginatorModule } from '@angular/material/paginator';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
-import { MatSort, MatSortModule } from '@angular/material/sort';
-import { MatTableDataSource, MatTableModule } from '@angular/material/table';
+import { MatSortModule } from '@angular/material/sort';
+import { MatTableModule } from '@angular/material/table';
 import { formatIn, toDisplay } from '@shared/units/index';
-import { may } from '@shared/api/permissions';
 
 import { Notifier } from '../core/notifier';
-import { Session } from '../core/session';
+import { LibraryTable } from '../library/library-table';
+import { RecordActions } from '../library/record-actions';
+import { VersionHistory } from '../library/version-history';
+import { QuantityPipe } from '../units/quantity';
 import { CoreForm } from './core-form';
 import { CoreUpload } from './core-upload';
-import { ShapedCoreForm } from './shaped-core-form';
 import { CoresApi, type CatalogueCore, type CoreImportResult } from './cores-api';
-import { bindTableSource } from '../core/table-binding';
-import { QuantityPipe } from '../units/quantity';
+import { AREA_PRODUCT_COLUMN, DIMENSION_COLUMNS, dimensionOf } from './dimension-columns';
+import { ShapedCoreForm } from './shaped-core-form';
 
 interface CoreFilters {
   text: string;
@@ -34,62 +32,59 @@ interface CoreFilters {
   imports: [
     CoreForm,
     CoreUpload,
-    ShapedCoreForm,
-    DatePipe,
-    MatButtonModule,
+    LibraryTable,
     MatExpansionModule,
     MatFormFieldModule,
     MatInputModule,
-    MatPaginatorModule,
     MatProgressBarModule,
     MatSelectModule,
     MatSortModule,
     MatTableModule,
     QuantityPipe,
+    RecordActions,
+    ShapedCoreForm,
+    VersionHistory,
   ],
   templateUrl: './core-catalogue.html',
-  styleUrl: './core-catalogue.scss',
+  styleUrls: ['../library/library-page.scss', './core-catalogue.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class CoreCatalogue {
   private readonly api = inject(CoresApi);
   private readonly notifier = inject(Notifier);
-  private readonly session = inject(Session);
-  private readonly sort = viewChild.required(MatSort);
-  private readonly paginator = viewChild.required(MatPaginator);
   private readonly forms = viewChild.required('forms', { read: ElementRef<HTMLElement> });
 
-  protected readonly cores = this.api.listResource();
-  protected readonly families = computed(() => [...new Set(this.cores.value().map((c) => c.family))]);
-  protected readonly columns = ['id', 'family', 'ae', 'le', 've', 'windowArea', 'areaProduct', 'origin', 'source', 'actions'];
-  protected readonly historyColumns = ['version', 'ae', 'le', 've', 'windowArea', 'source', 'createdBy', 'createdAt'];
-  protected readonly mayRetire = computed(() => may(this.session.role(), 'curate'));
-  protected readonly mayEdit = computed(() => may(this.session.role(), 'upload'));
+  /** Shipped and user cores, with what this user may do with each (the server says so). */
+  protected readonly catalogue = this.api.listResource();
+  protected readonly cores = computed(() => (this.catalogue.hasValue() ? this.catalogue.value() : []));
+  protected readonly families = computed(() => [...new Set(this.cores().map((c) => c.family))]);
+  protected readonly tableDimensions = [...DIMENSION_COLUMNS, AREA_PRODUCT_COLUMN];
+  protected readonly historyDimensions = DIMENSION_COLUMNS;
+  protected readonly dimensionOf = dimensionOf;
+  protected readonly columns = ['id', 'family', ...this.tableDimensions.map((c) => c.field), 'origin', 'source', 'actions'];
+  protected readonly historyColumns = [...this.historyDimensions.map((c) => c.field), 'source'];
   /** The user core whose next version is being written in one of the forms above the table. */
   protected readonly editingCore = signal<CatalogueCore | null>(null);
   protected readonly editingRing = computed(() => (this.editingCore()?.ring ? this.editingCore() : null));
   protected readonly editingShape = computed(() => (this.editingCore() && !this.editingCore()!.ring ? this.editingCore() : null));
   protected readonly history = signal<{ name: string; userCoreId: number; versions: CatalogueCore[] } | null>(null);
-  protected readonly dataSource = new MatTableDataSource<CatalogueCore>([]);
   protected readonly filters = signal<CoreFilters>({ text: '', family: '', aeMin: null, windowMin: null, apMin: null });
+  /** The filters as the table's filter text: empty (every core) until one is set. */
+  protected readonly filterKey = signal('');
 
-  constructor() {
-    this.dataSource.filterPredicate = (core, serialised) => {
-      const f = JSON.parse(serialised) as CoreFilters;
-      if (f.family && core.family !== f.family) return false;
-      if (f.aeMin !== null && toDisplay(core.ae, 'mm²') < f.aeMin) return false;
-      if (f.windowMin !== null && toDisplay(core.windowArea, 'mm²') < f.windowMin) return false;
-      if (f.apMin !== null && toDisplay(core.areaProduct, 'cm⁴') < f.apMin) return false;
-      const text = f.text.trim().toLowerCase();
-      return !text || [core.id, core.source, core.origin].join(' ').toLowerCase().includes(text);
-    };
-    bindTableSource(this.dataSource, () => this.cores.value(), this.sort, this.paginator);
-  }
+  protected readonly matches = (core: CatalogueCore, serialised: string) => {
+    const f = JSON.parse(serialised) as CoreFilters;
+    if (f.family && core.family !== f.family) return false;
+    if (f.aeMin !== null && toDisplay(core.ae, 'mm²') < f.aeMin) return false;
+    if (f.windowMin !== null && toDisplay(core.windowArea, 'mm²') < f.windowMin) return false;
+    if (f.apMin !== null && toDisplay(core.areaProduct, 'cm⁴') < f.apMin) return false;
+    const text = f.text.trim().toLowerCase();
+    return !text || [core.id, core.source, core.origin].join(' ').toLowerCase().includes(text);
+  };
 
   protected setFilter(change: Partial<CoreFilters>): void {
     this.filters.update((f) => ({ ...f, ...change }));
-    this.dataSource.filter = JSON.stringify(this.filters());
-    this.dataSource.paginator?.firstPage();
+    this.filterKey.set(JSON.stringify(this.filters()));
   }
 
   protected numberOrNull(text: string): number | null {
@@ -102,7 +97,7 @@ export class CoreCatalogue {
     this.notifier.info(`Core ${core.id} ${what}: le ${formatIn(core.le, 'mm')}, Ae ${formatIn(core.ae, 'mm²')}.`);
     const shown = this.history();
     this.editingCore.set(null);
-    this.cores.reload();
+    this.catalogue.reload();
     if (shown && core.userCoreId !== undefined && shown.name === core.id) this.showHistory(core);
   }
 
@@ -113,7 +108,7 @@ export class CoreCatalogue {
 
   protected importedCores(result: CoreImportResult): void {
     this.notifier.info(`${result.fileName}: ${result.created} cores added, ${result.versioned} new versions, ${result.skipped} skipped.`);
-    this.cores.reload();
+    this.catalogue.reload();
   }
 
   protected showHistory(core: CatalogueCore): void {
@@ -129,9 +124,9 @@ export class CoreCatalogue {
         this.notifier.info(
           retired ? `${core.id} retired: new searches leave it out, designs that use it keep it.` : `${core.id} is back in use.`,
         );
-        this.cores.reload();
+        this.catalogue.reload();
       },
-      error: () => this.cores.reload(),
+      error: () => this.catalogue.reload(),
     });
   }
 }

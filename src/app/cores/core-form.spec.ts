@@ -3,8 +3,8 @@ import type { ComponentFixture } from '@angular/core/testing';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 
 import { CoreForm } from './core-form';
-import { IEC60205_SOURCE_NOTE } from '@shared/catalogue/core-schema';
 
+import { listedUserRing } from '../testing/cores';
 import { fieldLabelled, typeInto } from '../testing/form-fields';
 import { renderWithHttpTesting } from '../testing/render';
 
@@ -71,27 +71,7 @@ describe('CoreForm', () => {
 
 describe('CoreForm editing a user ring core', () => {
   it('starts from the stored dimensions in mm and saves a new version with PUT', async () => {
-    // An invented user ring as the catalogue lists it (SI units); 20/10/7 mm as in the IEC 60205 example.
-    const stored = {
-      id: 'Lab ring 20/10/7',
-      family: 'RING',
-      gapKind: 'distributed',
-      ae: 33.63e-6,
-      le: 43.55e-3,
-      ve: 1465e-9,
-      windowArea: 78.5e-6,
-      windowHeight: 7e-3,
-      bobbinWidth: 31.4e-3,
-      bobbinHeight: 5e-3,
-      mlt: 30e-3,
-      surfaceArea: 1e-3,
-      areaProduct: 2.64e-9,
-      ring: { od: 0.02, id: 0.01, height: 0.007 },
-      source: `${IEC60205_SOURCE_NOTE}; our drawing`,
-      origin: 'user' as const,
-      userCoreId: 7,
-      version: 2,
-    };
+    const stored = listedUserRing();
     const { fixture, http, page } = await renderWithHttpTesting(CoreForm, { editing: stored });
     expect(fieldLabelled(page, 'Outer diameter (mm)').value).toBe('20');
     expect(fieldLabelled(page, 'Height (mm)').value).toBe('7');

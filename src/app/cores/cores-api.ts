@@ -1,6 +1,5 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
-import type { AnswerOf } from '@shared/api/endpoint';
 import {
   commitCoreImport,
   createUserCore,
@@ -11,13 +10,12 @@ import {
   unretireUserCore,
   userCoreHistory,
 } from '@shared/api/catalogue';
-import type { ImportDecision } from '@shared/schemas/core-csv';
 import type { ListedCore, UserCoreRequest } from '@shared/schemas/cores';
 import { map, type Observable } from 'rxjs';
 
 import { Api, endpointResource } from '../core/api';
 import { errorsShownByCaller } from '../core/error-display';
-import { uploadToEndpoint, type UploadStep } from '../core/upload-steps';
+import { csvImportCalls } from '../core/upload-steps';
 
 /** A core as the catalogue lists it (shared with the server's listing). */
 export type CatalogueCore = ListedCore;
@@ -53,13 +51,6 @@ export class CoresApi {
     return this.api.call(createUserCore, { body: request }, errorsShownByCaller());
   }
 
-  /** Every row of a core CSV file with its status and problems; nothing is written. */
-  previewImport(file: File): Observable<UploadStep<AnswerOf<typeof previewCoreImport>>> {
-    return uploadToEndpoint(this.http, previewCoreImport, file);
-  }
-
-  /** All rows or none; `decisions` says what to do with each name that already exists. */
-  commitImport(file: File, decisions: Record<string, ImportDecision>): Observable<UploadStep<AnswerOf<typeof commitCoreImport>>> {
-    return uploadToEndpoint(this.http, commitCoreImport, file, decisions);
-  }
+  /** Every row of a CSV file with its status and problems (nothing written), then all rows or none with a decision per existing name. */
+  readonly csvImport = csvImportCalls(this.http, previewCoreImport, commitCoreImport);
 }

@@ -5,61 +5,11 @@ import { MAT_DIALOG_DATA, MatDialogRef } from '@angular/material/dialog';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 
 import { fieldLabelled, typeInto } from '../testing/form-fields';
+import { libraryMaterial } from '../testing/materials';
 import { renderWithHttpTesting } from '../testing/render';
 import { MaterialEdit } from './material-edit';
-import type { LibraryMaterial } from './materials-api';
 
-// An invented material in SI cells; the numbers are picked to make the unit conversion easy to follow.
-const MATERIAL: LibraryMaterial = {
-  id: '12',
-  name: 'Test ferrite TF-1 (invented)',
-  family: 'ferrite',
-  lineage: 'test-ferrite-tf-1-invented',
-  version: 3,
-  retired: false,
-  current: true,
-  unitSet: 'W/m3-Hz-T',
-  kUploaded: 10,
-  k: 10,
-  alpha: 1.5,
-  beta: 2.5,
-  fitFrequencyMin: 50e3,
-  fitFrequencyMax: 300e3,
-  fitFluxMin: 0.02,
-  fitFluxMax: 0.25,
-  permeability: 2000,
-  bsat25: 0.5,
-  bsat100: 0.4,
-  density: 4800,
-  referenceTemperature: null,
-  provenance: 'invented for a test',
-  createdAt: '2026-03-01T10:00:00.000Z',
-  createdBy: 'Erin Calder',
-  cells: {
-    name: 'Test ferrite TF-1 (invented)',
-    family: 'ferrite',
-    unit_set: 'W/m3-Hz-T',
-    k: '10',
-    alpha: '1.5',
-    beta: '2.5',
-    f_min: '50000',
-    f_max: '300000',
-    b_min: '0.02',
-    b_max: '0.25',
-    ct0: '',
-    ct1: '',
-    ct2: '',
-    t_ref: '',
-    bsat_25: '0.5',
-    bsat_100: '0.4',
-    mu_i: '2000',
-    rolloff_a: '',
-    rolloff_b: '',
-    rolloff_c: '',
-    density: '4800',
-    provenance: 'invented for a test',
-  },
-};
+const MATERIAL = libraryMaterial();
 
 const BETA = 'β, flux exponent (no unit)';
 const ALPHA = 'α, frequency exponent (no unit)';

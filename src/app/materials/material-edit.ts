@@ -6,18 +6,18 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { MATERIAL_FAMILIES } from '@shared/engine/types';
+import { NUMBER_TEXT } from '@shared/schemas/csv-cells';
 import {
   kFromSi,
   kToSi,
   MATERIAL_CSV_COLUMNS,
   MATERIAL_UNIT_SETS,
-  NUMBER_TEXT,
   REQUIRED_MATERIAL_COLUMNS,
   UNIT_SCALES,
   type MaterialCsvColumn,
-  type MaterialEdit as MaterialEditCells,
   type MaterialUnitSet,
-} from '@shared/schemas/materials';
+} from '@shared/schemas/material-csv';
+import type { MaterialEdit as MaterialEditCells } from '@shared/schemas/material-requests';
 
 import { errorMessageOf } from '../core/api-error';
 import { showServerFieldErrors } from '../core/server-field-errors';

@@ -1,60 +1,58 @@
 import { DatePipe, DecimalPipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, inject, signal, viewChild } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatDialog } from '@angular/material/dialog';
 import { MatExpansionModule } from '@angular/material/expansion';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
-import { MatPaginator, MatPaginatorModule } from '@angular/material/paginator';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { MatSort, MatSortModule } from '@angular/material/sort';
-import { MatTableDataSource, MatTableModule } from '@angular/material/table';
-import { may } from '@shared/api/permissions';
+import { MatSortModule } from '@angular/material/sort';
+import { MatTableModule } from '@angular/material/table';
 
 import { Notifier } from '../core/notifier';
-import { Session } from '../core/session';
+import { LibraryTable } from '../library/library-table';
+import { RecordActions } from '../library/record-actions';
+import { VersionHistory } from '../library/version-history';
+import { FittedRange } from './fitted-range';
 import { MaterialEdit } from './material-edit';
 import { MaterialUpload } from './material-upload';
 import { MaterialsApi, type CommitResult, type LibraryMaterial } from './materials-api';
-import { bindTableSource } from '../core/table-binding';
-import { QuantityPipe } from '../units/quantity';
 
 @Component({
   selector: 'gw-material-library',
   imports: [
     DatePipe,
     DecimalPipe,
+    FittedRange,
+    LibraryTable,
     MatButtonModule,
     MatCheckboxModule,
     MatExpansionModule,
     MatFormFieldModule,
     MatInputModule,
-    MatPaginatorModule,
     MatProgressBarModule,
     MatSortModule,
     MatTableModule,
     MaterialUpload,
-    QuantityPipe,
+    RecordActions,
+    VersionHistory,
   ],
   templateUrl: './material-library.html',
-  styleUrl: './material-library.scss',
+  styleUrls: ['../library/library-page.scss', './material-library.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class MaterialLibrary {
   private readonly api = inject(MaterialsApi);
   private readonly notifier = inject(Notifier);
-  private readonly session = inject(Session);
   private readonly dialog = inject(MatDialog);
-  private readonly sort = viewChild.required(MatSort);
-  private readonly paginator = viewChild.required(MatPaginator);
 
-  protected readonly materials = this.api.listResource();
+  /** The library, with what this user may do with each material (the server says so). */
+  protected readonly library = this.api.libraryResource();
+  protected readonly materials = computed(() => (this.library.hasValue() ? this.library.value().materials : []));
+  protected readonly canImport = computed(() => this.library.hasValue() && this.library.value().canImport);
   protected readonly imports = this.api.importsResource();
-  /** Uploading and editing both add versions. */
-  protected readonly mayAddVersions = computed(() => may(this.session.role(), 'upload'));
-  protected readonly mayRetire = computed(() => may(this.session.role(), 'curate'));
-  protected readonly columns = computed(() => [
+  protected readonly columns = [
     'select',
     'name',
     'family',
@@ -66,11 +64,10 @@ export class MaterialLibrary {
     'createdAt',
     'state',
     'actions',
-  ]);
-  protected readonly historyColumns = ['version', 'steinmetz', 'fit', 'provenance', 'createdBy', 'createdAt'];
+  ];
+  protected readonly historyColumns = ['steinmetz', 'fit', 'provenance'];
   protected readonly history = signal<{ lineage: string; name: string; versions: LibraryMaterial[] } | null>(null);
   protected readonly importColumns = ['uploadedAt', 'fileName', 'uploadedBy', 'counts'];
-  protected readonly dataSource = new MatTableDataSource<LibraryMaterial>([]);
   protected readonly filterText = signal('');
   protected readonly selected = signal<ReadonlySet<string>>(new Set());
   protected readonly exportHref = computed(() => {
@@ -78,32 +75,24 @@ export class MaterialLibrary {
     return ids.length ? `/api/materials/export.csv?ids=${ids.join(',')}` : '/api/materials/export.csv';
   });
 
-  constructor() {
-    this.dataSource.filterPredicate = (m, filter) =>
-      [m.name, m.family, m.provenance, m.createdBy ?? '', m.unitSet, m.retired ? 'retired' : 'in use']
-        .join(' ')
-        .toLowerCase()
-        .includes(filter);
-    this.dataSource.sortingDataAccessor = (m, column) => {
-      switch (column) {
-        case 'steinmetz':
-          return m.alpha;
-        case 'fit':
-          return m.fitFrequencyMin;
-        case 'state':
-          return m.retired ? 1 : 0;
-        default:
-          return (m as unknown as Record<string, string | number>)[column] ?? '';
-      }
-    };
-    bindTableSource(this.dataSource, () => this.materials.value(), this.sort, this.paginator);
-  }
+  protected readonly matches = (m: LibraryMaterial, filter: string) =>
+    [m.name, m.family, m.provenance, m.createdBy ?? '', m.unitSet, m.retired ? 'retired' : 'in use']
+      .join(' ')
+      .toLowerCase()
+      .includes(filter);
 
-  protected applyFilter(text: string): void {
-    this.filterText.set(text);
-    this.dataSource.filter = text.trim().toLowerCase();
-    this.dataSource.paginator?.firstPage();
-  }
+  protected readonly sortValue = (m: LibraryMaterial, column: string): string | number => {
+    switch (column) {
+      case 'steinmetz':
+        return m.alpha;
+      case 'fit':
+        return m.fitFrequencyMin;
+      case 'state':
+        return m.retired ? 1 : 0;
+      default:
+        return (m as unknown as Record<string, string | number>)[column] ?? '';
+    }
+  };
 
   protected toggle(id: string, on: boolean): void {
     this.selected.update((set) => {
@@ -116,7 +105,7 @@ export class MaterialLibrary {
 
   protected onImported(result: CommitResult): void {
     this.notifier.info(`Imported: ${result.created} new, ${result.versioned} new versions, ${result.skipped} skipped.`);
-    this.materials.reload();
+    this.library.reload();
     this.imports.reload();
   }
 
@@ -131,7 +120,7 @@ export class MaterialLibrary {
       .subscribe((saved) => {
         if (!saved) return;
         this.notifier.info(`Saved as version ${saved.version} of ${saved.name}`);
-        this.materials.reload();
+        this.library.reload();
         if (this.history()?.lineage === saved.lineage) this.showHistory(saved);
       });
   }
@@ -140,9 +129,9 @@ export class MaterialLibrary {
     this.api.setRetired(material.id, retired).subscribe({
       next: () => {
         this.notifier.info(`${material.name} ${retired ? 'retired' : 'back in use'}.`);
-        this.materials.reload();
+        this.library.reload();
       },
-      error: () => this.materials.reload(),
+      error: () => this.library.reload(),
     });
   }
 }

@@ -1,6 +1,5 @@
 import { Injectable, inject } from '@angular/core';
 import { HttpClient } from '@angular/common/http';
-import type { AnswerOf } from '@shared/api/endpoint';
 import {
   commitMaterialImport,
   editMaterial,
@@ -11,38 +10,32 @@ import {
   retireMaterial,
   unretireMaterial,
 } from '@shared/api/materials';
-import type { ImportDecision, LibraryMaterial, MaterialEdit } from '@shared/schemas/materials';
+import type { LibraryMaterial } from '@shared/schemas/material-answers';
+import type { MaterialEdit } from '@shared/schemas/material-requests';
 import { map, type Observable } from 'rxjs';
 
 import { Api, endpointResource } from '../core/api';
 import { errorsShownByCaller } from '../core/error-display';
-import { uploadToEndpoint, type UploadStep } from '../core/upload-steps';
+import { csvImportCalls } from '../core/upload-steps';
 
-export type { LibraryMaterial } from '@shared/schemas/materials';
-export type { MaterialCommitResult as CommitResult } from '@shared/schemas/materials';
+export type { LibraryMaterial, MaterialCommitResult as CommitResult } from '@shared/schemas/material-answers';
 
 @Injectable({ providedIn: 'root' })
 export class MaterialsApi {
   private readonly http = inject(HttpClient);
   private readonly api = inject(Api);
 
-  listResource() {
-    return endpointResource(materialLibrary, () => ({}), { select: (answer) => answer.materials, defaultValue: [] });
+  /** The library and whether this user may upload material files. */
+  libraryResource() {
+    return endpointResource(materialLibrary, () => ({}), { select: (answer) => answer, defaultValue: { materials: [], canImport: false } });
   }
 
   importsResource() {
     return endpointResource(materialImports, () => ({}), { select: (answer) => answer.imports, defaultValue: [] });
   }
 
-  /** Every row of a material CSV file with its status and problems; nothing is written. */
-  preview(file: File): Observable<UploadStep<AnswerOf<typeof previewMaterialImport>>> {
-    return uploadToEndpoint(this.http, previewMaterialImport, file);
-  }
-
-  /** All rows or none; `decisions` says what to do with each name that already exists. */
-  commit(file: File, decisions: Record<string, ImportDecision>): Observable<UploadStep<AnswerOf<typeof commitMaterialImport>>> {
-    return uploadToEndpoint(this.http, commitMaterialImport, file, decisions);
-  }
+  /** Every row of a CSV file with its status and problems (nothing written), then all rows or none with a decision per existing name. */
+  readonly csvImport = csvImportCalls(this.http, previewMaterialImport, commitMaterialImport);
 
   history(id: string): Observable<LibraryMaterial[]> {
     return this.api.call(materialHistory, { params: { id } }).pipe(map((answer) => answer.versions));

@@ -59,6 +59,16 @@ describe('errors from PostgreSQL in the one error shape', () => {
       detail: 'Key (lineage, version)=(mf-95, 2) already exists.',
     });
     expect(databaseErrorAnswer(version)).toMatchObject({ status: 409, message: expect.stringMatching(/new version of this material/) });
+    const coreName = driverError('duplicate key', {
+      code: '23505',
+      constraint: 'user_cores_current_name_idx',
+      detail: 'Key (lower(name::text))=(lab ring) already exists.',
+    });
+    expect(databaseErrorAnswer(coreName)).toMatchObject({
+      status: 409,
+      message: 'Another user core is already called "lab ring" (saved at the same moment).',
+      fields: { name: 'Name already used' },
+    });
     const unknown = driverError('duplicate key', { code: '23505', constraint: 'some_future_idx' });
     expect(databaseErrorAnswer(unknown)).toMatchObject({ status: 409, code: 'conflict' });
   });

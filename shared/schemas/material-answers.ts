@@ -1,0 +1,81 @@
+// What the material routes answer: the engine's material, the listed version, the library entry with its
+// cells and what the user may do with it, the upload log and an import's result.
+import * as z from 'zod';
+import { MATERIAL_FAMILIES, type CoreMaterial } from '@shared/engine/types';
+import { MATERIAL_CSV_COLUMNS, MATERIAL_UNIT_SETS } from './material-csv';
+import { recordActionsSchema } from './record-actions';
+
+/** The engine's CoreMaterial as an answer carries it. */
+export const coreMaterialSchema = z.object({
+  id: z.string(),
+  name: z.string(),
+  family: z.enum(MATERIAL_FAMILIES),
+  k: z.number(),
+  alpha: z.number(),
+  beta: z.number(),
+  fitFrequencyMin: z.number(),
+  fitFrequencyMax: z.number(),
+  fitFluxMin: z.number(),
+  fitFluxMax: z.number(),
+  tempCoefficients: z.object({ ct0: z.number(), ct1: z.number(), ct2: z.number() }).optional(),
+  bsat25: z.number(),
+  bsat100: z.number(),
+  permeability: z.number(),
+  rollOff: z.object({ a: z.number(), b: z.number(), c: z.number() }).optional(),
+  density: z.number(),
+  maxTemperature: z.number().optional(),
+}) satisfies z.ZodType<CoreMaterial>;
+
+/** A stored material version as GET /api/materials lists it: the engine's fields plus version, provenance and state. */
+export const materialSummarySchema = coreMaterialSchema.extend({
+  lineage: z.string(),
+  version: z.number().int(),
+  retired: z.boolean(),
+  unitSet: z.enum(MATERIAL_UNIT_SETS),
+  kUploaded: z.number(),
+  referenceTemperature: z.number().nullable(),
+  provenance: z.string(),
+  createdAt: z.string(),
+});
+export type MaterialSummary = z.infer<typeof materialSummarySchema>;
+export const materialListResponseSchema = z.object({ materials: z.array(materialSummarySchema) });
+
+/**
+ * A material as the library lists it (GET /api/materials/library, history, edits): with author, its CSV cells
+ * and what the signed-in user may do with it.
+ */
+export const libraryMaterialSchema = materialSummarySchema
+  .extend({
+    current: z.boolean(),
+    createdBy: z.string().nullable(),
+    cells: z.record(z.enum(MATERIAL_CSV_COLUMNS), z.string()),
+  })
+  .extend(recordActionsSchema.shape);
+export type LibraryMaterial = z.infer<typeof libraryMaterialSchema>;
+/** The library, and whether the signed-in user may upload material files. */
+export const libraryResponseSchema = z.object({ materials: z.array(libraryMaterialSchema), canImport: z.boolean() });
+export const materialHistoryResponseSchema = z.object({ versions: z.array(libraryMaterialSchema) });
+
+/** One uploaded material CSV file and what it did. */
+export const materialImportEntrySchema = z.object({
+  id: z.number().int(),
+  fileName: z.string(),
+  uploadedBy: z.string().nullable(),
+  uploadedAt: z.string(),
+  rowCount: z.number().int(),
+  createdCount: z.number().int(),
+  versionedCount: z.number().int(),
+  skippedCount: z.number().int(),
+});
+export type MaterialImportEntry = z.infer<typeof materialImportEntrySchema>;
+export const materialImportsResponseSchema = z.object({ imports: z.array(materialImportEntrySchema) });
+
+/** What a committed material CSV import did. */
+export const materialCommitResultSchema = z.object({
+  importId: z.number().int(),
+  created: z.number().int(),
+  versioned: z.number().int(),
+  skipped: z.number().int(),
+  materialIds: z.array(z.number().int()),
+});
+export type MaterialCommitResult = z.infer<typeof materialCommitResultSchema>;

@@ -1,0 +1,62 @@
+import type { LibraryMaterial } from '@shared/schemas/material-answers';
+
+/**
+ * An invented material in SI cells, as the library answers it to an engineer (edit, no retire); the numbers
+ * are picked to make the unit conversion easy to follow. Nothing here is a real material.
+ */
+export function libraryMaterial(overrides: Partial<LibraryMaterial> = {}): LibraryMaterial {
+  return {
+    id: '12',
+    name: 'Test ferrite TF-1 (invented)',
+    family: 'ferrite',
+    lineage: 'test-ferrite-tf-1-invented',
+    version: 3,
+    retired: false,
+    current: true,
+    canEdit: true,
+    canRetire: false,
+    canRestore: false,
+    unitSet: 'W/m3-Hz-T',
+    kUploaded: 10,
+    k: 10,
+    alpha: 1.5,
+    beta: 2.5,
+    fitFrequencyMin: 50e3,
+    fitFrequencyMax: 300e3,
+    fitFluxMin: 0.02,
+    fitFluxMax: 0.25,
+    permeability: 2000,
+    bsat25: 0.5,
+    bsat100: 0.4,
+    density: 4800,
+    referenceTemperature: null,
+    provenance: 'invented for a test',
+    createdAt: '2026-03-01T10:00:00.000Z',
+    createdBy: 'Erin Calder',
+    cells: {
+      name: 'Test ferrite TF-1 (invented)',
+      family: 'ferrite',
+      unit_set: 'W/m3-Hz-T',
+      k: '10',
+      alpha: '1.5',
+      beta: '2.5',
+      f_min: '50000',
+      f_max: '300000',
+      b_min: '0.02',
+      b_max: '0.25',
+      ct0: '',
+      ct1: '',
+      ct2: '',
+      t_ref: '',
+      bsat_25: '0.5',
+      bsat_100: '0.4',
+      mu_i: '2000',
+      rolloff_a: '',
+      rolloff_b: '',
+      rolloff_c: '',
+      density: '4800',
+      provenance: 'invented for a test',
+    },
+    ...overrides,
+  };
+}
