@@ -15,8 +15,6 @@ import {
   type DesignDetail,
   type DesignSpec,
   type ExportKind,
-  storedEvaluation,
-  storedWire,
 } from '@shared/schemas/designs';
 import type { EvaluateAnswer } from '@shared/schemas/calc-answers';
 import { distinctUntilChanged, map, startWith } from 'rxjs';
@@ -154,9 +152,8 @@ export class DesignWorkspace {
     this.detail.set(detail);
     this.title.setValue(detail.title);
     this.specForm.patchValue(formFromSpec(detail.latest.spec));
-    const result = storedEvaluation(detail.latest.result);
-    const wire = storedWire(detail.latest.result);
-    const stored = result && wire ? { engineVersion: detail.latest.engineVersion ?? '', wire, result } : null;
+    const saved = detail.latest.result;
+    const stored = saved ? { engineVersion: detail.latest.engineVersion ?? '', wire: saved.wire, result: saved.evaluation } : null;
     const construction = detail.latest.construction;
     this.known.set(stored);
     this.construction.set(construction);
