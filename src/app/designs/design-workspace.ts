@@ -4,7 +4,6 @@ import { FormControl, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Router, RouterLink } from '@angular/router';
 import { may } from '@shared/api/permissions';
 import type { SearchCandidate } from '@shared/engine/index';
@@ -22,6 +21,7 @@ import { distinctUntilChanged, map, startWith } from 'rxjs';
 import { apiErrorOf, errorMessageOf } from '../core/api-error';
 import { Notifier } from '../core/notifier';
 import { Session } from '../core/session';
+import { LoadState } from '../ui/load-state';
 import { CandidatesPanel } from './candidates-panel';
 import { DesignPanel } from './design-panel';
 import { DesignsApi, type MaterialView } from './designs-api';
@@ -48,7 +48,7 @@ const EXPORT_LABELS: Record<ExportKind, string> = {
     MatButtonModule,
     MatFormFieldModule,
     MatInputModule,
-    MatProgressBarModule,
+    LoadState,
     SpecFormComponent,
     OperatingPointPanel,
     CandidatesPanel,
