@@ -14,7 +14,6 @@ import { catchError, debounceTime, map, of, startWith, switchMap } from 'rxjs';
 import { Notifier } from '../core/notifier';
 import { Session } from '../core/session';
 import { DataTable, DataTableCell, type TableColumn } from '../ui/data-table';
-import { LoadState } from '../ui/load-state';
 import { DesignsApi, type DesignListParams } from './designs-api';
 import { STATUS_LABELS } from './format';
 
@@ -26,7 +25,6 @@ const sortKey = (column: string): DesignSortKey => DESIGN_SORT_KEYS.find((key) =
   imports: [
     DataTable,
     DataTableCell,
-    LoadState,
     RouterLink,
     MatButtonModule,
     MatButtonToggleModule,

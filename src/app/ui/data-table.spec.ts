@@ -27,7 +27,10 @@ const PARTS: Part[] = [
       caption="Parts in stock"
       [columns]="columns"
       [rows]="rows()"
-      [empty]="'No parts.'"
+      empty="No parts."
+      [loading]="loading()"
+      loadingLabel="Loading parts"
+      [failure]="failure()"
       [page]="page()"
       (paged)="pages.push($event)"
       testId="parts"
@@ -49,6 +52,8 @@ class Host {
   ];
   readonly rows = signal<Part[] | MatTableDataSource<Part>>(PARTS);
   readonly page = signal<ServerPage | null>(null);
+  readonly loading = signal(false);
+  readonly failure = signal<string | null>(null);
   readonly pages: PageEvent[] = [];
 }
 
@@ -93,5 +98,20 @@ describe('DataTable', () => {
     expect(paginator.getAttribute('aria-label')).toBe('Pages of parts');
     (paginator.querySelector('button.mat-mdc-paginator-navigation-next') as HTMLButtonElement).click();
     expect(fixture.componentInstance.pages.map((e) => e.pageIndex)).toEqual([2]);
+  });
+
+  it('shows what is loading above the table and in its empty line, then why it failed', async () => {
+    const { fixture, page } = await renderWithHttpTesting(Host);
+    fixture.componentInstance.rows.set([]);
+    fixture.componentInstance.loading.set(true);
+    await fixture.whenStable();
+    expect(page.querySelector('mat-progress-bar')?.getAttribute('aria-label')).toBe('Loading parts');
+    expect(texts(page, 'tr.gw-no-data td')).toEqual(['Loading parts…']);
+    fixture.componentInstance.loading.set(false);
+    fixture.componentInstance.failure.set('The parts could not be loaded.');
+    await fixture.whenStable();
+    expect(page.querySelector('mat-progress-bar')).toBeNull();
+    expect(texts(page, '[role="alert"]')).toEqual(['The parts could not be loaded.']);
+    expect(texts(page, 'tr.gw-no-data td')).toEqual(['No parts.']);
   });
 });

@@ -14,6 +14,8 @@ import { MatPaginatorModule, type PageEvent } from '@angular/material/paginator'
 import { MatSortModule } from '@angular/material/sort';
 import { MatTableModule, type MatTableDataSource } from '@angular/material/table';
 
+import { LoadState } from './load-state';
+
 /** One column of a `gw-data-table`. */
 export interface TableColumn<T> {
   name: string;
@@ -48,18 +50,22 @@ export class DataTableCell {
 
 /**
  * A Material table in its scrolling region with a hidden caption, a header row, a row per item, a line for no
- * items and, for server-paged lists, a paginator. Columns are text from the page's column list unless the page
- * writes their cell (`gwCell`). Put `matSort` (and its inputs and events) on `<gw-data-table>` for sort headers.
+ * items and, for server-paged lists, a paginator; above it the loading bar and the failure of the list's request.
+ * Columns are text from the page's column list unless the page writes their cell (`gwCell`). Put `matSort` (and
+ * its inputs and events) on `<gw-data-table>` for sort headers.
  */
 @Component({
   selector: 'gw-data-table',
-  imports: [DatePipe, MatPaginatorModule, MatSortModule, MatTableModule, NgTemplateOutlet],
+  imports: [DatePipe, LoadState, MatPaginatorModule, MatSortModule, MatTableModule, NgTemplateOutlet],
   template: `
+    @if (loadingLabel(); as what) {
+      <gw-load-state [loading]="loading()" [loadingLabel]="what" [failure]="failure()" />
+    }
     <div class="gw-table-scroll" role="region" [attr.aria-label]="label() + ', scrollable'" tabindex="0">
       <table mat-table [dataSource]="rows()" [attr.data-testid]="testId()">
         <caption class="gw-visually-hidden">
           {{
-            caption()
+            caption() ?? label()
           }}
         </caption>
         @for (column of columns(); track column.name) {
@@ -83,7 +89,7 @@ export class DataTableCell {
         <tr mat-header-row *matHeaderRowDef="names()"></tr>
         <tr mat-row *matRowDef="let row; columns: names()"></tr>
         <tr class="mat-mdc-row gw-no-data" *matNoDataRow>
-          <td class="mat-mdc-cell" [attr.colspan]="names().length">{{ empty() }}</td>
+          <td class="mat-mdc-cell" [attr.colspan]="names().length">{{ loading() ? loadingLabel() + '…' : empty() }}</td>
         </tr>
       </table>
     </div>
@@ -115,11 +121,17 @@ export class DataTableCell {
 export class DataTable<T> {
   /** The region's accessible name; ", scrollable" is added. */
   readonly label = input.required<string>();
-  readonly caption = input.required<string>();
+  /** The hidden caption, when it says more than the label. */
+  readonly caption = input<string | null>(null);
   readonly columns = input.required<readonly TableColumn<T>[]>();
   readonly rows = input.required<readonly T[] | MatTableDataSource<T>>();
-  /** The line shown when there are no rows (or none passes the filter). */
+  /** The line shown when there are no rows (or none passes the filter); while loading it says what is loading. */
   readonly empty = input.required<string>();
+  /** The list is being fetched: a bar above the table, named by `loadingLabel` ("Loading users"). */
+  readonly loading = input(false);
+  readonly loadingLabel = input<string | null>(null);
+  /** Why the list could not be fetched, shown above the table. */
+  readonly failure = input<string | null>(null);
   readonly testId = input<string | null>(null);
   readonly page = input<ServerPage | null>(null);
   readonly paged = output<PageEvent>();

@@ -5,13 +5,12 @@ import type { AuditEntry } from '@shared/schemas/auth';
 
 import { endpointResource } from '../../core/api';
 import { DataTable, type TableColumn } from '../../ui/data-table';
-import { LoadState } from '../../ui/load-state';
 
 const FIRST_PAGE_SIZE = 25;
 
 @Component({
   selector: 'gw-audit-log',
-  imports: [DataTable, LoadState],
+  imports: [DataTable],
   templateUrl: './audit-log.html',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })

@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, inject, signal, viewChild } from '@angular/core';
+import { ChangeDetectionStrategy, Component, inject, signal, viewChild } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatExpansionModule } from '@angular/material/expansion';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -14,7 +14,6 @@ import { ROLE_LABELS } from '../../core/roles';
 import { UserCreateForm } from './user-create-form';
 import { bindTableSource } from '../../core/table-binding';
 import { DataTable, DataTableCell, type TableColumn } from '../../ui/data-table';
-import { LoadState } from '../../ui/load-state';
 import { UsersApi } from './users-api';
 
 @Component({
@@ -22,7 +21,6 @@ import { UsersApi } from './users-api';
   imports: [
     DataTable,
     DataTableCell,
-    LoadState,
     MatButtonModule,
     MatExpansionModule,
     MatFormFieldModule,
@@ -56,10 +54,6 @@ export class UserList {
   ];
   protected readonly dataSource = new MatTableDataSource<AdminUser>([]);
   protected readonly filterText = signal('');
-  protected readonly emptyText = computed(() => {
-    if (this.filterText()) return `No users match “${this.filterText()}”.`;
-    return this.users.isLoading() ? 'Loading users…' : 'No users yet.';
-  });
 
   constructor() {
     this.dataSource.filterPredicate = (user, filter) =>
