@@ -27,7 +27,7 @@ const PARTS: Part[] = [
       caption="Parts in stock"
       [columns]="columns"
       [rows]="rows()"
-      empty="No parts."
+      [empty]="empty()"
       [loading]="loading()"
       loadingLabel="Loading parts"
       [failure]="failure()"
@@ -53,6 +53,7 @@ class Host {
   readonly rows = signal<Part[] | MatTableDataSource<Part>>(PARTS);
   readonly page = signal<ServerPage | null>(null);
   readonly loading = signal(false);
+  readonly empty = signal<string | null>('No parts.');
   readonly failure = signal<string | null>(null);
   readonly pages: PageEvent[] = [];
 }
@@ -113,5 +114,14 @@ describe('DataTable', () => {
     expect(page.querySelector('mat-progress-bar')).toBeNull();
     expect(texts(page, '[role="alert"]')).toEqual(['The parts could not be loaded.']);
     expect(texts(page, 'tr.gw-no-data td')).toEqual(['No parts.']);
+  });
+
+  it('leaves the empty line out when the page gives none', async () => {
+    const { fixture, page } = await renderWithHttpTesting(Host);
+    fixture.componentInstance.rows.set([]);
+    fixture.componentInstance.empty.set(null);
+    await fixture.whenStable();
+    expect(page.querySelector('tr.gw-no-data')).toBeNull();
+    expect(page.querySelectorAll('tr')).toHaveLength(1);
   });
 });

@@ -88,9 +88,11 @@ export class DataTableCell {
         }
         <tr mat-header-row *matHeaderRowDef="names()"></tr>
         <tr mat-row *matRowDef="let row; columns: names()"></tr>
-        <tr class="mat-mdc-row gw-no-data" *matNoDataRow>
-          <td class="mat-mdc-cell" [attr.colspan]="names().length">{{ loading() ? loadingLabel() + '…' : empty() }}</td>
-        </tr>
+        @if (loading() || empty()) {
+          <tr class="mat-mdc-row gw-no-data" *matNoDataRow>
+            <td class="mat-mdc-cell" [attr.colspan]="names().length">{{ loading() ? loadingLabel() + '…' : empty() }}</td>
+          </tr>
+        }
       </table>
     </div>
     @if (page(); as p) {
@@ -125,8 +127,8 @@ export class DataTable<T> {
   readonly caption = input<string | null>(null);
   readonly columns = input.required<readonly TableColumn<T>[]>();
   readonly rows = input.required<readonly T[] | MatTableDataSource<T>>();
-  /** The line shown when there are no rows (or none passes the filter); while loading it says what is loading. */
-  readonly empty = input.required<string>();
+  /** The line shown when there are no rows (or none passes the filter; none when null); while loading it says what is loading. */
+  readonly empty = input<string | null>(null);
   /** The list is being fetched: a bar above the table, named by `loadingLabel` ("Loading users"). */
   readonly loading = input(false);
   readonly loadingLabel = input<string | null>(null);
