@@ -11,6 +11,9 @@ import { authRouter } from './auth/auth.router.ts';
 import { createCsrf } from './auth/csrf.ts';
 import { SessionsRepository } from './auth/sessions.repository.ts';
 import { DesignsRepository } from './designs/designs.repository.ts';
+import { ConstructionEvaluator } from './designs/construction-evaluator.ts';
+import { DesignEditsService } from './designs/design-edits.service.ts';
+import { DesignMaterials } from './designs/design-materials.ts';
 import { DesignsService } from './designs/designs.service.ts';
 import { designsRouter } from './designs/designs.router.ts';
 import { exportsRouter } from './exports/exports.router.ts';
@@ -106,8 +109,10 @@ export function createServices({
 export function createApp(deps: AppDeps) {
   const { config, pool, logger } = deps;
   const services = createServices(deps);
-  const designs = new DesignsService(new DesignsRepository(deps.db), services.calc, services.materials, services.audit);
-  const exports = new ExportsService(designs, services.calc);
+  const designsRepository = new DesignsRepository(deps.db);
+  const designs = new DesignsService(designsRepository);
+  const designEdits = new DesignEditsService(designsRepository, designs, new ConstructionEvaluator(services.calc), services.audit);
+  const exports = new ExportsService(designs, new DesignMaterials(services.materials), services.calc);
   const { audit, users, catalogue, materials, calc, shop, review, outbox } = services;
   const compare = new CompareService(
     materials,
@@ -160,7 +165,7 @@ export function createApp(deps: AppDeps) {
   api.use(userCoresRouter(services.userCores));
   api.use(compareRouter(compare));
   const generationOf = (req: Request, name: string) => sessionLayer.extras(req)?.generations[name];
-  api.use(designsRouter(designs, generationOf));
+  api.use(designsRouter(designs, designEdits, generationOf));
   api.use(exportsRouter(exports));
   api.use(materialLibraryRouter(services.materialLibrary));
   api.use(materialsRouter(materials, generationOf));

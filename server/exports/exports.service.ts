@@ -1,8 +1,8 @@
-import type { SearchResult } from '@shared/engine/index';
-import { DESIGN_FILE_FORMAT, storedEvaluation, type ExportKind } from '@shared/schemas/designs';
+import { DESIGN_FILE_FORMAT, type ExportKind } from '@shared/schemas/designs';
 import type { CalcService } from '../calc/calc.service.ts';
+import type { DesignMaterials } from '../designs/design-materials.ts';
 import type { DesignsService } from '../designs/designs.service.ts';
-import { conflict } from '../http/errors.ts';
+import { requireStoredResult } from '../designs/stored-result.ts';
 import { buildBom } from './bom.ts';
 import { bomCsv, candidatesCsv } from './candidates-csv.ts';
 import { buildSpiceSubcircuit } from './spice.ts';
@@ -16,6 +16,7 @@ export interface ExportFile {
 export class ExportsService {
   constructor(
     private readonly designs: DesignsService,
+    private readonly materials: DesignMaterials,
     private readonly calc: CalcService,
   ) {}
 
@@ -43,25 +44,24 @@ export class ExportsService {
       };
     }
     if (kind === 'candidates.csv') {
-      const search = (await this.calc.search({
+      const search = await this.calc.search({
         spec: revision.spec.converter,
         limits: revision.spec.limits,
         families: revision.spec.families,
-        materialIds: await this.designs.searchMaterialIds(revision.spec),
+        materialIds: await this.materials.searchIds(revision.spec),
         rankBy: 'loss',
         limit: 50,
-      })) as SearchResult;
+      });
       return {
         fileName: `${base}-candidates.csv`,
         contentType: 'text/csv; charset=utf-8',
-        body: candidatesCsv(revision.design, search, await this.designs.materialNames()),
+        body: candidatesCsv(revision.design, search, await this.materials.names()),
       };
     }
-    const evaluation = storedEvaluation(revision.result);
-    if (!evaluation)
-      throw conflict(`Revision ${revision.revision} of ${revision.design.number} has no chosen construction yet; pick a candidate first.`);
+    // The files of the figures as saved (a 409 when there are none, or they no longer read).
+    const { evaluation } = requireStoredResult(`Revision ${revision.revision} of ${revision.design.number}`, revision);
     if (kind === 'bom.csv') {
-      const names = await this.designs.materialNames();
+      const names = await this.materials.names();
       const materialName = names.get(String(revision.materialId)) ?? evaluation.material.name;
       return {
         fileName: `${base}-bom.csv`,

@@ -1,4 +1,4 @@
-import { and, desc, eq, inArray, ne, sql } from 'drizzle-orm';
+import { and, desc, eq, getTableColumns, inArray, ne, sql } from 'drizzle-orm';
 import type { Db, Tx } from '../db/client.ts';
 import { designRevisions, designs, revisionTransitions, users } from '../db/schema.ts';
 
@@ -45,16 +45,10 @@ export class ReviewRepository {
 
   timeline(revisionIds: number[]) {
     if (!revisionIds.length) return Promise.resolve([]);
+    // Every column of a transition but the actor's id, and the actor's name in its place.
+    const { actorId: _actorId, ...transition } = getTableColumns(revisionTransitions);
     return this.db
-      .select({
-        id: revisionTransitions.id,
-        revisionId: revisionTransitions.revisionId,
-        fromStatus: revisionTransitions.fromStatus,
-        toStatus: revisionTransitions.toStatus,
-        comment: revisionTransitions.comment,
-        at: revisionTransitions.at,
-        actor: users.displayName,
-      })
+      .select({ ...transition, actor: users.displayName })
       .from(revisionTransitions)
       .leftJoin(users, eq(users.id, revisionTransitions.actorId))
       .where(inArray(revisionTransitions.revisionId, revisionIds))

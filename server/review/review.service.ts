@@ -5,7 +5,8 @@ import type { Actor } from '../http/access.ts';
 import { AppError, badRequest, forbidden, notFound } from '../http/errors.ts';
 import type { ShopService } from '../shop/shop.service.ts';
 import type { DesignRow, ReviewRepository, RevisionRow, Tx } from './review.repository.ts';
-import { storedEvaluation } from '@shared/schemas/designs';
+import { readStoredResult } from '@shared/schemas/designs';
+import { refuseUnreadableResult } from '../designs/stored-result.ts';
 
 type Status = RevisionRow['status'];
 
@@ -71,14 +72,16 @@ export class ReviewService {
       (revision, design) => {
         if (design.ownerId !== actor.id) throw forbidden('Only the design owner can submit it for review.');
         if (revision.status !== 'draft') throw stateConflict(revision, 'submitted', ['draft']);
-        const result = storedEvaluation(revision.result);
-        if (!result || !revision.construction) {
+        const saved = { status: revision.status, ...readStoredResult(revision.result) };
+        refuseUnreadableResult(`Revision ${revision.revision} of ${design.number}`, saved);
+        if (!saved.result || !revision.construction) {
           throw badRequest('Choose and save a construction (core, material, turns, gap, wire) before submitting.', {
             construction: 'No saved construction',
           });
         }
-        if (!result.feasible) {
-          const reasons = result.issues.filter((i) => i.severity === 'error').map((i) => i.message);
+        const { evaluation } = saved.result;
+        if (!evaluation.feasible) {
+          const reasons = evaluation.issues.filter((i) => i.severity === 'error').map((i) => i.message);
           throw badRequest(`The saved design is not feasible: ${reasons.join('; ')}`, { construction: 'Not feasible' });
         }
       },
@@ -137,6 +140,11 @@ export class ReviewService {
         if (design.ownerId === actor.id || revision.createdBy === actor.id)
           throw forbidden('The author of a design cannot release it; ask another reviewer.');
         if (revision.status !== 'approved') throw stateConflict(revision, 'released', ['approved']);
+        // The winding sheet is built from the saved figures; an old record that no longer reads cannot give one.
+        refuseUnreadableResult(`Revision ${revision.revision} of ${design.number}`, {
+          status: revision.status,
+          ...readStoredResult(revision.result),
+        });
       },
       async (tx, revision, design) => {
         const releasedAt = new Date();

@@ -28,82 +28,60 @@ export interface DemoMaterial {
   density: number;
 }
 
+/**
+ * One demo grade as a table row: Steinmetz α and β, the loss density at the family's anchor point (W/m³), the
+ * fit's frequency and peak-flux bounds, Bsat at 25 and 100 °C (T), initial permeability, density (kg/m³).
+ */
+type Grade = [
+  grade: string,
+  alpha: number,
+  beta: number,
+  anchorLoss: number,
+  fit: [fMin: number, fMax: number, bMin: number, bMax: number],
+  bsat: [at25: number, at100: number],
+  permeability: number,
+  density: number,
+];
+
+function demoMaterial(
+  family: MaterialFamily,
+  [grade, alpha, beta, anchorLoss, [fMin, fMax, bMin, bMax], [bsat25, bsat100], permeability, density]: Grade,
+  anchorPeakFlux: number,
+): DemoMaterial {
+  return {
+    name: `Demo ${family} ${grade} (illustrative)`,
+    family,
+    alpha,
+    beta,
+    anchorLoss,
+    anchorFrequency: 100e3,
+    anchorPeakFlux,
+    fit: { fMin, fMax, bMin, bMax },
+    bsat25,
+    bsat100,
+    permeability,
+    density,
+  };
+}
+
+/** A ferrite, its loss anchored at 100 kHz and 0.1 T peak, with its temperature of minimum loss (°C) and ct2 (1/K²). */
+const ferrite = (grade: Grade, [temperature, ct2]: [number, number]): DemoMaterial => ({
+  ...demoMaterial('ferrite', grade, 0.1),
+  minimumLossAt: { temperature, ct2 },
+});
+
+/** A powder, its loss anchored at 100 kHz and 0.05 T peak, with its DC-bias roll-off (H50 in A/m, exponent c). */
+const powder = (grade: Grade, [h50, c]: [number, number]): DemoMaterial => ({
+  ...demoMaterial('powder', grade, 0.05),
+  rollOff: { h50, c },
+});
+
 export const DEMO_MATERIALS: readonly DemoMaterial[] = [
-  {
-    name: 'Demo ferrite MF-95 (illustrative)',
-    family: 'ferrite',
-    alpha: 1.4,
-    beta: 2.65,
-    anchorLoss: 80e3,
-    anchorFrequency: 100e3,
-    anchorPeakFlux: 0.1,
-    fit: { fMin: 50e3, fMax: 300e3, bMin: 0.02, bMax: 0.25 },
-    minimumLossAt: { temperature: 90, ct2: 1.0e-4 },
-    bsat25: 0.5,
-    bsat100: 0.4,
-    permeability: 2300,
-    density: 4800,
-  },
-  {
-    name: 'Demo ferrite MF-140 (illustrative)',
-    family: 'ferrite',
-    alpha: 1.55,
-    beta: 2.55,
-    anchorLoss: 60e3,
-    anchorFrequency: 100e3,
-    anchorPeakFlux: 0.1,
-    fit: { fMin: 100e3, fMax: 1e6, bMin: 0.01, bMax: 0.15 },
-    minimumLossAt: { temperature: 80, ct2: 1.2e-4 },
-    bsat25: 0.48,
-    bsat100: 0.38,
-    permeability: 1400,
-    density: 4800,
-  },
-  {
-    name: 'Demo ferrite MF-60 (illustrative)',
-    family: 'ferrite',
-    alpha: 1.25,
-    beta: 2.75,
-    anchorLoss: 120e3,
-    anchorFrequency: 100e3,
-    anchorPeakFlux: 0.1,
-    fit: { fMin: 20e3, fMax: 150e3, bMin: 0.03, bMax: 0.3 },
-    minimumLossAt: { temperature: 100, ct2: 0.8e-4 },
-    bsat25: 0.53,
-    bsat100: 0.43,
-    permeability: 3000,
-    density: 4850,
-  },
-  {
-    name: 'Demo powder P-60 (illustrative)',
-    family: 'powder',
-    alpha: 1.35,
-    beta: 2.0,
-    anchorLoss: 300e3,
-    anchorFrequency: 100e3,
-    anchorPeakFlux: 0.05,
-    fit: { fMin: 10e3, fMax: 500e3, bMin: 0.01, bMax: 0.2 },
-    bsat25: 1.0,
-    bsat100: 0.95,
-    permeability: 60,
-    rollOff: { h50: 8000, c: 1.8 },
-    density: 6000,
-  },
-  {
-    name: 'Demo powder P-26 (illustrative)',
-    family: 'powder',
-    alpha: 1.2,
-    beta: 2.1,
-    anchorLoss: 800e3,
-    anchorFrequency: 100e3,
-    anchorPeakFlux: 0.05,
-    fit: { fMin: 5e3, fMax: 300e3, bMin: 0.01, bMax: 0.3 },
-    bsat25: 1.2,
-    bsat100: 1.1,
-    permeability: 26,
-    rollOff: { h50: 16000, c: 1.6 },
-    density: 6500,
-  },
+  ferrite(['MF-95', 1.4, 2.65, 80e3, [50e3, 300e3, 0.02, 0.25], [0.5, 0.4], 2300, 4800], [90, 1.0e-4]),
+  ferrite(['MF-140', 1.55, 2.55, 60e3, [100e3, 1e6, 0.01, 0.15], [0.48, 0.38], 1400, 4800], [80, 1.2e-4]),
+  ferrite(['MF-60', 1.25, 2.75, 120e3, [20e3, 150e3, 0.03, 0.3], [0.53, 0.43], 3000, 4850], [100, 0.8e-4]),
+  powder(['P-60', 1.35, 2.0, 300e3, [10e3, 500e3, 0.01, 0.2], [1.0, 0.95], 60, 6000], [8000, 1.8]),
+  powder(['P-26', 1.2, 2.1, 800e3, [5e3, 300e3, 0.01, 0.3], [1.2, 1.1], 26, 6500], [16000, 1.6]),
 ];
 
 /** Steinmetz k (W/m³, Hz, T) that makes k·f^α·B̂^β equal the anchor loss. */

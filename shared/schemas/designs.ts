@@ -5,6 +5,7 @@ import { text } from './text';
 import type { EvaluationResult } from '@shared/engine/evaluate';
 import { CORE_FAMILIES, type WireOption } from '@shared/engine/types';
 import { converterSpecSchema, designLimitsSchema, wireRequestSchema } from './calc';
+import { evaluationResultSchema, wireOptionSchema } from './calc-answers';
 import { storedIdSchema, storedIdTextSchema, uniqueListSchema } from './ids';
 
 export const DESIGN_STATUSES = ['draft', 'in_review', 'approved', 'released', 'superseded'] as const;
@@ -183,23 +184,40 @@ export const revisionSummarySchema = z.object({
 export type RevisionSummary = z.infer<typeof revisionSummarySchema>;
 
 /** What a revision keeps of the engine's answer: the wire option evaluated and every figure. */
-export const storedResultSchema = z.object({ wire: z.unknown(), evaluation: z.unknown() });
+export const storedResultSchema = z.object({ wire: wireOptionSchema, evaluation: evaluationResultSchema });
 export type StoredResult = z.infer<typeof storedResultSchema>;
 
-/** The engine result saved on a revision (the `result` column), or null when none was chosen yet. */
-export function storedEvaluation(stored: unknown): EvaluationResult | null {
-  return ((stored as StoredResult | null)?.evaluation as EvaluationResult | undefined) ?? null;
+/**
+ * A revision's saved `result` column read with today's answer schemas: `result` is null when nothing was saved;
+ * `resultUnreadable` names the first mismatch when a record saved by an older version no longer reads (its
+ * figures are then left out, never guessed at).
+ */
+export function readStoredResult(stored: unknown): { result: StoredResult | null; resultUnreadable: string | null } {
+  if (stored === null || stored === undefined) return { result: null, resultUnreadable: null };
+  const parsed = storedResultSchema.safeParse(stored);
+  if (parsed.success) return { result: parsed.data, resultUnreadable: null };
+  const [issue] = parsed.error.issues;
+  return { result: null, resultUnreadable: `${issue.path.join('.') || 'result'}: ${issue.message}` };
 }
 
-/** The wire option the saved result was evaluated with. */
+/** The engine result saved on a revision, or null when none was chosen yet or the record no longer reads. */
+export function storedEvaluation(stored: unknown): EvaluationResult | null {
+  return readStoredResult(stored).result?.evaluation ?? null;
+}
+
+/** The wire option the saved result was evaluated with (null as for `storedEvaluation`). */
 export function storedWire(stored: unknown): WireOption | null {
-  return ((stored as StoredResult | null)?.wire as WireOption | undefined) ?? null;
+  return readStoredResult(stored).result?.wire ?? null;
 }
 
 export const revisionDetailSchema = revisionSummarySchema.extend({
   spec: designSpecSchema,
   construction: constructionSchema.nullable(),
   result: storedResultSchema.nullable(),
+  resultUnreadable: z
+    .string()
+    .nullable()
+    .meta({ description: 'Why the saved figures were left out: saved by an older version, they no longer read (null otherwise)' }),
   materialId: z.number().int().nullable(),
 });
 export type RevisionDetail = z.infer<typeof revisionDetailSchema>;

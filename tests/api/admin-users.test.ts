@@ -9,13 +9,13 @@ beforeAll(async () => {
 });
 afterAll(() => t.close());
 
+/** A user an admin may create; tests change one part of it. */
+const NEW_USER = { username: 'newbie', displayName: 'New', role: 'engineer', password: 'long-enough-pw' };
+const createUser = (admin: ApiClient, change: Record<string, unknown>) => admin.post('/api/admin/users', { ...NEW_USER, ...change });
+
 const ADMIN_ROUTES: { method: 'get' | 'post' | 'patch'; url: string; body?: unknown }[] = [
   { method: 'get', url: '/api/admin/users' },
-  {
-    method: 'post',
-    url: '/api/admin/users',
-    body: { username: 'newbie', displayName: 'New', role: 'engineer', password: 'long-enough-pw' },
-  },
+  { method: 'post', url: '/api/admin/users', body: NEW_USER },
   { method: 'patch', url: '/api/admin/users/1', body: { role: 'admin' } },
   { method: 'get', url: '/api/admin/audit' },
 ];
@@ -51,51 +51,25 @@ describe('admin routes as admin', () => {
 
   it('creates a user who can then sign in, and refuses a taken username with 409 naming the field', async () => {
     const admin = await signedInAs(t.app, 'admin');
-    const created = await admin.post('/api/admin/users', {
-      username: 'nadia',
-      displayName: 'Nadia V.',
-      role: 'winder',
-      password: 'a long passphrase',
-    });
+    const created = await createUser(admin, { username: 'nadia', displayName: 'Nadia V.', role: 'winder', password: 'a long passphrase' });
     expect(created.status).toBe(201);
     expect(created.body.user).toMatchObject({ username: 'nadia', role: 'winder' });
     expect((await new ApiClient(t.app).signIn('nadia', 'a long passphrase')).status).toBe(200);
-    const duplicate = await admin.post('/api/admin/users', {
-      username: 'nadia',
-      displayName: 'Again',
-      role: 'winder',
-      password: 'a long passphrase',
-    });
+    const duplicate = await createUser(admin, { username: 'nadia', displayName: 'Again', role: 'winder', password: 'a long passphrase' });
     expect(duplicate.status).toBe(409);
     expect(duplicate.body.error.fields).toHaveProperty('username');
   });
 
   it('refuses unknown fields (mass assignment) and short passwords, naming each field', async () => {
     const admin = await signedInAs(t.app, 'admin');
-    const extra = await admin.post('/api/admin/users', {
-      username: 'mallory',
-      displayName: 'M',
-      role: 'engineer',
-      password: 'long-enough-pw',
-      passwordHash: 'x',
-    });
+    const extra = await createUser(admin, { username: 'mallory', displayName: 'M', passwordHash: 'x' });
     expect(extra.status).toBe(400);
-    const short = await admin.post('/api/admin/users', { username: 'shorty', displayName: 'S', role: 'engineer', password: 'seven77' });
+    const short = await createUser(admin, { username: 'shorty', displayName: 'S', password: 'seven77' });
     expect(short.status).toBe(400);
     expect(short.body.error.fields.password).toMatch(/8 characters/);
-    const longPass = await admin.post('/api/admin/users', {
-      username: 'longpass',
-      displayName: 'L',
-      role: 'engineer',
-      password: 'x'.repeat(64),
-    });
+    const longPass = await createUser(admin, { username: 'longpass', displayName: 'L', password: 'x'.repeat(64) });
     expect(longPass.status).toBe(201);
-    const badRole = await admin.post('/api/admin/users', {
-      username: 'roleless',
-      displayName: 'R',
-      role: 'superuser',
-      password: 'long-enough-pw',
-    });
+    const badRole = await createUser(admin, { username: 'roleless', displayName: 'R', role: 'superuser' });
     expect(badRole.status).toBe(400);
     expect(badRole.body.error.fields).toHaveProperty('role');
   });

@@ -80,13 +80,18 @@ describe('POST /api/compare/curves', () => {
 });
 
 describe('POST /api/compare/design', () => {
-  it('evaluates one design with every current material; powders are incompatible with a gapped set', async () => {
-    const res = await engineer.post('/api/compare/design', {
+  /** ETD34 with 20 turns of two AWG 18 in hand, on the example converter; a test changes one part. */
+  const typedDesign = (change: Record<string, unknown> = {}) =>
+    engineer.post('/api/compare/design', {
       spec: EXAMPLE_SPEC,
       coreId: 'ETD34/17/11',
       turns: 20,
       wire: { kind: 'awg', awg: 18, strands: 2 },
+      ...change,
     });
+
+  it('evaluates one design with every current material; powders are incompatible with a gapped set', async () => {
+    const res = await typedDesign();
     expect(res.status).toBe(200);
     const rows = res.body.rows as {
       name: string;
@@ -112,12 +117,7 @@ describe('POST /api/compare/design', () => {
   });
 
   it('refuses an unknown core by field', async () => {
-    const res = await engineer.post('/api/compare/design', {
-      spec: EXAMPLE_SPEC,
-      coreId: 'NOPE',
-      turns: 20,
-      wire: { kind: 'awg', awg: 18, strands: 2 },
-    });
+    const res = await typedDesign({ coreId: 'NOPE' });
     expect(res.status).toBe(400);
     expect(res.body.error.fields.coreId).toMatch(/Unknown core/);
   });

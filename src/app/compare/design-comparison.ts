@@ -18,7 +18,6 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSort, MatSortModule } from '@angular/material/sort';
 import { MatTableDataSource, MatTableModule } from '@angular/material/table';
@@ -33,6 +32,7 @@ import { showServerFieldErrors } from '../core/server-field-errors';
 import { DesignsApi } from '../designs/designs-api';
 import { QuantityPipe } from '../units/quantity';
 import { QuantityInput } from '../units/quantity-input';
+import { LoadState } from '../ui/load-state';
 import { CompareApi } from './compare-api';
 
 export type DesignSource = 'saved' | 'typed';
@@ -63,7 +63,7 @@ const QUANTITY_FIELDS: readonly {
     MatButtonToggleModule,
     MatFormFieldModule,
     MatInputModule,
-    MatProgressBarModule,
+    LoadState,
     MatSelectModule,
     MatSortModule,
     MatTableModule,
@@ -126,7 +126,14 @@ export class DesignComparison {
     { name: 'strands', label: 'Wires in hand' },
   ] as const;
 
-  protected readonly columns = ['name', 'status', 'gap', 'coreLoss', 'copperLoss', 'totalLoss', 'temperatureRise', 'notes'];
+  /** The figures of each row, in W or K with the digits they are shown to. */
+  protected readonly figureColumns: readonly { name: keyof DesignComparisonRow; header: string; digits: string }[] = [
+    { name: 'coreLoss', header: 'Core loss (W)', digits: '1.3-3' },
+    { name: 'copperLoss', header: 'Copper loss (W)', digits: '1.3-3' },
+    { name: 'totalLoss', header: 'Total loss (W)', digits: '1.3-3' },
+    { name: 'temperatureRise', header: 'Rise (K)', digits: '1.0-1' },
+  ];
+  protected readonly columns = ['name', 'status', 'gap', ...this.figureColumns.map((c) => c.name), 'notes'];
   protected readonly rows = new MatTableDataSource<DesignComparisonRow>([]);
   protected readonly loading = signal(false);
   protected readonly error = signal<string | null>(null);

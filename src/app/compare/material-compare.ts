@@ -4,7 +4,6 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { CURVE_LIMITS, type CompareCurvesResponse, type DesignFluxPoint } from '@shared/schemas/compare';
 import { NgxEchartsDirective } from 'ngx-echarts';
@@ -13,6 +12,7 @@ import { errorMessageOf } from '../core/api-error';
 import { ThemeSwitcher } from '../core/theme-switcher';
 import { QuantityPipe } from '../units/quantity';
 import { QuantityInput } from '../units/quantity-input';
+import { LoadState } from '../ui/load-state';
 import { CompareApi } from './compare-api';
 import { DesignComparison } from './design-comparison';
 import { lossChartOptions, type LossMethod } from './loss-chart-options';
@@ -27,7 +27,7 @@ const DEFAULT_SELECTION = 3;
     DesignComparison,
     MatFormFieldModule,
     MatInputModule,
-    MatProgressBarModule,
+    LoadState,
     MatSelectModule,
     NgxEchartsDirective,
     QuantityInput,

@@ -3,10 +3,10 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
-import { MatTableModule } from '@angular/material/table';
 import type { ImportDecision, ImportPreview } from '@shared/schemas/csv-import';
 import type { Observable } from 'rxjs';
 
+import { DataTable, DataTableCell, type TableColumn } from '../ui/data-table';
 import { apiErrorOf, errorMessageOf } from './api-error';
 import type { CsvImportCalls, UploadStep } from './upload-steps';
 
@@ -47,7 +47,7 @@ let nextId = 0;
  */
 @Component({
   selector: 'gw-csv-import',
-  imports: [MatButtonModule, MatFormFieldModule, MatProgressBarModule, MatSelectModule, MatTableModule],
+  imports: [DataTable, DataTableCell, MatButtonModule, MatFormFieldModule, MatProgressBarModule, MatSelectModule],
   templateUrl: './csv-import.html',
   styleUrl: './csv-import.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -66,7 +66,13 @@ export class CsvImport<R> {
   protected readonly result = signal<ImportPreview | null>(null);
   protected readonly failure = signal<{ message: string; fields: [string, string][] } | null>(null);
   protected readonly decisions = signal<Record<string, ImportDecision>>({});
-  protected readonly columns = ['row', 'name', 'status', 'problems', 'decision'];
+  protected readonly columns: TableColumn<ImportPreview['rows'][number]>[] = [
+    { name: 'row', header: 'Row', text: (row) => row.row },
+    { name: 'name', header: 'Name', text: (row) => row.name || null },
+    { name: 'status', header: 'Status' },
+    { name: 'problems', header: 'Problems (column: message)' },
+    { name: 'decision', header: 'Decision' },
+  ];
   protected readonly busy = computed(() => this.phase() === 'previewing' || this.phase() === 'committing');
   protected readonly canCommit = computed(() => {
     const preview = this.result();

@@ -1,10 +1,10 @@
-import { HttpClient, provideHttpClient, withInterceptors } from '@angular/common/http';
-import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
-import { provideZonelessChangeDetection } from '@angular/core';
+import { HttpClient } from '@angular/common/http';
+import { HttpTestingController } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
-import { Router, provideRouter } from '@angular/router';
+import { Router } from '@angular/router';
 import { beforeEach, describe, expect, it, vi } from 'vitest';
 
+import { testingProviders } from '../testing/render';
 import { userWithRole } from '../testing/users';
 import { errorsShownByCaller } from './error-display';
 import { httpErrorInterceptor } from './http-error-interceptor';
@@ -19,13 +19,7 @@ describe('httpErrorInterceptor', () => {
   beforeEach(() => {
     notifier = { error: vi.fn(), info: vi.fn() };
     TestBed.configureTestingModule({
-      providers: [
-        provideZonelessChangeDetection(),
-        provideRouter([]),
-        provideHttpClient(withInterceptors([httpErrorInterceptor])),
-        provideHttpClientTesting(),
-        { provide: Notifier, useValue: notifier },
-      ],
+      providers: [...testingProviders([httpErrorInterceptor]), { provide: Notifier, useValue: notifier }],
     });
     http = TestBed.inject(HttpClient);
     backend = TestBed.inject(HttpTestingController);

@@ -6,11 +6,7 @@ const labelsFor = (role: Parameters<typeof navigationFor>[0]) => navigationFor(r
 
 describe('navigationFor', () => {
   it('gives an engineer Home but not Users or Audit log', () => {
-    const labels = labelsFor('engineer');
-
-    expect(labels).toContain('Home');
-    expect(labels).not.toContain('Users');
-    expect(labels).not.toContain('Audit log');
+    expect(labelsFor('engineer')).toEqual(['Home', 'Designs', 'Materials', 'Cores', 'Compare', 'Winding shop']);
   });
 
   it('gives an admin Home, Users and Audit log', () => {
@@ -41,13 +37,6 @@ describe('navigationFor', () => {
     const items = [...NAVIGATION, { label: 'Shop queue', icon: 'build', path: '/shop', permission: 'build' as const }];
 
     expect(navigationFor('winder', items).map((item) => item.label)).toEqual(['Home', 'Winding shop', 'Shop queue']);
-    expect(navigationFor('engineer', items).map((item) => item.label)).toEqual([
-      'Home',
-      'Designs',
-      'Materials',
-      'Cores',
-      'Compare',
-      'Winding shop',
-    ]);
+    expect(navigationFor('engineer', items).map((item) => item.label)).toEqual(labelsFor('engineer'));
   });
 });

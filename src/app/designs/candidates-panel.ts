@@ -108,14 +108,35 @@ export class CandidatesPanel {
   });
   protected readonly familyFilter = signal<string>('');
   protected readonly materialFilter = signal<string>('');
-  protected readonly feasibilityFilter = signal<'all' | 'feasible' | 'infeasible'>('all');
-  protected readonly familiesInRows = computed(() => [...new Set(this.rows().map((r) => r.family))].sort());
-  protected readonly materialsInRows = computed(() => [
-    ...new Map(
-      this.rows()
-        .filter((r) => r.materialId)
-        .map((r) => [r.materialId, r.materialName]),
-    ),
+  protected readonly feasibilityFilter = signal<string>('all');
+  /** The filters above the table, each with its choices as [value, label]; "All" keeps every row. */
+  protected readonly filters = computed(() => [
+    {
+      label: 'Family',
+      value: this.familyFilter,
+      options: [['', 'All'], ...[...new Set(this.rows().map((r) => r.family))].sort().map((f) => [f, f])],
+    },
+    {
+      label: 'Material',
+      value: this.materialFilter,
+      options: [
+        ['', 'All'],
+        ...new Map(
+          this.rows()
+            .filter((r) => r.materialId)
+            .map((r) => [r.materialId, r.materialName]),
+        ),
+      ],
+    },
+    {
+      label: 'Feasibility',
+      value: this.feasibilityFilter,
+      options: [
+        ['all', 'All'],
+        ['feasible', 'Feasible'],
+        ['infeasible', 'Infeasible'],
+      ],
+    },
   ]);
   protected readonly selectedKey = signal<string | null>(null);
   protected readonly selected = computed(() => this.rows().find((r) => r.key === this.selectedKey()) ?? null);

@@ -1,14 +1,11 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
-import { MatPaginatorModule, type PageEvent } from '@angular/material/paginator';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
+import type { PageEvent } from '@angular/material/paginator';
 import { MatSortModule, type Sort } from '@angular/material/sort';
-import { MatTableModule } from '@angular/material/table';
 import { Router, RouterLink } from '@angular/router';
 import { may } from '@shared/api/permissions';
 import { DESIGN_SORT_KEYS, type DesignListItem, type DesignListResponse, type DesignSortKey } from '@shared/schemas/designs';
@@ -16,15 +13,9 @@ import { catchError, debounceTime, map, of, startWith, switchMap } from 'rxjs';
 
 import { Notifier } from '../core/notifier';
 import { Session } from '../core/session';
+import { DataTable, DataTableCell, type TableColumn } from '../ui/data-table';
 import { DesignsApi, type DesignListParams } from './designs-api';
-
-const STATUS_LABELS: Record<string, string> = {
-  draft: 'Draft',
-  in_review: 'In review',
-  approved: 'Approved',
-  released: 'Released',
-  superseded: 'Superseded',
-};
+import { STATUS_LABELS } from './format';
 
 const sortKey = (column: string): DesignSortKey => DESIGN_SORT_KEYS.find((key) => key === column) ?? 'updated';
 
@@ -32,16 +23,14 @@ const sortKey = (column: string): DesignSortKey => DESIGN_SORT_KEYS.find((key) =
 @Component({
   selector: 'gw-design-list',
   imports: [
-    DatePipe,
+    DataTable,
+    DataTableCell,
     RouterLink,
     MatButtonModule,
     MatButtonToggleModule,
     MatFormFieldModule,
     MatInputModule,
-    MatPaginatorModule,
-    MatProgressBarModule,
     MatSortModule,
-    MatTableModule,
   ],
   templateUrl: './design-list.html',
   styleUrl: './design-list.scss',
@@ -55,8 +44,15 @@ export class DesignList {
 
   protected readonly params = signal<DesignListParams>({ scope: 'all', q: '', sort: 'updated', dir: 'desc', page: 0, pageSize: 20 });
   protected readonly canDesign = computed(() => may(this.session.role(), 'design'));
-  protected readonly columns = ['number', 'title', 'summary', 'status', 'owner', 'updated', 'actions'];
-  protected readonly statusLabels = STATUS_LABELS;
+  protected readonly columns: TableColumn<DesignListItem>[] = [
+    { name: 'number', header: 'Number', sortable: true },
+    { name: 'title', header: 'Title', sortable: true, text: (d) => d.title },
+    { name: 'summary', header: 'Converter', text: (d) => d.summary },
+    { name: 'status', header: 'Status', sortable: true, text: (d) => `${STATUS_LABELS[d.status]} (rev. ${d.revision})` },
+    { name: 'owner', header: 'Owner', sortable: true, text: (d) => d.owner.displayName },
+    { name: 'updated', header: 'Updated', sortable: true, text: (d) => d.updatedAt, date: true },
+    { name: 'actions', header: 'Actions' },
+  ];
 
   private readonly response = toSignal(
     toObservable(this.params).pipe(

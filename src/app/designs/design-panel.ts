@@ -3,7 +3,6 @@ import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { THERMAL_MODEL_LIMIT } from '@shared/engine/thermal';
 import type { Construction, DesignSpec } from '@shared/schemas/designs';
@@ -18,6 +17,7 @@ import { errorMessageOf } from '../core/api-error';
 import { QuantityPipe } from '../units/quantity';
 import { QuantityInput } from '../units/quantity-input';
 import { CoresApi } from '../cores/cores-api';
+import { LoadState } from '../ui/load-state';
 import { DesignsApi, type MaterialView } from './designs-api';
 import { percent, show, showUnit } from './format';
 
@@ -30,7 +30,7 @@ type WireKind = 'awg' | 'metric' | 'litz';
     ReactiveFormsModule,
     MatFormFieldModule,
     MatInputModule,
-    MatProgressBarModule,
+    LoadState,
     MatSelectModule,
     NgxEchartsDirective,
     QuantityInput,
@@ -191,7 +191,32 @@ export class DesignPanel {
     return { coreId: v.coreId, materialId: v.materialId, turns: v.turns, gap: v.gap ?? 'auto', wire };
   }
 
-  protected readonly lossChart = computed<EChartsCoreOption>(() => {
+  /** The three charts beside the figures, each with the words a screen reader gives for it. */
+  protected readonly charts = computed(() => {
+    const r = this.result();
+    if (!r) return [];
+    const power = (value: number) => show(value, 'power');
+    const flux = (value: number) => show(value, 'fluxDensity');
+    return [
+      {
+        title: 'Loss breakdown',
+        options: this.lossChart(),
+        label: `Losses: copper DC ${power(r.copper.dcLoss)}, copper AC ${power(r.copper.acLoss)}, core ${power(r.coreLoss.loss)}`,
+      },
+      {
+        title: 'Flux against Bsat at temperature',
+        options: this.fluxChart(),
+        label: `Peak flux ${flux(r.flux.peakAtMinimumSection)} against Bsat ${flux(r.flux.saturationAtHotSpot)}`,
+      },
+      {
+        title: 'Loss against frequency',
+        options: this.frequencyChart(),
+        label: 'Total, copper and core loss of this build from a quarter to four times the switching frequency',
+      },
+    ];
+  });
+
+  private readonly lossChart = computed<EChartsCoreOption>(() => {
     const r = this.result();
     if (!r) return {};
     return {
@@ -210,7 +235,7 @@ export class DesignPanel {
     };
   });
 
-  protected readonly fluxChart = computed<EChartsCoreOption>(() => {
+  private readonly fluxChart = computed<EChartsCoreOption>(() => {
     const r = this.result();
     if (!r) return {};
     const f = r.flux;
@@ -246,7 +271,7 @@ export class DesignPanel {
     };
   });
 
-  protected readonly frequencyChart = computed<EChartsCoreOption>(() => {
+  private readonly frequencyChart = computed<EChartsCoreOption>(() => {
     const sweep = this.view()?.lossVersusFrequency ?? [];
     if (!sweep.length) return {};
     const x = axisIn('kHz');

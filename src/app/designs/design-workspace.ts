@@ -4,7 +4,6 @@ import { FormControl, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Router, RouterLink } from '@angular/router';
 import { may } from '@shared/api/permissions';
 import type { SearchCandidate } from '@shared/engine/index';
@@ -15,8 +14,6 @@ import {
   type DesignDetail,
   type DesignSpec,
   type ExportKind,
-  storedEvaluation,
-  storedWire,
 } from '@shared/schemas/designs';
 import type { EvaluateAnswer } from '@shared/schemas/calc-answers';
 import { distinctUntilChanged, map, startWith } from 'rxjs';
@@ -24,6 +21,7 @@ import { distinctUntilChanged, map, startWith } from 'rxjs';
 import { apiErrorOf, errorMessageOf } from '../core/api-error';
 import { Notifier } from '../core/notifier';
 import { Session } from '../core/session';
+import { LoadState } from '../ui/load-state';
 import { CandidatesPanel } from './candidates-panel';
 import { DesignPanel } from './design-panel';
 import { DesignsApi, type MaterialView } from './designs-api';
@@ -50,7 +48,7 @@ const EXPORT_LABELS: Record<ExportKind, string> = {
     MatButtonModule,
     MatFormFieldModule,
     MatInputModule,
-    MatProgressBarModule,
+    LoadState,
     SpecFormComponent,
     OperatingPointPanel,
     CandidatesPanel,
@@ -154,9 +152,8 @@ export class DesignWorkspace {
     this.detail.set(detail);
     this.title.setValue(detail.title);
     this.specForm.patchValue(formFromSpec(detail.latest.spec));
-    const result = storedEvaluation(detail.latest.result);
-    const wire = storedWire(detail.latest.result);
-    const stored = result && wire ? { engineVersion: detail.latest.engineVersion ?? '', wire, result } : null;
+    const saved = detail.latest.result;
+    const stored = saved ? { engineVersion: detail.latest.engineVersion ?? '', wire: saved.wire, result: saved.evaluation } : null;
     const construction = detail.latest.construction;
     this.known.set(stored);
     this.construction.set(construction);

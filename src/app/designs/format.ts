@@ -12,3 +12,12 @@ export function showUnit(value: number | null | undefined, symbol: string, digit
 export function percent(value: number | null | undefined, digits = 1): string {
   return value === null || value === undefined || !Number.isFinite(value) ? '—' : `${(value * 100).toFixed(digits)} %`;
 }
+
+/** A revision status as people read it. */
+export const STATUS_LABELS: Record<string, string> = {
+  draft: 'Draft',
+  in_review: 'In review',
+  approved: 'Approved',
+  released: 'Released',
+  superseded: 'Superseded',
+};

@@ -64,13 +64,6 @@ type OpState =
       gap: 4px 16px;
       margin: 0 0 8px;
     }
-    dt {
-      color: var(--mat-sys-on-surface-variant);
-    }
-    dd {
-      margin: 0;
-      font-variant-numeric: tabular-nums;
-    }
     .gw-chart {
       height: 220px;
     }

@@ -7,15 +7,7 @@ import type { DesignDetail, RevisionDiff } from '@shared/schemas/designs';
 
 import { errorMessageOf } from '../core/api-error';
 import { DesignsApi } from './designs-api';
-import { show } from './format';
-
-const STATUS_LABELS: Record<string, string> = {
-  draft: 'Draft',
-  in_review: 'In review',
-  approved: 'Approved',
-  released: 'Released',
-  superseded: 'Superseded',
-};
+import { STATUS_LABELS, show } from './format';
 
 /** Revision history and a side-by-side diff of spec, construction and results between two revisions. */
 @Component({
@@ -55,22 +47,16 @@ const STATUS_LABELS: Record<string, string> = {
       </div>
       @if (design().revisions.length > 1) {
         <div class="gw-diff-controls">
-          <mat-form-field subscriptSizing="dynamic">
-            <mat-label>From revision</mat-label>
-            <mat-select [value]="from()" (selectionChange)="from.set($event.value)">
-              @for (r of design().revisions; track r.revision) {
-                <mat-option [value]="r.revision">{{ r.revision }}</mat-option>
-              }
-            </mat-select>
-          </mat-form-field>
-          <mat-form-field subscriptSizing="dynamic">
-            <mat-label>To revision</mat-label>
-            <mat-select [value]="to()" (selectionChange)="to.set($event.value)">
-              @for (r of design().revisions; track r.revision) {
-                <mat-option [value]="r.revision">{{ r.revision }}</mat-option>
-              }
-            </mat-select>
-          </mat-form-field>
+          @for (end of ends; track end.label) {
+            <mat-form-field subscriptSizing="dynamic">
+              <mat-label>{{ end.label }}</mat-label>
+              <mat-select [value]="end.revision()" (selectionChange)="end.revision.set($event.value)">
+                @for (r of design().revisions; track r.revision) {
+                  <mat-option [value]="r.revision">{{ r.revision }}</mat-option>
+                }
+              </mat-select>
+            </mat-form-field>
+          }
           <button mat-stroked-button type="button" (click)="compare()">Compare</button>
         </div>
       }
@@ -150,6 +136,10 @@ export class RevisionsPanel {
   readonly design = input.required<DesignDetail>();
   protected readonly from = signal(1);
   protected readonly to = signal(1);
+  protected readonly ends = [
+    { label: 'From revision', revision: this.from },
+    { label: 'To revision', revision: this.to },
+  ];
   protected readonly diff = signal<RevisionDiff | null>(null);
   protected readonly error = signal<string | null>(null);
   protected readonly fmt = show;

@@ -1,7 +1,8 @@
-import { ChangeDetectionStrategy, Component, provideZonelessChangeDetection } from '@angular/core';
-import { TestBed, type ComponentFixture } from '@angular/core/testing';
+import { ChangeDetectionStrategy, Component } from '@angular/core';
+import type { ComponentFixture } from '@angular/core/testing';
 import { beforeEach, describe, expect, it } from 'vitest';
 
+import { renderWithHttpTesting } from '../testing/render';
 import { SpecFormComponent } from './spec-form';
 import { createSpecForm, formFromSpec, specFromForm } from './spec-model';
 
@@ -19,10 +20,7 @@ describe('SpecFormComponent', () => {
   let page: HTMLElement;
 
   beforeEach(async () => {
-    TestBed.configureTestingModule({ providers: [provideZonelessChangeDetection()] });
-    fixture = TestBed.createComponent(Host);
-    page = fixture.nativeElement as HTMLElement;
-    await fixture.whenStable();
+    ({ fixture, page } = await renderWithHttpTesting(Host));
   });
 
   const field = (label: string) => {

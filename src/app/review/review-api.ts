@@ -8,14 +8,7 @@ import { errorsShownByCaller } from '../core/error-display';
 
 export type { DesignStatus as RevisionStatus } from '@shared/schemas/designs';
 export type { Timeline, TimelineEntry, TransitionOutcome } from '@shared/schemas/review';
-
-export const STATUS_LABELS: Record<string, string> = {
-  draft: 'Draft',
-  in_review: 'In review',
-  approved: 'Approved',
-  released: 'Released',
-  superseded: 'Superseded',
-};
+export { STATUS_LABELS } from '../designs/format';
 
 /** The review and release flow of one design revision; the server decides who may do what. */
 @Injectable({ providedIn: 'root' })

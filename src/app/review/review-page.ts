@@ -58,11 +58,6 @@ interface ReviewCard {
       font: inherit;
       margin: 0;
     }
-    .gw-caution-box {
-      border: 1px solid var(--mat-sys-outline);
-      padding: 8px 12px;
-      max-width: 80ch;
-    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })

@@ -39,13 +39,6 @@ interface RevisionContext {
       }
     </div>
   `,
-  styles: `
-    .gw-caution-box {
-      border: 1px solid var(--mat-sys-outline);
-      padding: 8px 12px;
-      max-width: 80ch;
-    }
-  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class RevisionPage {

@@ -1,14 +1,13 @@
-import { provideHttpClient, withInterceptors } from '@angular/common/http';
-import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
-import { provideZonelessChangeDetection } from '@angular/core';
+import { HttpTestingController } from '@angular/common/http/testing';
 import { TestBed, type ComponentFixture } from '@angular/core/testing';
-import { Router, provideRouter } from '@angular/router';
+import { Router } from '@angular/router';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 
 import { httpErrorInterceptor } from '../core/http-error-interceptor';
 import { Session } from '../core/session';
 import { SignIn } from './sign-in';
 import { typeInto } from '../testing/form-fields';
+import { testingProviders } from '../testing/render';
 
 const engineer = {
   id: 7,
@@ -28,14 +27,7 @@ describe('SignIn', () => {
   let page: HTMLElement;
 
   beforeEach(async () => {
-    TestBed.configureTestingModule({
-      providers: [
-        provideZonelessChangeDetection(),
-        provideRouter([]),
-        provideHttpClient(withInterceptors([httpErrorInterceptor])),
-        provideHttpClientTesting(),
-      ],
-    });
+    TestBed.configureTestingModule({ providers: testingProviders([httpErrorInterceptor]) });
     http = TestBed.inject(HttpTestingController);
     fixture = TestBed.createComponent(SignIn);
     page = fixture.nativeElement as HTMLElement;

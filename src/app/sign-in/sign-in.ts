@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, inject, input, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, inject, input } from '@angular/core';
 import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCardModule } from '@angular/material/card';
@@ -7,6 +7,7 @@ import { MatInputModule } from '@angular/material/input';
 import { Router } from '@angular/router';
 import { PASSWORD_MAX, signInRequestSchema } from '@shared/schemas/auth';
 
+import { FormSubmission } from '../core/form-submission';
 import { Session } from '../core/session';
 import { safeReturnUrl } from './return-url';
 import { signInFailureMessage } from './sign-in-failure';
@@ -32,22 +33,13 @@ export class SignIn {
       validators: [Validators.required, Validators.maxLength(PASSWORD_MAX)],
     }),
   });
-  protected readonly submitting = signal(false);
-  protected readonly failure = signal<string | null>(null);
+  protected readonly submission = new FormSubmission();
 
   protected submit(): void {
-    if (this.form.invalid) {
-      this.form.markAllAsTouched();
-      return;
-    }
-    this.submitting.set(true);
-    this.failure.set(null);
-    this.session.signIn(signInRequestSchema.parse(this.form.getRawValue())).subscribe({
-      next: () => void this.router.navigateByUrl(safeReturnUrl(this.returnUrl())),
-      error: (error: unknown) => {
-        this.submitting.set(false);
-        this.failure.set(signInFailureMessage(error));
-      },
+    this.submission.send(this.form, () => this.session.signIn(signInRequestSchema.parse(this.form.getRawValue())), {
+      done: () => void this.router.navigateByUrl(safeReturnUrl(this.returnUrl())),
+      describe: signInFailureMessage,
+      staysBusy: true,
     });
   }
 }

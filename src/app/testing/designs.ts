@@ -28,6 +28,7 @@ export function designDetail(overrides: Partial<Omit<DesignDetail, 'latest'>> = 
     spec: { converter: { vinMin: 24, vinMax: 48, vout: 12, ioutMax: 10, frequency: 250e3, rippleRatio: 0.4, rectifier: 'synchronous' } },
     construction: null,
     result: null,
+    resultUnreadable: null,
     materialId: null,
   };
   return {

@@ -1,19 +1,17 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, signal } from '@angular/core';
-import { MatPaginatorModule, type PageEvent } from '@angular/material/paginator';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { MatTableModule } from '@angular/material/table';
+import type { PageEvent } from '@angular/material/paginator';
 import { auditPage } from '@shared/api/audit';
+import type { AuditEntry } from '@shared/schemas/auth';
 
 import { endpointResource } from '../../core/api';
+import { DataTable, type TableColumn } from '../../ui/data-table';
 
 const FIRST_PAGE_SIZE = 25;
 
 @Component({
   selector: 'gw-audit-log',
-  imports: [DatePipe, MatPaginatorModule, MatProgressBarModule, MatTableModule],
+  imports: [DataTable],
   templateUrl: './audit-log.html',
-  styleUrl: './audit-log.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class AuditLog {
@@ -26,7 +24,13 @@ export class AuditLog {
   }));
   protected readonly entries = computed(() => (this.page.hasValue() ? this.page.value().entries : []));
   protected readonly total = computed(() => (this.page.hasValue() ? this.page.value().total : 0));
-  protected readonly columns = ['at', 'actor', 'action', 'target', 'details'];
+  protected readonly columns: TableColumn<AuditEntry>[] = [
+    { name: 'at', header: 'Time', text: (entry) => entry.at, date: true },
+    { name: 'actor', header: 'Actor', text: (entry) => entry.actor, absent: 'System' },
+    { name: 'action', header: 'Action', text: (entry) => entry.action },
+    { name: 'target', header: 'Target', text: (entry) => entry.target },
+    { name: 'details', header: 'Details', text: (entry) => entry.details },
+  ];
 
   protected changePage(event: PageEvent): void {
     this.pageSize.set(event.pageSize);

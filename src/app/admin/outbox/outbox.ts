@@ -3,16 +3,16 @@ import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/cor
 import { MatButtonModule } from '@angular/material/button';
 import { MatExpansionModule } from '@angular/material/expansion';
 import { MatIconModule } from '@angular/material/icon';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { MatTableModule } from '@angular/material/table';
 import type { CapturedMessage, MailDelivery } from '@shared/schemas/outbox';
 
+import { DataTable, DataTableCell, type TableColumn } from '../../ui/data-table';
+import { LoadState } from '../../ui/load-state';
 import { OutboxApi } from './outbox-api';
 
 /** Mail the app tried to send (delivery states, retries) and what the local fake SMTP server caught. */
 @Component({
   selector: 'gw-outbox',
-  imports: [DatePipe, DecimalPipe, MatButtonModule, MatExpansionModule, MatIconModule, MatProgressBarModule, MatTableModule],
+  imports: [DataTable, DataTableCell, DatePipe, DecimalPipe, LoadState, MatButtonModule, MatExpansionModule, MatIconModule],
   templateUrl: './outbox.html',
   styles: `
     .gw-mail-text {
@@ -40,7 +40,14 @@ export class Outbox {
   protected readonly messages = signal<CapturedMessage[]>([]);
   protected readonly deliveries = signal<MailDelivery[]>([]);
   protected readonly loading = signal(true);
-  protected readonly deliveryColumns = ['createdAt', 'recipient', 'subject', 'status', 'attempts', 'lastError'];
+  protected readonly deliveryColumns: TableColumn<MailDelivery>[] = [
+    { name: 'createdAt', header: 'Queued', text: (d) => d.createdAt, date: true },
+    { name: 'recipient', header: 'To', text: (d) => d.recipient },
+    { name: 'subject', header: 'Subject', text: (d) => d.subject },
+    { name: 'status', header: 'State' },
+    { name: 'attempts', header: 'Attempts', text: (d) => d.attempts },
+    { name: 'lastError', header: 'Last error', text: (d) => d.lastError },
+  ];
 
   constructor() {
     this.reload();

@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, inject, output, signal, viewChild } from '@angular/core';
+import { ChangeDetectionStrategy, Component, inject, output, viewChild } from '@angular/core';
 import { FormControl, FormGroup, FormGroupDirective, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -6,6 +6,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { PASSWORD_MAX, PASSWORD_MIN, ROLES, type AdminUser, type Role } from '@shared/schemas/auth';
 
+import { FormSubmission } from '../../core/form-submission';
 import { showServerFieldErrors } from '../../core/server-field-errors';
 import { ROLE_LABELS } from '../../core/roles';
 import { UsersApi } from './users-api';
@@ -42,29 +43,21 @@ export class UserCreateForm {
       validators: [Validators.required, Validators.minLength(PASSWORD_MIN), Validators.maxLength(PASSWORD_MAX)],
     }),
   });
-  protected readonly submitting = signal(false);
-  protected readonly failure = signal<string | null>(null);
+  protected readonly submission = new FormSubmission();
 
   protected submit(): void {
-    if (this.form.invalid) {
-      this.form.markAllAsTouched();
-      return;
-    }
     const { username, displayName, email, role, password } = this.form.getRawValue();
-    this.submitting.set(true);
-    this.failure.set(null);
-    this.usersApi
-      .create({ username: username.trim(), displayName: displayName.trim(), email: email.trim() || null, role, password })
-      .subscribe({
-        next: (user) => {
-          this.submitting.set(false);
+    this.submission.send(
+      this.form,
+      () =>
+        this.usersApi.create({ username: username.trim(), displayName: displayName.trim(), email: email.trim() || null, role, password }),
+      {
+        done: (user) => {
           this.formDirective().resetForm({ role: 'engineer' });
           this.created.emit(user);
         },
-        error: (error: unknown) => {
-          this.submitting.set(false);
-          this.failure.set(showServerFieldErrors(this.form, error));
-        },
-      });
+        describe: (error) => showServerFieldErrors(this.form, error),
+      },
+    );
   }
 }

@@ -1,35 +1,33 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, inject, signal, viewChild } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatExpansionModule } from '@angular/material/expansion';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatPaginator, MatPaginatorModule } from '@angular/material/paginator';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSort, MatSortModule } from '@angular/material/sort';
-import { MatTableDataSource, MatTableModule } from '@angular/material/table';
+import { MatTableDataSource } from '@angular/material/table';
 import { ROLES, type AdminUser, type Role, type UpdateUserRequest } from '@shared/schemas/auth';
 
 import { Notifier } from '../../core/notifier';
 import { ROLE_LABELS } from '../../core/roles';
 import { UserCreateForm } from './user-create-form';
-import { UsersApi } from './users-api';
 import { bindTableSource } from '../../core/table-binding';
+import { DataTable, DataTableCell, type TableColumn } from '../../ui/data-table';
+import { UsersApi } from './users-api';
 
 @Component({
   selector: 'gw-user-list',
   imports: [
-    DatePipe,
+    DataTable,
+    DataTableCell,
     MatButtonModule,
     MatExpansionModule,
     MatFormFieldModule,
     MatInputModule,
     MatPaginatorModule,
-    MatProgressBarModule,
     MatSelectModule,
     MatSortModule,
-    MatTableModule,
     UserCreateForm,
   ],
   templateUrl: './user-list.html',
@@ -45,7 +43,15 @@ export class UserList {
   protected readonly users = this.usersApi.listResource();
   protected readonly roles = ROLES;
   protected readonly roleLabels = ROLE_LABELS;
-  protected readonly columns = ['username', 'displayName', 'email', 'role', 'status', 'lastSignInAt', 'actions'];
+  protected readonly columns: TableColumn<AdminUser>[] = [
+    { name: 'username', header: 'Username', sortable: true, text: (user) => user.username },
+    { name: 'displayName', header: 'Display name', sortable: true, text: (user) => user.displayName },
+    { name: 'email', header: 'E-mail', sortable: true, text: (user) => user.email },
+    { name: 'role', header: 'Role', sortable: true },
+    { name: 'status', header: 'Status', sortable: true, sortBy: 'disabled', text: (user) => (user.disabled ? 'Disabled' : 'Active') },
+    { name: 'lastSignInAt', header: 'Last sign-in', sortable: true, text: (user) => user.lastSignInAt, date: true, absent: 'Never' },
+    { name: 'actions', header: 'Actions' },
+  ];
   protected readonly dataSource = new MatTableDataSource<AdminUser>([]);
   protected readonly filterText = signal('');
 

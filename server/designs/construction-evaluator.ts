@@ -1,0 +1,39 @@
+import type { Construction, DesignSpec, StoredResult } from '@shared/schemas/designs';
+import type { CalcService } from '../calc/calc.service.ts';
+
+export interface EvaluatedConstruction {
+  construction: Construction;
+  result: StoredResult;
+  engineVersion: string;
+  materialId: number;
+}
+
+/** Runs the engine on a design's construction before it is saved; turns and gap are stored as the engine resolved them. */
+export class ConstructionEvaluator {
+  constructor(private readonly calc: CalcService) {}
+
+  async evaluate(spec: DesignSpec, construction: Construction): Promise<EvaluatedConstruction> {
+    const {
+      wire,
+      result: evaluation,
+      engineVersion,
+    } = await this.calc.evaluate(
+      {
+        spec: spec.converter,
+        limits: spec.limits,
+        coreId: construction.coreId,
+        materialId: construction.materialId,
+        turns: construction.turns,
+        gap: construction.gap,
+        wire: construction.wire,
+      },
+      {},
+    );
+    return {
+      construction: { ...construction, turns: evaluation.turns, gap: evaluation.gap.total },
+      result: { wire, evaluation },
+      engineVersion,
+      materialId: Number(construction.materialId),
+    };
+  }
+}
