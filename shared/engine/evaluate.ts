@@ -17,7 +17,7 @@ import {
   type WireContext,
 } from './kernel';
 import type { OperatingPoint } from './operating-point';
-import type { CoreFamily, CoreMaterial, CoreShape, GapKind, MaterialFamily, WireKind, WireOption } from './types';
+import type { CoreFamily, CoreMaterial, CoreShape, GapKind, GapPlacement, MaterialFamily, WireKind, WireOption } from './types';
 
 export interface EvaluateInput {
   spec: ConverterSpec;
@@ -25,8 +25,10 @@ export interface EvaluateInput {
   core: CoreShape;
   material: CoreMaterial;
   turns: TurnsInput;
-  /** Total gap in the magnetic path (m), or 'auto'; ignored for distributed-gap cores. */
+  /** Ground gap (placement 'ground') or spacer thickness ('spacer') in m, or 'auto'; ignored for distributed-gap cores. */
   gap: TurnsInput;
+  /** Where the gap is made (default 'ground'). */
+  placement?: GapPlacement;
   wire: WireOption;
 }
 
@@ -51,13 +53,16 @@ export interface EvaluationResult {
   wire: { id: string; kind: WireKind; strandDiameter: number; strands: number; copperArea: number; currentDensity: number };
   turns: number;
   gap: {
-    /** Total gap in the path (m); 0 for distributed-gap cores. */
+    placement: GapPlacement;
+    /** Sum of the gap lengths in the path (m): the ground gap, or twice the spacer; 0 for distributed-gap cores. */
     total: number;
-    /** Spacer thickness for a spacer gap across all legs (m). */
+    /** Spacer thickness under all legs (m): this design's spacer, or the alternative giving the same L. */
     spacer: number;
     fringingFactor: number;
-    /** lg/√Ae; the fringing formula is trusted below 0.3. */
+    /** Largest t/√A over the gaps; the fringing formula is trusted below 0.3. */
     relativeToCore: number;
+    /** ΔL/L for 10 µm more ground gap (or spacer); 0 for distributed-gap cores. */
+    sensitivity10um: number;
   };
   inductanceFactor: { withoutFringing: number; withFringing: number };
   inductance: {
@@ -164,10 +169,12 @@ export function assembleResult(
     },
     turns: mag.turns,
     gap: {
+      placement: mag.placement,
       total: mag.totalGap,
       spacer: mag.spacer,
       fringingFactor: mag.fringingFactor,
-      relativeToCore: mag.totalGap / Math.sqrt(core.ae),
+      relativeToCore: mag.relativeGap,
+      sensitivity10um: mag.gapSensitivity,
     },
     inductanceFactor: { withoutFringing: mag.inductanceFactorWithoutFringing, withFringing: mag.inductanceFactor },
     inductance: {
@@ -246,7 +253,7 @@ function checkExplicitInputs(input: EvaluateInput): void {
 export function evaluateDesign(input: EvaluateInput): EvaluationResult {
   checkExplicitInputs(input);
   const ctx = prepareSpec(input.spec, input.limits);
-  const mag = designMagnetics(input.core, input.material, ctx, input.turns, input.gap);
+  const mag = designMagnetics(input.core, input.material, ctx, input.turns, input.gap, input.placement);
   const wireCtx = prepareWire(input.wire, ctx);
   const figures = new CandidateFigures();
   evaluateCandidate(ctx, prepareCore(input.core), prepareMaterial(input.material, ctx), mag, wireCtx, figures);
@@ -276,7 +283,7 @@ export function lossVersusFrequency(input: EvaluateInput, frequencies: readonly 
         ...input,
         spec: { ...rest, frequency, inductance: base.inductance.minimum },
         turns: base.turns,
-        gap: input.core.gapKind === 'distributed' ? 'auto' : base.gap.total,
+        gap: input.core.gapKind === 'distributed' ? 'auto' : base.gap.placement === 'spacer' ? base.gap.spacer : base.gap.total,
       });
       points.push({
         frequency,

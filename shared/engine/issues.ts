@@ -9,6 +9,9 @@ const fmt = (value: number, digits = 2) => (Number.isFinite(value) ? value.toFix
 const mm = (metres: number) => fmt(metres * 1e3, 2);
 const uH = (henry: number) => fmt(henry * 1e6, 2);
 
+const gapName = (mag: MagneticDesign) => (mag.placement === 'spacer' ? 'Spacer' : 'Ground gap');
+const gapLength = (mag: MagneticDesign) => (mag.placement === 'spacer' ? mag.spacer : mag.totalGap);
+
 export interface IssueSubject {
   ctx: SpecContext;
   core: CoreShape;
@@ -95,10 +98,22 @@ export function describeIssues({ ctx, core, material, mag, figures: f }: IssueSu
   if (failed(FAILURE.lossBudget)) {
     error('loss-budget', `Total loss ${fmt(f.totalLoss)} W exceeds the budget of ${fmt(limits.lossBudget ?? 0)} W.`);
   }
+  if (failed(FAILURE.gapTooSmall)) {
+    error(
+      'gap-too-small',
+      `${gapName(mag)} of ${fmt(gapLength(mag) * 1e6, 1)} µm is below the ${fmt(limits.minGap * 1e6, 0)} µm a workshop can hold: use fewer turns, a lower-permeability material or another core.`,
+    );
+  }
   if (warned(WARNING.fringingRange)) {
     warning(
       'fringing-range',
-      `Gap ${mm(mag.totalGap)} mm is ${fmt(mag.totalGap / Math.sqrt(core.ae))}·√Ae: the fringing formula is only trusted below 0.3·√Ae.`,
+      `${gapName(mag)} of ${mm(gapLength(mag))} mm is ${fmt(mag.relativeGap)}·√A of its leg: the fringing formula is only trusted below 0.3·√A.`,
+    );
+  }
+  if (warned(WARNING.gapSensitive)) {
+    warning(
+      'gap-sensitive',
+      `10 µm more ${mag.placement === 'spacer' ? 'spacer' : 'gap'} changes the inductance by ${fmt(mag.gapSensitivity * 100, 1)} %: the part is hard to build to its tolerance.`,
     );
   }
   if (warned(WARNING.fluxAboveLimit)) {

@@ -3,19 +3,20 @@
 // functions without allocating.
 import { acCopperLoss, acLossSums, dcCopperLoss, effectiveAcFactor, rippleResistanceWeight, type AcLossSums } from './copper-loss';
 import { windingResistance } from './copper';
-import { HOT_SPOT_ALLOWANCE } from './constants';
+import { FRINGING_VALIDITY_LIMIT, HOT_SPOT_ALLOWANCE } from './constants';
 import { fluxInFitRange, frequencyInFitRange, igseTriangleLoss, steinmetzLoss } from './core-loss';
 import { roundWireDelta } from './dowell';
 import {
-  fringingOutOfRange,
-  fringingFactor,
   gappedInductance,
   gappedInductanceFactor,
   gapWithFringing,
   minimumTurnsUngapped,
-  spacerThickness,
+  spacerEquivalentGap,
+  spacerForInductance,
+  spacerInductance,
   turnsForFluxLimit,
   turnsForGap,
+  turnsForSpacer,
   type GapGeometry,
 } from './gap';
 import { harmonicWeights, type HarmonicWeights } from './harmonics';
@@ -25,7 +26,7 @@ import { biasedInductance, permeabilityFraction, powderInductanceFactor, powderT
 import { fluxDensity, saturationFlux, saturationMargin } from './saturation';
 import { copperSkinDepth } from './skin-depth';
 import { ThermalSolution, coreVolumeThermalResistance, solveTemperature, type WoundCoreLoss } from './thermal';
-import type { CoreMaterial, CoreShape, WireOption } from './types';
+import type { CoreMaterial, CoreShape, GapPlacement, WireOption } from './types';
 import { conductorCopperArea, fitsBuildHeight, layWinding, windowFill } from './winding';
 
 /** Ferrite without a stated limit: Curie temperature typically ≥ 200 °C (common practice, no source). */
@@ -49,6 +50,7 @@ export const FAILURE = {
   materialTemperature: 1 << 9,
   lossBudget: 1 << 10,
   thermalRunaway: 1 << 11,
+  gapTooSmall: 1 << 12,
 } as const;
 
 export const WARNING = {
@@ -57,6 +59,7 @@ export const WARNING = {
   fluxFit: 1 << 2,
   thermalNotConverged: 1 << 3,
   fluxAboveLimit: 1 << 4,
+  gapSensitive: 1 << 5,
 } as const;
 
 export interface SpecContext {
@@ -143,9 +146,16 @@ export function prepareCore(core: CoreShape): CoreContext {
 /** Turns, gap and inductance of one core × material, independent of the wire. */
 export interface MagneticDesign {
   kind: 'air-gap' | 'distributed';
+  /** Where the gap is made; 'ground' for distributed-gap cores, which have none. */
+  placement: GapPlacement;
   turns: number;
+  /** Sum of the gap lengths the flux crosses: the ground gap, or twice the spacer (centre and outer legs). */
   totalGap: number;
+  /** Spacer thickness: the design's own spacer, or for a ground gap the spacer that gives the same inductance. */
   spacer: number;
+  /** Largest t/√A over the gaps (the fringing formula is trusted below 0.3). */
+  relativeGap: number;
+  /** Effective fringing factor: L with fringing over L without. */
   fringingFactor: number;
   inductanceFactorWithoutFringing: number;
   inductanceFactor: number;
@@ -155,11 +165,18 @@ export interface MagneticDesign {
   inductanceAtPeak: number;
   /** L(peak)/L(0). */
   permeabilityAtPeak: number;
+  /** ΔL/L for 10 µm more gap (ground) or spacer; 0 for distributed-gap cores. Negative: L falls. */
+  gapSensitivity: number;
   failures: number;
   warnings: number;
 }
 
 export type TurnsInput = number | 'auto';
+
+/** Gap step of the sensitivity figure: what a grinder or a spacer foil may be off by (common practice, no source). */
+export const GAP_SENSITIVITY_STEP = 10e-6;
+/** |ΔL/L| for one sensitivity step above which the part is flagged as hard to build to tolerance (common practice, no source). */
+export const GAP_SENSITIVITY_LIMIT = 0.1;
 
 /** Most turns whose copper (Irms/J each) fits the usable window. */
 export function windowTurnLimit(core: CoreShape, ctx: SpecContext): number {
@@ -167,16 +184,21 @@ export function windowTurnLimit(core: CoreShape, ctx: SpecContext): number {
   return Math.max(1, Math.floor((ctx.limits.windowUtilisation * core.windowArea) / perTurn));
 }
 
+/**
+ * Turns and gap of one core × material. For air-gap cores `gapInput` is the ground gap (placement 'ground') or the
+ * spacer thickness (placement 'spacer'); distributed-gap cores ignore both.
+ */
 export function designMagnetics(
   core: CoreShape,
   material: CoreMaterial,
   ctx: SpecContext,
   turnsInput: TurnsInput = 'auto',
   gapInput: TurnsInput = 'auto',
+  placement: GapPlacement = 'ground',
 ): MagneticDesign {
   return core.gapKind === 'distributed'
     ? designDistributed(core, material, ctx, turnsInput)
-    : designAirGap(core, material, ctx, turnsInput, gapInput);
+    : designAirGap(core, material, ctx, turnsInput, gapInput, placement);
 }
 
 function designDistributed(core: CoreShape, material: CoreMaterial, ctx: SpecContext, turnsInput: TurnsInput): MagneticDesign {
@@ -202,9 +224,11 @@ function designDistributed(core: CoreShape, material: CoreMaterial, ctx: SpecCon
   if (permeabilityAtPeak < limits.minPermeabilityAtPeak) failures |= FAILURE.permeabilityDrop;
   return {
     kind: 'distributed',
+    placement: 'ground',
     turns,
     totalGap: 0,
     spacer: 0,
+    relativeGap: 0,
     fringingFactor: 1,
     inductanceFactorWithoutFringing: al,
     inductanceFactor: al,
@@ -212,9 +236,17 @@ function designDistributed(core: CoreShape, material: CoreMaterial, ctx: SpecCon
     inductanceAtLoad,
     inductanceAtPeak,
     permeabilityAtPeak,
+    gapSensitivity: 0,
     failures,
     warnings: 0,
   };
+}
+
+/** L of an air-gap core: one fringing ground gap across Ae, or a spacer's two fringing gaps in series. */
+function airGapInductance(turns: number, gap: number, placement: GapPlacement, g: GapGeometry, ratio: number): number {
+  return placement === 'spacer'
+    ? spacerInductance(turns, gap, g, ratio)
+    : gappedInductance(turns, gap, g.area, g.pathLength, g.permeability, g.windowHeight);
 }
 
 function designAirGap(
@@ -223,6 +255,7 @@ function designAirGap(
   ctx: SpecContext,
   turnsInput: TurnsInput,
   gapInput: TurnsInput,
+  placement: GapPlacement,
 ): MagneticDesign {
   const { op, limits } = ctx;
   const target = op.inductanceNominal;
@@ -232,39 +265,59 @@ function designAirGap(
     windowHeight: core.windowHeight,
     permeability: material.permeability,
   };
+  const ratio = core.centreToOuterLegAreaRatio ?? 1;
+  const spacer = placement === 'spacer';
   let failures = 0;
   let warnings = 0;
   let turns: number;
   if (turnsInput !== 'auto') turns = turnsInput;
-  else if (gapInput !== 'auto') turns = turnsForGap(target, gapInput, geometry);
+  else if (gapInput !== 'auto')
+    turns = spacer ? turnsForSpacer(target, gapInput, geometry, ratio) : turnsForGap(target, gapInput, geometry);
   else {
     turns = Math.max(turnsForFluxLimit(target, op.saturationCheckCurrent, limits.bMax, core.ae), minimumTurnsUngapped(target, geometry));
   }
+  // The ground gap, or the spacer thickness.
   let gap: number;
   if (gapInput !== 'auto') gap = gapInput;
   else {
-    gap = gapWithFringing(turns, target, geometry);
+    gap = spacer ? spacerForInductance(turns, target, geometry, ratio) : gapWithFringing(turns, target, geometry);
     if (gap < 0) {
       failures |= FAILURE.negativeGap;
       gap = 0;
     }
   }
-  const inductance = gappedInductance(turns, gap, core.ae, core.le, material.permeability, core.windowHeight);
+  const inductance = airGapInductance(turns, gap, placement, geometry, ratio);
   if (inductance * (1 - limits.inductanceTolerance) < op.inductanceMin * (1 - 1e-6)) failures |= FAILURE.inductanceShort;
-  if (fringingOutOfRange(gap, core.ae)) warnings |= WARNING.fringingRange;
-  const fringing = fringingFactor(gap, core.ae, core.windowHeight);
+  // An exactly zero gap is an ungapped set (nothing to grind); any other gap must be one a workshop can hold.
+  if (gap > 0 && gap < limits.minGap) failures |= FAILURE.gapTooSmall;
+  const relativeGap = spacer ? gap / Math.sqrt(Math.min(core.ae, core.ae / ratio)) : gap / Math.sqrt(core.ae);
+  if (relativeGap > FRINGING_VALIDITY_LIMIT) warnings |= WARNING.fringingRange;
+  const gapSensitivity = airGapInductance(turns, gap + GAP_SENSITIVITY_STEP, placement, geometry, ratio) / inductance - 1;
+  if (Math.abs(gapSensitivity) > GAP_SENSITIVITY_LIMIT) warnings |= WARNING.gapSensitive;
+  const withoutFringing = gappedInductanceFactor(
+    spacer ? spacerEquivalentGap(gap, ratio) : gap,
+    core.ae,
+    core.le,
+    material.permeability,
+    core.windowHeight,
+    false,
+  );
+  const inductanceFactor = inductance / (turns * turns);
   return {
     kind: 'air-gap',
+    placement,
     turns,
-    totalGap: gap,
-    spacer: spacerThickness(gap, core.centreToOuterLegAreaRatio ?? 1),
-    fringingFactor: fringing,
-    inductanceFactorWithoutFringing: gappedInductanceFactor(gap, core.ae, core.le, material.permeability, core.windowHeight, false),
-    inductanceFactor: inductance / (turns * turns),
+    totalGap: spacer ? 2 * gap : gap,
+    spacer: spacer ? gap : Math.max(0, spacerForInductance(turns, inductance, geometry, ratio)),
+    relativeGap,
+    fringingFactor: inductanceFactor / withoutFringing,
+    inductanceFactorWithoutFringing: withoutFringing,
+    inductanceFactor,
     inductanceZeroBias: inductance,
     inductanceAtLoad: inductance,
     inductanceAtPeak: inductance,
     permeabilityAtPeak: 1,
+    gapSensitivity,
     failures,
     warnings,
   };

@@ -73,7 +73,9 @@ export const evaluationResultSchema = z.object({
     kind: z.enum(['awg', 'metric', 'litz']),
   }),
   turns: z.number(),
-  gap: numbers('total', 'spacer', 'fringingFactor', 'relativeToCore'),
+  gap: numbers('total', 'spacer', 'fringingFactor', 'relativeToCore', 'sensitivity10um').extend({
+    placement: z.enum(['ground', 'spacer']),
+  }),
   inductanceFactor: numbers('withoutFringing', 'withFringing'),
   inductance: numbers('required', 'targetNominal', 'nominal', 'minimum', 'atLoad', 'atPeak', 'permeabilityAtPeak'),
   flux: numbers(

@@ -27,7 +27,8 @@ describe('evaluateDesign on a gapped ferrite core', () => {
     // fringing widens the 0.518 mm unfringed gap (McLyman, Transformer and Inductor Design Handbook, fringing factor F = 1 + (lg/√Ae)·ln(2G/lg) — from memory)
     expect(result.gap.total).toBeGreaterThan(0.5179e-3);
     expect(result.gap.fringingFactor).toBeGreaterThan(1);
-    expect(result.gap.spacer).toBeCloseTo(result.gap.total / 2, 15);
+    // a spacer makes two gaps that each fringe less than the ground gap: thinner than half of it (gap-placement.test.ts)
+    expect(result.gap.spacer).toBeLessThan(result.gap.total / 2);
   });
 
   it("computes flux from volt-seconds and L·I/(N·Ae) (Faraday's law and N·Φ = L·I, derived algebraically)", () => {
