@@ -22,7 +22,7 @@ import {
 import { harmonicWeights, type HarmonicWeights } from './harmonics';
 import { resolveLimits, type ConverterSpec, type DesignLimits } from './inputs';
 import { operatingPoint, type OperatingPoint } from './operating-point';
-import { biasedInductance, permeabilityFraction, powderInductanceFactor, powderTurns } from './powder';
+import { biasedFlux, biasedInductance, permeabilityFraction, powderInductanceFactor, powderTurns } from './powder';
 import { fluxDensity, saturationFlux, saturationMargin } from './saturation';
 import { copperSkinDepth } from './skin-depth';
 import { ThermalSolution, coreVolumeThermalResistance, solveTemperature, type WoundCoreLoss } from './thermal';
@@ -165,6 +165,9 @@ export interface MagneticDesign {
   inductanceAtPeak: number;
   /** L(peak)/L(0). */
   permeabilityAtPeak: number;
+  /** Nominal core flux density at full load and at the saturation-check current (T). */
+  fluxAtLoad: number;
+  fluxAtPeak: number;
   /** ΔL/L for 10 µm more gap (ground) or spacer; 0 for distributed-gap cores. Negative: L falls. */
   gapSensitivity: number;
   failures: number;
@@ -236,6 +239,9 @@ function designDistributed(core: CoreShape, material: CoreMaterial, ctx: SpecCon
     inductanceAtLoad,
     inductanceAtPeak,
     permeabilityAtPeak,
+    // The roll-off curve is the incremental permeability: the flux is its integral, not μ%(H)·H.
+    fluxAtLoad: biasedFlux(turns, op.ioutMax, material.permeability, core.le, material.rollOff),
+    fluxAtPeak: biasedFlux(turns, op.saturationCheckCurrent, material.permeability, core.le, material.rollOff),
     gapSensitivity: 0,
     failures,
     warnings: 0,
@@ -317,6 +323,8 @@ function designAirGap(
     inductanceAtLoad: inductance,
     inductanceAtPeak: inductance,
     permeabilityAtPeak: 1,
+    fluxAtLoad: fluxDensity(inductance, op.ioutMax, turns, core.ae),
+    fluxAtPeak: fluxDensity(inductance, op.saturationCheckCurrent, turns, core.ae),
     gapSensitivity,
     failures,
     warnings,
@@ -386,8 +394,8 @@ export function evaluateCandidate(
   out.acFactor = effectiveAcFactor(wireCtx.sums, dowellLayers);
 
   out.fluxSwing = op.voltSeconds / (n * core.ae);
-  out.fluxDc = fluxDensity(mag.inductanceAtLoad, op.ioutMax, n, core.ae);
-  out.fluxPeak = fluxDensity(mag.inductanceAtPeak, op.saturationCheckCurrent, n, core.ae);
+  out.fluxDc = mag.fluxAtLoad;
+  out.fluxPeak = mag.fluxAtPeak;
   out.fluxPeakLocal = core.amin !== undefined && core.amin < core.ae ? (out.fluxPeak * core.ae) / core.amin : out.fluxPeak;
   // Both densities scale as ΔB^β from their value at ΔB = 1 T, prepared once per material.
   const swingPowBeta = Math.pow(out.fluxSwing, material.beta);
