@@ -1,5 +1,6 @@
 import { availableAreaProduct, availableGeometryConstant, requiredAreaProduct } from './area-product';
 import { HOT_SPOT_ALLOWANCE } from './constants';
+import { cornerRows, type CornerRow } from './corners';
 import { EngineInputError } from './errors';
 import type { ConverterSpec, DesignLimits, EngineIssue } from './inputs';
 import { describeIssues } from './issues';
@@ -122,7 +123,10 @@ export interface EvaluationResult {
     hotSpot: number;
     hotSpotAllowance: number;
     passes: number;
+    /** No steady temperature below the model limit: rise and hot spot are where the model stopped, not a prediction. */
+    runaway: boolean;
   };
+  corners: CornerRow[];
 }
 
 export function assembleResult(
@@ -230,7 +234,9 @@ export function assembleResult(
       hotSpot: f.hotSpot,
       hotSpotAllowance: HOT_SPOT_ALLOWANCE,
       passes: f.thermalPasses,
+      runaway: f.runaway,
     },
+    corners: cornerRows(ctx, material, mag, f),
   };
 }
 
@@ -262,12 +268,25 @@ export function evaluateDesign(input: EvaluateInput): EvaluationResult {
 
 export interface LossAtFrequency {
   frequency: number;
+  /** The part keeps its saturation margin, permeability and temperature limits at this frequency. */
+  feasible: boolean;
   copperDc: number;
   copperAc: number;
   core: number;
   total: number;
   rise: number;
 }
+
+/** The failures that say the built part cannot run at a frequency (not those of the spec or the winding). */
+const SWEEP_LIMITS: ReadonlySet<string> = new Set([
+  'saturation',
+  'permeability-drop',
+  'thermal-runaway',
+  'temperature-rise',
+  'insulation',
+  'material-temperature',
+  'temperature-factor',
+]);
 
 /**
  * The same built part (turns, gap, wire and the inductance it achieved) run at other switching frequencies, for a
@@ -283,10 +302,12 @@ export function lossVersusFrequency(input: EvaluateInput, frequencies: readonly 
         ...input,
         spec: { ...rest, frequency, inductance: base.inductance.minimum },
         turns: base.turns,
+        placement: base.gap.placement,
         gap: input.core.gapKind === 'distributed' ? 'auto' : base.gap.placement === 'spacer' ? base.gap.spacer : base.gap.total,
       });
       points.push({
         frequency,
+        feasible: !result.issues.some((issue) => SWEEP_LIMITS.has(issue.code)),
         copperDc: result.copper.dcLoss,
         copperAc: result.copper.acLoss,
         core: result.coreLoss.loss,

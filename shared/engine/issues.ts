@@ -1,6 +1,6 @@
 // Plain-word issue texts, built only for candidates that are shown to someone.
 import { HOT_SPOT_ALLOWANCE } from './constants';
-import { THERMAL_MODEL_LIMIT } from './thermal';
+import { TEMPERATURE_FACTOR_FLOOR, THERMAL_MODEL_LIMIT } from './thermal';
 import { FAILURE, WARNING, materialTemperatureLimit, type CandidateFigures, type MagneticDesign, type SpecContext } from './kernel';
 import type { EngineIssue } from './inputs';
 import type { CoreMaterial, CoreShape } from './types';
@@ -49,10 +49,18 @@ export function describeIssues({ ctx, core, material, mag, figures: f }: IssueSu
   }
   if (failed(FAILURE.saturation)) {
     const allowed = 1 - limits.saturationMargin;
-    error(
-      'saturation',
-      `Peak flux ${fmt(f.fluxPeakLocal)} T${f.fluxPeakLocal > f.fluxPeak ? ' (in the narrowest section)' : ''} at ${fmt(f.hotSpot, 0)} °C exceeds ${fmt(allowed * 100, 0)} % of Bsat (${fmt(allowed * f.saturationFluxHot)} T of ${fmt(f.saturationFluxHot)} T).`,
-    );
+    const where = f.fluxPeakLocal > f.fluxPeak ? ' (in the narrowest section)' : '';
+    if (f.saturationMargin < limits.saturationMargin) {
+      error(
+        'saturation',
+        `Peak flux ${fmt(f.fluxPeakLocal)} T${where} at ${fmt(f.hotSpot, 0)} °C exceeds ${fmt(allowed * 100, 0)} % of Bsat (${fmt(allowed * f.saturationFluxHot)} T of ${fmt(f.saturationFluxHot)} T).`,
+      );
+    } else {
+      error(
+        'saturation',
+        `At the upper tolerance (+${fmt(limits.inductanceTolerance * 100, 0)} % L) the peak flux is ${fmt(f.fluxPeakHigh)} T${where}; at ${fmt(ctx.hottestAllowed, 0)} °C, the hottest the limits allow, that exceeds ${fmt(allowed * 100, 0)} % of Bsat (${fmt(allowed * f.saturationFluxHottest)} T of ${fmt(f.saturationFluxHottest)} T).`,
+      );
+    }
   }
   if (failed(FAILURE.permeabilityDrop)) {
     error(
@@ -74,25 +82,33 @@ export function describeIssues({ ctx, core, material, mag, figures: f }: IssueSu
   if (failed(FAILURE.thermalRunaway)) {
     error(
       'thermal-runaway',
-      `Thermal runaway: the losses grow with temperature faster than ${core.id} can shed them, so there is no steady temperature below ${THERMAL_MODEL_LIMIT} °C. Losses are shown as at ${THERMAL_MODEL_LIMIT} °C; choose a larger core, fewer turns or a lower-loss material.`,
+      `Thermal runaway: the losses grow with temperature faster than ${core.id} can shed them, so there is no steady temperature below ${THERMAL_MODEL_LIMIT} °C. The rise is shown as ${fmt(f.rise, 0)} K, where the model stops, and the losses as at ${THERMAL_MODEL_LIMIT} °C; choose a larger core, fewer turns or a lower-loss material.`,
     );
   }
   if (failed(FAILURE.temperatureRise)) {
     error(
       'temperature-rise',
-      `Temperature rise ${fmt(f.rise, 1)} K exceeds the ${fmt(limits.maxRise, 0)} K limit (total loss ${fmt(f.totalLoss)} W).`,
+      f.runaway
+        ? `Temperature rise of more than ${fmt(f.rise, 0)} K (thermal runaway) exceeds the ${fmt(limits.maxRise, 0)} K limit.`
+        : `Temperature rise ${fmt(f.rise, 1)} K exceeds the ${fmt(limits.maxRise, 0)} K limit (total loss ${fmt(f.totalLoss)} W).`,
     );
   }
   if (failed(FAILURE.insulation)) {
     error(
       'insulation',
-      `Hot spot ${fmt(f.hotSpot, 0)} °C (surface + ${HOT_SPOT_ALLOWANCE} K) exceeds the insulation class ${fmt(limits.insulationClass, 0)} °C.`,
+      `Hot spot ${f.runaway ? 'above ' : ''}${fmt(f.hotSpot, 0)} °C (surface + ${HOT_SPOT_ALLOWANCE} K) exceeds the insulation class ${fmt(limits.insulationClass, 0)} °C.`,
     );
   }
   if (failed(FAILURE.materialTemperature)) {
     error(
       'material-temperature',
-      `Hot spot ${fmt(f.hotSpot, 0)} °C exceeds the ${material.name} limit of ${fmt(materialTemperatureLimit(material), 0)} °C.`,
+      `Hot spot ${f.runaway ? 'above ' : ''}${fmt(f.hotSpot, 0)} °C exceeds the ${material.name} limit of ${fmt(materialTemperatureLimit(material), 0)} °C.`,
+    );
+  }
+  if (failed(FAILURE.temperatureFactor)) {
+    error(
+      'temperature-factor',
+      `The core-loss temperature factor of ${material.name} (ct2·T² − ct1·T + ct0) is ${fmt(f.rawTemperatureFactor, 3)} at ${fmt(f.coreTemperature, 0)} °C: a loss cannot be zero or negative, so its temperature coefficients are not valid there. The core loss is shown with the factor raised to ${TEMPERATURE_FACTOR_FLOOR}; correct the material.`,
     );
   }
   if (failed(FAILURE.lossBudget)) {

@@ -1,7 +1,16 @@
 // The numeric core shared by evaluateDesign and searchCandidates. Everything that depends only on the spec, a
 // wire, a material or a core × material pair is prepared once; evaluateCandidate then composes the formula modules'
 // functions without allocating.
-import { acCopperLoss, acLossSums, dcCopperLoss, effectiveAcFactor, rippleResistanceWeight, type AcLossSums } from './copper-loss';
+import {
+  AC_TEMPERATURE_NODES,
+  AcTemperatureGrid,
+  acLossSums,
+  acLossTable,
+  dcCopperLoss,
+  rippleWeightNodes,
+  type AcLossSums,
+  type AcLossTable,
+} from './copper-loss';
 import { windingResistance } from './copper';
 import { FRINGING_VALIDITY_LIMIT, HOT_SPOT_ALLOWANCE } from './constants';
 import { fluxInFitRange, frequencyInFitRange, igseTriangleLoss, steinmetzLoss } from './core-loss';
@@ -25,7 +34,7 @@ import { operatingPoint, type OperatingPoint } from './operating-point';
 import { biasedFlux, biasedInductance, permeabilityFraction, powderInductanceFactor, powderTurns } from './powder';
 import { fluxDensity, saturationFlux, saturationMargin } from './saturation';
 import { copperSkinDepth } from './skin-depth';
-import { ThermalSolution, coreVolumeThermalResistance, solveTemperature, type WoundCoreLoss } from './thermal';
+import { THERMAL_MODEL_LIMIT, ThermalSolution, coreVolumeThermalResistance, solveTemperature, type WoundCoreLoss } from './thermal';
 import type { CoreMaterial, CoreShape, GapPlacement, WireOption } from './types';
 import { conductorCopperArea, fitsBuildHeight, layWinding, windowFill } from './winding';
 
@@ -51,6 +60,7 @@ export const FAILURE = {
   lossBudget: 1 << 10,
   thermalRunaway: 1 << 11,
   gapTooSmall: 1 << 12,
+  temperatureFactor: 1 << 13,
 } as const;
 
 export const WARNING = {
@@ -68,11 +78,15 @@ export interface SpecContext {
   op: OperatingPoint;
   harmonics: HarmonicWeights;
   /**
-   * Copper temperature for skin depth and Dowell factors: the hottest the limits allow (ambient + max rise).
-   * Held fixed so one harmonic sum per wire serves every candidate; Rdc itself follows the thermal iteration.
+   * Reference copper temperature (ambient + max rise) of skin depth and each wire's first-harmonic Δ, used to
+   * choose wires. The losses read the AC factor at the part's own temperature from sums prepared on acGrid.
    */
   acTemperature: number;
   skinDepth: number;
+  /** Copper temperatures (ambient … the thermal model limit) at which every wire's harmonic sums are prepared. */
+  acGrid: AcTemperatureGrid;
+  /** Hottest hot spot the limits allow (ambient + max rise + hot-spot allowance): the worst-case saturation corner. */
+  hottestAllowed: number;
 }
 
 export function prepareSpec(spec: ConverterSpec, limits?: Partial<DesignLimits>): SpecContext {
@@ -86,6 +100,8 @@ export function prepareSpec(spec: ConverterSpec, limits?: Partial<DesignLimits>)
     harmonics: harmonicWeights(op.rippleAtVinMax, op.dutyAtVinMax),
     acTemperature,
     skinDepth: copperSkinDepth(spec.frequency, acTemperature),
+    acGrid: new AcTemperatureGrid(acTemperature, resolved.ambient, Math.max(THERMAL_MODEL_LIMIT, resolved.ambient + 1)),
+    hottestAllowed: acTemperature + HOT_SPOT_ALLOWANCE,
   };
 }
 
@@ -97,6 +113,8 @@ export interface WireContext {
   /** Dowell layers per winding layer: 1 for round wire, ≈√strands rows of strands inside a litz bundle. */
   layersPerWindingLayer: number;
   sums: AcLossSums;
+  /** The same sums at each copper temperature of the spec's acGrid. */
+  acTable: AcLossTable;
 }
 
 export function prepareWire(wire: WireOption, ctx: SpecContext): WireContext {
@@ -112,6 +130,7 @@ export function prepareWire(wire: WireOption, ctx: SpecContext): WireContext {
     firstHarmonicDelta,
     layersPerWindingLayer: isLitz ? Math.max(1, Math.round(Math.sqrt(wire.strands))) : 1,
     sums: acLossSums(firstHarmonicDelta, ctx.harmonics),
+    acTable: acLossTable(firstHarmonicDelta, ctx.harmonics, ctx.acGrid),
   };
 }
 
@@ -280,7 +299,23 @@ function designAirGap(
   else if (gapInput !== 'auto')
     turns = spacer ? turnsForSpacer(target, gapInput, geometry, ratio) : turnsForGap(target, gapInput, geometry);
   else {
-    turns = Math.max(turnsForFluxLimit(target, op.saturationCheckCurrent, limits.bMax, core.ae), minimumTurnsUngapped(target, geometry));
+    // The flux limit at nominal L, and saturation margin kept by the upper-tolerance part at the hottest allowed
+    // temperature in the narrowest section (the worst-case corner evaluateCandidate checks).
+    const allowedFlux = saturationFlux(material, ctx.hottestAllowed) * (1 - limits.saturationMargin);
+    const worstCase =
+      allowedFlux > 0
+        ? turnsForFluxLimit(
+            target * (1 + limits.inductanceTolerance),
+            op.saturationCheckCurrent,
+            allowedFlux,
+            Math.min(core.amin ?? core.ae, core.ae),
+          )
+        : 1;
+    turns = Math.max(
+      turnsForFluxLimit(target, op.saturationCheckCurrent, limits.bMax, core.ae),
+      worstCase,
+      minimumTurnsUngapped(target, geometry),
+    );
   }
   // The ground gap, or the spacer thickness.
   let gap: number;
@@ -357,13 +392,31 @@ export class CandidateFigures {
   riseByVolume = 0;
   rise = 0;
   hotSpot = 0;
+  /** The losses outran the cooling: rise and hot spot are where the thermal model stopped (see ThermalSolution). */
+  runaway = false;
+  /** Core temperature of the loss figures and the material's temperature factor there before any floor. */
+  coreTemperature = 0;
+  rawTemperatureFactor = 1;
+  /** Nominal: Bsat at the predicted hot spot and the margin of fluxPeakLocal to it. */
   saturationFluxHot = 0;
   saturationMargin = 0;
+  /** Worst case: the upper-tolerance part's local peak flux, Bsat at the hottest allowed temperature, margin. */
+  fluxPeakHigh = 0;
+  saturationFluxHottest = 0;
+  saturationMarginHigh = 0;
   thermalPasses = 0;
   failures = 0;
   warnings = 0;
   /** Scratch of the loss–temperature iteration, reused so an evaluation allocates nothing. */
-  readonly loss: WoundCoreLoss = { resistance20: 0, weightedCurrentSquare: 0, coreLossReference: 0, temperatureCoefficients: undefined };
+  readonly loss: WoundCoreLoss = {
+    resistance20: 0,
+    dcCurrentSquare: 0,
+    rippleWeights: new Float64Array(AC_TEMPERATURE_NODES),
+    acGrid: undefined,
+    copperAboveSurface: 0,
+    coreLossReference: 0,
+    temperatureCoefficients: undefined,
+  };
   readonly thermal = new ThermalSolution();
 }
 
@@ -390,8 +443,6 @@ export function evaluateCandidate(
 
   out.resistance20 = windingResistance(n, out.meanTurnLength, wireCtx.copperArea, 20);
   const dowellLayers = (Number.isFinite(out.layers) ? out.layers : 1) * wireCtx.layersPerWindingLayer;
-  const rippleWeighted = rippleResistanceWeight(wireCtx.sums, dowellLayers);
-  out.acFactor = effectiveAcFactor(wireCtx.sums, dowellLayers);
 
   out.fluxSwing = op.voltSeconds / (n * core.ae);
   out.fluxDc = mag.fluxAtLoad;
@@ -404,18 +455,27 @@ export function evaluateCandidate(
 
   const loss = out.loss;
   loss.resistance20 = out.resistance20;
-  loss.weightedCurrentSquare = op.ioutMax * op.ioutMax + rippleWeighted;
+  loss.dcCurrentSquare = op.ioutMax * op.ioutMax;
+  rippleWeightNodes(wireCtx.acTable, dowellLayers, loss.rippleWeights);
+  loss.acGrid = ctx.acGrid;
+  loss.copperAboveSurface = HOT_SPOT_ALLOWANCE;
   loss.coreLossReference = out.coreLossDensityIgse * core.ve;
   loss.temperatureCoefficients = material.tempCoefficients;
   const thermal = solveTemperature(limits.ambient, loss, core.surfaceArea, coreCtx.thermalResistanceByVolume, out.thermal);
   if (!thermal.converged) warnings |= WARNING.thermalNotConverged;
   if (thermal.runaway) failures |= FAILURE.thermalRunaway;
+  // A temperature fit that is ≤ 0 where the core works is invalid there; the loss used the floored factor.
+  if (thermal.rawTemperatureFactor <= 0) failures |= FAILURE.temperatureFactor;
   const rise = thermal.rise.design;
+  out.runaway = thermal.runaway;
+  out.coreTemperature = thermal.coreTemperature;
+  out.rawTemperatureFactor = thermal.rawTemperatureFactor;
   out.thermalPasses = thermal.passes;
   out.resistanceHot = thermal.resistance;
   out.temperatureFactor = thermal.temperatureFactor;
+  out.acFactor = thermal.rippleWeight / wireCtx.acTable.meanSquare;
   out.copperLossDc = dcCopperLoss(thermal.resistance, op.ioutMax);
-  out.copperLossAc = acCopperLoss(thermal.resistance, wireCtx.sums, dowellLayers);
+  out.copperLossAc = thermal.resistance * thermal.rippleWeight;
   out.coreLoss = loss.coreLossReference * thermal.temperatureFactor;
   out.totalLoss = thermal.totalLoss;
   out.riseBySurface = thermal.rise.bySurface;
@@ -425,7 +485,13 @@ export function evaluateCandidate(
 
   out.saturationFluxHot = saturationFlux(material, out.hotSpot);
   out.saturationMargin = saturationMargin(out.fluxPeakLocal, out.saturationFluxHot);
-  if (out.saturationMargin < limits.saturationMargin) failures |= FAILURE.saturation;
+  // Worst case: the upper-tolerance inductance (flux ∝ L, or ∝ μi for a powder core) at the hottest allowed temperature.
+  out.fluxPeakHigh = out.fluxPeakLocal * (1 + limits.inductanceTolerance);
+  out.saturationFluxHottest = saturationFlux(material, ctx.hottestAllowed);
+  out.saturationMarginHigh = saturationMargin(out.fluxPeakHigh, out.saturationFluxHottest);
+  if (out.saturationMargin < limits.saturationMargin || out.saturationMarginHigh < limits.saturationMargin) {
+    failures |= FAILURE.saturation;
+  }
   if (mag.kind === 'air-gap' && out.fluxPeak > limits.bMax * (1 + 1e-9)) warnings |= WARNING.fluxAboveLimit;
   if (rise > limits.maxRise) failures |= FAILURE.temperatureRise;
   if (out.hotSpot > limits.insulationClass) failures |= FAILURE.insulation;
