@@ -2,7 +2,6 @@
 // wire, a material or a core × material pair is prepared once; evaluateCandidate then composes the formula modules'
 // functions without allocating.
 import {
-  AC_TEMPERATURE_NODES,
   AcTemperatureGrid,
   acLossSums,
   acLossTable,
@@ -34,7 +33,14 @@ import { operatingPoint, type OperatingPoint } from './operating-point';
 import { biasedFlux, biasedInductance, permeabilityFraction, powderInductanceFactor, powderTurns } from './powder';
 import { fluxDensity, saturationFlux, saturationMargin } from './saturation';
 import { copperSkinDepth } from './skin-depth';
-import { THERMAL_MODEL_LIMIT, ThermalSolution, coreVolumeThermalResistance, solveTemperature, type WoundCoreLoss } from './thermal';
+import {
+  THERMAL_MODEL_LIMIT,
+  ThermalSolution,
+  coreVolumeThermalResistance,
+  emptyWoundCoreLoss,
+  solveTemperature,
+  type WoundCoreLoss,
+} from './thermal';
 import type { CoreMaterial, CoreShape, GapPlacement, WireOption } from './types';
 import { conductorCopperArea, fitsBuildHeight, layWinding, windowFill } from './winding';
 
@@ -408,15 +414,7 @@ export class CandidateFigures {
   failures = 0;
   warnings = 0;
   /** Scratch of the loss–temperature iteration, reused so an evaluation allocates nothing. */
-  readonly loss: WoundCoreLoss = {
-    resistance20: 0,
-    dcCurrentSquare: 0,
-    rippleWeights: new Float64Array(AC_TEMPERATURE_NODES),
-    acGrid: undefined,
-    copperAboveSurface: 0,
-    coreLossReference: 0,
-    temperatureCoefficients: undefined,
-  };
+  readonly loss: WoundCoreLoss = emptyWoundCoreLoss();
   readonly thermal = new ThermalSolution();
 }
 

@@ -1,5 +1,5 @@
 import { copperResistanceRatio } from './copper';
-import { interpolateAtTemperature, type AcTemperatureGrid } from './copper-loss';
+import { AC_TEMPERATURE_NODES, interpolateAtTemperature, type AcTemperatureGrid } from './copper-loss';
 import { coreLossTemperatureFactor, type TemperatureCoefficients } from './core-loss';
 
 /** Surface-dissipation law ΔT = 450·(P/At)^0.826, P in W and At in cm² (At given here in m²). */
@@ -53,6 +53,19 @@ export interface WoundCoreLoss {
   /** Core loss with the temperature factor 1 (W). */
   coreLossReference: number;
   temperatureCoefficients: TemperatureCoefficients | undefined;
+}
+
+/** A WoundCoreLoss with nothing in it, to be filled per evaluation. */
+export function emptyWoundCoreLoss(): WoundCoreLoss {
+  return {
+    resistance20: 0,
+    dcCurrentSquare: 0,
+    rippleWeights: new Float64Array(AC_TEMPERATURE_NODES),
+    acGrid: undefined,
+    copperAboveSurface: 0,
+    coreLossReference: 0,
+    temperatureCoefficients: undefined,
+  };
 }
 
 export class ThermalSolution {

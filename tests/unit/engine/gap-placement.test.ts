@@ -1,21 +1,11 @@
 import { describe, expect, it } from 'vitest';
 import { MU0 } from '@shared/engine/constants';
 import { evaluateDesign, type EvaluateInput } from '@shared/engine/evaluate';
+import { EXAMPLE_SPECS } from '../../support/example-specs';
 import { etd34Like, ferriteA, powderP, powderRing, roundWire } from './fixtures';
 
 // Spec C of issue 13: 36–60 V → 12 V, 10 A, 100 kHz, ripple ratio 0.3, diode 0.6 V, switch 0.3 V, inductor 20 mΩ.
-const specC: EvaluateInput['spec'] = {
-  vinMin: 36,
-  vinMax: 60,
-  vout: 12,
-  ioutMax: 10,
-  frequency: 100e3,
-  rippleRatio: 0.3,
-  rectifier: 'diode',
-  diodeDrop: 0.6,
-  switchDrop: 0.3,
-  inductorResistance: 0.02,
-};
+const specC = EXAMPLE_SPECS.C;
 const base: EvaluateInput = { spec: specC, core: etd34Like, material: ferriteA, turns: 'auto', gap: 'auto', wire: roundWire(1e-3, 3) };
 
 // McLyman, Transformer and Inductor Design Handbook, 3rd ed., Marcel Dekker 2004, ch. 8: F = 1 + (lg/√A)·ln(2G/lg).

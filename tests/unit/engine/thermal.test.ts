@@ -1,12 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import { copperResistanceRatio } from '@shared/engine/copper';
-import { AC_TEMPERATURE_NODES } from '@shared/engine/copper-loss';
 import { coreLossTemperatureFactor } from '@shared/engine/core-loss';
 import {
   TEMPERATURE_FACTOR_FLOOR,
   THERMAL_MODEL_LIMIT,
   ThermalSolution,
   coreVolumeThermalResistance,
+  emptyWoundCoreLoss,
   solveTemperature,
   surfaceDissipationRise,
   type WoundCoreLoss,
@@ -38,16 +38,7 @@ describe('core-volume thermal resistance Rth = 53·Ve^−0.54', () => {
 
 describe('loss ↔ temperature iteration', () => {
   const rthVolume = coreVolumeThermalResistance(7.64e-6);
-  const loss = (over: Partial<WoundCoreLoss>): WoundCoreLoss => ({
-    resistance20: 0,
-    dcCurrentSquare: 0,
-    rippleWeights: new Float64Array(AC_TEMPERATURE_NODES),
-    acGrid: undefined,
-    copperAboveSurface: 0,
-    coreLossReference: 0,
-    temperatureCoefficients: undefined,
-    ...over,
-  });
+  const loss = (over: Partial<WoundCoreLoss>): WoundCoreLoss => ({ ...emptyWoundCoreLoss(), ...over });
 
   it('uses the larger rise of the two laws: the surface law and loss × Rth(Ve)', () => {
     const solution = solveTemperature(40, loss({ coreLossReference: 2 }), 40e-4, rthVolume);
