@@ -111,6 +111,7 @@ export class CalcService {
       material,
       turns: request.turns,
       gap: request.gap,
+      placement: request.placement,
       wire,
     };
     const result = engineCall(() => evaluateDesign(input), 'spec.');

@@ -1,3 +1,5 @@
+import { COPPER_TEMPERATURE_COEFFICIENT } from './constants';
+import { copperResistanceRatio } from './copper';
 import { dowellProximityTerm, dowellSkinTerm, proximityFactor } from './dowell';
 import type { HarmonicWeights } from './harmonics';
 
@@ -54,4 +56,85 @@ export function effectiveAcFactor(sums: AcLossSums, layers: number): number {
 /** Pdc = Rdc·I² (W). */
 export function dcCopperLoss(resistance: number, dcCurrent: number): number {
   return resistance * (dcCurrent * dcCurrent);
+}
+
+/** Temperatures at which a wire's harmonic sums are prepared; four keep the interpolation within 0.1 % (temperatures.test.ts). */
+export const AC_TEMPERATURE_NODES = 4;
+
+/**
+ * Copper temperatures (°C) at which every wire's harmonic sums are prepared once per spec, so the thermal iteration
+ * can read the ripple's AC factor at the copper temperature it reached without summing harmonics again. The nodes
+ * are Chebyshev points in the Δ scale s(T) = Δ(T)/Δ(Tref) = √(ρ(Tref)/ρ(T)) (δ ∝ √ρ), the variable the Dowell terms
+ * depend on smoothly; the values are interpolated by the Lagrange polynomial through them.
+ */
+export class AcTemperatureGrid {
+  readonly temperatures = new Float64Array(AC_TEMPERATURE_NODES);
+  readonly scales = new Float64Array(AC_TEMPERATURE_NODES);
+  /** Π_{j≠i} (s_i − s_j): the Lagrange denominators. */
+  readonly denominators = new Float64Array(AC_TEMPERATURE_NODES);
+  constructor(
+    /** Temperature (°C) at which a wire's first-harmonic Δ is given. */
+    readonly reference: number,
+    readonly low: number,
+    readonly high: number,
+  ) {
+    const scaleLow = deltaScale(reference, low);
+    const scaleHigh = deltaScale(reference, high);
+    for (let i = 0; i < AC_TEMPERATURE_NODES; i++) {
+      const s = (scaleLow + scaleHigh) / 2 + ((scaleLow - scaleHigh) / 2) * Math.cos(((2 * i + 1) * Math.PI) / (2 * AC_TEMPERATURE_NODES));
+      this.scales[i] = s;
+      // s² = ρ(Tref)/ρ(T) → ρ(T)/ρ20 = ratio(Tref)/s², T = 20 + (ratio − 1)/α20
+      this.temperatures[i] = 20 + (copperResistanceRatio(reference) / (s * s) - 1) / COPPER_TEMPERATURE_COEFFICIENT;
+    }
+    for (let i = 0; i < AC_TEMPERATURE_NODES; i++) {
+      let d = 1;
+      for (let j = 0; j < AC_TEMPERATURE_NODES; j++) if (j !== i) d *= this.scales[i]! - this.scales[j]!;
+      this.denominators[i] = d;
+    }
+  }
+}
+
+/** Δ(T)/Δ(Tref) = √(ρ(Tref)/ρ(T)): skin depth grows as √ρ. */
+export function deltaScale(reference: number, temperature: number): number {
+  return Math.sqrt(copperResistanceRatio(reference) / copperResistanceRatio(temperature));
+}
+
+/** A wire's skin and proximity sums at each node of an AcTemperatureGrid. */
+export interface AcLossTable {
+  skin: Float64Array;
+  proximity: Float64Array;
+  /** Σ I_n²/2 (independent of temperature). */
+  meanSquare: number;
+}
+
+export function acLossTable(deltaAtReference: number, weights: HarmonicWeights, grid: AcTemperatureGrid): AcLossTable {
+  const skin = new Float64Array(AC_TEMPERATURE_NODES);
+  const proximity = new Float64Array(AC_TEMPERATURE_NODES);
+  let meanSquare = 0;
+  for (let i = 0; i < AC_TEMPERATURE_NODES; i++) {
+    const sums = acLossSums(deltaAtReference * grid.scales[i]!, weights);
+    skin[i] = sums.skin;
+    proximity[i] = sums.proximity;
+    meanSquare = sums.meanSquare;
+  }
+  return { skin, proximity, meanSquare };
+}
+
+/** Σ Fr·I_n²/2 for `layers` at every node, written into `out` (length AC_TEMPERATURE_NODES). */
+export function rippleWeightNodes(table: AcLossTable, layers: number, out: Float64Array): void {
+  const p = proximityFactor(layers);
+  for (let i = 0; i < AC_TEMPERATURE_NODES; i++) out[i] = table.skin[i]! + p * table.proximity[i]!;
+}
+
+/** The node values interpolated at a copper temperature (clamped to the grid's range). */
+export function interpolateAtTemperature(grid: AcTemperatureGrid, nodeValues: Float64Array, temperature: number): number {
+  const t = temperature < grid.low ? grid.low : temperature > grid.high ? grid.high : temperature;
+  const s = deltaScale(grid.reference, t);
+  let value = 0;
+  for (let i = 0; i < AC_TEMPERATURE_NODES; i++) {
+    let l = nodeValues[i]! / grid.denominators[i]!;
+    for (let j = 0; j < AC_TEMPERATURE_NODES; j++) if (j !== i) l *= s - grid.scales[j]!;
+    value += l;
+  }
+  return value;
 }

@@ -1,5 +1,6 @@
 import { availableAreaProduct, availableGeometryConstant, requiredAreaProduct } from './area-product';
 import { HOT_SPOT_ALLOWANCE } from './constants';
+import { cornerRows, type CornerRow } from './corners';
 import { EngineInputError } from './errors';
 import type { ConverterSpec, DesignLimits, EngineIssue } from './inputs';
 import { describeIssues } from './issues';
@@ -17,7 +18,7 @@ import {
   type WireContext,
 } from './kernel';
 import type { OperatingPoint } from './operating-point';
-import type { CoreFamily, CoreMaterial, CoreShape, GapKind, MaterialFamily, WireKind, WireOption } from './types';
+import type { CoreFamily, CoreMaterial, CoreShape, GapKind, GapPlacement, MaterialFamily, WireKind, WireOption } from './types';
 
 export interface EvaluateInput {
   spec: ConverterSpec;
@@ -25,8 +26,10 @@ export interface EvaluateInput {
   core: CoreShape;
   material: CoreMaterial;
   turns: TurnsInput;
-  /** Total gap in the magnetic path (m), or 'auto'; ignored for distributed-gap cores. */
+  /** Ground gap (placement 'ground') or spacer thickness ('spacer') in m, or 'auto'; ignored for distributed-gap cores. */
   gap: TurnsInput;
+  /** Where the gap is made (default 'ground'). */
+  placement?: GapPlacement;
   wire: WireOption;
 }
 
@@ -51,13 +54,16 @@ export interface EvaluationResult {
   wire: { id: string; kind: WireKind; strandDiameter: number; strands: number; copperArea: number; currentDensity: number };
   turns: number;
   gap: {
-    /** Total gap in the path (m); 0 for distributed-gap cores. */
+    placement: GapPlacement;
+    /** Sum of the gap lengths in the path (m): the ground gap, or twice the spacer; 0 for distributed-gap cores. */
     total: number;
-    /** Spacer thickness for a spacer gap across all legs (m). */
+    /** Spacer thickness under all legs (m): this design's spacer, or the alternative giving the same L. */
     spacer: number;
     fringingFactor: number;
-    /** lg/√Ae; the fringing formula is trusted below 0.3. */
+    /** Largest t/√A over the gaps; the fringing formula is trusted below 0.3. */
     relativeToCore: number;
+    /** ΔL/L for 10 µm more ground gap (or spacer); 0 for distributed-gap cores. */
+    sensitivity10um: number;
   };
   inductanceFactor: { withoutFringing: number; withFringing: number };
   inductance: {
@@ -117,7 +123,10 @@ export interface EvaluationResult {
     hotSpot: number;
     hotSpotAllowance: number;
     passes: number;
+    /** No steady temperature below the model limit: rise and hot spot are where the model stopped, not a prediction. */
+    runaway: boolean;
   };
+  corners: CornerRow[];
 }
 
 export function assembleResult(
@@ -164,10 +173,12 @@ export function assembleResult(
     },
     turns: mag.turns,
     gap: {
+      placement: mag.placement,
       total: mag.totalGap,
       spacer: mag.spacer,
       fringingFactor: mag.fringingFactor,
-      relativeToCore: mag.totalGap / Math.sqrt(core.ae),
+      relativeToCore: mag.relativeGap,
+      sensitivity10um: mag.gapSensitivity,
     },
     inductanceFactor: { withoutFringing: mag.inductanceFactorWithoutFringing, withFringing: mag.inductanceFactor },
     inductance: {
@@ -223,7 +234,9 @@ export function assembleResult(
       hotSpot: f.hotSpot,
       hotSpotAllowance: HOT_SPOT_ALLOWANCE,
       passes: f.thermalPasses,
+      runaway: f.runaway,
     },
+    corners: cornerRows(ctx, material, mag, f),
   };
 }
 
@@ -246,7 +259,7 @@ function checkExplicitInputs(input: EvaluateInput): void {
 export function evaluateDesign(input: EvaluateInput): EvaluationResult {
   checkExplicitInputs(input);
   const ctx = prepareSpec(input.spec, input.limits);
-  const mag = designMagnetics(input.core, input.material, ctx, input.turns, input.gap);
+  const mag = designMagnetics(input.core, input.material, ctx, input.turns, input.gap, input.placement);
   const wireCtx = prepareWire(input.wire, ctx);
   const figures = new CandidateFigures();
   evaluateCandidate(ctx, prepareCore(input.core), prepareMaterial(input.material, ctx), mag, wireCtx, figures);
@@ -255,12 +268,25 @@ export function evaluateDesign(input: EvaluateInput): EvaluationResult {
 
 export interface LossAtFrequency {
   frequency: number;
+  /** The part keeps its saturation margin, permeability and temperature limits at this frequency. */
+  feasible: boolean;
   copperDc: number;
   copperAc: number;
   core: number;
   total: number;
   rise: number;
 }
+
+/** The failures that say the built part cannot run at a frequency (not those of the spec or the winding). */
+const SWEEP_LIMITS: ReadonlySet<string> = new Set([
+  'saturation',
+  'permeability-drop',
+  'thermal-runaway',
+  'temperature-rise',
+  'insulation',
+  'material-temperature',
+  'temperature-factor',
+]);
 
 /**
  * The same built part (turns, gap, wire and the inductance it achieved) run at other switching frequencies, for a
@@ -276,10 +302,12 @@ export function lossVersusFrequency(input: EvaluateInput, frequencies: readonly 
         ...input,
         spec: { ...rest, frequency, inductance: base.inductance.minimum },
         turns: base.turns,
-        gap: input.core.gapKind === 'distributed' ? 'auto' : base.gap.total,
+        placement: base.gap.placement,
+        gap: input.core.gapKind === 'distributed' ? 'auto' : base.gap.placement === 'spacer' ? base.gap.spacer : base.gap.total,
       });
       points.push({
         frequency,
+        feasible: !result.issues.some((issue) => SWEEP_LIMITS.has(issue.code)),
         copperDc: result.copper.dcLoss,
         copperAc: result.copper.acLoss,
         core: result.coreLoss.loss,

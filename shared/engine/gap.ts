@@ -43,11 +43,6 @@ export function gappedInductanceFactor(
   return gappedInductance(1, gap, area, pathLength, permeability, windowHeight, withFringing);
 }
 
-/** Spacer thickness giving total gap lg when the flux crosses the centre and outer legs in series. */
-export function spacerThickness(totalGap: number, centreToOuterLegAreaRatio = 1): number {
-  return totalGap / (1 + centreToOuterLegAreaRatio);
-}
-
 export interface GapGeometry {
   area: number;
   pathLength: number;
@@ -100,4 +95,56 @@ export function minimumTurnsUngapped(inductance: number, g: GapGeometry): number
 
 export function fringingOutOfRange(gap: number, area: number): boolean {
   return gap / Math.sqrt(area) > FRINGING_VALIDITY_LIMIT;
+}
+
+/**
+ * A spacer of thickness t under all legs makes two gaps in series: t across the centre leg (area Ae) and t across
+ * the outer legs (together Ao = Ae/(Ac/Ao)). Each gap's permeance is enlarged by McLyman's fringing factor of its
+ * own leg area, F(t, A) = 1 + (t/√A)·ln(2G/t) (Transformer and Inductor Design Handbook, 3rd ed., ch. 8); the core
+ * path keeps le/(μr·Ae). Returns ΣR·μ0 in 1/m: L = μ0·N²/(that).
+ */
+function spacerReluctanceLength(spacer: number, g: GapGeometry, centreToOuterLegAreaRatio: number): number {
+  const outer = g.area / centreToOuterLegAreaRatio;
+  const t = Math.max(spacer, 0);
+  const core = g.pathLength / (g.permeability * g.area);
+  if (t === 0) return core;
+  return core + t / (g.area * fringingFactor(t, g.area, g.windowHeight)) + t / (outer * fringingFactor(t, outer, g.windowHeight));
+}
+
+/** L of N turns with a spacer t under all legs (two fringing gaps in series, see spacerReluctanceLength). */
+export function spacerInductance(turns: number, spacer: number, g: GapGeometry, centreToOuterLegAreaRatio = 1): number {
+  return (MU0 * turns * turns) / spacerReluctanceLength(spacer, g, centreToOuterLegAreaRatio);
+}
+
+/** The same without fringing: t·(1/Ae + 1/Ao) is an equivalent single gap of t·(1 + Ac/Ao) across Ae. */
+export function spacerEquivalentGap(spacer: number, centreToOuterLegAreaRatio = 1): number {
+  return spacer * (1 + centreToOuterLegAreaRatio);
+}
+
+const SPACER_MAX_STEPS = 200;
+
+/**
+ * Spacer thickness giving L with N turns. L(t) falls monotonically (t/F(t) rises: its derivative is
+ * (1 + t/√A)/F² > 0), so bisection between the unfringed thickness and a bracket doubled until L falls below the
+ * target converges; at most SPACER_MAX_STEPS halvings. Negative: the ungapped core cannot reach L with N turns.
+ */
+export function spacerForInductance(turns: number, inductance: number, g: GapGeometry, centreToOuterLegAreaRatio = 1): number {
+  const unfringed = gapWithoutFringing(turns, inductance, g.area, g.pathLength, g.permeability) / (1 + centreToOuterLegAreaRatio);
+  if (unfringed <= 0) return unfringed;
+  const excess = (t: number) => spacerInductance(turns, t, g, centreToOuterLegAreaRatio) - inductance;
+  let low = unfringed;
+  let high = unfringed * 2;
+  for (let i = 0; i < 60 && excess(high) > 0; i++) high *= 2;
+  for (let i = 0; i < SPACER_MAX_STEPS && high - low > GAP_TOLERANCE * high; i++) {
+    const mid = (low + high) / 2;
+    if (excess(mid) > 0) low = mid;
+    else high = mid;
+  }
+  return (low + high) / 2;
+}
+
+/** Turns for a given spacer: N = sqrt(L·ΣR/μ0), rounded up. */
+export function turnsForSpacer(inductance: number, spacer: number, g: GapGeometry, centreToOuterLegAreaRatio = 1): number {
+  const exact = Math.sqrt((inductance * spacerReluctanceLength(spacer, g, centreToOuterLegAreaRatio)) / MU0);
+  return Math.max(1, Math.ceil(exact - 1e-9));
 }

@@ -5,6 +5,7 @@ export * from './constants';
 export * from './copper';
 export * from './copper-loss';
 export * from './core-loss';
+export * from './corners';
 export * from './dowell';
 export * from './errors';
 export * from './evaluate';

@@ -44,6 +44,8 @@ export interface DesignLimits {
   maxStrands: number;
   /** Smallest allowed L(Ipk)/L0 of a powder core. */
   minPermeabilityAtPeak: number;
+  /** Smallest ground gap or spacer a workshop can hold (m); distributed-gap cores are exempt. */
+  minGap: number;
   allowedFamilies?: readonly string[];
   allowedMaterials?: readonly string[];
 }
@@ -59,6 +61,8 @@ export const DEFAULT_LIMITS: DesignLimits = {
   insulationClass: 130,
   maxStrands: 8,
   minPermeabilityAtPeak: 0.5,
+  // Below about 50 µm a ground gap is lost in grinding tolerance and mating-face roughness (common practice, no source).
+  minGap: 50e-6,
 };
 
 export function resolveLimits(limits: Partial<DesignLimits> | undefined): DesignLimits {

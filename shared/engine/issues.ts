@@ -1,6 +1,6 @@
 // Plain-word issue texts, built only for candidates that are shown to someone.
 import { HOT_SPOT_ALLOWANCE } from './constants';
-import { THERMAL_MODEL_LIMIT } from './thermal';
+import { TEMPERATURE_FACTOR_FLOOR, THERMAL_MODEL_LIMIT } from './thermal';
 import { FAILURE, WARNING, materialTemperatureLimit, type CandidateFigures, type MagneticDesign, type SpecContext } from './kernel';
 import type { EngineIssue } from './inputs';
 import type { CoreMaterial, CoreShape } from './types';
@@ -8,6 +8,9 @@ import type { CoreMaterial, CoreShape } from './types';
 const fmt = (value: number, digits = 2) => (Number.isFinite(value) ? value.toFixed(digits) : '∞');
 const mm = (metres: number) => fmt(metres * 1e3, 2);
 const uH = (henry: number) => fmt(henry * 1e6, 2);
+
+const gapName = (mag: MagneticDesign) => (mag.placement === 'spacer' ? 'Spacer' : 'Ground gap');
+const gapLength = (mag: MagneticDesign) => (mag.placement === 'spacer' ? mag.spacer : mag.totalGap);
 
 export interface IssueSubject {
   ctx: SpecContext;
@@ -46,10 +49,18 @@ export function describeIssues({ ctx, core, material, mag, figures: f }: IssueSu
   }
   if (failed(FAILURE.saturation)) {
     const allowed = 1 - limits.saturationMargin;
-    error(
-      'saturation',
-      `Peak flux ${fmt(f.fluxPeakLocal)} T${f.fluxPeakLocal > f.fluxPeak ? ' (in the narrowest section)' : ''} at ${fmt(f.hotSpot, 0)} °C exceeds ${fmt(allowed * 100, 0)} % of Bsat (${fmt(allowed * f.saturationFluxHot)} T of ${fmt(f.saturationFluxHot)} T).`,
-    );
+    const where = f.fluxPeakLocal > f.fluxPeak ? ' (in the narrowest section)' : '';
+    if (f.saturationMargin < limits.saturationMargin) {
+      error(
+        'saturation',
+        `Peak flux ${fmt(f.fluxPeakLocal)} T${where} at ${fmt(f.hotSpot, 0)} °C exceeds ${fmt(allowed * 100, 0)} % of Bsat (${fmt(allowed * f.saturationFluxHot)} T of ${fmt(f.saturationFluxHot)} T).`,
+      );
+    } else {
+      error(
+        'saturation',
+        `At the upper tolerance (+${fmt(limits.inductanceTolerance * 100, 0)} % L) the peak flux is ${fmt(f.fluxPeakHigh)} T${where}; at ${fmt(ctx.hottestAllowed, 0)} °C, the hottest the limits allow, that exceeds ${fmt(allowed * 100, 0)} % of Bsat (${fmt(allowed * f.saturationFluxHottest)} T of ${fmt(f.saturationFluxHottest)} T).`,
+      );
+    }
   }
   if (failed(FAILURE.permeabilityDrop)) {
     error(
@@ -71,34 +82,54 @@ export function describeIssues({ ctx, core, material, mag, figures: f }: IssueSu
   if (failed(FAILURE.thermalRunaway)) {
     error(
       'thermal-runaway',
-      `Thermal runaway: the losses grow with temperature faster than ${core.id} can shed them, so there is no steady temperature below ${THERMAL_MODEL_LIMIT} °C. Losses are shown as at ${THERMAL_MODEL_LIMIT} °C; choose a larger core, fewer turns or a lower-loss material.`,
+      `Thermal runaway: the losses grow with temperature faster than ${core.id} can shed them, so there is no steady temperature below ${THERMAL_MODEL_LIMIT} °C. The rise is shown as ${fmt(f.rise, 0)} K, where the model stops, and the losses as at ${THERMAL_MODEL_LIMIT} °C; choose a larger core, fewer turns or a lower-loss material.`,
     );
   }
   if (failed(FAILURE.temperatureRise)) {
     error(
       'temperature-rise',
-      `Temperature rise ${fmt(f.rise, 1)} K exceeds the ${fmt(limits.maxRise, 0)} K limit (total loss ${fmt(f.totalLoss)} W).`,
+      f.runaway
+        ? `Temperature rise of more than ${fmt(f.rise, 0)} K (thermal runaway) exceeds the ${fmt(limits.maxRise, 0)} K limit.`
+        : `Temperature rise ${fmt(f.rise, 1)} K exceeds the ${fmt(limits.maxRise, 0)} K limit (total loss ${fmt(f.totalLoss)} W).`,
     );
   }
   if (failed(FAILURE.insulation)) {
     error(
       'insulation',
-      `Hot spot ${fmt(f.hotSpot, 0)} °C (surface + ${HOT_SPOT_ALLOWANCE} K) exceeds the insulation class ${fmt(limits.insulationClass, 0)} °C.`,
+      `Hot spot ${f.runaway ? 'above ' : ''}${fmt(f.hotSpot, 0)} °C (surface + ${HOT_SPOT_ALLOWANCE} K) exceeds the insulation class ${fmt(limits.insulationClass, 0)} °C.`,
     );
   }
   if (failed(FAILURE.materialTemperature)) {
     error(
       'material-temperature',
-      `Hot spot ${fmt(f.hotSpot, 0)} °C exceeds the ${material.name} limit of ${fmt(materialTemperatureLimit(material), 0)} °C.`,
+      `Hot spot ${f.runaway ? 'above ' : ''}${fmt(f.hotSpot, 0)} °C exceeds the ${material.name} limit of ${fmt(materialTemperatureLimit(material), 0)} °C.`,
+    );
+  }
+  if (failed(FAILURE.temperatureFactor)) {
+    error(
+      'temperature-factor',
+      `The core-loss temperature factor of ${material.name} (ct2·T² − ct1·T + ct0) is ${fmt(f.rawTemperatureFactor, 3)} at ${fmt(f.coreTemperature, 0)} °C: a loss cannot be zero or negative, so its temperature coefficients are not valid there. The core loss is shown with the factor raised to ${TEMPERATURE_FACTOR_FLOOR}; correct the material.`,
     );
   }
   if (failed(FAILURE.lossBudget)) {
     error('loss-budget', `Total loss ${fmt(f.totalLoss)} W exceeds the budget of ${fmt(limits.lossBudget ?? 0)} W.`);
   }
+  if (failed(FAILURE.gapTooSmall)) {
+    error(
+      'gap-too-small',
+      `${gapName(mag)} of ${fmt(gapLength(mag) * 1e6, 1)} µm is below the ${fmt(limits.minGap * 1e6, 0)} µm a workshop can hold: use fewer turns, a lower-permeability material or another core.`,
+    );
+  }
   if (warned(WARNING.fringingRange)) {
     warning(
       'fringing-range',
-      `Gap ${mm(mag.totalGap)} mm is ${fmt(mag.totalGap / Math.sqrt(core.ae))}·√Ae: the fringing formula is only trusted below 0.3·√Ae.`,
+      `${gapName(mag)} of ${mm(gapLength(mag))} mm is ${fmt(mag.relativeGap)}·√A of its leg: the fringing formula is only trusted below 0.3·√A.`,
+    );
+  }
+  if (warned(WARNING.gapSensitive)) {
+    warning(
+      'gap-sensitive',
+      `10 µm more ${mag.placement === 'spacer' ? 'spacer' : 'gap'} changes the inductance by ${fmt(mag.gapSensitivity * 100, 1)} %: the part is hard to build to its tolerance.`,
     );
   }
   if (warned(WARNING.fluxAboveLimit)) {

@@ -1,31 +1,47 @@
 // The numeric core shared by evaluateDesign and searchCandidates. Everything that depends only on the spec, a
 // wire, a material or a core × material pair is prepared once; evaluateCandidate then composes the formula modules'
 // functions without allocating.
-import { acCopperLoss, acLossSums, dcCopperLoss, effectiveAcFactor, rippleResistanceWeight, type AcLossSums } from './copper-loss';
+import {
+  AcTemperatureGrid,
+  acLossSums,
+  acLossTable,
+  dcCopperLoss,
+  rippleWeightNodes,
+  type AcLossSums,
+  type AcLossTable,
+} from './copper-loss';
 import { windingResistance } from './copper';
-import { HOT_SPOT_ALLOWANCE } from './constants';
+import { FRINGING_VALIDITY_LIMIT, HOT_SPOT_ALLOWANCE } from './constants';
 import { fluxInFitRange, frequencyInFitRange, igseTriangleLoss, steinmetzLoss } from './core-loss';
 import { roundWireDelta } from './dowell';
 import {
-  fringingOutOfRange,
-  fringingFactor,
   gappedInductance,
   gappedInductanceFactor,
   gapWithFringing,
   minimumTurnsUngapped,
-  spacerThickness,
+  spacerEquivalentGap,
+  spacerForInductance,
+  spacerInductance,
   turnsForFluxLimit,
   turnsForGap,
+  turnsForSpacer,
   type GapGeometry,
 } from './gap';
 import { harmonicWeights, type HarmonicWeights } from './harmonics';
 import { resolveLimits, type ConverterSpec, type DesignLimits } from './inputs';
 import { operatingPoint, type OperatingPoint } from './operating-point';
-import { biasedInductance, permeabilityFraction, powderInductanceFactor, powderTurns } from './powder';
+import { biasedFlux, biasedInductance, permeabilityFraction, powderInductanceFactor, powderTurns } from './powder';
 import { fluxDensity, saturationFlux, saturationMargin } from './saturation';
 import { copperSkinDepth } from './skin-depth';
-import { ThermalSolution, coreVolumeThermalResistance, solveTemperature, type WoundCoreLoss } from './thermal';
-import type { CoreMaterial, CoreShape, WireOption } from './types';
+import {
+  THERMAL_MODEL_LIMIT,
+  ThermalSolution,
+  coreVolumeThermalResistance,
+  emptyWoundCoreLoss,
+  solveTemperature,
+  type WoundCoreLoss,
+} from './thermal';
+import type { CoreMaterial, CoreShape, GapPlacement, WireOption } from './types';
 import { conductorCopperArea, fitsBuildHeight, layWinding, windowFill } from './winding';
 
 /** Ferrite without a stated limit: Curie temperature typically ≥ 200 °C (common practice, no source). */
@@ -49,6 +65,8 @@ export const FAILURE = {
   materialTemperature: 1 << 9,
   lossBudget: 1 << 10,
   thermalRunaway: 1 << 11,
+  gapTooSmall: 1 << 12,
+  temperatureFactor: 1 << 13,
 } as const;
 
 export const WARNING = {
@@ -57,6 +75,7 @@ export const WARNING = {
   fluxFit: 1 << 2,
   thermalNotConverged: 1 << 3,
   fluxAboveLimit: 1 << 4,
+  gapSensitive: 1 << 5,
 } as const;
 
 export interface SpecContext {
@@ -65,11 +84,15 @@ export interface SpecContext {
   op: OperatingPoint;
   harmonics: HarmonicWeights;
   /**
-   * Copper temperature for skin depth and Dowell factors: the hottest the limits allow (ambient + max rise).
-   * Held fixed so one harmonic sum per wire serves every candidate; Rdc itself follows the thermal iteration.
+   * Reference copper temperature (ambient + max rise) of skin depth and each wire's first-harmonic Δ, used to
+   * choose wires. The losses read the AC factor at the part's own temperature from sums prepared on acGrid.
    */
   acTemperature: number;
   skinDepth: number;
+  /** Copper temperatures (ambient … the thermal model limit) at which every wire's harmonic sums are prepared. */
+  acGrid: AcTemperatureGrid;
+  /** Hottest hot spot the limits allow (ambient + max rise + hot-spot allowance): the worst-case saturation corner. */
+  hottestAllowed: number;
 }
 
 export function prepareSpec(spec: ConverterSpec, limits?: Partial<DesignLimits>): SpecContext {
@@ -83,6 +106,8 @@ export function prepareSpec(spec: ConverterSpec, limits?: Partial<DesignLimits>)
     harmonics: harmonicWeights(op.rippleAtVinMax, op.dutyAtVinMax),
     acTemperature,
     skinDepth: copperSkinDepth(spec.frequency, acTemperature),
+    acGrid: new AcTemperatureGrid(acTemperature, resolved.ambient, Math.max(THERMAL_MODEL_LIMIT, resolved.ambient + 1)),
+    hottestAllowed: acTemperature + HOT_SPOT_ALLOWANCE,
   };
 }
 
@@ -94,6 +119,8 @@ export interface WireContext {
   /** Dowell layers per winding layer: 1 for round wire, ≈√strands rows of strands inside a litz bundle. */
   layersPerWindingLayer: number;
   sums: AcLossSums;
+  /** The same sums at each copper temperature of the spec's acGrid. */
+  acTable: AcLossTable;
 }
 
 export function prepareWire(wire: WireOption, ctx: SpecContext): WireContext {
@@ -109,6 +136,7 @@ export function prepareWire(wire: WireOption, ctx: SpecContext): WireContext {
     firstHarmonicDelta,
     layersPerWindingLayer: isLitz ? Math.max(1, Math.round(Math.sqrt(wire.strands))) : 1,
     sums: acLossSums(firstHarmonicDelta, ctx.harmonics),
+    acTable: acLossTable(firstHarmonicDelta, ctx.harmonics, ctx.acGrid),
   };
 }
 
@@ -143,9 +171,16 @@ export function prepareCore(core: CoreShape): CoreContext {
 /** Turns, gap and inductance of one core × material, independent of the wire. */
 export interface MagneticDesign {
   kind: 'air-gap' | 'distributed';
+  /** Where the gap is made; 'ground' for distributed-gap cores, which have none. */
+  placement: GapPlacement;
   turns: number;
+  /** Sum of the gap lengths the flux crosses: the ground gap, or twice the spacer (centre and outer legs). */
   totalGap: number;
+  /** Spacer thickness: the design's own spacer, or for a ground gap the spacer that gives the same inductance. */
   spacer: number;
+  /** Largest t/√A over the gaps (the fringing formula is trusted below 0.3). */
+  relativeGap: number;
+  /** Effective fringing factor: L with fringing over L without. */
   fringingFactor: number;
   inductanceFactorWithoutFringing: number;
   inductanceFactor: number;
@@ -155,11 +190,21 @@ export interface MagneticDesign {
   inductanceAtPeak: number;
   /** L(peak)/L(0). */
   permeabilityAtPeak: number;
+  /** Nominal core flux density at full load and at the saturation-check current (T). */
+  fluxAtLoad: number;
+  fluxAtPeak: number;
+  /** ΔL/L for 10 µm more gap (ground) or spacer; 0 for distributed-gap cores. Negative: L falls. */
+  gapSensitivity: number;
   failures: number;
   warnings: number;
 }
 
 export type TurnsInput = number | 'auto';
+
+/** Gap step of the sensitivity figure: what a grinder or a spacer foil may be off by (common practice, no source). */
+export const GAP_SENSITIVITY_STEP = 10e-6;
+/** |ΔL/L| for one sensitivity step above which the part is flagged as hard to build to tolerance (common practice, no source). */
+export const GAP_SENSITIVITY_LIMIT = 0.1;
 
 /** Most turns whose copper (Irms/J each) fits the usable window. */
 export function windowTurnLimit(core: CoreShape, ctx: SpecContext): number {
@@ -167,16 +212,21 @@ export function windowTurnLimit(core: CoreShape, ctx: SpecContext): number {
   return Math.max(1, Math.floor((ctx.limits.windowUtilisation * core.windowArea) / perTurn));
 }
 
+/**
+ * Turns and gap of one core × material. For air-gap cores `gapInput` is the ground gap (placement 'ground') or the
+ * spacer thickness (placement 'spacer'); distributed-gap cores ignore both.
+ */
 export function designMagnetics(
   core: CoreShape,
   material: CoreMaterial,
   ctx: SpecContext,
   turnsInput: TurnsInput = 'auto',
   gapInput: TurnsInput = 'auto',
+  placement: GapPlacement = 'ground',
 ): MagneticDesign {
   return core.gapKind === 'distributed'
     ? designDistributed(core, material, ctx, turnsInput)
-    : designAirGap(core, material, ctx, turnsInput, gapInput);
+    : designAirGap(core, material, ctx, turnsInput, gapInput, placement);
 }
 
 function designDistributed(core: CoreShape, material: CoreMaterial, ctx: SpecContext, turnsInput: TurnsInput): MagneticDesign {
@@ -202,9 +252,11 @@ function designDistributed(core: CoreShape, material: CoreMaterial, ctx: SpecCon
   if (permeabilityAtPeak < limits.minPermeabilityAtPeak) failures |= FAILURE.permeabilityDrop;
   return {
     kind: 'distributed',
+    placement: 'ground',
     turns,
     totalGap: 0,
     spacer: 0,
+    relativeGap: 0,
     fringingFactor: 1,
     inductanceFactorWithoutFringing: al,
     inductanceFactor: al,
@@ -212,9 +264,20 @@ function designDistributed(core: CoreShape, material: CoreMaterial, ctx: SpecCon
     inductanceAtLoad,
     inductanceAtPeak,
     permeabilityAtPeak,
+    // The roll-off curve is the incremental permeability: the flux is its integral, not μ%(H)·H.
+    fluxAtLoad: biasedFlux(turns, op.ioutMax, material.permeability, core.le, material.rollOff),
+    fluxAtPeak: biasedFlux(turns, op.saturationCheckCurrent, material.permeability, core.le, material.rollOff),
+    gapSensitivity: 0,
     failures,
     warnings: 0,
   };
+}
+
+/** L of an air-gap core: one fringing ground gap across Ae, or a spacer's two fringing gaps in series. */
+function airGapInductance(turns: number, gap: number, placement: GapPlacement, g: GapGeometry, ratio: number): number {
+  return placement === 'spacer'
+    ? spacerInductance(turns, gap, g, ratio)
+    : gappedInductance(turns, gap, g.area, g.pathLength, g.permeability, g.windowHeight);
 }
 
 function designAirGap(
@@ -223,6 +286,7 @@ function designAirGap(
   ctx: SpecContext,
   turnsInput: TurnsInput,
   gapInput: TurnsInput,
+  placement: GapPlacement,
 ): MagneticDesign {
   const { op, limits } = ctx;
   const target = op.inductanceNominal;
@@ -232,39 +296,77 @@ function designAirGap(
     windowHeight: core.windowHeight,
     permeability: material.permeability,
   };
+  const ratio = core.centreToOuterLegAreaRatio ?? 1;
+  const spacer = placement === 'spacer';
   let failures = 0;
   let warnings = 0;
   let turns: number;
   if (turnsInput !== 'auto') turns = turnsInput;
-  else if (gapInput !== 'auto') turns = turnsForGap(target, gapInput, geometry);
+  else if (gapInput !== 'auto')
+    turns = spacer ? turnsForSpacer(target, gapInput, geometry, ratio) : turnsForGap(target, gapInput, geometry);
   else {
-    turns = Math.max(turnsForFluxLimit(target, op.saturationCheckCurrent, limits.bMax, core.ae), minimumTurnsUngapped(target, geometry));
+    // The flux limit at nominal L, and saturation margin kept by the upper-tolerance part at the hottest allowed
+    // temperature in the narrowest section (the worst-case corner evaluateCandidate checks).
+    const allowedFlux = saturationFlux(material, ctx.hottestAllowed) * (1 - limits.saturationMargin);
+    const worstCase =
+      allowedFlux > 0
+        ? turnsForFluxLimit(
+            target * (1 + limits.inductanceTolerance),
+            op.saturationCheckCurrent,
+            allowedFlux,
+            Math.min(core.amin ?? core.ae, core.ae),
+          )
+        : 1;
+    turns = Math.max(
+      turnsForFluxLimit(target, op.saturationCheckCurrent, limits.bMax, core.ae),
+      worstCase,
+      minimumTurnsUngapped(target, geometry),
+    );
   }
+  // The ground gap, or the spacer thickness.
   let gap: number;
   if (gapInput !== 'auto') gap = gapInput;
   else {
-    gap = gapWithFringing(turns, target, geometry);
+    gap = spacer ? spacerForInductance(turns, target, geometry, ratio) : gapWithFringing(turns, target, geometry);
     if (gap < 0) {
       failures |= FAILURE.negativeGap;
       gap = 0;
     }
   }
-  const inductance = gappedInductance(turns, gap, core.ae, core.le, material.permeability, core.windowHeight);
+  const inductance = airGapInductance(turns, gap, placement, geometry, ratio);
   if (inductance * (1 - limits.inductanceTolerance) < op.inductanceMin * (1 - 1e-6)) failures |= FAILURE.inductanceShort;
-  if (fringingOutOfRange(gap, core.ae)) warnings |= WARNING.fringingRange;
-  const fringing = fringingFactor(gap, core.ae, core.windowHeight);
+  // An exactly zero gap is an ungapped set (nothing to grind); any other gap must be one a workshop can hold.
+  if (gap > 0 && gap < limits.minGap) failures |= FAILURE.gapTooSmall;
+  const relativeGap = spacer ? gap / Math.sqrt(Math.min(core.ae, core.ae / ratio)) : gap / Math.sqrt(core.ae);
+  if (relativeGap > FRINGING_VALIDITY_LIMIT) warnings |= WARNING.fringingRange;
+  const gapSensitivity = airGapInductance(turns, gap + GAP_SENSITIVITY_STEP, placement, geometry, ratio) / inductance - 1;
+  if (Math.abs(gapSensitivity) > GAP_SENSITIVITY_LIMIT) warnings |= WARNING.gapSensitive;
+  const withoutFringing = gappedInductanceFactor(
+    spacer ? spacerEquivalentGap(gap, ratio) : gap,
+    core.ae,
+    core.le,
+    material.permeability,
+    core.windowHeight,
+    false,
+  );
+  const inductanceFactor = inductance / (turns * turns);
   return {
     kind: 'air-gap',
+    placement,
     turns,
-    totalGap: gap,
-    spacer: spacerThickness(gap, core.centreToOuterLegAreaRatio ?? 1),
-    fringingFactor: fringing,
-    inductanceFactorWithoutFringing: gappedInductanceFactor(gap, core.ae, core.le, material.permeability, core.windowHeight, false),
-    inductanceFactor: inductance / (turns * turns),
+    totalGap: spacer ? 2 * gap : gap,
+    spacer: spacer ? gap : Math.max(0, spacerForInductance(turns, inductance, geometry, ratio)),
+    relativeGap,
+    fringingFactor: inductanceFactor / withoutFringing,
+    inductanceFactorWithoutFringing: withoutFringing,
+    inductanceFactor,
     inductanceZeroBias: inductance,
     inductanceAtLoad: inductance,
     inductanceAtPeak: inductance,
     permeabilityAtPeak: 1,
+    fluxAtLoad: fluxDensity(inductance, op.ioutMax, turns, core.ae),
+    fluxAtPeak: fluxDensity(inductance, op.saturationCheckCurrent, turns, core.ae),
+    gapSensitivity,
     failures,
     warnings,
   };
@@ -296,13 +398,23 @@ export class CandidateFigures {
   riseByVolume = 0;
   rise = 0;
   hotSpot = 0;
+  /** The losses outran the cooling: rise and hot spot are where the thermal model stopped (see ThermalSolution). */
+  runaway = false;
+  /** Core temperature of the loss figures and the material's temperature factor there before any floor. */
+  coreTemperature = 0;
+  rawTemperatureFactor = 1;
+  /** Nominal: Bsat at the predicted hot spot and the margin of fluxPeakLocal to it. */
   saturationFluxHot = 0;
   saturationMargin = 0;
+  /** Worst case: the upper-tolerance part's local peak flux, Bsat at the hottest allowed temperature, margin. */
+  fluxPeakHigh = 0;
+  saturationFluxHottest = 0;
+  saturationMarginHigh = 0;
   thermalPasses = 0;
   failures = 0;
   warnings = 0;
   /** Scratch of the loss–temperature iteration, reused so an evaluation allocates nothing. */
-  readonly loss: WoundCoreLoss = { resistance20: 0, weightedCurrentSquare: 0, coreLossReference: 0, temperatureCoefficients: undefined };
+  readonly loss: WoundCoreLoss = emptyWoundCoreLoss();
   readonly thermal = new ThermalSolution();
 }
 
@@ -329,12 +441,10 @@ export function evaluateCandidate(
 
   out.resistance20 = windingResistance(n, out.meanTurnLength, wireCtx.copperArea, 20);
   const dowellLayers = (Number.isFinite(out.layers) ? out.layers : 1) * wireCtx.layersPerWindingLayer;
-  const rippleWeighted = rippleResistanceWeight(wireCtx.sums, dowellLayers);
-  out.acFactor = effectiveAcFactor(wireCtx.sums, dowellLayers);
 
   out.fluxSwing = op.voltSeconds / (n * core.ae);
-  out.fluxDc = fluxDensity(mag.inductanceAtLoad, op.ioutMax, n, core.ae);
-  out.fluxPeak = fluxDensity(mag.inductanceAtPeak, op.saturationCheckCurrent, n, core.ae);
+  out.fluxDc = mag.fluxAtLoad;
+  out.fluxPeak = mag.fluxAtPeak;
   out.fluxPeakLocal = core.amin !== undefined && core.amin < core.ae ? (out.fluxPeak * core.ae) / core.amin : out.fluxPeak;
   // Both densities scale as ΔB^β from their value at ΔB = 1 T, prepared once per material.
   const swingPowBeta = Math.pow(out.fluxSwing, material.beta);
@@ -343,18 +453,27 @@ export function evaluateCandidate(
 
   const loss = out.loss;
   loss.resistance20 = out.resistance20;
-  loss.weightedCurrentSquare = op.ioutMax * op.ioutMax + rippleWeighted;
+  loss.dcCurrentSquare = op.ioutMax * op.ioutMax;
+  rippleWeightNodes(wireCtx.acTable, dowellLayers, loss.rippleWeights);
+  loss.acGrid = ctx.acGrid;
+  loss.copperAboveSurface = HOT_SPOT_ALLOWANCE;
   loss.coreLossReference = out.coreLossDensityIgse * core.ve;
   loss.temperatureCoefficients = material.tempCoefficients;
   const thermal = solveTemperature(limits.ambient, loss, core.surfaceArea, coreCtx.thermalResistanceByVolume, out.thermal);
   if (!thermal.converged) warnings |= WARNING.thermalNotConverged;
   if (thermal.runaway) failures |= FAILURE.thermalRunaway;
+  // A temperature fit that is ≤ 0 where the core works is invalid there; the loss used the floored factor.
+  if (thermal.rawTemperatureFactor <= 0) failures |= FAILURE.temperatureFactor;
   const rise = thermal.rise.design;
+  out.runaway = thermal.runaway;
+  out.coreTemperature = thermal.coreTemperature;
+  out.rawTemperatureFactor = thermal.rawTemperatureFactor;
   out.thermalPasses = thermal.passes;
   out.resistanceHot = thermal.resistance;
   out.temperatureFactor = thermal.temperatureFactor;
+  out.acFactor = thermal.rippleWeight / wireCtx.acTable.meanSquare;
   out.copperLossDc = dcCopperLoss(thermal.resistance, op.ioutMax);
-  out.copperLossAc = acCopperLoss(thermal.resistance, wireCtx.sums, dowellLayers);
+  out.copperLossAc = thermal.resistance * thermal.rippleWeight;
   out.coreLoss = loss.coreLossReference * thermal.temperatureFactor;
   out.totalLoss = thermal.totalLoss;
   out.riseBySurface = thermal.rise.bySurface;
@@ -364,7 +483,13 @@ export function evaluateCandidate(
 
   out.saturationFluxHot = saturationFlux(material, out.hotSpot);
   out.saturationMargin = saturationMargin(out.fluxPeakLocal, out.saturationFluxHot);
-  if (out.saturationMargin < limits.saturationMargin) failures |= FAILURE.saturation;
+  // Worst case: the upper-tolerance inductance (flux ∝ L, or ∝ μi for a powder core) at the hottest allowed temperature.
+  out.fluxPeakHigh = out.fluxPeakLocal * (1 + limits.inductanceTolerance);
+  out.saturationFluxHottest = saturationFlux(material, ctx.hottestAllowed);
+  out.saturationMarginHigh = saturationMargin(out.fluxPeakHigh, out.saturationFluxHottest);
+  if (out.saturationMargin < limits.saturationMargin || out.saturationMarginHigh < limits.saturationMargin) {
+    failures |= FAILURE.saturation;
+  }
   if (mag.kind === 'air-gap' && out.fluxPeak > limits.bMax * (1 + 1e-9)) warnings |= WARNING.fluxAboveLimit;
   if (rise > limits.maxRise) failures |= FAILURE.temperatureRise;
   if (out.hotSpot > limits.insulationClass) failures |= FAILURE.insulation;

@@ -1,4 +1,5 @@
 import { copperResistanceRatio } from './copper';
+import { AC_TEMPERATURE_NODES, interpolateAtTemperature, type AcTemperatureGrid } from './copper-loss';
 import { coreLossTemperatureFactor, type TemperatureCoefficients } from './core-loss';
 
 /** Surface-dissipation law ΔT = 450·(P/At)^0.826, P in W and At in cm² (At given here in m²). */
@@ -30,38 +31,70 @@ export const THERMAL_MAX_PASSES = 6;
  */
 export const THERMAL_MODEL_LIMIT = 250;
 
+/** Lowest core-loss temperature factor used: a fit that turns ≤ 0 must never yield a negative loss (see FAILURE). */
+export const TEMPERATURE_FACTOR_FLOOR = 0.01;
+
 /**
- * The losses of a winding on a core as functions of temperature: copper follows ρ(T)/ρ20 (copperResistanceRatio),
- * the core its material's temperature factor (coreLossTemperatureFactor). Plain numbers, so one object serves a
- * whole search.
+ * The losses of a winding on a core as functions of temperature: copper follows ρ(T)/ρ20 (copperResistanceRatio)
+ * at the hot spot, the ripple's AC factor the part's temperature (interpolated between the nodes of an
+ * AcTemperatureGrid), the core its material's temperature factor (coreLossTemperatureFactor). Plain numbers and
+ * reused arrays, so one object serves a whole search.
  */
 export interface WoundCoreLoss {
   /** Winding resistance at 20 °C (Ω). */
   resistance20: number;
-  /** Iout² + Σ Fr·I_n²/2: the squared current the DC resistance sees, ripple weighted by its AC factors (A²). */
-  weightedCurrentSquare: number;
+  /** Iout² (A²). */
+  dcCurrentSquare: number;
+  /** Σ Fr·I_n²/2 at the grid's node temperatures (A²); without a grid, element 0 holds it at every temperature. */
+  rippleWeights: Float64Array;
+  acGrid: AcTemperatureGrid | undefined;
+  /** How much hotter the copper is than the part's surface estimate (K): Rdc is taken at the hot spot. */
+  copperAboveSurface: number;
   /** Core loss with the temperature factor 1 (W). */
   coreLossReference: number;
   temperatureCoefficients: TemperatureCoefficients | undefined;
+}
+
+/** A WoundCoreLoss with nothing in it, to be filled per evaluation. */
+export function emptyWoundCoreLoss(): WoundCoreLoss {
+  return {
+    resistance20: 0,
+    dcCurrentSquare: 0,
+    rippleWeights: new Float64Array(AC_TEMPERATURE_NODES),
+    acGrid: undefined,
+    copperAboveSurface: 0,
+    coreLossReference: 0,
+    temperatureCoefficients: undefined,
+  };
 }
 
 export class ThermalSolution {
   readonly rise = new TemperatureRise();
   passes = 0;
   converged = false;
-  /** The losses would heat the part past THERMAL_MODEL_LIMIT; figures are those at that limit. */
+  /**
+   * The losses would heat the part past THERMAL_MODEL_LIMIT: the losses are those at that limit and the rises are
+   * reported as the rise at which the model stopped (THERMAL_MODEL_LIMIT − ambient), not the absurd figure the
+   * surface law would give for them.
+   */
   runaway = false;
-  /** Winding resistance, core-loss temperature factor and total loss at the temperature of the last pass. */
+  /** Winding resistance (at the hot spot), ripple weight Σ Fr·I_n²/2, core-loss factor and total loss of the last pass. */
   resistance = 0;
+  rippleWeight = 0;
   temperatureFactor = 1;
+  /** The factor as the coefficients give it, before the floor; ≤ 0 means the fit is invalid at that temperature. */
+  rawTemperatureFactor = 1;
+  /** Temperature (°C) at which the last pass took the core loss. */
+  coreTemperature = 0;
   totalLoss = 0;
 }
 
 /**
- * Losses depend on temperature (copper ρ(T), core-loss factor) and temperature on losses: start at ambient and
- * repeat until the rise moves less than 0.1 K, at most 6 passes. Each pass takes the larger rise of the surface law
- * and of the volume thermal resistance (K/W, coreVolumeThermalResistance, prepared once per core). The losses and
- * rise reported are those of the last pass; the result is written into `out` so the search allocates nothing.
+ * Losses depend on temperature (copper ρ(T), the ripple's AC factor, the core-loss factor) and temperature on
+ * losses: start at ambient and repeat until the rise moves less than 0.1 K, at most 6 passes. Each pass takes the
+ * larger rise of the surface law and of the volume thermal resistance (K/W, coreVolumeThermalResistance, prepared
+ * once per core). The losses and rise reported are those of the last pass; the result is written into `out` so the
+ * search allocates nothing.
  */
 export function solveTemperature(
   ambient: number,
@@ -76,28 +109,38 @@ export function solveTemperature(
   let bySurface = 0;
   let byVolume = 0;
   let resistance = 0;
+  let rippleWeight = 0;
+  let rawFactor = 1;
   let temperatureFactor = 1;
+  let surface = ambient;
   let power = 0;
   while (passes < THERMAL_MAX_PASSES && !(Math.abs(rise - previous) < THERMAL_TOLERANCE)) {
     previous = rise;
     // Losses are never evaluated above the model limit: past it the part is in runaway.
-    const temperature = Math.min(ambient + rise, THERMAL_MODEL_LIMIT);
-    resistance = loss.resistance20 * copperResistanceRatio(temperature);
-    temperatureFactor = coreLossTemperatureFactor(loss.temperatureCoefficients, temperature);
-    power = resistance * loss.weightedCurrentSquare + loss.coreLossReference * temperatureFactor;
+    surface = Math.min(ambient + rise, THERMAL_MODEL_LIMIT);
+    const copper = Math.min(ambient + rise + loss.copperAboveSurface, THERMAL_MODEL_LIMIT);
+    resistance = loss.resistance20 * copperResistanceRatio(copper);
+    rippleWeight = loss.acGrid ? interpolateAtTemperature(loss.acGrid, loss.rippleWeights, surface) : loss.rippleWeights[0]!;
+    rawFactor = coreLossTemperatureFactor(loss.temperatureCoefficients, surface);
+    temperatureFactor = rawFactor > TEMPERATURE_FACTOR_FLOOR ? rawFactor : TEMPERATURE_FACTOR_FLOOR;
+    power = resistance * (loss.dcCurrentSquare + rippleWeight) + loss.coreLossReference * temperatureFactor;
     bySurface = surfaceDissipationRise(power, surfaceArea);
     byVolume = power * volumeThermalResistance;
     rise = bySurface > byVolume ? bySurface : byVolume;
     passes += 1;
   }
-  out.rise.bySurface = bySurface;
-  out.rise.byVolume = byVolume;
-  out.rise.design = rise;
   out.passes = passes;
   out.converged = Math.abs(rise - previous) < THERMAL_TOLERANCE;
   out.runaway = ambient + rise > THERMAL_MODEL_LIMIT;
+  const cap = out.runaway ? THERMAL_MODEL_LIMIT - ambient : Number.POSITIVE_INFINITY;
+  out.rise.bySurface = bySurface < cap ? bySurface : cap;
+  out.rise.byVolume = byVolume < cap ? byVolume : cap;
+  out.rise.design = rise < cap ? rise : cap;
   out.resistance = resistance;
+  out.rippleWeight = rippleWeight;
   out.temperatureFactor = temperatureFactor;
+  out.rawTemperatureFactor = rawFactor;
+  out.coreTemperature = surface;
   out.totalLoss = power;
   return out;
 }

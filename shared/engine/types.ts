@@ -8,6 +8,9 @@ export type CoreFamily = (typeof CORE_FAMILIES)[number];
 /** How the core's inductance is set: a ground/spacer air gap, or a distributed gap in the material. */
 export type GapKind = 'air-gap' | 'distributed';
 
+/** Where an air-gap core's gap is made: ground into the centre leg, or a non-magnetic spacer under all legs. */
+export type GapPlacement = 'ground' | 'spacer';
+
 /** One core shape (a set: pair of halves, or one ring). Effective parameters per IEC 60205. */
 export interface CoreShape {
   id: string; // e.g. "ETD34/17/11"

@@ -1,7 +1,15 @@
 // Answer schemas of the four calculation endpoints, tied to the engine's result types (`satisfies`), so the
 // engine, the server's answer, the OpenAPI document and the client's parse keep one shape and one set of names.
 import * as z from 'zod';
-import type { EngineIssue, EvaluationResult, LossAtFrequency, OperatingPoint, SearchResult, WireOption } from '@shared/engine/index';
+import type {
+  CornerRow,
+  EngineIssue,
+  EvaluationResult,
+  LossAtFrequency,
+  OperatingPoint,
+  SearchResult,
+  WireOption,
+} from '@shared/engine/index';
 import { CORE_FAMILIES, MATERIAL_FAMILIES } from '@shared/engine/types';
 
 export const engineIssueSchema = z.object({
@@ -58,6 +66,11 @@ export const wireOptionSchema = z.object({
 const numbers = <K extends string>(...keys: K[]) =>
   z.object(Object.fromEntries(keys.map((key) => [key, z.number()])) as Record<K, z.ZodNumber>);
 
+export const cornerRowSchema = numbers('inductance', 'peakFlux', 'temperature', 'saturationFlux', 'margin').extend({
+  corner: z.enum(['nominal', 'low', 'high']),
+  pass: z.boolean(),
+}) satisfies z.ZodType<CornerRow>;
+
 export const evaluationResultSchema = z.object({
   feasible: z.boolean(),
   issues: z.array(engineIssueSchema),
@@ -73,7 +86,9 @@ export const evaluationResultSchema = z.object({
     kind: z.enum(['awg', 'metric', 'litz']),
   }),
   turns: z.number(),
-  gap: numbers('total', 'spacer', 'fringingFactor', 'relativeToCore'),
+  gap: numbers('total', 'spacer', 'fringingFactor', 'relativeToCore', 'sensitivity10um').extend({
+    placement: z.enum(['ground', 'spacer']),
+  }),
   inductanceFactor: numbers('withoutFringing', 'withFringing'),
   inductance: numbers('required', 'targetNominal', 'nominal', 'minimum', 'atLoad', 'atPeak', 'permeabilityAtPeak'),
   flux: numbers(
@@ -91,17 +106,19 @@ export const evaluationResultSchema = z.object({
   copper: numbers('resistance20', 'resistanceHot', 'acFactor', 'skinDepth', 'penetrationRatio', 'dcLoss', 'acLoss'),
   coreLoss: numbers('steinmetzDensity', 'igseDensity', 'temperatureFactor', 'loss'),
   totalLoss: z.number(),
-  thermal: numbers('riseBySurface', 'riseByVolume', 'rise', 'surfaceTemperature', 'hotSpot', 'hotSpotAllowance', 'passes'),
+  thermal: numbers('riseBySurface', 'riseByVolume', 'rise', 'surfaceTemperature', 'hotSpot', 'hotSpotAllowance', 'passes').extend({
+    runaway: z
+      .boolean()
+      .meta({ description: 'No steady temperature below the model limit; rise and hot spot are where the model stopped' }),
+  }),
+  corners: z
+    .array(cornerRowSchema)
+    .meta({ description: 'Nominal, low- and high-tolerance corners of the saturation and inductance checks' }),
 }) satisfies z.ZodType<EvaluationResult>;
 
-export const lossAtFrequencySchema = numbers(
-  'frequency',
-  'copperDc',
-  'copperAc',
-  'core',
-  'total',
-  'rise',
-) satisfies z.ZodType<LossAtFrequency>;
+export const lossAtFrequencySchema = numbers('frequency', 'copperDc', 'copperAc', 'core', 'total', 'rise').extend({
+  feasible: z.boolean().meta({ description: 'The part keeps its saturation and temperature limits at this frequency' }),
+}) satisfies z.ZodType<LossAtFrequency>;
 
 /** POST /calc/evaluate: the wire as evaluated, every figure, and the loss sweep when asked for. */
 export const evaluateAnswerSchema = z.object({

@@ -111,6 +111,7 @@ export const designLimitsSchema = z
       .meta({ description: 'Most round wires in hand before litz is used (1…50)' })
       .optional(),
     minPermeabilityAtPeak: rangeNumber('minPermeabilityAtPeak', 0, 1, '', 'Smallest L(Ipk)/L0 of a powder core').optional(),
+    minGap: rangeNumber('minGap', 0, 5e-3, 'm', 'Smallest ground gap or spacer a workshop can hold').optional(),
     allowedFamilies: uniqueListSchema(z.enum(CORE_FAMILIES), CORE_FAMILIES.length, 'allowedFamilies')
       .meta({ description: 'Core families to consider' })
       .optional(),
@@ -284,9 +285,13 @@ export const evaluateRequestSchema = z
     )
       .default('auto')
       .meta({ description: 'Turns (1…2000) or "auto"' }),
-    gap: autoOr(nonNegativeNumber('gap', 0.02, 'm', 'Total air gap in the magnetic path'))
+    gap: autoOr(nonNegativeNumber('gap', 0.02, 'm', 'Ground gap, or spacer thickness with placement "spacer"'))
       .default('auto')
-      .meta({ description: 'Total gap in the path (0…0.02 m) or "auto"' }),
+      .meta({ description: 'Ground gap, or spacer thickness with placement "spacer" (0…0.02 m), or "auto"' }),
+    placement: z
+      .enum(['ground', 'spacer'])
+      .meta({ description: 'Gap ground into the centre leg (default) or a spacer under all legs' })
+      .optional(),
     wire: wireRequestSchema,
   })
   .strict()

@@ -2,6 +2,8 @@ import type { EChartsCoreOption } from 'echarts/core';
 import type { CurvePoint, MaterialCurves } from '@shared/schemas/compare';
 import { formatIn } from '@shared/units/index';
 
+import { splitByFlag } from '../charts/split-series';
+
 export type LossMethod = 'igse' | 'steinmetz';
 export type SweepAxis = 'frequency' | 'flux';
 
@@ -28,15 +30,8 @@ export function splitByFit(
   points: readonly CurvePoint[],
   method: LossMethod,
 ): { fitted: ([number, number] | null)[]; extrapolated: ([number, number] | null)[] } {
-  const fitted: ([number, number] | null)[] = [];
-  const extrapolated: ([number, number] | null)[] = [];
-  points.forEach((p, i) => {
-    const value: [number, number] = [p.x, p[method]];
-    const bordersExtrapolation = !!points[i + 1]?.extrapolated || !!points[i - 1]?.extrapolated;
-    fitted.push(p.extrapolated ? null : value);
-    extrapolated.push(p.extrapolated || bordersExtrapolation ? value : null);
-  });
-  return { fitted, extrapolated };
+  const { plain, flagged } = splitByFlag(points.map((p) => ({ x: p.x, y: p[method], flagged: p.extrapolated })));
+  return { fitted: plain, extrapolated: flagged };
 }
 
 /** Log-log loss curves of several materials, fitted ranges solid and shaded, extrapolation dashed. */

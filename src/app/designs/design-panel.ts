@@ -6,7 +6,6 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { THERMAL_MODEL_LIMIT } from '@shared/engine/thermal';
 import type { Construction, DesignSpec } from '@shared/schemas/designs';
-import { axisIn } from '@shared/units/index';
 import type { EvaluateAnswer } from '@shared/schemas/calc-answers';
 import type { EChartsCoreOption } from 'echarts/core';
 import { NgxEchartsDirective } from 'ngx-echarts';
@@ -19,6 +18,8 @@ import { QuantityInput } from '../units/quantity-input';
 import { CoresApi } from '../cores/cores-api';
 import { LoadState } from '../ui/load-state';
 import { DesignsApi, type MaterialView } from './designs-api';
+import { CornerTable } from './corner-table';
+import { frequencyChartLabel, frequencyChartOptions } from './frequency-chart-options';
 import { percent, show, showUnit } from './format';
 
 type WireKind = 'awg' | 'metric' | 'litz';
@@ -36,6 +37,7 @@ type WireKind = 'awg' | 'metric' | 'litz';
     QuantityInput,
     QuantityPipe,
     CautionLine,
+    CornerTable,
   ],
   templateUrl: './design-panel.html',
   styleUrl: './design-panel.scss',
@@ -211,7 +213,7 @@ export class DesignPanel {
       {
         title: 'Loss against frequency',
         options: this.frequencyChart(),
-        label: 'Total, copper and core loss of this build from a quarter to four times the switching frequency',
+        label: this.frequencyLabel(),
       },
     ];
   });
@@ -271,39 +273,8 @@ export class DesignPanel {
     };
   });
 
-  private readonly frequencyChart = computed<EChartsCoreOption>(() => {
-    const sweep = this.view()?.lossVersusFrequency ?? [];
-    if (!sweep.length) return {};
-    const x = axisIn('kHz');
-    const series = (name: string, pick: (p: (typeof sweep)[number]) => number) => ({
-      type: 'line',
-      name,
-      data: sweep.map((p) => [x.toAxis(p.frequency), pick(p)]),
-    });
-    const fs = this.spec()?.converter.frequency;
-    return {
-      animation: false,
-      grid: { left: 56, right: 16, top: 32, bottom: 40 },
-      legend: { top: 0 },
-      tooltip: { trigger: 'axis' },
-      xAxis: {
-        type: 'log',
-        name: x.unit,
-        nameLocation: 'middle',
-        nameGap: 24,
-        min: x.toAxis(sweep[0].frequency),
-        max: x.toAxis(sweep.at(-1)!.frequency),
-        axisLabel: { formatter: (v: number) => String(Math.round(v)) },
-      },
-      yAxis: { type: 'value', name: 'W' },
-      series: [
-        {
-          ...series('Total', (p) => p.total),
-          markLine: fs ? { symbol: 'none', data: [{ xAxis: x.toAxis(fs) }], label: { formatter: 'fs' } } : undefined,
-        },
-        series('Copper', (p) => p.copperDc + p.copperAc),
-        series('Core', (p) => p.core),
-      ],
-    };
-  });
+  private readonly frequencyChart = computed(() =>
+    frequencyChartOptions(this.view()?.lossVersusFrequency ?? [], this.spec()?.converter.frequency),
+  );
+  private readonly frequencyLabel = computed(() => frequencyChartLabel(this.view()?.lossVersusFrequency ?? []));
 }

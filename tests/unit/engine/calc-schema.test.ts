@@ -51,6 +51,16 @@ describe('calculation request schemas', () => {
     expect(ok.limit).toBe(20);
   });
 
+  it('bounds the minimum gap to 0…5 mm, names it, and takes a spacer placement', () => {
+    const wire = { kind: 'awg', awg: 18, strands: 1 };
+    const base = { spec, coreId: 'ETD34', materialId: '7', wire };
+    expect(evaluateRequestSchema.parse({ ...base, limits: { minGap: 50e-6 }, placement: 'spacer' }).placement).toBe('spacer');
+    expect(issueAt(evaluateRequestSchema.safeParse({ ...base, limits: { minGap: 6e-3 } }), 'limits.minGap')?.message).toBe(
+      'minGap must be between 0 and 0.005 m',
+    );
+    expect(issueAt(evaluateRequestSchema.safeParse({ ...base, placement: 'glued' }), 'placement')).toBeDefined();
+  });
+
   it('validates an evaluate request with auto turns and a wire by gauge', () => {
     const parsed = evaluateRequestSchema.parse({ spec, coreId: 'ETD34', materialId: '7', wire: { kind: 'awg', awg: 18, strands: 2 } });
     expect(parsed.turns).toBe('auto');

@@ -1,7 +1,15 @@
 import { describe, expect, it } from 'vitest';
 import { MU0 } from '@shared/engine/constants';
-import { biasedInductance, permeabilityFraction, powderInductanceFactor, powderTurns } from '@shared/engine/powder';
-import { powderP, powderRing } from './fixtures';
+import { evaluateDesign } from '@shared/engine/evaluate';
+import {
+  biasedFlux,
+  biasedInductance,
+  permeabilityFraction,
+  powderInductanceFactor,
+  powderTurns,
+  rollOffIntegral,
+} from '@shared/engine/powder';
+import { powderP, powderRing, roundWire, sectionOneSpec } from './fixtures';
 
 const al = powderInductanceFactor(powderP.permeability, powderRing.ae, powderRing.le);
 
@@ -47,5 +55,63 @@ describe('distributed-gap toroid', () => {
     const result = powderTurns(1e-3, 1, al, powderRing.le, powderP.rollOff, 40);
     expect(result.feasible).toBe(false);
     expect(result.reason).toBe('turn-limit');
+  });
+});
+
+// A roll-off curve gives the incremental permeability μ_Δ = (1/μ0)·dB/dH at a bias (IEC 60050-221, "incremental
+// permeability"), so B(H) = μ0·μi·∫₀^H μ%(h) dh. The closed forms below are plain calculus.
+describe('flux of a distributed-gap core: the integral of the incremental permeability', () => {
+  const h50 = 8000;
+  const c1 = { a: 1, b: 1 / h50, c: 1 };
+
+  it('gives H50·ln(1 + H/H50) for c = 1: at 50 % roll-off the flux is 2·ln 2 = 1.386 × μ%(H)·H', () => {
+    for (const h of [100, 2000, h50, 5 * h50, 300 * h50]) {
+      expect(rollOffIntegral(c1, h) / (h50 * Math.log(1 + h / h50))).toBeCloseTo(1, 10);
+    }
+    expect(rollOffIntegral(c1, h50) / (permeabilityFraction(c1, h50) * h50)).toBeCloseTo(2 * Math.LN2, 10);
+  });
+
+  it('gives H50·arctan(H/H50) for c = 2 and H/a without roll-off', () => {
+    const c2 = { a: 1, b: Math.pow(h50, -2), c: 2 };
+    for (const h of [500, h50, 20 * h50]) expect(rollOffIntegral(c2, h) / (h50 * Math.atan(h / h50))).toBeCloseTo(1, 10);
+    expect(rollOffIntegral(undefined, 1234)).toBe(1234);
+    expect(rollOffIntegral({ a: 2, b: 0, c: 1.3 }, 1234)).toBeCloseTo(617, 12);
+  });
+
+  it('rises with H and its slope is μ%(H) for the fixture exponent c = 1.3 (fundamental theorem of calculus)', () => {
+    let previous = 0;
+    for (let h = 10; h < 1e6; h *= 1.7) {
+      const value = rollOffIntegral(powderP.rollOff, h);
+      expect(value).toBeGreaterThan(previous);
+      const step = h * 1e-5;
+      const slope = (rollOffIntegral(powderP.rollOff, h + step) - rollOffIntegral(powderP.rollOff, h - step)) / (2 * step);
+      expect(slope / permeabilityFraction(powderP.rollOff, h)).toBeCloseTo(1, 5);
+      previous = value;
+    }
+  });
+
+  it('keeps the inductance used for the ripple the incremental one: L(I) = dλ/dI with λ = N·Ae·B(N·I/le)', () => {
+    const turns = 30;
+    for (const current of [2, 8, 15]) {
+      const step = current * 1e-6;
+      const linkage = (i: number) => turns * powderRing.ae * biasedFlux(turns, i, powderP.permeability, powderRing.le, powderP.rollOff);
+      const incremental = (linkage(current + step) - linkage(current - step)) / (2 * step);
+      expect(incremental / biasedInductance(turns, current, al, powderRing.le, powderP.rollOff)).toBeCloseTo(1, 5);
+    }
+  });
+
+  it('reports the integrated flux of a powder design, above the μ%(H)·H figure', () => {
+    const result = evaluateDesign({
+      spec: sectionOneSpec,
+      core: powderRing,
+      material: powderP,
+      turns: 'auto',
+      gap: 'auto',
+      wire: roundWire(0.8e-3, 3),
+    });
+    const field = (result.turns * result.flux.checkCurrent) / powderRing.le;
+    expect(result.flux.peak).toBeCloseTo(MU0 * 60 * rollOffIntegral(powderP.rollOff, field), 12);
+    const understated = (result.inductance.atPeak * result.flux.checkCurrent) / (result.turns * powderRing.ae);
+    expect(result.flux.peak).toBeGreaterThan(understated * 1.05);
   });
 });

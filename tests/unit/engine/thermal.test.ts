@@ -2,9 +2,11 @@ import { describe, expect, it } from 'vitest';
 import { copperResistanceRatio } from '@shared/engine/copper';
 import { coreLossTemperatureFactor } from '@shared/engine/core-loss';
 import {
+  TEMPERATURE_FACTOR_FLOOR,
   THERMAL_MODEL_LIMIT,
   ThermalSolution,
   coreVolumeThermalResistance,
+  emptyWoundCoreLoss,
   solveTemperature,
   surfaceDissipationRise,
   type WoundCoreLoss,
@@ -36,13 +38,7 @@ describe('core-volume thermal resistance Rth = 53·Ve^−0.54', () => {
 
 describe('loss ↔ temperature iteration', () => {
   const rthVolume = coreVolumeThermalResistance(7.64e-6);
-  const loss = (over: Partial<WoundCoreLoss>): WoundCoreLoss => ({
-    resistance20: 0,
-    weightedCurrentSquare: 0,
-    coreLossReference: 0,
-    temperatureCoefficients: undefined,
-    ...over,
-  });
+  const loss = (over: Partial<WoundCoreLoss>): WoundCoreLoss => ({ ...emptyWoundCoreLoss(), ...over });
 
   it('uses the larger rise of the two laws: the surface law and loss × Rth(Ve)', () => {
     const solution = solveTemperature(40, loss({ coreLossReference: 2 }), 40e-4, rthVolume);
@@ -53,12 +49,7 @@ describe('loss ↔ temperature iteration', () => {
   });
 
   it('settles to a self-consistent rise within 0.1 K, copper following ρ(T)/ρ20 (copper α20, from memory)', () => {
-    const solution = solveTemperature(
-      40,
-      loss({ resistance20: 0.012, weightedCurrentSquare: 100, coreLossReference: 0.3 }),
-      60e-4,
-      rthVolume,
-    );
+    const solution = solveTemperature(40, loss({ resistance20: 0.012, dcCurrentSquare: 100, coreLossReference: 0.3 }), 60e-4, rthVolume);
     expect(solution.converged).toBe(true);
     // The last pass evaluated the losses at a temperature within 0.1 K of the one reported.
     const lossTemperature = 20 + (solution.resistance / 0.012 - 1) / 0.00393;
@@ -78,7 +69,10 @@ describe('loss ↔ temperature iteration', () => {
     );
     expect(solution.runaway).toBe(true);
     expect(solution.temperatureFactor).toBe(coreLossTemperatureFactor(temperatureCoefficients, THERMAL_MODEL_LIMIT));
-    expect(Number.isFinite(solution.rise.design)).toBe(true);
+    // No absurd rise: every figure stops where the model stops (250 °C − 40 °C ambient).
+    expect(solution.rise.design).toBe(THERMAL_MODEL_LIMIT - 40);
+    expect(solution.rise.bySurface).toBeLessThanOrEqual(THERMAL_MODEL_LIMIT - 40);
+    expect(solution.rise.byVolume).toBeLessThanOrEqual(THERMAL_MODEL_LIMIT - 40);
     const calm = solveTemperature(40, loss({ coreLossReference: 0.2 }), 60e-4, rthVolume);
     expect(calm.runaway).toBe(false);
   });
@@ -86,5 +80,26 @@ describe('loss ↔ temperature iteration', () => {
   it('reuses the solution object it is given', () => {
     const reused = new ThermalSolution();
     expect(solveTemperature(40, loss({ coreLossReference: 0.2 }), 60e-4, rthVolume, reused)).toBe(reused);
+  });
+
+  it('takes the copper resistance at the hot spot, not at the surface (copper α20, from memory)', () => {
+    const solution = solveTemperature(
+      40,
+      loss({ resistance20: 0.012, dcCurrentSquare: 100, coreLossReference: 0.3, copperAboveSurface: 5 }),
+      60e-4,
+      rthVolume,
+    );
+    const copperTemperature = 20 + (solution.resistance / 0.012 - 1) / 0.00393;
+    expect(Math.abs(copperTemperature - (40 + solution.rise.design + 5))).toBeLessThan(0.2);
+  });
+
+  it('never lets a temperature factor ≤ 0 make the core loss negative (a loss is ≥ 0 by definition)', () => {
+    // ct2·T² − ct1·T + ct0 = 1e-4·T² − 0.03·T + 1.5 is −0.5 at 100 °C (invented coefficients)
+    const temperatureCoefficients = { ct2: 1e-4, ct1: 0.03, ct0: 1.5 };
+    expect(coreLossTemperatureFactor(temperatureCoefficients, 100)).toBeCloseTo(-0.5, 12);
+    const solution = solveTemperature(60, loss({ coreLossReference: 5, temperatureCoefficients }), 60e-4, rthVolume);
+    expect(solution.rawTemperatureFactor).toBeLessThanOrEqual(0);
+    expect(solution.temperatureFactor).toBe(TEMPERATURE_FACTOR_FLOOR);
+    expect(solution.totalLoss).toBeGreaterThan(0);
   });
 });

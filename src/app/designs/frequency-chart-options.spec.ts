@@ -1,0 +1,48 @@
+import { describe, expect, it } from 'vitest';
+import type { LossAtFrequency } from '@shared/engine/evaluate';
+
+import { INFEASIBLE_LEGEND, frequencyChartLabel, frequencyChartOptions } from './frequency-chart-options';
+
+const point = (frequency: number, feasible: boolean): LossAtFrequency => ({
+  frequency,
+  feasible,
+  copperDc: 1,
+  copperAc: 0.1,
+  core: 0.2,
+  total: 1.3,
+  rise: 30,
+});
+
+interface Series {
+  name: string;
+  type: string;
+  data: unknown[];
+  lineStyle?: { type?: string };
+  symbol?: string;
+}
+
+describe('loss-versus-frequency chart', () => {
+  const sweep = [point(25e3, false), point(50e3, true), point(100e3, true)];
+  const options = frequencyChartOptions(sweep, 100e3) as { series: Series[] };
+
+  it('draws the total solid where the part is feasible and dashed from the neighbouring point into the infeasible one', () => {
+    const [solid, dashed] = options.series.filter((s) => s.name === 'Total');
+    expect(solid!.data).toEqual([null, [50, 1.3], [100, 1.3]]);
+    expect(dashed!.lineStyle?.type).toBe('dashed');
+    expect(dashed!.data).toEqual([[25, 1.3], [50, 1.3], null]);
+  });
+
+  it('rings each infeasible point and names it in the legend and the description', () => {
+    const marks = options.series.find((s) => s.name === INFEASIBLE_LEGEND);
+    expect(marks?.symbol).toBe('emptyCircle');
+    expect(marks?.data).toEqual([[25, 1.3]]);
+    expect(frequencyChartLabel(sweep)).toMatch(/; not feasible at 25 kHz$/);
+  });
+
+  it('adds no legend entry when the part is feasible everywhere', () => {
+    const fine = frequencyChartOptions([point(50e3, true), point(100e3, true)]) as { series: Series[] };
+    expect(fine.series.some((s) => s.name === INFEASIBLE_LEGEND)).toBe(false);
+    expect(frequencyChartLabel([point(50e3, true)])).not.toMatch(/not feasible/);
+    expect(frequencyChartOptions([])).toEqual({});
+  });
+});
