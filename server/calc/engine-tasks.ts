@@ -30,7 +30,8 @@ function perform(task: EngineTask): EngineTaskResults[EngineTask['kind']] {
       return searchCandidates(task.input);
     case 'search-answer': {
       const answer = { engineVersion: ENGINE_VERSION, ...searchCandidates(task.input) } satisfies AnswerInputOf<typeof search>;
-      return Buffer.from(JSON.stringify(answer));
+      // A fresh buffer of its own, so the worker can hand it over whole (engine-worker.ts).
+      return new TextEncoder().encode(JSON.stringify(answer));
     }
     case 'compare':
       return compareAcrossMaterials(task.input);
