@@ -1,0 +1,178 @@
+import { fileURLToPath } from 'node:url';
+import { searchCandidates } from '@shared/engine/index';
+import { dropDatabase, ensureCluster, ensureDatabase } from '../../server/ops/postgres.ts';
+import { DEMO_USERS } from '../../server/seed/demo-scenario.ts';
+import { startServerProcess } from '../support/server-process.ts';
+import { SessionClient } from '../support/session-client.ts';
+import { BENCH_SPEC, inventedMaterials, loadCatalogue, type BenchRow } from './engine.ts';
+import { percentile } from './stats.ts';
+
+// The search as the workspace asks for it (full catalogue, 20 invented materials, best 50), through the HTTP API of
+// the real server in its own process; then whether searches stall everybody else: GET /api/health idle and while
+// 8 connections search back to back. `SEARCH_WORKERS=0 npm run bench -- search` measures the inline path (no pool).
+// On its own: node --import tsx tests/bench/search-pool.ts
+
+const SEARCH_TARGET_MS = 100;
+const HEALTH_RATIO_TARGET = 2;
+const LIMIT = 50; // what the workspace asks for (src/app/designs/designs-api.ts)
+const IDLE_MS = 2000;
+const BUSY_MS = 3000;
+const RAMP_MS = 500;
+
+const ms = (v: number) => `${v.toFixed(1)} ms`;
+const sorted = (list: readonly number[]) => [...list].sort((a, b) => a - b);
+
+async function timed(task: () => Promise<unknown>): Promise<number> {
+  const started = performance.now();
+  await task();
+  return performance.now() - started;
+}
+
+/**
+ * Where a search's time goes, measured in this process: the engine, the copy of its input into a worker (the answer
+ * comes back as bytes handed over, not copied), and encoding the answer as JSON bytes (done in the worker).
+ */
+async function searchParts(runs: number) {
+  const { cores, wires } = await loadCatalogue();
+  const input = { spec: BENCH_SPEC, cores, materials: inventedMaterials(), wires, limit: LIMIT };
+  const parts = { engine: [] as number[], clone: [] as number[], json: [] as number[] };
+  let bytes = 0;
+  for (let i = 0; i < runs + 5; i++) {
+    let started = performance.now();
+    const result = searchCandidates(input);
+    const engine = performance.now() - started;
+    started = performance.now();
+    structuredClone(input);
+    const clone = performance.now() - started;
+    started = performance.now();
+    bytes = new TextEncoder().encode(JSON.stringify(result)).byteLength;
+    const json = performance.now() - started;
+    if (i < 5) continue;
+    parts.engine.push(engine);
+    parts.clone.push(clone);
+    parts.json.push(json);
+  }
+  return { ...parts, bytes, cores: cores.length };
+}
+
+/** GET /api/health one at a time for `ms`. */
+async function healthTimes(baseUrl: string, ms: number): Promise<number[]> {
+  const times: number[] = [];
+  const end = performance.now() + ms;
+  while (performance.now() < end) times.push(await timed(() => fetch(`${baseUrl}/api/health`).then((r) => r.arrayBuffer())));
+  return times;
+}
+
+/** `connections` loops that search back to back while `on`; `off()` resolves once the last search in flight is back. */
+function searchLoad(connections: number, send: () => Promise<Response>) {
+  const state = { on: false, stopped: false, inFlight: 0, searches: 0, failed: 0 };
+  const loops = Array.from({ length: connections }, async () => {
+    while (!state.stopped) {
+      if (!state.on) {
+        await new Promise((r) => setTimeout(r, 10));
+        continue;
+      }
+      state.inFlight++;
+      const res = await send();
+      await res.arrayBuffer();
+      state.inFlight--;
+      state.searches++;
+      if (!res.ok) state.failed++;
+    }
+  });
+  const settled = async () => {
+    while (state.inFlight > 0) await new Promise((r) => setTimeout(r, 5));
+  };
+  return {
+    state,
+    on: () => (state.on = true),
+    off: () => ((state.on = false), settled()),
+    stop: () => ((state.stopped = true), Promise.all(loops)),
+  };
+}
+
+export async function runSearchBench({ runs = 40, connections = 8, rounds = 6 } = {}): Promise<BenchRow[]> {
+  const database = `gapwright_bench_search_${Date.now().toString(36)}`;
+  const cluster = ensureCluster();
+  ensureDatabase(database);
+  const server = await startServerProcess(cluster.urlFor(database), { NODE_ENV: 'production' });
+  try {
+    const engineer = DEMO_USERS.find((u) => u.role === 'engineer')!;
+    const client = await SessionClient.signIn(server.baseUrl, engineer.username, engineer.password);
+    const body = { spec: BENCH_SPEC, materials: inventedMaterials(), limit: LIMIT };
+    const first = (await client.expectOk('POST', '/api/calc/search', body)) as { counts: { cores: number; evaluated: number } };
+
+    // (a) One search at a time, timed by the client: the server's time plus a loopback round trip.
+    // Beside it, the same path with next to no engine work (the operating point): what HTTP, the session and the
+    // client's reading cost on this machine right now.
+    const search: number[] = [];
+    const floor: number[] = [];
+    for (let i = 0; i < runs + 5; i++) {
+      const time = await timed(() => client.expectOk('POST', '/api/calc/search', body));
+      const floorTime = await timed(() => client.expectOk('POST', '/api/calc/operating-point', BENCH_SPEC));
+      if (i < 5) continue;
+      search.push(time);
+      floor.push(floorTime);
+    }
+    const parts = await searchParts(runs);
+
+    // (b) Health alone, then beside `connections` connections searching back to back, in turns: the machine's other
+    // load drifts, and idle and busy rounds side by side see the same drift.
+    const searchHeaders = client.headers('POST', true);
+    const searchBody = JSON.stringify(body);
+    const load = searchLoad(connections, () =>
+      fetch(`${server.baseUrl}/api/calc/search`, { method: 'POST', headers: searchHeaders, body: searchBody }),
+    );
+    await healthTimes(server.baseUrl, 500);
+    const idle: number[] = [];
+    const busy: number[] = [];
+    for (let round = 0; round < rounds; round++) {
+      idle.push(...(await healthTimes(server.baseUrl, IDLE_MS)));
+      load.on();
+      await new Promise((r) => setTimeout(r, RAMP_MS)); // every connection has a search in flight
+      busy.push(...(await healthTimes(server.baseUrl, BUSY_MS)));
+      await load.off();
+    }
+    await load.stop();
+
+    const s = sorted(search);
+    const idleP95 = percentile(sorted(idle), 95);
+    const busyP95 = percentile(sorted(busy), 95);
+    const ratio = busyP95 / idleP95;
+    const p = (list: number[]) => `${ms(percentile(sorted(list), 50))} / ${ms(percentile(sorted(list), 95))}`;
+    return [
+      {
+        name: `search via API: ${first.counts.cores} cores × 20 invented materials, best ${LIMIT}`,
+        value: `${first.counts.evaluated} evaluated; SEARCH_WORKERS=${process.env['SEARCH_WORKERS'] ?? 'default'}`,
+      },
+      {
+        name: `search via API p50 / p95 (${runs} runs, one at a time)`,
+        value: `${p(search)} (target p95 ≤ ${SEARCH_TARGET_MS} ms: ${percentile(s, 95) <= SEARCH_TARGET_MS ? 'met' : 'NOT met'})`,
+      },
+      { name: '  the same path without a search (POST /api/calc/operating-point) p50 / p95', value: p(floor) },
+      {
+        name: `  per search in this process: engine / input copy / JSON bytes, p50 / p95`,
+        value: `${p(parts.engine)}; ${p(parts.clone)}; ${p(parts.json)} (${(parts.bytes / 1024).toFixed(0)} KiB answer, in-process, ${parts.cores} cores)`,
+      },
+      { name: 'GET /api/health p95 idle', value: `${ms(idleP95)} (${idle.length} requests)` },
+      {
+        name: `GET /api/health p95, ${connections} connections searching`,
+        value: `${ms(busyP95)} = ${ratio.toFixed(1)} × idle (target ≤ ${HEALTH_RATIO_TARGET} ×: ${ratio <= HEALTH_RATIO_TARGET ? 'met' : 'NOT met'}; ${busy.length} requests)`,
+      },
+      {
+        name: `  searches meanwhile (${rounds} rounds of ${BUSY_MS / 1000} s)`,
+        value: `${load.state.searches} answered (${(load.state.searches / ((rounds * (RAMP_MS + BUSY_MS)) / 1000)).toFixed(1)}/s), ${load.state.failed} not 2xx`,
+      },
+    ];
+  } finally {
+    server.child.kill('SIGTERM');
+    await server.exited;
+    dropDatabase(database);
+  }
+}
+
+if (process.argv[1] === fileURLToPath(import.meta.url)) {
+  const rows = await runSearchBench();
+  const width = Math.max(...rows.map((r) => r.name.length));
+  for (const row of rows) process.stdout.write(`  ${row.name.padEnd(width)}  ${row.value}\n`);
+}
