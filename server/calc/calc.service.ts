@@ -83,10 +83,10 @@ export class CalcService {
     return { engineVersion: ENGINE_VERSION, ...result };
   }
 
-  /** The same answer as `search`, already encoded as JSON by the worker that ran it. */
-  async searchAnswer(request: SearchRequest): Promise<Uint8Array> {
+  /** The same answer as `search`, already encoded as JSON (and gzipped if asked) by the worker that ran it. */
+  async searchAnswer(request: SearchRequest, options: { gzip: boolean }): Promise<Uint8Array> {
     const input = await this.searchInput(request);
-    return this.pool.searchAnswer(input).catch((error: unknown) => {
+    return this.pool.searchAnswer(input, options).catch((error: unknown) => {
       throw asBadRequest(error, 'spec.');
     });
   }

@@ -58,9 +58,9 @@ export class SearchPool {
     return this.run({ kind: 'search', input });
   }
 
-  /** The search route's answer, as JSON bytes ready for the socket. */
-  searchAnswer(input: SearchInput): Promise<Uint8Array> {
-    return this.run({ kind: 'search-answer', input });
+  /** The search route's answer, as JSON bytes (gzipped if asked) ready for the socket. */
+  searchAnswer(input: SearchInput, { gzip }: { gzip: boolean }): Promise<Uint8Array> {
+    return this.run({ kind: 'search-answer', input, gzip });
   }
 
   compareMaterials(input: MaterialComparisonInput): Promise<MaterialComparison> {

@@ -54,10 +54,24 @@ describe('a search in the worker pool', () => {
     const [viaPool, viaInline] = await Promise.all([onPool.post('/api/calc/search', body), onInline.post('/api/calc/search', body)]);
     expect(viaPool.status).toBe(200);
     expect(viaPool.headers['content-type']).toBe('application/json; charset=utf-8');
+    expect(viaPool.headers['content-encoding']).toBe('gzip'); // supertest, like browsers, accepts gzip
     expect(viaPool.body.candidates.length).toBe(30);
     expect(viaPool.body).toEqual(viaInline.body);
     expect(pooled.services.searchPool.threads).toBe(1);
     expect(inline.services.searchPool.threads).toBe(0);
+  });
+
+  it('sends the answer uncompressed to a client that does not take gzip', async () => {
+    const body = { spec: SPEC, materialIds, limit: 3 };
+    const plain = await onPool.agent
+      .post('/api/calc/search')
+      .set('X-XSRF-TOKEN', onPool.csrfToken!)
+      .set('Accept-Encoding', 'identity')
+      .send(body);
+    expect(plain.status).toBe(200);
+    expect(plain.headers['content-encoding']).toBeUndefined();
+    expect(Number(plain.headers['content-length'])).toBe(Buffer.byteLength(JSON.stringify(plain.body)));
+    expect(plain.body).toEqual((await onInline.post('/api/calc/search', body)).body);
   });
 
   it('compares one design across materials in the pool with the inline figures', async () => {
