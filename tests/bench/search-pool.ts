@@ -22,6 +22,7 @@ const IDLE_MS = 2000;
 const BUSY_MS = 3000;
 const RAMP_MS = 500;
 const CLIENT_NICE = 10;
+const PROBE_EVERY_MS = 10;
 
 const ms = (v: number) => `${v.toFixed(1)} ms`;
 const sorted = (list: readonly number[]) => [...list].sort((a, b) => a - b);
@@ -59,11 +60,18 @@ async function searchParts(runs: number) {
   return { ...parts, bytes, cores: cores.length };
 }
 
-/** GET /api/health one at a time for `ms`. */
+/**
+ * GET /api/health one at a time for `ms`, one every PROBE_EVERY_MS at most: a probe sent back to back would take
+ * CPU from the searches, the more so the faster the server answers it.
+ */
 async function healthTimes(baseUrl: string, ms: number): Promise<number[]> {
   const times: number[] = [];
   const end = performance.now() + ms;
-  while (performance.now() < end) times.push(await timed(() => fetch(`${baseUrl}/api/health`).then((r) => r.arrayBuffer())));
+  while (performance.now() < end) {
+    const next = performance.now() + PROBE_EVERY_MS;
+    times.push(await timed(() => fetch(`${baseUrl}/api/health`).then((r) => r.arrayBuffer())));
+    await new Promise((r) => setTimeout(r, Math.max(0, next - performance.now())));
+  }
   return times;
 }
 
