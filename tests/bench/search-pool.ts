@@ -167,7 +167,7 @@ export async function runSearchBench({ runs = 40, connections = 8, rounds = 6 } 
       { name: 'GET /api/health p95 idle', value: `${ms(idleP95)} (${idle.length} requests)` },
       {
         name: `GET /api/health p95, ${connections} connections searching (clients at nice ${CLIENT_NICE})`,
-        value: `${ms(busyP95)} = ${ratio.toFixed(1)} × idle (target ≤ ${HEALTH_RATIO_TARGET} ×: ${ratio <= HEALTH_RATIO_TARGET ? 'met' : 'NOT met'}; ${busy.length} requests)`,
+        value: `${ms(busyP95)} = ${ratio.toFixed(2)} × idle (target ≤ ${HEALTH_RATIO_TARGET} ×: ${ratio <= HEALTH_RATIO_TARGET ? 'met' : 'NOT met'}; ${busy.length} requests)`,
       },
       {
         name: `  searches meanwhile (${rounds} rounds of ${BUSY_MS / 1000} s)`,
