@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { CoreMaterial, CoreShape } from '@shared/engine/types';
+import { ferriteA } from '../unit/engine/fixtures.ts';
 import { signedInAs, type ApiClient } from './support/api-client.ts';
 import { createTestApp, type TestApp } from './support/test-app.ts';
 
@@ -9,20 +10,6 @@ import { createTestApp, type TestApp } from './support/test-app.ts';
 
 // 24–36 V → 12 V, 10 A, 100 kHz, ripple 0.3 (the worked example of tests/api/calc.test.ts).
 const SPEC = { vinMin: 24, vinMax: 36, vout: 12, ioutMax: 10, frequency: 100e3, rippleRatio: 0.3 };
-const INLINE_MATERIAL = {
-  name: 'pool test ferrite (invented)',
-  family: 'ferrite',
-  k: 3.5,
-  alpha: 1.4,
-  beta: 2.6,
-  fitFrequencyMin: 20e3,
-  fitFrequencyMax: 500e3,
-  fitFluxMin: 0.01,
-  fitFluxMax: 0.3,
-  bsat25: 0.49,
-  bsat100: 0.39,
-  permeability: 2300,
-};
 
 let pooled: TestApp;
 let inline: TestApp;
@@ -50,7 +37,7 @@ afterAll(async () => {
 
 describe('a search in the worker pool', () => {
   it('answers exactly what the inline search answers', async () => {
-    const body = { spec: SPEC, materialIds, materials: [INLINE_MATERIAL], limit: 30 };
+    const body = { spec: SPEC, materialIds, materials: [ferriteA], limit: 30 };
     const [viaPool, viaInline] = await Promise.all([onPool.post('/api/calc/search', body), onInline.post('/api/calc/search', body)]);
     expect(viaPool.status).toBe(200);
     expect(viaPool.headers['content-type']).toBe('application/json; charset=utf-8');
@@ -106,13 +93,7 @@ describe('a full pool', () => {
     const held = pool.search({
       spec: { ...SPEC, rectifier: 'ideal' },
       cores: Array.from({ length: 40 }, (_, copy) => cores.map((core) => ({ ...core, id: `${core.id}~${copy}` }))).flat(),
-      materials: Array.from({ length: 20 }, (_, i): CoreMaterial => ({
-        ...INLINE_MATERIAL,
-        id: `held-${i}`,
-        family: 'ferrite',
-        k: 2 + i / 4,
-        density: 4800,
-      })),
+      materials: Array.from({ length: 20 }, (_, i): CoreMaterial => ({ ...ferriteA, id: `held-${i}`, k: 2 + i / 4 })),
       wires: full.services.catalogue.standardWires(),
     });
     expect(pool.pending).toBe(1);
