@@ -4,7 +4,7 @@ import { fork } from 'node:child_process';
 import { searchCandidates } from '@shared/engine/index';
 import { dropDatabase, ensureCluster, ensureDatabase } from '../../server/ops/postgres.ts';
 import { DEMO_USERS } from '../../server/seed/demo-scenario.ts';
-import { startServerProcess } from '../support/server-process.ts';
+import { startServerProcess, type ServerProcess } from '../support/server-process.ts';
 import { SessionClient } from '../support/session-client.ts';
 import { BENCH_SPEC, inventedMaterials, loadCatalogue, type BenchRow } from './engine.ts';
 import type { SearchLoadCounts, SearchLoadData, SearchLoadMessage } from './search-load.ts';
@@ -84,8 +84,13 @@ function searchLoad(data: SearchLoadData) {
   const exited = new Promise((resolve) => child.once('exit', resolve));
   const send = (message: SearchLoadMessage) => child.send(message);
   const ask = (message: SearchLoadMessage) =>
-    new Promise<SearchLoadCounts>((resolve) => {
-      child.once('message', (counts) => resolve(counts as SearchLoadCounts));
+    new Promise<SearchLoadCounts>((resolve, reject) => {
+      const ended = () => reject(new Error('the search load process ended before answering'));
+      child.once('exit', ended);
+      child.once('message', (counts) => {
+        child.off('exit', ended);
+        resolve(counts as SearchLoadCounts);
+      });
       send(message);
     });
   send({ start: data });
@@ -97,6 +102,8 @@ function searchLoad(data: SearchLoadData) {
       await exited;
       return counts;
     },
+    /** For a bench that failed half-way: the loops must not outlive it. */
+    kill: () => child.exitCode === null && child.kill(),
   };
 }
 
@@ -104,8 +111,10 @@ export async function runSearchBench({ runs = 40, connections = 8, rounds = 6 } 
   const database = `gapwright_bench_search_${Date.now().toString(36)}`;
   const cluster = ensureCluster();
   ensureDatabase(database);
-  const server = await startServerProcess(cluster.urlFor(database), { NODE_ENV: 'production' });
+  let server: ServerProcess | undefined;
+  let load: ReturnType<typeof searchLoad> | undefined;
   try {
+    server = await startServerProcess(cluster.urlFor(database), { NODE_ENV: 'production' });
     const engineer = DEMO_USERS.find((u) => u.role === 'engineer')!;
     const client = await SessionClient.signIn(server.baseUrl, engineer.username, engineer.password);
     const body = { spec: BENCH_SPEC, materials: inventedMaterials(), limit: LIMIT };
@@ -127,7 +136,7 @@ export async function runSearchBench({ runs = 40, connections = 8, rounds = 6 } 
 
     // (b) Health alone, then beside `connections` connections searching back to back, in turns: the machine's other
     // load drifts, and idle and busy rounds side by side see the same drift.
-    const load = searchLoad({
+    load = searchLoad({
       url: `${server.baseUrl}/api/calc/search`,
       headers: client.headers('POST', true),
       body: JSON.stringify(body),
@@ -175,8 +184,9 @@ export async function runSearchBench({ runs = 40, connections = 8, rounds = 6 } 
       },
     ];
   } finally {
-    server.child.kill('SIGTERM');
-    await server.exited;
+    load?.kill();
+    server?.child.kill('SIGTERM');
+    await server?.exited;
     dropDatabase(database);
   }
 }
