@@ -23,6 +23,7 @@ import { absoluteLifetime, createSessionMiddleware, idleRenewal } from './auth/s
 import { createSessionLayer } from './auth/session-layer.ts';
 import { calcRouter } from './calc/calc.router.ts';
 import { CalcService } from './calc/calc.service.ts';
+import { SearchPool } from './calc/search-pool.ts';
 import { catalogueRouter } from './catalogue/catalogue.router.ts';
 import { CatalogueService } from './catalogue/catalogue.service.ts';
 import type { Config } from './config.ts';
@@ -75,6 +76,8 @@ export interface Services {
   users: UsersService;
   catalogue: CatalogueService;
   materials: MaterialsRepository;
+  /** Worker threads for the engine's long calls; closed with the app. */
+  searchPool: SearchPool;
   calc: CalcService;
   materialLibrary: MaterialsService;
   userCores: UserCoresService;
@@ -96,14 +99,15 @@ export function createServices({
   const users = new UsersService(new UsersRepository(db), audit, config.bcryptCost);
   const catalogue = new CatalogueService();
   const materials = new MaterialsRepository(db);
-  const calc = new CalcService(catalogue, materials);
+  const searchPool = new SearchPool(config.search);
+  const calc = new CalcService(catalogue, materials, searchPool);
   const materialLibrary = new MaterialsService(materials, audit);
   const userCores = new UserCoresService(new UserCoresRepository(db), catalogue, audit);
   const mail = new MailDeliveryService(db, jobs, mailTarget, config.smtp.retryDelaysMs, logger);
   const shop = new ShopService(new ShopRepository(db), catalogue, mail, audit);
   const review = new ReviewService(new ReviewRepository(db), audit, shop);
   const outbox = new OutboxService(db);
-  return { jobs, audit, users, catalogue, materials, calc, materialLibrary, userCores, mail, shop, review, outbox };
+  return { jobs, audit, users, catalogue, materials, searchPool, calc, materialLibrary, userCores, mail, shop, review, outbox };
 }
 
 export function createApp(deps: AppDeps) {
@@ -118,6 +122,7 @@ export function createApp(deps: AppDeps) {
     materials,
     { core: (id) => services.userCores.core(id), wire: (choice) => catalogue.wire(choice) },
     designs,
+    services.searchPool,
   );
   const openApiDocument = buildOpenApiDocument();
   const sessions = createSessionMiddleware(config, pool);
@@ -203,6 +208,7 @@ export function createApp(deps: AppDeps) {
       await services.jobs.stop();
       services.mail.close();
       await sessions.close();
+      await services.searchPool.close();
     },
   };
 }

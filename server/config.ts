@@ -1,3 +1,4 @@
+import { availableParallelism } from 'node:os';
 import * as z from 'zod';
 
 // The only place that reads process.env: everything else receives a validated Config.
@@ -39,6 +40,11 @@ const envSchema = z.object({
     .regex(/^[a-z_][a-z0-9_]{0,40}$/, { error: 'JOBS_SCHEMA must be a lower-case PostgreSQL name' })
     .default('pgboss'),
   JOBS_POLL_SECONDS: z.coerce.number().min(0.5).default(2),
+  // Searches run in worker threads; 0 runs them on the main thread (the behaviour before the pool, kept for comparison).
+  SEARCH_WORKERS: z.coerce.number().int().min(0).max(64).optional(),
+  SEARCH_QUEUE: z.coerce.number().int().min(0).max(10_000).default(64),
+  SEARCH_IDLE_SECONDS: z.coerce.number().min(1).default(60),
+  SEARCH_NICE: z.coerce.number().int().min(0).max(19).default(10),
   MAIL_RETRY_DELAYS_MS: z
     .string()
     .default('2000,10000,60000,300000')
@@ -68,6 +74,11 @@ export interface Config {
   /** A real SMTP relay when host is set; otherwise the built-in fake on loopback (development and tests). */
   /** The background job queue (pg-boss): its schema and how often idle workers look for work. */
   jobs: { schema: string; pollSeconds: number };
+  /**
+   * The engine's worker-thread pool: threads (0 = inline on the main thread), searches allowed to wait beyond those
+   * running (one more is refused as busy), how long an idle thread is kept, and how much lower its CPU priority is.
+   */
+  search: { workers: number; queue: number; idleMs: number; nice: number };
   smtp: {
     host?: string;
     port: number;
@@ -105,6 +116,13 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     bcryptCost: e.BCRYPT_COST,
     dbConnectTimeoutMs: e.DB_CONNECT_TIMEOUT_MS,
     jobs: { schema: e.JOBS_SCHEMA, pollSeconds: e.JOBS_POLL_SECONDS },
+    // One core is left to the main thread, which answers every other request while searches run.
+    search: {
+      workers: e.SEARCH_WORKERS ?? Math.max(1, availableParallelism() - 1),
+      queue: e.SEARCH_QUEUE,
+      idleMs: e.SEARCH_IDLE_SECONDS * 1000,
+      nice: e.SEARCH_NICE,
+    },
     smtp: {
       host: e.SMTP_HOST || undefined,
       port: e.SMTP_PORT,

@@ -35,8 +35,9 @@ export async function startServer(config: Config): Promise<RunningServer> {
       }
     : { host: '127.0.0.1', port: fakeSmtp!.port, secure: false, from: config.smtp.from };
   if (fakeSmtp) logger.info({ port: fakeSmtp.port }, 'local fake SMTP server is capturing mail for the admin outbox');
-  const { app, start, close } = createApp({ config, pool, db, logger, mailTarget });
+  const { app, start, close, services } = createApp({ config, pool, db, logger, mailTarget });
   await start();
+  services.searchPool.warm();
 
   const server = await new Promise<Server>((resolve, reject) => {
     const s = app.listen(config.port, config.host, (err?: Error) => (err ? reject(err) : resolve(s)));

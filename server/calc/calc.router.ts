@@ -8,7 +8,15 @@ export function calcRouter(calc: CalcService): Router {
   const router = Router();
   mount(router, operatingPoint, ({ body }) => calc.operatingPoint(body));
   mount(router, coreLoss, ({ body }) => calc.coreLoss(body));
-  mount(router, search, ({ body }) => calc.search(body));
+  // Searches run in a worker thread, which also encodes (and compresses) the answer: the main thread only passes the
+  // bytes on (res.end, not res.send: no ETag hashed over them for a POST nobody revalidates).
+  mount(router, search, async ({ body, req, res }) => {
+    const gzip = req.acceptsEncodings('gzip') === 'gzip';
+    const bytes = await calc.searchAnswer(body, { gzip });
+    res.type('json').vary('Accept-Encoding').setHeader('Content-Length', bytes.byteLength);
+    if (gzip) res.setHeader('Content-Encoding', 'gzip');
+    res.end(bytes);
+  });
   mount(router, evaluate, ({ body, query }) => calc.evaluate(body, { withFrequencySweep: query.sweep === 'frequency' }));
   return router;
 }

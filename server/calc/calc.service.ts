@@ -7,8 +7,8 @@ import {
   lossVersusFrequency,
   operatingPoint,
   rippleHarmonics,
-  searchCandidates,
   steinmetzLoss,
+  type SearchInput,
 } from '@shared/engine/index';
 import type { CoreMaterial } from '@shared/engine/types';
 import type { CoreLossRequest, EvaluateRequest, InlineMaterial, OperatingPointRequest, SearchRequest } from '@shared/schemas/calc';
@@ -16,6 +16,7 @@ import type { CatalogueService } from '../catalogue/catalogue.service.ts';
 import { badRequest } from '../http/errors.ts';
 import { toCoreMaterial } from '../materials/material-view.ts';
 import type { MaterialsRepository } from '../materials/materials.repository.ts';
+import type { SearchPool } from './search-pool.ts';
 
 const HARMONICS_REPORTED = 15;
 const SINE_SAMPLES = 720;
@@ -29,14 +30,15 @@ const TYPICAL_DENSITY: Record<InlineMaterial['family'], number> = {
 };
 
 /** Engine refusals become 400s that name the offending field. */
+function asBadRequest(error: unknown, fieldPrefix = ''): unknown {
+  return error instanceof EngineInputError ? badRequest(error.message, { [`${fieldPrefix}${error.field}`]: error.message }) : error;
+}
+
 function engineCall<T>(fn: () => T, fieldPrefix = ''): T {
   try {
     return fn();
   } catch (error) {
-    if (error instanceof EngineInputError) {
-      throw badRequest(error.message, { [`${fieldPrefix}${error.field}`]: error.message });
-    }
-    throw error;
+    throw asBadRequest(error, fieldPrefix);
   }
 }
 
@@ -44,6 +46,7 @@ export class CalcService {
   constructor(
     private readonly catalogue: CatalogueService,
     private readonly materials: MaterialsRepository,
+    private readonly pool: SearchPool,
   ) {}
 
   operatingPoint(request: OperatingPointRequest) {
@@ -73,6 +76,22 @@ export class CalcService {
   }
 
   async search(request: SearchRequest) {
+    const input = await this.searchInput(request);
+    const result = await this.pool.search(input).catch((error: unknown) => {
+      throw asBadRequest(error, 'spec.');
+    });
+    return { engineVersion: ENGINE_VERSION, ...result };
+  }
+
+  /** The same answer as `search`, already encoded as JSON (and gzipped if asked) by the worker that ran it. */
+  async searchAnswer(request: SearchRequest, options: { gzip: boolean }): Promise<Uint8Array> {
+    const input = await this.searchInput(request);
+    return this.pool.searchAnswer(input, options).catch((error: unknown) => {
+      throw asBadRequest(error, 'spec.');
+    });
+  }
+
+  private async searchInput(request: SearchRequest): Promise<SearchInput> {
     const materials = await this.resolveMaterials(request.materialIds ?? [], request.materials ?? []);
     let cores = this.catalogue.cores();
     if (request.coreIds?.length) {
@@ -82,20 +101,15 @@ export class CalcService {
     const families = request.families ?? request.limits?.allowedFamilies;
     if (families?.length) cores = cores.filter((c) => families.includes(c.family));
     if (!cores.length) throw badRequest('No catalogue core matches the requested ids and families.', { coreIds: 'No matching core' });
-    const result = engineCall(
-      () =>
-        searchCandidates({
-          spec: request.spec,
-          limits: request.limits,
-          cores,
-          materials,
-          wires: this.catalogue.standardWires(),
-          rankBy: request.rankBy,
-          limit: request.limit,
-        }),
-      'spec.',
-    );
-    return { engineVersion: ENGINE_VERSION, ...result };
+    return {
+      spec: request.spec,
+      limits: request.limits,
+      cores,
+      materials,
+      wires: this.catalogue.standardWires(),
+      rankBy: request.rankBy,
+      limit: request.limit,
+    };
   }
 
   async evaluate(request: EvaluateRequest, options: { withFrequencySweep?: boolean } = {}) {

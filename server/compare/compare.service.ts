@@ -1,8 +1,5 @@
 import {
   ENGINE_VERSION,
-  EngineInputError,
-  compatible,
-  evaluateDesign,
   fitRangeCheck,
   igseTriangleLoss,
   steinmetzLoss,
@@ -17,11 +14,10 @@ import type {
   CompareDesignResponse,
   CompareSavedDesignRequest,
   CurvePoint,
-  DesignComparisonRow,
-  DesignFluxPoint,
 } from '@shared/schemas/compare';
 import type { WireChoice } from '@shared/catalogue/wire-from-request';
 import type { Construction, DesignSpec } from '@shared/schemas/designs';
+import type { SearchPool } from '../calc/search-pool.ts';
 import { badRequest, conflict } from '../http/errors.ts';
 import { toCoreMaterial } from '../materials/material-view.ts';
 import type { MaterialRow, MaterialsRepository } from '../materials/materials.repository.ts';
@@ -60,17 +56,12 @@ export interface SavedRevisions {
   revision(designId: number, revision: number): Promise<SavedRevision>;
 }
 
-function incompatibility(core: CoreShape, material: CoreMaterial): string {
-  return core.gapKind === 'distributed'
-    ? `${core.id} has no air gap to set: it takes a powder material`
-    : `a ${material.family} material has its gap distributed in the material: it needs a ring or toroid core, not ${core.id}`;
-}
-
 export class CompareService {
   constructor(
     private readonly materials: MaterialsRepository,
     private readonly catalogue: CompareCatalogue,
     private readonly revisions: SavedRevisions,
+    private readonly engine: Pick<SearchPool, 'compareMaterials'>,
   ) {}
 
   private async rows(ids: string[]): Promise<MaterialRow[]> {
@@ -159,42 +150,14 @@ export class CompareService {
     } catch (error) {
       throw badRequest((error as Error).message, { wire: (error as Error).message });
     }
-    let fluxPoint: DesignFluxPoint | undefined;
-    const result = rows.map((row): DesignComparisonRow => {
-      const material = toCoreMaterial(row);
-      const base = { materialId: material.id, name: material.name, family: material.family };
-      if (!compatible(core, material)) return { ...base, status: 'incompatible', reason: incompatibility(core, material) };
-      try {
-        const evaluation = evaluateDesign({
-          spec: request.spec as ConverterSpec,
-          limits: request.limits as Partial<DesignLimits> | undefined,
-          core,
-          material,
-          turns: request.turns,
-          gap: 'auto',
-          wire,
-        });
-        fluxPoint ??= { deltaB: evaluation.flux.swing, frequency: request.spec.frequency, duty: evaluation.operatingPoint.dutyAtVinMax };
-        const fit = fitRangeCheck(material, request.spec.frequency, evaluation.flux.acPeak);
-        const errors = evaluation.issues.filter((i) => i.severity === 'error').map((i) => i.message);
-        return {
-          ...base,
-          status: 'ok',
-          feasible: evaluation.feasible,
-          gap: evaluation.gap.total,
-          coreLoss: evaluation.coreLoss.loss,
-          copperLoss: evaluation.copper.dcLoss + evaluation.copper.acLoss,
-          totalLoss: evaluation.totalLoss,
-          coreLossDensity: evaluation.coreLoss.igseDensity,
-          peakFlux: evaluation.flux.peak,
-          temperatureRise: evaluation.thermal.rise,
-          extrapolated: !fit.frequencyInRange || !fit.fluxInRange,
-          ...(errors.length ? { reason: errors.join(' ') } : {}),
-        };
-      } catch (error) {
-        if (error instanceof EngineInputError) return { ...base, status: 'error', reason: error.message };
-        throw error;
-      }
+    // In a worker thread: every material is a full evaluation, too long a loop for the main thread.
+    const { rows: result, fluxPoint } = await this.engine.compareMaterials({
+      spec: request.spec as ConverterSpec,
+      limits: request.limits as Partial<DesignLimits> | undefined,
+      core,
+      turns: request.turns,
+      wire,
+      materials: rows.map(toCoreMaterial),
     });
     return { engineVersion: ENGINE_VERSION, coreId: core.id, turns: request.turns, ...(fluxPoint ? { fluxPoint } : {}), rows: result };
   }

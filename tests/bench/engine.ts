@@ -26,11 +26,19 @@ export interface BenchRow {
   value: string;
 }
 
-const SPEC: ConverterSpec = { vinMin: 24, vinMax: 36, vout: 12, ioutMax: 10, frequency: 100e3, rippleRatio: 0.3, rectifier: 'ideal' };
+export const BENCH_SPEC: ConverterSpec = {
+  vinMin: 24,
+  vinMax: 36,
+  vout: 12,
+  ioutMax: 10,
+  frequency: 100e3,
+  rippleRatio: 0.3,
+  rectifier: 'ideal',
+};
 const SEARCH_RUNS = 50;
 
 /** 20 invented materials (16 ferrite-like, 4 powder-like) with coefficients in the generic ranges of the trade. */
-function inventedMaterials(): CoreMaterial[] {
+export function inventedMaterials(): CoreMaterial[] {
   const materials: CoreMaterial[] = [];
   for (let i = 0; i < 16; i++) {
     materials.push({
@@ -152,7 +160,7 @@ function syntheticWires(): WireOption[] {
   return wires;
 }
 
-async function loadCatalogue(): Promise<{ cores: CoreShape[]; wires: WireOption[]; source: string }> {
+export async function loadCatalogue(): Promise<{ cores: CoreShape[]; wires: WireOption[]; source: string }> {
   let cores: CoreShape[] | undefined;
   let wires: WireOption[] | undefined;
   try {
@@ -202,7 +210,7 @@ function replicate(cores: readonly CoreShape[], times: number): CoreShape[] {
 
 /** Kernel throughput: every core × material × proposed wire, repeated for about a second. */
 function evaluationsPerSecond(cores: readonly CoreShape[], materials: readonly CoreMaterial[], wires: readonly WireOption[]) {
-  const ctx = prepareSpec(SPEC);
+  const ctx = prepareSpec(BENCH_SPEC);
   const choice = chooseWire(ctx.op.rmsCurrent, ctx.limits.currentDensity, ctx.skinDepth, wires, ctx.limits.maxStrands);
   const wireCtxs = choice.options.map((w) => prepareWire(w, ctx));
   const materialCtxs = materials.map((m) => prepareMaterial(m, ctx));
@@ -235,10 +243,10 @@ function searchLatency(cores: CoreShape[], materials: CoreMaterial[], wires: Wir
   const times: number[] = [];
   let evaluated = 0;
   let feasible = 0;
-  for (let i = 0; i < 5; i++) searchCandidates({ spec: SPEC, cores, materials, wires });
+  for (let i = 0; i < 5; i++) searchCandidates({ spec: BENCH_SPEC, cores, materials, wires });
   for (let i = 0; i < SEARCH_RUNS; i++) {
     const start = performance.now();
-    const result = searchCandidates({ spec: SPEC, cores, materials, wires });
+    const result = searchCandidates({ spec: BENCH_SPEC, cores, materials, wires });
     times.push(performance.now() - start);
     evaluated = result.counts.evaluated;
     feasible = result.counts.feasible;

@@ -7,6 +7,7 @@ import { runEngineBench, type BenchRow } from './engine.ts';
 import { runHttpLoadBench } from './http-load.ts';
 import { runImportBench } from './material-import.ts';
 import { runOutageBench } from './outage.ts';
+import { runSearchBench } from './search-pool.ts';
 import { runSignedInPathBench } from './signed-in-path.ts';
 import { runWorkspaceBench } from './workspace.ts';
 
@@ -16,6 +17,7 @@ const repoRoot = fileURLToPath(new URL('../..', import.meta.url));
 // Sections by name: `npm run bench -- signed-in outage` runs only those; no names runs every section.
 const SECTIONS: Record<string, () => Promise<BenchRow[]> | BenchRow[]> = {
   engine: runEngineBench,
+  search: runSearchBench,
   http: runHttpLoadBench,
   'signed-in': runSignedInPathBench,
   import: runImportBench,

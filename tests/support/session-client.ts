@@ -25,10 +25,16 @@ export class SessionClient {
     return new SessionClient(baseUrl, this.cookies);
   }
 
-  async send(method: string, path: string, body?: unknown): Promise<Answer> {
+  /** The session's request headers, also for load tools that send requests of their own (autocannon). */
+  headers(method: string, withJsonBody: boolean): Record<string, string> {
     const headers: Record<string, string> = { cookie: [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ') };
     if (method !== 'GET') headers['x-xsrf-token'] = decodeURIComponent(this.cookies.get('XSRF-TOKEN') ?? '');
-    if (body !== undefined) headers['content-type'] = 'application/json';
+    if (withJsonBody) headers['content-type'] = 'application/json';
+    return headers;
+  }
+
+  async send(method: string, path: string, body?: unknown): Promise<Answer> {
+    const headers = this.headers(method, body !== undefined);
     try {
       const res = await fetch(`${this.baseUrl}${path}`, { method, headers, body: body === undefined ? undefined : JSON.stringify(body) });
       for (const cookie of res.headers.getSetCookie()) {
