@@ -1,8 +1,9 @@
-export const ENGINE_VERSION = '1.1.0';
+export const ENGINE_VERSION = '2.0.0';
 
 export * from './area-product';
 export * from './constants';
 export * from './copper';
+export * from './conductor-choice';
 export * from './copper-loss';
 export * from './core-loss';
 export * from './dowell';
@@ -16,6 +17,7 @@ export * from './issues';
 export * from './kernel';
 export * from './operating-point';
 export * from './powder';
+export * from './ranking';
 export * from './saturation';
 export * from './search';
 export * from './skin-depth';
