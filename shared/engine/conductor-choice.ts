@@ -7,7 +7,7 @@ import { windingResistance } from './copper';
 import type { SpecContext, WireContext } from './kernel';
 import { turnCopperArea } from './kernel';
 import type { CoreShape, WireOption } from './types';
-import { fitsBuildHeight, layWinding, type WindingGeometry } from './winding';
+import { fitsBuildHeight, layWinding, ringMeanTurnLength, type WindingGeometry } from './winding';
 
 /** Simplest first: a candidate of a later kind is kept only when it beats every simpler one clearly. */
 export const CONDUCTOR_TYPES = ['solid', 'in-hand', 'foil', 'litz'] as const;
@@ -30,19 +30,26 @@ export const FOIL_MAX_TURNS = 30;
 
 export class ConductorChooser {
   private readonly typeOf: Int8Array;
+  /** Wire indices, thickest copper first, so the DC bound below prunes the thin ones early. */
+  private readonly byArea: Int32Array;
   private readonly geometry: WindingGeometry = { turnsPerLayer: 0, layers: 0, buildHeight: 0, meanTurnLength: 0 };
-  private readonly cache = new Map<string, Int32Array>();
+  private readonly cache = new Map<number, Int32Array>();
 
   constructor(
     private readonly ctx: SpecContext,
     private readonly wires: readonly WireContext[],
   ) {
     this.typeOf = Int8Array.from(wires, (w) => conductorTypeIndex(w.wire));
+    const areaOf = (w: WireContext) => (w.wire.kind === 'foil' ? w.wire.strandDiameter : w.copperArea);
+    this.byArea = Int32Array.from(wires.map((_, i) => i).sort((a, b) => areaOf(wires[b]!) - areaOf(wires[a]!)));
   }
 
-  /** Index into `wires` of the best option of each conductor type (−1 where none fits), cached per core and turns. */
-  best(core: CoreShape, turns: number): Int32Array {
-    const key = `${core.id}\u0000${turns}`;
+  /**
+   * Index into `wires` of the best option of each conductor type (−1 where none fits), cached per core and turns.
+   * `coreKey` identifies the core within this search (its index).
+   */
+  best(core: CoreShape, coreKey: number, turns: number): Int32Array {
+    const key = coreKey * 1_000_003 + turns;
     let found = this.cache.get(key);
     if (!found) {
       found = this.choose(core, turns);
@@ -58,18 +65,22 @@ export class ConductorChooser {
     const copperLimit = limits.windowUtilisation * core.windowArea;
     const dcSquare = op.ioutMax * op.ioutMax;
     const foilWorthwhile = op.rmsCurrent / limits.currentDensity > FOIL_MIN_COPPER_AREA && turns <= FOIL_MAX_TURNS;
-    for (let i = 0; i < this.wires.length; i++) {
+    // The DC loss alone, at the shortest possible turn, bounds a wire's loss from below.
+    const shortestTurn = core.ring ? ringMeanTurnLength(core.ring, 0) : core.mlt;
+    for (let k = 0; k < this.byArea.length; k++) {
+      const i = this.byArea[k]!;
       const wireCtx = this.wires[i]!;
       const wire = wireCtx.wire;
       if (wire.kind === 'foil' ? !foilWorthwhile : wire.kind !== 'litz' && wire.strands > limits.maxStrands) continue;
       const area = turnCopperArea(wireCtx, core);
       if (!(area > 0) || turns * area > copperLimit) continue;
+      const type = this.typeOf[i]!;
+      if (windingResistance(turns, shortestTurn, area, 20) * dcSquare >= bestLoss[type]!) continue;
       layWinding(turns, wire, core, this.geometry);
       if (!fitsBuildHeight(this.geometry.buildHeight, core)) continue;
       const layers = this.geometry.layers * wireCtx.layersPerWindingLayer;
       const loss =
         windingResistance(turns, this.geometry.meanTurnLength, area, 20) * (dcSquare + rippleResistanceWeight(wireCtx.sums, layers));
-      const type = this.typeOf[i]!;
       if (loss < bestLoss[type]!) {
         bestLoss[type] = loss;
         best[type] = i;

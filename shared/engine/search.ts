@@ -209,7 +209,7 @@ export function searchCandidates(input: SearchInput): SearchResult {
       let withoutGain = 0;
       for (let turns = first.turns; ; turns = nextTurns(turns)) {
         const mag = turns === first.turns ? first : designMagnetics(core, material, ctx, turns);
-        const choice = chooser.best(core, turns);
+        const choice = chooser.best(core, c, turns);
         let stepLowest = Number.POSITIVE_INFINITY;
         let anyWire = false;
         for (let t = 0; t < CONDUCTOR_TYPES.length; t++) {
