@@ -21,6 +21,7 @@ export * from './ranking';
 export * from './saturation';
 export * from './search';
 export * from './skin-depth';
+export * from './temperature-range';
 export * from './thermal';
 export * from './types';
 export * from './winding';
