@@ -166,7 +166,7 @@ export function createApp(deps: AppDeps) {
   api.use(materialsRouter(materials, generationOf));
   api.use(reviewRouter(review));
   api.use(inboxRouter(review));
-  api.use('/shop', shopRouter(shop));
+  api.use(shopRouter(shop));
   api.use(outboxRouter(outbox));
   api.use(settingsRouter(shop));
   api.use(apiNotFound);

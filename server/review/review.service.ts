@@ -1,4 +1,4 @@
-import type { Role } from '@shared/schemas/auth';
+import { may } from '@shared/api/permissions';
 import type { InboxItem } from '@shared/schemas/inbox';
 import type { AuditService } from '../audit/audit.service.ts';
 import type { Actor } from '../http/access.ts';
@@ -8,7 +8,6 @@ import type { DesignRow, ReviewRepository, RevisionRow, Tx } from './review.repo
 import { storedEvaluation } from '@shared/schemas/designs';
 
 type Status = RevisionRow['status'];
-const REVIEW_ROLES: Role[] = ['reviewer'];
 
 const stateConflict = (revision: RevisionRow, action: string, expected: Status[]) =>
   new AppError(
@@ -97,7 +96,7 @@ export class ReviewService {
       revisionId,
       'approved',
       (revision, design) => {
-        if (!REVIEW_ROLES.includes(actor.role)) throw forbidden('Only a reviewer can approve a design.');
+        if (!may(actor.role, 'review')) throw forbidden('Only a reviewer can approve a design.');
         if (design.ownerId === actor.id || revision.createdBy === actor.id)
           throw forbidden('The author of a design cannot approve it; ask another reviewer.');
         if (revision.status !== 'in_review') throw stateConflict(revision, 'approved', ['in_review']);
@@ -116,7 +115,7 @@ export class ReviewService {
       revisionId,
       'returned',
       (revision) => {
-        if (!REVIEW_ROLES.includes(actor.role)) throw forbidden('Only a reviewer can return a design.');
+        if (!may(actor.role, 'review')) throw forbidden('Only a reviewer can return a design.');
         if (revision.status !== 'in_review' && revision.status !== 'approved')
           throw stateConflict(revision, 'returned', ['in_review', 'approved']);
       },
@@ -134,7 +133,7 @@ export class ReviewService {
       revisionId,
       'released',
       (revision, design) => {
-        if (!REVIEW_ROLES.includes(actor.role)) throw forbidden('Only a reviewer can release a design.');
+        if (!may(actor.role, 'review')) throw forbidden('Only a reviewer can release a design.');
         if (design.ownerId === actor.id || revision.createdBy === actor.id)
           throw forbidden('The author of a design cannot release it; ask another reviewer.');
         if (revision.status !== 'approved') throw stateConflict(revision, 'released', ['approved']);
@@ -171,7 +170,7 @@ export class ReviewService {
   /** What is waiting for this person. */
   async inbox(actor: Actor): Promise<{ items: InboxItem[] }> {
     const items: InboxItem[] = [];
-    if (actor.role === 'reviewer') {
+    if (may(actor.role, 'review')) {
       for (const r of await this.repo.revisionsInStatus(['in_review', 'approved'])) {
         if (r.ownerId === actor.id || r.createdBy === actor.id) continue;
         items.push({
@@ -183,7 +182,7 @@ export class ReviewService {
         });
       }
     }
-    if (actor.role === 'engineer' || actor.role === 'reviewer') {
+    if (may(actor.role, 'design')) {
       for (const r of await this.repo.returnedDraftsOf(actor.id)) {
         items.push({
           kind: 'returned',
@@ -194,7 +193,7 @@ export class ReviewService {
         });
       }
     }
-    if (actor.role === 'winder') {
+    if (may(actor.role, 'build')) {
       for (const o of await this.shop.openOrders()) {
         items.push({
           kind: 'build',

@@ -1,10 +1,4 @@
-/** Mean and sample standard deviation of measured/predicted ratios, grouped by a key. */
-export interface RatioSummary {
-  key: string;
-  units: number;
-  inductanceRatio: { mean: number; spread: number };
-  resistanceRatio: { mean: number; spread: number };
-}
+import type { RatioSummary } from '@shared/schemas/shop';
 
 function meanAndSpread(values: number[]): { mean: number; spread: number } {
   const mean = values.reduce((s, v) => s + v, 0) / values.length;
@@ -12,6 +6,7 @@ function meanAndSpread(values: number[]): { mean: number; spread: number } {
   return { mean, spread };
 }
 
+/** Mean and sample standard deviation of measured/predicted ratios, grouped by a key. */
 export function summariseRatios(samples: { key: string; inductanceRatio: number; resistanceRatio: number }[]): RatioSummary[] {
   const groups = new Map<string, { l: number[]; r: number[] }>();
   for (const s of samples) {

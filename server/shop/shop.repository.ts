@@ -1,9 +1,33 @@
 import { and, asc, count, desc, eq, sql } from 'drizzle-orm';
+import * as z from 'zod';
+import { unitFindingSchema } from '@shared/schemas/shop';
+import { windingSheetSchema } from '@shared/schemas/winding-sheet';
+import type { UnitFinding } from '@shared/shop/measurement';
+import type { WindingSheet } from '@shared/shop/sheet';
 import type { Db, Tx } from '../db/client.ts';
 import { appSettings, buildOrders, buildUnits, designRevisions, designs, users } from '../db/schema.ts';
 
-export type OrderRow = typeof buildOrders.$inferSelect;
-export type UnitRow = typeof buildUnits.$inferSelect;
+type OrderRow = typeof buildOrders.$inferSelect;
+type UnitRow = typeof buildUnits.$inferSelect;
+/** A build order with its frozen sheet read back through the sheet's schema. */
+export type StoredOrder = Omit<OrderRow, 'sheet'> & { sheet: WindingSheet };
+export type StoredUnit = Omit<UnitRow, 'findings'> & { findings: UnitFinding[] };
+
+const findingsSchema = z.array(unitFindingSchema);
+
+/**
+ * Stored JSON read back with its schema. The app wrote it, so a mismatch is a fault of ours (a 500 naming
+ * the column), not bad input.
+ */
+function stored<T>(schema: z.ZodType<T>, value: unknown, what: string): T {
+  const parsed = schema.safeParse(value);
+  if (!parsed.success) throw new Error(`stored ${what} does not match its schema: ${parsed.error.message}`);
+  return parsed.data;
+}
+
+const storedSheet = (value: unknown): WindingSheet => stored(windingSheetSchema, value, 'winding sheet');
+const storedOrder = (row: OrderRow): StoredOrder => ({ ...row, sheet: storedSheet(row.sheet) });
+const storedUnit = (row: UnitRow): StoredUnit => ({ ...row, findings: stored(findingsSchema, row.findings, 'unit findings') });
 
 export class ShopRepository {
   constructor(readonly db: Db) {}
@@ -13,9 +37,9 @@ export class ShopRepository {
     return `BO-${String(n).padStart(4, '0')}`;
   }
 
-  async insertOrder(tx: Tx, order: typeof buildOrders.$inferInsert): Promise<OrderRow> {
+  async insertOrder(tx: Tx, order: typeof buildOrders.$inferInsert & { sheet: WindingSheet }): Promise<StoredOrder> {
     const [row] = await tx.insert(buildOrders).values(order).returning();
-    return row;
+    return { ...row, sheet: order.sheet };
   }
 
   async userName(tx: Tx, id: number | null): Promise<string> {
@@ -48,13 +72,14 @@ export class ShopRepository {
       .orderBy(desc(buildOrders.createdAt));
   }
 
-  async order(id: number): Promise<OrderRow | undefined> {
+  async order(id: number): Promise<StoredOrder | undefined> {
     const [row] = await this.db.select().from(buildOrders).where(eq(buildOrders.id, id));
-    return row;
+    return row && storedOrder(row);
   }
 
-  units(orderId: number): Promise<UnitRow[]> {
-    return this.db.select().from(buildUnits).where(eq(buildUnits.orderId, orderId)).orderBy(asc(buildUnits.unitNumber));
+  async units(orderId: number): Promise<StoredUnit[]> {
+    const rows = await this.db.select().from(buildUnits).where(eq(buildUnits.orderId, orderId)).orderBy(asc(buildUnits.unitNumber));
+    return rows.map(storedUnit);
   }
 
   /**
@@ -63,7 +88,7 @@ export class ShopRepository {
    */
   recordUnit(
     orderId: number,
-    unit: Omit<typeof buildUnits.$inferInsert, 'orderId' | 'unitNumber'>,
+    unit: Omit<typeof buildUnits.$inferInsert, 'orderId' | 'unitNumber'> & { findings: UnitFinding[] },
     onLocked: (order: OrderRow) => void,
     onSaved: (tx: Tx, order: OrderRow, unit: UnitRow) => Promise<void>,
   ) {
@@ -86,11 +111,11 @@ export class ShopRepository {
         status = 'complete';
       }
       await onSaved(tx, order, row!);
-      return { unit: row, orderStatus: status, passed };
+      return { unit: { ...row!, findings: unit.findings }, orderStatus: status, passed };
     });
   }
 
-  /** Every built unit with what was predicted for it, for measured-versus-predicted summaries. */
+  /** Every built unit with what was predicted for it (the order's sheet), for measured-versus-predicted summaries. */
   async measuredAgainstPredicted() {
     const rows = await this.db
       .select({
@@ -109,7 +134,13 @@ export class ShopRepository {
       .innerJoin(designRevisions, eq(designRevisions.id, buildOrders.revisionId))
       .innerJoin(designs, eq(designs.id, designRevisions.designId))
       .orderBy(asc(buildOrders.id), asc(buildUnits.unitNumber));
-    return rows;
+    // Each order's sheet is read once, however many units it has.
+    const sheets = new Map<number, WindingSheet>();
+    return rows.map((r) => {
+      let sheet = sheets.get(r.orderId);
+      if (!sheet) sheets.set(r.orderId, (sheet = storedSheet(r.sheet)));
+      return { ...r, sheet };
+    });
   }
 
   async setting<T>(key: string): Promise<T | undefined> {

@@ -1,5 +1,6 @@
+import { may } from '@shared/api/permissions';
 import { storedEvaluation, storedWire } from '@shared/schemas/designs';
-import type { UnitMeasurementRequest } from '@shared/schemas/review';
+import type { BuildOrder, OrderSummary, PredictionReport, RecordedUnit, UnitMeasurementRequest } from '@shared/schemas/shop';
 import { judgeUnit } from '@shared/shop/measurement';
 import type { WindingSheet } from '@shared/shop/sheet';
 import type { AuditService } from '../audit/audit.service.ts';
@@ -8,10 +9,9 @@ import type { Actor } from '../http/access.ts';
 import { AppError, notFound } from '../http/errors.ts';
 import type { MailDeliveryService, OutgoingMail } from '../mail/mail-delivery.service.ts';
 import type { Tx } from '../db/client.ts';
-import type { DesignRow, RevisionRow } from '../designs/designs.repository.ts';
 import { summariseRatios } from './prediction-error.ts';
 import { renderSheetPdf } from './sheet-pdf.ts';
-import type { ShopRepository } from './shop.repository.ts';
+import type { ShopRepository, StoredUnit } from './shop.repository.ts';
 import { buildWindingSheet } from './winding-sheet.ts';
 
 export const SHOP_EMAIL_KEY = 'shop_email';
@@ -25,6 +25,28 @@ interface StoredSpec {
   hipotInstruction?: string;
 }
 
+/**
+ * What a release hands the shop: the revision with its frozen result and its design. The review feature passes
+ * its rows; the shop names only the columns it reads, so it depends on no other feature's row types.
+ */
+export interface ReleasedRevision {
+  revision: {
+    id: number;
+    revision: number;
+    spec: unknown;
+    result: unknown;
+    engineVersion: string | null;
+    createdBy: number | null;
+    approvedBy: number | null;
+  };
+  design: { number: string; title: string; ownerId: number };
+  quantity: number;
+  releasedAt: Date;
+  releasedBy: number;
+}
+
+const unitAnswer = (u: StoredUnit) => ({ ...u, recordedAt: u.recordedAt.toISOString() });
+
 /** The winding shop: build orders with their frozen sheets, the hand-off mail, and built units. */
 export class ShopService {
   constructor(
@@ -37,7 +59,7 @@ export class ShopService {
   }
 
   /** Called inside the release transaction: the sheet is built now and never recomputed. */
-  async createOrder(tx: Tx, input: { revision: RevisionRow; design: DesignRow; quantity: number; releasedAt: Date; releasedBy: number }) {
+  async createOrder(tx: Tx, input: ReleasedRevision) {
     const { revision, design } = input;
     const result = storedEvaluation(revision.result);
     const wire = storedWire(revision.result);
@@ -75,15 +97,15 @@ export class ShopService {
   }
 
   /** Inside the release transaction: the hand-off mail is queued with the order, so neither exists alone. */
-  async queueReleaseMail(tx: Tx, order: { id: number; number: string; sheet: unknown }): Promise<number> {
-    const subject = releaseSubject(order.number, order.sheet as WindingSheet);
+  async queueReleaseMail(tx: Tx, order: { id: number; number: string; sheet: WindingSheet }): Promise<number> {
+    const subject = releaseSubject(order.number, order.sheet);
     return this.mail.queue(tx, RELEASE_MAIL, { orderId: order.id, ref: order.id, to: await this.shopEmail(), subject });
   }
 
   async releaseMail(orderId: number): Promise<OutgoingMail> {
     const order = await this.repo.order(orderId);
     if (!order) throw new Error(`build order ${orderId} vanished`);
-    const sheet = order.sheet as WindingSheet;
+    const { sheet } = order;
     const text = [
       `${sheet.header.designNumber} rev ${sheet.header.revision} — ${sheet.header.title} has been released to the winding shop.`,
       `Build order ${order.number}, quantity ${order.quantity}. Approved by ${sheet.header.approver}.`,
@@ -103,19 +125,21 @@ export class ShopService {
     };
   }
 
-  async listOrders(status?: 'open' | 'complete') {
-    return (await this.repo.orders(status)).map((o) => ({
+  async listOrders(status?: 'open' | 'complete'): Promise<{ orders: OrderSummary[] }> {
+    const orders = (await this.repo.orders(status)).map((o) => ({
       ...o,
       createdAt: o.createdAt.toISOString(),
       completedAt: o.completedAt?.toISOString() ?? null,
     }));
+    return { orders };
   }
 
-  openOrders() {
-    return this.listOrders('open');
+  async openOrders(): Promise<OrderSummary[]> {
+    return (await this.listOrders('open')).orders;
   }
 
-  async order(id: number) {
+  /** The order as this user sees it: `canRecord` says whether they may record a unit on it now. */
+  async order(actor: Actor, id: number): Promise<BuildOrder> {
     const order = await this.repo.order(id);
     if (!order) throw notFound('No such build order.');
     const units = await this.repo.units(id);
@@ -123,22 +147,21 @@ export class ShopService {
       ...order,
       createdAt: order.createdAt.toISOString(),
       completedAt: order.completedAt?.toISOString() ?? null,
-      sheet: order.sheet as WindingSheet,
-      units: units.map((u) => ({ ...u, recordedAt: u.recordedAt.toISOString() })),
+      units: units.map(unitAnswer),
+      canRecord: may(actor.role, 'build') && order.status === 'open',
     };
   }
 
   async sheetPdf(id: number): Promise<{ fileName: string; pdf: Buffer }> {
     const order = await this.repo.order(id);
     if (!order) throw notFound('No such build order.');
-    const sheet = order.sheet as WindingSheet;
-    return { fileName: sheetFileName(sheet), pdf: await renderSheetPdf(sheet) };
+    return { fileName: sheetFileName(order.sheet), pdf: await renderSheetPdf(order.sheet) };
   }
 
-  async recordUnit(actor: Actor, orderId: number, m: UnitMeasurementRequest) {
+  async recordUnit(actor: Actor, orderId: number, m: UnitMeasurementRequest): Promise<RecordedUnit> {
     const order = await this.repo.order(orderId);
     if (!order) throw notFound('No such build order.');
-    const judged = judgeUnit((order.sheet as WindingSheet).tests, m);
+    const judged = judgeUnit(order.sheet.tests, m);
     const saved = await this.repo.recordUnit(
       orderId,
       {
@@ -170,17 +193,16 @@ export class ShopService {
     );
     if (!saved) throw notFound('No such build order.');
     return {
-      unit: { ...saved.unit, recordedAt: saved.unit.recordedAt.toISOString() },
+      unit: unitAnswer(saved.unit),
       orderStatus: saved.orderStatus,
       passedUnits: saved.passed,
     };
   }
 
   /** Measured against predicted for every build, and the prediction error by material and by core. */
-  async predictionReport() {
+  async predictionReport(): Promise<PredictionReport> {
     const rows = await this.repo.measuredAgainstPredicted();
-    const samples = rows.map((r) => {
-      const sheet = r.sheet as WindingSheet;
+    const samples = rows.map(({ sheet, ...r }) => {
       const result = storedEvaluation(r.result);
       return {
         orderNumber: r.orderNumber,

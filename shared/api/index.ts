@@ -15,6 +15,7 @@ import * as materials from './materials';
 import * as outbox from './outbox';
 import * as review from './review';
 import * as settings from './settings';
+import * as shop from './shop';
 import * as users from './users';
 
 export const ENDPOINTS: readonly Endpoint[] = [
@@ -30,6 +31,7 @@ export const ENDPOINTS: readonly Endpoint[] = [
   designs,
   exportsApi,
   review,
+  shop,
   calc,
   compare,
   materials,

@@ -28,25 +28,6 @@ export const releaseRequestSchema = z
   .strict();
 export type ReleaseRequest = z.infer<typeof releaseRequestSchema>;
 
-const finite = (field: string, min: number, max: number, unit: string) =>
-  z
-    .number({ error: `${field} must be a number` })
-    .min(min, { error: `${field} must be between ${min} and ${max} ${unit}` })
-    .max(max, { error: `${field} must be between ${min} and ${max} ${unit}` });
-
-/** One built unit's measurements, SI units (H, Hz, Ω, °C). */
-export const unitMeasurementSchema = z
-  .object({
-    inductance: finite('inductance', 1e-9, 10, 'H'),
-    testFrequency: finite('testFrequency', 10, 10e6, 'Hz'),
-    resistance: finite('resistance', 1e-6, 1e4, 'Ω'),
-    resistanceTemperature: finite('resistanceTemperature', -40, 150, '°C'),
-    hipot: z.enum(['pass', 'fail', 'not_tested'], { error: 'hipot must be pass, fail or not_tested' }),
-    notes: text().trim().max(2000, { error: 'At most 2000 characters' }).optional(),
-  })
-  .strict();
-export type UnitMeasurementRequest = z.infer<typeof unitMeasurementSchema>;
-
 // Answers of the review routes.
 
 export const timelineEntrySchema = z.object({

@@ -1,6 +1,7 @@
 // The winding sheet: everything the shop needs to build and test one released revision.
 // Built once at release from the revision's frozen result; lengths in m, inductance in H,
-// resistance in Ω, frequencies in Hz, temperatures in °C (SI inside, formatted at the edges).
+// resistance in Ω, frequencies in Hz, temperatures in °C (SI inside, formatted at the edges). Its schema, for the
+// stored JSON and the order's answer: shared/schemas/winding-sheet.ts.
 
 export interface SheetTestLimits {
   inductance: {

@@ -36,6 +36,11 @@ describe('GET /api/openapi.json', () => {
     expect(release.requestBody.content['application/json'].schema.properties).toHaveProperty('quantity');
     expect(paths['/health'].get.security).toEqual([]);
     expect(paths['/shop/orders/{id}/sheet.pdf'].get.responses['200'].content).toHaveProperty('application/pdf');
+    const order = paths['/shop/orders/{id}'].get.responses['200'].content['application/json'].schema;
+    expect(order.properties.canRecord.type).toBe('boolean');
+    expect(order.properties.sheet.properties.tests.required).toEqual(['inductance', 'resistanceMax20', 'hipot']);
+    expect(paths['/shop/orders/{id}/units'].post.responses).toHaveProperty('201');
+    expect(paths['/shop/prediction-report'].get.description).toMatch(/^Who: engineer, reviewer, admin\./);
   });
 
   it('describes the calculation and comparison routes with request schemas generated from the zod schemas', async () => {

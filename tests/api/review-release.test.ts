@@ -216,6 +216,12 @@ describe('release hand-off to the winding shop', () => {
     expect(pdf.headers['content-disposition']).toMatch(/attachment; filename="[A-Za-z0-9._-]+\.pdf"/);
   });
 
+  it('says in the order whether the signed-in user may record units: the winder on the open order, not an engineer', async () => {
+    expect((await wendell.get(`/api/shop/orders/${orderId}`)).body.canRecord).toBe(true);
+    expect((await erin.get(`/api/shop/orders/${orderId}`)).body.canRecord).toBe(false);
+    expect((await ruth.get(`/api/shop/orders/${orderId}`)).body.canRecord).toBe(false);
+  });
+
   it('judges each unit against the sheet: DCR referred to 20 °C, inductance limits, completion at the quantity', async () => {
     const order = (await wendell.get(`/api/shop/orders/${orderId}`)).body;
     const limits = order.sheet.tests;
@@ -259,6 +265,7 @@ describe('release hand-off to the winding shop', () => {
     expect(second.body.orderStatus).toBe('complete');
     const after = await wendell.post(`/api/shop/orders/${orderId}/units`, good);
     expect(after.status).toBe(409);
+    expect((await wendell.get(`/api/shop/orders/${orderId}`)).body.canRecord).toBe(false); // complete
     expect((await wendell.get('/api/shop/orders')).body.orders.some((o: { id: number }) => o.id === orderId)).toBe(false);
   });
 

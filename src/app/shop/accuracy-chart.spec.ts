@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 
 import { accuracyChartOptions } from './accuracy-chart';
-import type { PredictionSample } from './shop-api';
+import type { PredictionSample } from '@shared/schemas/shop';
 
 const sample: PredictionSample = {
   orderNumber: '<b>O-1</b>',

@@ -1,7 +1,7 @@
+import type { PredictionSample } from '@shared/schemas/shop';
 import type { EChartsCoreOption } from 'echarts/core';
 
 import { tooltipLines } from '../charts/chart-text';
-import type { PredictionSample } from './shop-api';
 
 /** Scatter of measured/predicted inductance (x) against measured/predicted DCR (y); 1 is a perfect prediction. */
 export function accuracyChartOptions(units: readonly PredictionSample[]): EChartsCoreOption {

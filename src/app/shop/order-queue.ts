@@ -1,15 +1,20 @@
-import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatTabsModule } from '@angular/material/tabs';
 import { RouterLink } from '@angular/router';
 import { may } from '@shared/api/permissions';
+import type { CallInput } from '@shared/api/endpoint';
+import { listOrders } from '@shared/api/shop';
 
+import { endpointResource } from '../core/api';
 import { Session } from '../core/session';
 
 import { OrderTable } from './order-table';
-import { ShopApi, type OrderSummary } from './shop-api';
+
+// Both tabs come from one request.
+const EVERY_ORDER: CallInput<typeof listOrders> = { query: { status: 'all' } };
 
 /** The winding shop's queue: open build orders first, completed ones on a second tab. */
 @Component({
@@ -54,20 +59,16 @@ export class OrderQueue {
     '(inductance against DC current, temperature rise) before quantity builds, and treat ferrite cores as live unless insulated.';
   private readonly role = inject(Session).role;
   protected readonly seesAccuracy = computed(() => may(this.role(), 'predictionReport'));
-  private readonly orders = signal<OrderSummary[]>([]);
-  protected readonly loading = signal(true);
-  protected readonly open = computed(() => this.orders().filter((o) => o.status === 'open'));
-  protected readonly complete = computed(() => this.orders().filter((o) => o.status === 'complete'));
+  private readonly orders = endpointResource(listOrders, () => EVERY_ORDER, {
+    select: (answer) => answer.orders,
+    defaultValue: [],
+  });
+  protected readonly loading = this.orders.isLoading;
+  protected readonly open = computed(() => this.ordersOrNone().filter((o) => o.status === 'open'));
+  protected readonly complete = computed(() => this.ordersOrNone().filter((o) => o.status === 'complete'));
 
-  constructor() {
-    inject(ShopApi)
-      .orders('all')
-      .subscribe({
-        next: ({ orders }) => {
-          this.orders.set(orders);
-          this.loading.set(false);
-        },
-        error: () => this.loading.set(false),
-      });
+  // A resource that failed throws when read; the tabs then show no orders (the error handler has said why).
+  private ordersOrNone() {
+    return this.orders.hasValue() ? this.orders.value() : [];
   }
 }

@@ -4,8 +4,8 @@ import { MatPaginator, MatPaginatorModule } from '@angular/material/paginator';
 import { MatSort, MatSortModule } from '@angular/material/sort';
 import { MatTableDataSource, MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
+import type { OrderSummary } from '@shared/schemas/shop';
 
-import type { OrderSummary } from './shop-api';
 import { bindTableSource } from '../core/table-binding';
 
 /** One list of build orders, sortable and paged. */

@@ -1,18 +1,20 @@
-import { ChangeDetectionStrategy, Component, computed, effect, inject, signal, viewChild } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, viewChild } from '@angular/core';
 import { MatPaginator, MatPaginatorModule } from '@angular/material/paginator';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSort, MatSortModule } from '@angular/material/sort';
 import { MatTableDataSource, MatTableModule } from '@angular/material/table';
-import { microhenry, milliohm } from '@shared/shop/sheet-text';
+import { predictionReport } from '@shared/api/shop';
+import type { PredictionSample, RatioSummary } from '@shared/schemas/shop';
 import { NgxEchartsDirective } from 'ngx-echarts';
 
+import { endpointResource } from '../core/api';
+import { QuantityPipe } from '../units/quantity';
 import { accuracyChartOptions } from './accuracy-chart';
-import { ShopApi, type PredictionReport, type PredictionSample, type RatioSummary } from './shop-api';
 
 /** Every built unit's measurements against the frozen prediction, and the prediction error by material and by core. */
 @Component({
   selector: 'gw-prediction-accuracy',
-  imports: [MatPaginatorModule, MatProgressBarModule, MatSortModule, MatTableModule, NgxEchartsDirective],
+  imports: [MatPaginatorModule, MatProgressBarModule, MatSortModule, MatTableModule, NgxEchartsDirective, QuantityPipe],
   templateUrl: './prediction-accuracy.html',
   styles: `
     .gw-chart {
@@ -39,8 +41,9 @@ export class PredictionAccuracy {
   private readonly sort = viewChild.required(MatSort);
   private readonly paginator = viewChild.required(MatPaginator);
 
-  protected readonly report = signal<PredictionReport | null>(null);
-  protected readonly loading = signal(true);
+  private readonly resource = endpointResource(predictionReport, () => ({}));
+  protected readonly report = computed(() => (this.resource.hasValue() ? this.resource.value() : null));
+  protected readonly loading = this.resource.isLoading;
   protected readonly chartOptions = computed(() => accuracyChartOptions(this.report()?.units ?? []));
   protected readonly unitColumns = [
     'orderNumber',
@@ -55,20 +58,11 @@ export class PredictionAccuracy {
   ];
   protected readonly summaryColumns = ['key', 'units', 'lMean', 'lSpread', 'rMean', 'rSpread'];
   protected readonly units = new MatTableDataSource<PredictionSample>([]);
-  protected readonly microhenry = microhenry;
-  protected readonly milliohm = milliohm;
 
   constructor() {
-    inject(ShopApi)
-      .predictionReport()
-      .subscribe({
-        next: (report) => {
-          this.report.set(report);
-          this.units.data = report.units;
-          this.loading.set(false);
-        },
-        error: () => this.loading.set(false),
-      });
+    effect(() => {
+      this.units.data = this.report()?.units ?? [];
+    });
     effect(() => {
       this.units.sort = this.sort();
       this.units.paginator = this.paginator();

@@ -3,7 +3,7 @@ import type { ComponentFixture } from '@angular/core/testing';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 
 import { RecordUnitForm } from './record-unit-form';
-import type { RecordedUnit } from './shop-api';
+import type { RecordedUnit } from '@shared/schemas/shop';
 import { typeInto } from '../testing/form-fields';
 import { renderWithHttpTesting } from '../testing/render';
 
@@ -62,7 +62,28 @@ describe('RecordUnitForm', () => {
     expect(body['resistanceTemperature']).toBe(25);
     expect(body['hipot']).toBe('pass');
     expect(body).not.toHaveProperty('notes');
-    request.flush({ unit: { unitNumber: 1, passed: true }, orderStatus: 'open', passedUnits: 1 });
+    // The whole answer: the form reads it through the declared answer schema.
+    const answer: RecordedUnit = {
+      unit: {
+        id: 11,
+        orderId: 5,
+        unitNumber: 1,
+        inductance: 98.5e-6,
+        testFrequency: 10e3,
+        resistance: 41e-3,
+        resistanceTemperature: 25,
+        resistanceAt20: 40.2e-3,
+        hipot: 'pass',
+        passed: true,
+        findings: [{ check: 'inductance', passed: true, message: 'L = 98.5 µH' }],
+        notes: null,
+        recordedBy: 4,
+        recordedAt: '2026-01-05T10:00:00.000Z',
+      },
+      orderStatus: 'open',
+      passedUnits: 1,
+    };
+    request.flush(answer);
     await fixture.whenStable();
 
     expect(recorded?.unit.unitNumber).toBe(1);

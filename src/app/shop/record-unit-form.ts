@@ -4,11 +4,13 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
-import type { UnitMeasurementRequest } from '@shared/schemas/review';
+import { recordUnit } from '@shared/api/shop';
+import type { RecordedUnit, UnitMeasurementRequest } from '@shared/schemas/shop';
 
+import { Api } from '../core/api';
+import { errorsShownByCaller } from '../core/error-display';
 import { showServerFieldErrors } from '../core/server-field-errors';
 import { QuantityInput } from '../units/quantity-input';
-import { ShopApi, type RecordedUnit } from './shop-api';
 
 type Hipot = UnitMeasurementRequest['hipot'];
 
@@ -90,7 +92,7 @@ type Hipot = UnitMeasurementRequest['hipot'];
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class RecordUnitForm {
-  private readonly api = inject(ShopApi);
+  private readonly api = inject(Api);
   private readonly formDirective = viewChild.required(FormGroupDirective);
 
   readonly orderId = input.required<number>();
@@ -132,7 +134,8 @@ export class RecordUnitForm {
     };
     this.busy.set(true);
     this.formError.set(null);
-    this.api.recordUnit(this.orderId(), measurement).subscribe({
+    // Failures come back here and are shown under the fields they name.
+    this.api.call(recordUnit, { params: { id: String(this.orderId()) }, body: measurement }, errorsShownByCaller()).subscribe({
       next: (recorded) => {
         this.busy.set(false);
         const frequency = v.testFrequency;

@@ -1,0 +1,84 @@
+// The frozen winding sheet as stored with a build order and sent to the client, tied to its type in
+// shared/shop/sheet.ts (`satisfies`), so the builder, the stored JSON, the answer and the client agree.
+import * as z from 'zod';
+import type { SheetTestLimits, WindingSheet } from '@shared/shop/sheet';
+
+export const sheetTestLimitsSchema = z.object({
+  inductance: z.object({
+    nominal: z.number().meta({ description: 'H' }),
+    min: z.number().meta({ description: 'H' }),
+    max: z.number().meta({ description: 'H' }),
+    testFrequency: z.number().meta({ description: 'Small-signal test frequency (Hz), no DC bias' }),
+    testLevel: z.number().meta({ description: 'Test level (V rms)' }),
+  }),
+  resistanceMax20: z.number().meta({ description: 'Largest DC resistance at 20 °C (Ω)' }),
+  hipot: z.object({ required: z.boolean(), instruction: z.string() }),
+}) satisfies z.ZodType<SheetTestLimits>;
+
+export const windingSheetSchema = z
+  .object({
+    header: z.object({
+      designNumber: z.string(),
+      title: z.string(),
+      revision: z.number().int(),
+      orderNumber: z.string(),
+      quantity: z.number().int(),
+      releasedAt: z.string(),
+      author: z.string(),
+      approver: z.string(),
+      engineVersion: z.string(),
+    }),
+    parts: z.object({
+      coreSet: z.string(),
+      coreMaterial: z.string(),
+      gap: z.object({
+        kind: z.enum(['centre-leg ground', 'none (distributed gap)']),
+        total: z.number().meta({ description: 'Total gap in the magnetic path (m)' }),
+        groundDepth: z.number().meta({ description: 'm' }),
+        spacerAlternative: z.number().meta({ description: 'Spacer under all legs instead of grinding (m)' }),
+        note: z.string(),
+      }),
+      bobbin: z.string(),
+      wire: z.object({
+        description: z.string(),
+        kind: z.string(),
+        strandDiameter: z.number().meta({ description: 'm' }),
+        strands: z.number().int(),
+        overallDiameter: z.number().meta({ description: 'm' }),
+        grade: z.number().int().nullable(),
+        length: z.number().meta({ description: 'Including leads (m)' }),
+        mass: z.number().meta({ description: 'Copper (kg)' }),
+      }),
+      tapes: z.array(z.string()),
+    }),
+    winding: z.object({
+      startPin: z.string(),
+      finishPin: z.string(),
+      turns: z.number().int(),
+      layers: z.number().int(),
+      turnsPerLayer: z.number().int(),
+      lastLayerTurns: z.number().int(),
+      direction: z.string(),
+      traverse: z.string(),
+      interlayerTape: z.string(),
+      margins: z.string(),
+      outerWrap: z.string(),
+    }),
+    terminations: z.array(z.string()),
+    assembly: z.array(z.string()),
+    impregnation: z.string(),
+    tests: sheetTestLimitsSchema,
+    marking: z.string(),
+    predicted: z.object({
+      inductanceNominal: z.number().meta({ description: 'H' }),
+      resistance20: z.number().meta({ description: 'Ω at 20 °C' }),
+      totalLoss: z.number().meta({ description: 'W' }),
+      hotSpot: z.number().meta({ description: '°C' }),
+      peakFlux: z.number().meta({ description: 'T' }),
+      saturationAtHotSpot: z.number().meta({ description: 'T' }),
+    }),
+    caution: z.string(),
+  })
+  .meta({
+    description: 'Built once at release from the revision’s frozen result; SI units, temperatures in °C',
+  }) satisfies z.ZodType<WindingSheet>;
