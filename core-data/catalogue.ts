@@ -19,9 +19,9 @@ import {
   ringCoreFromRow,
   shapedCoreFromRow,
 } from '@shared/catalogue/core-rows';
-import { TableError, readCsvRecords, rowError } from './csv-table';
+import { TableError, readCsvRecords, rowError } from './shipped-table';
 
-export { TableError } from './csv-table';
+export { TableError } from './shipped-table';
 
 /** Table file name → core family it holds. */
 export const CORE_TABLE_FILES: Readonly<Record<string, CoreFamily>> = {

@@ -12,7 +12,7 @@ import {
   standardWireOptions,
 } from '@shared/catalogue/wire';
 import { litzRowSchema, metricWireRowSchema } from '@shared/catalogue/wire-schema';
-import { readCsvRecords, rowError } from './csv-table';
+import { readCsvRecords, rowError } from './shipped-table';
 
 const MM = 1e-3;
 

@@ -1,133 +1,38 @@
-// Reading an uploaded CSV table (materials, cores): text checks (UTF-8, no NUL bytes), delimiter and header
-// checks against the columns of the format, row and record limits, then one record per data row with the
-// row number a spreadsheet shows. Also the parts of an import preview that do not depend on the format:
+// Uploaded CSV tables (materials, cores) on top of the one reader in `shared/csv/csv-table.ts`: its refusals
+// become 400 answers naming the field, and the parts of an import preview that do not depend on the format:
 // rows checked against each other and the stored names, the summary, and the all-or-nothing refusal.
-import { parse } from 'csv-parse/sync';
 import { stringify } from 'csv-stringify/sync';
+import {
+  CsvTableError,
+  decodeCsvText as decodeText,
+  readCsvTable,
+  type CsvRecord,
+  type CsvTableFormat as TableFormat,
+} from '@shared/csv/csv-table';
 import type { CellProblem, ImportPreview, PreviewRow } from '@shared/schemas/materials';
 import { AppError, badRequest } from './errors.ts';
 
-export const MAX_RECORD_CHARACTERS = 8_192;
+export type { CsvRecord } from '@shared/csv/csv-table';
 
-/** The columns of one CSV format and the noun its messages use ("material", "core"). */
-export interface CsvTableFormat<C extends string> {
-  columns: readonly C[];
-  /** Columns the header must have; the others may be left out (their cells are then empty). */
-  required: readonly C[];
-  noun: string;
-  maxRows: number;
+/** An upload format: the shared one, with a row limit that is never left out. */
+export type CsvTableFormat<C extends string> = TableFormat<C> & { maxRows: number };
+
+/** Runs a step of the reader, answering a table it cannot read with 400 and the fields it names. */
+function asBadRequest<T>(read: () => T): T {
+  try {
+    return read();
+  } catch (error) {
+    if (error instanceof CsvTableError) throw badRequest(error.message, error.fields);
+    throw error;
+  }
 }
-
-export interface CsvRecord<C extends string = string> {
-  /** The line of the file the record starts on (the header is line 1), as an editor or spreadsheet shows it. */
-  row: number;
-  cells: Partial<Record<C, string>>;
-  /** Problems found before validation (a wrong number of cells). */
-  shapeProblem?: string;
-}
-
-/** A record as the parser answers with `info`: its cells and the line it ends on. */
-interface ParsedRecord {
-  record: string[];
-  info: { lines: number };
-}
-
-const fileProblem = (message: string, fields: Record<string, string> = { file: message }) => badRequest(message, fields);
 
 /** Text of an upload, refusing what is not a UTF-8 text file (binary, other encodings). */
-export function decodeCsvText(buffer: Buffer): string {
-  if (buffer.length === 0) throw fileProblem('The file is empty.');
-  if (buffer.includes(0)) throw fileProblem('The file contains NUL bytes: it is a binary file, not a CSV text file.');
-  try {
-    return new TextDecoder('utf-8', { fatal: true }).decode(buffer);
-  } catch {
-    throw fileProblem('The file is not valid UTF-8 text. Save it as "CSV UTF-8" and upload it again.');
-  }
-}
+export const decodeCsvText = (buffer: Uint8Array): string => asBadRequest(() => decodeText(buffer));
 
 /** Header, delimiter and size checks, then one record per data row with its row number. */
-export function parseCsvTable<C extends string>(text: string, format: CsvTableFormat<C>): CsvRecord<C>[] {
-  const { noun, maxRows } = format;
-  // Spreadsheets and editors mix CRLF, LF and lone CR line endings; the parser expects one kind, so every
-  // line ending becomes LF first (inside quoted cells too). Line numbers are unchanged by this.
-  const withoutBom = text.replace(/^\uFEFF/, '').replace(/\r\n?/g, '\n');
-  const firstLine = withoutBom.split('\n', 1)[0] ?? '';
-  if (withoutBom.trim() === '') throw fileProblem('The file is empty.');
-  if (!firstLine.includes(',')) {
-    const other = [';', '\t', '|'].find((d) => firstLine.includes(d));
-    throw fileProblem(
-      other
-        ? `The header row is separated by "${other === '\t' ? 'tab' : other}"; Gapwright ${noun} files use commas.`
-        : `The header row has a single column; Gapwright ${noun} files are comma-separated with the columns of the template.`,
-      { header: 'Not comma-separated' },
-    );
-  }
-
-  let table: ParsedRecord[];
-  try {
-    // The limit counts records, not lines: a quoted cell may span lines and blank lines are skipped. One
-    // record more than the limit is read so that a file over it is refused as a whole, never cut short.
-    table = parse(withoutBom, {
-      bom: true,
-      delimiter: ',',
-      relax_column_count: true,
-      skip_empty_lines: true,
-      max_record_size: MAX_RECORD_CHARACTERS,
-      info: true,
-      to: maxRows + 2,
-    }) as unknown as ParsedRecord[];
-  } catch (error) {
-    const e = error as { code?: string; message?: string; lines?: number };
-    const line = e.lines ? ` near line ${e.lines}` : '';
-    const reason =
-      e.code === 'CSV_MAX_RECORD_SIZE'
-        ? `a record is longer than ${MAX_RECORD_CHARACTERS} characters`
-        : e.code === 'CSV_QUOTE_NOT_CLOSED'
-          ? 'a quoted cell is never closed'
-          : 'it is not well-formed CSV';
-    throw fileProblem(`The file cannot be read${line}: ${reason}.`, { file: `${reason}${line}` });
-  }
-
-  const [headerRecord, ...data] = table;
-  const header = headerRecord?.record;
-  if (!header) throw fileProblem('The file is empty.');
-  if (data.length > maxRows) {
-    throw fileProblem(
-      `The file has more than ${maxRows} ${noun} rows (the limit is ${maxRows} per file); nothing was imported. Split it into smaller files.`,
-    );
-  }
-  const columns = header.map((c) => c.trim().toLowerCase());
-  const headerFields: Record<string, string> = {};
-  columns.forEach((c, i) => {
-    if (!(format.columns as readonly string[]).includes(c))
-      headerFields[`header.${c || `column ${i + 1}`}`] = `Unknown column "${c.slice(0, 40)}"`;
-    else if (columns.indexOf(c) !== i) headerFields[`header.${c}`] = `Column "${c}" appears twice`;
-  });
-  for (const c of format.required) if (!columns.includes(c)) headerFields[`header.${c}`] = `Missing column "${c}"`;
-  if (Object.keys(headerFields).length) {
-    throw new AppError(
-      400,
-      'invalid_input',
-      `The header row does not match the template: ${Object.values(headerFields).slice(0, 4).join('; ')}.`,
-      headerFields,
-    );
-  }
-  if (!data.length) throw fileProblem(`The file has a header row but no ${noun} rows.`, { file: `No ${noun} rows` });
-
-  return data.map(({ record: cells, info }) => {
-    const record: CsvRecord<C> = { row: firstLineOf(cells, info.lines), cells: {} };
-    columns.forEach((c, i) => {
-      record.cells[c as C] = cells[i] ?? '';
-    });
-    if (cells.length !== columns.length) record.shapeProblem = `has ${cells.length} cells; the header has ${columns.length}`;
-    return record;
-  });
-}
-
-/** The line a record starts on: the parser reports the line it ends on, less the line breaks inside its cells. */
-function firstLineOf(cells: readonly string[], lastLine: number): number {
-  return lastLine - cells.reduce((breaks, cell) => breaks + (cell.match(/\n/g)?.length ?? 0), 0);
-}
+export const parseCsvTable = <C extends string>(text: string, format: CsvTableFormat<C>): CsvRecord<C>[] =>
+  asBadRequest(() => readCsvTable(text, format));
 
 /** CSV text of rows in the format's column order; formula-like cells are escaped for spreadsheets. */
 export function stringifyCsvTable<C extends string>(rows: Record<C, string>[], columns: readonly C[]): string {

@@ -10,14 +10,13 @@ import { checkedUserCoreShape } from './user-core-shape';
 
 export { importDecisionsSchema, type CellProblem, type ImportDecision, type ImportPreview, type PreviewRow } from './materials';
 
-/** Columns in the order the template writes them. */
-export const CORE_CSV_COLUMNS = [
-  'name',
-  'kind',
-  'family',
-  'od_mm',
-  'id_mm',
-  'height_mm',
+type UnitSuffix = 'mm' | 'mm2' | 'mm3';
+/** A dimension column's name ends in its unit (see UNIT_OF_SUFFIX). */
+type UnitNamed = `${string}_${UnitSuffix}`;
+/** A ring row's dimension columns: nominal dimensions, effective parameters by IEC 60205. */
+const RING_COLUMNS = ['od_mm', 'id_mm', 'height_mm'] as const satisfies readonly UnitNamed[];
+/** A shape row's dimension columns: the effective parameters of a gapped set. */
+const SHAPE_COLUMNS = [
   'ae_mm2',
   'amin_mm2',
   'le_mm',
@@ -28,8 +27,10 @@ export const CORE_CSV_COLUMNS = [
   'bobbin_height_mm',
   'mlt_mm',
   'surface_mm2',
-  'source',
-] as const;
+] as const satisfies readonly UnitNamed[];
+
+/** Columns in the order the template writes them. */
+export const CORE_CSV_COLUMNS = ['name', 'kind', 'family', ...RING_COLUMNS, ...SHAPE_COLUMNS, 'source'] as const;
 export type CoreCsvColumn = (typeof CORE_CSV_COLUMNS)[number];
 
 /** The header must have these; the dimension columns may be left out (a file of rings only needs no shape columns). */
@@ -38,44 +39,47 @@ export const REQUIRED_CORE_COLUMNS: readonly CoreCsvColumn[] = ['name', 'kind', 
 export const CORE_KINDS = ['ring', 'shape'] as const;
 export type CoreKind = (typeof CORE_KINDS)[number];
 
-type DimensionColumn = Exclude<CoreCsvColumn, 'name' | 'kind' | 'family' | 'source'>;
+type DimensionColumn = (typeof RING_COLUMNS)[number] | (typeof SHAPE_COLUMNS)[number];
 type RequestField =
   | keyof Omit<Extract<UserCoreRequest, { kind: 'ring' }>, 'kind' | 'name' | 'family' | 'source'>
   | keyof Omit<Extract<UserCoreRequest, { kind: 'shape' }>, 'kind' | 'name' | 'family' | 'source'>;
 
-/** Each dimension column: the request field it fills and the divisor from the column's unit to SI. */
-const DIMENSIONS: Record<DimensionColumn, { field: RequestField; unit: 'mm' | 'mm²' | 'mm³'; toSi: number }> = {
-  od_mm: { field: 'outerDiameter', unit: 'mm', toSi: 1e3 },
-  id_mm: { field: 'innerDiameter', unit: 'mm', toSi: 1e3 },
-  height_mm: { field: 'height', unit: 'mm', toSi: 1e3 },
-  ae_mm2: { field: 'ae', unit: 'mm²', toSi: 1e6 },
-  amin_mm2: { field: 'amin', unit: 'mm²', toSi: 1e6 },
-  le_mm: { field: 'le', unit: 'mm', toSi: 1e3 },
-  ve_mm3: { field: 've', unit: 'mm³', toSi: 1e9 },
-  window_mm2: { field: 'windowArea', unit: 'mm²', toSi: 1e6 },
-  window_height_mm: { field: 'windowHeight', unit: 'mm', toSi: 1e3 },
-  bobbin_width_mm: { field: 'bobbinWidth', unit: 'mm', toSi: 1e3 },
-  bobbin_height_mm: { field: 'bobbinHeight', unit: 'mm', toSi: 1e3 },
-  mlt_mm: { field: 'mlt', unit: 'mm', toSi: 1e3 },
-  surface_mm2: { field: 'surfaceArea', unit: 'mm²', toSi: 1e6 },
+/** The dimension columns each kind uses; a row's other dimension cells must be empty. */
+export const KIND_COLUMNS: Record<CoreKind, readonly DimensionColumn[]> = { ring: RING_COLUMNS, shape: SHAPE_COLUMNS };
+
+/** The request field each dimension column fills. */
+const FIELD_OF_DIMENSION: Record<DimensionColumn, RequestField> = {
+  od_mm: 'outerDiameter',
+  id_mm: 'innerDiameter',
+  height_mm: 'height',
+  ae_mm2: 'ae',
+  amin_mm2: 'amin',
+  le_mm: 'le',
+  ve_mm3: 've',
+  window_mm2: 'windowArea',
+  window_height_mm: 'windowHeight',
+  bobbin_width_mm: 'bobbinWidth',
+  bobbin_height_mm: 'bobbinHeight',
+  mlt_mm: 'mlt',
+  surface_mm2: 'surfaceArea',
 };
 
-/** The dimension columns each kind uses; a row's other dimension cells must be empty. */
-export const KIND_COLUMNS: Record<CoreKind, readonly DimensionColumn[]> = {
-  ring: ['od_mm', 'id_mm', 'height_mm'],
-  shape: [
-    'ae_mm2',
-    'amin_mm2',
-    'le_mm',
-    've_mm3',
-    'window_mm2',
-    'window_height_mm',
-    'bobbin_width_mm',
-    'bobbin_height_mm',
-    'mlt_mm',
-    'surface_mm2',
-  ],
+/** The unit a column's name ends in (`_mm`, `_mm2`, `_mm3`) and the divisor from it to SI (SI prefixes). */
+const UNIT_OF_SUFFIX: Record<UnitSuffix, { unit: 'mm' | 'mm²' | 'mm³'; toSi: number }> = {
+  mm: { unit: 'mm', toSi: 1e3 },
+  mm2: { unit: 'mm²', toSi: 1e6 },
+  mm3: { unit: 'mm³', toSi: 1e9 },
 };
+
+/** Each dimension column: the request field it fills, its unit and the divisor from that unit to SI. */
+function dimensionOf(column: DimensionColumn) {
+  const suffix = column.slice(column.lastIndexOf('_') + 1) as UnitSuffix;
+  return { field: FIELD_OF_DIMENSION[column], ...UNIT_OF_SUFFIX[suffix] };
+}
+const DIMENSIONS = Object.fromEntries(
+  (Object.keys(FIELD_OF_DIMENSION) as DimensionColumn[]).map((column) => [column, dimensionOf(column)]),
+) as Record<DimensionColumn, ReturnType<typeof dimensionOf>>;
+
 const OPTIONAL_DIMENSIONS: readonly DimensionColumn[] = ['amin_mm2'];
 
 /** The CSV column of a request field (userCoreRequestSchema) or a CoreShape field (shared core schema). */

@@ -2,6 +2,7 @@ import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { MATERIAL_CSV_COLUMNS } from '@shared/schemas/materials';
+import { TEMPLATE_ROWS } from '../../server/materials/material-template.ts';
 import { signedInAs, type ApiClient } from './support/api-client.ts';
 import { expectRefusedFile, tableCounts, uploadCsv } from './support/csv-import.ts';
 import { createTestApp, type TestApp } from './support/test-app.ts';
@@ -30,32 +31,9 @@ const upload = (
 ) => uploadCsv(client, `${IMPORT}/${step}`, content, fileName, decisions);
 
 const HEADER = MATERIAL_CSV_COLUMNS.join(',');
+/** The template's ferrite row as CSV text, under another name and with the given cells changed. */
 function csvRow(name: string, overrides: Record<string, string> = {}): string {
-  const cells: Record<string, string> = {
-    name,
-    family: 'ferrite',
-    unit_set: 'W/m3-Hz-T',
-    k: '3.2',
-    alpha: '1.4',
-    beta: '2.6',
-    f_min: '50000',
-    f_max: '300000',
-    b_min: '0.02',
-    b_max: '0.25',
-    ct0: '',
-    ct1: '',
-    ct2: '',
-    t_ref: '',
-    bsat_25: '0.5',
-    bsat_100: '0.4',
-    mu_i: '2300',
-    rolloff_a: '',
-    rolloff_b: '',
-    rolloff_c: '',
-    density: '4800',
-    provenance: 'Invented test row',
-    ...overrides,
-  };
+  const cells: Record<string, string> = { ...TEMPLATE_ROWS[0]!, name, provenance: 'Invented test row', ...overrides };
   return MATERIAL_CSV_COLUMNS.map((c) => cells[c]).join(',');
 }
 

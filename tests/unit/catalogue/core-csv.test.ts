@@ -1,34 +1,14 @@
 import { describe, expect, it } from 'vitest';
 import { CORE_CSV_COLUMNS, KIND_COLUMNS, REQUIRED_CORE_COLUMNS, validateCoreCells } from '@shared/schemas/core-csv';
 import { userCoreShape } from '@shared/schemas/user-core-shape';
+import { CORE_TEMPLATE_ROWS } from '../../../server/catalogue/core-template.ts';
 import { expectWithin } from './within';
 
-// Invented rows, no maker's part.
-const RING = {
-  name: 'Unit ring',
-  kind: 'ring',
-  family: 'RING',
-  od_mm: '20',
-  id_mm: '10',
-  height_mm: '7',
-  source: 'invented unit-test ring',
-};
-const SET = {
-  name: 'Unit E set',
-  kind: 'shape',
-  family: 'E',
-  ae_mm2: '80',
-  amin_mm2: '75',
-  le_mm: '70',
-  ve_mm3: '5600',
-  window_mm2: '120',
-  window_height_mm: '20',
-  bobbin_width_mm: '18',
-  bobbin_height_mm: '5',
-  mlt_mm: '55',
-  surface_mm2: '2800',
-  source: 'invented unit-test set',
-};
+// The template's two invented rows (no maker's part) with names and sources of their own; the ring leaves the
+// shape columns out instead of empty, as a file of rings only may.
+const filledCells = (row: Record<string, string>) => Object.fromEntries(Object.entries(row).filter(([, cell]) => cell !== ''));
+const RING = { ...filledCells(CORE_TEMPLATE_ROWS[0]!), name: 'Unit ring', source: 'invented unit-test ring' };
+const SET = { ...CORE_TEMPLATE_ROWS[1]!, name: 'Unit E set', source: 'invented unit-test set' };
 
 const problemsByColumn = (cells: Record<string, string>) =>
   Object.fromEntries(validateCoreCells(cells).problems.map((p) => [p.column, p.message]));
@@ -57,6 +37,8 @@ describe('a ring row', () => {
   });
 
   it('gives the IEC 60205 effective parameters of 20/10/7 mm', () => {
+    const { od_mm, id_mm, height_mm } = CORE_TEMPLATE_ROWS[0]!;
+    expect([od_mm, id_mm, height_mm]).toEqual(['20', '10', '7']);
     const shape = userCoreShape(validateCoreCells(RING).values!);
 
     // Computed [C] from the IEC 60205 sharp-edged ring formulas (from memory): 20/10/7 → le 43.55 mm, Ae 33.63 mm², Ve 1465 mm³ (four significant figures)

@@ -68,6 +68,20 @@ describe('parseCoreRows', () => {
     expect(() => parseCoreRows(text, 'ring.csv')).toThrow(/ring\.csv, line 1, column "inner_diameter_mm": column missing/);
   });
 
+  it('names the row of a record with too few cells and the line of a quote never closed', () => {
+    const ragged = table(RING_HEADER, `R20/10/7,20,10,7,${RING_SOURCE}`, `R10/5/4,10,5,${RING_SOURCE}`);
+    const unclosed = table(RING_HEADER, `R20/10/7,20,10,7,"${RING_SOURCE}`);
+
+    expect(() => parseCoreRows(ragged, 'ring.csv')).toThrow(/ring\.csv, row 2 \(line 3\): the row has 4 cells; the header has 5/);
+    expect(() => parseCoreRows(unclosed, 'ring.csv')).toThrow(/ring\.csv, line 2: a quoted cell is never closed/);
+  });
+
+  it('gives a record that spans lines the line it starts on', () => {
+    const text = table(RING_HEADER, `R20/10/7,20,10,7,"${RING_SOURCE}\nsecond line"`, `R10/12/5,10,12,5,"${RING_SOURCE}\nsecond line"`);
+
+    expect(() => parseCoreRows(text, 'ring.csv')).toThrow(/ring\.csv, row 2 \(line 4\), column "inner_diameter_mm"/);
+  });
+
   it('refuses a table whose file name does not say which family it holds', () => {
     expect(() => parseCoreRows(table(RING_HEADER), 'toroids.csv')).toThrow(TableError);
   });

@@ -1,7 +1,7 @@
-// Reading the shipped CSV tables: header check, records with their line numbers, and
-// errors that name the file, row, line and column to fix.
+// Reading the shipped CSV tables through the one CSV reader (`shared/csv/csv-table.ts`): records with their
+// data row and line numbers, and errors that name the file, row, line and column to fix.
 
-import { parse } from 'csv-parse/sync';
+import { CsvTableError, readCsvTable } from '@shared/csv/csv-table';
 import type { z } from 'zod';
 
 export class TableError extends Error {
@@ -21,27 +21,29 @@ export class TableError extends Error {
 }
 
 export interface TableRecord {
+  /** Cells by column, without surrounding spaces. */
   cells: Record<string, string>;
   /** 1-based data row (the header is not counted). */
   row: number;
-  /** 1-based line in the file. */
+  /** 1-based line in the file the record starts on. */
   line: number;
 }
 
+/** The records of a shipped table whose header holds exactly `expectedColumns`. */
 export function readCsvRecords(text: string, fileName: string, expectedColumns: readonly string[]): TableRecord[] {
-  let parsed: { record: Record<string, string>; info: { lines: number } }[];
+  let records;
   try {
-    parsed = parse(text, { columns: true, info: true, skip_empty_lines: true, trim: true });
+    records = readCsvTable(text, { columns: expectedColumns, required: expectedColumns, noun: 'catalogue' });
   } catch (error) {
-    const line = (error as { lines?: number }).lines;
-    throw new TableError(fileName, undefined, line, undefined, `not a readable CSV table (${(error as Error).message})`);
+    if (!(error instanceof CsvTableError)) throw error;
+    const { line, column, problem } = error.place;
+    throw new TableError(fileName, undefined, line, column, problem);
   }
-  const header = (text.split(/\r?\n/, 1)[0] ?? '').split(',').map((name) => name.trim());
-  const missing = expectedColumns.find((name) => !header.includes(name));
-  if (missing) throw new TableError(fileName, undefined, 1, missing, 'column missing from the header');
-  const unknown = header.find((name) => !expectedColumns.includes(name));
-  if (unknown !== undefined) throw new TableError(fileName, undefined, 1, unknown, 'unknown column in the header');
-  return parsed.map(({ record, info }, index) => ({ cells: record, row: index + 1, line: info.lines }));
+  return records.map(({ cells, row: line, shapeProblem }, index) => {
+    if (shapeProblem) throw new TableError(fileName, index + 1, line, undefined, `the row ${shapeProblem}`);
+    const trimmed = Object.fromEntries(Object.entries(cells).map(([column, cell]) => [column, (cell ?? '').trim()]));
+    return { cells: trimmed, row: index + 1, line };
+  });
 }
 
 /** Error for a row that failed validation; `columnOf` maps an issue path to the column it concerns. */
