@@ -108,6 +108,7 @@ export class CalcService {
       materials,
       wires: this.catalogue.standardWires(),
       rankBy: request.rankBy,
+      offset: request.offset,
       limit: request.limit,
     };
   }

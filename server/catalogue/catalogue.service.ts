@@ -1,5 +1,6 @@
 import { loadCoreCatalogue } from '@core-data/catalogue';
 import { loadStandardWireOptions, loadWireTables } from '@core-data/wire-catalogue';
+import { standardFoilOptions } from '@shared/catalogue/foil';
 import type { CoreShape, WireOption } from '@shared/engine/types';
 import { wireOptionFromChoice, type WireChoice } from '@shared/catalogue/wire-from-request';
 import { badRequest } from '../http/errors.ts';
@@ -33,7 +34,7 @@ export class CatalogueService {
   }
 
   standardWires(): WireOption[] {
-    return (this.wireOptions ??= loadStandardWireOptions());
+    return (this.wireOptions ??= [...loadStandardWireOptions(), ...standardFoilOptions()]);
   }
 
   wire(choice: WireChoice): WireOption {

@@ -67,12 +67,15 @@ export function buildBom({ result, materialName }: BomInput): BomRow[] {
   }
   const length = wireLengthWithLeads(result);
   const wireKind = result.wire.kind === 'litz' ? 'litz' : 'enamelled round copper wire (IEC 60317)';
+  const foil = result.wire.kind === 'foil';
   rows.push({
-    item: 'Wire',
-    description: `${result.wire.id}: ${wireKind}, ${result.wire.strands} × ${mm(result.wire.strandDiameter, 3)} mm bare`,
+    item: foil ? 'Copper foil' : 'Wire',
+    description: foil
+      ? `${result.wire.id}: ${mm(result.wire.strandDiameter, 3)} mm × ${mm(result.wire.copperArea / result.wire.strandDiameter, 1)} mm copper foil, one turn per layer, interlayer film between turns`
+      : `${result.wire.id}: ${wireKind}, ${result.wire.strands} × ${mm(result.wire.strandDiameter, 3)} mm bare`,
     quantity: Number(length.toFixed(3)),
     unit: 'm',
-    note: `${result.turns} turns × ${mm(result.winding.meanTurnLength, 1)} mm mean turn = ${result.winding.wireLength.toFixed(3)} m plus ${mm(LEAD_ALLOWANCE_PER_END, 0)} mm lead at each end${result.wire.kind === 'litz' ? '' : ', per conductor in hand'}`,
+    note: `${result.turns} turns × ${mm(result.winding.meanTurnLength, 1)} mm mean turn = ${result.winding.wireLength.toFixed(3)} m plus ${mm(LEAD_ALLOWANCE_PER_END, 0)} mm lead at each end${result.wire.kind === 'litz' || foil ? '' : ', per conductor in hand'}`,
   });
   rows.push({
     item: 'Copper mass',

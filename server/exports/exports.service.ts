@@ -49,8 +49,10 @@ export class ExportsService {
         limits: revision.spec.limits,
         families: revision.spec.families,
         materialIds: await this.materials.searchIds(revision.spec),
-        rankBy: 'loss',
-        limit: 50,
+        rankBy: 'smallest',
+        offset: 0,
+        // Every feasible candidate: the file is the whole ranked list, not a page of it.
+        limit: Number.MAX_SAFE_INTEGER,
       });
       return {
         fileName: `${base}-candidates.csv`,

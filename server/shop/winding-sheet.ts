@@ -23,7 +23,9 @@ export interface SheetInput {
 
 const mm = (m: number, digits = 2) => `${(m * 1e3).toFixed(digits)} mm`;
 
-function wireDescription(wire: WireOption): string {
+function wireDescription(wire: WireOption, copperArea: number): string {
+  if (wire.kind === 'foil')
+    return `Copper foil ${mm(wire.strandDiameter, 3)} thick × ${mm(copperArea / wire.strandDiameter, 1)} wide, one turn per layer, interlayer film ${mm(wire.overallDiameter - wire.strandDiameter, 3)} between turns; edges deburred, leads brazed or soldered to the foil ends`;
   if (wire.kind === 'litz')
     return `Litz ${wire.strands} × ${mm(wire.strandDiameter, 3)} strands, bundle about ${mm(wire.overallDiameter)} over serving`;
   const grade = wire.grade ? `, IEC 60317 grade ${wire.grade}` : '';
@@ -38,11 +40,12 @@ export function buildWindingSheet(input: SheetInput): WindingSheet {
   const gapped = r.core.gapKind === 'air-gap' && r.gap.total > 0;
   const tol = input.revision.inductanceTolerance;
   const nominal = r.inductance.nominal;
-  const copperArea = wire.strands * Math.PI * (wire.strandDiameter / 2) ** 2;
+  const copperArea = r.wire.copperArea;
   const wireLength = r.winding.wireLength + LEAD_ALLOWANCE;
   const full = r.winding.turnsPerLayer;
   const lastLayerTurns = r.turns - full * (r.winding.layers - 1);
   const isRing = r.core.family === 'RING' || r.core.family === 'POWDER_TOROID';
+  const foil = wire.kind === 'foil';
 
   return {
     header: {
@@ -81,7 +84,7 @@ export function buildWindingSheet(input: SheetInput): WindingSheet {
         ? 'No bobbin: wind directly on the coated ring (add an edge-protecting wrap if the coating is thin).'
         : `Bobbin for ${r.core.id}` + (core ? `, winding width ${mm(core.bobbinWidth, 1)}, build height ${mm(core.bobbinHeight, 1)}` : ''),
       wire: {
-        description: wireDescription(wire),
+        description: wireDescription(wire, copperArea),
         kind: wire.kind,
         strandDiameter: wire.strandDiameter,
         strands: wire.strands,
@@ -106,18 +109,30 @@ export function buildWindingSheet(input: SheetInput): WindingSheet {
       turnsPerLayer: full,
       lastLayerTurns,
       direction: 'Clockwise viewed from the pin side (from the start lead for a ring)',
-      traverse: 'Progressive, close-wound, turns side by side; wires in hand laid flat and parallel, not twisted',
-      interlayerTape: isRing || r.winding.layers < 2 ? 'None' : 'One wrap of polyester tape between layers',
+      traverse: foil
+        ? 'One turn per layer: foil centred on the winding width with equal edge margins, wound tight and flat, edges aligned'
+        : 'Progressive, close-wound, turns side by side; wires in hand laid flat and parallel, not twisted',
+      interlayerTape: foil
+        ? `Interlayer film ${mm(wire.overallDiameter - wire.strandDiameter, 3)} wound together with the foil, under every turn, wider than the foil`
+        : isRing || r.winding.layers < 2
+          ? 'None'
+          : 'One wrap of polyester tape between layers',
       margins: input.insulation.required
         ? 'Margins as required by the insulation specification of the design owner'
         : 'None (no safety insulation required)',
       outerWrap: 'Two wraps of polyester tape',
     },
-    terminations: [
-      'Leads 50 mm long before termination; strip the enamel only where soldered (solder-strippable enamel or mechanical stripping)',
-      'Wrap each lead 2–3 turns on its pin and solder; all wires in hand of one end on the same pin',
-      'No sharp bends at the bobbin exit; no enamel damage',
-    ],
+    terminations: foil
+      ? [
+          'Solder or braze a flat copper lead (tab) across the full width of each foil end; leads 50 mm long',
+          'Deburr the foil edges and insulate each tab joint with tape so it cannot touch the next turn',
+          'Bring both leads out on the pin side; no sharp bends',
+        ]
+      : [
+          'Leads 50 mm long before termination; strip the enamel only where soldered (solder-strippable enamel or mechanical stripping)',
+          'Wrap each lead 2–3 turns on its pin and solder; all wires in hand of one end on the same pin',
+          'No sharp bends at the bobbin exit; no enamel damage',
+        ],
     assembly: gapped
       ? [
           'Check the ground gap with a feeler gauge before assembly',

@@ -1,4 +1,5 @@
 import type { WireOption } from '../engine/types';
+import { foilOption } from './foil';
 import {
   awgDiameter,
   awgLabel,
@@ -12,7 +13,7 @@ import {
 
 /** A wire as a person names it: a kind, a bare strand size (or AWG gauge) and a count. */
 export interface WireChoice {
-  kind: 'awg' | 'metric' | 'litz';
+  kind: 'awg' | 'metric' | 'litz' | 'foil';
   strandDiameter?: number;
   awg?: number;
   strands: number;
@@ -31,6 +32,7 @@ function gaugeOf(diameter: number): number | undefined {
 /** Turns a named wire into the engine's WireOption, taking overall diameters from the IEC 60317 table. */
 export function wireOptionFromChoice(choice: WireChoice, tables: WireTables): WireOption {
   const grade = choice.grade ?? 2;
+  if (choice.kind === 'foil') return foilOption(choice.strandDiameter!);
   if (choice.kind === 'litz') {
     const strandDiameter = choice.strandDiameter ?? awgDiameter(choice.awg ?? 38);
     const overallDiameter = litzBundleDiameter(

@@ -12,3 +12,6 @@ export const HOT_SPOT_ALLOWANCE = 5;
 
 /** Above this lg/√Ae the empirical fringing factor is outside its range of validity. */
 export const FRINGING_VALIDITY_LIMIT = 0.3;
+
+/** Density of copper (kg/m³), IEC 60028 (8,890 kg/m³ at 20 °C). */
+export const COPPER_DENSITY = 8890;

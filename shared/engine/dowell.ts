@@ -39,3 +39,8 @@ export function dowellFactor(delta: number, layers: number): number {
 export function roundWireDelta(diameter: number, skinDepth: number, porosity: number): number {
   return Math.pow(Math.PI / 4, 0.75) * (diameter / skinDepth) * Math.sqrt(porosity);
 }
+
+/** Foil spanning the winding width: Dowell's layer thickness is the foil's, so Δ = h/δ. */
+export function foilDelta(thickness: number, skinDepth: number): number {
+  return thickness / skinDepth;
+}

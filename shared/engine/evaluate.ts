@@ -12,6 +12,7 @@ import {
   prepareMaterial,
   prepareSpec,
   prepareWire,
+  turnCopperArea,
   type MagneticDesign,
   type SpecContext,
   type TurnsInput,
@@ -168,8 +169,8 @@ export function assembleResult(
       kind: wire.kind,
       strandDiameter: wire.strandDiameter,
       strands: wire.strands,
-      copperArea: wireCtx.copperArea,
-      currentDensity: op.rmsCurrent / wireCtx.copperArea,
+      copperArea: turnCopperArea(wireCtx, core),
+      currentDensity: op.rmsCurrent / turnCopperArea(wireCtx, core),
     },
     turns: mag.turns,
     gap: {
@@ -246,6 +247,9 @@ function checkExplicitInputs(input: EvaluateInput): void {
   }
   if (input.gap !== 'auto' && !(input.gap >= 0 && Number.isFinite(input.gap))) {
     throw new EngineInputError('gap', `Gap must be zero or positive (m), got ${input.gap}.`);
+  }
+  if (input.wire.kind === 'foil' && input.core.ring) {
+    throw new EngineInputError('wire', `Foil is not wound on ring cores; choose round wire or litz for ${input.core.id}.`);
   }
   if (input.core.gapKind === 'air-gap' && input.material.family === 'powder') {
     throw new EngineInputError(

@@ -1,8 +1,9 @@
-export const ENGINE_VERSION = '1.1.0';
+export const ENGINE_VERSION = '2.0.0';
 
 export * from './area-product';
 export * from './constants';
 export * from './copper';
+export * from './conductor-choice';
 export * from './copper-loss';
 export * from './core-loss';
 export * from './corners';
@@ -17,9 +18,11 @@ export * from './issues';
 export * from './kernel';
 export * from './operating-point';
 export * from './powder';
+export * from './ranking';
 export * from './saturation';
 export * from './search';
 export * from './skin-depth';
+export * from './temperature-range';
 export * from './thermal';
 export * from './types';
 export * from './winding';

@@ -29,7 +29,8 @@ export interface ConverterSpec {
   currentLimit?: number;
 }
 
-export type RankBy = 'loss' | 'volume' | 'temperature';
+/** What the search ranks by: the smallest part meeting every limit, lowest loss, lowest temperature rise, or loss × volume. */
+export type RankBy = 'smallest' | 'loss' | 'temperature' | 'balanced';
 
 export interface DesignLimits {
   ambient: number;

@@ -13,7 +13,7 @@ import {
 import { windingResistance } from './copper';
 import { FRINGING_VALIDITY_LIMIT, HOT_SPOT_ALLOWANCE } from './constants';
 import { fluxInFitRange, frequencyInFitRange, igseTriangleLoss, steinmetzLoss } from './core-loss';
-import { roundWireDelta } from './dowell';
+import { foilDelta, roundWireDelta } from './dowell';
 import {
   gappedInductance,
   gappedInductanceFactor,
@@ -113,6 +113,7 @@ export function prepareSpec(spec: ConverterSpec, limits?: Partial<DesignLimits>)
 
 export interface WireContext {
   wire: WireOption;
+  /** Copper area of one turn (m²); foil's depends on the core, see `turnCopperArea`. */
   copperArea: number;
   /** Penetration ratio Δ of the fundamental. */
   firstHarmonicDelta: number;
@@ -129,7 +130,9 @@ export function prepareWire(wire: WireOption, ctx: SpecContext): WireContext {
   const porosity = isLitz
     ? Math.min(1, (wire.strandDiameter * Math.sqrt(wire.strands)) / wire.overallDiameter)
     : wire.strandDiameter / (wire.overallDiameter || wire.strandDiameter);
-  const firstHarmonicDelta = roundWireDelta(wire.strandDiameter, ctx.skinDepth, porosity);
+  // Foil spanning the winding width is Dowell's layer itself: Δ = h/δ (porosity ≈ 1).
+  const firstHarmonicDelta =
+    wire.kind === 'foil' ? foilDelta(wire.strandDiameter, ctx.skinDepth) : roundWireDelta(wire.strandDiameter, ctx.skinDepth, porosity);
   return {
     wire,
     copperArea: conductorCopperArea(wire),
@@ -138,6 +141,11 @@ export function prepareWire(wire: WireOption, ctx: SpecContext): WireContext {
     sums: acLossSums(firstHarmonicDelta, ctx.harmonics),
     acTable: acLossTable(firstHarmonicDelta, ctx.harmonics, ctx.acGrid),
   };
+}
+
+/** Copper area of one turn of this wire on this core (m²). */
+export function turnCopperArea(wireCtx: WireContext, core: CoreShape): number {
+  return wireCtx.wire.kind === 'foil' ? conductorCopperArea(wireCtx.wire, core) : wireCtx.copperArea;
 }
 
 export interface MaterialContext {
@@ -435,11 +443,12 @@ export function evaluateCandidate(
   let warnings = mag.warnings;
 
   layWinding(n, wire, core, out);
-  out.copperFill = windowFill(n, wireCtx.copperArea, core.windowArea);
+  const copperArea = turnCopperArea(wireCtx, core);
+  out.copperFill = windowFill(n, copperArea, core.windowArea);
   if (!fitsBuildHeight(out.buildHeight, core)) failures |= FAILURE.build;
   if (out.copperFill > limits.windowUtilisation) failures |= FAILURE.fill;
 
-  out.resistance20 = windingResistance(n, out.meanTurnLength, wireCtx.copperArea, 20);
+  out.resistance20 = windingResistance(n, out.meanTurnLength, copperArea, 20);
   const dowellLayers = (Number.isFinite(out.layers) ? out.layers : 1) * wireCtx.layersPerWindingLayer;
 
   out.fluxSwing = op.voltSeconds / (n * core.ae);

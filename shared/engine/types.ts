@@ -85,9 +85,14 @@ export interface CoreMaterial {
   maxTemperature?: number;
 }
 
-export type WireKind = 'awg' | 'metric' | 'litz';
+export const WIRE_KINDS = ['awg', 'metric', 'litz', 'foil'] as const;
+export type WireKind = (typeof WIRE_KINDS)[number];
 
-/** One conductor option: a round enamelled wire (n in hand) or a litz bundle. */
+/**
+ * One conductor option: a round enamelled wire (n in hand), a litz bundle, or copper foil one turn per layer.
+ * Foil: `strandDiameter` is the foil thickness (the dimension the field penetrates), `overallDiameter` the layer
+ * pitch (foil plus interlayer film); its width follows the core's winding width (see `foilWidth`).
+ */
 export interface WireOption {
   id: string; // e.g. "AWG 20 ×2", "0.50 mm G2 ×3", "litz 100×0.071 mm"
   kind: WireKind;

@@ -9,8 +9,17 @@ export interface WindingGeometry {
   meanTurnLength: number;
 }
 
-/** Copper area of one turn (m²). */
-export function conductorCopperArea(wire: WireOption): number {
+/** Foil leaves this creepage margin at each edge of the winding width (common practice, no source). */
+export const FOIL_EDGE_MARGIN = 0.5e-3;
+
+/** Width of a foil winding on this core: the winding width less an edge margin each side (m); 0 on rings. */
+export function foilWidth(core: CoreShape): number {
+  return core.ring ? 0 : Math.max(0, core.bobbinWidth - 2 * FOIL_EDGE_MARGIN);
+}
+
+/** Copper area of one turn (m²); foil takes its width from the core. */
+export function conductorCopperArea(wire: WireOption, core?: CoreShape): number {
+  if (wire.kind === 'foil') return core ? wire.strandDiameter * foilWidth(core) : 0;
   return (wire.strands * Math.PI * wire.strandDiameter * wire.strandDiameter) / 4;
 }
 
@@ -35,7 +44,23 @@ export function fitsBuildHeight(buildHeight: number, core: CoreShape): boolean {
  */
 export function layWinding(turns: number, wire: WireOption, core: CoreShape, out: WindingGeometry): void {
   if (core.ring) {
+    if (wire.kind === 'foil') {
+      // Foil is not wound on rings.
+      out.turnsPerLayer = 0;
+      out.layers = Number.POSITIVE_INFINITY;
+      out.buildHeight = Number.POSITIVE_INFINITY;
+      out.meanTurnLength = core.mlt;
+      return;
+    }
     layRingWinding(turns, wire, core.ring, core.bobbinHeight, out);
+    return;
+  }
+  if (wire.kind === 'foil') {
+    // One turn per layer across the winding width.
+    out.turnsPerLayer = foilWidth(core) > 0 ? 1 : 0;
+    out.layers = foilWidth(core) > 0 ? turns : Number.POSITIVE_INFINITY;
+    out.buildHeight = out.layers * wire.overallDiameter;
+    out.meanTurnLength = core.mlt;
     return;
   }
   const perLayer = Math.floor(core.bobbinWidth / (wire.conductorsPerTurn * wire.overallDiameter));

@@ -10,7 +10,9 @@ import type {
   SearchResult,
   WireOption,
 } from '@shared/engine/index';
-import { CORE_FAMILIES, MATERIAL_FAMILIES } from '@shared/engine/types';
+import { CORE_FAMILIES, MATERIAL_FAMILIES, WIRE_KINDS } from '@shared/engine/types';
+import { CONDUCTOR_TYPES } from '@shared/engine/conductor-choice';
+import { RANK_BY } from '@shared/engine/ranking';
 
 export const engineIssueSchema = z.object({
   code: z.string(),
@@ -55,7 +57,7 @@ export const coreLossAnswerSchema = z.object({
 
 export const wireOptionSchema = z.object({
   id: z.string(),
-  kind: z.enum(['awg', 'metric', 'litz']),
+  kind: z.enum(WIRE_KINDS),
   strandDiameter: z.number(),
   strands: z.number(),
   overallDiameter: z.number(),
@@ -83,7 +85,7 @@ export const evaluationResultSchema = z.object({
   material: z.object({ id: z.string(), name: z.string(), family: z.enum(MATERIAL_FAMILIES) }),
   wire: numbers('strandDiameter', 'strands', 'copperArea', 'currentDensity').extend({
     id: z.string(),
-    kind: z.enum(['awg', 'metric', 'litz']),
+    kind: z.enum(WIRE_KINDS),
   }),
   turns: z.number(),
   gap: numbers('total', 'spacer', 'fringingFactor', 'relativeToCore', 'sensitivity10um').extend({
@@ -133,12 +135,24 @@ export const evaluateQuerySchema = z.object({
   sweep: z.enum(['frequency']).optional().meta({ description: '"frequency" adds a loss-versus-frequency sweep' }),
 });
 
-const searchCandidateSchema = z.object({ rank: z.number(), pareto: z.boolean(), wire: wireOptionSchema, result: evaluationResultSchema });
+const searchCandidateSchema = z.object({
+  rank: z.number(),
+  pareto: z.boolean().meta({ description: 'On the loss-versus-core-volume Pareto front' }),
+  paretoByMass: z.boolean().meta({ description: 'On the loss-versus-mass Pareto front' }),
+  extrapolated: z.boolean().meta({ description: 'Core loss rests on material data used outside its fitted range' }),
+  conductor: z.enum(CONDUCTOR_TYPES),
+  volume: z.number().meta({ description: 'Core volume Ve (m³)' }),
+  mass: z.number().meta({ description: 'Core plus copper (kg)' }),
+  wire: wireOptionSchema,
+  result: evaluationResultSchema,
+});
 
 export const searchResultSchema = z.object({
-  rankBy: z.enum(['loss', 'volume', 'temperature']),
+  rankBy: z.enum(RANK_BY),
   candidates: z.array(searchCandidateSchema),
+  page: numbers('offset', 'limit', 'total'),
   paretoFront: z.array(searchCandidateSchema),
+  paretoFrontByMass: z.array(searchCandidateSchema),
   infeasible: z.array(
     z.object({
       coreId: z.string(),
@@ -149,9 +163,8 @@ export const searchResultSchema = z.object({
       reasons: z.array(engineIssueSchema),
     }),
   ),
-  counts: numbers('cores', 'materials', 'wireOptions', 'evaluated', 'feasible', 'prefiltered', 'incompatible'),
+  counts: numbers('cores', 'materials', 'wireOptions', 'evaluated', 'feasible', 'extrapolated', 'prefiltered', 'incompatible'),
   requiredAreaProduct: z.number(),
-  wireOptionIds: z.array(z.string()),
 }) satisfies z.ZodType<SearchResult>;
 
 export const searchAnswerSchema = searchResultSchema.extend({ engineVersion: z.string() });

@@ -3,6 +3,7 @@
 import * as z from 'zod';
 import { text } from './text';
 import { CORE_FAMILIES, MATERIAL_FAMILIES } from '@shared/engine/types';
+import { RANK_BY } from '@shared/engine/ranking';
 import { storedIdTextSchema, uniqueListSchema } from './ids';
 
 function rangeNumber(field: string, min: number, max: number, unit: string, description: string) {
@@ -205,7 +206,9 @@ export const inlineMaterialSchema = z
   });
 export type InlineMaterial = z.infer<typeof inlineMaterialSchema>;
 
-export const rankBySchema = z.enum(['loss', 'volume', 'temperature']).meta({ description: 'Ranking of feasible candidates' });
+export const rankBySchema = z
+  .enum(RANK_BY)
+  .meta({ description: 'What "best" means: smallest part meeting every limit, lowest loss, lowest rise, or loss × volume' });
 
 const idSchema = text().trim().min(1).max(80);
 
@@ -219,7 +222,14 @@ export const searchRequestSchema = z
     families: uniqueListSchema(z.enum(CORE_FAMILIES), CORE_FAMILIES.length, 'families')
       .meta({ description: 'Restrict to these core families' })
       .optional(),
-    rankBy: rankBySchema.default('loss'),
+    rankBy: rankBySchema.default('smallest'),
+    offset: z
+      .number({ error: 'offset must be a whole number' })
+      .int({ error: 'offset must be a whole number' })
+      .min(0, { error: 'offset must be between 0 and 100000' })
+      .max(100000, { error: 'offset must be between 0 and 100000' })
+      .default(0)
+      .meta({ description: 'First rank of the page to return (0-based)' }),
     limit: z
       .number({ error: 'limit must be a whole number' })
       .int({ error: 'limit must be a whole number' })
@@ -239,8 +249,8 @@ export type SearchRequest = z.infer<typeof searchRequestSchema>;
 
 export const wireRequestSchema = z
   .object({
-    kind: z.enum(['awg', 'metric', 'litz']).meta({ description: 'Wire kind' }),
-    strandDiameter: rangeNumber('strandDiameter', 0.01e-3, 6e-3, 'm', 'Bare diameter of one strand').optional(),
+    kind: z.enum(['awg', 'metric', 'litz', 'foil']).meta({ description: 'Conductor kind' }),
+    strandDiameter: rangeNumber('strandDiameter', 0.01e-3, 6e-3, 'm', 'Bare diameter of one strand (foil: its thickness)').optional(),
     awg: z
       .number({ error: 'awg must be a whole number' })
       .int({ error: 'awg must be a whole number' })
@@ -263,6 +273,9 @@ export const wireRequestSchema = z
     }
     if (wire.awg !== undefined && wire.kind !== 'awg') {
       ctx.addIssue({ code: 'custom', path: ['awg'], message: 'awg is only valid with kind "awg"' });
+    }
+    if (wire.kind === 'foil' && wire.strands !== 1) {
+      ctx.addIssue({ code: 'custom', path: ['strands'], message: 'A foil winding has one conductor per turn: strands must be 1' });
     }
   });
 export type WireRequest = z.infer<typeof wireRequestSchema>;

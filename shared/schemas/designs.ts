@@ -254,5 +254,6 @@ export function wireRequestOf(wire: { id: string; kind: string; strandDiameter: 
   if (wire.kind === 'awg' && aught) return { kind: 'awg', awg: 1 - Number(aught[1]), strands: wire.strands };
   const gauge = /^AWG (\d+)\b/.exec(wire.id);
   if (wire.kind === 'awg' && gauge) return { kind: 'awg', awg: Number(gauge[1]), strands: wire.strands };
+  if (wire.kind === 'foil') return { kind: 'foil', strandDiameter: wire.strandDiameter, strands: 1 };
   return { kind: wire.kind === 'litz' ? 'litz' : 'metric', strandDiameter: wire.strandDiameter, strands: wire.strands };
 }

@@ -19,6 +19,7 @@ import {
   type CoreShape,
   type WireOption,
 } from '@shared/engine/index';
+import { standardFoilOptions } from '@shared/catalogue/foil';
 import { percentile } from './stats.ts';
 
 export interface BenchRow {
@@ -172,6 +173,7 @@ export async function loadCatalogue(): Promise<{ cores: CoreShape[]; wires: Wire
   try {
     const wireCatalogue = (await import('@core-data/wire-catalogue')) as { loadStandardWireOptions?: () => WireOption[] };
     wires = wireCatalogue.loadStandardWireOptions?.();
+    if (wires?.length) wires = [...wires, ...standardFoilOptions()];
   } catch {
     wires = undefined;
   }

@@ -22,7 +22,7 @@ import { CornerTable } from './corner-table';
 import { frequencyChartLabel, frequencyChartOptions } from './frequency-chart-options';
 import { percent, show, showUnit } from './format';
 
-type WireKind = 'awg' | 'metric' | 'litz';
+type WireKind = 'awg' | 'metric' | 'litz' | 'foil';
 
 /** The chosen design: every figure, three charts, warnings; core, material, turns, gap and wire re-evaluate live. */
 @Component({
@@ -184,7 +184,7 @@ export class DesignPanel {
     const wire: Construction['wire'] =
       v.wireKind === 'awg' && v.awg !== null
         ? { kind: 'awg', awg: v.awg, strands: v.strands }
-        : { kind: v.wireKind, strandDiameter: v.strandDiameter ?? 0, strands: v.strands };
+        : { kind: v.wireKind, strandDiameter: v.strandDiameter ?? 0, strands: v.wireKind === 'foil' ? 1 : v.strands };
     if (wire.strandDiameter === 0) return null;
     if (this.coreChanged) {
       this.coreChanged = false;

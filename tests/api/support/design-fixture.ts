@@ -23,7 +23,7 @@ let counter = 0;
 export async function insertEvaluatedDesign(t: TestApp, ownerUsername: string, extraSpec: Record<string, unknown> = {}) {
   const [owner] = await t.db.select().from(users).where(eq(users.username, ownerUsername));
   const materialIds = (await t.services.materials.listCurrent()).map((m) => String(m.id));
-  const search = await t.services.calc.search({ spec: EXAMPLE_SPEC, materialIds, rankBy: 'loss', limit: 1 });
+  const search = await t.services.calc.search({ spec: EXAMPLE_SPEC, materialIds, rankBy: 'loss', offset: 0, limit: 1 });
   const best = search.candidates[0];
   if (!best) throw new Error('the example spec found no feasible candidate');
   counter += 1;

@@ -47,7 +47,7 @@ describe('calculation request schemas', () => {
     expect(issueAt(search, 'spec.vout')).toBeDefined();
     expect(issueAt(searchRequestSchema.safeParse({ spec }), 'materialIds')).toBeDefined();
     const ok = searchRequestSchema.parse({ spec, materialIds: ['1'] });
-    expect(ok.rankBy).toBe('loss');
+    expect(ok.rankBy).toBe('smallest');
     expect(ok.limit).toBe(20);
   });
 

@@ -13,9 +13,12 @@ const input = {
 describe('searchCandidates', () => {
   const result = searchCandidates(input);
 
-  it('returns feasible candidates ranked by total loss', () => {
+  it('returns feasible candidates, smallest core first by default and by total loss when asked', () => {
     expect(result.candidates.length).toBeGreaterThan(0);
-    const losses = result.candidates.map((c) => c.result.totalLoss);
+    const volumes = result.candidates.filter((c) => !c.extrapolated).map((c) => c.volume);
+    expect([...volumes].sort((a, b) => a - b)).toEqual(volumes);
+    const byLoss = searchCandidates({ ...input, rankBy: 'loss' }).candidates.filter((c) => !c.extrapolated);
+    const losses = byLoss.map((c) => c.result.totalLoss);
     expect([...losses].sort((a, b) => a - b)).toEqual(losses);
     expect(result.candidates.every((c) => c.result.feasible)).toBe(true);
     expect(result.candidates.map((c) => c.rank)).toEqual(result.candidates.map((_, i) => i + 1));
@@ -70,7 +73,7 @@ describe('searchCandidates', () => {
   });
 
   it('ranks by core volume when asked', () => {
-    const byVolume = searchCandidates({ ...input, rankBy: 'volume' });
+    const byVolume = searchCandidates({ ...input, rankBy: 'smallest' });
     const volumes = byVolume.candidates.map((c) => c.result.core.ve);
     expect([...volumes].sort((a, b) => a - b)).toEqual(volumes);
   });

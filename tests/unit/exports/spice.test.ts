@@ -102,8 +102,22 @@ describe('candidates CSV', () => {
   it('escapes a formula in the design title and writes one row per candidate with reasons for infeasible ones', () => {
     const search = {
       rankBy: 'loss' as const,
-      candidates: [{ rank: 1, pareto: true, wire: catalogue.wire({ kind: 'awg', awg: 16, strands: 2 }), result }],
+      candidates: [
+        {
+          rank: 1,
+          pareto: true,
+          paretoByMass: true,
+          extrapolated: false,
+          conductor: 'in-hand' as const,
+          volume: result.core.ve,
+          mass: 0.05,
+          wire: catalogue.wire({ kind: 'awg', awg: 16, strands: 2 }),
+          result,
+        },
+      ],
+      page: { offset: 0, limit: 20, total: 1 },
       paretoFront: [],
+      paretoFrontByMass: [],
       infeasible: [
         {
           coreId: 'E13/7/4',
@@ -111,9 +125,8 @@ describe('candidates CSV', () => {
           reasons: [{ code: 'fill', severity: 'error' as const, message: 'Winding does not fit' }],
         },
       ],
-      counts: { cores: 2, materials: 1, wireOptions: 1, evaluated: 2, feasible: 1, prefiltered: 0, incompatible: 0 },
+      counts: { cores: 2, materials: 1, wireOptions: 1, evaluated: 2, feasible: 1, extrapolated: 0, prefiltered: 0, incompatible: 0 },
       requiredAreaProduct: 1e-8,
-      wireOptionIds: [],
     };
     const csv = candidatesCsv(
       { number: 'GW-0001', title: '=HYPERLINK("http://x")' },

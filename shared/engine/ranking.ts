@@ -1,0 +1,58 @@
+// Ordering of feasible candidates by the designer's chosen objective, and the Pareto fronts drawn beside them.
+// Candidates whose core loss rests on extrapolated material data always follow every in-fit candidate.
+import type { RankBy } from './inputs';
+
+export interface RankedFigures {
+  loss: number;
+  volume: number;
+  mass: number;
+  rise: number;
+  extrapolated: boolean;
+  /** Conductor kind index, simplest first: the last tie-break. */
+  simplicity: number;
+}
+
+export const RANK_BY = ['smallest', 'loss', 'temperature', 'balanced'] as const;
+
+function primary(f: RankedFigures, rankBy: RankBy): number {
+  switch (rankBy) {
+    case 'smallest':
+      return f.volume;
+    case 'loss':
+      return f.loss;
+    case 'temperature':
+      return f.rise;
+    case 'balanced':
+      // Loss × volume: halving either is worth the same; neither the biggest core nor the hottest part wins.
+      return f.loss * f.volume;
+  }
+}
+
+/** Indices of `figures` in rank order: in-fit before extrapolated, then the objective, then loss, volume, simplicity. */
+export function rankOrder(figures: readonly RankedFigures[], rankBy: RankBy): number[] {
+  const key = figures.map((f) => primary(f, rankBy));
+  return figures
+    .map((_, i) => i)
+    .sort(
+      (a, b) =>
+        Number(figures[a]!.extrapolated) - Number(figures[b]!.extrapolated) ||
+        key[a]! - key[b]! ||
+        figures[a]!.loss - figures[b]!.loss ||
+        figures[a]!.volume - figures[b]!.volume ||
+        figures[a]!.simplicity - figures[b]!.simplicity,
+    );
+}
+
+/** Indices on the front of `size` (volume or mass) against loss: no other candidate is both smaller and lower-loss. */
+export function paretoFront(figures: readonly RankedFigures[], size: 'volume' | 'mass'): number[] {
+  const bySize = figures.map((_, i) => i).sort((a, b) => figures[a]![size] - figures[b]![size] || figures[a]!.loss - figures[b]!.loss);
+  const front: number[] = [];
+  let bestLoss = Number.POSITIVE_INFINITY;
+  for (const i of bySize) {
+    if (figures[i]!.loss < bestLoss) {
+      front.push(i);
+      bestLoss = figures[i]!.loss;
+    }
+  }
+  return front;
+}
