@@ -67,8 +67,7 @@ export class ConductorChooser {
     const foilWorthwhile = op.rmsCurrent / limits.currentDensity > FOIL_MIN_COPPER_AREA && turns <= FOIL_MAX_TURNS;
     // The DC loss alone, at the shortest possible turn, bounds a wire's loss from below.
     const shortestTurn = core.ring ? ringMeanTurnLength(core.ring, 0) : core.mlt;
-    for (let k = 0; k < this.byArea.length; k++) {
-      const i = this.byArea[k]!;
+    for (const i of this.byArea) {
       const wireCtx = this.wires[i]!;
       const wire = wireCtx.wire;
       if (wire.kind === 'foil' ? !foilWorthwhile : wire.kind !== 'litz' && wire.strands > limits.maxStrands) continue;
