@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 
 import { searchCandidate, type CandidateOptions } from '../testing/search-answer';
 import { candidateRow } from './candidate-rows';
-import { EXTRAPOLATED_LEGEND, candidatesChartOptions, type CandidatesChartInput } from './candidates-chart';
+import { EXTRAPOLATED_LEGEND, candidatesChartOptions, roundNumber, type CandidatesChartInput } from './candidates-chart';
 
 const MARKUP_CORE = '<img src=x onerror="window.__injected=1">';
 const MARKUP_MATERIAL = '<meta http-equiv="refresh" content="0;url=/x">';
@@ -52,6 +52,15 @@ describe('candidates chart', () => {
     const options = optionsOf({ front: [row(1, { mass: 0.0261 })], page: [], by: 'mass', selected: null });
     expect(options.series[0].data[0].value[0]).toBeCloseTo(26.1, 12);
     expect(options.xAxis.name).toBe('Mass, core and copper (g)');
+  });
+
+  it('ends the log size axis on round numbers of the 1-2-5 series around the data', () => {
+    expect(roundNumber(3.4, 'down')).toBe(2);
+    expect(roundNumber(100.5, 'up')).toBe(200);
+    expect(roundNumber(0.34, 'down')).toBe(0.2);
+    expect(roundNumber(0.5, 'up')).toBe(0.5);
+    expect(roundNumber(12, 'down')).toBe(10);
+    expect(roundNumber(60, 'up')).toBe(100);
   });
 
   it('draws nothing without a candidate', () => {

@@ -61,7 +61,16 @@ export function candidatesChartOptions({ front, page, by, selected }: Candidates
     grid: { left: 56, right: 24, top: 40, bottom: 44 },
     legend: { top: 0 },
     tooltip: { trigger: 'item', formatter: (p: TooltipPoint) => candidateTooltip(p, axis.unit) },
-    xAxis: { type: 'log', name: `${axis.name} (${axis.unit})`, nameLocation: 'middle', nameGap: 28, scale: true },
+    // Log: the front spans two decades of size, and the small end, where the choice is made, would be crushed.
+    xAxis: {
+      type: 'log',
+      name: `${axis.name} (${axis.unit})`,
+      nameLocation: 'middle',
+      nameGap: 28,
+      min: (range: { min: number }) => roundNumber(range.min, 'down'),
+      max: (range: { max: number }) => roundNumber(range.max, 'up'),
+      axisLabel: { formatter: (value: number) => String(Number(value.toPrecision(3))) },
+    },
     yAxis: { type: 'value', name: 'Total loss (W)', scale: true },
     series: [
       {
@@ -92,6 +101,14 @@ export function candidatesChartOptions({ front, page, by, selected }: Candidates
       },
     ],
   };
+}
+
+/** The nearest of 1, 2, 5 × 10ⁿ below or above `value`: round ends for a log axis whose ticks fall on decades. */
+export function roundNumber(value: number, way: 'down' | 'up'): number {
+  const decade = 10 ** Math.floor(Math.log10(value));
+  const steps = way === 'down' ? [5, 2, 1] : [1, 2, 5, 10];
+  const found = steps.find((step) => (way === 'down' ? step * decade <= value : step * decade >= value))!;
+  return Number((found * decade).toPrecision(1));
 }
 
 export interface TooltipPoint {
