@@ -21,6 +21,9 @@ export const DISPLAY_UNITS = {
   'cm⁴': -8,
   'W/m³': 0,
   'kW/m³': 3,
+  // Mass: the SI unit is the kilogram, so the gram is 10⁻³ of it.
+  kg: 0,
+  g: -3,
 } as const satisfies Record<string, number>;
 export type DisplayUnit = keyof typeof DISPLAY_UNITS;
 

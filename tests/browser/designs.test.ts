@@ -47,20 +47,63 @@ describe('design workspace', () => {
     await page.screenshot({ path: screenshotPath('designs-spec'), fullPage: true });
 
     await page.getByRole('button', { name: 'Search candidates' }).click();
-    await page
-      .getByTestId('search-status')
-      .filter({ hasText: /feasible of/ })
-      .waitFor({ timeout: 30_000 });
-    await page.locator('[data-testid="candidates-table"] tr.mat-mdc-row').first().waitFor();
+    const status = page.getByTestId('search-status');
+    const rows = page.locator('[data-testid="candidates-table"] tr.mat-mdc-row');
+    await status.filter({ hasText: /Candidates 1–20 of \d+, smallest part first/ }).waitFor({ timeout: 30_000 });
+    const total = (await status.innerText()).match(/of ([\d,]+),/)![1];
+    expect(Number(total.replace(',', ''))).toBeGreaterThan(100);
+    expect(await status.innerText()).toMatch(/feasible of [\d,]+ evaluated \(\d+ cores × \d+ materials\) in \d+ ms\.$/);
+    expect(await rows.count()).toBe(20);
+
+    // At 1440 px a candidate takes at most two text lines: 2 × 18 px of 13 px text plus padding, well under 64 px.
+    await page.setViewportSize({ width: 1440, height: 900 });
+    const heights = await rows.evaluateAll((all) => all.map((row) => row.getBoundingClientRect().height));
+    expect(Math.max(...heights)).toBeLessThanOrEqual(64);
+    await page.screenshot({ path: screenshotPath('designs-candidates-1440') });
+
+    // The objective ranks the whole list on the server: lowest loss first means the first rows' losses rise.
+    await page.getByRole('radio', { name: 'Lowest loss' }).click();
+    await status.filter({ hasText: /Candidates 1–20 of \d+, lowest loss first/ }).waitFor();
+    await page.locator('caption', { hasText: 'Ranked lowest loss first' }).waitFor();
+    const watts = (text: string) => Number(text.split(' ')[0]) * (text.endsWith(' mW') ? 1e-3 : 1);
+    const losses = (await rows.locator('td.mat-column-totalLoss').allInnerTexts()).map(watts);
+    expect(losses.slice(0, 5)).toEqual([...losses.slice(0, 5)].sort((a, b) => a - b));
+    // The Volume header ranks by size again: the "smallest part" objective.
+    await page.locator('th.mat-column-volume button').click();
+    await status.filter({ hasText: /Candidates 1–20 of \d+, smallest part first/ }).waitFor();
+    expect(await page.getByRole('radio', { name: 'Smallest part' }).isChecked()).toBe(true);
+
+    // Paging asks the server for the next slice; the status line says which candidates are shown.
+    await page.getByRole('button', { name: 'Next page' }).click();
+    await status.filter({ hasText: `Candidates 21–40 of ${total}, smallest part first` }).waitFor();
+    expect(await rows.first().locator('td').first().innerText()).toMatch(/^21\b/);
+    // The page-size select sits under the paginator's touch target, which takes the click.
+    await page.locator('gw-candidates-panel .mat-mdc-paginator-touch-target').click();
+    await page.getByRole('option', { name: '50' }).click();
+    await status.filter({ hasText: `Candidates 1–50 of ${total}` }).waitFor();
+    expect(await rows.count()).toBe(50);
+
+    // Candidates on extrapolated loss data follow the in-fit ones: the last page carries the mark, its text on focus.
+    await page.getByRole('button', { name: 'Last page' }).click();
+    await status.filter({ hasText: new RegExp(`Candidates [\\d,]+–${total} of ${total}`) }).waitFor();
+    const mark = rows.last().getByRole('button', { name: 'Extrapolated loss data' });
+    await rows.last().focus();
+    await page.keyboard.press('Tab');
+    expect(await mark.evaluate((el) => el === document.activeElement)).toBe(true);
+    await page.locator('.mat-mdc-tooltip', { hasText: /outside the .* fitted range/ }).waitFor();
+    expect(await seriousAxeFindings(page)).toEqual([]);
+    await page.getByRole('button', { name: 'First page' }).click();
+    await status.filter({ hasText: /Candidates 1–50 of/ }).waitFor();
 
     // Pick a point of the Pareto front on the chart itself.
     const point = page.locator('.gw-point').first();
     await point.waitFor();
+    const pointLabel = (await point.innerText()).split(':')[0];
     const x = Number(await point.getAttribute('data-x'));
     const y = Number(await point.getAttribute('data-y'));
     const chart = page.locator('gw-candidates-panel [echarts]');
     await chart.click({ position: { x, y } });
-    await page.locator('tr.gw-selected').waitFor();
+    await page.getByTestId('selected-candidate').filter({ hasText: pointLabel }).waitFor();
     expect(await seriousAxeFindings(page)).toEqual([]);
     await page.screenshot({ path: screenshotPath('designs-candidates'), fullPage: true });
     await page.locator('gw-candidates-panel').screenshot({ path: screenshotPath('designs-candidates-panel') });
@@ -116,5 +159,5 @@ describe('design workspace', () => {
     await page.locator('gw-design-panel').screenshot({ path: screenshotPath('designs-design-panel-dark') });
     await page.getByRole('button', { name: 'Switch to light theme' }).click();
     await context.close();
-  }, 120_000);
+  }, 240_000);
 });

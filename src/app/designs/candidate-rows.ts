@@ -1,86 +1,124 @@
-import type { SearchCandidate, SearchResult } from '@shared/engine/index';
+import type { ConductorType, EngineIssue, SearchCandidate, SearchResult } from '@shared/engine/index';
+import { toDisplay } from '@shared/units/index';
 
+/** A warning shown as a compact mark in the table: a short word, an accessible name and the full text on demand. */
+export interface CandidateMark {
+  kind: string;
+  short: string;
+  name: string;
+  text: string;
+}
+
+/** One ranked candidate as the table and the chart show it (SI values; the template picks the display unit). */
 export interface CandidateRow {
   key: string;
-  rank: number | null;
-  feasible: boolean;
+  rank: number;
   pareto: boolean;
+  paretoByMass: boolean;
+  extrapolated: boolean;
+  conductor: ConductorType;
   coreId: string;
-  family: string;
-  materialId: string;
+  materialName: string;
+  wireId: string;
+  turns: number;
+  /** Total air gap in the path (m); null for a distributed-gap core. */
+  gap: number | null;
+  totalLoss: number;
+  volume: number;
+  mass: number;
+  /** Loss × core volume in W·cm³: the balanced objective's figure. */
+  lossVolume: number;
+  rise: number;
+  fill: number;
+  fluxMargin: number;
+  marks: CandidateMark[];
+  /** "RM10 · Demo ferrite MF-140 · foil 0.15 mm": a point's name on the chart and in the keyboard list. */
+  label: string;
+  candidate: SearchCandidate;
+}
+
+/** A core × material the search could not make meet every limit, with the reasons. */
+export interface InfeasibleRow {
+  key: string;
+  coreId: string;
   materialName: string;
   wireId: string;
   turns: number | null;
   totalLoss: number | null;
-  volume: number | null;
-  rise: number | null;
-  fill: number | null;
-  fluxMargin: number | null;
   reasons: string;
-  candidate: SearchCandidate | null;
 }
 
-const FAMILY_PREFIXES: [RegExp, string][] = [
-  [/^ETD/, 'ETD'],
-  [/^EFD/, 'EFD'],
-  [/^EQ/, 'EQ'],
-  [/^PQ/, 'PQ'],
-  [/^RM/, 'RM'],
-  [/^E\d/, 'E'],
-  [/^P\d/, 'POT'],
-  [/^R\d/, 'RING'],
-  [/^T\d/, 'POWDER_TOROID'],
-];
+const LOSS_FIT_CODES = new Set(['loss-fit-frequency', 'loss-fit-flux']);
 
-/** Family of a catalogue core from its name, for rows the search could not evaluate. */
-export function familyOfCoreId(coreId: string): string {
-  return FAMILY_PREFIXES.find(([pattern]) => pattern.test(coreId))?.[1] ?? 'other';
+const MARK_WORDS: Record<string, { short: string; name: string }> = {
+  'fringing-range': { short: 'Fringing', name: 'Gap beyond the fringing formula' },
+  'flux-limit': { short: 'B limit', name: 'Peak flux above the design limit' },
+  'thermal-iteration': { short: 'T ≈', name: 'Temperature approximate' },
+};
+
+/** Shown as the first mark of a candidate whose core loss rests on data outside the material's fitted range. */
+export const EXTRAPOLATED_MARK = { short: 'Extrap.', name: 'Extrapolated loss data' } as const;
+
+/**
+ * The candidate's warnings as marks. Loss-fit warnings make one "extrapolated" mark; warnings of the operating
+ * point (the same on every candidate) are left to the operating-point panel.
+ */
+export function candidateMarks(c: SearchCandidate): CandidateMark[] {
+  const sharedCodes = new Set(c.result.operatingPoint.warnings.map((w) => w.code));
+  const warnings = c.result.issues.filter((i) => i.severity === 'warning' && !sharedCodes.has(i.code));
+  const fit = warnings.filter((w) => LOSS_FIT_CODES.has(w.code));
+  const marks: CandidateMark[] = [];
+  if (c.extrapolated || fit.length) {
+    const text = fit.length
+      ? fit.map((w) => w.message).join(' ')
+      : 'The core loss rests on material data used outside its fitted frequency or flux range.';
+    marks.push({ kind: 'extrapolated', ...EXTRAPOLATED_MARK, text: `${text} Ranked after every candidate on fitted data.` });
+  }
+  for (const w of warnings.filter((x) => !LOSS_FIT_CODES.has(x.code))) marks.push(markOf(w));
+  return marks;
 }
 
-export function candidateRows(search: SearchResult, materialNames: ReadonlyMap<string, string>): CandidateRow[] {
-  const feasible = search.candidates.map((c): CandidateRow => {
-    const r = c.result;
-    return {
-      key: `${r.core.id}|${r.material.id}|${c.wire.id}`,
-      rank: c.rank,
-      feasible: true,
-      pareto: c.pareto,
-      coreId: r.core.id,
-      family: r.core.family,
-      materialId: r.material.id,
-      materialName: materialNames.get(r.material.id) ?? r.material.name,
-      wireId: c.wire.id,
-      turns: r.turns,
-      totalLoss: r.totalLoss,
-      volume: r.core.ve,
-      rise: r.thermal.rise,
-      fill: r.winding.copperFill,
-      fluxMargin: r.flux.saturationMargin,
-      reasons: r.issues
-        .filter((i) => i.severity === 'warning')
-        .map((i) => i.message)
-        .join(' '),
-      candidate: c,
-    };
-  });
-  const infeasible = search.infeasible.map((x, i): CandidateRow => ({
-    key: `x${i}|${x.coreId}|${x.materialId ?? ''}`,
-    rank: null,
-    feasible: false,
-    pareto: false,
+function markOf(issue: EngineIssue): CandidateMark {
+  const words = MARK_WORDS[issue.code] ?? { short: 'Warning', name: 'Warning' };
+  return { kind: issue.code, ...words, text: issue.message };
+}
+
+export function candidateRow(c: SearchCandidate, materialNames: ReadonlyMap<string, string>): CandidateRow {
+  const r = c.result;
+  const materialName = materialNames.get(r.material.id) ?? r.material.name;
+  return {
+    key: `${r.core.id}|${r.material.id}|${c.wire.id}|${r.turns}`,
+    rank: c.rank,
+    pareto: c.pareto,
+    paretoByMass: c.paretoByMass,
+    extrapolated: c.extrapolated,
+    conductor: c.conductor,
+    coreId: r.core.id,
+    materialName,
+    wireId: c.wire.id,
+    turns: r.turns,
+    gap: r.core.gapKind === 'air-gap' ? r.gap.total : null,
+    totalLoss: r.totalLoss,
+    volume: c.volume,
+    mass: c.mass,
+    lossVolume: r.totalLoss * toDisplay(c.volume, 'cm³'),
+    rise: r.thermal.rise,
+    fill: r.winding.copperFill,
+    fluxMargin: r.flux.saturationMargin,
+    marks: candidateMarks(c),
+    label: `${r.core.id} · ${materialName} · ${c.wire.id}`,
+    candidate: c,
+  };
+}
+
+export function infeasibleRows(search: SearchResult, materialNames: ReadonlyMap<string, string>): InfeasibleRow[] {
+  return search.infeasible.map((x, i) => ({
+    key: `${i}|${x.coreId}|${x.materialId ?? ''}`,
     coreId: x.coreId,
-    family: familyOfCoreId(x.coreId),
-    materialId: x.materialId ?? '',
     materialName: x.materialId ? (materialNames.get(x.materialId) ?? x.materialId) : '—',
     wireId: x.wireId ?? '—',
     turns: x.turns ?? null,
     totalLoss: x.totalLoss ?? null,
-    volume: null,
-    rise: null,
-    fill: null,
-    fluxMargin: null,
     reasons: x.reasons.map((r) => r.message).join(' '),
-    candidate: null,
   }));
-  return [...feasible, ...infeasible];
 }

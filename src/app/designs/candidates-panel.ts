@@ -1,30 +1,23 @@
-import { ChangeDetectionStrategy, Component, computed, effect, inject, input, output, signal, viewChild } from '@angular/core';
-import { toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, computed, inject, input, linkedSignal, output, signal } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
-import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatButtonToggleModule } from '@angular/material/button-toggle';
+import { MatPaginatorModule, type PageEvent } from '@angular/material/paginator';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { MatSelectModule } from '@angular/material/select';
-import { MatSort, MatSortModule } from '@angular/material/sort';
-import { MatTableDataSource, MatTableModule } from '@angular/material/table';
-import type { SearchCandidate, SearchResult } from '@shared/engine/index';
+import type { RankBy, SearchCandidate } from '@shared/engine/index';
 import type { DesignSpec } from '@shared/schemas/designs';
 import type { ECElementEvent, EChartsCoreOption, EChartsType } from 'echarts/core';
 import { NgxEchartsDirective } from 'ngx-echarts';
-import { Subject, catchError, distinctUntilChanged, map, merge, of, skip, startWith, switchMap } from 'rxjs';
+import { Subject } from 'rxjs';
 
-import { errorMessageOf } from '../core/api-error';
-import { QuantityPipe } from '../units/quantity';
-import { candidateRows, type CandidateRow } from './candidate-rows';
-import { VOLUME_AXIS, candidatesChartOptions } from './candidates-chart';
+import { candidateRow, infeasibleRows, type CandidateRow } from './candidate-rows';
+import { IDLE_SEARCH, searchStates, type SearchQuery } from './candidate-search';
+import { CandidatesTable } from './candidates-table';
+import { EXTRAPOLATED_LEGEND, FRONT_SERIES, candidatesChartOptions, pointOf, type FrontBy } from './candidates-chart';
 import { DesignsApi, type MaterialView } from './designs-api';
-import { percent, show } from './format';
-
-type SearchState =
-  | { status: 'idle' }
-  | { status: 'stale' }
-  | { status: 'running'; startedAt: number }
-  | { status: 'done'; result: SearchResult; ms: number }
-  | { status: 'error'; message: string };
+import { show } from './format';
+import { InfeasibleList } from './infeasible-list';
+import { OBJECTIVES, objectiveOf, searchStatus } from './search-objectives';
 
 interface PointPosition {
   key: string;
@@ -33,19 +26,19 @@ interface PointPosition {
   y: number;
 }
 
-/** The scatter chart's x axis: core volume in cm³. */
+export const PAGE_SIZES = [20, 50, 100] as const;
 
+/** Search, objective, the Pareto fronts, one page of ranked candidates, and why the other cores fail. */
 @Component({
   selector: 'gw-candidates-panel',
   imports: [
+    CandidatesTable,
+    InfeasibleList,
     MatButtonModule,
-    MatFormFieldModule,
+    MatButtonToggleModule,
+    MatPaginatorModule,
     MatProgressBarModule,
-    MatSelectModule,
-    MatSortModule,
-    MatTableModule,
     NgxEchartsDirective,
-    QuantityPipe,
   ],
   templateUrl: './candidates-panel.html',
   styleUrl: './candidates-panel.scss',
@@ -57,181 +50,147 @@ export class CandidatesPanel {
   readonly materials = input<MaterialView[]>([]);
   readonly picked = output<SearchCandidate>();
 
-  private readonly sort = viewChild(MatSort);
-  private readonly runs = new Subject<DesignSpec>();
+  protected readonly objectives = OBJECTIVES;
+  protected readonly pageSizes = [...PAGE_SIZES];
+  protected readonly extrapolatedLegend = EXTRAPOLATED_LEGEND;
+  protected readonly rankBy = signal<RankBy>('smallest');
+  protected readonly objective = computed(() => objectiveOf(this.rankBy()));
+  protected readonly frontBy = signal<FrontBy>('volume');
+  protected readonly pageSize = signal<number>(PAGE_SIZES[0]);
+
+  private readonly queries = new Subject<SearchQuery>();
   private chartInstance: EChartsType | null = null;
-
-  /** A new spec cancels a running search and marks finished results stale; "search" starts one. */
   protected readonly state = toSignal(
-    merge(
-      this.runs.pipe(map((spec) => ({ spec }))),
-      toObservable(this.spec).pipe(
-        map((spec) => JSON.stringify(spec)),
-        distinctUntilChanged(),
-        skip(1),
-        map(() => ({ spec: null })),
-      ),
-    ).pipe(
-      switchMap(({ spec }) => {
-        if (!spec) return of<SearchState>(this.hasResults() ? { status: 'stale' } : { status: 'idle' });
-        const startedAt = performance.now();
-        const materialIds = spec.materialIds?.length
-          ? spec.materialIds
-          : this.materials()
-              .filter((m) => !m.retired)
-              .map((m) => m.id);
-        return this.api.search(spec, materialIds).pipe(
-          map((result): SearchState => ({ status: 'done', result, ms: performance.now() - startedAt })),
-          catchError((error: unknown) => of<SearchState>({ status: 'error', message: errorMessageOf(error) })),
-          startWith<SearchState>({ status: 'running', startedAt }),
-        );
-      }),
-    ),
-    { initialValue: { status: 'idle' } as SearchState },
+    searchStates(this.queries, (query) => this.api.search(query)),
+    { initialValue: IDLE_SEARCH },
   );
-
-  /** Finished searches so far, on the status line for anyone timing the search. */
-  protected readonly searchesDone = signal(0);
-  protected readonly result = computed(() => {
-    const s = this.state();
-    return s.status === 'done' ? s.result : null;
-  });
-  private lastResult: SearchResult | null = null;
-  private hasResults(): boolean {
-    return this.lastResult !== null;
-  }
+  protected readonly result = computed(() => this.state().result);
 
   protected readonly materialNames = computed(() => new Map(this.materials().map((m) => [m.id, m.name])));
-  protected readonly rows = computed(() => {
+  private readonly rowsOf = (candidates: readonly SearchCandidate[]) => candidates.map((c) => candidateRow(c, this.materialNames()));
+  protected readonly rows = computed(() => this.rowsOf(this.result()?.candidates ?? []));
+  private readonly frontByVolume = computed(() => this.rowsOf(this.result()?.paretoFront ?? []));
+  private readonly frontByMass = computed(() => this.rowsOf(this.result()?.paretoFrontByMass ?? []));
+  protected readonly front = computed(() => (this.frontBy() === 'volume' ? this.frontByVolume() : this.frontByMass()));
+  protected readonly infeasible = computed(() => {
     const result = this.result();
-    return result ? candidateRows(result, this.materialNames()) : [];
+    return result ? infeasibleRows(result, this.materialNames()) : [];
   });
-  protected readonly familyFilter = signal<string>('');
-  protected readonly materialFilter = signal<string>('');
-  protected readonly feasibilityFilter = signal<string>('all');
-  /** The filters above the table, each with its choices as [value, label]; "All" keeps every row. */
-  protected readonly filters = computed(() => [
-    {
-      label: 'Family',
-      value: this.familyFilter,
-      options: [['', 'All'], ...[...new Set(this.rows().map((r) => r.family))].sort().map((f) => [f, f])],
+
+  /** The chosen candidate: kept across pages and objectives while it is still a candidate of the same spec. */
+  protected readonly selected = linkedSignal<{ rows: CandidateRow[]; spec: string }, CandidateRow | null>({
+    source: () => ({
+      rows: [...this.rows(), ...this.frontByVolume(), ...this.frontByMass()],
+      spec: JSON.stringify(this.state().resultQuery?.spec ?? null),
+    }),
+    computation: (source, previous) => {
+      const before = previous?.value;
+      if (!before) return null;
+      return source.rows.find((r) => r.key === before.key) ?? (previous.source.spec === source.spec ? before : null);
     },
-    {
-      label: 'Material',
-      value: this.materialFilter,
-      options: [
-        ['', 'All'],
-        ...new Map(
-          this.rows()
-            .filter((r) => r.materialId)
-            .map((r) => [r.materialId, r.materialName]),
-        ),
-      ],
-    },
-    {
-      label: 'Feasibility',
-      value: this.feasibilityFilter,
-      options: [
-        ['all', 'All'],
-        ['feasible', 'Feasible'],
-        ['infeasible', 'Infeasible'],
-      ],
-    },
-  ]);
-  protected readonly selectedKey = signal<string | null>(null);
-  protected readonly selected = computed(() => this.rows().find((r) => r.key === this.selectedKey()) ?? null);
-  protected readonly dataSource = new MatTableDataSource<CandidateRow>([]);
-  protected readonly columns = ['rank', 'core', 'material', 'wire', 'turns', 'totalLoss', 'volume', 'rise', 'fill', 'fluxMargin', 'notes'];
-  protected readonly pointPositions = signal<PointPosition[]>([]);
-  protected readonly fmt = show;
-  protected readonly pct = percent;
+  });
+  protected readonly selectedKey = computed(() => this.selected()?.key ?? null);
 
-  constructor() {
-    this.dataSource.sortingDataAccessor = (row, column) => {
-      const value = (row as unknown as Record<string, unknown>)[column];
-      // Unevaluated rows sort last whichever way.
-      return typeof value === 'number'
-        ? value
-        : column === 'core'
-          ? row.coreId
-          : column === 'material'
-            ? row.materialName
-            : Number.MAX_VALUE;
-    };
-    this.dataSource.filterPredicate = (row) =>
-      (!this.familyFilter() || row.family === this.familyFilter()) &&
-      (!this.materialFilter() || row.materialId === this.materialFilter()) &&
-      (this.feasibilityFilter() === 'all' || row.feasible === (this.feasibilityFilter() === 'feasible'));
-    effect(() => {
-      if (this.state().status === 'done') this.searchesDone.update((n) => n + 1);
-    });
-    effect(() => {
-      this.lastResult = this.result() ?? (this.state().status === 'stale' ? this.lastResult : null);
-      this.dataSource.data = this.rows();
-      this.selectedKey.set(null);
-    });
-    effect(() => {
-      this.familyFilter();
-      this.materialFilter();
-      this.feasibilityFilter();
-      this.dataSource.filter = `${this.familyFilter()}|${this.materialFilter()}|${this.feasibilityFilter()}|${Date.now()}`;
-    });
-    effect(() => {
-      const sort = this.sort();
-      if (sort) this.dataSource.sort = sort;
-    });
-  }
-
-  protected runSearch(): void {
-    const spec = this.spec();
-    if (spec) this.runs.next(spec);
-  }
-
-  protected select(row: CandidateRow): void {
-    this.selectedKey.set(row.key);
-  }
-
-  protected use(row: CandidateRow | null): void {
-    if (row?.candidate) this.picked.emit(row.candidate);
-  }
+  protected readonly stale = computed(() => {
+    const searched = this.state().resultQuery?.spec;
+    return !!searched && JSON.stringify(searched) !== JSON.stringify(this.spec());
+  });
 
   protected readonly statusText = computed(() => {
     const s = this.state();
-    switch (s.status) {
-      case 'idle':
-        return 'Run the search to list candidate cores, materials and wires.';
-      case 'stale':
-        return 'The spec changed: the candidates below are out of date. Run the search again.';
-      case 'running':
-        return 'Searching every allowed core with every allowed material and wire…';
-      case 'error':
-        return s.message;
-      case 'done':
-        return `${s.result.counts.feasible} feasible of ${s.result.counts.evaluated} evaluated (${s.result.counts.cores} cores × ${s.result.counts.materials} materials), ${Math.round(s.ms)} ms.`;
-    }
+    if (s.status === 'error') return s.message;
+    if (s.status === 'idle') return 'Run the search to list candidate cores, materials and wires.';
+    if (s.status === 'running' && !s.result) return 'Searching every allowed core with every allowed material and wire…';
+    if (s.status === 'running') return `Ranking the candidates, ${this.objective().order}…`;
+    const staleNote = this.stale() ? 'The spec changed: these candidates are out of date; run the search again. ' : '';
+    return staleNote + searchStatus(s.result!, s.ms);
   });
 
-  protected readonly chart = computed<EChartsCoreOption>(() => candidatesChartOptions(this.rows(), this.selectedKey()));
+  /** "Ranked smallest part first: candidates 21–40 of 388." */
+  protected readonly caption = computed(() => {
+    const result = this.result();
+    if (!result) return '';
+    const { offset, total } = result.page;
+    const range = total ? `candidates ${offset + 1}–${offset + result.candidates.length} of ${total}` : 'no candidate';
+    return `Ranked ${objectiveOf(result.rankBy).order}: ${range}. Select a row, then use it; press Loss, Volume, Rise or Loss × vol. to rank by it.`;
+  });
+
+  protected readonly pageIndex = computed(() => {
+    const page = this.result()?.page;
+    return page ? Math.floor(page.offset / page.limit) : 0;
+  });
+
+  protected readonly chart = computed<EChartsCoreOption>(() =>
+    candidatesChartOptions({ front: this.front(), page: this.rows(), by: this.frontBy(), selected: this.selected() }),
+  );
+  protected readonly pointPositions = signal<PointPosition[]>([]);
+
+  /** A new search from the first page, with the spec as it is now. */
+  protected runSearch(): void {
+    const spec = this.spec();
+    if (spec) this.queries.next({ spec, materialIds: this.materialIdsOf(spec), rankBy: this.rankBy(), offset: 0, limit: this.pageSize() });
+  }
+
+  /** Another objective ranks the list again from the first page, once there is a list to rank. */
+  protected chooseObjective(rankBy: RankBy): void {
+    this.rankBy.set(rankBy);
+    const last = this.state().resultQuery;
+    if (!last) return;
+    const spec = this.spec() ?? last.spec;
+    this.queries.next({ spec, materialIds: this.materialIdsOf(spec), rankBy, offset: 0, limit: this.pageSize() });
+  }
+
+  /** Another page (or page size) of the same search: the server ranks, the client only asks for the slice. */
+  protected turnPage(event: PageEvent): void {
+    const last = this.state().resultQuery;
+    this.pageSize.set(event.pageSize);
+    if (last) this.queries.next({ ...last, offset: event.pageIndex * event.pageSize, limit: event.pageSize });
+  }
+
+  private materialIdsOf(spec: DesignSpec): string[] {
+    return spec.materialIds?.length
+      ? spec.materialIds
+      : this.materials()
+          .filter((m) => !m.retired)
+          .map((m) => m.id);
+  }
+
+  protected select(row: CandidateRow): void {
+    this.selected.set(row);
+  }
+
+  protected selectByKey(key: string): void {
+    const row = [...this.front(), ...this.rows()].find((r) => r.key === key);
+    if (row) this.selected.set(row);
+  }
+
+  protected use(row: CandidateRow | null): void {
+    if (row) this.picked.emit(row.candidate);
+  }
+
+  protected readonly selectedText = computed(() => {
+    const row = this.selected();
+    return row ? `${row.label}: ${show(row.totalLoss, 'power')}${row.extrapolated ? ', extrapolated loss data' : ''}` : 'none';
+  });
 
   protected chartInit(instance: EChartsType): void {
     this.chartInstance = instance;
     instance.on('click', (event: ECElementEvent) => {
       const key = (event.data as { key?: string } | undefined)?.key;
-      if (key) this.selectedKey.set(key);
+      if (key) this.selectByKey(key);
     });
     instance.on('finished', () => this.measurePoints());
   }
 
-  /** Screen positions of the Pareto points, for the keyboard list under the chart (and tests that click the chart). */
+  /** Screen positions of the front's points, for the keyboard list under the chart (and tests that click the chart). */
   private measurePoints(): void {
     const chart = this.chartInstance;
     if (!chart) return;
-    const front = this.rows().filter((r) => r.feasible && r.pareto);
-    const positions = front.map((r) => {
-      const [x, y] = chart.convertToPixel({ seriesIndex: 1 }, [VOLUME_AXIS.toAxis(r.volume!), r.totalLoss!]) as number[];
+    const by = this.frontBy();
+    const positions = this.front().map((r) => {
+      const [x, y] = chart.convertToPixel({ seriesIndex: FRONT_SERIES }, pointOf(r, by)) as number[];
       return { key: r.key, label: `${r.coreId} · ${r.materialName}: ${show(r.totalLoss, 'power')}`, x: Math.round(x), y: Math.round(y) };
     });
-    const before = JSON.stringify(this.pointPositions());
-    if (JSON.stringify(positions) !== before) this.pointPositions.set(positions);
+    if (JSON.stringify(positions) !== JSON.stringify(this.pointPositions())) this.pointPositions.set(positions);
   }
 }

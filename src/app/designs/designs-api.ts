@@ -22,6 +22,7 @@ import { map } from 'rxjs';
 
 import { Api } from '../core/api';
 import { errorsShownByCaller } from '../core/error-display';
+import type { SearchQuery } from './candidate-search';
 
 export interface DesignListParams {
   scope: 'mine' | 'all';
@@ -84,11 +85,13 @@ export class DesignsApi {
     );
   }
 
-  search(spec: DesignSpec, materialIds: string[]): Observable<SearchAnswer> {
+  /** One page of the ranked candidates: the server ranks by the objective and pages through every candidate. */
+  search(query: SearchQuery): Observable<SearchAnswer> {
+    const { spec, materialIds, rankBy, offset, limit } = query;
     const families = spec.families?.length ? spec.families : undefined;
     return this.api.call(
       search,
-      { body: { spec: spec.converter, limits: spec.limits, families, materialIds, limit: 50 } },
+      { body: { spec: spec.converter, limits: spec.limits, families, materialIds, rankBy, offset, limit } },
       errorsShownByCaller(),
     );
   }

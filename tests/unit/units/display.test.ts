@@ -14,6 +14,9 @@ describe('display units', () => {
     expect(toDisplay(1.52e-4, 'mm²')).toBeCloseTo(152, 10);
     expect(toDisplay(2.64e-9, 'cm⁴')).toBeCloseTo(0.264, 12);
     expect(fromDisplay(8000, 'mm³')).toBeCloseTo(8e-6, 18);
+    // The kilogram is the SI unit of mass, the gram 10⁻³ of it (BIPM SI Brochure, 9th ed. — from memory).
+    expect(toDisplay(0.0261, 'g')).toBe(26.1);
+    expect(toDisplay(0.0261, 'kg')).toBe(0.0261);
   });
 
   it('reads a typed number in mm as the exact decimal in metres', () => {
