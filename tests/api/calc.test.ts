@@ -122,7 +122,7 @@ describe('POST /api/calc/search and /api/calc/evaluate', () => {
   it('ranks feasible candidates by total loss, marks a Pareto front, and explains infeasible ones', async () => {
     const materialIds = await demoMaterialIds();
     expect(materialIds.length).toBeGreaterThanOrEqual(5);
-    const res = await engineer.post('/api/calc/search', { spec: EXAMPLE_SPEC, materialIds, limit: 10 });
+    const res = await engineer.post('/api/calc/search', { spec: EXAMPLE_SPEC, materialIds, rankBy: 'loss', limit: 10 });
     expect(res.status).toBe(200);
     const { candidates, infeasible, counts } = res.body;
     expect(counts.evaluated).toBeGreaterThan(100);
