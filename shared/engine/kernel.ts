@@ -124,7 +124,7 @@ export interface WireContext {
   acTable: AcLossTable;
 }
 
-export function prepareWire(wire: WireOption, ctx: SpecContext): WireContext {
+export function prepareWire(wire: WireOption, ctx: SpecContext, sumsByDelta?: Map<number, AcLossParts>): WireContext {
   const isLitz = wire.kind === 'litz';
   // Close-wound layers: pitch = insulated diameter; inside litz, strands share the bundle's diameter.
   const porosity = isLitz
@@ -133,14 +133,30 @@ export function prepareWire(wire: WireOption, ctx: SpecContext): WireContext {
   // Foil spanning the winding width is Dowell's layer itself: Δ = h/δ (porosity ≈ 1).
   const firstHarmonicDelta =
     wire.kind === 'foil' ? foilDelta(wire.strandDiameter, ctx.skinDepth) : roundWireDelta(wire.strandDiameter, ctx.skinDepth, porosity);
+  let parts = sumsByDelta?.get(firstHarmonicDelta);
+  if (!parts) {
+    parts = { sums: acLossSums(firstHarmonicDelta, ctx.harmonics), acTable: acLossTable(firstHarmonicDelta, ctx.harmonics, ctx.acGrid) };
+    sumsByDelta?.set(firstHarmonicDelta, parts);
+  }
   return {
     wire,
     copperArea: conductorCopperArea(wire),
     firstHarmonicDelta,
     layersPerWindingLayer: isLitz ? Math.max(1, Math.round(Math.sqrt(wire.strands))) : 1,
-    sums: acLossSums(firstHarmonicDelta, ctx.harmonics),
-    acTable: acLossTable(firstHarmonicDelta, ctx.harmonics, ctx.acGrid),
+    sums: parts.sums,
+    acTable: parts.acTable,
   };
+}
+
+type AcLossParts = Pick<WireContext, 'sums' | 'acTable'>;
+
+/**
+ * Every wire of a search. The harmonic sums depend only on Δ, which wires in hand share with their single wire:
+ * computed once per Δ (about a third of the catalogue's options), they are shared, never changed.
+ */
+export function prepareWires(wires: readonly WireOption[], ctx: SpecContext): WireContext[] {
+  const sumsByDelta = new Map<number, AcLossParts>();
+  return wires.map((wire) => prepareWire(wire, ctx, sumsByDelta));
 }
 
 /** Copper area of one turn of this wire on this core (m²). */

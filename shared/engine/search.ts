@@ -11,7 +11,7 @@ import {
   prepareCore,
   prepareMaterial,
   prepareSpec,
-  prepareWire,
+  prepareWires,
   turnCopperArea,
   windowTurnLimit,
   WARNING,
@@ -160,7 +160,7 @@ export function searchCandidates(input: SearchInput): SearchResult {
     limits.currentDensity,
     limits.windowUtilisation,
   );
-  const wireCtxs: WireContext[] = input.wires.map((w) => prepareWire(w, ctx));
+  const wireCtxs: WireContext[] = prepareWires(input.wires, ctx);
   const chooser = new ConductorChooser(ctx, wireCtxs);
   const materialCtxs: MaterialContext[] = materials.map((m) => prepareMaterial(m, ctx));
   const coreCtxs: CoreContext[] = cores.map(prepareCore);
