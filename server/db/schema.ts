@@ -100,6 +100,8 @@ export const materials = pgTable(
     ct1: doublePrecision('ct1'),
     ct2: doublePrecision('ct2'),
     referenceTemperature: doublePrecision('reference_temperature'),
+    // Highest tolerated hot-spot temperature (°C); null: the engine's default for the family.
+    maxTemperature: doublePrecision('max_temperature'),
     bsat25: doublePrecision('bsat_25').notNull(),
     bsat100: doublePrecision('bsat_100').notNull(),
     permeability: doublePrecision('permeability').notNull(),

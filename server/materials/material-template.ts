@@ -3,7 +3,9 @@ import type { MaterialCsvColumn } from '@shared/schemas/material-csv';
 /**
  * The downloadable template: two invented, illustrative materials, one in each unit set. Neither is any
  * maker's grade. The ferrite's k gives about 80 kW/m³ at 100 kHz and 0.1 T peak, the powder's about
- * 300 mW/cm³ at 100 kHz and 50 mT peak (plausible orders of magnitude; common practice, no source).
+ * 300 mW/cm³ at 100 kHz and 50 mT peak (plausible orders of magnitude; common practice, no source). The
+ * ferrite's factor 1e-4·T² − 0.018·T + 1.81 is 1 at its t_ref of 90 °C, where its k holds; it states no
+ * max_temperature (the ferrite default applies), the powder an invented binder limit of 150 °C.
  */
 export const TEMPLATE_ROWS: Record<MaterialCsvColumn, string>[] = [
   {
@@ -21,6 +23,7 @@ export const TEMPLATE_ROWS: Record<MaterialCsvColumn, string>[] = [
     ct1: '0.018',
     ct2: '0.0001',
     t_ref: '90',
+    max_temperature: '',
     bsat_25: '0.5',
     bsat_100: '0.4',
     mu_i: '2300',
@@ -45,6 +48,7 @@ export const TEMPLATE_ROWS: Record<MaterialCsvColumn, string>[] = [
     ct1: '',
     ct2: '',
     t_ref: '',
+    max_temperature: '150',
     bsat_25: '1000',
     bsat_100: '950',
     mu_i: '60',

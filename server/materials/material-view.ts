@@ -1,3 +1,4 @@
+import { referredTemperatureCoefficients } from '@shared/engine/core-loss';
 import type { CoreMaterial } from '@shared/engine/types';
 import type { MaterialSummary } from '@shared/schemas/material-answers';
 import type { MaterialRow } from './materials.repository.ts';
@@ -15,7 +16,7 @@ export function toCoreMaterial(row: MaterialRow): CoreMaterial {
     fitFrequencyMax: row.fitFrequencyMax,
     fitFluxMin: row.fitFluxMin,
     fitFluxMax: row.fitFluxMax,
-    ...(row.ct0 != null && row.ct1 != null && row.ct2 != null ? { tempCoefficients: { ct0: row.ct0, ct1: row.ct1, ct2: row.ct2 } } : {}),
+    ...temperatureCorrection(row),
     bsat25: row.bsat25,
     bsat100: row.bsat100,
     permeability: row.permeability,
@@ -23,6 +24,19 @@ export function toCoreMaterial(row: MaterialRow): CoreMaterial {
       ? { rollOff: { a: row.rollOffA, b: row.rollOffB, c: row.rollOffC } }
       : {}),
     density: row.density,
+    ...(row.maxTemperature != null ? { maxTemperature: row.maxTemperature } : {}),
+  };
+}
+
+/**
+ * The stored coefficients as the engine uses them: with a t_ref, k is the loss at t_ref, so the factor is divided
+ * by its value there (factor(t_ref) = 1); without one, k·factor(T) as stored.
+ */
+function temperatureCorrection(row: MaterialRow): Pick<CoreMaterial, 'tempCoefficients'> {
+  if (row.ct0 == null || row.ct1 == null || row.ct2 == null) return {};
+  const stored = { ct0: row.ct0, ct1: row.ct1, ct2: row.ct2 };
+  return {
+    tempCoefficients: row.referenceTemperature == null ? stored : referredTemperatureCoefficients(stored, row.referenceTemperature),
   };
 }
 

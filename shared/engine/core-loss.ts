@@ -66,6 +66,21 @@ export function coreLossTemperatureFactor(coefficients: TemperatureCoefficients 
 }
 
 /**
+ * Coefficients whose k was fitted at `referenceTemperature` (a material's t_ref), divided by their factor there so
+ * the factor is 1 at t_ref and k·factor(T) gives the loss at T. Coefficients already referred (factor 1 to rounding)
+ * come back as they are, so their figures do not move by rounding; so do ones whose factor at t_ref is not above 0
+ * (imports refuse them), which the engine then flags where the core works.
+ */
+export function referredTemperatureCoefficients(
+  coefficients: TemperatureCoefficients,
+  referenceTemperature: number,
+): TemperatureCoefficients {
+  const atReference = coreLossTemperatureFactor(coefficients, referenceTemperature);
+  if (Math.abs(atReference - 1) < 1e-12 || !(atReference > 0)) return coefficients;
+  return { ct0: coefficients.ct0 / atReference, ct1: coefficients.ct1 / atReference, ct2: coefficients.ct2 / atReference };
+}
+
+/**
  * Coefficients of a parabolic temperature correction with its minimum (= 1) at `minimumTemperature` and
  * curvature ct2 (1/K²).
  */

@@ -17,6 +17,7 @@ export const coreMaterialSchema = z.object({
   fitFrequencyMax: z.number(),
   fitFluxMin: z.number(),
   fitFluxMax: z.number(),
+  // As the engine uses them: a material with t_ref has them divided by their factor at t_ref (factor(t_ref) = 1).
   tempCoefficients: z.object({ ct0: z.number(), ct1: z.number(), ct2: z.number() }).optional(),
   bsat25: z.number(),
   bsat100: z.number(),

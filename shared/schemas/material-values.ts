@@ -29,6 +29,8 @@ export interface MaterialValues {
   ct1: number | null;
   ct2: number | null;
   referenceTemperature: number | null;
+  /** Highest tolerated hot-spot temperature (°C); null: the engine's default for the family. */
+  maxTemperature: number | null;
   bsat25: number;
   bsat100: number;
   permeability: number;
@@ -57,6 +59,7 @@ export function materialValuesFromRow(row: MaterialCsvRow): MaterialValues {
     ct1: row.ct1 ?? null,
     ct2: row.ct2 ?? null,
     referenceTemperature: row.t_ref ?? null,
+    maxTemperature: row.max_temperature ?? null,
     bsat25: row.bsat_25 * scale.flux,
     bsat100: row.bsat_100 * scale.flux,
     permeability: row.mu_i,
@@ -106,6 +109,7 @@ export function materialCellsFromValues(values: MaterialValues): Record<Material
     ct1: text(values.ct1),
     ct2: text(values.ct2),
     t_ref: text(values.referenceTemperature),
+    max_temperature: text(values.maxTemperature),
     bsat_25: text(values.bsat25 / scale.flux),
     bsat_100: text(values.bsat100 / scale.flux),
     mu_i: text(values.permeability),

@@ -67,6 +67,13 @@ const HOSTILE: [string, RegExp, RegExp][] = [
   ['missing-required-cell.csv', /^row 2\.density$/, /is required/],
   ['duplicate-header.csv', /^header\.name$/, /appears twice/],
   ['infinite-number.csv', /^row 2\.k$/, /finite/],
+  // 2e-4·T² − 0.04·T + 1.5 (invented) is −0.5 at its vertex, 100 °C (calculus, no source needed); row 2 is valid, yet nothing is written.
+  [
+    'negative-temperature-factor.csv',
+    /^row 3\.ct1$/,
+    /temperature factor ct2·T² − ct1·T \+ ct0 -0\.500 at 100 °C; it must stay above 0 from -40 to 180 °C/,
+  ],
+  ['max-temperature-out-of-range.csv', /^row 2\.max_temperature$/, /between 50 and 400 \(got 450\)/],
 ];
 
 describe('hostile and broken material CSV files', () => {
@@ -92,7 +99,7 @@ describe('hostile and broken material CSV files', () => {
 
   it('refuses more than 10,000 rows (generated)', async () => {
     const before = await counts();
-    const rows = Array.from({ length: 10_001 }, (_, i) => `R${i},ferrite,W/m3-Hz-T,3,1.4,2.6,1,2,0,1,,,,,0.5,0.4,2000,,,,4800,x`);
+    const rows = Array.from({ length: 10_001 }, (_, i) => `R${i},ferrite,W/m3-Hz-T,3,1.4,2.6,1,2,0,1,,,,,,0.5,0.4,2000,,,,4800,x`);
     const res = await upload(engineer, 'commit', `${HEADER}\n${rows.join('\n')}\n`);
     expect(res.status).toBe(400);
     expect(res.body.error.fields.file).toMatch(/more than 10000 material rows/);
@@ -225,14 +232,14 @@ describe('valid uploads', () => {
     const target = list.find((m) => m.name === 'Lab ferrite two')!;
     const edited = await engineer.patch(`/api/materials/${target.id}`, {
       provenance: 'note: =1+1 inside is fine',
-      ct0: '-1.5',
-      ct1: '0.01',
+      ct0: '1.5',
+      ct1: '-0.01',
       ct2: '0.0001',
     });
     expect(edited.status).toBe(201);
     const csv = await engineer.get(`/api/materials/export.csv?ids=${edited.body.id}`);
     // The negative number starts with "-", so the export prefixes it with an apostrophe.
-    expect(csv.text).toContain(",'-1.5,");
+    expect(csv.text).toContain(",'-0.01,");
     const reimport = await upload(engineer, 'preview', csv.text.replace('Lab ferrite two', 'Lab ferrite three'));
     expect(reimport.body.summary).toMatchObject({ new: 1, errors: 0 });
   });

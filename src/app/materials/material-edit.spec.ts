@@ -89,6 +89,29 @@ describe('MaterialEdit', () => {
     expect(close).not.toHaveBeenCalled();
   });
 
+  it('edits the temperature limit as its own cell and shows the server’s refusal of a temperature factor on ct1', async () => {
+    const LIMIT = 'Highest temperature max_temperature (°C)';
+    expect(fieldLabelled(page, LIMIT).value).toBe('');
+    typeInto(page, LIMIT, '155');
+    typeInto(page, 'ct0 (no unit)', '1.5');
+    typeInto(page, 'ct1 (1/°C)', '0.04');
+    typeInto(page, 'ct2 (1/°C²)', '0.0002');
+    button('Save as version 4').click();
+    await fixture.whenStable();
+
+    const request = http.expectOne('/api/materials/12');
+    expect(request.request.body).toEqual({ ct0: '1.5', ct1: '0.04', ct2: '0.0002', max_temperature: '155' });
+    const message =
+      'ct1 makes the temperature factor ct2·T² − ct1·T + ct0 -0.500 at 100 °C; it must stay above 0 from -40 to 155 °C (up to max_temperature)';
+    request.flush(
+      { error: { code: 'invalid_input', message: `The edit is not valid: ${message}`, fields: { ct1: message } } },
+      { status: 400, statusText: 'Bad Request' },
+    );
+    await fixture.whenStable();
+    expect(fieldOf('ct1 (1/°C)').querySelector('mat-error')?.textContent?.trim()).toBe(message);
+    expect(close).not.toHaveBeenCalled();
+  });
+
   it('checks only that numbers are numbers before sending anything', async () => {
     typeInto(page, BETA, '2,6');
     typeInto(page, 'Density (kg/m³)', '');

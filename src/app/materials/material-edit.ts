@@ -136,13 +136,19 @@ export class MaterialEdit {
       {
         id: 'temperature',
         legend: 'Temperature correction ct2·T² − ct1·T + ct0 (optional)',
-        note: 'T in °C. Give all three coefficients or none; leave them empty for no correction.',
+        note: 'T in °C. Give all three coefficients or none; leave them empty for no correction. With t_ref, k is the loss at t_ref: the factor is divided by its value there. It must stay above 0 from −40 °C up to the temperature limit.',
         fields: [
           { column: 'ct0', label: 'ct0 (no unit)' },
           { column: 'ct1', label: 'ct1 (1/°C)' },
           { column: 'ct2', label: 'ct2 (1/°C²)' },
           { column: 't_ref', label: 'Reference temperature t_ref (°C)' },
         ],
+      },
+      {
+        id: 'limit',
+        legend: 'Temperature limit (optional)',
+        note: 'The highest hot-spot temperature the material tolerates, 50 to 400 °C. Empty: 200 °C for ferrite, no limit for the other families.',
+        fields: [{ column: 'max_temperature', label: 'Highest temperature max_temperature (°C)' }],
       },
       {
         id: 'magnetic',

@@ -48,6 +48,7 @@ export function libraryMaterial(overrides: Partial<LibraryMaterial> = {}): Libra
       ct1: '',
       ct2: '',
       t_ref: '',
+      max_temperature: '',
       bsat_25: '0.5',
       bsat_100: '0.4',
       mu_i: '2000',

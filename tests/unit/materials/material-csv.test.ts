@@ -62,8 +62,8 @@ describe('row validation', () => {
 
   it('refuses formula-like text and reads back apostrophe-escaped negative numbers', () => {
     expect(validateMaterialCells({ ...FERRITE_CELLS, provenance: '+cmd' }).problems[0]?.column).toBe('provenance');
-    const { values } = validateMaterialCells({ ...FERRITE_CELLS, ct0: "'-1.5", ct1: '0.01', ct2: '0.0001' });
-    expect(values?.ct0).toBe(-1.5);
+    const { values } = validateMaterialCells({ ...FERRITE_CELLS, ct0: '1.5', ct1: "'-0.01", ct2: '0.0001' });
+    expect(values?.ct1).toBe(-0.01);
   });
 
   it('turns stored values back into the same cells', () => {
