@@ -26,6 +26,8 @@ export interface DemoMaterial {
   /** Powder DC-bias roll-off as μ% = 1/(1 + (H/H50)^c), H in A/m. */
   rollOff?: { h50: number; c: number };
   density: number;
+  /** Highest tolerated hot spot (°C): powder binders age with heat, of order 125–200 °C (common practice, no source). */
+  maxTemperature?: number;
 }
 
 /**
@@ -70,18 +72,22 @@ const ferrite = (grade: Grade, [temperature, ct2]: [number, number]): DemoMateri
   minimumLossAt: { temperature, ct2 },
 });
 
-/** A powder, its loss anchored at 100 kHz and 0.05 T peak, with its DC-bias roll-off (H50 in A/m, exponent c). */
-const powder = (grade: Grade, [h50, c]: [number, number]): DemoMaterial => ({
+/**
+ * A powder, its loss anchored at 100 kHz and 0.05 T peak, with its DC-bias roll-off (H50 in A/m, exponent c) and
+ * its highest tolerated temperature (°C).
+ */
+const powder = (grade: Grade, [h50, c]: [number, number], maxTemperature: number): DemoMaterial => ({
   ...demoMaterial('powder', grade, 0.05),
   rollOff: { h50, c },
+  maxTemperature,
 });
 
 export const DEMO_MATERIALS: readonly DemoMaterial[] = [
   ferrite(['MF-95', 1.4, 2.65, 80e3, [50e3, 300e3, 0.02, 0.25], [0.5, 0.4], 2300, 4800], [90, 1.0e-4]),
   ferrite(['MF-140', 1.55, 2.55, 60e3, [100e3, 1e6, 0.01, 0.15], [0.48, 0.38], 1400, 4800], [80, 1.2e-4]),
   ferrite(['MF-60', 1.25, 2.75, 120e3, [20e3, 150e3, 0.03, 0.3], [0.53, 0.43], 3000, 4850], [100, 0.8e-4]),
-  powder(['P-60', 1.35, 2.0, 300e3, [10e3, 500e3, 0.01, 0.2], [1.0, 0.95], 60, 6000], [8000, 1.8]),
-  powder(['P-26', 1.2, 2.1, 800e3, [5e3, 300e3, 0.01, 0.3], [1.2, 1.1], 26, 6500], [16000, 1.6]),
+  powder(['P-60', 1.35, 2.0, 300e3, [10e3, 500e3, 0.01, 0.2], [1.0, 0.95], 60, 6000], [8000, 1.8], 155),
+  powder(['P-26', 1.2, 2.1, 800e3, [5e3, 300e3, 0.01, 0.3], [1.2, 1.1], 26, 6500], [16000, 1.6], 130),
 ];
 
 /** Steinmetz k (W/m³, Hz, T) that makes k·f^α·B̂^β equal the anchor loss. */

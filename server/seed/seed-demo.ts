@@ -100,6 +100,7 @@ async function seedMaterials(tx: Tx): Promise<void> {
         rollOffB: m.rollOff ? m.rollOff.h50 ** -m.rollOff.c : null,
         rollOffC: m.rollOff?.c ?? null,
         density: m.density,
+        maxTemperature: m.maxTemperature ?? null,
         provenance: 'Invented for the Gapwright demo; illustrative, not a real material.',
       };
     }),

@@ -22,5 +22,6 @@ export const DEMO_ENGINE_MATERIALS: readonly CoreMaterial[] = DEMO_MATERIALS.map
     permeability: m.permeability,
     ...(m.rollOff ? { rollOff: { a: 1, b: m.rollOff.h50 ** -m.rollOff.c, c: m.rollOff.c } } : {}),
     density: m.density,
+    ...(m.maxTemperature ? { maxTemperature: m.maxTemperature } : {}),
   };
 });
