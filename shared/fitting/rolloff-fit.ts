@@ -1,7 +1,8 @@
 import { levenbergMarquardt } from 'ml-levenberg-marquardt';
 import { Matrix, solve } from 'ml-matrix';
-import type { RollOffFit } from '../engine/types';
+import type { RollOffFit } from '@shared/engine/types';
 import { FitInputError } from './fit-error';
+import { fitQuality, type FitQuality } from './fit-quality';
 import { distinctSorted, valueRange } from './loss-points';
 
 /**
@@ -21,15 +22,11 @@ export interface RollOffPoint {
   fraction: number;
 }
 
-export interface RollOffFitResult {
+/** The quality is of the fitted against the measured fraction. */
+export interface RollOffFitResult extends FitQuality {
   rollOff: RollOff;
   /** Exactly the smallest and largest field (A/m) of the points. */
   fittedField: [number, number];
-  /** Of (fitted − measured)/measured fraction, over the points. */
-  rmsRelativeError: number;
-  worstRelativeError: number;
-  worstPoint: number;
-  pointCount: number;
   iterations: number;
 }
 
@@ -183,24 +180,13 @@ export function fitRollOff(points: readonly RollOffPoint[]): RollOffFitResult {
   });
   const [logHalf, steepness] = result.parameterValues;
   const rollOff = { halfField: Math.exp(logHalf!), steepness: steepness! };
-  let sumSquares = 0;
-  let worst = -1;
-  let worstPoint = 0;
-  points.forEach((p, i) => {
-    const error = rollOffFraction(rollOff, p.field) / p.fraction - 1;
-    sumSquares += error * error;
-    if (Math.abs(error) > worst) {
-      worst = Math.abs(error);
-      worstPoint = i;
-    }
-  });
   return {
     rollOff,
     fittedField: valueRange(points.map((p) => p.field)),
-    rmsRelativeError: Math.sqrt(sumSquares / points.length),
-    worstRelativeError: worst,
-    worstPoint,
-    pointCount: points.length,
+    ...fitQuality(
+      points.map((p) => rollOffFraction(rollOff, p.field)),
+      points.map((p) => p.fraction),
+    ),
     iterations: result.iterations,
   };
 }

@@ -1,5 +1,6 @@
 import { Matrix, solve } from 'ml-matrix';
 import { FitInputError } from './fit-error';
+import { fitQuality, type FitQuality } from './fit-quality';
 import { checkLossPoints, distinctSorted, valueRange, type LossPoint } from './loss-points';
 
 /**
@@ -9,7 +10,7 @@ import { checkLossPoints, distinctSorted, valueRange, type LossPoint } from './l
  * squares on ln Pv (common practice, no source): it minimises relative rather than absolute error, which suits
  * losses spanning decades.
  */
-export interface SteinmetzFit {
+export interface SteinmetzFit extends FitQuality {
   /** W/m³ with f in Hz and B̂ in T, at a temperature factor of 1. */
   k: number;
   alpha: number;
@@ -17,12 +18,6 @@ export interface SteinmetzFit {
   /** Exactly the smallest and largest frequency (Hz) and peak flux (T) of the points used. */
   fittedFrequency: [number, number];
   fittedFlux: [number, number];
-  /** Over the points used, of (fitted − measured)/measured. */
-  rmsRelativeError: number;
-  worstRelativeError: number;
-  /** Index (in the points passed) of the point with the worst relative error. */
-  worstPoint: number;
-  pointCount: number;
 }
 
 export interface SteinmetzFitOptions {
@@ -125,27 +120,16 @@ export function fitSteinmetz(points: readonly LossPoint[], options: SteinmetzFit
   const beta = solution.get(2, 0);
   const k = Math.exp(solution.get(0, 0) - alpha * meanF - beta * meanB);
 
-  let sumSquares = 0;
-  let worst = -1;
-  let worstPoint = 0;
-  points.forEach((p, i) => {
-    const error = (fittedLoss({ k, alpha, beta }, p.frequency, p.peakFlux) * factors[i]!) / p.lossDensity - 1;
-    sumSquares += error * error;
-    if (Math.abs(error) > worst) {
-      worst = Math.abs(error);
-      worstPoint = i;
-    }
-  });
   return {
     k,
     alpha,
     beta,
     fittedFrequency: valueRange(points.map((p) => p.frequency)),
     fittedFlux: valueRange(points.map((p) => p.peakFlux)),
-    rmsRelativeError: Math.sqrt(sumSquares / n),
-    worstRelativeError: worst,
-    worstPoint,
-    pointCount: n,
+    ...fitQuality(
+      points.map((p, i) => fittedLoss({ k, alpha, beta }, p.frequency, p.peakFlux) * factors[i]!),
+      points.map((p) => p.lossDensity),
+    ),
   };
 }
 

@@ -1,5 +1,7 @@
 import { Matrix, solve } from 'ml-matrix';
+import type { TemperatureCoefficients } from '@shared/engine/core-loss';
 import { FitInputError } from './fit-error';
+import { fitQuality, type FitQuality } from './fit-quality';
 import { checkLossPoints, distinctSorted, valueRange, type LossPoint } from './loss-points';
 import { fittedLoss } from './steinmetz-fit';
 
@@ -19,11 +21,7 @@ export interface TemperatureBehaviour {
 }
 
 /** The engine's quadratic: factor = ct2·T² − ct1·T + ct0 (see `shared/engine/core-loss.ts`). */
-export interface TemperatureQuadratic {
-  ct0: number;
-  ct1: number;
-  ct2: number;
-}
+export type TemperatureQuadratic = TemperatureCoefficients;
 
 /** Temperature used as T0 for a flat factor (c = 0), where the lowest-loss temperature is not defined. */
 export const FLAT_FACTOR_TEMPERATURE = 25;
@@ -96,16 +94,12 @@ export function referToLowestLoss(k: number, b: TemperatureBehaviour): { k: numb
   };
 }
 
-export interface TemperatureFit {
+/** The quality is of the fitted against the measured factor. */
+export interface TemperatureFit extends FitQuality {
   behaviour: TemperatureBehaviour;
   quadratic: TemperatureQuadratic;
   /** Exactly the lowest and highest temperature (°C) of the points used. */
   fittedTemperature: [number, number];
-  /** Of (fitted − measured)/measured factor, over the points. */
-  rmsRelativeError: number;
-  worstRelativeError: number;
-  worstPoint: number;
-  pointCount: number;
   /**
    * True when the free quadratic opened downwards or dipped to zero and the fit was taken with c ≥ 0 and T0 inside the
    * measured temperatures instead.
@@ -205,25 +199,15 @@ export function fitTemperatureFactor(
   if (!behaviour) {
     throw new FitInputError('not-positive', 'no temperature factor positive everywhere fits these points', 'lossDensity');
   }
-  let sumSquares = 0;
-  let worst = -1;
-  let worstPoint = 0;
-  temperatures.forEach((t, i) => {
-    const error = behaviourFactor(behaviour, t) / factors[i]! - 1;
-    sumSquares += error * error;
-    if (Math.abs(error) > worst) {
-      worst = Math.abs(error);
-      worstPoint = i;
-    }
-  });
+  const found = behaviour;
   return {
-    behaviour,
-    quadratic: behaviourToQuadratic(behaviour),
+    behaviour: found,
+    quadratic: behaviourToQuadratic(found),
     fittedTemperature: valueRange(temperatures),
-    rmsRelativeError: Math.sqrt(sumSquares / n),
-    worstRelativeError: worst,
-    worstPoint,
-    pointCount: n,
+    ...fitQuality(
+      temperatures.map((t) => behaviourFactor(found, t)),
+      factors,
+    ),
     constrained,
   };
 }

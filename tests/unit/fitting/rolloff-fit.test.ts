@@ -1,7 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { permeabilityFraction } from '@shared/engine/powder';
-import { FitInputError } from '@shared/fitting/fit-error';
 import {
   fitRollOff,
   linearisedRollOff,
@@ -11,23 +10,13 @@ import {
   type RollOff,
   type RollOffPoint,
 } from '@shared/fitting/rolloff-fit';
-import { noiseFactor, relative, seededUniform } from './noise';
+import { noiseFactor, refusal, relative, seededUniform } from './support';
 
 const rollOffs = fc.record({
   halfField: fc.double({ min: 100, max: 1e5, noNaN: true }),
   steepness: fc.double({ min: 0.5, max: 4, noNaN: true }),
 });
 const fields = fc.double({ min: 0, max: 1e6, noNaN: true });
-
-function refusal(run: () => unknown): FitInputError {
-  try {
-    run();
-  } catch (error) {
-    if (error instanceof FitInputError) return error;
-    throw error;
-  }
-  throw new Error('expected a FitInputError');
-}
 
 /** Fields log-evenly from 100 A/m to 100 kA/m. */
 const FIELDS = Array.from({ length: 19 }, (_, i) => 100 * 10 ** (i / 6));

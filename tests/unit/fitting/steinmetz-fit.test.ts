@@ -1,9 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { steinmetzLoss } from '@shared/engine/core-loss';
-import { FitInputError } from '@shared/fitting/fit-error';
 import type { LossPoint } from '@shared/fitting/loss-points';
 import { fitInBands, fitSteinmetz } from '@shared/fitting/steinmetz-fit';
-import { noiseFactor, relative, seededUniform } from './noise';
+import { noiseFactor, refusal, relative, seededUniform } from './support';
 
 // Invented coefficients (no real material): 100 kW/m³ at 100 kHz and 0.1 T peak, α = 1.45, β = 2.6.
 const ALPHA = 1.45;
@@ -19,17 +18,11 @@ function grid(lossAt: (f: number, b: number) => number, frequencies = FREQUENCIE
 }
 const exactPoints = () => grid((f, b) => steinmetzLoss({ k: K, alpha: ALPHA, beta: BETA }, f, b));
 
-/** The assertion of a refused fit: a FitInputError whose message matches. */
+/** The assertion of a refused fit: a FitInputError whose message matches, naming `field` when given. */
 function refused(run: () => unknown, message: RegExp, field?: string): void {
-  let caught: unknown;
-  try {
-    run();
-  } catch (error) {
-    caught = error;
-  }
-  expect(caught).toBeInstanceOf(FitInputError);
-  expect((caught as FitInputError).message).toMatch(message);
-  if (field) expect((caught as FitInputError).field).toBe(field);
+  const error = refusal(run);
+  expect(error.message).toMatch(message);
+  if (field) expect(error.field).toBe(field);
 }
 
 describe('Steinmetz fit by weighted least squares on ln Pv (log-linear least squares, common practice, no source; power law of C. P. Steinmetz, "On the law of hysteresis", Trans. AIEE 9, 1892)', () => {

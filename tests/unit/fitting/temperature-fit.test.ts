@@ -1,7 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { coreLossTemperatureFactor, steinmetzLoss } from '@shared/engine/core-loss';
-import { FitInputError } from '@shared/fitting/fit-error';
 import {
   behaviourFactor,
   behaviourFromQuadratic,
@@ -11,7 +10,7 @@ import {
   referToLowestLoss,
   type TemperatureBehaviour,
 } from '@shared/fitting/temperature-fit';
-import { noiseFactor, relative, seededUniform } from './noise';
+import { noiseFactor, refusal, relative, seededUniform } from './support';
 
 const behaviours = fc.record({
   lowestLossTemperature: fc.double({ min: -40, max: 200, noNaN: true }),
@@ -19,16 +18,6 @@ const behaviours = fc.record({
   curvature: fc.double({ min: 0, max: 1e-2, noNaN: true }),
 });
 const temperatures = fc.double({ min: -60, max: 250, noNaN: true });
-
-function refusal(run: () => unknown): FitInputError {
-  try {
-    run();
-  } catch (error) {
-    if (error instanceof FitInputError) return error;
-    throw error;
-  }
-  throw new Error('expected a FitInputError');
-}
 
 describe('temperature behaviour F0 + c·(T − T0)² against the engine quadratic ct2·T² − ct1·T + ct0 (algebraic identity)', () => {
   it('gives the same factor as the engine at every temperature', () => {

@@ -1,3 +1,5 @@
+import { FitInputError } from '@shared/fitting/fit-error';
+
 /**
  * Seeded uniform generator for repeatable noise: mulberry32 (a public-domain 32-bit generator by Tommy Ettinger;
  * common practice, no source). Returns numbers in [0, 1).
@@ -20,3 +22,14 @@ export function noiseFactor(uniform: () => number, spread: number): number {
 
 /** Relative difference |a − b|/|b|. */
 export const relative = (a: number, b: number) => Math.abs(a - b) / Math.abs(b);
+
+/** The FitInputError `run` throws (any other outcome fails the test). */
+export function refusal(run: () => unknown): FitInputError {
+  try {
+    run();
+  } catch (error) {
+    if (error instanceof FitInputError) return error;
+    throw error;
+  }
+  throw new Error('expected a FitInputError');
+}
