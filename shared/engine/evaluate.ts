@@ -6,18 +6,16 @@ import type { ConverterSpec, DesignLimits, EngineIssue } from './inputs';
 import { describeIssues } from './issues';
 import {
   CandidateFigures,
-  designMagnetics,
   evaluateCandidate,
   prepareCore,
   prepareMaterial,
   prepareSpec,
   prepareWire,
   turnCopperArea,
-  type MagneticDesign,
   type SpecContext,
-  type TurnsInput,
   type WireContext,
 } from './kernel';
+import { designMagnetics, type MagneticDesign, type TurnsInput } from './magnetic-design';
 import type { OperatingPoint } from './operating-point';
 import type { CoreFamily, CoreMaterial, CoreShape, GapKind, GapPlacement, MaterialFamily, WireKind, WireOption } from './types';
 
