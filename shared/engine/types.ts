@@ -12,6 +12,11 @@ export type GapKind = 'air-gap' | 'distributed';
 export const GAP_PLACEMENTS = ['ground', 'spacer'] as const;
 export type GapPlacement = (typeof GAP_PLACEMENTS)[number];
 
+/** The gap input that builds an evaluated design again: the ground gap, or a spacer design's spacer thickness (m). */
+export function gapInputOf(gap: { placement: GapPlacement; total: number; spacer: number }): number {
+  return gap.placement === 'spacer' ? gap.spacer : gap.total;
+}
+
 /** One core shape (a set: pair of halves, or one ring). Effective parameters per IEC 60205. */
 export interface CoreShape {
   id: string; // e.g. "ETD34/17/11"

@@ -48,6 +48,20 @@ describe('SpecFormComponent', () => {
     expect(field('Current density J').value).toBe('4 A/mm²');
     expect(field('Window utilisation Ku').value).toBe('0.4');
     expect(field('Ripple ratio ΔI/Iout at Vin max').value).toBe('0.3');
+    // minGap 50 µm (DEFAULT_LIMITS; common practice, no source)
+    expect(field('Smallest gap the shop can hold').value).toBe('50 µm');
+  });
+
+  it('binds the smallest gap to limits.minGap in metres, typed in mm', async () => {
+    await type('Vin min', '36 V');
+    await type('Vin max', '60 V');
+    await type('Vout', '12 V');
+    await type('Iout max', '8 A');
+    await type('Switching frequency', '100 kHz');
+    await type('Smallest gap the shop can hold', '0.1 mm');
+    const spec = specFromForm(fixture.componentInstance.form.getRawValue());
+    expect(spec?.limits?.minGap).toBeCloseTo(100e-6, 12);
+    expect(formFromSpec(spec!).minGap).toBeCloseTo(100e-6, 12);
   });
 
   it('turns what a person types into the SI spec the API takes', async () => {

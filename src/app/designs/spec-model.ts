@@ -33,6 +33,7 @@ export function createSpecForm() {
     bMax: num(DEFAULT_LIMITS.bMax),
     currentDensity: num(DEFAULT_LIMITS.currentDensity),
     windowUtilisation: num(DEFAULT_LIMITS.windowUtilisation),
+    minGap: num(DEFAULT_LIMITS.minGap),
     families: new FormControl<CoreFamily[]>([], { nonNullable: true }),
     materialIds: new FormControl<string[]>([], { nonNullable: true }),
   });
@@ -61,6 +62,7 @@ export function specFromForm(v: SpecFormValue): DesignSpec | null {
     ...optional('bMax', v.bMax),
     ...optional('currentDensity', v.currentDensity),
     ...optional('windowUtilisation', v.windowUtilisation),
+    ...optional('minGap', v.minGap),
   };
   return {
     converter: {
@@ -108,6 +110,7 @@ export function formFromSpec(spec: DesignSpec): Partial<SpecFormValue> {
     bMax: l.bMax ?? DEFAULT_LIMITS.bMax,
     currentDensity: l.currentDensity ?? DEFAULT_LIMITS.currentDensity,
     windowUtilisation: l.windowUtilisation ?? DEFAULT_LIMITS.windowUtilisation,
+    minGap: l.minGap ?? DEFAULT_LIMITS.minGap,
     families: [...(spec.families ?? [])],
     materialIds: [...(spec.materialIds ?? [])],
   };
