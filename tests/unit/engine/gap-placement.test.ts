@@ -1,30 +1,15 @@
 import { describe, expect, it } from 'vitest';
-import { MU0 } from '@shared/engine/constants';
 import { evaluateDesign, type EvaluateInput } from '@shared/engine/evaluate';
 import { searchCandidates, type SearchCandidate, type SearchInput } from '@shared/engine/search';
-import type { CoreMaterial, CoreShape } from '@shared/engine/types';
 import { EXAMPLE_SPECS } from '../../support/example-specs';
 import { etd34Like, etd44Like, ferriteA, ferriteB, powderP, powderRing, roundWire, wireSet } from './fixtures';
+import { groundLOf, spacerLOf } from './mclyman';
 
 // Spec C of issue 13: 36–60 V → 12 V, 10 A, 100 kHz, ripple ratio 0.3, diode 0.6 V, switch 0.3 V, inductor 20 mΩ.
 const specC = EXAMPLE_SPECS.C;
 const base: EvaluateInput = { spec: specC, core: etd34Like, material: ferriteA, turns: 'auto', gap: 'auto', wire: roundWire(1e-3, 3) };
 
-// Colonel Wm. T. McLyman, Transformer and Inductor Design Handbook, 3rd ed., Marcel Dekker 2004, ch. 8:
-// fringing factor F = 1 + (lg/√Ae)·ln(2G/lg), G the window height.
-const F = (gap: number, area: number, windowHeight = etd34Like.windowHeight) =>
-  1 + (gap / Math.sqrt(area)) * Math.log((2 * windowHeight) / gap);
-const groundL = (turns: number, gap: number) =>
-  (MU0 * turns * turns * etd34Like.ae * F(gap, etd34Like.ae)) / (gap + etd34Like.le / ferriteA.permeability);
-/** A spacer t under all legs: gaps t across Ae and t across Ao = Ae/(Ac/Ao) in series, each with its own F. */
-const spacerLOf = (core: CoreShape, material: CoreMaterial, turns: number, t: number) => {
-  const outer = core.ae / (core.centreToOuterLegAreaRatio ?? 1);
-  const path =
-    core.le / (material.permeability * core.ae) +
-    t / (core.ae * F(t, core.ae, core.windowHeight)) +
-    t / (outer * F(t, outer, core.windowHeight));
-  return (MU0 * turns * turns) / path;
-};
+const groundL = (turns: number, gap: number) => groundLOf(etd34Like, ferriteA, turns, gap);
 const spacerL = (turns: number, t: number) => spacerLOf(etd34Like, ferriteA, turns, t);
 
 describe('gap placement', () => {
