@@ -65,7 +65,8 @@ export function windowTurnLimit(core: CoreShape, ctx: SpecContext): number {
 
 /**
  * Turns and gap of one core × material. For air-gap cores `gapInput` is the ground gap (placement 'ground') or the
- * spacer thickness (placement 'spacer'); distributed-gap cores ignore both.
+ * spacer thickness (placement 'spacer'); distributed-gap cores ignore both. `spacerAlternative` false leaves a ground
+ * design's same-L spacer at 0: the search's sweep never reads it (only a built result does) and it costs a bisection.
  */
 export function designMagnetics(
   core: CoreShape,
@@ -74,10 +75,11 @@ export function designMagnetics(
   turnsInput: TurnsInput = 'auto',
   gapInput: TurnsInput = 'auto',
   placement: GapPlacement = 'ground',
+  spacerAlternative = true,
 ): MagneticDesign {
   return core.gapKind === 'distributed'
     ? designDistributed(core, material, ctx, turnsInput)
-    : designAirGap(core, material, ctx, turnsInput, gapInput, placement);
+    : designAirGap(core, material, ctx, turnsInput, gapInput, placement, spacerAlternative);
 }
 
 function designDistributed(core: CoreShape, material: CoreMaterial, ctx: SpecContext, turnsInput: TurnsInput): MagneticDesign {
@@ -138,6 +140,7 @@ function designAirGap(
   turnsInput: TurnsInput,
   gapInput: TurnsInput,
   placement: GapPlacement,
+  spacerAlternative: boolean,
 ): MagneticDesign {
   const { op, limits } = ctx;
   const target = op.inductanceNominal;
@@ -206,7 +209,7 @@ function designAirGap(
     placement,
     turns,
     totalGap: spacer ? 2 * gap : gap,
-    spacer: spacer ? gap : Math.max(0, spacerForInductance(turns, inductance, geometry, ratio)),
+    spacer: spacer ? gap : spacerAlternative ? Math.max(0, spacerForInductance(turns, inductance, geometry, ratio)) : 0,
     relativeGap,
     fringingFactor: inductanceFactor / withoutFringing,
     inductanceFactorWithoutFringing: withoutFringing,

@@ -179,13 +179,16 @@ export function searchCandidates(input: SearchInput): SearchResult {
       const placements = core.gapKind === 'distributed' ? noPlacement : airGapPlacements;
       const pairGroups = new Int32Array(CONDUCTOR_TYPES.length * GAP_PLACEMENTS.length).fill(-1);
       // The auto turns do not depend on the placement: the sweep starts at the same turns for each.
-      const first = designMagnetics(core, material, ctx, 'auto', 'auto', GAP_PLACEMENTS[placements[0]!]);
+      const first = designMagnetics(core, material, ctx, 'auto', 'auto', GAP_PLACEMENTS[placements[0]!], false);
       let lowest = Number.POSITIVE_INFINITY;
       let withoutGain = 0;
       for (let turns = first.turns; ; turns = nextTurns(turns)) {
+        // Only applyMagnetics reads these: a ground design's same-L spacer is left for the built candidate.
         for (let p = 0; p < placements.length; p++) {
           mags[p] =
-            turns === first.turns && p === 0 ? first : designMagnetics(core, material, ctx, turns, 'auto', GAP_PLACEMENTS[placements[p]!]);
+            turns === first.turns && p === 0
+              ? first
+              : designMagnetics(core, material, ctx, turns, 'auto', GAP_PLACEMENTS[placements[p]!], false);
         }
         const choice = chooser.best(core, c, turns);
         let stepLowest = Number.POSITIVE_INFINITY;
