@@ -52,7 +52,7 @@ describe('SpecFormComponent', () => {
     expect(field('Smallest gap the shop can hold').value).toBe('50 µm');
   });
 
-  it('binds the smallest gap to limits.minGap in metres, typed in mm', async () => {
+  it('binds the smallest gap to limits.minGap in metres, typed in mm, and the placements to propose to limits.gapPlacements', async () => {
     await type('Vin min', '36 V');
     await type('Vin max', '60 V');
     await type('Vout', '12 V');
@@ -62,6 +62,11 @@ describe('SpecFormComponent', () => {
     const spec = specFromForm(fixture.componentInstance.form.getRawValue());
     expect(spec?.limits?.minGap).toBeCloseTo(100e-6, 12);
     expect(formFromSpec(spec!).minGap).toBeCloseTo(100e-6, 12);
+    expect(spec?.limits?.gapPlacements).toBeUndefined();
+    fixture.componentInstance.form.controls.gapPlacements.setValue(['spacer']);
+    const spacerOnly = specFromForm(fixture.componentInstance.form.getRawValue());
+    expect(spacerOnly?.limits?.gapPlacements).toEqual(['spacer']);
+    expect(formFromSpec(spacerOnly!).gapPlacements).toEqual(['spacer']);
   });
 
   it('turns what a person types into the SI spec the API takes', async () => {

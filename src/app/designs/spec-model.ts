@@ -1,7 +1,7 @@
 // The spec form's model and its conversion to and from the API's DesignSpec (SI values throughout).
 import { FormControl, FormGroup, Validators } from '@angular/forms';
 import { DEFAULT_LIMITS } from '@shared/engine/inputs';
-import type { CoreFamily } from '@shared/engine/types';
+import type { CoreFamily, GapPlacement } from '@shared/engine/types';
 import type { DesignSpec } from '@shared/schemas/designs';
 
 export type RippleMode = 'ratio' | 'current' | 'inductance';
@@ -34,6 +34,7 @@ export function createSpecForm() {
     currentDensity: num(DEFAULT_LIMITS.currentDensity),
     windowUtilisation: num(DEFAULT_LIMITS.windowUtilisation),
     minGap: num(DEFAULT_LIMITS.minGap),
+    gapPlacements: new FormControl<GapPlacement[]>([], { nonNullable: true }),
     families: new FormControl<CoreFamily[]>([], { nonNullable: true }),
     materialIds: new FormControl<string[]>([], { nonNullable: true }),
   });
@@ -63,6 +64,7 @@ export function specFromForm(v: SpecFormValue): DesignSpec | null {
     ...optional('currentDensity', v.currentDensity),
     ...optional('windowUtilisation', v.windowUtilisation),
     ...optional('minGap', v.minGap),
+    ...(v.gapPlacements.length ? { gapPlacements: v.gapPlacements } : {}),
   };
   return {
     converter: {
@@ -111,6 +113,7 @@ export function formFromSpec(spec: DesignSpec): Partial<SpecFormValue> {
     currentDensity: l.currentDensity ?? DEFAULT_LIMITS.currentDensity,
     windowUtilisation: l.windowUtilisation ?? DEFAULT_LIMITS.windowUtilisation,
     minGap: l.minGap ?? DEFAULT_LIMITS.minGap,
+    gapPlacements: [...(l.gapPlacements ?? [])],
     families: [...(spec.families ?? [])],
     materialIds: [...(spec.materialIds ?? [])],
   };
