@@ -1,3 +1,4 @@
+import { gapInputOf } from '@shared/engine/types';
 import type { Construction, DesignSpec, StoredResult } from '@shared/schemas/designs';
 import type { CalcService } from '../calc/calc.service.ts';
 
@@ -8,7 +9,7 @@ export interface EvaluatedConstruction {
   materialId: number;
 }
 
-/** Runs the engine on a design's construction before it is saved; turns and gap are stored as the engine resolved them. */
+/** Runs the engine on a design's construction before it is saved; turns, gap and placement are stored as the engine resolved them. */
 export class ConstructionEvaluator {
   constructor(private readonly calc: CalcService) {}
 
@@ -25,12 +26,15 @@ export class ConstructionEvaluator {
         materialId: construction.materialId,
         turns: construction.turns,
         gap: construction.gap,
+        placement: construction.placement,
         wire: construction.wire,
       },
       {},
     );
+    // The gap is stored as the engine input it resolved to: the ground gap, or the spacer thickness.
+    const gap = gapInputOf(evaluation.gap);
     return {
-      construction: { ...construction, turns: evaluation.turns, gap: evaluation.gap.total },
+      construction: { ...construction, turns: evaluation.turns, gap, placement: evaluation.gap.placement },
       result: { wire, evaluation },
       engineVersion,
       materialId: Number(construction.materialId),

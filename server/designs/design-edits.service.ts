@@ -1,6 +1,5 @@
 import { may } from '@shared/api/permissions';
 import type {
-  Construction,
   CopyDesignRequest,
   CreateDesignRequest,
   DesignDetail,
@@ -10,6 +9,7 @@ import type {
   RevisionDetail,
   UpdateRevisionRequest,
 } from '@shared/schemas/designs';
+import { readConstruction } from '@shared/schemas/designs';
 import type { AuditService } from '../audit/audit.service.ts';
 import type { Actor } from '../http/access.ts';
 import { conflict, forbidden, notFound } from '../http/errors.ts';
@@ -45,7 +45,7 @@ export class DesignEditsService {
     const revisions = await this.repo.revisions(id);
     const from = request.revision ? revisions.find((r) => r.revision === request.revision) : revisions.at(-1);
     if (!from) throw notFound(`Design ${source.number} has no revision ${request.revision}.`);
-    const construction = (from.construction as Construction | null) ?? undefined;
+    const construction = readConstruction(from.construction) ?? undefined;
     return this.create(
       actor,
       {
@@ -75,7 +75,7 @@ export class DesignEditsService {
         `Revision ${revision} of ${design.number} is ${row.status.replace('_', ' ')} and can no longer change; start a new revision.`,
       );
     const spec = request.spec ?? (row.spec as DesignSpec);
-    const construction = request.construction === undefined ? (row.construction as Construction | null) : request.construction;
+    const construction = request.construction === undefined ? readConstruction(row.construction) : request.construction;
     const evaluated = construction ? await this.evaluator.evaluate(spec, construction) : undefined;
     const values = revisionValues(id, revision, actor.id, spec, evaluated, request.note === undefined ? row.note : request.note);
     const updated = await this.repo.db.transaction(async (tx) => {

@@ -1,5 +1,5 @@
 import type { DesignDetail, DesignListQuery, DesignListResponse, DesignSpec, RevisionDetail, RevisionDiff } from '@shared/schemas/designs';
-import { readStoredResult } from '@shared/schemas/designs';
+import { readConstruction, readStoredResult } from '@shared/schemas/designs';
 import type { Actor } from '../http/access.ts';
 import { notFound } from '../http/errors.ts';
 import { GenerationMemo } from '../http/generation-cache.ts';
@@ -81,7 +81,7 @@ export class DesignsService {
       from,
       to,
       spec: diffObjects(a.spec, b.spec),
-      construction: diffObjects(a.construction, b.construction),
+      construction: diffObjects(readConstruction(a.construction), readConstruction(b.construction)),
       result: diffObjects(evaluation(a.result), evaluation(b.result)).filter((d) => !d.path.startsWith('issues')),
     };
   }

@@ -1,5 +1,5 @@
-import type { DesignDetail, DesignSpec, Construction, RevisionDetail, RevisionSummary } from '@shared/schemas/designs';
-import { readStoredResult } from '@shared/schemas/designs';
+import type { DesignDetail, DesignSpec, RevisionDetail, RevisionSummary } from '@shared/schemas/designs';
+import { readConstruction, readStoredResult } from '@shared/schemas/designs';
 import { formatQuantity } from '@shared/units/index';
 import type { Actor } from '../http/access.ts';
 import type { DesignWithOwner, RevisionRow } from './designs.repository.ts';
@@ -52,7 +52,7 @@ export function revisionDetail(actor: Caller | null, design: { ownerId: number }
   return {
     ...revisionSummary(actor, design, row),
     spec: row.spec as DesignSpec,
-    construction: (row.construction as Construction | null) ?? null,
+    construction: readConstruction(row.construction),
     ...readStoredResult(row.result),
     materialId: row.materialId,
   };

@@ -31,16 +31,34 @@ export function copperMass(result: EvaluationResult): number {
   return result.wire.copperArea * wireLengthWithLeads(result) * COPPER_DENSITY;
 }
 
+/**
+ * What to build, exactly: a ground centre gap (and the spacer giving the same L, never half the gap: a spacer makes
+ * two gaps in series), or a spacer under all legs.
+ */
+function coreGapNote(result: EvaluationResult): string {
+  if (result.core.gapKind === 'distributed') return 'distributed gap in the material; no ground gap';
+  if (result.gap.total <= 0) return 'ungapped';
+  const change = `±10 µm changes L by ∓${Math.abs(result.gap.sensitivity10um * 100).toFixed(1)} %`;
+  if (result.gap.placement === 'spacer') {
+    return `spacer ${mm(result.gap.spacer, 3)} mm thick under all legs (non-magnetic, e.g. polyester film), two gaps in series; no ground gap; ${change}`;
+  }
+  return `grind the centre leg to a gap of ${mm(result.gap.total, 3)} mm (${change}); same L without grinding: a spacer ${mm(result.gap.spacer, 3)} mm thick under all legs`;
+}
+
 export function buildBom({ result, materialName }: BomInput): BomRow[] {
   const ring = result.core.family === 'RING' || result.core.family === 'POWDER_TOROID';
   const rows: BomRow[] = [];
-  const gapNote =
-    result.core.gapKind === 'distributed'
-      ? 'distributed gap in the material; no ground gap'
-      : result.gap.total > 0
-        ? `total gap ${mm(result.gap.total, 3)} mm in the path: centre-leg ground gap ${mm(result.gap.total, 3)} mm, or a spacer of ${mm(result.gap.spacer, 3)} mm under each outer leg`
-        : 'ungapped';
+  const gapNote = coreGapNote(result);
   rows.push({ item: 'Core set', description: `${result.core.id} in ${materialName}`, quantity: 1, unit: 'set', note: gapNote });
+  if (result.core.gapKind === 'air-gap' && result.gap.placement === 'spacer' && result.gap.total > 0) {
+    rows.push({
+      item: 'Spacer',
+      description: `non-magnetic spacer film ${mm(result.gap.spacer, 3)} mm thick (e.g. polyester), cut to cover every leg`,
+      quantity: 1,
+      unit: 'set',
+      note: 'the same thickness under the centre and the outer legs',
+    });
+  }
   if (!ring) {
     rows.push({
       item: 'Bobbin',

@@ -14,7 +14,9 @@ export const CANDIDATE_COLUMNS = [
   'conductor',
   'wire',
   'turns',
+  'gap_placement',
   'gap_mm',
+  'spacer_mm',
   'inductance_uH',
   'total_loss_W',
   'copper_dc_loss_W',
@@ -38,6 +40,7 @@ export function candidatesCsv(
   const rows: (string | number | boolean)[][] = [];
   for (const c of search.candidates) {
     const r = c.result;
+    const airGap = r.core.gapKind === 'air-gap';
     rows.push([
       design.number,
       design.title,
@@ -50,7 +53,10 @@ export function candidatesCsv(
       c.conductor,
       c.wire.id,
       r.turns,
+      airGap ? r.gap.placement : '',
+      // The sum of the gaps in the path: the ground gap, or both gaps of a spacer.
       round(r.gap.total * 1e3, 4),
+      airGap && r.gap.placement === 'spacer' ? round(r.gap.spacer * 1e3, 4) : '',
       round(r.inductance.atLoad * 1e6, 4),
       round(r.totalLoss, 4),
       round(r.copper.dcLoss, 4),
@@ -80,6 +86,8 @@ export function candidatesCsv(
       '',
       x.wireId ?? '',
       x.turns ?? '',
+      x.placement ?? '',
+      '',
       '',
       '',
       x.totalLoss !== undefined ? round(x.totalLoss, 4) : '',

@@ -1,4 +1,4 @@
-import type { EvaluationResult } from '@shared/engine/index';
+import { GAP_SENSITIVITY_STEP, type EvaluationResult } from '@shared/engine/index';
 import type { CoreShape, WireOption } from '@shared/engine/types';
 import { SHEET_CAUTION, type WindingSheet } from '@shared/shop/sheet';
 
@@ -34,10 +34,53 @@ function wireDescription(wire: WireOption, copperArea: number): string {
   return `Enamelled round copper ${size}${grade}, ${wire.strands} in hand (max overall ${mm(wire.overallDiameter, 3)} each)`;
 }
 
+const um = (m: number) => `${Math.round(m * 1e6)} µm`;
+/** How much 10 µm either way moves L, in words (the engine gives ΔL/L for 10 µm more). */
+const sensitivityText = (r: EvaluationResult) =>
+  `±${um(GAP_SENSITIVITY_STEP)} changes L by ∓${Math.abs(r.gap.sensitivity10um * 100).toFixed(1)} %`;
+
+/**
+ * Exactly what to build: a ground centre gap (with the spacer that would give the same inductance, never half the
+ * gap: a spacer makes two gaps in series, and half the ground gap gives clearly less inductance), or a spacer.
+ */
+function gapPart(r: EvaluationResult): WindingSheet['parts']['gap'] {
+  const sensitivity10um = r.gap.sensitivity10um;
+  if (r.core.gapKind !== 'air-gap' || r.gap.total <= 0) {
+    const note = r.core.gapKind === 'air-gap' ? 'No gap: assemble the halves ungapped.' : 'No gap: the material sets the permeability.';
+    return { kind: 'none (distributed gap)', total: 0, groundDepth: 0, spacer: 0, spacerAlternative: 0, sensitivity10um: 0, note };
+  }
+  if (r.gap.placement === 'spacer') {
+    return {
+      kind: 'spacer under all legs',
+      total: r.gap.total,
+      groundDepth: 0,
+      spacer: r.gap.spacer,
+      spacerAlternative: 0,
+      sensitivity10um,
+      note:
+        `Spacer ${mm(r.gap.spacer, 3)} thick under all legs (non-magnetic, e.g. polyester film), two gaps in series ` +
+        `(${mm(r.gap.total, 3)} in the magnetic path); no ground gap. ${sensitivityText(r)}.`,
+    };
+  }
+  return {
+    kind: 'centre-leg ground',
+    total: r.gap.total,
+    groundDepth: r.gap.total,
+    spacer: 0,
+    spacerAlternative: r.gap.spacer,
+    sensitivity10um,
+    note:
+      `Grind the centre leg to a gap of ${mm(r.gap.total, 3)} (one half by ${mm(r.gap.total, 3)}, or each half by ` +
+      `${mm(r.gap.total / 2, 3)}); ${sensitivityText(r)}. Only if the engineer agrees, the same inductance without ` +
+      `grinding: a spacer ${mm(r.gap.spacer, 3)} thick under all legs (not half the gap; more stray field).`,
+  };
+}
+
 /** The shop's sheet for one released revision, from its frozen result. Never recomputed afterwards. */
 export function buildWindingSheet(input: SheetInput): WindingSheet {
   const { result: r, wire, core } = input;
   const gapped = r.core.gapKind === 'air-gap' && r.gap.total > 0;
+  const spacer = gapped && r.gap.placement === 'spacer';
   const tol = input.revision.inductanceTolerance;
   const nominal = r.inductance.nominal;
   const copperArea = r.wire.copperArea;
@@ -62,24 +105,7 @@ export function buildWindingSheet(input: SheetInput): WindingSheet {
     parts: {
       coreSet: isRing ? `Ring core ${r.core.id}` : `Core set ${r.core.id} (pair)`,
       coreMaterial: r.material.name,
-      gap: gapped
-        ? {
-            kind: 'centre-leg ground',
-            total: r.gap.total,
-            groundDepth: r.gap.total,
-            spacerAlternative: r.gap.spacer,
-            note:
-              `Total centre-leg gap ${mm(r.gap.total, 3)} in the magnetic path: grind one half's centre leg by ${mm(r.gap.total, 3)}, ` +
-              `or each half by ${mm(r.gap.total / 2, 3)}. Alternative only if the engineer agrees: a non-magnetic spacer of ` +
-              `${mm(r.gap.spacer, 3)} under all legs (more stray field).`,
-          }
-        : {
-            kind: 'none (distributed gap)',
-            total: 0,
-            groundDepth: 0,
-            spacerAlternative: 0,
-            note: 'No gap: the material sets the permeability.',
-          },
+      gap: gapPart(r),
       bobbin: isRing
         ? 'No bobbin: wind directly on the coated ring (add an edge-protecting wrap if the coating is thin).'
         : `Bobbin for ${r.core.id}` + (core ? `, winding width ${mm(core.bobbinWidth, 1)}, build height ${mm(core.bobbinHeight, 1)}` : ''),
@@ -133,14 +159,21 @@ export function buildWindingSheet(input: SheetInput): WindingSheet {
           'Wrap each lead 2–3 turns on its pin and solder; all wires in hand of one end on the same pin',
           'No sharp bends at the bobbin exit; no enamel damage',
         ],
-    assembly: gapped
-      ? [
-          'Check the ground gap with a feeler gauge before assembly',
-          'Insert the core halves, ground half as specified; keep gap faces clean (no tape or glue inside the gap)',
-          'Clamp or tape the core set; glue only at the outer legs if glued',
-          'Ferrite is brittle: no dropping, no force on the gap',
-        ]
-      : ['Handle the ring without chipping the coating; no force on the finished winding'],
+    assembly: !gapped
+      ? ['Handle the ring without chipping the coating; no force on the finished winding']
+      : spacer
+        ? [
+            `Check the spacer thickness with a micrometer before assembly: ${mm(r.gap.spacer, 3)}`,
+            'Lay the spacer under every leg (centre and outer legs), the same thickness everywhere; no ground gap in either half',
+            'Clamp or tape the core set evenly so the spacer stays flat; glue only at the outer legs if glued',
+            'Ferrite is brittle: no dropping, no force on the gap',
+          ]
+        : [
+            'Check the ground gap with a feeler gauge before assembly',
+            'Insert the core halves, ground half as specified; keep gap faces clean (no tape or glue inside the gap)',
+            'Clamp or tape the core set; glue only at the outer legs if glued',
+            'Ferrite is brittle: no dropping, no force on the gap',
+          ],
     impregnation: 'No varnish unless the design owner asks for it (varnish changes inductance slightly and must then be re-measured).',
     tests: {
       inductance: {

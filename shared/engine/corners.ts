@@ -1,5 +1,6 @@
 // The worst-case corners of a design, built only for candidates that are shown to someone.
-import type { CandidateFigures, MagneticDesign, SpecContext } from './kernel';
+import type { CandidateFigures, SpecContext } from './kernel';
+import type { MagneticDesign } from './magnetic-design';
 import { saturationFlux, saturationMargin } from './saturation';
 import type { CoreMaterial } from './types';
 

@@ -6,20 +6,28 @@ import type { ConverterSpec, DesignLimits, EngineIssue } from './inputs';
 import { describeIssues } from './issues';
 import {
   CandidateFigures,
-  designMagnetics,
   evaluateCandidate,
   prepareCore,
   prepareMaterial,
   prepareSpec,
   prepareWire,
   turnCopperArea,
-  type MagneticDesign,
   type SpecContext,
-  type TurnsInput,
   type WireContext,
 } from './kernel';
+import { designMagnetics, type MagneticDesign, type TurnsInput } from './magnetic-design';
 import type { OperatingPoint } from './operating-point';
-import type { CoreFamily, CoreMaterial, CoreShape, GapKind, GapPlacement, MaterialFamily, WireKind, WireOption } from './types';
+import {
+  gapInputOf,
+  type CoreFamily,
+  type CoreMaterial,
+  type CoreShape,
+  type GapKind,
+  type GapPlacement,
+  type MaterialFamily,
+  type WireKind,
+  type WireOption,
+} from './types';
 
 export interface EvaluateInput {
   spec: ConverterSpec;
@@ -307,7 +315,7 @@ export function lossVersusFrequency(input: EvaluateInput, frequencies: readonly 
         spec: { ...rest, frequency, inductance: base.inductance.minimum },
         turns: base.turns,
         placement: base.gap.placement,
-        gap: input.core.gapKind === 'distributed' ? 'auto' : base.gap.placement === 'spacer' ? base.gap.spacer : base.gap.total,
+        gap: input.core.gapKind === 'distributed' ? 'auto' : gapInputOf(base.gap),
       });
       points.push({
         frequency,

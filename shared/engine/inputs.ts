@@ -1,4 +1,5 @@
 // Inputs every engine entry point shares. SI units; temperatures in °C.
+import type { GapPlacement } from './types';
 
 export type Rectifier = 'ideal' | 'diode' | 'synchronous';
 
@@ -47,6 +48,8 @@ export interface DesignLimits {
   minPermeabilityAtPeak: number;
   /** Smallest ground gap or spacer a workshop can hold (m); distributed-gap cores are exempt. */
   minGap: number;
+  /** Gap placements the search may propose for air-gap cores (default both); a shop that cannot grind excludes 'ground'. */
+  gapPlacements?: readonly GapPlacement[];
   allowedFamilies?: readonly string[];
   allowedMaterials?: readonly string[];
 }

@@ -1,7 +1,8 @@
 // Plain-word issue texts, built only for candidates that are shown to someone.
 import { HOT_SPOT_ALLOWANCE } from './constants';
 import { TEMPERATURE_FACTOR_FLOOR, THERMAL_MODEL_LIMIT } from './thermal';
-import { FAILURE, WARNING, materialTemperatureLimit, type CandidateFigures, type MagneticDesign, type SpecContext } from './kernel';
+import { FAILURE, WARNING, materialTemperatureLimit, type CandidateFigures, type SpecContext } from './kernel';
+import type { MagneticDesign } from './magnetic-design';
 import type { EngineIssue } from './inputs';
 import type { CoreMaterial, CoreShape } from './types';
 

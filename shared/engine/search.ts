@@ -1,33 +1,27 @@
 import { availableAreaProduct, requiredAreaProduct } from './area-product';
 import { ConductorChooser, CONDUCTOR_TYPES, type ConductorType } from './conductor-choice';
-import { COPPER_DENSITY } from './constants';
 import { assembleResult, type EvaluationResult } from './evaluate';
 import type { ConverterSpec, DesignLimits, EngineIssue, RankBy } from './inputs';
-import { describeIssues } from './issues';
 import {
+  applyMagnetics,
   CandidateFigures,
-  designMagnetics,
   evaluateCandidate,
+  evaluateWinding,
   prepareCore,
   prepareMaterial,
   prepareSpec,
   prepareWires,
-  turnCopperArea,
-  windowTurnLimit,
-  WARNING,
   type CoreContext,
-  type MagneticDesign,
   type MaterialContext,
-  type SpecContext,
   type WireContext,
 } from './kernel';
+import { designMagnetics, windowTurnLimit, type MagneticDesign } from './magnetic-design';
 import { paretoFront, rankOrder, type RankedFigures } from './ranking';
-import type { CoreMaterial, CoreShape, WireOption } from './types';
+import { dropNeedlessConductors, explainInfeasible, popcount, recordFeasible, type Group, type PairState } from './search-groups';
+import { GAP_PLACEMENTS, type CoreMaterial, type CoreShape, type GapPlacement, type WireOption } from './types';
 
 /** Cores whose area product is below this fraction of the requirement are reported, not evaluated. */
 export const AREA_PRODUCT_PREFILTER = 0.5;
-/** A later conductor kind (foil, litz …) is proposed only when it loses this much less than every simpler one. */
-export const SIMPLER_CONDUCTOR_PREFERENCE = 0.03;
 /** The turns sweep stops after this many steps in a row without a new lowest loss. */
 const TURNS_STEPS_WITHOUT_GAIN = 3;
 /** Above this many turns the sweep steps geometrically (a few per cent per step), not one turn at a time. */
@@ -59,6 +53,8 @@ export interface SearchCandidate {
   /** Core loss rests on Steinmetz coefficients used outside their fitted frequency or flux range. */
   extrapolated: boolean;
   conductor: ConductorType;
+  /** Where the gap is made ('ground' for distributed-gap cores); also in result.gap.placement. */
+  placement: GapPlacement;
   /** Core volume Ve (m³) and the part's mass, core plus copper (kg). */
   volume: number;
   mass: number;
@@ -72,6 +68,7 @@ export interface InfeasibleCandidate {
   materialId?: string;
   wireId?: string;
   turns?: number;
+  placement?: GapPlacement;
   totalLoss?: number;
   reasons: EngineIssue[];
 }
@@ -90,9 +87,9 @@ export interface SearchResult {
     cores: number;
     materials: number;
     wireOptions: number;
-    /** Candidate evaluations made (core × material × turns × conductor). */
+    /** Candidate evaluations made (core × material × turns × conductor × gap placement). */
     evaluated: number;
-    /** Feasible candidates: the best build of each core × material × conductor kind that meets every limit. */
+    /** Feasible candidates: the best build of each core × material × conductor kind × placement that meets every limit. */
     feasible: number;
     /** Of those, how many rest on extrapolated loss data (ranked after every in-fit candidate). */
     extrapolated: number;
@@ -114,36 +111,7 @@ export function compatible(core: CoreShape, material: CoreMaterial): boolean {
 
 const cm4 = (m4: number) => (m4 * 1e8).toFixed(2);
 
-function popcount(bits: number): number {
-  let count = 0;
-  for (let b = bits; b !== 0; b &= b - 1) count++;
-  return count;
-}
-
 const nextTurns = (turns: number) => (turns < TURNS_GEOMETRIC_FROM ? turns + 1 : Math.ceil(turns * TURNS_GEOMETRIC_STEP));
-
-/** The best feasible build found so far of one core × material × conductor kind. */
-interface Group {
-  core: number;
-  material: number;
-  conductor: number;
-  turns: number;
-  wire: number;
-  loss: number;
-  rise: number;
-  extrapolated: boolean;
-  mass: number;
-}
-
-interface PairState {
-  core: number;
-  material: number;
-  bestFailedWire: number;
-  bestFailedTurns: number;
-  bestFailures: number;
-  bestFailedLoss: number;
-  feasible: boolean;
-}
 
 export function searchCandidates(input: SearchInput): SearchResult {
   const rankBy = input.rankBy ?? 'smallest';
@@ -165,6 +133,10 @@ export function searchCandidates(input: SearchInput): SearchResult {
   const materialCtxs: MaterialContext[] = materials.map((m) => prepareMaterial(m, ctx));
   const coreCtxs: CoreContext[] = cores.map(prepareCore);
   const figures = new CandidateFigures();
+  // Placement indices tried on air-gap cores; distributed-gap cores have no gap to place.
+  const airGapPlacements = GAP_PLACEMENTS.flatMap((p, i) => (!limits.gapPlacements || limits.gapPlacements.includes(p) ? [i] : []));
+  const noPlacement = [GAP_PLACEMENTS.indexOf('ground')];
+  const mags: MagneticDesign[] = [];
 
   const groups: Group[] = [];
   const pairs: PairState[] = [];
@@ -198,17 +170,26 @@ export function searchCandidates(input: SearchInput): SearchResult {
         material: m,
         bestFailedWire: -1,
         bestFailedTurns: 0,
+        bestFailedPlacement: 0,
         bestFailures: 0,
         bestFailedLoss: Number.POSITIVE_INFINITY,
         feasible: false,
       };
       pairs.push(pair);
-      const pairGroups = new Int32Array(CONDUCTOR_TYPES.length).fill(-1);
-      const first = designMagnetics(core, material, ctx);
+      const placements = core.gapKind === 'distributed' ? noPlacement : airGapPlacements;
+      const pairGroups = new Int32Array(CONDUCTOR_TYPES.length * GAP_PLACEMENTS.length).fill(-1);
+      // The auto turns do not depend on the placement: the sweep starts at the same turns for each.
+      const first = designMagnetics(core, material, ctx, 'auto', 'auto', GAP_PLACEMENTS[placements[0]!], false);
       let lowest = Number.POSITIVE_INFINITY;
       let withoutGain = 0;
       for (let turns = first.turns; ; turns = nextTurns(turns)) {
-        const mag = turns === first.turns ? first : designMagnetics(core, material, ctx, turns);
+        // Only applyMagnetics reads these: a ground design's same-L spacer is left for the built candidate.
+        for (let p = 0; p < placements.length; p++) {
+          mags[p] =
+            turns === first.turns && p === 0
+              ? first
+              : designMagnetics(core, material, ctx, turns, 'auto', GAP_PLACEMENTS[placements[p]!], false);
+        }
         const choice = chooser.best(core, c, turns);
         let stepLowest = Number.POSITIVE_INFINITY;
         let anyWire = false;
@@ -216,34 +197,41 @@ export function searchCandidates(input: SearchInput): SearchResult {
           const w = choice[t]!;
           if (w < 0) continue;
           anyWire = true;
-          evaluated++;
-          const feasible = evaluateCandidate(ctx, coreCtxs[c]!, materialCtxs[m]!, mag, wireCtxs[w]!, figures);
+          // Winding, losses and temperature are the same for every placement; only the gap's share is redone.
+          evaluateWinding(ctx, coreCtxs[c]!, materialCtxs[m]!, turns, wireCtxs[w]!, figures);
           if (figures.totalLoss < stepLowest) stepLowest = figures.totalLoss;
-          if (feasible) {
-            pair.feasible = true;
-            recordFeasible(groups, pairGroups, { c, m, t, turns, w }, figures, core, material, wireCtxs[w]!);
-          } else if (!pair.feasible) {
-            const count = popcount(figures.failures);
-            if (
-              pair.bestFailedWire < 0 ||
-              count < pair.bestFailures ||
-              (count === pair.bestFailures && figures.totalLoss < pair.bestFailedLoss)
-            ) {
-              pair.bestFailedWire = w;
-              pair.bestFailedTurns = turns;
-              pair.bestFailures = count;
-              pair.bestFailedLoss = figures.totalLoss;
+          for (let p = 0; p < placements.length; p++) {
+            evaluated++;
+            const placement = placements[p]!;
+            if (applyMagnetics(ctx, core, material, mags[p]!, figures)) {
+              pair.feasible = true;
+              recordFeasible(groups, pairGroups, { c, m, t, turns, w, placement }, figures, core, material, wireCtxs[w]!);
+            } else if (!pair.feasible) {
+              const count = popcount(figures.failures);
+              if (
+                pair.bestFailedWire < 0 ||
+                count < pair.bestFailures ||
+                (count === pair.bestFailures && figures.totalLoss < pair.bestFailedLoss)
+              ) {
+                pair.bestFailedWire = w;
+                pair.bestFailedTurns = turns;
+                pair.bestFailedPlacement = placement;
+                pair.bestFailures = count;
+                pair.bestFailedLoss = figures.totalLoss;
+              }
             }
           }
         }
         // Distributed-gap cores: the turns follow from the inductance. Gapped: more turns until the loss rises for good.
-        if (mag.kind === 'distributed' || !anyWire || turns >= turnLimit) break;
+        if (first.kind === 'distributed' || !anyWire || turns >= turnLimit) break;
         if (stepLowest < lowest * (1 - 1e-9)) {
           lowest = stepLowest;
           withoutGain = 0;
         } else if (++withoutGain >= TURNS_STEPS_WITHOUT_GAIN) break;
       }
-      dropNeedlessConductors(groups, pairGroups);
+      for (const p of placements) {
+        dropNeedlessConductors(groups, pairGroups.subarray(p * CONDUCTOR_TYPES.length, (p + 1) * CONDUCTOR_TYPES.length));
+      }
     }
   }
 
@@ -254,7 +242,8 @@ export function searchCandidates(input: SearchInput): SearchResult {
     mass: g.mass,
     rise: g.rise,
     extrapolated: g.extrapolated,
-    simplicity: g.conductor,
+    // Conductor kind first, then ground before spacer (the same part otherwise: equal loss, volume and mass).
+    simplicity: g.conductor * GAP_PLACEMENTS.length + g.placement,
   }));
   const order = rankOrder(ranked, rankBy);
   const rankOf = new Int32Array(kept.length);
@@ -266,7 +255,8 @@ export function searchCandidates(input: SearchInput): SearchResult {
     const g = kept[i]!;
     const core = cores[g.core]!;
     const material = materials[g.material]!;
-    const mag = designMagnetics(core, material, ctx, g.turns);
+    const placement = GAP_PLACEMENTS[g.placement]!;
+    const mag = designMagnetics(core, material, ctx, g.turns, 'auto', placement);
     const wireCtx = wireCtxs[g.wire]!;
     evaluateCandidate(ctx, coreCtxs[g.core]!, materialCtxs[g.material]!, mag, wireCtx, figures);
     return {
@@ -275,6 +265,7 @@ export function searchCandidates(input: SearchInput): SearchResult {
       paretoByMass: onMassFront.has(i),
       extrapolated: g.extrapolated,
       conductor: CONDUCTOR_TYPES[g.conductor]!,
+      placement,
       volume: core.ve,
       mass: g.mass,
       wire: wireCtx.wire,
@@ -309,96 +300,4 @@ export function searchCandidates(input: SearchInput): SearchResult {
     },
     requiredAreaProduct: required,
   };
-}
-
-function recordFeasible(
-  groups: Group[],
-  pairGroups: Int32Array,
-  at: { c: number; m: number; t: number; turns: number; w: number },
-  figures: CandidateFigures,
-  core: CoreShape,
-  material: CoreMaterial,
-  wireCtx: WireContext,
-): void {
-  let index = pairGroups[at.t]!;
-  if (index < 0) {
-    index = groups.length;
-    pairGroups[at.t] = index;
-    groups.push({
-      core: at.c,
-      material: at.m,
-      conductor: at.t,
-      turns: 0,
-      wire: -1,
-      loss: Number.POSITIVE_INFINITY,
-      rise: 0,
-      extrapolated: false,
-      mass: 0,
-    });
-  }
-  const group = groups[index]!;
-  if (figures.totalLoss >= group.loss) return;
-  group.turns = at.turns;
-  group.wire = at.w;
-  group.loss = figures.totalLoss;
-  group.rise = figures.rise;
-  group.extrapolated = (figures.warnings & (WARNING.frequencyFit | WARNING.fluxFit)) !== 0;
-  const copperMass = at.turns * figures.meanTurnLength * turnCopperArea(wireCtx, core) * COPPER_DENSITY;
-  group.mass = core.ve * material.density + copperMass;
-}
-
-const SOLID = CONDUCTOR_TYPES.indexOf('solid');
-const IN_HAND = CONDUCTOR_TYPES.indexOf('in-hand');
-const FOIL = CONDUCTOR_TYPES.indexOf('foil');
-const LITZ = CONDUCTOR_TYPES.indexOf('litz');
-/** Up to this many turns a foil or strap is easier to wind and terminate than a bundle of wires in hand (common practice, no source). */
-export const STRAP_TURNS = 4;
-
-/**
- * A winder reaches for solid wire first, then wires in hand, foil, litz — for a strap of a few turns, foil before
- * wires in hand: a later kind must earn its place by losing clearly less.
- */
-function dropNeedlessConductors(groups: Group[], pairGroups: Int32Array): void {
-  const foil = pairGroups[FOIL]!;
-  const strap = foil >= 0 && groups[foil]!.turns <= STRAP_TURNS;
-  const order = strap ? [SOLID, FOIL, IN_HAND, LITZ] : [SOLID, IN_HAND, FOIL, LITZ];
-  let simplerBest = Number.POSITIVE_INFINITY;
-  for (const t of order) {
-    const index = pairGroups[t]!;
-    if (index < 0) continue;
-    const group = groups[index]!;
-    if (group.loss > simplerBest * (1 - SIMPLER_CONDUCTOR_PREFERENCE)) group.turns = 0;
-    else simplerBest = Math.min(simplerBest, group.loss);
-  }
-}
-
-function explainInfeasible(
-  ctx: SpecContext,
-  cores: readonly CoreShape[],
-  materials: readonly CoreMaterial[],
-  coreCtxs: readonly CoreContext[],
-  materialCtxs: readonly MaterialContext[],
-  wireCtxs: readonly WireContext[],
-  pairs: readonly PairState[],
-  figures: CandidateFigures,
-  limit: number,
-): InfeasibleCandidate[] {
-  return pairs
-    .filter((p) => !p.feasible && p.bestFailedWire >= 0)
-    .sort((a, b) => a.bestFailures - b.bestFailures || a.bestFailedLoss - b.bestFailedLoss)
-    .slice(0, limit)
-    .map((p) => {
-      const core = cores[p.core]!;
-      const material = materials[p.material]!;
-      const mag: MagneticDesign = designMagnetics(core, material, ctx, p.bestFailedTurns);
-      evaluateCandidate(ctx, coreCtxs[p.core]!, materialCtxs[p.material]!, mag, wireCtxs[p.bestFailedWire]!, figures);
-      return {
-        coreId: core.id,
-        materialId: material.id,
-        wireId: wireCtxs[p.bestFailedWire]!.wire.id,
-        turns: mag.turns,
-        totalLoss: figures.totalLoss,
-        reasons: describeIssues({ ctx, core, material, mag, figures }).filter((x) => x.severity === 'error'),
-      };
-    });
 }

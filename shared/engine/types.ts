@@ -9,7 +9,13 @@ export type CoreFamily = (typeof CORE_FAMILIES)[number];
 export type GapKind = 'air-gap' | 'distributed';
 
 /** Where an air-gap core's gap is made: ground into the centre leg, or a non-magnetic spacer under all legs. */
-export type GapPlacement = 'ground' | 'spacer';
+export const GAP_PLACEMENTS = ['ground', 'spacer'] as const;
+export type GapPlacement = (typeof GAP_PLACEMENTS)[number];
+
+/** The gap input that builds an evaluated design again: the ground gap, or a spacer design's spacer thickness (m). */
+export function gapInputOf(gap: { placement: GapPlacement; total: number; spacer: number }): number {
+  return gap.placement === 'spacer' ? gap.spacer : gap.total;
+}
 
 /** One core shape (a set: pair of halves, or one ring). Effective parameters per IEC 60205. */
 export interface CoreShape {

@@ -10,7 +10,7 @@ import type {
   SearchResult,
   WireOption,
 } from '@shared/engine/index';
-import { CORE_FAMILIES, MATERIAL_FAMILIES, WIRE_KINDS } from '@shared/engine/types';
+import { CORE_FAMILIES, GAP_PLACEMENTS, MATERIAL_FAMILIES, WIRE_KINDS } from '@shared/engine/types';
 import { CONDUCTOR_TYPES } from '@shared/engine/conductor-choice';
 import { RANK_BY } from '@shared/engine/ranking';
 
@@ -89,7 +89,7 @@ export const evaluationResultSchema = z.object({
   }),
   turns: z.number(),
   gap: numbers('total', 'spacer', 'fringingFactor', 'relativeToCore', 'sensitivity10um').extend({
-    placement: z.enum(['ground', 'spacer']),
+    placement: z.enum(GAP_PLACEMENTS),
   }),
   inductanceFactor: numbers('withoutFringing', 'withFringing'),
   inductance: numbers('required', 'targetNominal', 'nominal', 'minimum', 'atLoad', 'atPeak', 'permeabilityAtPeak'),
@@ -141,6 +141,7 @@ const searchCandidateSchema = z.object({
   paretoByMass: z.boolean().meta({ description: 'On the loss-versus-mass Pareto front' }),
   extrapolated: z.boolean().meta({ description: 'Core loss rests on material data used outside its fitted range' }),
   conductor: z.enum(CONDUCTOR_TYPES),
+  placement: z.enum(GAP_PLACEMENTS).meta({ description: 'Where the gap is made: ground centre gap or spacer under all legs' }),
   volume: z.number().meta({ description: 'Core volume Ve (m³)' }),
   mass: z.number().meta({ description: 'Core plus copper (kg)' }),
   wire: wireOptionSchema,
@@ -159,6 +160,7 @@ export const searchResultSchema = z.object({
       materialId: z.string().optional(),
       wireId: z.string().optional(),
       turns: z.number().optional(),
+      placement: z.enum(GAP_PLACEMENTS).optional(),
       totalLoss: z.number().optional(),
       reasons: z.array(engineIssueSchema),
     }),

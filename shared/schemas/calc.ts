@@ -2,7 +2,7 @@
 // Every number is finite (zod 4 rejects NaN and ±Infinity); messages name the field and the allowed range.
 import * as z from 'zod';
 import { text } from './text';
-import { CORE_FAMILIES, MATERIAL_FAMILIES } from '@shared/engine/types';
+import { CORE_FAMILIES, GAP_PLACEMENTS, MATERIAL_FAMILIES } from '@shared/engine/types';
 import { RANK_BY } from '@shared/engine/ranking';
 import { storedIdTextSchema, uniqueListSchema } from './ids';
 
@@ -113,6 +113,9 @@ export const designLimitsSchema = z
       .optional(),
     minPermeabilityAtPeak: rangeNumber('minPermeabilityAtPeak', 0, 1, '', 'Smallest L(Ipk)/L0 of a powder core').optional(),
     minGap: rangeNumber('minGap', 0, 5e-3, 'm', 'Smallest ground gap or spacer a workshop can hold').optional(),
+    gapPlacements: uniqueListSchema(z.enum(GAP_PLACEMENTS), GAP_PLACEMENTS.length, 'gapPlacements', 1)
+      .meta({ description: 'Gap placements the search may propose for air-gap cores: "ground", "spacer" (default both)' })
+      .optional(),
     allowedFamilies: uniqueListSchema(z.enum(CORE_FAMILIES), CORE_FAMILIES.length, 'allowedFamilies')
       .meta({ description: 'Core families to consider' })
       .optional(),
@@ -302,7 +305,7 @@ export const evaluateRequestSchema = z
       .default('auto')
       .meta({ description: 'Ground gap, or spacer thickness with placement "spacer" (0…0.02 m), or "auto"' }),
     placement: z
-      .enum(['ground', 'spacer'])
+      .enum(GAP_PLACEMENTS)
       .meta({ description: 'Gap ground into the centre leg (default) or a spacer under all legs' })
       .optional(),
     wire: wireRequestSchema,

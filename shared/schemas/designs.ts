@@ -3,7 +3,7 @@
 import * as z from 'zod';
 import { text } from './text';
 import type { EvaluationResult } from '@shared/engine/evaluate';
-import { CORE_FAMILIES, type WireOption } from '@shared/engine/types';
+import { CORE_FAMILIES, GAP_PLACEMENTS, type WireOption } from '@shared/engine/types';
 import { converterSpecSchema, designLimitsSchema, wireRequestSchema } from './calc';
 import { evaluationResultSchema, wireOptionSchema } from './calc-answers';
 import { storedIdSchema, storedIdTextSchema, uniqueListSchema } from './ids';
@@ -44,7 +44,11 @@ export const constructionSchema = z
       .min(0, { error: 'gap must be between 0 and 0.02 m' })
       .max(0.02, { error: 'gap must be between 0 and 0.02 m' })
       .or(z.literal('auto'))
-      .meta({ description: 'Total gap in the magnetic path (m) or "auto"' }),
+      .meta({ description: 'Ground gap, or the spacer thickness with placement "spacer" (m), or "auto"' }),
+    placement: z
+      .enum(GAP_PLACEMENTS)
+      .default('ground')
+      .meta({ description: 'Gap ground into the centre leg (default) or a spacer under all legs; ignored for distributed-gap cores' }),
     wire: wireRequestSchema,
   })
   .strict()
@@ -198,6 +202,13 @@ export function readStoredResult(stored: unknown): { result: StoredResult | null
   if (parsed.success) return { result: parsed.data, resultUnreadable: null };
   const [issue] = parsed.error.issues;
   return { result: null, resultUnreadable: `${issue.path.join('.') || 'result'}: ${issue.message}` };
+}
+
+/** A stored construction; one saved before the gap placement existed reads as a ground centre gap. */
+export function readConstruction(stored: unknown): Construction | null {
+  if (!stored || typeof stored !== 'object') return null;
+  const construction = stored as Omit<Construction, 'placement'> & { placement?: Construction['placement'] };
+  return { ...construction, placement: construction.placement ?? 'ground' };
 }
 
 /** The engine result saved on a revision, or null when none was chosen yet or the record no longer reads. */

@@ -32,10 +32,15 @@ export const windingSheetSchema = z
       coreSet: z.string(),
       coreMaterial: z.string(),
       gap: z.object({
-        kind: z.enum(['centre-leg ground', 'none (distributed gap)']),
-        total: z.number().meta({ description: 'Total gap in the magnetic path (m)' }),
-        groundDepth: z.number().meta({ description: 'm' }),
-        spacerAlternative: z.number().meta({ description: 'Spacer under all legs instead of grinding (m)' }),
+        kind: z.enum(['centre-leg ground', 'spacer under all legs', 'none (distributed gap)']),
+        total: z.number().meta({ description: 'Total gap in the magnetic path (m): the ground gap, or twice the spacer' }),
+        groundDepth: z.number().meta({ description: 'Centre-leg gap to grind (m); 0 for a spacer design' }),
+        // Sheets frozen before the spacer placement existed are ground designs without these two figures.
+        spacer: z.number().default(0).meta({ description: 'Spacer thickness of a spacer design (m); 0 otherwise' }),
+        spacerAlternative: z
+          .number()
+          .meta({ description: 'Ground design: the spacer under all legs giving the same inductance (m); 0 otherwise' }),
+        sensitivity10um: z.number().default(0).meta({ description: 'ΔL/L for 10 µm more ground gap or spacer' }),
         note: z.string(),
       }),
       bobbin: z.string(),

@@ -33,10 +33,17 @@ export interface WindingSheet {
     coreSet: string;
     coreMaterial: string;
     gap: {
-      kind: 'centre-leg ground' | 'none (distributed gap)';
+      kind: 'centre-leg ground' | 'spacer under all legs' | 'none (distributed gap)';
+      /** Sum of the gaps in the magnetic path (m): the ground gap, or twice the spacer. */
       total: number;
+      /** Centre-leg gap to grind (m); 0 for a spacer design. */
       groundDepth: number;
+      /** Spacer thickness (m) of a spacer design; 0 otherwise. */
+      spacer: number;
+      /** Ground design: the spacer under all legs that gives the same inductance (m); 0 otherwise. */
       spacerAlternative: number;
+      /** ΔL/L for 10 µm more ground gap or spacer. */
+      sensitivity10um: number;
       note: string;
     };
     bobbin: string;

@@ -167,3 +167,45 @@ describe('designs: ownership and revisions', () => {
     ]);
   });
 });
+
+describe('designs: gap placement', () => {
+  it('saves a spacer design with its placement and spacer thickness, and reads a row saved before placements as ground', async () => {
+    const res = await erin.post('/api/designs', {
+      title: 'Spacer choke',
+      spec: SPEC,
+      construction: { ...construction(), placement: 'spacer' },
+    });
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    const saved = res.body.latest;
+    expect(saved.construction.placement).toBe('spacer');
+    expect(saved.result.evaluation.gap.placement).toBe('spacer');
+    // the stored gap is the spacer thickness the engine solved (two gaps of it in the path), not the total
+    expect(saved.construction.gap).toBe(saved.result.evaluation.gap.spacer);
+    expect(saved.result.evaluation.gap.total).toBeCloseTo(2 * saved.construction.gap, 12);
+    const read = await erin.get(`/api/designs/${res.body.id}`);
+    expect(read.body.latest.construction).toMatchObject({ placement: 'spacer', gap: saved.construction.gap });
+
+    // a draft edit keeps the placement and evaluates the given spacer as a spacer
+    const edited = await erin.patch(`/api/designs/${res.body.id}/revisions/1`, { note: 'checked' });
+    expect(edited.status).toBe(200);
+    expect(edited.body.result.evaluation.gap.placement).toBe('spacer');
+    expect(edited.body.result.evaluation.gap.spacer).toBe(saved.construction.gap);
+
+    // a row written before the placement existed: no placement key in the stored construction
+    const old = await createDesign(erin, 'Choke from before placements');
+    const { placement: _placement, ...legacy } = (await erin.get(`/api/designs/${old.id}`)).body.latest.construction;
+    await t.db.update(designRevisions).set({ construction: legacy }).where(eq(designRevisions.designId, old.id));
+    const oldRead = await erin.get(`/api/designs/${old.id}`);
+    expect(oldRead.body.latest.construction.placement).toBe('ground');
+    const oldEdit = await erin.patch(`/api/designs/${old.id}/revisions/1`, { note: 'touched' });
+    expect(oldEdit.status).toBe(200);
+    expect(oldEdit.body.construction.placement).toBe('ground');
+    expect(oldEdit.body.result.evaluation.gap.total).toBeCloseTo(old.latest.construction.gap, 12);
+  });
+
+  it('refuses an unknown placement naming the field', async () => {
+    const res = await erin.post('/api/designs', { title: 'Glued', spec: SPEC, construction: { ...construction(), placement: 'glued' } });
+    expect(res.status).toBe(400);
+    expect(Object.keys(res.body.error.fields)).toContain('construction.placement');
+  });
+});

@@ -23,6 +23,8 @@ export interface CandidateRow {
   turns: number;
   /** Total air gap in the path (m); null for a distributed-gap core. */
   gap: number | null;
+  /** Spacer thickness (m) of a spacer design (two gaps of it in series); null for a ground gap or no gap. */
+  spacer: number | null;
   totalLoss: number;
   volume: number;
   mass: number;
@@ -87,7 +89,7 @@ export function candidateRow(c: SearchCandidate, materialNames: ReadonlyMap<stri
   const r = c.result;
   const materialName = materialNames.get(r.material.id) ?? r.material.name;
   return {
-    key: `${r.core.id}|${r.material.id}|${c.wire.id}|${r.turns}`,
+    key: `${r.core.id}|${r.material.id}|${c.wire.id}|${r.turns}|${c.placement}`,
     rank: c.rank,
     pareto: c.pareto,
     paretoByMass: c.paretoByMass,
@@ -98,6 +100,7 @@ export function candidateRow(c: SearchCandidate, materialNames: ReadonlyMap<stri
     wireId: c.wire.id,
     turns: r.turns,
     gap: r.core.gapKind === 'air-gap' ? r.gap.total : null,
+    spacer: r.core.gapKind === 'air-gap' && c.placement === 'spacer' ? r.gap.spacer : null,
     totalLoss: r.totalLoss,
     volume: c.volume,
     mass: c.mass,
@@ -106,7 +109,7 @@ export function candidateRow(c: SearchCandidate, materialNames: ReadonlyMap<stri
     fill: r.winding.copperFill,
     fluxMargin: r.flux.saturationMargin,
     marks: candidateMarks(c),
-    label: `${r.core.id} · ${materialName} · ${c.wire.id}`,
+    label: `${r.core.id} · ${materialName} · ${c.wire.id}${c.placement === 'spacer' && r.core.gapKind === 'air-gap' ? ' · spacer' : ''}`,
     candidate: c,
   };
 }

@@ -147,4 +147,23 @@ describe('CandidatesPanel', () => {
     expect(frontNames()).toEqual(['Front M2', 'Front M40']);
     expect(options().series[0].data.map((p) => p.symbol)).toEqual([undefined, 'emptyDiamond']);
   });
+
+  it('shows the same part ground and on a spacer as two rows, and uses the one chosen', async () => {
+    await render();
+    const ground = searchCandidate({ rank: 1, coreId: 'P26/16' });
+    const spacer = searchCandidate({ rank: 2, coreId: 'P26/16', placement: 'spacer' });
+    await searchAndAnswer(searchAnswer({ candidates: [ground, spacer] }));
+    const rows = [...host.querySelectorAll<HTMLElement>('[data-testid="candidates-table"] tr.mat-mdc-row')];
+    expect(rows.length).toBe(2);
+    const gapCell = (row: HTMLElement) => row.querySelector('td.mat-column-gap')!.textContent!.replace(/\s+/g, ' ').trim();
+    // the template's ground gap 1.049 mm, and its spacer alternative 0.5243 mm under all legs
+    expect(gapCell(rows[0])).toBe('1.05');
+    expect(gapCell(rows[1])).toBe('2 × 0.524 spacer');
+    const picked: unknown[] = [];
+    fixture.componentInstance.picked.subscribe((c) => picked.push(c));
+    rows[1].click();
+    await fixture.whenStable();
+    button('Use selected candidate').click();
+    expect(picked).toEqual([spacer]);
+  });
 });

@@ -5,6 +5,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { THERMAL_MODEL_LIMIT } from '@shared/engine/thermal';
+import { gapInputOf, type GapPlacement } from '@shared/engine/types';
 import type { Construction, DesignSpec } from '@shared/schemas/designs';
 import type { EvaluateAnswer } from '@shared/schemas/calc-answers';
 import type { EChartsCoreOption } from 'echarts/core';
@@ -24,7 +25,7 @@ import { percent, show, showUnit } from './format';
 
 type WireKind = 'awg' | 'metric' | 'litz' | 'foil';
 
-/** The chosen design: every figure, three charts, warnings; core, material, turns, gap and wire re-evaluate live. */
+/** The chosen design: every figure, three charts, warnings; core, material, turns, gap placement, gap and wire re-evaluate live. */
 @Component({
   selector: 'gw-design-panel',
   imports: [
@@ -58,6 +59,7 @@ export class DesignPanel {
     coreId: new FormControl('', { nonNullable: true, validators: [Validators.required] }),
     materialId: new FormControl('', { nonNullable: true, validators: [Validators.required] }),
     turns: new FormControl<number | null>(null, { validators: [Validators.required, Validators.min(1), Validators.max(2000)] }),
+    placement: new FormControl<GapPlacement>('ground', { nonNullable: true }),
     gap: new FormControl<number | null>(null),
     wireKind: new FormControl<WireKind>('awg', { nonNullable: true }),
     awg: new FormControl<number | null>(null, { validators: [Validators.min(-3), Validators.max(46)] }),
@@ -65,6 +67,7 @@ export class DesignPanel {
     strands: new FormControl<number | null>(1, { validators: [Validators.required, Validators.min(1), Validators.max(5000)] }),
   });
   protected readonly wireKind = signal<WireKind>('awg');
+  protected readonly placement = signal<GapPlacement>('ground');
   protected readonly view = signal<EvaluateAnswer | null>(null);
   protected readonly evaluating = signal(false);
   protected readonly error = signal<string | null>(null);
@@ -72,6 +75,8 @@ export class DesignPanel {
   private silent = false;
   /** Another core was chosen: turns and gap of the old core mean nothing there, so the engine solves them again. */
   private coreChanged = false;
+  /** The other placement was chosen: a ground gap is no spacer thickness, so the engine solves the gap again. */
+  private placementChanged = false;
 
   protected readonly fmt = show;
   protected readonly unit = showUnit;
@@ -108,6 +113,10 @@ export class DesignPanel {
     this.form.controls.coreId.valueChanges.pipe(takeUntilDestroyed()).subscribe(() => {
       if (!this.silent) this.coreChanged = true;
     });
+    this.form.controls.placement.valueChanges.pipe(takeUntilDestroyed()).subscribe((placement) => {
+      this.placement.set(placement);
+      if (!this.silent) this.placementChanged = true;
+    });
     this.form.valueChanges.pipe(takeUntilDestroyed()).subscribe(() => {
       if (!this.silent) this.edits.next();
     });
@@ -134,14 +143,15 @@ export class DesignPanel {
         if (!outcome) return;
         this.error.set(null);
         this.view.set(outcome.view);
-        if (outcome.construction.turns === 'auto') {
-          // The engine chose turns and gap for the new core; the fields show them so the next edit starts there.
+        const r = outcome.view.result;
+        if (outcome.construction.turns === 'auto' || outcome.construction.gap === 'auto') {
+          // The engine chose turns or gap (new core, other placement); the fields show them so the next edit starts there.
           this.silent = true;
-          this.form.patchValue({ turns: outcome.view.result.turns, gap: outcome.view.result.gap.total });
+          this.form.patchValue({ turns: r.turns, gap: gapInputOf(r.gap) });
           this.silent = false;
         }
         this.changed.emit({
-          construction: { ...outcome.construction, turns: outcome.view.result.turns, gap: outcome.view.result.gap.total },
+          construction: { ...outcome.construction, turns: r.turns, gap: gapInputOf(r.gap), placement: r.gap.placement },
           view: outcome.view,
         });
       });
@@ -159,18 +169,21 @@ export class DesignPanel {
     }
     this.silent = true;
     this.coreChanged = false;
+    this.placementChanged = false;
     const wire = construction.wire;
     this.form.setValue({
       coreId: construction.coreId,
       materialId: construction.materialId,
       turns: typeof construction.turns === 'number' ? construction.turns : (known?.result.turns ?? null),
-      gap: typeof construction.gap === 'number' ? construction.gap : (known?.result.gap.total ?? null),
+      placement: construction.placement,
+      gap: typeof construction.gap === 'number' ? construction.gap : known ? gapInputOf(known.result.gap) : null,
       wireKind: wire.kind,
       awg: wire.awg ?? null,
       strandDiameter: wire.strandDiameter ?? null,
       strands: wire.strands,
     });
     this.wireKind.set(wire.kind);
+    this.placement.set(construction.placement);
     this.silent = false;
     if (known) this.view.set(known);
     // The loss-versus-frequency sweep is never stored; a fresh evaluation brings it.
@@ -186,11 +199,17 @@ export class DesignPanel {
         ? { kind: 'awg', awg: v.awg, strands: v.strands }
         : { kind: v.wireKind, strandDiameter: v.strandDiameter ?? 0, strands: v.wireKind === 'foil' ? 1 : v.strands };
     if (wire.strandDiameter === 0) return null;
+    const { coreId, materialId, placement } = v;
     if (this.coreChanged) {
       this.coreChanged = false;
-      return { coreId: v.coreId, materialId: v.materialId, turns: 'auto', gap: 'auto', wire };
+      this.placementChanged = false;
+      return { coreId, materialId, turns: 'auto', gap: 'auto', placement, wire };
     }
-    return { coreId: v.coreId, materialId: v.materialId, turns: v.turns, gap: v.gap ?? 'auto', wire };
+    if (this.placementChanged) {
+      this.placementChanged = false;
+      return { coreId, materialId, turns: v.turns, gap: 'auto', placement, wire };
+    }
+    return { coreId, materialId, turns: v.turns, gap: v.gap ?? 'auto', placement, wire };
   }
 
   /** The three charts beside the figures, each with the words a screen reader gives for it. */

@@ -7,6 +7,7 @@ import { MatInputModule } from '@angular/material/input';
 import { Router, RouterLink } from '@angular/router';
 import { may } from '@shared/api/permissions';
 import type { SearchCandidate } from '@shared/engine/index';
+import { gapInputOf } from '@shared/engine/types';
 import {
   EXPORT_KINDS,
   wireRequestOf,
@@ -166,7 +167,8 @@ export class DesignWorkspace {
       coreId: r.core.id,
       materialId: r.material.id,
       turns: r.turns,
-      gap: r.gap.total,
+      gap: gapInputOf(r.gap),
+      placement: candidate.placement,
       wire: wireRequestOf(candidate.wire),
     };
     const view: EvaluateAnswer = { engineVersion: '', wire: candidate.wire, result: r };

@@ -48,6 +48,21 @@ describe('SpecFormComponent', () => {
     expect(field('Current density J').value).toBe('4 A/mm²');
     expect(field('Window utilisation Ku').value).toBe('0.4');
     expect(field('Ripple ratio ΔI/Iout at Vin max').value).toBe('0.3');
+    // minGap 50 µm (DEFAULT_LIMITS; common practice, no source)
+    expect(field('Smallest gap the shop can hold').value).toBe('50 µm');
+  });
+
+  it('binds the smallest gap to limits.minGap in metres, typed in mm, and the placements to propose to limits.gapPlacements', async () => {
+    fixture.componentInstance.form.patchValue({ vinMin: 36, vinMax: 60, vout: 12, ioutMax: 8, frequency: 100e3 });
+    await type('Smallest gap the shop can hold', '0.1 mm');
+    const spec = specFromForm(fixture.componentInstance.form.getRawValue());
+    expect(spec?.limits?.minGap).toBeCloseTo(100e-6, 12);
+    expect(formFromSpec(spec!).minGap).toBeCloseTo(100e-6, 12);
+    expect(spec?.limits?.gapPlacements).toBeUndefined();
+    fixture.componentInstance.form.controls.gapPlacements.setValue(['spacer']);
+    const spacerOnly = specFromForm(fixture.componentInstance.form.getRawValue());
+    expect(spacerOnly?.limits?.gapPlacements).toEqual(['spacer']);
+    expect(formFromSpec(spacerOnly!).gapPlacements).toEqual(['spacer']);
   });
 
   it('turns what a person types into the SI spec the API takes', async () => {

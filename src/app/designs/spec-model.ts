@@ -1,7 +1,7 @@
 // The spec form's model and its conversion to and from the API's DesignSpec (SI values throughout).
 import { FormControl, FormGroup, Validators } from '@angular/forms';
 import { DEFAULT_LIMITS } from '@shared/engine/inputs';
-import type { CoreFamily } from '@shared/engine/types';
+import type { CoreFamily, GapPlacement } from '@shared/engine/types';
 import type { DesignSpec } from '@shared/schemas/designs';
 
 export type RippleMode = 'ratio' | 'current' | 'inductance';
@@ -33,6 +33,8 @@ export function createSpecForm() {
     bMax: num(DEFAULT_LIMITS.bMax),
     currentDensity: num(DEFAULT_LIMITS.currentDensity),
     windowUtilisation: num(DEFAULT_LIMITS.windowUtilisation),
+    minGap: num(DEFAULT_LIMITS.minGap),
+    gapPlacements: new FormControl<GapPlacement[]>([], { nonNullable: true }),
     families: new FormControl<CoreFamily[]>([], { nonNullable: true }),
     materialIds: new FormControl<string[]>([], { nonNullable: true }),
   });
@@ -61,6 +63,8 @@ export function specFromForm(v: SpecFormValue): DesignSpec | null {
     ...optional('bMax', v.bMax),
     ...optional('currentDensity', v.currentDensity),
     ...optional('windowUtilisation', v.windowUtilisation),
+    ...optional('minGap', v.minGap),
+    ...(v.gapPlacements.length ? { gapPlacements: v.gapPlacements } : {}),
   };
   return {
     converter: {
@@ -108,6 +112,8 @@ export function formFromSpec(spec: DesignSpec): Partial<SpecFormValue> {
     bMax: l.bMax ?? DEFAULT_LIMITS.bMax,
     currentDensity: l.currentDensity ?? DEFAULT_LIMITS.currentDensity,
     windowUtilisation: l.windowUtilisation ?? DEFAULT_LIMITS.windowUtilisation,
+    minGap: l.minGap ?? DEFAULT_LIMITS.minGap,
+    gapPlacements: [...(l.gapPlacements ?? [])],
     families: [...(spec.families ?? [])],
     materialIds: [...(spec.materialIds ?? [])],
   };

@@ -23,7 +23,7 @@ const sheet: WindingSheet = {
   parts: {
     coreSet: 'Ring core R 25',
     coreMaterial: 'Powder 60',
-    gap: { kind: 'none (distributed gap)', total: 0, groundDepth: 0, spacerAlternative: 0, note: 'No gap' },
+    gap: { kind: 'none (distributed gap)', total: 0, groundDepth: 0, spacer: 0, spacerAlternative: 0, sensitivity10um: 0, note: 'No gap' },
     bobbin: 'No bobbin',
     wire: {
       description: 'Enamelled round copper 0.8 mm',

@@ -1,4 +1,4 @@
-import type { SearchCandidate } from '@shared/engine/index';
+import type { GapPlacement, SearchCandidate } from '@shared/engine/index';
 import type { SearchAnswer } from '@shared/schemas/calc-answers';
 
 // One feasible result as the engine gives it (rounded to 4 digits): a 16-turn pot core in an invented demo ferrite
@@ -117,18 +117,23 @@ export interface CandidateOptions {
   pareto?: boolean;
   paretoByMass?: boolean;
   warnings?: { code: string; message: string }[];
+  /** 'spacer': the same part on a spacer of the ground design's spacer alternative (total = twice the spacer). */
+  placement?: GapPlacement;
 }
 
 /** A feasible candidate: the template with another core, loss, size and warnings. */
 export function searchCandidate(o: CandidateOptions): SearchCandidate {
   const volume = o.volume ?? 1e-6 * o.rank;
   const totalLoss = o.totalLoss ?? 2 - 0.01 * o.rank;
+  const placement = o.placement ?? 'ground';
+  const gap = placement === 'spacer' ? { ...RESULT.gap, placement, total: 2 * RESULT.gap.spacer } : RESULT.gap;
   return {
     rank: o.rank,
     pareto: o.pareto ?? false,
     paretoByMass: o.paretoByMass ?? false,
     extrapolated: o.extrapolated ?? false,
     conductor: 'foil',
+    placement,
     volume,
     mass: o.mass ?? 5 * volume * 1e3,
     wire: { id: 'foil 0.15 mm', kind: 'foil', strandDiameter: 0.00015, strands: 1, overallDiameter: 0.0002, conductorsPerTurn: 1 },
@@ -137,6 +142,7 @@ export function searchCandidate(o: CandidateOptions): SearchCandidate {
       issues: (o.warnings ?? []).map((w) => ({ ...w, severity: 'warning' as const })),
       core: { ...RESULT.core, id: o.coreId ?? `Core ${o.rank}`, ve: volume },
       material: { ...RESULT.material, id: o.materialId ?? '2', name: o.materialName ?? 'Sample ferrite' },
+      gap,
       totalLoss,
     },
   };

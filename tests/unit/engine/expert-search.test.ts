@@ -6,15 +6,8 @@ import { loadCoreCatalogue } from '@core-data/catalogue';
 import { loadStandardWireOptions } from '@core-data/wire-catalogue';
 import { standardFoilOptions } from '@shared/catalogue/foil';
 import { compatible, searchCandidates, type SearchInput, type SearchResult } from '@shared/engine/search';
-import {
-  CandidateFigures,
-  designMagnetics,
-  evaluateCandidate,
-  prepareCore,
-  prepareMaterial,
-  prepareSpec,
-  prepareWire,
-} from '@shared/engine/kernel';
+import { CandidateFigures, evaluateCandidate, prepareCore, prepareMaterial, prepareSpec, prepareWire } from '@shared/engine/kernel';
+import { designMagnetics } from '@shared/engine/magnetic-design';
 import { RANK_BY } from '@shared/engine/ranking';
 import type { CoreMaterial } from '@shared/engine/types';
 import { EXAMPLE_SPECS } from '../../support/example-specs';

@@ -1,20 +1,16 @@
 import { describe, expect, it } from 'vitest';
-import { MU0 } from '@shared/engine/constants';
 import { evaluateDesign, type EvaluateInput } from '@shared/engine/evaluate';
+import { searchCandidates, type SearchCandidate, type SearchInput } from '@shared/engine/search';
 import { EXAMPLE_SPECS } from '../../support/example-specs';
-import { etd34Like, ferriteA, powderP, powderRing, roundWire } from './fixtures';
+import { etd34Like, etd44Like, ferriteA, ferriteB, powderP, powderRing, roundWire, wireSet } from './fixtures';
+import { groundLOf, spacerLOf } from './mclyman';
 
 // Spec C of issue 13: 36–60 V → 12 V, 10 A, 100 kHz, ripple ratio 0.3, diode 0.6 V, switch 0.3 V, inductor 20 mΩ.
 const specC = EXAMPLE_SPECS.C;
 const base: EvaluateInput = { spec: specC, core: etd34Like, material: ferriteA, turns: 'auto', gap: 'auto', wire: roundWire(1e-3, 3) };
 
-// McLyman, Transformer and Inductor Design Handbook, 3rd ed., Marcel Dekker 2004, ch. 8: F = 1 + (lg/√A)·ln(2G/lg).
-const F = (gap: number, area: number) => 1 + (gap / Math.sqrt(area)) * Math.log((2 * etd34Like.windowHeight) / gap);
-const groundL = (turns: number, gap: number) =>
-  (MU0 * turns * turns * etd34Like.ae * F(gap, etd34Like.ae)) / (gap + etd34Like.le / ferriteA.permeability);
-/** A spacer t under all legs: gaps t across Ae and t across Ao = Ae (Ac/Ao = 1) in series, each with its own F. */
-const spacerL = (turns: number, t: number) =>
-  (MU0 * turns * turns) / (etd34Like.le / (ferriteA.permeability * etd34Like.ae) + (2 * t) / (etd34Like.ae * F(t, etd34Like.ae)));
+const groundL = (turns: number, gap: number) => groundLOf(etd34Like, ferriteA, turns, gap);
+const spacerL = (turns: number, t: number) => spacerLOf(etd34Like, ferriteA, turns, t);
 
 describe('gap placement', () => {
   const ground = evaluateDesign(base);
@@ -78,5 +74,80 @@ describe('minimum gap and gap sensitivity', () => {
       spacerL(spacer.turns, spacer.gap.spacer + 10e-6) / spacerL(spacer.turns, spacer.gap.spacer) - 1,
       6,
     );
+  });
+});
+
+describe('search with both gap placements', () => {
+  const input: SearchInput = {
+    spec: specC,
+    cores: [etd34Like, etd44Like, powderRing],
+    materials: [ferriteA, ferriteB, powderP],
+    wires: wireSet,
+    limit: 500,
+  };
+  const both = searchCandidates(input);
+  const airGap = (c: SearchCandidate) => c.result.core.gapKind === 'air-gap';
+
+  it('proposes each air-gap core × material × conductor kind both ground and on a spacer, with identical figures when evaluated alone', () => {
+    const ground = both.candidates.filter((c) => airGap(c) && c.placement === 'ground');
+    const spacer = both.candidates.filter((c) => airGap(c) && c.placement === 'spacer');
+    expect(ground.length).toBeGreaterThan(0);
+    expect(spacer.length).toBeGreaterThan(0);
+    expect(both.candidates.filter((c) => !airGap(c)).every((c) => c.placement === 'ground')).toBe(true);
+    for (const c of [...ground.slice(0, 3), ...spacer.slice(0, 3)]) {
+      expect(c.result.gap.placement).toBe(c.placement);
+      const core = input.cores.find((x) => x.id === c.result.core.id)!;
+      const material = input.materials.find((x) => x.id === c.result.material.id)!;
+      const alone = evaluateDesign({
+        spec: specC,
+        core,
+        material,
+        turns: c.result.turns,
+        gap: 'auto',
+        placement: c.placement,
+        wire: c.wire,
+      });
+      expect(alone).toEqual(c.result);
+    }
+    // the same core, material, turns and wire with the other placement is a distinct candidate (the client keys on it)
+    const keys = both.candidates.map((c) => `${c.result.core.id}|${c.result.material.id}|${c.wire.id}|${c.result.turns}|${c.placement}`);
+    expect(new Set(keys).size).toBe(keys.length);
+  });
+
+  it('proposes spacers only when the shop cannot grind (gapPlacements: spacer)', () => {
+    const spacerOnly = searchCandidates({ ...input, limits: { gapPlacements: ['spacer'] } });
+    const airGapCandidates = spacerOnly.candidates.filter(airGap);
+    expect(airGapCandidates.length).toBeGreaterThan(0);
+    expect(airGapCandidates.every((c) => c.placement === 'spacer' && c.result.gap.placement === 'spacer')).toBe(true);
+    // a powder ring has no gap to place: it is searched (and proposed or explained) as before
+    const ring = (r: typeof both) => [
+      ...r.candidates.filter((c) => c.result.core.id === powderRing.id).map((c) => c.result.totalLoss),
+      ...r.infeasible.filter((x) => x.coreId === powderRing.id).map((x) => x.totalLoss),
+    ];
+    expect(ring(both).length).toBeGreaterThan(0);
+    expect(ring(spacerOnly)).toEqual(ring(both));
+    expect(spacerOnly.counts.evaluated).toBeLessThan(both.counts.evaluated);
+  });
+
+  it('builds every spacer candidate as proposed to at least the required inductance (two gaps in series, McLyman F)', () => {
+    const spacers = both.candidates.filter((c) => airGap(c) && c.placement === 'spacer');
+    for (const c of spacers) {
+      const r = c.result;
+      const core = input.cores.find((x) => x.id === r.core.id)!;
+      const material = input.materials.find((x) => x.id === r.material.id)!;
+      const built = spacerLOf(core, material, r.turns, r.gap.spacer);
+      const tolerance = 0.1; // the default inductance tolerance (DEFAULT_LIMITS)
+      expect(built / r.inductance.nominal).toBeCloseTo(1, 6);
+      expect(built * (1 - tolerance)).toBeGreaterThanOrEqual(r.inductance.required * (1 - 1e-6));
+      // half the ground gap instead of the two-gap spacer would be short of the target
+      const ground = both.candidates.find(
+        (g) =>
+          g.placement === 'ground' &&
+          g.result.core.id === r.core.id &&
+          g.result.material.id === r.material.id &&
+          g.result.turns === r.turns,
+      );
+      if (ground) expect(spacerLOf(core, material, r.turns, ground.result.gap.total / 2)).toBeLessThan(r.inductance.targetNominal);
+    }
   });
 });

@@ -109,6 +109,7 @@ describe('candidates CSV', () => {
           paretoByMass: true,
           extrapolated: false,
           conductor: 'in-hand' as const,
+          placement: 'ground' as const,
           volume: result.core.ve,
           mass: 0.05,
           wire: catalogue.wire({ kind: 'awg', awg: 16, strands: 2 }),
@@ -139,6 +140,10 @@ describe('candidates CSV', () => {
     expect(rows[0]['title']).toBe(`'=HYPERLINK("http://x")`);
     expect(rows[0]['feasible']).toBe('yes');
     expect(Number(rows[0]['total_loss_W'])).toBeCloseTo(result.totalLoss, 3);
+    // a ground design: the placement is named and the spacer column (spacer designs only) stays empty
+    expect(rows[0]['gap_placement']).toBe('ground');
+    expect(Number(rows[0]['gap_mm'])).toBeCloseTo(result.gap.total * 1e3, 4);
+    expect(rows[0]['spacer_mm']).toBe('');
     expect(rows[1]['feasible']).toBe('no');
     expect(rows[1]['reasons']).toBe('Winding does not fit');
     expect(rows[1]['material']).toBe('Test ferrite (invented)');

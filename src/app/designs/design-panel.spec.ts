@@ -1,0 +1,67 @@
+import type { HttpTestingController } from '@angular/common/http/testing';
+import { TestBed, type ComponentFixture } from '@angular/core/testing';
+import type { EvaluateAnswer } from '@shared/schemas/calc-answers';
+import type { Construction, DesignSpec } from '@shared/schemas/designs';
+import { provideEchartsCore } from 'ngx-echarts';
+import { describe, expect, it } from 'vitest';
+
+import { renderWithHttpTesting } from '../testing/render';
+import { searchCandidate } from '../testing/search-answer';
+import { DesignPanel } from './design-panel';
+
+const SPEC: DesignSpec = {
+  converter: { vinMin: 36, vinMax: 60, vout: 12, ioutMax: 10, frequency: 100e3, rippleRatio: 0.3, rectifier: 'ideal' },
+};
+const spacer = searchCandidate({ rank: 1, coreId: 'P26/16', placement: 'spacer' });
+const ground = searchCandidate({ rank: 1, coreId: 'P26/16' });
+const answer = (c: typeof spacer): EvaluateAnswer => ({ engineVersion: '2.0.0', wire: c.wire, result: c.result, lossVersusFrequency: [] });
+const CONSTRUCTION: Construction = {
+  coreId: 'P26/16',
+  materialId: '2',
+  turns: 16,
+  gap: spacer.result.gap.spacer,
+  placement: 'spacer',
+  wire: { kind: 'foil', strandDiameter: 0.00015, strands: 1 },
+};
+
+describe('DesignPanel gap placement', () => {
+  let fixture: ComponentFixture<DesignPanel>;
+  let http: HttpTestingController;
+  let page: HTMLElement;
+
+  const evaluation = async () => {
+    await new Promise((resolve) => setTimeout(resolve, 350)); // the panel waits 300 ms for more edits
+    return http.expectOne((r) => r.method === 'POST' && r.url === '/api/calc/evaluate');
+  };
+  const label = (text: string) => [...page.querySelectorAll('mat-label')].find((l) => l.textContent?.trim() === text);
+
+  it('shows a spacer design as such and solves the gap again when the ground centre gap is chosen', async () => {
+    TestBed.configureTestingModule({ providers: [provideEchartsCore({ echarts: () => new Promise<never>(() => undefined) })] });
+    ({ fixture, http, page } = await renderWithHttpTesting(
+      DesignPanel,
+      { spec: SPEC, construction: CONSTRUCTION, known: answer(spacer) },
+      { settle: false },
+    ));
+    for (const request of http.match((r) => r.url.endsWith('/cores'))) request.flush({ cores: [] });
+    await fixture.whenStable();
+    expect(page.querySelector('mat-select[data-field="placement"]')!.textContent).toContain('spacer under all legs');
+    expect(label('Spacer thickness')).toBeDefined();
+    expect(page.querySelector('[data-figure="gap"]')!.textContent).toMatch(/spacer .* under all legs \(two gaps/);
+
+    const changes: Construction[] = [];
+    fixture.componentInstance.changed.subscribe((c) => changes.push(c.construction));
+    page.querySelector<HTMLElement>('mat-select[data-field="placement"] .mat-mdc-select-trigger')!.click();
+    await fixture.whenStable();
+    const option = [...document.querySelectorAll<HTMLElement>('mat-option')].find((o) => o.textContent?.trim() === 'ground centre gap')!;
+    option.click();
+    await fixture.whenStable();
+    const second = await evaluation();
+    // another placement keeps the turns; the ground gap is solved, not the spacer thickness reused
+    expect(second.request.body).toMatchObject({ placement: 'ground', gap: 'auto', turns: 16 });
+    second.flush(answer(ground));
+    await fixture.whenStable();
+    expect(changes.at(-1)).toMatchObject({ placement: 'ground', gap: ground.result.gap.total, turns: 16 });
+    expect(label('Ground gap')).toBeDefined();
+    expect(page.querySelector('[data-figure="gap"]')!.textContent).toMatch(/ground centre gap .* \(same L: spacer/);
+  });
+});
