@@ -1,5 +1,5 @@
 import { EngineInputError, compatible, evaluateDesign, fitRangeCheck, type ConverterSpec, type DesignLimits } from '@shared/engine/index';
-import type { CoreMaterial, CoreShape, WireOption } from '@shared/engine/types';
+import type { CoreMaterial, CoreShape, GapPlacement, WireOption } from '@shared/engine/types';
 import type { DesignComparisonRow, DesignFluxPoint } from '@shared/schemas/compare';
 
 /** One core, turn count and wire with each material: plain data, so it can cross to a worker thread. */
@@ -9,6 +9,7 @@ export interface MaterialComparisonInput {
   core: CoreShape;
   turns: number;
   wire: WireOption;
+  placement?: GapPlacement;
   materials: CoreMaterial[];
 }
 
@@ -25,13 +26,21 @@ function incompatibility(core: CoreShape, material: CoreMaterial): string {
 }
 
 /** The gap is solved again for each material's permeability; an engine refusal becomes that material's row. */
-export function compareAcrossMaterials({ spec, limits, core, turns, wire, materials }: MaterialComparisonInput): MaterialComparison {
+export function compareAcrossMaterials({
+  spec,
+  limits,
+  core,
+  turns,
+  wire,
+  placement,
+  materials,
+}: MaterialComparisonInput): MaterialComparison {
   let fluxPoint: DesignFluxPoint | undefined;
   const rows = materials.map((material): DesignComparisonRow => {
     const base = { materialId: material.id, name: material.name, family: material.family };
     if (!compatible(core, material)) return { ...base, status: 'incompatible', reason: incompatibility(core, material) };
     try {
-      const evaluation = evaluateDesign({ spec, limits, core, material, turns, gap: 'auto', wire });
+      const evaluation = evaluateDesign({ spec, limits, core, material, turns, gap: 'auto', placement, wire });
       fluxPoint ??= { deltaB: evaluation.flux.swing, frequency: spec.frequency, duty: evaluation.operatingPoint.dutyAtVinMax };
       const fit = fitRangeCheck(material, spec.frequency, evaluation.flux.acPeak);
       const errors = evaluation.issues.filter((i) => i.severity === 'error').map((i) => i.message);
@@ -39,7 +48,7 @@ export function compareAcrossMaterials({ spec, limits, core, turns, wire, materi
         ...base,
         status: 'ok',
         feasible: evaluation.feasible,
-        gap: evaluation.gap.total,
+        gap: evaluation.gap.placement === 'spacer' ? evaluation.gap.spacer : evaluation.gap.total,
         coreLoss: evaluation.coreLoss.loss,
         copperLoss: evaluation.copper.dcLoss + evaluation.copper.acLoss,
         totalLoss: evaluation.totalLoss,

@@ -126,6 +126,7 @@ export class CompareService {
         coreId: construction.coreId,
         turns: construction.turns,
         wire: construction.wire,
+        placement: construction.placement,
       },
       rows,
     );
@@ -157,6 +158,7 @@ export class CompareService {
       core,
       turns: request.turns,
       wire,
+      placement: request.placement,
       materials: rows.map(toCoreMaterial),
     });
     return { engineVersion: ENGINE_VERSION, coreId: core.id, turns: request.turns, ...(fluxPoint ? { fluxPoint } : {}), rows: result };

@@ -3,6 +3,7 @@
 import * as z from 'zod';
 import { text } from './text';
 import { converterSpecSchema, designLimitsSchema, wireRequestSchema } from './calc';
+import { GAP_PLACEMENTS } from '@shared/engine/types';
 import { storedIdSchema, storedIdTextSchema, uniqueListSchema } from './ids';
 
 const finite = (field: string) => z.number({ error: `${field} must be a finite number` });
@@ -84,12 +85,18 @@ export const compareDesignRequestSchema = z
       .min(1, 'turns must be between 1 and 2000')
       .max(2000, 'turns must be between 1 and 2000'),
     wire: wireRequestSchema,
+    placement: z
+      .enum(GAP_PLACEMENTS)
+      .optional()
+      .meta({ description: 'Ground centre gap (default) or a spacer under all legs; the gap or spacer is re-solved per material' }),
     materialIds: uniqueListSchema(materialIdSchema, 200, 'materialIds')
       .optional()
       .meta({ description: 'Restrict to these materials (default: every current one)' }),
   })
   .strict()
-  .meta({ description: 'One design (same core, turns, wire) evaluated with every current material; gap re-solved per material' });
+  .meta({
+    description: 'One design (same core, turns, wire, gap placement) evaluated with every current material; gap re-solved per material',
+  });
 export type CompareDesignRequest = z.infer<typeof compareDesignRequestSchema>;
 
 export const compareSavedDesignRequestSchema = z
@@ -117,7 +124,7 @@ export const designComparisonRowSchema = z.object({
   status: z.enum(['ok', 'incompatible', 'error']),
   reason: z.string().optional(),
   feasible: z.boolean().optional(),
-  gap: optionalNumber,
+  gap: optionalNumber.meta({ description: 'Ground gap, or spacer thickness for a spacer design (m)' }),
   coreLoss: optionalNumber,
   copperLoss: optionalNumber,
   totalLoss: optionalNumber,

@@ -116,6 +116,32 @@ describe('POST /api/compare/design', () => {
     }
   });
 
+  it('keeps a spacer design a spacer design: each row gives the spacer that material needs', async () => {
+    const [ground, spacer] = await Promise.all([typedDesign(), typedDesign({ placement: 'spacer' })]);
+    expect(spacer.status).toBe(200);
+    const okRows = (body: { rows: { materialId: string; status: string; gap?: number }[] }) => body.rows.filter((r) => r.status === 'ok');
+    for (const row of okRows(spacer.body)) {
+      const evaluated = await engineer.post('/api/calc/evaluate', {
+        spec: EXAMPLE_SPEC,
+        coreId: 'ETD34/17/11',
+        materialId: row.materialId,
+        turns: 20,
+        gap: 'auto',
+        placement: 'spacer',
+        wire: { kind: 'awg', awg: 18, strands: 2 },
+      });
+      expect(evaluated.status).toBe(200);
+      expect(row.gap).toBeCloseTo(evaluated.body.result.gap.spacer, 12);
+      // Two gaps in series, each fringing less than one gap of twice the length (McLyman's F = 1 + (lg/√A)·ln(2G/lg)
+      // grows with lg; Transformer and Inductor Design Handbook, 3rd ed., ch. 8): the spacer of the same inductance
+      // is thinner than half the ground gap, and with outer legs of about the centre leg's area not far below it.
+      const groundGap = okRows(ground.body).find((r) => r.materialId === row.materialId)!.gap!;
+      expect(row.gap!).toBeLessThan(groundGap / 2);
+      expect(row.gap!).toBeGreaterThan(groundGap / 4);
+    }
+    expect((await typedDesign({ placement: 'wedge' })).status).toBe(400);
+  });
+
   it('refuses an unknown core by field', async () => {
     const res = await typedDesign({ coreId: 'NOPE' });
     expect(res.status).toBe(400);
