@@ -51,34 +51,37 @@ export interface GapGeometry {
 }
 
 const GAP_TOLERANCE = 1e-9;
-const MAX_FIXED_POINT_STEPS = 100;
+const MAX_NEWTON_STEPS = 200;
 
 /**
- * Keep N and widen the gap until L is met with fringing: lg ← μ0·N²·Ae·F(lg)/L − le/μr. Falls back to
- * bisection if the fixed point converges slowly (large gaps, where the map's slope approaches 1).
+ * Keep N and widen the gap until L is met with fringing: lg = μ0·N²·Ae·F(lg)/L − le/μr, solved by Newton's method
+ * on h(lg) = μ0·N²·Ae·F(lg)/L − le/μr − lg (F′ = (ln(2G/lg) − 1)/√Ae), kept inside a bracket that bisects whenever
+ * a step would leave it. Starts from the unfringed gap, where h ≥ 0 since F ≥ 1.
  */
 export function gapWithFringing(turns: number, inductance: number, g: GapGeometry): number {
   const start = gapWithoutFringing(turns, inductance, g.area, g.pathLength, g.permeability);
   if (start <= 0) return start;
   const numerator = (MU0 * turns * turns * g.area) / inductance;
   const reluctanceLength = g.pathLength / g.permeability;
+  const root = Math.sqrt(g.area);
+  const twiceWindow = 2 * g.windowHeight;
+  let low = start;
+  let high = Number.POSITIVE_INFINITY;
   let gap = start;
-  for (let step = 0; step < MAX_FIXED_POINT_STEPS; step++) {
-    const next = numerator * fringingFactor(gap, g.area, g.windowHeight) - reluctanceLength;
+  for (let step = 0; step < MAX_NEWTON_STEPS; step++) {
+    const logRatio = Math.log(twiceWindow / gap);
+    const f = 1 + (gap / root) * logRatio;
+    const fringing = f > 1 ? f : 1;
+    const residual = numerator * fringing - reluctanceLength - gap;
+    if (residual > 0) low = gap;
+    else high = gap;
+    const slope = (f > 1 ? (numerator * (logRatio - 1)) / root : 0) - 1;
+    let next = slope < 0 ? gap - residual / slope : Number.NaN;
+    if (!(next > low && next < high)) next = high < Number.POSITIVE_INFINITY ? (low + high) / 2 : 2 * gap;
     if (Math.abs(next - gap) <= GAP_TOLERANCE * next) return next;
     gap = next;
   }
-  // L(gap) falls as the gap widens; bracket and bisect.
-  let low = start;
-  let high = Math.max(gap, start) * 2;
-  const excess = (x: number) => gappedInductance(turns, x, g.area, g.pathLength, g.permeability, g.windowHeight) - inductance;
-  while (excess(high) > 0 && high < 1) high *= 2;
-  for (let i = 0; i < 200 && high - low > GAP_TOLERANCE * high; i++) {
-    const mid = (low + high) / 2;
-    if (excess(mid) > 0) low = mid;
-    else high = mid;
-  }
-  return (low + high) / 2;
+  return gap;
 }
 
 /** Turns for a given gap with fringing: N = sqrt(L·(lg + le/μr)/(μ0·Ae·F)), rounded up. */
@@ -121,26 +124,42 @@ export function spacerEquivalentGap(spacer: number, centreToOuterLegAreaRatio = 
   return spacer * (1 + centreToOuterLegAreaRatio);
 }
 
-const SPACER_MAX_STEPS = 200;
-
 /**
- * Spacer thickness giving L with N turns. L(t) falls monotonically (t/F(t) rises: its derivative is
- * (1 + t/√A)/F² > 0), so bisection between the unfringed thickness and a bracket doubled until L falls below the
- * target converges; at most SPACER_MAX_STEPS halvings. Negative: the ungapped core cannot reach L with N turns.
+ * Spacer thickness giving L with N turns. The reluctance R(t) rises monotonically (t/F(t) rises: its derivative is
+ * (1 + t/√A)/F² > 0), so Newton's method on μ0·R(t) − μ0·N²/L, with (t/F)′ = (F − t·F′)/F² per leg, converges
+ * from the unfringed thickness (where R ≤ the target, F ≥ 1); a step that leaves the bracket bisects instead.
+ * Negative: the ungapped core cannot reach L with N turns.
  */
 export function spacerForInductance(turns: number, inductance: number, g: GapGeometry, centreToOuterLegAreaRatio = 1): number {
   const unfringed = gapWithoutFringing(turns, inductance, g.area, g.pathLength, g.permeability) / (1 + centreToOuterLegAreaRatio);
   if (unfringed <= 0) return unfringed;
-  const excess = (t: number) => spacerInductance(turns, t, g, centreToOuterLegAreaRatio) - inductance;
+  const target = (MU0 * turns * turns) / inductance;
+  const core = g.pathLength / (g.permeability * g.area);
+  const outer = g.area / centreToOuterLegAreaRatio;
+  const rootCentre = Math.sqrt(g.area);
+  const rootOuter = Math.sqrt(outer);
+  const twiceWindow = 2 * g.windowHeight;
   let low = unfringed;
-  let high = unfringed * 2;
-  for (let i = 0; i < 60 && excess(high) > 0; i++) high *= 2;
-  for (let i = 0; i < SPACER_MAX_STEPS && high - low > GAP_TOLERANCE * high; i++) {
-    const mid = (low + high) / 2;
-    if (excess(mid) > 0) low = mid;
-    else high = mid;
+  let high = Number.POSITIVE_INFINITY;
+  let t = unfringed;
+  for (let step = 0; step < MAX_NEWTON_STEPS; step++) {
+    const logRatio = Math.log(twiceWindow / t);
+    const fc = 1 + (t / rootCentre) * logRatio;
+    const fo = 1 + (t / rootOuter) * logRatio;
+    const centre = fc > 1 ? fc : 1;
+    const outerF = fo > 1 ? fo : 1;
+    const residual = core + t / (g.area * centre) + t / (outer * outerF) - target;
+    if (residual < 0) low = t;
+    else high = t;
+    const dCentre = fc > 1 ? (centre - (t * (logRatio - 1)) / rootCentre) / (g.area * centre * centre) : 1 / g.area;
+    const dOuter = fo > 1 ? (outerF - (t * (logRatio - 1)) / rootOuter) / (outer * outerF * outerF) : 1 / outer;
+    const slope = dCentre + dOuter;
+    let next = slope > 0 ? t - residual / slope : Number.NaN;
+    if (!(next > low && next < high)) next = high < Number.POSITIVE_INFINITY ? (low + high) / 2 : 2 * t;
+    if (Math.abs(next - t) <= GAP_TOLERANCE * next) return next;
+    t = next;
   }
-  return (low + high) / 2;
+  return t;
 }
 
 /** Turns for a given spacer: N = sqrt(L·ΣR/μ0), rounded up. */

@@ -115,3 +115,31 @@ describe('spacer under all legs: two fringing gaps in series', () => {
     expect(spacerForInductance(1, target, geometry, 1)).toBeLessThan(0);
   });
 });
+
+describe('the gap and spacer solvers', () => {
+  // Solver accuracy only: each solution put back into its own forward formula (computed, no source needed).
+  it('meet L to 1e-8 from tiny to very large gaps, any leg-area ratio', () => {
+    for (const turns of [1, 2, 5, 11, 40, 150]) {
+      for (const scale of [0.05, 0.3, 1, 3, 20]) {
+        const inductance = L * scale;
+        const ground = gapWithFringing(turns, inductance, geometry);
+        if (ground > 0) {
+          const achieved = gappedInductance(
+            turns,
+            ground,
+            geometry.area,
+            geometry.pathLength,
+            geometry.permeability,
+            geometry.windowHeight,
+          );
+          expect(Math.abs(achieved / inductance - 1)).toBeLessThan(1e-8);
+        }
+        for (const ratio of [0.5, 1, 1.5]) {
+          const spacer = spacerForInductance(turns, inductance, geometry, ratio);
+          if (spacer <= 0) continue;
+          expect(Math.abs(spacerInductance(turns, spacer, geometry, ratio) / inductance - 1)).toBeLessThan(1e-8);
+        }
+      }
+    }
+  });
+});
