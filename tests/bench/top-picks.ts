@@ -36,7 +36,11 @@ function describe({ result: r, wire }: Pick): string {
     r.material.name,
     `N=${r.turns}`,
     wire.id,
-    `gap=${(r.gap.total * 1e3).toFixed(3)} mm`,
+    r.core.gapKind === 'distributed'
+      ? 'distributed gap'
+      : r.gap.placement === 'spacer'
+        ? `spacer ${(r.gap.spacer * 1e3).toFixed(3)} mm`
+        : `ground gap ${(r.gap.total * 1e3).toFixed(3)} mm`,
     `Ve=${(r.core.ve * 1e6).toFixed(2)} cm³`,
     `loss=${r.totalLoss.toFixed(3)} W`,
     `rise=${r.thermal.rise.toFixed(1)} K`,
