@@ -70,5 +70,6 @@ describe('logs', () => {
     } finally {
       await close();
     }
-  });
+    // Four accounts × three bcrypt operations plus a database reset: slow on a loaded 2-core machine.
+  }, 60_000);
 });
