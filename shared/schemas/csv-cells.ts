@@ -71,3 +71,16 @@ export function choiceCell<const T extends readonly string[]>(choices: T, messag
     return text as T[number];
   });
 }
+
+/** A text cell that may be empty (undefined): otherwise as {@link textCell}. */
+export function optionalTextCell(max: number) {
+  return text().transform((raw, ctx): string | undefined => {
+    const text = raw.trim();
+    const fail = (message: string) => ctx.addIssue({ code: 'custom', message, input: raw });
+    if (text === '') return undefined;
+    if (text.length > max) fail(`must be at most ${max} characters`);
+    else if (FORMULA_START.test(text)) fail('must not start with =, +, -, @ (a spreadsheet would run it as a formula)');
+    else if (CONTROL_CHARACTERS.test(text)) fail('must not contain control characters');
+    return text;
+  });
+}
