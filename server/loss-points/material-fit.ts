@@ -6,15 +6,22 @@ import { fitInBands, fitSteinmetz, fittedLoss, type SteinmetzBandFit, type Stein
 import {
   behaviourFactor,
   behaviourToQuadratic,
-  fitTemperatureBehaviour,
+  fitTemperatureFactor,
   referToLowestLoss,
   type TemperatureBehaviour,
+  type TemperatureFit,
 } from '@shared/fitting/temperature-fit';
+import { fitQuality } from '@shared/fitting/fit-quality';
 import type { FitAnswer, FitOptions } from '@shared/schemas/loss-points';
 
 /** Passes of the alternation between the Steinmetz and the temperature fit, and when it has settled. */
-const MAX_PASSES = 100;
-const SETTLED = 1e-13;
+const MAX_PASSES = 30;
+/**
+ * Most distinct temperatures a temperature fit takes: its constrained search costs time per temperature, and loss
+ * data is measured at a few set points (our own limit).
+ */
+export const MAX_FIT_TEMPERATURES = 100;
+const SETTLED = 1e-12;
 const CURVE_SAMPLES = 16;
 const MAX_CURVES = 400;
 
@@ -43,6 +50,45 @@ function selectPoints(points: readonly LossPoint[], options: FitOptions): number
 const changed = (a: number, b: number) => Math.abs(a - b) > SETTLED * Math.max(Math.abs(a), Math.abs(b), 1);
 
 /**
+ * The temperature factor fitted to what the Steinmetz fit leaves at each point, with the points of one temperature
+ * taken together: the relative least squares Σ (F(T) − y)²/y² over a group of one temperature equals, up to a
+ * constant, W·(F(T) − ȳ)² with W = Σ 1/y² and ȳ = Σ (1/y) / W, so one weighted value per temperature gives the same
+ * fit (algebra, no source) at a cost that does not grow with the points. Quality is over every point.
+ */
+function temperatureFit(points: readonly LossPoint[], steinmetz: SteinmetzFit): TemperatureFit {
+  const factors = points.map((p) => p.lossDensity / fittedLoss(steinmetz, p.frequency, p.peakFlux));
+  const groups = new Map<number, { w: number; s: number }>();
+  points.forEach((p, i) => {
+    const group = groups.get(p.temperature) ?? { w: 0, s: 0 };
+    group.w += 1 / factors[i]! ** 2;
+    group.s += 1 / factors[i]!;
+    groups.set(p.temperature, group);
+  });
+  if (groups.size > MAX_FIT_TEMPERATURES) {
+    throw new FitInputError(
+      'invalid-value',
+      `The points are at ${groups.size} different temperatures; a temperature fit takes at most ${MAX_FIT_TEMPERATURES}. Give each point its set-point temperature.`,
+      'temperature',
+    );
+  }
+  const temperatures = [...groups.keys()];
+  const means = temperatures.map((t) => groups.get(t)!.s / groups.get(t)!.w);
+  // fitTemperatureFactor weighs each value by weight/value², so W·ȳ² gives the group its weight W.
+  const fit = fitTemperatureFactor(
+    temperatures,
+    means,
+    temperatures.map((t, i) => groups.get(t)!.w * means[i]! ** 2),
+  );
+  return {
+    ...fit,
+    ...fitQuality(
+      points.map((p) => behaviourFactor(fit.behaviour, p.temperature)),
+      factors,
+    ),
+  };
+}
+
+/**
  * The temperature behaviour with k referred to its lowest-loss temperature (F0 = 1), by alternating the two linear
  * fits (our own rule, common practice, no source): the Steinmetz fit with the current factor divided out, then the
  * factor fitted to what the Steinmetz fit leaves, until k, α and β stop changing. With points on a full grid of
@@ -51,13 +97,15 @@ const changed = (a: number, b: number) => Math.abs(a - b) > SETTLED * Math.max(M
 function fitBehaviour(points: readonly LossPoint[]) {
   let steinmetz: SteinmetzFit = fitSteinmetz(points);
   for (let pass = 0; pass < MAX_PASSES; pass++) {
-    const referred = referToLowestLoss(steinmetz.k, fitTemperatureBehaviour(points, steinmetz).behaviour);
+    const referred = referToLowestLoss(steinmetz.k, temperatureFit(points, steinmetz).behaviour);
     const next = fitSteinmetz(points, { temperatureFactor: (t) => behaviourFactor(referred.behaviour, t) });
-    const settled = !changed(next.k, referred.k) && !changed(next.alpha, steinmetz.alpha) && !changed(next.beta, steinmetz.beta);
+    // The first pass moves k by the mean factor; after it, k, α and β change only while the factor does.
+    const settled =
+      pass > 0 && !changed(next.k, steinmetz.k) && !changed(next.alpha, steinmetz.alpha) && !changed(next.beta, steinmetz.beta);
     steinmetz = next;
     if (settled) break;
   }
-  const fit = fitTemperatureBehaviour(points, steinmetz);
+  const fit = temperatureFit(points, steinmetz);
   const behaviour = referToLowestLoss(steinmetz.k, fit.behaviour).behaviour;
   return { fit, behaviour };
 }
