@@ -260,10 +260,63 @@ describe('fitting the points and accepting the fit', () => {
     const { rows } = await t.pool.query("select details from audit_log where action = 'material.fit-accepted'");
     expect(rows[0].details).toMatchObject({ id: Number(material.id), from: id, points: POINTS });
     expect((await engineer.post(`/api/materials/${id}/fit/accept`, {})).status).toBe(409);
+    materialId = Number(material.id);
 
     const search = await engineer.post('/api/calc/search', { spec: EXAMPLE_SPEC, materialIds: [material.id], limit: 3 });
     expect(search.status).toBe(200);
     expect(search.body.candidates.length).toBeGreaterThan(0);
     expect(search.body.candidates[0].result.material.id).toBe(material.id);
+  });
+});
+
+describe('bands and later versions', () => {
+  // Invented two-regime data at 25 °C: α = 1.2 up to 100 kHz, 1.8 above (continuous there), β = 2.5 throughout.
+  function twoRegimeCsv(): string {
+    const lines = [LOSS_POINT_CSV_COLUMNS.join(',')];
+    for (const kHz of [20, 40, 70, 100, 150, 250, 400]) {
+      for (const mT of [30, 60, 120]) {
+        const f = kHz * 1e3;
+        const loss = 2 * (f <= 1e5 ? f ** 1.2 : 1e5 ** 1.2 * (f / 1e5) ** 1.8) * (mT * 1e-3) ** 2.5;
+        lines.push(`${kHz},${mT},25,${loss / 1e3},,two-regime invented data`);
+      }
+    }
+    return `${lines.join('\n')}\n`;
+  }
+
+  it('fits bands that meet the target, and accepting one needs its index', async () => {
+    const commit = await uploadCsv(engineer, url(materialId, 'commit'), twoRegimeCsv(), 'bands.csv');
+    expect(commit.status).toBe(201);
+    const id = commit.body.materialId as number;
+    materialId = id;
+    const options = { mode: 'bands', maxWorstError: 0.01, temperature: false };
+    const fit = await engineer.post(`/api/materials/${id}/fit`, options);
+    expect(fit.status).toBe(200);
+    const bands = fit.body.fits as { fittedFrequency: [number, number]; meetsTarget: boolean; alpha: number }[];
+    expect(bands.length).toBeGreaterThanOrEqual(2);
+    for (const band of bands) expect(band.meetsTarget).toBe(true);
+    // Neighbouring bands share their edge frequency (the split frequency goes to both).
+    for (let i = 1; i < bands.length; i++) expect(bands[i]!.fittedFrequency[0]).toBe(bands[i - 1]!.fittedFrequency[1]);
+    expect(relative(bands[0]!.alpha, 1.2)).toBeLessThan(1e-6);
+    expect(relative(bands.at(-1)!.alpha, 1.8)).toBeLessThan(1e-6);
+
+    const undecided = await engineer.post(`/api/materials/${id}/fit/accept`, options);
+    expect(undecided.status).toBe(400);
+    expect(undecided.body.error.fields.band).toMatch(/Choose a band from 0 to/);
+    const last = bands.length - 1;
+    const accepted = await engineer.post(`/api/materials/${id}/fit/accept`, { ...options, band: last });
+    expect(accepted.status).toBe(201);
+    expect([accepted.body.material.fitFrequencyMin, accepted.body.material.fitFrequencyMax]).toEqual(bands[last]!.fittedFrequency);
+    // Without a temperature fit, k holds at the points' temperature.
+    expect(accepted.body.material.referenceTemperature).toBe(25);
+    materialId = Number(accepted.body.material.id);
+  });
+
+  it('an edit of the material keeps its points on the new version', async () => {
+    const before = (await engineer.get(`/api/materials/${materialId}/loss-points`)).body.points;
+    const edited = await engineer.patch(`/api/materials/${materialId}`, { provenance: 'Invented, edited after the fit' });
+    expect(edited.status).toBe(201);
+    const after = await engineer.get(`/api/materials/${edited.body.id}/loss-points`);
+    expect(after.body.points).toEqual(before);
+    expect(before.length).toBe(21);
   });
 });
