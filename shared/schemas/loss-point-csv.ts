@@ -4,7 +4,7 @@
 import * as z from 'zod';
 import type { LossPoint } from '@shared/fitting/loss-points';
 import type { CellProblem } from './csv-import';
-import { optionalNumberCell, optionalTextCell, requiredNumberCell } from './csv-cells';
+import { cellProblems, optionalNumberCell, optionalTextCell, requiredNumberCell } from './csv-cells';
 
 /** Columns in the order the template writes them. */
 export const LOSS_POINT_CSV_COLUMNS = [
@@ -102,13 +102,5 @@ export function validateLossPointCells(cells: Partial<Record<string, string>>): 
   for (const column of LOSS_POINT_CSV_COLUMNS) input[column] = cells[column] ?? '';
   const result = lossPointCsvRowSchema.safeParse(input);
   if (result.success) return { values: { point: lossPointFromRow(result.data), row: result.data }, problems: [] };
-  const problems: CellProblem[] = [];
-  const seen = new Set<string>();
-  for (const issue of result.error.issues) {
-    const column = issue.path.length ? String(issue.path[0]) : '(row)';
-    if (seen.has(column)) continue;
-    seen.add(column);
-    problems.push({ column, message: `${column} ${issue.message}` });
-  }
-  return { problems };
+  return { problems: cellProblems(result.error.issues) };
 }
