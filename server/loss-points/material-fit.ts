@@ -55,7 +55,7 @@ const changed = (a: number, b: number) => Math.abs(a - b) > SETTLED * Math.max(M
  * constant, W·(F(T) − ȳ)² with W = Σ 1/y² and ȳ = Σ (1/y) / W, so one weighted value per temperature gives the same
  * fit (algebra, no source) at a cost that does not grow with the points. Quality is over every point.
  */
-function temperatureFit(points: readonly LossPoint[], steinmetz: SteinmetzFit): TemperatureFit {
+export function temperatureFit(points: readonly LossPoint[], steinmetz: SteinmetzFit): TemperatureFit {
   const factors = points.map((p) => p.lossDensity / fittedLoss(steinmetz, p.frequency, p.peakFlux));
   const groups = new Map<number, { w: number; s: number }>();
   points.forEach((p, i) => {
