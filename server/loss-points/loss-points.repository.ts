@@ -51,11 +51,19 @@ export class LossPointsRepository {
   }
 
   /** The points of one version given to another (a new version made from it), in the same order. */
-  async copy(tx: Tx, fromMaterialId: number, toMaterialId: number): Promise<void> {
+  copy(tx: Tx, fromMaterialId: number, toMaterialId: number): Promise<void> {
+    return this.copyMany(tx, [{ from: fromMaterialId, to: toMaterialId }]);
+  }
+
+  /** The points of each `from` version given to its `to` version, in one statement (a re-imported material file). */
+  async copyMany(tx: Tx, pairs: readonly { from: number; to: number }[]): Promise<void> {
+    if (!pairs.length) return;
     const t = materialLossPoints;
     await tx.execute(sql`
       insert into ${t} (material_id, position, frequency, peak_flux, temperature, loss_density, dc_bias, source)
-      select ${toMaterialId}::integer, position, frequency, peak_flux, temperature, loss_density, dc_bias, source
-      from ${t} where ${t.materialId} = ${fromMaterialId}`);
+      select pair.to_id, p.position, p.frequency, p.peak_flux, p.temperature, p.loss_density, p.dc_bias, p.source
+      from ${t} p
+      join unnest(${sql.param(pairs.map((x) => x.from))}::integer[], ${sql.param(pairs.map((x) => x.to))}::integer[]) as pair(from_id, to_id)
+        on p.material_id = pair.from_id`);
   }
 }

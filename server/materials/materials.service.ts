@@ -50,6 +50,8 @@ export class MaterialsService {
       table: MATERIAL_TABLE,
       validate: validateMaterialCells,
       columnsOf: (values) => values,
+      // A material row uploaded again as a new version keeps the loss points of the version it replaces.
+      carry: (tx, replaced) => this.lossPoints.copyMany(tx, replaced),
     });
   }
 

@@ -318,5 +318,18 @@ describe('bands and later versions', () => {
     const after = await engineer.get(`/api/materials/${edited.body.id}/loss-points`);
     expect(after.body.points).toEqual(before);
     expect(before.length).toBe(21);
+    materialId = Number(edited.body.id);
+  });
+
+  it('a material file uploaded again as a new version keeps the points too', async () => {
+    const exported = await engineer.get(`/api/materials/export.csv?ids=${materialId}`);
+    const name = (await engineer.get(`/api/materials/${materialId}/history`)).body.versions[0].name as string;
+    const commit = await uploadCsv(engineer, '/api/materials/import/commit', exported.text, 'again.csv', { [name]: 'new-version' });
+    expect(commit.status).toBe(201);
+    const [id] = commit.body.materialIds as number[];
+    expect(id).not.toBe(materialId);
+    const kept = await engineer.get(`/api/materials/${id}/loss-points`);
+    expect(kept.body.points).toEqual((await engineer.get(`/api/materials/${materialId}/loss-points`)).body.points);
+    expect(kept.body.points).toHaveLength(21);
   });
 });
