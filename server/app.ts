@@ -107,7 +107,7 @@ export function createServices({
   const calc = new CalcService(catalogue, materials, searchPool);
   const lossPointsRepository = new LossPointsRepository(db);
   const materialLibrary = new MaterialsService(materials, audit, lossPointsRepository);
-  const lossPoints = new LossPointsService(materialLibrary, lossPointsRepository);
+  const lossPoints = new LossPointsService(materialLibrary, lossPointsRepository, searchPool);
   const userCores = new UserCoresService(new UserCoresRepository(db), catalogue, audit);
   const mail = new MailDeliveryService(db, jobs, mailTarget, config.smtp.retryDelaysMs, logger);
   const shop = new ShopService(new ShopRepository(db), catalogue, mail, audit);

@@ -1,4 +1,4 @@
-import { FitInputError } from '@shared/fitting/fit-error';
+import { EngineInputError } from '@shared/engine/index';
 import type { LossPoint } from '@shared/fitting/loss-points';
 import type { Role } from '@shared/schemas/auth';
 import { kFromSi } from '@shared/schemas/material-csv';
@@ -6,25 +6,24 @@ import { materialCellsFromValues, validateMaterialCells, type MaterialValues } f
 import type { FitAccept, FitOptions } from '@shared/schemas/loss-points';
 import type { Actor } from '../http/access.ts';
 import type { UploadedFile } from '../http/csv-upload.ts';
-import { AppError, badRequest, notFound } from '../http/errors.ts';
+import { badRequest, notFound } from '../http/errors.ts';
+import type { SearchPool } from '../calc/search-pool.ts';
 import { recordActions } from '../library/record-actions.ts';
 import type { MaterialRow } from '../materials/materials.repository.ts';
 import { materialDetail, valuesOf, type MaterialsService } from '../materials/materials.service.ts';
 import { lossPointFileErrors, lossPointTemplate, readLossPointFile } from './loss-point-csv.ts';
 import type { LossPointsRepository } from './loss-points.repository.ts';
-import { fitMaterial, type MaterialFit } from './material-fit.ts';
+import type { MaterialFit } from './material-fit.ts';
 
-/** A refused fit as a 400 naming the field, and the point (1-based, as the table shows it) where there is one. */
-function fitRefusal(error: FitInputError): AppError {
-  const field = error.index !== undefined ? `points[${error.index}].${error.field ?? 'value'}` : (error.field ?? 'points');
-  return badRequest(error.message, { [field]: error.message });
-}
+/** Where fits run: the engine's worker threads (server/calc/search-pool.ts), off the main thread. */
+export type FitRunner = Pick<SearchPool, 'fitMaterial'>;
 
-function runFit(points: readonly LossPoint[], options: FitOptions): MaterialFit {
+/** The fit, a refusal of it as a 400 naming the field (and the point). */
+async function runFit(runner: FitRunner, points: LossPoint[], options: FitOptions): Promise<MaterialFit> {
   try {
-    return fitMaterial(points, options);
+    return await runner.fitMaterial({ points, options });
   } catch (error) {
-    if (error instanceof FitInputError) throw fitRefusal(error);
+    if (error instanceof EngineInputError) throw badRequest(error.message, { [error.field]: error.message });
     throw error;
   }
 }
@@ -38,6 +37,7 @@ export class LossPointsService {
   constructor(
     private readonly materials: MaterialsService,
     private readonly points: LossPointsRepository,
+    private readonly runner: FitRunner,
   ) {}
 
   private async version(id: number): Promise<MaterialRow> {
@@ -82,7 +82,7 @@ export class LossPointsService {
 
   async fit(id: number, options: FitOptions) {
     await this.version(id);
-    return { materialId: id, ...runFit(await this.points.list(id), options) };
+    return { materialId: id, ...(await runFit(this.runner, await this.points.list(id), options)) };
   }
 
   /**
@@ -95,7 +95,7 @@ export class LossPointsService {
     const { band: chosen, ...options } = body;
     await this.version(id);
     const points = await this.points.list(id);
-    const fit = runFit(points, options);
+    const fit = await runFit(this.runner, points, options);
     if (chosen === undefined && fit.fits.length > 1) {
       throw badRequest(`The fit has ${fit.fits.length} bands: choose the one to keep.`, {
         band: `Choose a band from 0 to ${fit.fits.length - 1}`,

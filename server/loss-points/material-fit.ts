@@ -26,6 +26,16 @@ const CURVE_SAMPLES = 16;
 const MAX_CURVES = 400;
 
 export type MaterialFit = Omit<FitAnswer, 'materialId'>;
+/** What a fit takes, as plain data (it runs in a worker thread). */
+export interface MaterialFitInput {
+  points: LossPoint[];
+  options: FitOptions;
+}
+
+/** The field a refusal names: the point (its index in the version's points) and its field, or the option. */
+export function fitErrorField(error: FitInputError): string {
+  return error.index !== undefined ? `points[${error.index}].${error.field ?? 'value'}` : (error.field ?? 'points');
+}
 
 /** The points a fit uses: all, or (temperature not fitted) those at `atTemperature`, which must then be one temperature. */
 function selectPoints(points: readonly LossPoint[], options: FitOptions): number[] {

@@ -2,6 +2,7 @@ import { performance } from 'node:perf_hooks';
 import { LOSS_POINT_CSV_COLUMNS } from '@shared/schemas/loss-point-csv';
 import { AuditRepository } from '../../server/audit/audit.repository.ts';
 import { AuditService } from '../../server/audit/audit.service.ts';
+import { SearchPool } from '../../server/calc/search-pool.ts';
 import { LossPointsRepository } from '../../server/loss-points/loss-points.repository.ts';
 import { LossPointsService } from '../../server/loss-points/loss-points.service.ts';
 import { MaterialsRepository } from '../../server/materials/materials.repository.ts';
@@ -38,7 +39,8 @@ export async function runLossPointsBench(): Promise<BenchRow[]> {
     const repository = new MaterialsRepository(db);
     const points = new LossPointsRepository(db);
     const materials = new MaterialsService(repository, new AuditService(new AuditRepository(db)), points);
-    const service = new LossPointsService(materials, points);
+    // The fit runs inline here (no worker threads), so its time is the fit's own.
+    const service = new LossPointsService(materials, points, new SearchPool({ workers: 0, queue: 0, idleMs: 0, nice: 0 }));
     const [material] = await repository.listCurrent();
     const file = { originalname: 'bench-points.csv', buffer: inventedCsv() };
 
