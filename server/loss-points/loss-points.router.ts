@@ -12,7 +12,7 @@ export function lossPointsRouter(service: LossPointsService): Router {
     res.attachment('gapwright-loss-points-template.csv').type('text/csv; charset=utf-8').send(service.template());
   });
   mount(router, lossPoints, ({ params, req }) => service.list(params.id, actorOf(req).role));
-  mount(router, previewLossPoints, ({ req }) => service.preview(uploadedFile(req)), [singleCsvUpload()]);
+  mount(router, previewLossPoints, ({ params, req }) => service.preview(params.id, uploadedFile(req)), [singleCsvUpload()]);
   mount(router, commitLossPoints, ({ params, req }) => service.commit(params.id, uploadedFile(req), actorOf(req)), [singleCsvUpload()]);
   mount(router, fitLossPoints, ({ params, body }) => service.fit(params.id, body));
   mount(router, acceptFit, ({ params, body, req }) => service.accept(params.id, body, actorOf(req)));

@@ -61,7 +61,8 @@ export class LossPointsService {
     return lossPointTemplate();
   }
 
-  preview(file: UploadedFile) {
+  async preview(id: number, file: UploadedFile) {
+    await this.version(id);
     return readLossPointFile(file).preview;
   }
 

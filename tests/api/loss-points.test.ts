@@ -114,6 +114,7 @@ describe('hostile and broken loss-point files', () => {
     const content = readFileSync(join(FIXTURES, '../loss-points/bom-crlf.csv'));
     expect((await uploadCsv(winder, url(materialId, 'commit'), content, 'x.csv')).status).toBe(403);
     expect((await uploadCsv(engineer, url(999_999, 'commit'), content, 'x.csv')).status).toBe(404);
+    expect((await uploadCsv(engineer, url(999_999, 'preview'), content, 'x.csv')).status).toBe(404);
     const { audit_log: _a, ...after } = await counts();
     const { audit_log: _b, ...earlier } = before;
     expect(after).toEqual(earlier);

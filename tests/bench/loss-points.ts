@@ -49,7 +49,7 @@ export async function runLossPointsBench(): Promise<BenchRow[]> {
       const result = await run();
       return [result, (performance.now() - start) / 1000];
     };
-    const [preview, previewSeconds] = await time(() => service.preview(file));
+    const [preview, previewSeconds] = await time(() => service.preview(material!.id, file));
     const [commit, commitSeconds] = await time(() => service.commit(material!.id, file, actor));
     const [fit, fitSeconds] = await time(() => service.fit(commit.materialId, { mode: 'bands', maxWorstError: 0.05, temperature: true }));
     const total = previewSeconds + commitSeconds;
