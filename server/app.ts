@@ -43,6 +43,9 @@ import { ShopRepository } from './shop/shop.repository.ts';
 import { shopRouter } from './shop/shop.router.ts';
 import { ShopService } from './shop/shop.service.ts';
 import { settingsRouter } from './settings/settings.router.ts';
+import { LossPointsRepository } from './loss-points/loss-points.repository.ts';
+import { lossPointsRouter } from './loss-points/loss-points.router.ts';
+import { LossPointsService } from './loss-points/loss-points.service.ts';
 import { materialLibraryRouter } from './materials/material-library.router.ts';
 import { MaterialsService } from './materials/materials.service.ts';
 import { compareRouter } from './compare/compare.router.ts';
@@ -80,6 +83,7 @@ export interface Services {
   searchPool: SearchPool;
   calc: CalcService;
   materialLibrary: MaterialsService;
+  lossPoints: LossPointsService;
   userCores: UserCoresService;
   mail: MailDeliveryService;
   shop: ShopService;
@@ -101,13 +105,15 @@ export function createServices({
   const materials = new MaterialsRepository(db);
   const searchPool = new SearchPool(config.search);
   const calc = new CalcService(catalogue, materials, searchPool);
-  const materialLibrary = new MaterialsService(materials, audit);
+  const lossPointsRepository = new LossPointsRepository(db);
+  const materialLibrary = new MaterialsService(materials, audit, lossPointsRepository);
+  const lossPoints = new LossPointsService(materialLibrary, lossPointsRepository, searchPool);
   const userCores = new UserCoresService(new UserCoresRepository(db), catalogue, audit);
   const mail = new MailDeliveryService(db, jobs, mailTarget, config.smtp.retryDelaysMs, logger);
   const shop = new ShopService(new ShopRepository(db), catalogue, mail, audit);
   const review = new ReviewService(new ReviewRepository(db), audit, shop);
   const outbox = new OutboxService(db);
-  return { jobs, audit, users, catalogue, materials, searchPool, calc, materialLibrary, userCores, mail, shop, review, outbox };
+  return { jobs, audit, users, catalogue, materials, searchPool, calc, materialLibrary, lossPoints, userCores, mail, shop, review, outbox };
 }
 
 export function createApp(deps: AppDeps) {
@@ -172,6 +178,7 @@ export function createApp(deps: AppDeps) {
   const generationOf = (req: Request, name: string) => sessionLayer.extras(req)?.generations[name];
   api.use(designsRouter(designs, designEdits, generationOf));
   api.use(exportsRouter(exports));
+  api.use(lossPointsRouter(services.lossPoints));
   api.use(materialLibraryRouter(services.materialLibrary));
   api.use(materialsRouter(materials, generationOf));
   api.use(reviewRouter(review));

@@ -2,6 +2,8 @@ import { gzipSync } from 'node:zlib';
 import { ENGINE_VERSION, EngineInputError, searchCandidates, type SearchInput, type SearchResult } from '@shared/engine/index';
 import type { AnswerInputOf } from '@shared/api/endpoint';
 import type { search } from '@shared/api/calc';
+import { FitInputError } from '@shared/fitting/fit-error';
+import { fitErrorField, fitMaterial, type MaterialFit, type MaterialFitInput } from '../loss-points/material-fit.ts';
 import { compareAcrossMaterials, type MaterialComparison, type MaterialComparisonInput } from './material-comparison.ts';
 
 // The engine calls long enough to stall the event loop, as plain data in and out: the same function runs inline
@@ -9,7 +11,8 @@ import { compareAcrossMaterials, type MaterialComparison, type MaterialCompariso
 export type EngineTask =
   | { kind: 'search'; input: SearchInput }
   | { kind: 'search-answer'; input: SearchInput; gzip: boolean }
-  | { kind: 'compare'; input: MaterialComparisonInput };
+  | { kind: 'compare'; input: MaterialComparisonInput }
+  | { kind: 'fit'; input: MaterialFitInput };
 
 export interface EngineTaskResults {
   search: SearchResult;
@@ -20,6 +23,7 @@ export interface EngineTaskResults {
    */
   'search-answer': Uint8Array;
   compare: MaterialComparison;
+  fit: MaterialFit;
 }
 
 /** A refusal travels as data: an error's class and its `field` do not survive the trip back from a worker. */
@@ -39,6 +43,8 @@ function perform(task: EngineTask): EngineTaskResults[EngineTask['kind']] {
     }
     case 'compare':
       return compareAcrossMaterials(task.input);
+    case 'fit':
+      return fitMaterial(task.input.points, task.input.options);
   }
 }
 
@@ -47,6 +53,7 @@ export function runEngineTask(task: EngineTask): EngineTaskOutcome {
     return { ok: true, value: perform(task) };
   } catch (error) {
     if (error instanceof EngineInputError) return { ok: false, field: error.field, message: error.message };
+    if (error instanceof FitInputError) return { ok: false, field: fitErrorField(error), message: error.message };
     throw error;
   }
 }

@@ -125,6 +125,32 @@ export const materials = pgTable(
   ],
 );
 
+/**
+ * Measured or read-off core-loss points of one material version (SI units, temperature in °C), in file order.
+ * They belong to that version: a new version made from them (an upload, an accepted fit, an edit) gets a copy,
+ * so the points a fit came from stay beside it.
+ */
+export const materialLossPoints = pgTable(
+  'material_loss_points',
+  {
+    id: serial('id').primaryKey(),
+    materialId: integer('material_id')
+      .notNull()
+      .references(() => materials.id, { onDelete: 'cascade' }),
+    position: integer('position').notNull(),
+    frequency: doublePrecision('frequency').notNull(),
+    peakFlux: doublePrecision('peak_flux').notNull(),
+    temperature: doublePrecision('temperature').notNull(),
+    lossDensity: doublePrecision('loss_density').notNull(),
+    dcBias: doublePrecision('dc_bias'),
+    source: varchar('source', { length: 200 }),
+  },
+  (t) => [
+    uniqueIndex('material_loss_points_material_position_idx').on(t.materialId, t.position),
+    check('material_loss_points_positive_check', sql`${t.frequency} > 0 and ${t.peakFlux} > 0 and ${t.lossDensity} > 0`),
+  ],
+);
+
 /** One CSV upload of materials: who uploaded what and when, and what it did. */
 export const materialImports = pgTable('material_imports', {
   id: serial('id').primaryKey(),

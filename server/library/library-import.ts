@@ -24,6 +24,8 @@ export interface LibraryCsvFormat<C extends string, Item extends { name: string 
   /** One row's cells (absent columns as empty) as an item, or its problems by column. */
   validate: (cells: Partial<Record<C, string>>) => { values?: Item; problems: CellProblem[] };
   columnsOf: (item: Item) => Values;
+  /** What a new version takes over from the one it replaces (a material's loss points), in the import's transaction. */
+  carry?: (tx: Tx, replaced: { from: number; to: number }[]) => Promise<void>;
 }
 
 /** What a committed file did, as the import log and the audit entry record it. */
@@ -86,17 +88,21 @@ export class LibraryImport<Row extends VersionRow, Values extends { name: string
       const taken = await store.lineages(tx);
       const superseded: number[] = [];
       const versions: NewVersion<Values>[] = [];
+      // Per new version, the version it replaces (undefined for a new item).
+      const replacing: (number | undefined)[] = [];
       let skipped = 0;
       for (const { values: item, existing } of analysis.valid) {
         const columns = { ...this.format.columnsOf(item), createdBy: actor.id };
         if (!existing) {
           versions.push({ ...columns, lineage: newLineage(item.name, taken, words.noun), version: 1, retired: false });
+          replacing.push(undefined);
         } else if (byLowerName.get(item.name.toLowerCase()) === 'skip') {
           skipped++;
         } else {
           // A new version keeps the state of the one it replaces: a retired item stays retired.
           superseded.push(existing.id);
           versions.push({ ...columns, lineage: existing.lineage, version: existing.version + 1, retired: existing.retired });
+          replacing.push(existing.id);
         }
       }
       const counts = { created: versions.length - superseded.length, versioned: superseded.length, skipped };
@@ -107,6 +113,8 @@ export class LibraryImport<Row extends VersionRow, Values extends { name: string
         tx,
         versions.map((v) => ({ ...v, ...extra })),
       );
+      const replaced = ids.flatMap((to, i) => (replacing[i] === undefined ? [] : [{ from: replacing[i]!, to }]));
+      if (replaced.length) await this.format.carry?.(tx, replaced);
       await this.library.audit.record(
         { actorId: actor.id, action: `${words.noun}s.imported`, target: fileName, details: { ...extra, ...counts } },
         tx,

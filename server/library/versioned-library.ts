@@ -22,6 +22,13 @@ export interface LibraryOptions<Row extends VersionRow, Values extends { name: s
   reservedName?: (name: string) => AppError | undefined;
 }
 
+/** What else a new version's transaction does: its audit action, and writes that go with the new version. */
+export interface VersionChange<Row> {
+  action?: string;
+  /** Runs after the insert, before the audit entry; what it answers joins the entry's details. */
+  within?: (tx: Tx, inserted: Row, previous: Row) => Promise<Record<string, unknown> | void>;
+}
+
 /**
  * A versioned library (materials, user cores): every change adds a version with the same lineage and the next
  * number, only the newest version is current, and designs keep pointing at the version they used. Each change
@@ -77,9 +84,10 @@ export class VersionedLibrary<Row extends VersionRow, Values extends { name: str
   /**
    * The next version of the current version `id`, with the values `next` gives for it (it throws to refuse).
    * The version is locked first: of several writers of one version, one adds the next version and the others
-   * then find it no longer current (409).
+   * then find it no longer current (409). `change` names the audit action (default `<noun>.edited`) and writes
+   * what belongs to the new version (loss points) in the same transaction.
    */
-  async newVersion(id: number, actor: Actor, next: (row: Row) => Values): Promise<Row> {
+  async newVersion(id: number, actor: Actor, next: (row: Row) => Values, change: VersionChange<Row> = {}): Promise<Row> {
     return this.store.db.transaction(async (tx) => {
       const row = await this.store.lockById(tx, id);
       if (!row) throw this.missing(id);
@@ -95,12 +103,13 @@ export class VersionedLibrary<Row extends VersionRow, Values extends { name: str
         retired: row.retired,
         createdBy: actor.id,
       });
+      const details = (await change.within?.(tx, inserted, row)) ?? {};
       await this.audit.record(
         {
           actorId: actor.id,
-          action: `${this.words.noun}.edited`,
+          action: change.action ?? `${this.words.noun}.edited`,
           target: inserted.name,
-          details: { id: inserted.id, version: inserted.version },
+          details: { id: inserted.id, version: inserted.version, ...details },
         },
         tx,
       );

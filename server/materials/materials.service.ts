@@ -8,6 +8,7 @@ import type { AuditService } from '../audit/audit.service.ts';
 import type { Actor } from '../http/access.ts';
 import type { UploadedFile } from '../http/csv-upload.ts';
 import { badRequest } from '../http/errors.ts';
+import { LossPointsRepository } from '../loss-points/loss-points.repository.ts';
 import { LibraryImport } from '../library/library-import.ts';
 import { recordActions } from '../library/record-actions.ts';
 import type { WithAuthor } from '../library/version-store.ts';
@@ -17,7 +18,8 @@ import { TEMPLATE_ROWS } from './material-template.ts';
 import { toMaterialSummary } from './material-view.ts';
 import type { MaterialRow, MaterialsRepository } from './materials.repository.ts';
 
-function valuesOf(row: MaterialRow): MaterialValues {
+/** A stored version's own values, without identity and bookkeeping. */
+export function valuesOf(row: MaterialRow): MaterialValues {
   const { id: _id, lineage: _l, version: _v, current: _c, retired: _r, importId: _i, createdBy: _b, createdAt: _a, ...values } = row;
   return values;
 }
@@ -35,18 +37,21 @@ export function materialDetail(row: WithAuthor<MaterialRow>, role: Role): Librar
 
 /** The material library: a versioned library of material rows, filled from CSV files or edited a row at a time. */
 export class MaterialsService {
-  private readonly library: VersionedLibrary<MaterialRow, MaterialValues>;
+  readonly library: VersionedLibrary<MaterialRow, MaterialValues>;
   private readonly csv: LibraryImport<MaterialRow, MaterialValues, MaterialCsvColumn, MaterialValues>;
 
   constructor(
     private readonly repo: MaterialsRepository,
     audit: AuditService,
+    private readonly lossPoints = new LossPointsRepository(repo.db),
   ) {
     this.library = new VersionedLibrary({ store: repo.versions, audit, words: { noun: 'material', label: 'material' } });
     this.csv = new LibraryImport<MaterialRow, MaterialValues, MaterialCsvColumn, MaterialValues>(this.library, {
       table: MATERIAL_TABLE,
       validate: validateMaterialCells,
       columnsOf: (values) => values,
+      // A material row uploaded again as a new version keeps the loss points of the version it replaces.
+      carry: (tx, replaced) => this.lossPoints.copyMany(tx, replaced),
     });
   }
 
@@ -108,20 +113,26 @@ export class MaterialsService {
 
   /** An edit makes a new version from the changed cells; designs keep the id of the version they used. */
   async edit(id: number, edit: MaterialEdit, actor: Actor) {
-    const inserted = await this.library.newVersion(id, actor, (row) => {
-      const before = materialCellsFromValues(valuesOf(row));
-      const cells: Record<string, string> = { ...before };
-      for (const [column, value] of Object.entries(edit)) if (value !== undefined) cells[column] = String(value);
-      const { values, problems } = validateMaterialCells(cells);
-      if (!values) {
-        const shown = problems.map((p) => p.message).slice(0, 3);
-        throw badRequest(`The edit is not valid: ${shown.join('; ')}`, Object.fromEntries(problems.map((p) => [p.column, p.message])));
-      }
-      if (JSON.stringify(materialCellsFromValues(values)) === JSON.stringify(before)) {
-        throw badRequest('The edit changes nothing; no new version was made.', { '(body)': 'Nothing changed' });
-      }
-      return values;
-    });
+    const inserted = await this.library.newVersion(
+      id,
+      actor,
+      (row) => {
+        const before = materialCellsFromValues(valuesOf(row));
+        const cells: Record<string, string> = { ...before };
+        for (const [column, value] of Object.entries(edit)) if (value !== undefined) cells[column] = String(value);
+        const { values, problems } = validateMaterialCells(cells);
+        if (!values) {
+          const shown = problems.map((p) => p.message).slice(0, 3);
+          throw badRequest(`The edit is not valid: ${shown.join('; ')}`, Object.fromEntries(problems.map((p) => [p.column, p.message])));
+        }
+        if (JSON.stringify(materialCellsFromValues(values)) === JSON.stringify(before)) {
+          throw badRequest('The edit changes nothing; no new version was made.', { '(body)': 'Nothing changed' });
+        }
+        return values;
+      },
+      // The loss points stay with the material: the new version carries a copy of the edited one's.
+      { within: (tx, inserted, previous) => this.lossPoints.copy(tx, previous.id, inserted.id) },
+    );
     return materialDetail({ ...inserted, createdByName: actor.displayName }, actor.role);
   }
 

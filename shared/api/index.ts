@@ -11,6 +11,7 @@ import type { Endpoint } from './endpoint';
 import * as exportsApi from './exports';
 import * as health from './health';
 import * as inbox from './inbox';
+import * as lossPoints from './loss-points';
 import * as materials from './materials';
 import * as outbox from './outbox';
 import * as review from './review';
@@ -35,4 +36,5 @@ export const ENDPOINTS: readonly Endpoint[] = [
   calc,
   compare,
   materials,
+  lossPoints,
 ].flatMap((feature) => Object.values(feature));

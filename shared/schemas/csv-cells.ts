@@ -1,6 +1,7 @@
 // Cell readers shared by Gapwright's CSV formats (materials, cores): plain decimal numbers, texts a
 // spreadsheet would not run as formulas, a choice of words. Each failure reads as "<column> <message>".
 import type * as z from 'zod';
+import type { CellProblem } from './csv-import';
 import { text } from './text';
 
 // Plain decimal numbers with an optional exponent; no thousands separators, no decimal comma, no hex.
@@ -50,15 +51,31 @@ export const requiredNumberCell = (range: CellRange) => numberCell(range, true) 
 /** A number cell that may be empty (undefined), within `range` when given. */
 export const optionalNumberCell = (range: CellRange) => numberCell(range, false) as z.ZodType<number | undefined, string>;
 
+/** Why a given text cell cannot be stored, or undefined. */
+function textProblem(text: string, max: number): string | undefined {
+  if (text.length > max) return `must be at most ${max} characters`;
+  if (FORMULA_START.test(text)) return 'must not start with =, +, -, @ (a spreadsheet would run it as a formula)';
+  if (CONTROL_CHARACTERS.test(text)) return 'must not contain control characters';
+  return undefined;
+}
+
 /** A text cell that must be given: at most `max` characters, no formula start, no control characters. */
 export function textCell(max: number) {
   return text().transform((raw, ctx) => {
     const text = raw.trim();
-    const fail = (message: string) => ctx.addIssue({ code: 'custom', message, input: raw });
-    if (text === '') fail('is required');
-    else if (text.length > max) fail(`must be at most ${max} characters`);
-    else if (FORMULA_START.test(text)) fail('must not start with =, +, -, @ (a spreadsheet would run it as a formula)');
-    else if (CONTROL_CHARACTERS.test(text)) fail('must not contain control characters');
+    const problem = text === '' ? 'is required' : textProblem(text, max);
+    if (problem) ctx.addIssue({ code: 'custom', message: problem, input: raw });
+    return text;
+  });
+}
+
+/** A text cell that may be empty (undefined): otherwise as {@link textCell}. */
+export function optionalTextCell(max: number) {
+  return text().transform((raw, ctx): string | undefined => {
+    const text = raw.trim();
+    if (text === '') return undefined;
+    const problem = textProblem(text, max);
+    if (problem) ctx.addIssue({ code: 'custom', message: problem, input: raw });
     return text;
   });
 }
@@ -70,4 +87,17 @@ export function choiceCell<const T extends readonly string[]>(choices: T, messag
     if (!choices.includes(text)) ctx.addIssue({ code: 'custom', message, input: raw });
     return text as T[number];
   });
+}
+
+/** A row schema's issues as problems by column, the first per column, each reading "<column> <message>". */
+export function cellProblems(issues: readonly { path: readonly PropertyKey[]; message: string }[]): CellProblem[] {
+  const problems: CellProblem[] = [];
+  const seen = new Set<string>();
+  for (const issue of issues) {
+    const column = issue.path.length ? String(issue.path[0]) : '(row)';
+    if (seen.has(column)) continue;
+    seen.add(column);
+    problems.push({ column, message: `${column} ${issue.message}` });
+  }
+  return problems;
 }

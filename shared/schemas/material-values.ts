@@ -2,6 +2,7 @@
 // the cells of a CSV row in the row's own unit set.
 import type { MaterialFamily } from '@shared/engine/types';
 import type { CellProblem } from './csv-import';
+import { cellProblems } from './csv-cells';
 import {
   kToSi,
   MATERIAL_CSV_COLUMNS,
@@ -76,17 +77,7 @@ export function validateMaterialCells(cells: Partial<Record<string, string>>): {
   const input: Record<string, string> = {};
   for (const column of MATERIAL_CSV_COLUMNS) input[column] = cells[column] ?? '';
   const result = materialCsvRowSchema.safeParse(input);
-  if (!result.success) {
-    const problems: CellProblem[] = [];
-    const seen = new Set<string>();
-    for (const issue of result.error.issues) {
-      const column = issue.path.length ? String(issue.path[0]) : '(row)';
-      if (seen.has(column)) continue;
-      seen.add(column);
-      problems.push({ column, message: `${column} ${issue.message}` });
-    }
-    return { problems };
-  }
+  if (!result.success) return { problems: cellProblems(result.error.issues) };
   return { values: materialValuesFromRow(result.data), problems: [] };
 }
 

@@ -1,16 +1,10 @@
 import { performance } from 'node:perf_hooks';
-import { eq } from 'drizzle-orm';
-import pg from 'pg';
 import { MATERIAL_CSV_COLUMNS } from '@shared/schemas/materials';
 import { AuditRepository } from '../../server/audit/audit.repository.ts';
 import { AuditService } from '../../server/audit/audit.service.ts';
-import { loadConfig } from '../../server/config.ts';
-import { createDb } from '../../server/db/client.ts';
-import { users } from '../../server/db/schema.ts';
 import { MaterialsRepository } from '../../server/materials/materials.repository.ts';
 import { MaterialsService } from '../../server/materials/materials.service.ts';
-import { ensureCluster, ensureDatabase } from '../../server/ops/postgres.ts';
-import { resetDatabase } from '../api/support/test-app.ts';
+import { withBenchDatabase } from './bench-database.ts';
 import type { BenchRow } from './engine.ts';
 
 const ROWS = 10_000;
@@ -46,22 +40,9 @@ function inventedCsv(): Buffer {
 
 /** A 10,000-row material CSV validated (preview) and committed in one transaction, on its own database. */
 export async function runImportBench(): Promise<BenchRow[]> {
-  const cluster = ensureCluster();
-  ensureDatabase(DATABASE);
-  const config = loadConfig({
-    NODE_ENV: 'test',
-    DATABASE_URL: cluster.urlFor(DATABASE),
-    SESSION_SECRET: 'bench-session-secret-that-is-long-enough-0123456789',
-    LOG_LEVEL: 'silent',
-  });
-  const pool = new pg.Pool({ connectionString: config.databaseUrl, max: 4 });
-  try {
-    const db = createDb(pool);
-    await resetDatabase(db, config);
-    const [engineer] = await db.select().from(users).where(eq(users.role, 'engineer')).limit(1);
+  return withBenchDatabase(DATABASE, async (db, actor) => {
     const service = new MaterialsService(new MaterialsRepository(db), new AuditService(new AuditRepository(db)));
     const file = { originalname: 'bench.csv', buffer: inventedCsv() };
-    const actor = { id: engineer!.id, username: engineer!.username, displayName: engineer!.displayName, role: engineer!.role };
 
     const previewStart = performance.now();
     const preview = await service.preview(file);
@@ -80,9 +61,7 @@ export async function runImportBench(): Promise<BenchRow[]> {
         value: `${commitSeconds.toFixed(2)} s, ${result.created} created — ${verdict(commitSeconds)}`,
       },
     ];
-  } finally {
-    await pool.end();
-  }
+  });
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) {

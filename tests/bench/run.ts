@@ -5,6 +5,7 @@ import { ensureClientBuild } from '../../server/ops/client-build.ts';
 import { measureInitialBundle } from './bundle.ts';
 import { runEngineBench, type BenchRow } from './engine.ts';
 import { runHttpLoadBench } from './http-load.ts';
+import { runLossPointsBench } from './loss-points.ts';
 import { runImportBench } from './material-import.ts';
 import { runOutageBench } from './outage.ts';
 import { runSearchBench } from './search-pool.ts';
@@ -21,6 +22,7 @@ const SECTIONS: Record<string, () => Promise<BenchRow[]> | BenchRow[]> = {
   http: runHttpLoadBench,
   'signed-in': runSignedInPathBench,
   import: runImportBench,
+  'loss-points': runLossPointsBench,
   workspace: runWorkspaceBench,
   outage: runOutageBench,
   bundle: () => measureInitialBundle(path.join(repoRoot, 'dist/gapwright/browser')),
