@@ -61,7 +61,8 @@ describe('markup in names on charts', () => {
     )) as { materialIds: number[] };
     const materialId = String(material.materialIds[0]);
     const ring = await templateRow(page, '/api/catalogue/cores/template.csv', 'Example ring 20/10/7 (illustrative)', CORE_NAME, (r) =>
-      r.replace(',20,10,7,', ',60,30,25,'),
+      // A powder toroid, so it pairs with the powder material (ferrite-ring sizes never do).
+      r.replace(',RING,', ',POWDER_TOROID,').replace(',20,10,7,', ',60,30,25,'),
     );
     const core = (await page.evaluate(
       csvCommit('/api/catalogue/cores/import/commit', `${CORE_CSV_COLUMNS.join(',')}\n${ring}\n`, 'markup-cores.csv'),
@@ -70,7 +71,7 @@ describe('markup in names on charts', () => {
     const design = (await page.evaluate(
       apiWriteJson('POST', '/api/designs', {
         title: 'Markup names on charts',
-        spec: { converter: CONVERTER, families: ['RING'], materialIds: [materialId] },
+        spec: { converter: CONVERTER, families: ['POWDER_TOROID'], materialIds: [materialId] },
         construction: { coreId: CORE_NAME, materialId, turns: 'auto', gap: 'auto', wire: { kind: 'awg', awg: 14, strands: 2 } },
       }),
     )) as { id: number };
