@@ -11,8 +11,11 @@ export function calcRouter(calc: CalcService): Router {
   // Searches run in a worker thread, which also encodes (and compresses) the answer: the main thread only passes the
   // bytes on (res.end, not res.send: no ETag hashed over them for a POST nobody revalidates).
   mount(router, search, async ({ body, req, res }) => {
+    const started = performance.now();
     const gzip = req.acceptsEncodings('gzip') === 'gzip';
     const bytes = await calc.searchAnswer(body, { gzip });
+    // The search's own time on the server (queue, worker, engine, encoding), for browser tools and the bench.
+    res.setHeader('Server-Timing', `search;desc="queue, engine and encoding";dur=${(performance.now() - started).toFixed(1)}`);
     res.type('json').vary('Accept-Encoding').setHeader('Content-Length', bytes.byteLength);
     if (gzip) res.setHeader('Content-Encoding', 'gzip');
     res.end(bytes);

@@ -124,6 +124,8 @@ describe('POST /api/calc/search and /api/calc/evaluate', () => {
     expect(materialIds.length).toBeGreaterThanOrEqual(5);
     const res = await engineer.post('/api/calc/search', { spec: EXAMPLE_SPEC, materialIds, rankBy: 'loss', limit: 10 });
     expect(res.status).toBe(200);
+    // The search's own server time, for browser tools and the bench (W3C Server Timing).
+    expect(res.headers['server-timing']).toMatch(/^search;desc="[^"]+";dur=\d+(\.\d)?$/);
     const { candidates, infeasible, counts } = res.body;
     expect(counts.evaluated).toBeGreaterThan(100);
     expect(candidates.length).toBeGreaterThan(0);

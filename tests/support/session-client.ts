@@ -5,6 +5,8 @@ export interface Answer {
   /** The HTTP status, or 0 when no answer came (connection refused or reset). */
   status: number;
   text: string;
+  /** The first duration (ms) of the answer's Server-Timing header, where the route sends one. */
+  serverTiming?: number;
 }
 
 export class SessionClient {
@@ -42,7 +44,8 @@ export class SessionClient {
         const at = pair.indexOf('=');
         this.cookies.set(pair.slice(0, at), pair.slice(at + 1));
       }
-      return { status: res.status, text: await res.text() };
+      const timing = /dur=([\d.]+)/.exec(res.headers.get('server-timing') ?? '');
+      return { status: res.status, text: await res.text(), ...(timing ? { serverTiming: Number(timing[1]) } : {}) };
     } catch (err) {
       return { status: 0, text: String((err as Error).cause ?? err) };
     }
