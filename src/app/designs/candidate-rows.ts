@@ -46,6 +46,8 @@ export interface InfeasibleRow {
   materialName: string;
   wireId: string;
   turns: number | null;
+  /** 'ground centre gap' or 'spacer under all legs' for the closest air-gap miss; '—' otherwise. */
+  gap: string;
   totalLoss: number | null;
   reasons: string;
 }
@@ -114,6 +116,8 @@ export function candidateRow(c: SearchCandidate, materialNames: ReadonlyMap<stri
   };
 }
 
+const PLACEMENT_WORDS = { ground: 'ground centre gap', spacer: 'spacer under all legs' } as const;
+
 export function infeasibleRows(search: SearchResult, materialNames: ReadonlyMap<string, string>): InfeasibleRow[] {
   return search.infeasible.map((x, i) => ({
     key: `${i}|${x.coreId}|${x.materialId ?? ''}`,
@@ -121,6 +125,7 @@ export function infeasibleRows(search: SearchResult, materialNames: ReadonlyMap<
     materialName: x.materialId ? (materialNames.get(x.materialId) ?? x.materialId) : '—',
     wireId: x.wireId ?? '—',
     turns: x.turns ?? null,
+    gap: x.placement ? PLACEMENT_WORDS[x.placement] : '—',
     totalLoss: x.totalLoss ?? null,
     reasons: x.reasons.map((r) => r.message).join(' '),
   }));

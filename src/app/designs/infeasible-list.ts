@@ -22,6 +22,7 @@ import type { InfeasibleRow } from './candidate-rows';
                 <th scope="col">Material</th>
                 <th scope="col">Conductor</th>
                 <th scope="col">Turns</th>
+                <th scope="col">Gap</th>
                 <th scope="col">Loss</th>
                 <th scope="col">Why</th>
               </tr>
@@ -33,6 +34,7 @@ import type { InfeasibleRow } from './candidate-rows';
                   <td>{{ r.materialName }}</td>
                   <td>{{ r.wireId }}</td>
                   <td>{{ r.turns ?? '—' }}</td>
+                  <td>{{ r.gap }}</td>
                   <td>{{ r.totalLoss | quantity: 'power' : 3 }}</td>
                   <td>{{ r.reasons }}</td>
                 </tr>
