@@ -161,6 +161,13 @@ export class CompareService {
       placement: request.placement,
       materials: rows.map(toCoreMaterial),
     });
-    return { engineVersion: ENGINE_VERSION, coreId: core.id, turns: request.turns, ...(fluxPoint ? { fluxPoint } : {}), rows: result };
+    return {
+      engineVersion: ENGINE_VERSION,
+      coreId: core.id,
+      turns: request.turns,
+      placement: request.placement ?? 'ground',
+      ...(fluxPoint ? { fluxPoint } : {}),
+      rows: result,
+    };
   }
 }

@@ -153,6 +153,7 @@ export const compareDesignResponseSchema = z.object({
   design: comparedRevisionSchema.optional().meta({ description: 'Set when a saved revision was compared' }),
   coreId: z.string(),
   turns: z.number().int(),
+  placement: z.enum(GAP_PLACEMENTS).meta({ description: "The gap placement every row was solved with (a saved revision's own)" }),
   rows: z.array(designComparisonRowSchema),
 });
 export type CompareDesignResponse = z.infer<typeof compareDesignResponseSchema>;

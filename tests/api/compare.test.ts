@@ -119,6 +119,7 @@ describe('POST /api/compare/design', () => {
   it('keeps a spacer design a spacer design: each row gives the spacer that material needs', async () => {
     const [ground, spacer] = await Promise.all([typedDesign(), typedDesign({ placement: 'spacer' })]);
     expect(spacer.status).toBe(200);
+    expect([ground.body.placement, spacer.body.placement]).toEqual(['ground', 'spacer']);
     const okRows = (body: { rows: { materialId: string; status: string; gap?: number }[] }) => body.rows.filter((r) => r.status === 'ok');
     for (const row of okRows(spacer.body)) {
       const evaluated = await engineer.post('/api/calc/evaluate', {

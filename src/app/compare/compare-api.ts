@@ -3,6 +3,7 @@ import { listCores } from '@shared/api/catalogue';
 import { compareCurves, compareDesign, compareSavedDesign } from '@shared/api/compare';
 import { listMaterials } from '@shared/api/materials';
 import type { CompareCurvesResponse, CompareDesignResponse } from '@shared/schemas/compare';
+import type { CallInput } from '@shared/api/endpoint';
 import type { ListedCore } from '@shared/schemas/cores';
 import type { MaterialSummary } from '@shared/schemas/material-answers';
 import type { Observable } from 'rxjs';
@@ -20,12 +21,8 @@ export interface CurvesRequest {
   duty: number;
 }
 
-export interface DesignRequest {
-  spec: { vinMin: number; vinMax: number; vout: number; ioutMax: number; frequency: number; rippleRatio: number };
-  coreId: string;
-  turns: number;
-  wire: { kind: 'awg'; awg: number; strands: number };
-}
+/** A design typed in on the Compare page: the request's own schema type, every current material. */
+export type DesignRequest = Omit<CallInput<typeof compareDesign>['body'], 'materialIds'>;
 
 @Injectable({ providedIn: 'root' })
 export class CompareApi {

@@ -14,6 +14,7 @@ const RESPONSE: CompareDesignResponse = {
   design: { id: 5, number: 'GW-0005', title: 'Sample rail', revision: 2, materialId: '11' },
   coreId: 'ETD34/17/11',
   turns: 21,
+  placement: 'ground',
   rows: [
     {
       materialId: '11',
@@ -53,7 +54,7 @@ describe('DesignComparison', () => {
     expect(request.request.body).toEqual({ designId: 5, revision: 2 });
     request.flush(RESPONSE);
     await fixture.whenStable();
-    expect(page.querySelector('h3')?.textContent?.trim()).toBe('GW-0005 revision 2 · Sample rail: ETD34/17/11, 21 turns');
+    expect(page.querySelector('h3')?.textContent?.trim()).toBe('GW-0005 revision 2 · Sample rail: ETD34/17/11, 21 turns, ground centre gap');
     const own = page.querySelector('tr.gw-own-row');
     expect(own?.textContent).toContain('Sample ferrite A');
     expect(own?.textContent).toContain("this design's material");
@@ -101,7 +102,13 @@ describe('DesignComparison', () => {
     const request = http.expectOne('/api/compare/design');
     // 250 kHz = 250 000 Hz, 40 % = 0.4: SI prefixes and per cent (BIPM SI Brochure, 9th ed. — from memory).
     expect(request.request.body.spec).toEqual({ vinMin: 24, vinMax: 48, vout: 12, ioutMax: 10, frequency: 250e3, rippleRatio: 0.4 });
-    request.flush(RESPONSE);
+    // A typed-in design is compared with a ground centre gap unless the spacer is chosen.
+    expect(request.request.body.placement).toBe('ground');
+    request.flush({ ...RESPONSE, design: undefined, placement: 'spacer' });
     await fixture.whenStable();
+    // The gap column names what each row's figure is: a spacer's thickness, not a ground gap.
+    const headers = [...page.querySelectorAll('th')].map((th) => th.textContent?.trim());
+    expect(headers).toContain('Spacer (mm)');
+    expect(page.querySelector('h3')?.textContent).toContain('spacer under all legs');
   });
 });

@@ -14,6 +14,7 @@ import {
 } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
+import type { GapPlacement } from '@shared/engine/types';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -118,6 +119,7 @@ export class DesignComparison {
     turns: new FormControl(20, { nonNullable: true, validators: [Validators.required, Validators.min(1), Validators.max(2000)] }),
     awg: new FormControl(18, { nonNullable: true, validators: [Validators.required, Validators.min(-3), Validators.max(46)] }),
     strands: new FormControl(2, { nonNullable: true, validators: [Validators.required, Validators.min(1), Validators.max(5000)] }),
+    placement: new FormControl<GapPlacement>('ground', { nonNullable: true }),
   });
   protected readonly quantityFields = QUANTITY_FIELDS;
   protected readonly typedFields = [
@@ -142,7 +144,7 @@ export class DesignComparison {
     const r = this.result();
     if (!r) return '';
     const what = r.design ? `${r.design.number} revision ${r.design.revision} · ${r.design.title}` : 'The design typed in';
-    return `${what}: ${r.coreId}, ${r.turns} turns`;
+    return `${what}: ${r.coreId}, ${r.turns} turns, ${r.placement === 'spacer' ? 'spacer under all legs' : 'ground centre gap'}`;
   });
   protected readonly chosenDesignNumber = computed(() => this.designs().find((d) => d.id === this.chosenDesign())?.number ?? '');
 
@@ -219,6 +221,7 @@ export class DesignComparison {
         coreId: v.coreId,
         turns: v.turns,
         wire: { kind: 'awg', awg: v.awg, strands: v.strands },
+        placement: v.placement,
       }),
       this.typedForm,
     );
