@@ -17,6 +17,8 @@ type Phase = 'idle' | 'previewing' | 'previewed' | 'committing';
   selector: 'gw-loss-point-upload',
   imports: [MatButtonModule, MatProgressBarModule],
   templateUrl: './loss-point-upload.html',
+  // The shared import flow's layout (actions row, progress label, error list).
+  styleUrl: '../core/csv-import.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class LossPointUpload {
