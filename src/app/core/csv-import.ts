@@ -7,8 +7,8 @@ import type { ImportDecision, ImportPreview } from '@shared/schemas/csv-import';
 import type { Observable } from 'rxjs';
 
 import { DataTable, DataTableCell, type TableColumn } from '../ui/data-table';
-import { apiErrorOf, errorMessageOf } from './api-error';
 import type { CsvImportCalls, UploadStep } from './upload-steps';
+import { RequestFailureMessage, requestFailureOf, type RequestFailure } from '../ui/request-failure';
 
 /** The words of one CSV import (cores, materials). */
 export interface CsvImportTexts {
@@ -47,7 +47,7 @@ let nextId = 0;
  */
 @Component({
   selector: 'gw-csv-import',
-  imports: [DataTable, DataTableCell, MatButtonModule, MatFormFieldModule, MatProgressBarModule, MatSelectModule],
+  imports: [RequestFailureMessage, DataTable, DataTableCell, MatButtonModule, MatFormFieldModule, MatProgressBarModule, MatSelectModule],
   templateUrl: './csv-import.html',
   styleUrl: './csv-import.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -64,7 +64,7 @@ export class CsvImport<R> {
   protected readonly percent = signal<number | null>(null);
   protected readonly file = signal<File | null>(null);
   protected readonly result = signal<ImportPreview | null>(null);
-  protected readonly failure = signal<{ message: string; fields: [string, string][] } | null>(null);
+  protected readonly failure = signal<RequestFailure | null>(null);
   protected readonly decisions = signal<Record<string, ImportDecision>>({});
   protected readonly columns: TableColumn<ImportPreview['rows'][number]>[] = [
     { name: 'row', header: 'Row', text: (row) => row.row },
@@ -124,7 +124,7 @@ export class CsvImport<R> {
       next: (step) => (step.kind === 'progress' ? this.percent.set(step.percent) : done(step.body)),
       error: (error: unknown) => {
         this.phase.set(this.result() ? 'previewed' : 'idle');
-        this.failure.set({ message: errorMessageOf(error), fields: Object.entries(apiErrorOf(error)?.fields ?? {}).slice(0, 50) });
+        this.failure.set(requestFailureOf(error));
       },
     });
   }

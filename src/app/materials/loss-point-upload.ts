@@ -3,9 +3,9 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import type { Observable } from 'rxjs';
 
-import { apiErrorOf, errorMessageOf } from '../core/api-error';
 import type { UploadStep } from '../core/upload-steps';
 import { LossPointsApi, type LossPointCommit, type LossPointPreview } from './loss-points-api';
+import { RequestFailureMessage, requestFailureOf, type RequestFailure } from '../ui/request-failure';
 
 type Phase = 'idle' | 'previewing' | 'previewed' | 'committing';
 
@@ -15,7 +15,7 @@ type Phase = 'idle' | 'previewing' | 'previewed' | 'committing';
  */
 @Component({
   selector: 'gw-loss-point-upload',
-  imports: [MatButtonModule, MatProgressBarModule],
+  imports: [RequestFailureMessage, MatButtonModule, MatProgressBarModule],
   templateUrl: './loss-point-upload.html',
   // The shared import flow's layout (actions row, progress label, error list).
   styleUrl: '../core/csv-import.scss',
@@ -30,7 +30,7 @@ export class LossPointUpload {
   protected readonly percent = signal<number | null>(null);
   protected readonly file = signal<File | null>(null);
   protected readonly preview = signal<LossPointPreview | null>(null);
-  protected readonly failure = signal<{ message: string; fields: [string, string][] } | null>(null);
+  protected readonly failure = signal<RequestFailure | null>(null);
   protected readonly busy = computed(() => this.phase() === 'previewing' || this.phase() === 'committing');
   protected readonly problemRows = computed(() => this.preview()?.rows.filter((r) => r.problems.length) ?? []);
   protected readonly canCommit = computed(() => {
@@ -74,7 +74,7 @@ export class LossPointUpload {
       next: (step) => (step.kind === 'progress' ? this.percent.set(step.percent) : done(step.body)),
       error: (error: unknown) => {
         this.phase.set(this.preview() ? 'previewed' : 'idle');
-        this.failure.set({ message: errorMessageOf(error), fields: Object.entries(apiErrorOf(error)?.fields ?? {}).slice(0, 50) });
+        this.failure.set(requestFailureOf(error));
       },
     });
   }

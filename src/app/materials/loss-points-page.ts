@@ -10,7 +10,6 @@ import { Router, RouterLink } from '@angular/router';
 import { NgxEchartsDirective } from 'ngx-echarts';
 import type { Observable } from 'rxjs';
 
-import { apiErrorOf, errorMessageOf } from '../core/api-error';
 import { Notifier } from '../core/notifier';
 import { ThemeSwitcher } from '../core/theme-switcher';
 import { fitChartOptions, residualChartOptions } from './fit-chart-options';
@@ -18,11 +17,13 @@ import { FitResult } from './fit-result';
 import { LossPointUpload } from './loss-point-upload';
 import { LossPointsApi, type FitAnswer, type FitOptions, type LossPointCommit } from './loss-points-api';
 import { LossPointsTable } from './loss-points-table';
+import { RequestFailureMessage, requestFailureOf, type RequestFailure } from '../ui/request-failure';
 
 /** The loss points of one material version (/materials/:id/loss-points): the table, a CSV upload, and fitting k, α, β to them. */
 @Component({
   selector: 'gw-loss-points-page',
   imports: [
+    RequestFailureMessage,
     FitResult,
     LossPointUpload,
     LossPointsTable,
@@ -63,7 +64,7 @@ export class LossPointsPage {
   protected readonly band = signal(0);
   protected readonly busy = signal(false);
   /** The server's refusal, by field (its one error shape), shown beside the fit options. */
-  protected readonly failure = signal<{ message: string; fields: [string, string][] } | null>(null);
+  protected readonly failure = signal<RequestFailure | null>(null);
   private readonly dark = computed(() => this.theme.theme() === 'dark');
   protected readonly fitChart = computed(() => {
     const fit = this.fit();
@@ -117,7 +118,7 @@ export class LossPointsPage {
       },
       error: (error: unknown) => {
         this.busy.set(false);
-        this.failure.set({ message: errorMessageOf(error), fields: Object.entries(apiErrorOf(error)?.fields ?? {}) });
+        this.failure.set(requestFailureOf(error));
       },
     });
   }
