@@ -1,13 +1,10 @@
-import { ChangeDetectionStrategy, Component, computed, inject, input, output, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, output } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import type { Observable } from 'rxjs';
 
-import type { UploadStep } from '../core/upload-steps';
+import { UploadFlow } from '../core/upload-flow';
+import { RequestFailureMessage } from '../ui/request-failure';
 import { LossPointsApi, type LossPointCommit, type LossPointPreview } from './loss-points-api';
-import { RequestFailureMessage, requestFailureOf, type RequestFailure } from '../ui/request-failure';
-
-type Phase = 'idle' | 'previewing' | 'previewed' | 'committing';
 
 /**
  * A loss-point CSV file: every row with its problems by column and the problems across rows, then all points
@@ -26,12 +23,13 @@ export class LossPointUpload {
   readonly materialId = input.required<string>();
   readonly committed = output<LossPointCommit>();
 
-  protected readonly phase = signal<Phase>('idle');
-  protected readonly percent = signal<number | null>(null);
-  protected readonly file = signal<File | null>(null);
-  protected readonly preview = signal<LossPointPreview | null>(null);
-  protected readonly failure = signal<RequestFailure | null>(null);
-  protected readonly busy = computed(() => this.phase() === 'previewing' || this.phase() === 'committing');
+  private readonly flow = new UploadFlow<LossPointPreview>();
+  protected readonly phase = this.flow.phase;
+  protected readonly percent = this.flow.percent;
+  protected readonly file = this.flow.file;
+  protected readonly preview = this.flow.preview;
+  protected readonly failure = this.flow.failure;
+  protected readonly busy = this.flow.busy;
   protected readonly problemRows = computed(() => this.preview()?.rows.filter((r) => r.problems.length) ?? []);
   protected readonly canCommit = computed(() => {
     const p = this.preview();
@@ -39,43 +37,18 @@ export class LossPointUpload {
   });
 
   protected choose(picker: HTMLInputElement): void {
-    const file = picker.files?.[0] ?? null;
-    picker.value = '';
-    if (!file) return;
-    this.file.set(file);
-    this.preview.set(null);
-    this.failure.set(null);
-    this.run('previewing', this.api.preview(this.materialId(), file), (preview) => {
-      this.preview.set(preview);
-      this.phase.set('previewed');
-    });
+    this.flow.choose(picker, (file) => this.api.preview(this.materialId(), file));
   }
 
   protected commit(): void {
-    const file = this.file();
-    if (!file || !this.canCommit()) return;
-    this.run('committing', this.api.commit(this.materialId(), file), (done) => {
-      this.reset();
-      this.committed.emit(done);
-    });
+    if (!this.canCommit()) return;
+    this.flow.commit(
+      (file) => this.api.commit(this.materialId(), file),
+      (done) => this.committed.emit(done),
+    );
   }
 
   protected reset(): void {
-    this.phase.set('idle');
-    this.preview.set(null);
-    this.file.set(null);
-    this.failure.set(null);
-  }
-
-  private run<T>(phase: Phase, steps: Observable<UploadStep<T>>, done: (body: T) => void): void {
-    this.phase.set(phase);
-    this.percent.set(0);
-    steps.subscribe({
-      next: (step) => (step.kind === 'progress' ? this.percent.set(step.percent) : done(step.body)),
-      error: (error: unknown) => {
-        this.phase.set(this.preview() ? 'previewed' : 'idle');
-        this.failure.set(requestFailureOf(error));
-      },
-    });
+    this.flow.reset();
   }
 }
