@@ -23,17 +23,11 @@ export class LossPointUpload {
   readonly materialId = input.required<string>();
   readonly committed = output<LossPointCommit>();
 
-  private readonly flow = new UploadFlow<LossPointPreview>();
-  protected readonly phase = this.flow.phase;
-  protected readonly percent = this.flow.percent;
-  protected readonly file = this.flow.file;
-  protected readonly preview = this.flow.preview;
-  protected readonly failure = this.flow.failure;
-  protected readonly busy = this.flow.busy;
-  protected readonly problemRows = computed(() => this.preview()?.rows.filter((r) => r.problems.length) ?? []);
+  protected readonly flow = new UploadFlow<LossPointPreview>();
+  protected readonly problemRows = computed(() => this.flow.preview()?.rows.filter((r) => r.problems.length) ?? []);
   protected readonly canCommit = computed(() => {
-    const p = this.preview();
-    return this.phase() === 'previewed' && !!p && p.summary.errors === 0 && p.fileProblems.length === 0 && p.summary.valid > 0;
+    const p = this.flow.preview();
+    return this.flow.phase() === 'previewed' && !!p && p.summary.errors === 0 && p.fileProblems.length === 0 && p.summary.valid > 0;
   });
 
   protected choose(picker: HTMLInputElement): void {
@@ -46,9 +40,5 @@ export class LossPointUpload {
       (file) => this.api.commit(this.materialId(), file),
       (done) => this.committed.emit(done),
     );
-  }
-
-  protected reset(): void {
-    this.flow.reset();
   }
 }
