@@ -33,6 +33,12 @@ export const routes: Routes = [
         loadComponent: () => import('./materials/material-library').then((m) => m.MaterialLibrary),
       },
       {
+        path: 'materials/:id/loss-points',
+        title: 'Loss points · Gapwright',
+        canActivate: [roleGuard('library')],
+        loadComponent: () => import('./materials/loss-points-page').then((m) => m.LossPointsPage),
+      },
+      {
         path: 'cores',
         title: 'Cores · Gapwright',
         canActivate: [roleGuard('library')],

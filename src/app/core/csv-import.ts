@@ -4,11 +4,11 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import type { ImportDecision, ImportPreview } from '@shared/schemas/csv-import';
-import type { Observable } from 'rxjs';
 
 import { DataTable, DataTableCell, type TableColumn } from '../ui/data-table';
-import { apiErrorOf, errorMessageOf } from './api-error';
-import type { CsvImportCalls, UploadStep } from './upload-steps';
+import { RequestFailureMessage } from '../ui/request-failure';
+import { UploadFlow } from './upload-flow';
+import type { CsvImportCalls } from './upload-steps';
 
 /** The words of one CSV import (cores, materials). */
 export interface CsvImportTexts {
@@ -38,7 +38,6 @@ export function csvImportTexts(noun: string, plural: string, existing: string): 
   };
 }
 
-type Phase = 'idle' | 'previewing' | 'previewed' | 'committing';
 let nextId = 0;
 
 /**
@@ -47,7 +46,7 @@ let nextId = 0;
  */
 @Component({
   selector: 'gw-csv-import',
-  imports: [DataTable, DataTableCell, MatButtonModule, MatFormFieldModule, MatProgressBarModule, MatSelectModule],
+  imports: [RequestFailureMessage, DataTable, DataTableCell, MatButtonModule, MatFormFieldModule, MatProgressBarModule, MatSelectModule],
   templateUrl: './csv-import.html',
   styleUrl: './csv-import.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -60,11 +59,13 @@ export class CsvImport<R> {
   readonly imported = output<R>();
 
   protected readonly progressLabelId = `gw-csv-import-progress-${nextId++}`;
-  protected readonly phase = signal<Phase>('idle');
-  protected readonly percent = signal<number | null>(null);
-  protected readonly file = signal<File | null>(null);
-  protected readonly result = signal<ImportPreview | null>(null);
-  protected readonly failure = signal<{ message: string; fields: [string, string][] } | null>(null);
+  private readonly flow = new UploadFlow<ImportPreview>();
+  protected readonly phase = this.flow.phase;
+  protected readonly percent = this.flow.percent;
+  protected readonly file = this.flow.file;
+  protected readonly result = this.flow.preview;
+  protected readonly failure = this.flow.failure;
+  protected readonly busy = this.flow.busy;
   protected readonly decisions = signal<Record<string, ImportDecision>>({});
   protected readonly columns: TableColumn<ImportPreview['rows'][number]>[] = [
     { name: 'row', header: 'Row', text: (row) => row.row },
@@ -73,27 +74,18 @@ export class CsvImport<R> {
     { name: 'problems', header: 'Problems (column: message)' },
     { name: 'decision', header: 'Decision' },
   ];
-  protected readonly busy = computed(() => this.phase() === 'previewing' || this.phase() === 'committing');
   protected readonly canCommit = computed(() => {
     const preview = this.result();
     return this.phase() === 'previewed' && !!preview && preview.summary.errors === 0 && preview.summary.rows > 0;
   });
 
-  protected choose(input: HTMLInputElement): void {
-    const file = input.files?.[0] ?? null;
-    input.value = '';
-    if (!file) return;
-    this.file.set(file);
-    this.result.set(null);
-    this.failure.set(null);
-    this.run('previewing', this.calls().preview(file), (preview) => {
+  protected choose(picker: HTMLInputElement): void {
+    this.flow.choose(picker, this.calls().preview, (preview) =>
       // Existing names start as "new version": re-uploading a corrected file is the common case.
       this.decisions.set(
         Object.fromEntries(preview.rows.filter((r) => r.status === 'exists').map((r) => [r.name, 'new-version' as const])),
-      );
-      this.result.set(preview);
-      this.phase.set('previewed');
-    });
+      ),
+    );
   }
 
   protected decide(name: string, decision: ImportDecision): void {
@@ -101,31 +93,14 @@ export class CsvImport<R> {
   }
 
   protected importAll(): void {
-    const file = this.file();
-    if (!file || !this.canCommit()) return;
-    this.run('committing', this.calls().commit(file, this.decisions()), (done) => {
-      this.reset();
-      this.imported.emit(done);
-    });
+    if (!this.canCommit()) return;
+    this.flow.commit(
+      (file) => this.calls().commit(file, this.decisions()),
+      (done) => this.imported.emit(done),
+    );
   }
 
   protected reset(): void {
-    this.phase.set('idle');
-    this.result.set(null);
-    this.file.set(null);
-    this.failure.set(null);
-  }
-
-  /** One upload: progress while it travels, then the answer, or the server's refusal with its fields. */
-  private run<T>(phase: Phase, steps: Observable<UploadStep<T>>, done: (body: T) => void): void {
-    this.phase.set(phase);
-    this.percent.set(0);
-    steps.subscribe({
-      next: (step) => (step.kind === 'progress' ? this.percent.set(step.percent) : done(step.body)),
-      error: (error: unknown) => {
-        this.phase.set(this.result() ? 'previewed' : 'idle');
-        this.failure.set({ message: errorMessageOf(error), fields: Object.entries(apiErrorOf(error)?.fields ?? {}).slice(0, 50) });
-      },
-    });
+    this.flow.reset();
   }
 }

@@ -9,6 +9,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSortModule } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
+import { RouterLink } from '@angular/router';
 
 import { Notifier } from '../core/notifier';
 import { LibraryTable } from '../library/library-table';
@@ -36,6 +37,7 @@ import { MaterialsApi, type CommitResult, type LibraryMaterial } from './materia
     MatTableModule,
     MaterialUpload,
     RecordActions,
+    RouterLink,
     VersionHistory,
   ],
   templateUrl: './material-library.html',
