@@ -54,7 +54,9 @@ describe('DesignComparison', () => {
     expect(request.request.body).toEqual({ designId: 5, revision: 2 });
     request.flush(RESPONSE);
     await fixture.whenStable();
-    expect(page.querySelector('h3')?.textContent?.trim()).toBe('GW-0005 revision 2 · Sample rail: ETD34/17/11, 21 turns, ground centre gap');
+    expect(page.querySelector('h3')?.textContent?.trim()).toBe(
+      'GW-0005 revision 2 · Sample rail: ETD34/17/11, 21 turns, ground centre gap',
+    );
     const own = page.querySelector('tr.gw-own-row');
     expect(own?.textContent).toContain('Sample ferrite A');
     expect(own?.textContent).toContain("this design's material");
