@@ -53,6 +53,29 @@ export interface GapGeometry {
 const GAP_TOLERANCE = 1e-9;
 const MAX_NEWTON_STEPS = 200;
 
+/** What `rootOfRising`'s `evaluate` writes: the function's value and slope at the point asked for. */
+const newtonStep = { residual: 0, slope: 0 };
+
+/**
+ * Root of a rising function from a start at or below it: Newton steps kept inside the bracket found so far, halving
+ * it (or doubling the point while no upper bound is known) whenever a step would leave it.
+ */
+function rootOfRising(start: number, evaluate: (x: number) => void): number {
+  let low = start;
+  let high = Number.POSITIVE_INFINITY;
+  let x = start;
+  for (let step = 0; step < MAX_NEWTON_STEPS; step++) {
+    evaluate(x);
+    if (newtonStep.residual < 0) low = x;
+    else high = x;
+    let next = newtonStep.slope > 0 ? x - newtonStep.residual / newtonStep.slope : Number.NaN;
+    if (!(next > low && next < high)) next = high < Number.POSITIVE_INFINITY ? (low + high) / 2 : 2 * x;
+    if (Math.abs(next - x) <= GAP_TOLERANCE * next) return next;
+    x = next;
+  }
+  return x;
+}
+
 /**
  * Keep N and widen the gap until L is met with fringing: lg = μ0·N²·Ae·F(lg)/L − le/μr, solved by Newton's method
  * on h(lg) = μ0·N²·Ae·F(lg)/L − le/μr − lg (F′ = (ln(2G/lg) − 1)/√Ae), kept inside a bracket that bisects whenever
@@ -65,23 +88,13 @@ export function gapWithFringing(turns: number, inductance: number, g: GapGeometr
   const reluctanceLength = g.pathLength / g.permeability;
   const root = Math.sqrt(g.area);
   const twiceWindow = 2 * g.windowHeight;
-  let low = start;
-  let high = Number.POSITIVE_INFINITY;
-  let gap = start;
-  for (let step = 0; step < MAX_NEWTON_STEPS; step++) {
+  // −h rises with lg near the root and is ≤ 0 at the start; the bracket keeps the steps safe elsewhere.
+  return rootOfRising(start, (gap) => {
     const logRatio = Math.log(twiceWindow / gap);
     const f = 1 + (gap / root) * logRatio;
-    const fringing = f > 1 ? f : 1;
-    const residual = numerator * fringing - reluctanceLength - gap;
-    if (residual > 0) low = gap;
-    else high = gap;
-    const slope = (f > 1 ? (numerator * (logRatio - 1)) / root : 0) - 1;
-    let next = slope < 0 ? gap - residual / slope : Number.NaN;
-    if (!(next > low && next < high)) next = high < Number.POSITIVE_INFINITY ? (low + high) / 2 : 2 * gap;
-    if (Math.abs(next - gap) <= GAP_TOLERANCE * next) return next;
-    gap = next;
-  }
-  return gap;
+    newtonStep.residual = gap + reluctanceLength - numerator * (f > 1 ? f : 1);
+    newtonStep.slope = 1 - (f > 1 ? (numerator * (logRatio - 1)) / root : 0);
+  });
 }
 
 /** Turns for a given gap with fringing: N = sqrt(L·(lg + le/μr)/(μ0·Ae·F)), rounded up. */
@@ -139,27 +152,17 @@ export function spacerForInductance(turns: number, inductance: number, g: GapGeo
   const rootCentre = Math.sqrt(g.area);
   const rootOuter = Math.sqrt(outer);
   const twiceWindow = 2 * g.windowHeight;
-  let low = unfringed;
-  let high = Number.POSITIVE_INFINITY;
-  let t = unfringed;
-  for (let step = 0; step < MAX_NEWTON_STEPS; step++) {
+  return rootOfRising(unfringed, (t) => {
     const logRatio = Math.log(twiceWindow / t);
     const fc = 1 + (t / rootCentre) * logRatio;
     const fo = 1 + (t / rootOuter) * logRatio;
     const centre = fc > 1 ? fc : 1;
     const outerF = fo > 1 ? fo : 1;
-    const residual = core + t / (g.area * centre) + t / (outer * outerF) - target;
-    if (residual < 0) low = t;
-    else high = t;
+    newtonStep.residual = core + t / (g.area * centre) + t / (outer * outerF) - target;
     const dCentre = fc > 1 ? (centre - (t * (logRatio - 1)) / rootCentre) / (g.area * centre * centre) : 1 / g.area;
     const dOuter = fo > 1 ? (outerF - (t * (logRatio - 1)) / rootOuter) / (outer * outerF * outerF) : 1 / outer;
-    const slope = dCentre + dOuter;
-    let next = slope > 0 ? t - residual / slope : Number.NaN;
-    if (!(next > low && next < high)) next = high < Number.POSITIVE_INFINITY ? (low + high) / 2 : 2 * t;
-    if (Math.abs(next - t) <= GAP_TOLERANCE * next) return next;
-    t = next;
-  }
-  return t;
+    newtonStep.slope = dCentre + dOuter;
+  });
 }
 
 /** Turns for a given spacer: N = sqrt(L·ΣR/μ0), rounded up. */
