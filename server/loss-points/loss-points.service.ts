@@ -50,6 +50,7 @@ export class LossPointsService {
     const row = await this.version(id);
     return {
       materialId: row.id,
+      name: row.name,
       version: row.version,
       current: row.current,
       canEdit: recordActions(role, row).canEdit,

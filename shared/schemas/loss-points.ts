@@ -17,6 +17,7 @@ export const lossPointSchema = z.object({
 /** The points of one material version, in file order, and whether the user may replace them or accept a fit. */
 export const lossPointsAnswerSchema = z.object({
   materialId: z.number().int(),
+  name: z.string(),
   version: z.number().int(),
   current: z.boolean(),
   canEdit: z.boolean(),

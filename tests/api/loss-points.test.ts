@@ -139,7 +139,10 @@ describe('a valid loss-point file', () => {
     expect(after['material_loss_points']).toBe(before['material_loss_points']! + 9);
 
     const points = await engineer.get(`/api/materials/${commit.body.materialId}/loss-points`);
-    expect(points.body).toMatchObject({ current: true, canEdit: true, version: commit.body.version });
+    const named = (await engineer.get('/api/materials/library')).body.materials.find(
+      (m: { id: string }) => m.id === String(commit.body.materialId),
+    );
+    expect(points.body).toMatchObject({ current: true, canEdit: true, version: commit.body.version, name: named.name });
     // 50 kHz = 5e4 Hz, 50 mT = 0.05 T (SI prefixes)
     expect(points.body.points[0]).toMatchObject({ frequency: 50e3, peakFlux: 0.05, temperature: 25, source: 'invented bench read-off' });
     const earlier = await engineer.get(`/api/materials/${materialId}/loss-points`);

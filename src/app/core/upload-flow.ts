@@ -22,7 +22,11 @@ export class UploadFlow<P> {
   choose(picker: HTMLInputElement, preview: (file: File) => Observable<UploadStep<P>>, before?: (preview: P) => void): void {
     const file = picker.files?.[0] ?? null;
     picker.value = '';
-    if (!file) return;
+    if (file) this.take(file, preview, before);
+  }
+
+  /** A file made here (typed points, say) rather than chosen, previewed like a chosen one. */
+  take(file: File, preview: (file: File) => Observable<UploadStep<P>>, before?: (preview: P) => void): void {
     this.file.set(file);
     this.preview.set(null);
     this.failure.set(null);

@@ -74,4 +74,39 @@ describe('LossPointUpload', () => {
     await fixture.whenStable();
     expect(committed).toEqual({ materialId: 8, version: 4, pointCount: 3 });
   });
+
+  it('checks typed and pasted points as a file through the same preview, naming rows as a file would', async () => {
+    fixture.componentRef.setInput('points', [{ frequency: 100e3, peakFlux: 0.05, temperature: 25, lossDensity: 20e3 }]);
+    await fixture.whenStable();
+    const cell = (label: string) => page.querySelector<HTMLInputElement>(`input[aria-label="${label}"]`)!;
+    expect(cell('Frequency (kHz), row 2').value).toBe('100');
+
+    const paste = page.querySelector<HTMLTextAreaElement>('textarea[aria-label="Pasted loss-point rows"]')!;
+    paste.value = '200\t50\t25\t-1';
+    paste.dispatchEvent(new Event('input'));
+    await fixture.whenStable();
+    button('Add the pasted rows').click();
+    await fixture.whenStable();
+    expect(cell('Loss density (kW/m³), row 3').value).toBe('-1');
+    expect(page.textContent).toContain('Added 1 pasted row.');
+
+    button('Check these points').click();
+    const preview = http.expectOne('/api/materials/7/loss-points/preview');
+    const sent = (preview.request.body as FormData).get('file') as File;
+    expect(await sent.text()).toBe(
+      'frequency_khz,peak_flux_mt,temperature_c,loss_kw_per_m3,dc_bias_a_per_m,source\n100,50,25,20,,\n200,50,25,-1,,\n',
+    );
+    preview.flush({
+      fileName: 'typed-points.csv',
+      rows: [
+        { row: 2, status: 'ok', problems: [] },
+        { row: 3, status: 'error', problems: [{ column: 'loss_kw_per_m3', message: 'must be above 0 (got -1)' }] },
+      ],
+      fileProblems: [],
+      summary: SUMMARY,
+    });
+    await fixture.whenStable();
+    expect(page.textContent).toContain('Preview of the typed points');
+    expect(page.querySelector('.gw-row-problems tbody')?.textContent).toContain('3loss_kw_per_m3: must be above 0 (got -1)');
+  });
 });

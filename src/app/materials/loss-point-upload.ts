@@ -1,9 +1,12 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input, output } from '@angular/core';
+import type { LossPoint } from '@shared/fitting/loss-points';
 import { MatButtonModule } from '@angular/material/button';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 
 import { UploadFlow } from '../core/upload-flow';
 import { RequestFailureMessage } from '../ui/request-failure';
+import { LossPointEntry } from './loss-point-entry';
+import { TYPED_POINTS_FILE } from './loss-point-rows';
 import { LossPointsApi, type LossPointCommit, type LossPointPreview } from './loss-points-api';
 
 /**
@@ -12,7 +15,7 @@ import { LossPointsApi, type LossPointCommit, type LossPointPreview } from './lo
  */
 @Component({
   selector: 'gw-loss-point-upload',
-  imports: [RequestFailureMessage, MatButtonModule, MatProgressBarModule],
+  imports: [RequestFailureMessage, LossPointEntry, MatButtonModule, MatProgressBarModule],
   templateUrl: './loss-point-upload.html',
   // The shared import flow's layout (actions row, progress label, error list).
   styleUrl: '../core/csv-import.scss',
@@ -21,9 +24,12 @@ import { LossPointsApi, type LossPointCommit, type LossPointPreview } from './lo
 export class LossPointUpload {
   protected readonly api = inject(LossPointsApi);
   readonly materialId = input.required<string>();
+  /** The version's own points, the starting rows of the editable table. */
+  readonly points = input<readonly LossPoint[]>([]);
   readonly committed = output<LossPointCommit>();
 
   protected readonly flow = new UploadFlow<LossPointPreview>();
+  protected readonly typedName = TYPED_POINTS_FILE;
   protected readonly problemRows = computed(() => this.flow.preview()?.rows.filter((r) => r.problems.length) ?? []);
   protected readonly canCommit = computed(() => {
     const p = this.flow.preview();
@@ -32,6 +38,11 @@ export class LossPointUpload {
 
   protected choose(picker: HTMLInputElement): void {
     this.flow.choose(picker, (file) => this.api.preview(this.materialId(), file));
+  }
+
+  /** Typed or pasted points, as the file the entry table made of them. */
+  protected checkEntered(file: File): void {
+    this.flow.take(file, (made) => this.api.preview(this.materialId(), made));
   }
 
   protected commit(): void {

@@ -19,7 +19,9 @@ describe('LossPointsPage', () => {
     // The charts never load here: the chart options have their own spec.
     TestBed.configureTestingModule({ providers: [provideEchartsCore({ echarts: () => new Promise<never>(() => undefined) })] });
     ({ fixture, http, page } = await renderWithHttpTesting(LossPointsPage, { id: '7' }, { settle: false }));
-    http.expectOne('/api/materials/7/loss-points').flush({ materialId: 7, version: 3, current: true, canEdit: true, points: POINTS });
+    http
+      .expectOne('/api/materials/7/loss-points')
+      .flush({ materialId: 7, name: 'Demo ferrite Test (illustrative)', version: 3, current: true, canEdit: true, points: POINTS });
     await fixture.whenStable();
   });
 
@@ -31,6 +33,7 @@ describe('LossPointsPage', () => {
     const navigate = vi.spyOn(TestBed.inject(Router), 'navigate').mockResolvedValue(true);
     expect(page.querySelectorAll('gw-loss-points-table tbody tr')).toHaveLength(3);
     expect(page.textContent).toContain('makes a new version');
+    expect(page.querySelector('.gw-lead')?.textContent).toContain('Version 3 of Demo ferrite Test (illustrative): 3 points');
 
     button('Fit').click();
     const fit = http.expectOne('/api/materials/7/fit');
