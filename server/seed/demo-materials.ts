@@ -1,7 +1,8 @@
 import type { MaterialFamily } from '@shared/engine/types';
 
 /**
- * Invented, illustrative core materials for the demo. They are not any maker's grade: each k is
+ * Invented, illustrative core materials for the demo, named by a colour each so no name echoes a maker's grade or a
+ * permeability designation (migration 0009 renamed the earlier demo rows). They are not any maker's grade: each k is
  * chosen so the material loses a round, plausible amount at one stated point (common practice, no
  * source: MnZn power ferrite loses of order 50–150 kW/m³ at 100 kHz and 0.1 T peak near its
  * loss minimum; powder cores lose more at the same flux), with α and β inside the generic MnZn ranges
@@ -83,11 +84,11 @@ const powder = (grade: Grade, [h50, c]: [number, number], maxTemperature: number
 });
 
 export const DEMO_MATERIALS: readonly DemoMaterial[] = [
-  ferrite(['MF-95', 1.4, 2.65, 80e3, [50e3, 300e3, 0.02, 0.25], [0.5, 0.4], 2300, 4800], [90, 1.0e-4]),
-  ferrite(['MF-140', 1.55, 2.55, 60e3, [100e3, 1e6, 0.01, 0.15], [0.48, 0.38], 1400, 4800], [80, 1.2e-4]),
-  ferrite(['MF-60', 1.25, 2.75, 120e3, [20e3, 150e3, 0.03, 0.3], [0.53, 0.43], 3000, 4850], [100, 0.8e-4]),
-  powder(['P-60', 1.35, 2.0, 300e3, [10e3, 500e3, 0.01, 0.2], [1.0, 0.95], 60, 6000], [8000, 1.8], 155),
-  powder(['P-26', 1.2, 2.1, 800e3, [5e3, 300e3, 0.01, 0.3], [1.2, 1.1], 26, 6500], [16000, 1.6], 130),
+  ferrite(['Amber', 1.4, 2.65, 80e3, [50e3, 300e3, 0.02, 0.25], [0.5, 0.4], 2300, 4800], [90, 1.0e-4]),
+  ferrite(['Teal', 1.55, 2.55, 60e3, [100e3, 1e6, 0.01, 0.15], [0.48, 0.38], 1400, 4800], [80, 1.2e-4]),
+  ferrite(['Slate', 1.25, 2.75, 120e3, [20e3, 150e3, 0.03, 0.3], [0.53, 0.43], 3000, 4850], [100, 0.8e-4]),
+  powder(['Moss', 1.35, 2.0, 300e3, [10e3, 500e3, 0.01, 0.2], [1.0, 0.95], 60, 6000], [8000, 1.8], 155),
+  powder(['Ochre', 1.2, 2.1, 800e3, [5e3, 300e3, 0.01, 0.3], [1.2, 1.1], 26, 6500], [16000, 1.6], 130),
 ];
 
 /** Steinmetz k (W/m³, Hz, T) that makes k·f^α·B̂^β equal the anchor loss. */

@@ -32,7 +32,7 @@ describe('four parallel writes of one thing', () => {
       version: number;
       lineage?: string;
     }[];
-    const target = list.find((m) => m.name.startsWith('Demo ferrite MF-95'))!;
+    const target = list.find((m) => m.name.startsWith('Demo ferrite Amber'))!;
     const answers = await Promise.all([1.41, 1.42, 1.43, 1.44].map((alpha) => engineer.patch(`/api/materials/${target.id}`, { alpha })));
     expect(statuses(answers)).toEqual([201, 409, 409, 409]);
     // An edit that waited for the winner's row lock hears that another version was saved at the same moment;

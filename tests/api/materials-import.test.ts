@@ -255,7 +255,7 @@ interface Listed {
 describe('editing, retiring and roles', () => {
   it('an edit makes a new version and keeps the old row', async () => {
     const list = (await engineer.get('/api/materials/library')).body.materials as { id: number; name: string; version: number }[];
-    const demo = list.find((m) => m.name.startsWith('Demo ferrite MF-95'))!;
+    const demo = list.find((m) => m.name.startsWith('Demo ferrite Amber'))!;
     const res = await engineer.patch(`/api/materials/${demo.id}`, { alpha: 1.45 });
     expect(res.status).toBe(201);
     expect(res.body).toMatchObject({ version: demo.version + 1, alpha: 1.45, current: true });

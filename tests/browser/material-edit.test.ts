@@ -9,7 +9,7 @@ beforeAll(async () => {
 afterAll(() => h?.close());
 
 const engineer = DEMO_USERS.find((u) => u.role === 'engineer')!;
-const MATERIAL = 'Demo ferrite MF-95 (illustrative)';
+const MATERIAL = 'Demo ferrite Amber (illustrative)';
 const ALPHA = 'α, frequency exponent (no unit)';
 const BETA = 'β, flux exponent (no unit)';
 

@@ -18,7 +18,7 @@ describe('material library, comparison and cores', () => {
     await signIn(page, engineer.username, engineer.password);
     await page.goto('/materials');
     await page.getByRole('heading', { name: 'Materials', level: 1 }).waitFor();
-    await page.getByRole('cell', { name: 'Demo ferrite MF-95 (illustrative)', exact: true }).waitFor();
+    await page.getByRole('cell', { name: 'Demo ferrite Amber (illustrative)', exact: true }).waitFor();
     expect(await seriousAxeFindings(page)).toEqual([]);
 
     const template = await page.request.get('/api/materials/template.csv');
@@ -99,7 +99,7 @@ describe('material library, comparison and cores', () => {
     const { context, page } = await h.newPage();
     await signIn(page, engineer.username, engineer.password);
     await page.goto('/materials');
-    await page.getByRole('cell', { name: 'Demo ferrite MF-95 (illustrative)', exact: true }).waitFor();
+    await page.getByRole('cell', { name: 'Demo ferrite Amber (illustrative)', exact: true }).waitFor();
     const header = 'name,family,unit_set,k,alpha,beta,f_min,f_max,b_min,b_max,bsat_25,bsat_100,mu_i,density,provenance';
     const csv = `${header}\nBad one,ferrite,W/m3-Hz-T,-1,0.5,2.6,50000,300000,0.02,0.25,0.5,0.4,2000,4800,test\n`;
     await page
@@ -151,7 +151,7 @@ describe('the new screens in the dark theme (axe)', () => {
     await page.getByRole('button', { name: 'Switch to light theme' }).waitFor();
 
     await page.goto('/materials');
-    await page.getByRole('cell', { name: 'Demo ferrite MF-95 (illustrative)', exact: true }).waitFor();
+    await page.getByRole('cell', { name: 'Demo ferrite Amber (illustrative)', exact: true }).waitFor();
     expect(await seriousAxeFindings(page)).toEqual([]);
 
     await page.goto('/compare');

@@ -34,7 +34,7 @@ export interface CandidateRow {
   fill: number;
   fluxMargin: number;
   marks: CandidateMark[];
-  /** "RM10 · Demo ferrite MF-140 · foil 0.15 mm": a point's name on the chart and in the keyboard list. */
+  /** "RM10 · Demo ferrite Teal · foil 0.15 mm": a point's name on the chart and in the keyboard list. */
   label: string;
   candidate: SearchCandidate;
 }

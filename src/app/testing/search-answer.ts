@@ -40,7 +40,7 @@ const RESULT: SearchCandidate['result'] = {
     areaProductRequired: 8.981e-9,
     geometryConstant: 9.167e-12,
   },
-  material: { id: '2', name: 'Demo ferrite MF-140 (illustrative)', family: 'ferrite' },
+  material: { id: '2', name: 'Demo ferrite Teal (illustrative)', family: 'ferrite' },
   wire: { id: 'foil 0.15 mm', kind: 'foil', strandDiameter: 0.00015, strands: 1, copperArea: 0.000001252, currentDensity: 8014000 },
   turns: 16,
   gap: {

@@ -4,7 +4,7 @@ import { NO_ACTIONS, recordActions } from '../../../server/library/record-action
 
 describe('lineages of new library items', () => {
   it('are the name in lower case with other characters as one hyphen', () => {
-    expect(lineageSlug('Demo ferrite MF-95 (invented)', 'material')).toBe('demo-ferrite-mf-95-invented');
+    expect(lineageSlug('Demo ferrite Amber 2 (invented)', 'material')).toBe('demo-ferrite-amber-2-invented');
     expect(lineageSlug('ÄÖÜ', 'core')).toBe('core');
   });
 
