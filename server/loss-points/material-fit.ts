@@ -184,6 +184,15 @@ export function fitMaterial(points: readonly LossPoint[], options: FitOptions): 
     const fitted = fittedLoss(fits[band]!, p.frequency, p.peakFlux) * factor(p.temperature);
     return { index, band, measured: p.lossDensity, fitted, relativeError: fitted / p.lossDensity - 1 };
   });
+  // The behaviour was fitted against one Steinmetz fit; with bands, its quality is judged against each point's band.
+  if (temperature && behaviour && fits.length > 1) {
+    const found = behaviour;
+    const quality = fitQuality(
+      residuals.map((r) => behaviourFactor(found, points[r.index]!.temperature)),
+      residuals.map((r) => (r.measured * factor(points[r.index]!.temperature)) / r.fitted),
+    );
+    temperature = { ...temperature, ...quality, worstPoint: residuals[quality.worstPoint]!.index };
+  }
   return { options, pointCount: used.length, fits, temperature, residuals, ...lossCurves(points, fits, factor) };
 }
 

@@ -25,7 +25,7 @@ function refused(run: () => unknown, message: RegExp, field?: string): void {
   if (field) expect(error.field).toBe(field);
 }
 
-describe('Steinmetz fit by weighted least squares on ln Pv (log-linear least squares, common practice, no source; power law of C. P. Steinmetz, "On the law of hysteresis", Trans. AIEE 9, 1892)', () => {
+describe('Steinmetz fit by weighted least squares on ln Pv (log-linear least squares: a power law fitted as a straight line in the logarithms, N. R. Draper and H. Smith, Applied Regression Analysis, 3rd ed., Wiley 1998, on transformations, from memory; power law of C. P. Steinmetz, "On the law of hysteresis", Trans. AIEE 9, 1892)', () => {
   it('recovers invented k, α, β to 1e-9 from noiseless points', () => {
     const fit = fitSteinmetz(exactPoints());
     expect(relative(fit.k, K)).toBeLessThan(1e-9);
