@@ -143,10 +143,14 @@ async function componentTests(): Promise<void> {
   totals['component'] = { passed, failed, skipped: Number(/(\d+) skipped/.exec(line)?.[1] ?? 0) };
 }
 
-/** Debian packages the suites drive: Chromium for browser tests, poppler-utils to read and render PDFs. */
+/**
+ * Debian packages the suites drive: Chromium for browser tests, poppler-utils to read and render PDFs, ngspice as the
+ * independent circuit solver the engine's operating point is checked against.
+ */
 const DEBIAN_TOOLS: { binary: string; pkg: string }[] = [
   { binary: '/usr/bin/chromium', pkg: 'chromium' },
   { binary: '/usr/bin/pdftotext', pkg: 'poppler-utils' },
+  { binary: '/usr/bin/ngspice', pkg: 'ngspice' },
 ];
 
 function ensureDebianTools(): void {
@@ -185,7 +189,10 @@ try {
     const suiteStarted = Date.now();
     if (suite === 'types') await typeChecks();
     if (suite === 'lint') await lintChecks();
-    if (suite === 'unit') await vitestProject('unit');
+    if (suite === 'unit') {
+      ensureDebianTools();
+      await vitestProject('unit');
+    }
     if (suite === 'component') await componentTests();
     if (suite === 'api') {
       ensureDebianTools();

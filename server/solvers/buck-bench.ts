@@ -1,0 +1,132 @@
+// A buck converter test bench for ngspice: the inductor (with its winding resistance) between an ideal switching node
+// and an output held at Vout, switched at the duty cycle under test, run from zero current until it has settled. The
+// switches are SPICE voltage-controlled switches: with a synchronous rectifier their on-resistances are the spec's,
+// with a diode the two drops are constant voltage sources in series (the same constant-drop model of the parts the
+// engine assumes, so the bench checks the engine's arithmetic and waveform, not the device models).
+import type { ConverterSpec } from '@shared/engine/inputs';
+import { SolverError, withSolverRun } from './solver-run.ts';
+
+export interface BuckBench {
+  spec: ConverterSpec;
+  vin: number;
+  duty: number;
+  inductance: number;
+}
+
+/** Inductor current over the last switching periods (A): average, highest, lowest, and its change per period. */
+export interface SimulatedCurrent {
+  average: number;
+  peak: number;
+  valley: number;
+  ripple: number;
+  /** Change of the period average from the period before: near zero once settled (A). */
+  drift: number;
+}
+
+/** Time steps per switching period the simulation may take at most. */
+const STEPS_PER_PERIOD = 400;
+/** Settling: this many time constants L/R of the loop from zero current (e^−10 ≈ 5·10⁻⁵ left). */
+const TIME_CONSTANTS = 10;
+/** Periods written out at the end. */
+const PERIODS_KEPT = 2;
+const EDGE = 1e-9;
+
+const num = (x: number) => x.toPrecision(12);
+
+function loopResistance(spec: ConverterSpec, duty: number): number {
+  const winding = spec.inductorResistance ?? 0;
+  if (spec.rectifier !== 'synchronous') return winding;
+  return winding + duty * (spec.highSideResistance ?? 0) + (1 - duty) * (spec.lowSideResistance ?? 0);
+}
+
+/** Whole periods from zero current to steady state (at least 20). */
+export function settlingPeriods(bench: BuckBench): number {
+  const resistance = loopResistance(bench.spec, bench.duty);
+  if (!(resistance > 0)) throw new RangeError('The bench needs some loop resistance (winding or switches) to settle.');
+  return Math.max(20, Math.ceil((TIME_CONSTANTS * bench.inductance * bench.spec.frequency) / resistance));
+}
+
+export function buckBenchNetlist(bench: BuckBench, dataFile: string): string {
+  const { spec, vin, duty, inductance } = bench;
+  const period = 1 / spec.frequency;
+  const periods = settlingPeriods(bench);
+  const synchronous = spec.rectifier === 'synchronous';
+  const diode = spec.rectifier === 'diode';
+  const onResistance = (r: number | undefined) => num(synchronous ? Math.max(r ?? 0, 1e-6) : 1e-6);
+  const width = duty * period - EDGE;
+  return [
+    '* Gapwright buck test bench (generated)',
+    `Vin in 0 DC ${num(vin)}`,
+    'S1 in hs drive 0 high',
+    `Vswitch hs sw DC ${num(diode ? (spec.switchDrop ?? 0) : 0)}`,
+    'S2 sw ls driveb 0 low',
+    `Vfreewheel ls 0 DC ${num(diode ? -(spec.diodeDrop ?? 0) : 0)}`,
+    'Vsense sw lx DC 0',
+    `L1 lx ly ${num(inductance)} IC=0`,
+    `RL ly out ${num(Math.max(spec.inductorResistance ?? 0, 1e-9))}`,
+    `Vout out 0 DC ${num(spec.vout)}`,
+    `Vdrive drive 0 PULSE(0 1 0 ${EDGE} ${EDGE} ${num(width)} ${num(period)})`,
+    `Vdriveb driveb 0 PULSE(1 0 0 ${EDGE} ${EDGE} ${num(width)} ${num(period)})`,
+    `.model high SW(Ron=${onResistance(spec.highSideResistance)} Roff=1e7 Vt=0.5 Vh=0)`,
+    `.model low SW(Ron=${onResistance(spec.lowSideResistance)} Roff=1e7 Vt=0.5 Vh=0)`,
+    `.tran ${num(period / STEPS_PER_PERIOD)} ${num(periods * period)} ${num((periods - PERIODS_KEPT) * period)} ${num(period / STEPS_PER_PERIOD)} UIC`,
+    '.control',
+    'set wr_singlescale',
+    'set filetype=ascii',
+    'run',
+    `wrdata ${dataFile} i(Vsense)`,
+    'quit 0',
+    '.endc',
+    '.end',
+    '',
+  ].join('\n');
+}
+
+/** Trapezoidal average of i(t) over [from, to) from the solver's (non-uniform) time points. */
+function averageOver(times: number[], values: number[], from: number, to: number): number {
+  let area = 0;
+  for (let i = 1; i < times.length; i++) {
+    const t0 = Math.max(times[i - 1]!, from);
+    const t1 = Math.min(times[i]!, to);
+    if (t1 <= t0) continue;
+    const at = (t: number) => values[i - 1]! + ((values[i]! - values[i - 1]!) * (t - times[i - 1]!)) / (times[i]! - times[i - 1]!);
+    area += ((at(t0) + at(t1)) / 2) * (t1 - t0);
+  }
+  return area / (to - from);
+}
+
+export function readSimulatedCurrent(data: string, frequency: number): SimulatedCurrent {
+  const times: number[] = [];
+  const values: number[] = [];
+  for (const line of data.split('\n')) {
+    const cells = line.trim().split(/\s+/).map(Number);
+    if (cells.length >= 2 && cells.every(Number.isFinite)) {
+      times.push(cells[0]!);
+      values.push(cells[1]!);
+    }
+  }
+  if (times.length < 10) throw new SolverError('ngspice wrote too few points of the inductor current', data.slice(0, 500));
+  const end = times.at(-1)!;
+  const period = 1 / frequency;
+  const last = times.map((t, i) => (t >= end - period ? values[i]! : Number.NaN)).filter(Number.isFinite);
+  const average = averageOver(times, values, end - period, end);
+  const before = averageOver(times, values, end - 2 * period, end - period);
+  const peak = Math.max(...last);
+  const valley = Math.min(...last);
+  return { average, peak, valley, ripple: peak - valley, drift: average - before };
+}
+
+/** Runs the bench in ngspice (its .control block, no terminal) and reads the inductor current of the last period. */
+export async function simulateBuck(bench: BuckBench, timeoutMs = 60_000): Promise<SimulatedCurrent> {
+  return withSolverRun(
+    {
+      program: 'ngspice',
+      files: { 'bench.cir': buckBenchNetlist(bench, '{folder}/current.txt') },
+      // Interactive mode reading the file's .control block (batch mode would also want .print lines), ended by quit.
+      args: ['{folder}/bench.cir'],
+      timeoutMs,
+      errorLine: /^\s*(error|fatal)\b/i,
+    },
+    async (run) => readSimulatedCurrent(await run.read('current.txt'), bench.spec.frequency),
+  );
+}
