@@ -145,12 +145,14 @@ async function componentTests(): Promise<void> {
 
 /**
  * Debian packages the suites drive: Chromium for browser tests, poppler-utils to read and render PDFs, ngspice as the
- * independent circuit solver the engine's operating point is checked against.
+ * independent circuit solver the engine's operating point is checked against, gmsh and GetDP for the 2D field model.
  */
 const DEBIAN_TOOLS: { binary: string; pkg: string }[] = [
   { binary: '/usr/bin/chromium', pkg: 'chromium' },
   { binary: '/usr/bin/pdftotext', pkg: 'poppler-utils' },
   { binary: '/usr/bin/ngspice', pkg: 'ngspice' },
+  { binary: '/usr/bin/gmsh', pkg: 'gmsh' },
+  { binary: '/usr/bin/getdp', pkg: 'getdp' },
 ];
 
 function ensureDebianTools(): void {

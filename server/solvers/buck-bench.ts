@@ -4,7 +4,7 @@
 // with a diode the two drops are constant voltage sources in series (the same constant-drop model of the parts the
 // engine assumes, so the bench checks the engine's arithmetic and waveform, not the device models).
 import type { ConverterSpec } from '@shared/engine/inputs';
-import { SolverError, withSolverRun } from './solver-run.ts';
+import { SolverError, withSolverFolder } from './solver-run.ts';
 
 export interface BuckBench {
   spec: ConverterSpec;
@@ -118,15 +118,9 @@ export function readSimulatedCurrent(data: string, frequency: number): Simulated
 
 /** Runs the bench in ngspice (its .control block, no terminal) and reads the inductor current of the last period. */
 export async function simulateBuck(bench: BuckBench, timeoutMs = 60_000): Promise<SimulatedCurrent> {
-  return withSolverRun(
-    {
-      program: 'ngspice',
-      files: { 'bench.cir': buckBenchNetlist(bench, '{folder}/current.txt') },
-      // Interactive mode reading the file's .control block (batch mode would also want .print lines), ended by quit.
-      args: ['{folder}/bench.cir'],
-      timeoutMs,
-      errorLine: /^\s*(error|fatal)\b/i,
-    },
-    async (run) => readSimulatedCurrent(await run.read('current.txt'), bench.spec.frequency),
-  );
+  return withSolverFolder({ 'bench.cir': buckBenchNetlist(bench, '{folder}/current.txt') }, async (folder) => {
+    // Interactive mode reading the file's .control block (batch mode would also want .print lines), ended by quit.
+    await folder.run({ program: 'ngspice', args: ['{folder}/bench.cir'], timeoutMs, errorLine: /^\s*(error|fatal)\b/i });
+    return readSimulatedCurrent(await folder.read('current.txt'), bench.spec.frequency);
+  });
 }

@@ -1,6 +1,6 @@
-// Runs one external solver (ngspice, later gmsh and GetDP) in a folder of its own with absolute paths, so runs can go
-// in parallel, under a time limit; a non-zero exit or an error line in its log is a failure with the reason in plain
-// words. The folder is removed afterwards unless asked to keep it.
+// Runs external solvers (ngspice, gmsh, GetDP) in a folder of their own with absolute paths, so runs can go in
+// parallel, each program under a time limit; a non-zero exit or an error line in its log is a failure with the
+// reason in plain words (a gmsh geometry error, for one, does not stop meshing). The folder is removed afterwards.
 import { spawn } from 'node:child_process';
 import { mkdtemp, readFile, rm, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
@@ -16,18 +16,8 @@ export class SolverError extends Error {
   }
 }
 
-export interface SolverRun {
-  /** The run's own folder (absolute). */
-  folder: string;
-  /** Reads a file the solver wrote in the run's folder. */
-  read(name: string): Promise<string>;
-  log: string;
-}
-
-export interface SolverCall {
+export interface ProgramCall {
   program: string;
-  /** Input files by name, written into the run's folder before the program starts; `{folder}` in them as in args. */
-  files: Record<string, string>;
   /** Arguments; `{folder}` is replaced by the run's absolute folder. */
   args: string[];
   timeoutMs: number;
@@ -35,20 +25,34 @@ export interface SolverCall {
   errorLine: RegExp;
 }
 
-/** Runs the program, then `use` on its outputs; the folder is removed afterwards. */
-export async function withSolverRun<T>(call: SolverCall, use: (run: SolverRun) => Promise<T>): Promise<T> {
-  const folder = await mkdtemp(path.join(tmpdir(), `gapwright-${path.basename(call.program)}-`));
+/** A run's own folder: files the programs wrote, and the programs themselves. */
+export interface SolverFolder {
+  /** Absolute path. */
+  path: string;
+  read(name: string): Promise<string>;
+  /** Runs one program in the folder; resolves with its log, or rejects with a SolverError saying why. */
+  run(call: ProgramCall): Promise<string>;
+}
+
+/**
+ * Writes the input files (`{folder}` in them replaced by the folder's absolute path) into a fresh folder, hands it to
+ * `use`, and removes it afterwards whatever happened.
+ */
+export async function withSolverFolder<T>(files: Record<string, string>, use: (folder: SolverFolder) => Promise<T>): Promise<T> {
+  const folder = await mkdtemp(path.join(tmpdir(), 'gapwright-solver-'));
+  const expand = (text: string) => text.replaceAll('{folder}', folder);
   try {
-    for (const [name, text] of Object.entries(call.files)) await writeFile(path.join(folder, name), text.replaceAll('{folder}', folder));
-    const log = await runProgram(
-      call.program,
-      call.args.map((a) => a.replaceAll('{folder}', folder)),
-      folder,
-      call.timeoutMs,
-    );
-    const errors = log.split('\n').filter((line) => call.errorLine.test(line));
-    if (errors.length) throw new SolverError(`${call.program} reported: ${errors.slice(0, 3).join(' | ')}`, log);
-    return await use({ folder, log, read: (name) => readFile(path.join(folder, name), 'utf8') });
+    for (const [name, text] of Object.entries(files)) await writeFile(path.join(folder, name), expand(text));
+    return await use({
+      path: folder,
+      read: (name) => readFile(path.join(folder, name), 'utf8'),
+      run: async (call) => {
+        const log = await runProgram(call.program, call.args.map(expand), folder, call.timeoutMs);
+        const errors = log.split('\n').filter((line) => call.errorLine.test(line));
+        if (errors.length) throw new SolverError(`${call.program} reported: ${errors.slice(0, 3).join(' | ')}`, log);
+        return log;
+      },
+    });
   } finally {
     await rm(folder, { recursive: true, force: true });
   }
