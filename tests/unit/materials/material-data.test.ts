@@ -1,24 +1,11 @@
 import { describe, expect, it } from 'vitest';
 import type { CoreMaterial } from '@shared/engine/types';
 import { lowestLossTemperature, storedFitQuality } from '../../../server/materials/material-data.ts';
+import { ferriteA } from '../engine/fixtures';
 
-// An invented material: Pv = 2·f^1.5·B̂^2.5 W/m³ (round numbers for hand checks).
-const MATERIAL: CoreMaterial = {
-  id: '1',
-  name: 'Invented',
-  family: 'ferrite',
-  k: 2,
-  alpha: 1.5,
-  beta: 2.5,
-  fitFrequencyMin: 1e4,
-  fitFrequencyMax: 1e6,
-  fitFluxMin: 0.01,
-  fitFluxMax: 0.3,
-  bsat25: 0.5,
-  bsat100: 0.4,
-  permeability: 2000,
-  density: 4800,
-};
+// ferriteA (invented) without its temperature factor and with round coefficients: Pv = 2·f^1.5·B̂^2.5 W/m³.
+const { tempCoefficients: _factor, ...plain } = ferriteA;
+const MATERIAL: CoreMaterial = { ...plain, k: 2, alpha: 1.5, beta: 2.5 };
 
 describe('lowestLossTemperature', () => {
   it('is the minimum of the parabola ct2·T² − ct1·T + ct0, at ct1/(2·ct2) (calculus)', () => {
