@@ -152,7 +152,7 @@ describe('MaterialCompare', () => {
     await fixture.whenStable();
     const [byFrequency] = charts();
     expect(byFrequency!.series.filter((s) => s.type === 'scatter').map((s) => s.id)).toEqual(['measured-1']);
-    expect(page.querySelector('figcaption')?.textContent).toContain('1 measured points at B̂ = 100 mT');
+    expect(page.querySelector('figcaption')?.textContent).toContain('1 measured point at B̂ = 100 mT');
 
     await choose('Design to mark', 'GW-0005 · Sample rail');
     const detail = designDetail();
