@@ -1,8 +1,10 @@
 import {
+  coreLossTemperatureFactor,
   ENGINE_VERSION,
   fitRangeCheck,
   igseTriangleLoss,
   steinmetzLoss,
+  TEMPERATURE_FACTOR_FLOOR,
   type ConverterSpec,
   type DesignLimits,
 } from '@shared/engine/index';
@@ -28,13 +30,19 @@ export function logSpace(min: number, max: number, points: number): number[] {
   return Array.from({ length: points }, (_, i) => (i === points - 1 ? max : min * Math.exp(ratio * i)));
 }
 
-function lossPoint(material: CoreMaterial, x: number, frequency: number, deltaB: number, duty: number): CurvePoint {
+/** The material's temperature factor at `temperature` as the engine applies it (floored); 1 without a temperature. */
+function temperatureFactor(material: CoreMaterial, temperature: number | undefined): number {
+  if (temperature === undefined) return 1;
+  return Math.max(coreLossTemperatureFactor(material.tempCoefficients, temperature), TEMPERATURE_FACTOR_FLOOR);
+}
+
+function lossPoint(material: CoreMaterial, x: number, frequency: number, deltaB: number, duty: number, factor: number): CurvePoint {
   const peak = deltaB / 2;
   const fit = fitRangeCheck(material, frequency, peak);
   return {
     x,
-    steinmetz: steinmetzLoss(material, frequency, peak),
-    igse: igseTriangleLoss(material, frequency, deltaB, duty),
+    steinmetz: steinmetzLoss(material, frequency, peak) * factor,
+    igse: igseTriangleLoss(material, frequency, deltaB, duty) * factor,
     extrapolated: !fit.frequencyInRange || !fit.fluxInRange,
   };
 }
@@ -83,16 +91,18 @@ export class CompareService {
       deltaB: request.deltaB,
       frequency: request.frequency,
       duty: request.duty,
+      temperature: request.temperature ?? null,
       materials: rows.map((row) => {
         const material = toCoreMaterial(row);
+        const factor = temperatureFactor(material, request.temperature);
         return {
           id: material.id,
           name: material.name,
           family: material.family,
           version: row.version,
           fit: { frequencyMin: row.fitFrequencyMin, frequencyMax: row.fitFrequencyMax, fluxMin: row.fitFluxMin, fluxMax: row.fitFluxMax },
-          versusFrequency: frequencies.map((f) => lossPoint(material, f, f, request.deltaB, request.duty)),
-          versusFlux: swings.map((swing) => lossPoint(material, swing, request.frequency, swing, request.duty)),
+          versusFrequency: frequencies.map((f) => lossPoint(material, f, f, request.deltaB, request.duty, factor)),
+          versusFlux: swings.map((swing) => lossPoint(material, swing, request.frequency, swing, request.duty, factor)),
         };
       }),
     };

@@ -4,6 +4,8 @@ import type { Db, Tx } from '../db/client.ts';
 import { materialLossPoints } from '../db/schema.ts';
 
 type PointRow = typeof materialLossPoints.$inferSelect;
+/** What a point measured, without its bias and source. */
+export type Measured = Pick<LossPoint, 'frequency' | 'peakFlux' | 'temperature' | 'lossDensity'>;
 
 function toPoint(row: PointRow): LossPoint {
   return {
@@ -27,6 +29,32 @@ export class LossPointsRepository {
       .where(eq(materialLossPoints.materialId, materialId))
       .orderBy(asc(materialLossPoints.position));
     return rows.map(toPoint);
+  }
+
+  /**
+   * The measured values of the points of many versions, by version, in one statement (the library lists them all);
+   * versions without points are absent.
+   */
+  async measuredOf(materialIds: readonly number[]): Promise<Map<number, Measured[]>> {
+    const byVersion = new Map<number, Measured[]>();
+    if (!materialIds.length) return byVersion;
+    const t = materialLossPoints;
+    const rows = await this.db
+      .select({
+        materialId: t.materialId,
+        frequency: t.frequency,
+        peakFlux: t.peakFlux,
+        temperature: t.temperature,
+        lossDensity: t.lossDensity,
+      })
+      .from(t)
+      .where(sql`${t.materialId} = any(${sql.param([...materialIds])}::integer[])`);
+    for (const { materialId, ...point } of rows) {
+      const list = byVersion.get(materialId);
+      if (list) list.push(point);
+      else byVersion.set(materialId, [point]);
+    }
+    return byVersion;
   }
 
   /**

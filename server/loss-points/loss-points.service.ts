@@ -10,7 +10,7 @@ import { badRequest, notFound } from '../http/errors.ts';
 import type { SearchPool } from '../calc/search-pool.ts';
 import { recordActions } from '../library/record-actions.ts';
 import type { MaterialRow } from '../materials/materials.repository.ts';
-import { materialDetail, valuesOf, type MaterialsService } from '../materials/materials.service.ts';
+import { valuesOf, type MaterialsService } from '../materials/materials.service.ts';
 import { lossPointFileErrors, lossPointTemplate, readLossPointFile } from './loss-point-csv.ts';
 import type { LossPointsRepository } from './loss-points.repository.ts';
 import type { MaterialFit } from './material-fit.ts';
@@ -123,8 +123,9 @@ export class LossPointsService {
         };
       },
     });
+    const [material] = await this.materials.details([{ ...inserted, createdByName: actor.displayName }], actor.role);
     return {
-      material: materialDetail({ ...inserted, createdByName: actor.displayName }, actor.role),
+      material: material!,
       fit: { materialId: id, ...fit },
       band,
     };

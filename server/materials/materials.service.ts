@@ -1,5 +1,5 @@
 import type { Role } from '@shared/schemas/auth';
-import type { LibraryMaterial } from '@shared/schemas/material-answers';
+import type { LibraryMaterial, MaterialData } from '@shared/schemas/material-answers';
 import type { MaterialCsvColumn } from '@shared/schemas/material-csv';
 import type { MaterialEdit } from '@shared/schemas/material-requests';
 import { materialCellsFromValues, validateMaterialCells, type MaterialValues } from '@shared/schemas/material-values';
@@ -14,6 +14,7 @@ import { recordActions } from '../library/record-actions.ts';
 import type { WithAuthor } from '../library/version-store.ts';
 import { VersionedLibrary } from '../library/versioned-library.ts';
 import { MATERIAL_TABLE, stringifyMaterialCsv } from './material-csv.ts';
+import { materialData } from './material-data.ts';
 import { TEMPLATE_ROWS } from './material-template.ts';
 import { toMaterialSummary } from './material-view.ts';
 import type { MaterialRow, MaterialsRepository } from './materials.repository.ts';
@@ -25,12 +26,13 @@ export function valuesOf(row: MaterialRow): MaterialValues {
 }
 
 /** A stored version as the library answers it, with what a user of `role` may do with it. */
-export function materialDetail(row: WithAuthor<MaterialRow>, role: Role): LibraryMaterial {
+export function materialDetail(row: WithAuthor<MaterialRow>, role: Role, data: MaterialData): LibraryMaterial {
   return {
     ...toMaterialSummary(row),
     current: row.current,
     createdBy: row.createdByName,
     cells: materialCellsFromValues(valuesOf(row)),
+    ...data,
     ...recordActions(role, row),
   };
 }
@@ -55,13 +57,19 @@ export class MaterialsService {
     });
   }
 
+  /** Versions as the library answers them, with their loss-point figures read for all of them at once. */
+  async details(rows: readonly WithAuthor<MaterialRow>[], role: Role): Promise<LibraryMaterial[]> {
+    const data = await materialData(this.lossPoints, rows);
+    return rows.map((row) => materialDetail(row, role, data.get(row.id)!));
+  }
+
   async list(role: Role) {
-    const materials = (await this.repo.versions.listCurrentWithAuthors()).map((row) => materialDetail(row, role));
+    const materials = await this.details(await this.repo.versions.listCurrentWithAuthors(), role);
     return { materials, canImport: may(role, 'upload') };
   }
 
   async history(id: number, role: Role) {
-    return (await this.library.history(id)).map((row) => materialDetail(row, role));
+    return this.details(await this.library.history(id), role);
   }
 
   async imports() {
@@ -133,11 +141,13 @@ export class MaterialsService {
       // The loss points stay with the material: the new version carries a copy of the edited one's.
       { within: (tx, inserted, previous) => this.lossPoints.copy(tx, previous.id, inserted.id) },
     );
-    return materialDetail({ ...inserted, createdByName: actor.displayName }, actor.role);
+    const [detail] = await this.details([{ ...inserted, createdByName: actor.displayName }], actor.role);
+    return detail!;
   }
 
   async setRetired(id: number, retired: boolean, actor: Actor) {
     const row = await this.library.setRetired(id, retired, actor);
-    return materialDetail({ ...row, createdByName: null }, actor.role);
+    const [detail] = await this.details([{ ...row, createdByName: null }], actor.role);
+    return detail!;
   }
 }

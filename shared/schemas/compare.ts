@@ -19,13 +19,21 @@ export const sweepRangeSchema = (field: string, min: number, max: number, unit: 
     .strict()
     .refine((r) => r.min < r.max, { path: ['min'], message: `${field}.min must be below ${field}.max` });
 
-/** Limits (SI) of the flux swing and frequency of the loss curves; the Compare page's fields use them too. */
-export const CURVE_LIMITS = { deltaB: { min: 1e-4, max: 2 }, frequency: { min: 1e3, max: 10e6 } } as const;
+/**
+ * Limits (SI, temperature in °C) of the flux swing, frequency and core temperature of the loss curves, and how many
+ * materials one drawing takes; the Compare page's fields use them too.
+ */
+export const CURVE_LIMITS = {
+  deltaB: { min: 1e-4, max: 2 },
+  frequency: { min: 1e3, max: 10e6 },
+  temperature: { min: -60, max: 250 },
+  materials: 12,
+} as const;
 const { deltaB: DELTA_B, frequency: FREQUENCY } = CURVE_LIMITS;
 
 export const compareCurvesRequestSchema = z
   .object({
-    materialIds: uniqueListSchema(materialIdSchema, 12, 'materialIds', 1),
+    materialIds: uniqueListSchema(materialIdSchema, CURVE_LIMITS.materials, 'materialIds', 1),
     deltaB: range('deltaB', DELTA_B.min, DELTA_B.max, 'T')
       .default(0.2)
       .meta({ description: 'Peak-to-peak flux swing of the frequency sweep (T)' }),
@@ -36,6 +44,10 @@ export const compareCurvesRequestSchema = z
       .gt(0, { error: 'duty must be between 0 and 1 (exclusive)' })
       .lt(1, { error: 'duty must be between 0 and 1 (exclusive)' })
       .default(0.5),
+    temperature: range('temperature', CURVE_LIMITS.temperature.min, CURVE_LIMITS.temperature.max, '°C').optional().meta({
+      description:
+        "Core temperature (°C): each loss times the material's temperature factor there, as the engine does; without it, the loss at each material's reference temperature (factor 1)",
+    }),
     frequencyRange: sweepRangeSchema('frequencyRange', FREQUENCY.min, FREQUENCY.max, 'Hz').default({ min: 10e3, max: 2e6 }),
     fluxRange: sweepRangeSchema('fluxRange', DELTA_B.min, DELTA_B.max, 'T').default({ min: 0.01, max: 0.6 }),
     points: z
@@ -70,6 +82,7 @@ export const compareCurvesResponseSchema = z.object({
   deltaB: z.number(),
   frequency: z.number(),
   duty: z.number(),
+  temperature: z.number().nullable().meta({ description: 'The core temperature the curves are at (°C), null when none was given' }),
   materials: z.array(materialCurvesSchema),
 });
 export type CompareCurvesResponse = z.infer<typeof compareCurvesResponseSchema>;

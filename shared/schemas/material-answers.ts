@@ -41,9 +41,30 @@ export const materialSummarySchema = coreMaterialSchema.extend({
 export type MaterialSummary = z.infer<typeof materialSummarySchema>;
 export const materialListResponseSchema = z.object({ materials: z.array(materialSummarySchema) });
 
+/** What the library shows of a version's loss points and temperature behaviour (figures, not cells). */
+export const materialDataSchema = z.object({
+  lossPointCount: z.number().int().meta({ description: 'Loss points stored with this version' }),
+  fitQuality: z
+    .object({
+      rmsRelativeError: z.number(),
+      worstRelativeError: z.number().meta({ description: 'Largest |engine loss / measured − 1| over the points' }),
+      pointCount: z.number().int(),
+    })
+    .nullable()
+    .meta({
+      description:
+        "The stored k, α, β and temperature factor against the version's own points, as the engine computes loss; null without points",
+    }),
+  lowestLossTemperature: z
+    .number()
+    .nullable()
+    .meta({ description: 'Temperature of lowest core loss (°C); null without a temperature behaviour that has one' }),
+});
+export type MaterialData = z.infer<typeof materialDataSchema>;
+
 /**
- * A material as the library lists it (GET /api/materials/library, history, edits): with author, its CSV cells
- * and what the signed-in user may do with it.
+ * A material as the library lists it (GET /api/materials/library, history, edits): with author, its CSV cells,
+ * its loss-point figures and what the signed-in user may do with it.
  */
 export const libraryMaterialSchema = materialSummarySchema
   .extend({
@@ -51,6 +72,7 @@ export const libraryMaterialSchema = materialSummarySchema
     createdBy: z.string().nullable(),
     cells: z.record(z.enum(MATERIAL_CSV_COLUMNS), z.string()),
   })
+  .extend(materialDataSchema.shape)
   .extend(recordActionsSchema.shape);
 export type LibraryMaterial = z.infer<typeof libraryMaterialSchema>;
 /** The library, and whether the signed-in user may upload material files. */

@@ -67,6 +67,28 @@ describe('POST /api/compare/curves', () => {
     expect(curves.fit).toEqual({ frequencyMin: 50000, frequencyMax: 300000, fluxMin: 0.02, fluxMax: 0.2 });
   });
 
+  it('puts the curves at a core temperature with the material’s temperature factor, as the engine does', async () => {
+    const library = await engineer.get('/api/materials/library');
+    const ferrite = (library.body.materials as { id: string; tempCoefficients?: { ct0: number; ct1: number; ct2: number } }[]).find(
+      (m) => m.tempCoefficients,
+    )!;
+    const body = { materialIds: [ferrite.id], points: 5 };
+    const plain = await engineer.post('/api/compare/curves', body);
+    const hot = await engineer.post('/api/compare/curves', { ...body, temperature: 40 });
+    expect(hot.status).toBe(200);
+    expect(plain.body.temperature).toBeNull();
+    expect(hot.body.temperature).toBe(40);
+    // The factor ct2·T² − ct1·T + ct0 at 40 °C, by hand from the listed (referred) coefficients.
+    const { ct0, ct1, ct2 } = ferrite.tempCoefficients!;
+    const factor = ct2 * 40 ** 2 - ct1 * 40 + ct0;
+    expect(factor).toBeGreaterThan(1);
+    const [before, after] = [plain.body.materials[0].versusFrequency[2], hot.body.materials[0].versusFrequency[2]];
+    expect(after.igse / before.igse).toBeCloseTo(factor, 12);
+    expect(after.steinmetz / before.steinmetz).toBeCloseTo(factor, 12);
+    const refused = await engineer.post('/api/compare/curves', { ...body, temperature: 400 });
+    expect(refused.body.error.fields.temperature).toMatch(/between -60 and 250/);
+  });
+
   it('names the field of a bad request', async () => {
     const empty = await engineer.post('/api/compare/curves', { materialIds: [] });
     expect(empty.status).toBe(400);

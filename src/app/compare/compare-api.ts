@@ -19,6 +19,8 @@ export interface CurvesRequest {
   deltaB: number;
   frequency: number;
   duty: number;
+  /** Core temperature (°C). */
+  temperature: number;
 }
 
 /** A design typed in on the Compare page: the request's own schema type, every current material. */

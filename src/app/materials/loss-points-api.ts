@@ -30,6 +30,11 @@ export class LossPointsApi {
     });
   }
 
+  /** The points of one version, once (the Compare page draws them); the caller decides what a failure shows. */
+  points(id: string): Observable<LossPointsAnswer> {
+    return this.api.call(lossPoints, { params: { id } }, errorsShownByCaller());
+  }
+
   /** Every row of a loss-point file with its problems by column; nothing written. */
   preview(id: string, file: File): Observable<UploadStep<LossPointPreview>> {
     return this.upload(previewLossPoints, id, file);

@@ -1,11 +1,13 @@
-import { DatePipe, DecimalPipe } from '@angular/common';
+import { DatePipe, DecimalPipe, DOCUMENT, PercentPipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatDialog } from '@angular/material/dialog';
 import { MatExpansionModule } from '@angular/material/expansion';
 import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
+import { MatMenuModule } from '@angular/material/menu';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSortModule } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
@@ -15,10 +17,33 @@ import { Notifier } from '../core/notifier';
 import { LibraryTable } from '../library/library-table';
 import { RecordActions } from '../library/record-actions';
 import { VersionHistory } from '../library/version-history';
+import { QuantityPipe } from '../units/quantity';
+import { ColumnChoice, localStorageOf, type ChoosableColumn } from './column-choice';
 import { FittedRange } from './fitted-range';
 import { MaterialEdit } from './material-edit';
 import { MaterialUpload } from './material-upload';
 import { MaterialsApi, type CommitResult, type LibraryMaterial } from './materials-api';
+
+/** The library's optional columns in table order; name, selection and actions are always shown. */
+export const MATERIAL_COLUMNS: readonly ChoosableColumn[] = [
+  { id: 'version', label: 'Version', shown: true },
+  { id: 'family', label: 'Family', shown: true },
+  { id: 'bsat25', label: 'Bsat at 25 °C', shown: true },
+  { id: 'bsat100', label: 'Bsat at 100 °C', shown: true },
+  { id: 'permeability', label: 'μi', shown: true },
+  { id: 'lowestLoss', label: 'Temperature of lowest loss', shown: true },
+  { id: 'frequencyRange', label: 'Fitted frequency range', shown: true },
+  { id: 'fluxRange', label: 'Fitted flux range', shown: true },
+  { id: 'lossPoints', label: 'Loss points', shown: true },
+  { id: 'fitQuality', label: 'Fit quality', shown: true },
+  { id: 'steinmetz', label: 'k · α · β', shown: true },
+  { id: 'provenance', label: 'Provenance', shown: false },
+  { id: 'createdBy', label: 'Added by', shown: false },
+  { id: 'createdAt', label: 'Added', shown: false },
+  { id: 'state', label: 'State', shown: true },
+];
+/** Where the choice of columns is kept in the browser. */
+export const MATERIAL_COLUMNS_KEY = 'gapwright.material-library.columns';
 
 @Component({
   selector: 'gw-material-library',
@@ -31,11 +56,15 @@ import { MaterialsApi, type CommitResult, type LibraryMaterial } from './materia
     MatCheckboxModule,
     MatExpansionModule,
     MatFormFieldModule,
+    MatIconModule,
     MatInputModule,
+    MatMenuModule,
     MatProgressBarModule,
     MatSortModule,
     MatTableModule,
     MaterialUpload,
+    PercentPipe,
+    QuantityPipe,
     RecordActions,
     RouterLink,
     VersionHistory,
@@ -54,19 +83,8 @@ export class MaterialLibrary {
   protected readonly materials = computed(() => (this.library.hasValue() ? this.library.value().materials : []));
   protected readonly canImport = computed(() => this.library.hasValue() && this.library.value().canImport);
   protected readonly imports = this.api.importsResource();
-  protected readonly columns = [
-    'select',
-    'name',
-    'family',
-    'version',
-    'steinmetz',
-    'fit',
-    'provenance',
-    'createdBy',
-    'createdAt',
-    'state',
-    'actions',
-  ];
+  protected readonly columnChoice = new ColumnChoice(MATERIAL_COLUMNS, MATERIAL_COLUMNS_KEY, localStorageOf(inject(DOCUMENT).defaultView));
+  protected readonly columns = computed(() => this.columnChoice.displayed(['select', 'name'], ['actions']));
   protected readonly historyColumns = ['steinmetz', 'fit', 'provenance'];
   protected readonly history = signal<{ lineage: string; name: string; versions: LibraryMaterial[] } | null>(null);
   protected readonly importColumns = ['uploadedAt', 'fileName', 'uploadedBy', 'counts'];
@@ -87,8 +105,17 @@ export class MaterialLibrary {
     switch (column) {
       case 'steinmetz':
         return m.alpha;
-      case 'fit':
+      case 'frequencyRange':
         return m.fitFrequencyMin;
+      case 'fluxRange':
+        return m.fitFluxMin;
+      // Versions without the figure sort after every one with it.
+      case 'lowestLoss':
+        return m.lowestLossTemperature ?? Number.MAX_VALUE;
+      case 'lossPoints':
+        return m.lossPointCount;
+      case 'fitQuality':
+        return m.fitQuality?.worstRelativeError ?? Number.MAX_VALUE;
       case 'state':
         return m.retired ? 1 : 0;
       default:

@@ -33,6 +33,9 @@ export function libraryMaterial(overrides: Partial<LibraryMaterial> = {}): Libra
     provenance: 'invented for a test',
     createdAt: '2026-03-01T10:00:00.000Z',
     createdBy: 'Erin Calder',
+    lossPointCount: 0,
+    fitQuality: null,
+    lowestLossTemperature: null,
     cells: {
       name: 'Test ferrite TF-1 (invented)',
       family: 'ferrite',

@@ -3,7 +3,7 @@ import type { SearchAnswer } from '@shared/schemas/calc-answers';
 
 // One feasible result as the engine gives it (rounded to 4 digits): a 16-turn pot core in an invented demo ferrite
 // for the 36–60 V → 12 V, 10 A, 100 kHz example; every candidate of the fake answers below is a copy of it.
-const RESULT: SearchCandidate['result'] = {
+export const ENGINE_RESULT: SearchCandidate['result'] = {
   feasible: true,
   issues: [],
   operatingPoint: {
@@ -126,7 +126,7 @@ export function searchCandidate(o: CandidateOptions): SearchCandidate {
   const volume = o.volume ?? 1e-6 * o.rank;
   const totalLoss = o.totalLoss ?? 2 - 0.01 * o.rank;
   const placement = o.placement ?? 'ground';
-  const gap = placement === 'spacer' ? { ...RESULT.gap, placement, total: 2 * RESULT.gap.spacer } : RESULT.gap;
+  const gap = placement === 'spacer' ? { ...ENGINE_RESULT.gap, placement, total: 2 * ENGINE_RESULT.gap.spacer } : ENGINE_RESULT.gap;
   return {
     rank: o.rank,
     pareto: o.pareto ?? false,
@@ -138,10 +138,10 @@ export function searchCandidate(o: CandidateOptions): SearchCandidate {
     mass: o.mass ?? 5 * volume * 1e3,
     wire: { id: 'foil 0.15 mm', kind: 'foil', strandDiameter: 0.00015, strands: 1, overallDiameter: 0.0002, conductorsPerTurn: 1 },
     result: {
-      ...RESULT,
+      ...ENGINE_RESULT,
       issues: (o.warnings ?? []).map((w) => ({ ...w, severity: 'warning' as const })),
-      core: { ...RESULT.core, id: o.coreId ?? `Core ${o.rank}`, ve: volume },
-      material: { ...RESULT.material, id: o.materialId ?? '2', name: o.materialName ?? 'Sample ferrite' },
+      core: { ...ENGINE_RESULT.core, id: o.coreId ?? `Core ${o.rank}`, ve: volume },
+      material: { ...ENGINE_RESULT.material, id: o.materialId ?? '2', name: o.materialName ?? 'Sample ferrite' },
       gap,
       totalLoss,
     },
