@@ -3,25 +3,21 @@ import { rollOffFraction } from '@shared/fitting/rolloff-fit';
 import { behaviourFactor } from '@shared/fitting/temperature-fit';
 import { materialCellsFromValues, validateMaterialCells } from '@shared/schemas/materials';
 import { parseMaterialCsv } from '../../../server/materials/material-csv.ts';
+import { TEMPLATE_ROWS } from '../../../server/materials/material-template.ts';
 
-// Invented rows in the previous format version (ct0, ct1, ct2; rolloff_a, rolloff_b, rolloff_c), no real material.
-const FERRITE_CELLS = {
+// The template's invented ferrite without its temperature behaviour, for rows in the previous format version (ct0, ct1,
+// ct2; rolloff_a, rolloff_b, rolloff_c) to add their old columns to. No real material.
+const FERRITE_CELLS: Record<string, string> = {
+  ...TEMPLATE_ROWS[0]!,
   name: 'Old-format ferrite (invented)',
-  family: 'ferrite',
-  unit_set: 'W/m3-Hz-T',
-  k: '3.2',
-  alpha: '1.4',
-  beta: '2.6',
-  f_min: '50000',
-  f_max: '300000',
-  b_min: '0.02',
-  b_max: '0.25',
-  bsat_25: '0.5',
-  bsat_100: '0.4',
-  mu_i: '2300',
-  density: '4800',
+  lowest_loss_temperature: '',
+  lowest_loss_factor: '',
+  loss_curvature: '',
+  t_ref: '',
   provenance: 'Invented unit-test row',
 };
+/** The columns of the current format that name no temperature behaviour or roll-off. */
+const PLAIN_COLUMNS = Object.keys(FERRITE_CELLS).filter((c) => !/^(lowest_loss|loss_curvature|rolloff_)/.test(c));
 const POWDER_CELLS = { ...FERRITE_CELLS, name: 'Old-format powder (invented)', family: 'powder', mu_i: '60' };
 
 const byColumn = (problems: { column: string; message: string }[]) => Object.fromEntries(problems.map((p) => [p.column, p.message]));
@@ -138,14 +134,14 @@ describe('old and new columns of one quantity together', () => {
   });
 
   it('are refused in a header, naming the columns', () => {
-    const header = [...Object.keys(POWDER_CELLS), 'rolloff_a', 'rolloff_b', 'rolloff_c', 'rolloff_half_field'].join(',');
+    const header = [...PLAIN_COLUMNS, 'rolloff_a', 'rolloff_b', 'rolloff_c', 'rolloff_half_field'].join(',');
     expect(() => parseMaterialCsv(`${header}\n${header}`)).toThrow(
       /Column "rolloff_a" is an old column of the roll-off and cannot be used with rolloff_half_field/,
     );
   });
 
   it('an old-format header alone is read', () => {
-    const columns = [...Object.keys(FERRITE_CELLS), 'ct0', 'ct1', 'ct2'];
+    const columns = [...PLAIN_COLUMNS, 'ct0', 'ct1', 'ct2'];
     const records = parseMaterialCsv(`${columns.join(',')}\n${columns.map((c) => (c === 'ct0' ? '1' : '0')).join(',')}`);
     expect(records[0]!.cells.ct0).toBe('1');
   });
