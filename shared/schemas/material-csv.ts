@@ -83,6 +83,8 @@ export const NAMED_RANGES = {
   rolloff_steepness: { exclusiveMin: 0, max: 5 },
 } as const;
 
+const MU_I_RANGE = { min: 1, max: 200000 } as const;
+
 /** One CSV row (every cell as text, empty for absent optional columns). */
 export const materialCsvRowSchema = z
   .object({
@@ -103,7 +105,7 @@ export const materialCsvRowSchema = z
     max_temperature: optional({ min: 50, max: 400 }),
     bsat_25: required({ exclusiveMin: 0 }),
     bsat_100: required({ exclusiveMin: 0 }),
-    mu_i: required({ min: 1, max: 200000 }),
+    mu_i: required(MU_I_RANGE),
     rolloff_half_field: optional(NAMED_RANGES.rolloff_half_field),
     rolloff_steepness: optional(NAMED_RANGES.rolloff_steepness),
     density: required({ min: 500, max: 20000 }),
@@ -189,6 +191,14 @@ function oldColumnProblems(num: NumberOf): { column: OldMaterialColumn; message:
   if (rollOff && 'value' in rollOff) {
     outOfRange(problems, 'rolloff_b', 'rolloff_half_field', rollOff.value.rollOff.halfField);
     outOfRange(problems, 'rolloff_c', 'rolloff_steepness', rollOff.value.rollOff.steepness);
+    const muI = num('mu_i');
+    const scaled = muI === undefined ? undefined : muI * rollOff.value.permeabilityScale;
+    if (scaled !== undefined && (scaled < MU_I_RANGE.min || scaled > MU_I_RANGE.max)) {
+      problems.push({
+        column: 'rolloff_a',
+        message: `makes mu_i × 1/a = ${scaled.toPrecision(4)}, outside ${MU_I_RANGE.min}…${MU_I_RANGE.max}`,
+      });
+    }
   }
   return problems;
 }

@@ -186,3 +186,11 @@ describe('round trip', () => {
     expect(again.values).toEqual(values);
   });
 });
+
+describe('a converted roll-off that moves mu_i out of its range', () => {
+  it('is refused naming rolloff_a', () => {
+    // μi 150000 × 1/0.5 = 300000 is above the 200000 limit of mu_i (arithmetic).
+    const row = { ...POWDER_CELLS, mu_i: '150000', rolloff_a: '0.5', rolloff_b: '1e-7', rolloff_c: '1.5' };
+    expect(byColumn(validateMaterialCells(row).problems)['rolloff_a']).toBe('rolloff_a makes mu_i × 1/a = 3.000e+5, outside 1…200000');
+  });
+});
