@@ -44,4 +44,7 @@ ALTER TABLE "materials" DROP COLUMN "ct1";--> statement-breakpoint
 ALTER TABLE "materials" DROP COLUMN "ct2";--> statement-breakpoint
 ALTER TABLE "materials" DROP COLUMN "roll_off_a";--> statement-breakpoint
 ALTER TABLE "materials" DROP COLUMN "roll_off_b";--> statement-breakpoint
-ALTER TABLE "materials" DROP COLUMN "roll_off_c";
+ALTER TABLE "materials" DROP COLUMN "roll_off_c";--> statement-breakpoint
+-- The named parameters are positive by construction; the database holds them to it (NULL: none given).
+ALTER TABLE "materials" ADD CONSTRAINT "materials_loss_factor_check" CHECK ("materials"."lowest_loss_factor" > 0 and "materials"."loss_curvature" >= 0);--> statement-breakpoint
+ALTER TABLE "materials" ADD CONSTRAINT "materials_roll_off_check" CHECK ("materials"."roll_off_half_field" > 0 and "materials"."roll_off_steepness" > 0);

@@ -123,6 +123,9 @@ export const materials = pgTable(
     check('materials_alpha_check', sql`${t.alpha} > 0 and ${t.alpha} < 4`),
     check('materials_beta_check', sql`${t.beta} > 0 and ${t.beta} < 5`),
     check('materials_k_check', sql`${t.k} > 0`),
+    // Positive by construction: the loss factor F0 + c·(T − T0)² and the roll-off 1/(1 + (H/H½)ⁿ).
+    check('materials_loss_factor_check', sql`${t.lowestLossFactor} > 0 and ${t.lossCurvature} >= 0`),
+    check('materials_roll_off_check', sql`${t.rollOffHalfField} > 0 and ${t.rollOffSteepness} > 0`),
   ],
 );
 

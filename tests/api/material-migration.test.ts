@@ -92,6 +92,15 @@ describe('migration 0009: stored temperature quadratics', () => {
     for (const old of ['ct0', 'ct1', 'ct2', 'roll_off_a', 'roll_off_b', 'roll_off_c']) expect(names).not.toContain(old);
   });
 
+  it('holds the named parameters positive from then on', async () => {
+    await expect(client.query(`update materials set lowest_loss_factor = 0 where name = 'upward'`)).rejects.toThrow(
+      /materials_loss_factor_check/,
+    );
+    await expect(client.query(`update materials set roll_off_steepness = -1 where name = 'powder a = 1'`)).rejects.toThrow(
+      /materials_roll_off_check/,
+    );
+  });
+
   it('converts an upward parabola exactly, as behaviourFromQuadratic does (algebra, no source)', () => {
     const expected = behaviourFromQuadratic({ ct0: 1.43, ct1: 0.018, ct2: 1e-4 });
     const row = rows.get('upward')!;
