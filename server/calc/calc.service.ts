@@ -11,6 +11,8 @@ import {
   type SearchInput,
 } from '@shared/engine/index';
 import type { CoreMaterial } from '@shared/engine/types';
+import { rollOffToEngine } from '@shared/fitting/rolloff-fit';
+import { behaviourToQuadratic } from '@shared/fitting/temperature-fit';
 import type { CoreLossRequest, EvaluateRequest, InlineMaterial, OperatingPointRequest, SearchRequest } from '@shared/schemas/calc';
 import type { CatalogueService } from '../catalogue/catalogue.service.ts';
 import { badRequest } from '../http/errors.ts';
@@ -153,10 +155,13 @@ export class CalcService {
       }
     });
     const stored = numeric.map((id) => toCoreMaterial(byId.get(id)!));
-    const given = inline.map((m, i) => ({
+    const given = inline.map(({ temperatureBehaviour, rollOffCurve, ...m }, i) => ({
       ...m,
       id: m.id ?? `inline-${i + 1}`,
       density: m.density ?? TYPICAL_DENSITY[m.family],
+      // Our own terms become the engine's constants, as for a stored material (material-view.ts).
+      ...(temperatureBehaviour ? { tempCoefficients: behaviourToQuadratic(temperatureBehaviour) } : {}),
+      ...(rollOffCurve ? { rollOff: rollOffToEngine(rollOffCurve) } : {}),
     }));
     return [...stored, ...given];
   }

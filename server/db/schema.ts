@@ -96,18 +96,19 @@ export const materials = pgTable(
     fitFrequencyMax: doublePrecision('fit_frequency_max').notNull(),
     fitFluxMin: doublePrecision('fit_flux_min').notNull(),
     fitFluxMax: doublePrecision('fit_flux_max').notNull(),
-    ct0: doublePrecision('ct0'),
-    ct1: doublePrecision('ct1'),
-    ct2: doublePrecision('ct2'),
+    // Core-loss temperature behaviour F0 + c·(T − T0)² (all three or none): T0 °C, F0 > 0, c 1/K² ≥ 0.
+    lowestLossTemperature: doublePrecision('lowest_loss_temperature'),
+    lowestLossFactor: doublePrecision('lowest_loss_factor'),
+    lossCurvature: doublePrecision('loss_curvature'),
     referenceTemperature: doublePrecision('reference_temperature'),
     // Highest tolerated hot-spot temperature (°C); null: the engine's default for the family.
     maxTemperature: doublePrecision('max_temperature'),
     bsat25: doublePrecision('bsat_25').notNull(),
     bsat100: doublePrecision('bsat_100').notNull(),
     permeability: doublePrecision('permeability').notNull(),
-    rollOffA: doublePrecision('roll_off_a'),
-    rollOffB: doublePrecision('roll_off_b'),
-    rollOffC: doublePrecision('roll_off_c'),
+    // Powder roll-off μ/μi = 1/(1 + (H/H½)ⁿ) (both or none): H½ A/m, n.
+    rollOffHalfField: doublePrecision('roll_off_half_field'),
+    rollOffSteepness: doublePrecision('roll_off_steepness'),
     density: doublePrecision('density').notNull(),
     provenance: text('provenance').notNull(),
     importId: integer('import_id').references((): AnyPgColumn => materialImports.id, { onDelete: 'set null' }),
@@ -122,6 +123,9 @@ export const materials = pgTable(
     check('materials_alpha_check', sql`${t.alpha} > 0 and ${t.alpha} < 4`),
     check('materials_beta_check', sql`${t.beta} > 0 and ${t.beta} < 5`),
     check('materials_k_check', sql`${t.k} > 0`),
+    // Positive by construction: the loss factor F0 + c·(T − T0)² and the roll-off 1/(1 + (H/H½)ⁿ).
+    check('materials_loss_factor_check', sql`${t.lowestLossFactor} > 0 and ${t.lossCurvature} >= 0`),
+    check('materials_roll_off_check', sql`${t.rollOffHalfField} > 0 and ${t.rollOffSteepness} > 0`),
   ],
 );
 

@@ -51,13 +51,13 @@ export interface RowAnalysis<V, E> {
  */
 export function analyseRecords<C extends string, V, E>(
   records: CsvRecord<C>[],
-  validate: (cells: Partial<Record<C, string>>) => { values?: V; problems: CellProblem[] },
+  validate: (cells: Partial<Record<C, string>>) => { values?: V; problems: CellProblem[]; notices?: CellProblem[] },
   existing: (lowerName: string) => E | undefined,
 ): RowAnalysis<V, E> {
   const firstRowOfName = new Map<string, number>();
   const analysis: RowAnalysis<V, E> = { rows: [], valid: [] };
   for (const record of records) {
-    const { values, problems } = validate(record.cells);
+    const { values, problems, notices = [] } = validate(record.cells);
     const allProblems: CellProblem[] = record.shapeProblem
       ? [{ column: '(row)', message: `Row ${record.shapeProblem}` }, ...problems]
       : [...problems];
@@ -70,7 +70,7 @@ export function analyseRecords<C extends string, V, E>(
     }
     const stored = key ? existing(key) : undefined;
     const status = allProblems.length ? 'error' : stored ? 'exists' : 'new';
-    analysis.rows.push({ row: record.row, name: name.slice(0, 80), status, problems: allProblems });
+    analysis.rows.push({ row: record.row, name: name.slice(0, 80), status, problems: allProblems, notices });
     if (values && !allProblems.length) analysis.valid.push({ row: record.row, values, ...(stored ? { existing: stored } : {}) });
   }
   return analysis;

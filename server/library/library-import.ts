@@ -22,7 +22,7 @@ import type { VersionedLibrary } from './versioned-library.ts';
 export interface LibraryCsvFormat<C extends string, Item extends { name: string }, Values> {
   table: CsvTableFormat<C>;
   /** One row's cells (absent columns as empty) as an item, or its problems by column. */
-  validate: (cells: Partial<Record<C, string>>) => { values?: Item; problems: CellProblem[] };
+  validate: (cells: Partial<Record<C, string>>) => { values?: Item; problems: CellProblem[]; notices?: CellProblem[] };
   columnsOf: (item: Item) => Values;
   /** What a new version takes over from the one it replaces (a material's loss points), in the import's transaction. */
   carry?: (tx: Tx, replaced: { from: number; to: number }[]) => Promise<void>;

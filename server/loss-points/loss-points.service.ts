@@ -153,7 +153,12 @@ export function fittedValues(
     fitFluxMin: steinmetz.fittedFlux[0],
     fitFluxMax: steinmetz.fittedFlux[1],
     ...(temperature
-      ? { ...temperature.quadratic, referenceTemperature: temperature.lowestLossTemperature }
+      ? {
+          lowestLossTemperature: temperature.lowestLossTemperature,
+          lowestLossFactor: temperature.lowestLossFactor,
+          lossCurvature: temperature.curvature,
+          referenceTemperature: temperature.lowestLossTemperature,
+        }
       : { referenceTemperature: pointsAt ?? row.referenceTemperature }),
     provenance: `${row.provenance.slice(0, 400)}; k, α, β fitted from ${pointCount} loss points`.slice(0, 500),
   };

@@ -1,4 +1,11 @@
-import { MATERIAL_CSV_COLUMNS, REQUIRED_MATERIAL_COLUMNS, type MaterialCsvColumn } from '@shared/schemas/material-csv';
+import {
+  MATERIAL_CSV_COLUMNS,
+  MATERIAL_READ_COLUMNS,
+  REQUIRED_MATERIAL_COLUMNS,
+  type MaterialCsvColumn,
+  type MaterialReadColumn,
+} from '@shared/schemas/material-csv';
+import { mixedForms } from '@shared/schemas/material-old-columns';
 import { parseCsvTable, stringifyCsvTable, type CsvRecord, type CsvTableFormat } from '../http/csv-table.ts';
 
 // The unit tests of the material format read uploads through this module.
@@ -6,16 +13,20 @@ export { decodeCsvText } from '../http/csv-table.ts';
 
 export const MAX_MATERIAL_ROWS = 10_000;
 
-/** The material file: its columns, the ones the header must have, and the row limit. */
-export const MATERIAL_TABLE: CsvTableFormat<MaterialCsvColumn> = {
-  columns: MATERIAL_CSV_COLUMNS,
+/**
+ * The material file: its columns (the previous format version's too, converted on import; a header may not mix the
+ * old and the new columns of one quantity), the ones the header must have, and the row limit.
+ */
+export const MATERIAL_TABLE: CsvTableFormat<MaterialReadColumn> = {
+  columns: MATERIAL_READ_COLUMNS,
   required: REQUIRED_MATERIAL_COLUMNS,
+  conflicts: mixedForms,
   noun: 'material',
   maxRows: MAX_MATERIAL_ROWS,
 };
 
 /** Header, delimiter and size checks, then one record per data row with its row number. */
-export function parseMaterialCsv(text: string): CsvRecord<MaterialCsvColumn>[] {
+export function parseMaterialCsv(text: string): CsvRecord<MaterialReadColumn>[] {
   return parseCsvTable(text, MATERIAL_TABLE);
 }
 

@@ -2,8 +2,6 @@
 // coefficients meet them, and its temperature of lowest loss. Read for every listed version in one query.
 import { coreLossTemperatureFactor, steinmetzLoss, TEMPERATURE_FACTOR_FLOOR, type CoreMaterial } from '@shared/engine/index';
 import { fitQuality } from '@shared/fitting/fit-quality';
-import { FitInputError } from '@shared/fitting/fit-error';
-import { behaviourFromQuadratic } from '@shared/fitting/temperature-fit';
 import type { MaterialData } from '@shared/schemas/material-answers';
 import type { LossPointsRepository, Measured } from '../loss-points/loss-points.repository.ts';
 import { toCoreMaterial } from './material-view.ts';
@@ -25,20 +23,9 @@ export function storedFitQuality(material: CoreMaterial, points: readonly Measur
   return { rmsRelativeError: quality.rmsRelativeError, worstRelativeError: quality.worstRelativeError, pointCount: quality.pointCount };
 }
 
-/**
- * T0 of the engine's quadratic (°C); null without temperature coefficients, for a flat factor (no lowest point) and
- * for a quadratic the behaviour refuses (not positive everywhere). To be replaced by the stored value once materials
- * keep it.
- */
-export function lowestLossTemperature(material: CoreMaterial): number | null {
-  if (!material.tempCoefficients) return null;
-  try {
-    const behaviour = behaviourFromQuadratic(material.tempCoefficients);
-    return behaviour.curvature > 0 ? behaviour.lowestLossTemperature : null;
-  } catch (error) {
-    if (error instanceof FitInputError) return null;
-    throw error;
-  }
+/** The stored temperature of lowest loss (°C); null without a temperature behaviour or for a flat one (no lowest point). */
+export function lowestLossTemperature(row: Pick<MaterialRow, 'lowestLossTemperature' | 'lossCurvature'>): number | null {
+  return row.lowestLossTemperature != null && (row.lossCurvature ?? 0) > 0 ? row.lowestLossTemperature : null;
 }
 
 /** The library's figures of each row, by id: one query reads the points of every row (their count comes with them). */
@@ -50,7 +37,7 @@ export async function materialData(points: LossPointsRepository, rows: readonly 
       const own = byVersion.get(row.id) ?? [];
       return [
         row.id,
-        { lossPointCount: own.length, fitQuality: storedFitQuality(material, own), lowestLossTemperature: lowestLossTemperature(material) },
+        { lossPointCount: own.length, fitQuality: storedFitQuality(material, own), lowestLossTemperature: lowestLossTemperature(row) },
       ];
     }),
   );

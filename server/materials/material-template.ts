@@ -4,8 +4,9 @@ import type { MaterialCsvColumn } from '@shared/schemas/material-csv';
  * The downloadable template: two invented, illustrative materials, one in each unit set. Neither is any
  * maker's grade. The ferrite's k gives about 80 kW/m³ at 100 kHz and 0.1 T peak, the powder's about
  * 300 mW/cm³ at 100 kHz and 50 mT peak (plausible orders of magnitude; common practice, no source). The
- * ferrite's factor 1e-4·T² − 0.018·T + 1.81 is 1 at its t_ref of 90 °C, where its k holds; it states no
- * max_temperature (the ferrite default applies), the powder an invented binder limit of 150 °C.
+ * ferrite loses least at 90 °C (factor 1 there, rising by 1e-4 per K² away from it) and its k holds at its t_ref of
+ * 90 °C; it states no max_temperature (the ferrite default applies), the powder an invented binder limit of 150 °C.
+ * The powder's permeability has halved at 5,000 A/m, falling with steepness 1.8.
  */
 export const TEMPLATE_ROWS: Record<MaterialCsvColumn, string>[] = [
   {
@@ -19,17 +20,16 @@ export const TEMPLATE_ROWS: Record<MaterialCsvColumn, string>[] = [
     f_max: '300000',
     b_min: '0.02',
     b_max: '0.25',
-    ct0: '1.81',
-    ct1: '0.018',
-    ct2: '0.0001',
+    lowest_loss_temperature: '90',
+    lowest_loss_factor: '1',
+    loss_curvature: '0.0001',
     t_ref: '90',
     max_temperature: '',
     bsat_25: '0.5',
     bsat_100: '0.4',
     mu_i: '2300',
-    rolloff_a: '',
-    rolloff_b: '',
-    rolloff_c: '',
+    rolloff_half_field: '',
+    rolloff_steepness: '',
     density: '4800',
     provenance: 'Invented example, illustrative only',
   },
@@ -44,17 +44,16 @@ export const TEMPLATE_ROWS: Record<MaterialCsvColumn, string>[] = [
     f_max: '200',
     b_min: '10',
     b_max: '200',
-    ct0: '',
-    ct1: '',
-    ct2: '',
+    lowest_loss_temperature: '',
+    lowest_loss_factor: '',
+    loss_curvature: '',
     t_ref: '',
     max_temperature: '150',
     bsat_25: '1000',
     bsat_100: '950',
     mu_i: '60',
-    rolloff_a: '1',
-    rolloff_b: '2.2e-7',
-    rolloff_c: '1.8',
+    rolloff_half_field: '5000',
+    rolloff_steepness: '1.8',
     density: '6500',
     provenance: 'Invented example, illustrative only',
   },

@@ -1,4 +1,6 @@
 import { referredTemperatureCoefficients } from '@shared/engine/core-loss';
+import { rollOffToEngine } from '@shared/fitting/rolloff-fit';
+import { behaviourToQuadratic, type TemperatureBehaviour } from '@shared/fitting/temperature-fit';
 import type { CoreMaterial } from '@shared/engine/types';
 import type { MaterialSummary } from '@shared/schemas/material-answers';
 import type { MaterialRow } from './materials.repository.ts';
@@ -20,21 +22,29 @@ export function toCoreMaterial(row: MaterialRow): CoreMaterial {
     bsat25: row.bsat25,
     bsat100: row.bsat100,
     permeability: row.permeability,
-    ...(row.rollOffA != null && row.rollOffB != null && row.rollOffC != null
-      ? { rollOff: { a: row.rollOffA, b: row.rollOffB, c: row.rollOffC } }
+    ...(row.rollOffHalfField != null && row.rollOffSteepness != null
+      ? { rollOff: rollOffToEngine({ halfField: row.rollOffHalfField, steepness: row.rollOffSteepness }) }
       : {}),
     density: row.density,
     ...(row.maxTemperature != null ? { maxTemperature: row.maxTemperature } : {}),
   };
 }
 
+/** The stored temperature behaviour, or null when the version has none. */
+function temperatureBehaviour(row: MaterialRow): TemperatureBehaviour | null {
+  const { lowestLossTemperature, lowestLossFactor, lossCurvature } = row;
+  if (lowestLossTemperature == null || lowestLossFactor == null || lossCurvature == null) return null;
+  return { lowestLossTemperature, lowestLossFactor, curvature: lossCurvature };
+}
+
 /**
- * The stored coefficients as the engine uses them: with a t_ref, k is the loss at t_ref, so the factor is divided
- * by its value there (factor(t_ref) = 1); without one, k·factor(T) as stored.
+ * The stored behaviour as the engine's quadratic: with a t_ref, k is the loss at t_ref, so the factor is divided
+ * by its value there (factor(t_ref) = 1, F0 > 0 keeps it positive); without one, k·factor(T) as stored.
  */
 function temperatureCorrection(row: MaterialRow): Pick<CoreMaterial, 'tempCoefficients'> {
-  if (row.ct0 == null || row.ct1 == null || row.ct2 == null) return {};
-  const stored = { ct0: row.ct0, ct1: row.ct1, ct2: row.ct2 };
+  const behaviour = temperatureBehaviour(row);
+  if (!behaviour) return {};
+  const stored = behaviourToQuadratic(behaviour);
   return {
     tempCoefficients: row.referenceTemperature == null ? stored : referredTemperatureCoefficients(stored, row.referenceTemperature),
   };
@@ -50,6 +60,11 @@ export function toMaterialSummary(row: MaterialRow): MaterialSummary {
     unitSet: row.unitSet,
     kUploaded: row.kUploaded,
     referenceTemperature: row.referenceTemperature,
+    temperatureBehaviour: temperatureBehaviour(row),
+    rollOffCurve:
+      row.rollOffHalfField != null && row.rollOffSteepness != null
+        ? { halfField: row.rollOffHalfField, steepness: row.rollOffSteepness }
+        : null,
     provenance: row.provenance,
     createdAt: row.createdAt.toISOString(),
   };

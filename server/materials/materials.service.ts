@@ -1,6 +1,6 @@
 import type { Role } from '@shared/schemas/auth';
 import type { LibraryMaterial, MaterialData } from '@shared/schemas/material-answers';
-import type { MaterialCsvColumn } from '@shared/schemas/material-csv';
+import type { MaterialReadColumn } from '@shared/schemas/material-csv';
 import type { MaterialEdit } from '@shared/schemas/material-requests';
 import { materialCellsFromValues, validateMaterialCells, type MaterialValues } from '@shared/schemas/material-values';
 import { may } from '@shared/api/permissions';
@@ -40,7 +40,7 @@ export function materialDetail(row: WithAuthor<MaterialRow>, role: Role, data: M
 /** The material library: a versioned library of material rows, filled from CSV files or edited a row at a time. */
 export class MaterialsService {
   readonly library: VersionedLibrary<MaterialRow, MaterialValues>;
-  private readonly csv: LibraryImport<MaterialRow, MaterialValues, MaterialCsvColumn, MaterialValues>;
+  private readonly csv: LibraryImport<MaterialRow, MaterialValues, MaterialReadColumn, MaterialValues>;
 
   constructor(
     private readonly repo: MaterialsRepository,
@@ -48,7 +48,7 @@ export class MaterialsService {
     private readonly lossPoints = new LossPointsRepository(repo.db),
   ) {
     this.library = new VersionedLibrary({ store: repo.versions, audit, words: { noun: 'material', label: 'material' } });
-    this.csv = new LibraryImport<MaterialRow, MaterialValues, MaterialCsvColumn, MaterialValues>(this.library, {
+    this.csv = new LibraryImport<MaterialRow, MaterialValues, MaterialReadColumn, MaterialValues>(this.library, {
       table: MATERIAL_TABLE,
       validate: validateMaterialCells,
       columnsOf: (values) => values,

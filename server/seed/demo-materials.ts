@@ -7,7 +7,7 @@ import type { MaterialFamily } from '@shared/engine/types';
  * source: MnZn power ferrite loses of order 50–150 kW/m³ at 100 kHz and 0.1 T peak near its
  * loss minimum; powder cores lose more at the same flux), with α and β inside the generic MnZn ranges
  * α ≈ 1.1–1.9, β ≈ 2.2–3.0 (common practice, no source). Temperature curves follow the usual parabolic
- * correction ct2·T² − ct1·T + ct0 (common practice, no source) with the minimum near 80–100 °C.
+ * behaviour F0 + c·(T − T0)² (common practice, no source) with the minimum T0 near 80–100 °C.
  */
 export interface DemoMaterial {
   name: string;
@@ -19,8 +19,8 @@ export interface DemoMaterial {
   anchorFrequency: number;
   anchorPeakFlux: number;
   fit: { fMin: number; fMax: number; bMin: number; bMax: number };
-  /** Temperature of minimum loss (°C) and curvature ct2 (1/K²); omitted for powders. */
-  minimumLossAt?: { temperature: number; ct2: number };
+  /** Temperature of minimum loss T0 (°C) and curvature c (1/K²); omitted for powders. */
+  minimumLossAt?: { temperature: number; curvature: number };
   bsat25: number;
   bsat100: number;
   permeability: number;
@@ -67,10 +67,10 @@ function demoMaterial(
   };
 }
 
-/** A ferrite, its loss anchored at 100 kHz and 0.1 T peak, with its temperature of minimum loss (°C) and ct2 (1/K²). */
-const ferrite = (grade: Grade, [temperature, ct2]: [number, number]): DemoMaterial => ({
+/** A ferrite, its loss anchored at 100 kHz and 0.1 T peak, with its temperature of minimum loss (°C) and curvature (1/K²). */
+const ferrite = (grade: Grade, [temperature, curvature]: [number, number]): DemoMaterial => ({
   ...demoMaterial('ferrite', grade, 0.1),
-  minimumLossAt: { temperature, ct2 },
+  minimumLossAt: { temperature, curvature },
 });
 
 /**

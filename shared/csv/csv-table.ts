@@ -13,6 +13,8 @@ export interface CsvTableFormat<C extends string> {
   /** Columns the header must have; the others may be left out (their cells are then empty). */
   required: readonly C[];
   noun: string;
+  /** Columns that must not appear together (old and new forms of one quantity), each problem naming a column. */
+  conflicts?: (columns: readonly string[]) => { column: string; message: string }[];
   /** Most data rows a file may hold (a file over it is refused as a whole); no limit when left out. */
   maxRows?: number;
 }
@@ -136,6 +138,7 @@ const HEADER_PROBLEMS = {
   missing: 'column missing from the header',
   unknown: 'unknown column in the header',
   twice: 'column appears twice in the header',
+  conflict: 'columns that cannot be used together in the header',
 } as const;
 
 interface HeaderProblem {
@@ -162,6 +165,9 @@ function checkHeader<C extends string>(columns: readonly string[], format: CsvTa
   });
   for (const c of format.required) {
     if (!columns.includes(c)) problems.push({ kind: 'missing', column: c, field: `header.${c}`, message: `Missing column "${c}"` });
+  }
+  for (const { column, message } of format.conflicts?.(columns) ?? []) {
+    problems.push({ kind: 'conflict', column, field: `header.${column}`, message: `Column "${column}" ${message}` });
   }
   if (!problems.length) return;
   const fields: Record<string, string> = {};

@@ -1,6 +1,7 @@
 // Where a material's core-loss temperature factor ct2·T² − ct1·T + ct0 is lowest over the temperatures it is used
 // at. A parabola fitted near its minimum can dip below zero away from the fit, and a negative factor would turn
-// core loss into a gain; imports refuse such coefficients and the engine guards against them.
+// core loss into a gain; stored materials cannot give one (named behaviour F0 + c·(T − T0)², F0 > 0, c ≥ 0), inline
+// calc materials in the engine's constants can, and the engine guards against it.
 import type { TemperatureCoefficients } from './core-loss';
 import { coreLossTemperatureFactor } from './core-loss';
 

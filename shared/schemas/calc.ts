@@ -170,7 +170,40 @@ const rollOffSchema = z
   })
   .strict();
 
-/** An inline (user-supplied) material, SI units, same meaning as CoreMaterial. */
+/** A temperature behaviour in our own terms: factor F0 + c·(T − T0)², positive everywhere by construction. */
+const temperatureBehaviourSchema = z
+  .object({
+    lowestLossTemperature: rangeNumber('temperatureBehaviour.lowestLossTemperature', -100, 400, '°C', 'T0, temperature of lowest loss'),
+    lowestLossFactor: z
+      .number({ error: 'temperatureBehaviour.lowestLossFactor must be a finite number' })
+      .gt(0, { error: 'temperatureBehaviour.lowestLossFactor must be greater than 0' })
+      .max(100, { error: 'temperatureBehaviour.lowestLossFactor must be at most 100' })
+      .meta({ description: 'F0, the loss factor at T0 (> 0)' }),
+    curvature: rangeNumber('temperatureBehaviour.curvature', 0, 1, '1/K²', 'c, how fast the factor rises away from T0'),
+  })
+  .strict();
+
+/** A powder roll-off in our own terms: μ/μi = 1/(1 + (H/H½)ⁿ). */
+const rollOffCurveSchema = z
+  .object({
+    halfField: z
+      .number({ error: 'rollOffCurve.halfField must be a finite number' })
+      .gt(0, { error: 'rollOffCurve.halfField must be greater than 0' })
+      .max(1e7, { error: 'rollOffCurve.halfField must be at most 1e7' })
+      .meta({ description: 'H½, A/m: the field at which μ has fallen to μi/2' }),
+    steepness: z
+      .number({ error: 'rollOffCurve.steepness must be a finite number' })
+      .gt(0, { error: 'rollOffCurve.steepness must be greater than 0' })
+      .max(5, { error: 'rollOffCurve.steepness must be at most 5' })
+      .meta({ description: 'n, how steeply μ falls around H½' }),
+  })
+  .strict();
+
+/**
+ * An inline (user-supplied) material, SI units, same meaning as CoreMaterial; the temperature behaviour and the roll-off
+ * may be given in the engine's constants (tempCoefficients, rollOff) or in our own terms (temperatureBehaviour,
+ * rollOffCurve), not both.
+ */
 export const inlineMaterialSchema = z
   .object({
     id: text().trim().min(1).max(80).optional(),
@@ -195,6 +228,8 @@ export const inlineMaterialSchema = z
     bsat100: rangeNumber('bsat100', 0.05, 3, 'T', 'Saturation flux density at 100 °C'),
     permeability: rangeNumber('permeability', 1, 200000, '', 'Initial relative permeability'),
     rollOff: rollOffSchema.optional(),
+    temperatureBehaviour: temperatureBehaviourSchema.optional(),
+    rollOffCurve: rollOffCurveSchema.optional(),
     density: rangeNumber('density', 500, 20000, 'kg/m³', 'Density').optional(),
     maxTemperature: rangeNumber('maxTemperature', 50, 400, '°C', 'Highest tolerated hot-spot temperature').optional(),
   })
@@ -205,6 +240,12 @@ export const inlineMaterialSchema = z
     }
     if (m.fitFluxMin > m.fitFluxMax) {
       ctx.addIssue({ code: 'custom', path: ['fitFluxMin'], message: 'fitFluxMin must not exceed fitFluxMax' });
+    }
+    if (m.tempCoefficients && m.temperatureBehaviour) {
+      ctx.addIssue({ code: 'custom', path: ['temperatureBehaviour'], message: 'give temperatureBehaviour or tempCoefficients, not both' });
+    }
+    if (m.rollOff && m.rollOffCurve) {
+      ctx.addIssue({ code: 'custom', path: ['rollOffCurve'], message: 'give rollOffCurve or rollOff, not both' });
     }
   });
 export type InlineMaterial = z.infer<typeof inlineMaterialSchema>;

@@ -16,6 +16,8 @@ export const previewRowSchema = z.object({
   name: z.string(),
   status: z.enum(['new', 'exists', 'error']),
   problems: z.array(cellProblemSchema),
+  /** What does not stop the import but the user should see beside the row (a conversion made, a value to check). */
+  notices: z.array(cellProblemSchema).default([]),
 });
 export type PreviewRow = z.infer<typeof previewRowSchema>;
 export type PreviewStatus = PreviewRow['status'];

@@ -35,6 +35,18 @@ export const materialSummarySchema = coreMaterialSchema.extend({
   unitSet: z.enum(MATERIAL_UNIT_SETS),
   kUploaded: z.number(),
   referenceTemperature: z.number().nullable(),
+  /** The stored temperature behaviour F0 + c·(T − T0)² as given (not referred to t_ref), or null. */
+  temperatureBehaviour: z
+    .object({
+      lowestLossTemperature: z.number().meta({ description: 'T0, °C' }),
+      lowestLossFactor: z.number().meta({ description: 'F0, the loss factor at T0' }),
+      curvature: z.number().meta({ description: 'c, 1/K²' }),
+    })
+    .nullable(),
+  /** The stored powder roll-off μ/μi = 1/(1 + (H/H½)ⁿ), or null. */
+  rollOffCurve: z
+    .object({ halfField: z.number().meta({ description: 'H½, A/m' }), steepness: z.number().meta({ description: 'n' }) })
+    .nullable(),
   provenance: z.string(),
   createdAt: z.string(),
 });

@@ -5,13 +5,15 @@ import type { CellProblem } from './csv-import';
 import { cellProblems } from './csv-cells';
 import {
   kToSi,
-  MATERIAL_CSV_COLUMNS,
+  MATERIAL_READ_COLUMNS,
   materialCsvRowSchema,
+  oldConversions,
   UNIT_SCALES,
   type MaterialCsvColumn,
   type MaterialCsvRow,
   type MaterialUnitSet,
 } from './material-csv';
+import { materialWarnings } from './material-warnings';
 
 /** A material version as stored (SI units), without identity and bookkeeping. */
 export interface MaterialValues {
@@ -26,25 +28,52 @@ export interface MaterialValues {
   fitFrequencyMax: number;
   fitFluxMin: number;
   fitFluxMax: number;
-  ct0: number | null;
-  ct1: number | null;
-  ct2: number | null;
+  /** Temperature behaviour F0 + c·(T − T0)² of the loss (all three or none): T0 (°C), F0 (> 0), c (1/K², ≥ 0). */
+  lowestLossTemperature: number | null;
+  lowestLossFactor: number | null;
+  lossCurvature: number | null;
+  /** °C at which k holds (the engine divides the factor by its value there); null: k·factor(T) as stored. */
   referenceTemperature: number | null;
   /** Highest tolerated hot-spot temperature (°C); null: the engine's default for the family. */
   maxTemperature: number | null;
   bsat25: number;
   bsat100: number;
   permeability: number;
-  rollOffA: number | null;
-  rollOffB: number | null;
-  rollOffC: number | null;
+  /** Powder roll-off μ/μi = 1/(1 + (H/H½)ⁿ) (both or none): H½ (A/m), n. */
+  rollOffHalfField: number | null;
+  rollOffSteepness: number | null;
   density: number;
   provenance: string;
 }
 
-export function materialValuesFromRow(row: MaterialCsvRow): MaterialValues {
+/** A checked row as stored, with a notice per old column form it was converted from. */
+export function materialValuesFromRow(row: MaterialCsvRow): { values: MaterialValues; notices: CellProblem[] } {
   const scale = UNIT_SCALES[row.unit_set];
-  return {
+  const notices: CellProblem[] = [];
+  const { temperature, rollOff } = oldConversions((column) => {
+    const value = row[column];
+    return typeof value === 'number' ? value : undefined;
+  });
+  let behaviour =
+    row.lowest_loss_temperature !== undefined && row.lowest_loss_factor !== undefined && row.loss_curvature !== undefined
+      ? { t0: row.lowest_loss_temperature, f0: row.lowest_loss_factor, c: row.loss_curvature }
+      : undefined;
+  if (temperature && 'value' in temperature) {
+    const b = temperature.value;
+    behaviour = { t0: b.lowestLossTemperature, f0: b.lowestLossFactor, c: b.curvature };
+    notices.push({ column: 'ct0', message: temperature.notice });
+  }
+  let curve =
+    row.rolloff_half_field !== undefined && row.rolloff_steepness !== undefined
+      ? { h: row.rolloff_half_field, n: row.rolloff_steepness }
+      : undefined;
+  let permeability = row.mu_i;
+  if (rollOff && 'value' in rollOff) {
+    curve = { h: rollOff.value.rollOff.halfField, n: rollOff.value.rollOff.steepness };
+    permeability *= rollOff.value.permeabilityScale;
+    notices.push({ column: 'rolloff_a', message: rollOff.notice });
+  }
+  const values: MaterialValues = {
     name: row.name,
     family: row.family,
     unitSet: row.unit_set,
@@ -56,29 +85,38 @@ export function materialValuesFromRow(row: MaterialCsvRow): MaterialValues {
     fitFrequencyMax: row.f_max * scale.frequency,
     fitFluxMin: row.b_min * scale.flux,
     fitFluxMax: row.b_max * scale.flux,
-    ct0: row.ct0 ?? null,
-    ct1: row.ct1 ?? null,
-    ct2: row.ct2 ?? null,
+    lowestLossTemperature: behaviour?.t0 ?? null,
+    lowestLossFactor: behaviour?.f0 ?? null,
+    lossCurvature: behaviour?.c ?? null,
     referenceTemperature: row.t_ref ?? null,
     maxTemperature: row.max_temperature ?? null,
     bsat25: row.bsat_25 * scale.flux,
     bsat100: row.bsat_100 * scale.flux,
-    permeability: row.mu_i,
-    rollOffA: row.rolloff_a ?? null,
-    rollOffB: row.rolloff_b ?? null,
-    rollOffC: row.rolloff_c ?? null,
+    permeability,
+    rollOffHalfField: curve?.h ?? null,
+    rollOffSteepness: curve?.n ?? null,
     density: row.density,
     provenance: row.provenance,
   };
+  return { values, notices };
 }
 
-/** Validate one row of cells (column → text); absent columns count as empty cells. */
-export function validateMaterialCells(cells: Partial<Record<string, string>>): { values?: MaterialValues; problems: CellProblem[] } {
+/**
+ * Validate one row of cells (column → text); absent columns count as empty cells. Every problem of the row comes
+ * at once; `notices` are what does not stop the import (old columns converted, values worth a second look).
+ */
+export function validateMaterialCells(cells: Partial<Record<string, string>>): {
+  values?: MaterialValues;
+  problems: CellProblem[];
+  notices: CellProblem[];
+} {
   const input: Record<string, string> = {};
-  for (const column of MATERIAL_CSV_COLUMNS) input[column] = cells[column] ?? '';
+  for (const column of MATERIAL_READ_COLUMNS) input[column] = cells[column] ?? '';
+  const warnings = materialWarnings(input);
   const result = materialCsvRowSchema.safeParse(input);
-  if (!result.success) return { problems: cellProblems(result.error.issues) };
-  return { values: materialValuesFromRow(result.data), problems: [] };
+  if (!result.success) return { problems: cellProblems(result.error.issues), notices: warnings };
+  const { values, notices } = materialValuesFromRow(result.data);
+  return { values, problems: [], notices: [...notices, ...warnings] };
 }
 
 /** Cells of a stored version in its own unit set (for export and the edit form); the inverse of the import. */
@@ -96,17 +134,16 @@ export function materialCellsFromValues(values: MaterialValues): Record<Material
     f_max: text(values.fitFrequencyMax / scale.frequency),
     b_min: text(values.fitFluxMin / scale.flux),
     b_max: text(values.fitFluxMax / scale.flux),
-    ct0: text(values.ct0),
-    ct1: text(values.ct1),
-    ct2: text(values.ct2),
+    lowest_loss_temperature: text(values.lowestLossTemperature),
+    lowest_loss_factor: text(values.lowestLossFactor),
+    loss_curvature: text(values.lossCurvature),
     t_ref: text(values.referenceTemperature),
     max_temperature: text(values.maxTemperature),
     bsat_25: text(values.bsat25 / scale.flux),
     bsat_100: text(values.bsat100 / scale.flux),
     mu_i: text(values.permeability),
-    rolloff_a: text(values.rollOffA),
-    rolloff_b: text(values.rollOffB),
-    rolloff_c: text(values.rollOffC),
+    rolloff_half_field: text(values.rollOffHalfField),
+    rolloff_steepness: text(values.rollOffSteepness),
     density: text(values.density),
     provenance: values.provenance,
   };

@@ -5,3 +5,4 @@ export * from './material-answers';
 export * from './material-csv';
 export * from './material-requests';
 export * from './material-values';
+export * from './material-warnings';

@@ -188,6 +188,55 @@ describe('POST /api/calc/search and /api/calc/evaluate', () => {
   });
 });
 
+describe('inline materials in our own terms', () => {
+  // An invented powder: T0 = 90 °C, F0 = 1, c = 1e-4 is the engine's 1e-4·T² − 0.018·T + 1.81, and H½ = 5000 A/m,
+  // n = 1.8 is 1/(1 + 5000^−1.8·H^1.8) (algebra, no source).
+  const POWDER = {
+    name: 'Inline powder (invented)',
+    family: 'powder',
+    k: 60,
+    alpha: 1.3,
+    beta: 2.2,
+    fitFrequencyMin: 1e4,
+    fitFrequencyMax: 5e5,
+    fitFluxMin: 0.005,
+    fitFluxMax: 0.4,
+    bsat25: 1,
+    bsat100: 0.95,
+    permeability: 60,
+    density: 7000,
+  };
+  const named = {
+    ...POWDER,
+    temperatureBehaviour: { lowestLossTemperature: 90, lowestLossFactor: 1, curvature: 1e-4 },
+    rollOffCurve: { halfField: 5000, steepness: 1.8 },
+  };
+  const engineForm = { ...POWDER, tempCoefficients: { ct0: 1.81, ct1: 0.018, ct2: 1e-4 }, rollOff: { a: 1, b: 5000 ** -1.8, c: 1.8 } };
+  const evaluate = (material: object) =>
+    engineer.post('/api/calc/evaluate', {
+      spec: EXAMPLE_SPEC,
+      coreId: 'T46.7/24.1/18.0',
+      material,
+      turns: 'auto',
+      gap: 'auto',
+      wire: { kind: 'awg', awg: 18, strands: 2 },
+    });
+
+  it('gives the same result as the engine constants they stand for', async () => {
+    const [a, b] = await Promise.all([evaluate(named), evaluate(engineForm)]);
+    expect(a.status, JSON.stringify(a.body)).toBe(200);
+    expect(b.status).toBe(200);
+    expect(relative(a.body.result.totalLoss, b.body.result.totalLoss)).toBeLessThan(1e-9);
+    expect(a.body.result.turns).toBe(b.body.result.turns);
+  });
+
+  it('refuses both forms of one quantity, naming the field', async () => {
+    const res = await evaluate({ ...named, rollOff: engineForm.rollOff });
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields['material.rollOffCurve']).toMatch(/not both/);
+  });
+});
+
 describe.each<[Role | 'anonymous', number]>([
   ['anonymous', 401],
   ['engineer', 200],

@@ -34,46 +34,58 @@ interface Listed {
   name: string;
   maxTemperature?: number;
   tempCoefficients?: { ct0: number; ct1: number; ct2: number };
+  temperatureBehaviour: { lowestLossTemperature: number; lowestLossFactor: number; curvature: number } | null;
   cells: Record<string, string>;
 }
 const library = async () => (await engineer.get('/api/materials/library')).body.materials as Listed[];
 const named = async (name: string) => (await library()).find((m) => m.name === name)!;
 
-// 2e-4·T² − 0.04·T + 1.5 (invented) has its vertex at 100 °C with the value −0.5 (calculus, no source needed).
-const NEGATIVE_FACTOR = { ct0: '1.5', ct1: '0.04', ct2: '0.0002', t_ref: '' };
+// A loss factor F0 of 0 is outside its range (F0 > 0 keeps the factor positive everywhere; algebra, no source).
+const ZERO_FACTOR = { lowest_loss_temperature: '90', lowest_loss_factor: '0', loss_curvature: '0.0001' };
 
-describe('a temperature factor that is not positive over the material range', () => {
-  it('is refused at import by row and column, with every other problem of that row, and nothing is written', async () => {
+describe('the checks of a row, all at once', () => {
+  it('reports every problem of a row together (f_min above f_max among them), notes warnings, and writes nothing', async () => {
     const text = csvFile([
       { name: 'Limits good row' },
-      { name: 'Limits bad row', ...NEGATIVE_FACTOR, f_min: '400000', bsat_25: '7', max_temperature: '155' },
+      { name: 'Limits bad row', ...ZERO_FACTOR, f_min: '400000', bsat_25: '7', max_temperature: '155' },
+      // Invented: Bsat at 100 °C above Bsat at 25 °C is unusual for ferrite but not impossible (common practice, no source).
+      { name: 'Limits swapped bsat', bsat_25: '0.4', bsat_100: '0.5' },
     ]);
     const before = await counts();
     const preview = await upload('preview', text);
     expect(preview.status).toBe(200);
-    expect(preview.body.rows[0]).toMatchObject({ row: 2, status: 'new', problems: [] });
+    expect(preview.body.rows[0]).toMatchObject({ row: 2, status: 'new', problems: [], notices: [] });
     const bad = preview.body.rows[1] as { row: number; status: string; problems: { column: string; message: string }[] };
     expect(bad).toMatchObject({ row: 3, status: 'error' });
     const byColumn = Object.fromEntries(bad.problems.map((p) => [p.column, p.message]));
-    expect(Object.keys(byColumn).sort()).toEqual(['bsat_25', 'ct1', 'f_min']);
-    expect(byColumn['ct1']).toBe(
-      'ct1 makes the temperature factor ct2·T² − ct1·T + ct0 -0.500 at 100 °C; it must stay above 0 from -40 to 155 °C (up to max_temperature)',
-    );
-    expect(byColumn['f_min']).toMatch(/must not exceed f_max/);
+    expect(Object.keys(byColumn).sort()).toEqual(['bsat_25', 'f_min', 'lowest_loss_factor']);
+    expect(byColumn['lowest_loss_factor']).toBe('lowest_loss_factor must be greater than 0 (got 0)');
+    expect(byColumn['f_min']).toBe('f_min must be below f_max (400000 ≥ 300000)');
+    expect(preview.body.rows[2]).toMatchObject({
+      row: 4,
+      status: 'new',
+      problems: [],
+      notices: [
+        {
+          column: 'bsat_100',
+          message: 'exceeds bsat_25: ferrite saturation normally falls with temperature; check the columns are not swapped',
+        },
+      ],
+    });
 
     const commit = await upload('commit', text);
     expect(commit.status).toBe(400);
-    expect(Object.keys(commit.body.error.fields).sort()).toEqual(['row 3.bsat_25', 'row 3.ct1', 'row 3.f_min']);
+    expect(Object.keys(commit.body.error.fields).sort()).toEqual(['row 3.bsat_25', 'row 3.f_min', 'row 3.lowest_loss_factor']);
     expect(await counts()).toEqual(before);
   });
 
-  it('is refused by an edit with a 400 naming the coefficient, and nothing is written', async () => {
+  it('an edit outside a range is refused with a 400 naming the column, and nothing is written', async () => {
     const { id } = (await library())[0]!;
     const before = await counts();
-    const res = await engineer.patch(`/api/materials/${id}`, { ...NEGATIVE_FACTOR, max_temperature: '' });
+    const res = await engineer.patch(`/api/materials/${id}`, { ...ZERO_FACTOR, loss_curvature: '-1e-4' });
     expect(res.status).toBe(400);
-    expect(Object.keys(res.body.error.fields)).toEqual(['ct1']);
-    expect(res.body.error.fields.ct1).toMatch(/-0\.500 at 100 °C; it must stay above 0 from -40 to 200 °C/);
+    expect(Object.keys(res.body.error.fields).sort()).toEqual(['loss_curvature', 'lowest_loss_factor']);
+    expect(res.body.error.fields.loss_curvature).toMatch(/between 0 and 1/);
     expect(await counts()).toEqual(before);
   });
 });
@@ -146,12 +158,15 @@ describe('max_temperature', () => {
 });
 
 describe('t_ref', () => {
-  it('refers the coefficients to t_ref for the engine and keeps the cells as uploaded', async () => {
-    // 1e-4·T² − 0.03·T + 2.8 (invented) is 0.8 at 100 °C, so the engine's coefficients are these divided by 0.8.
-    const commit = await upload('commit', csvFile([{ name: 'Limits referred', ct0: '2.8', ct1: '0.03', ct2: '0.0001', t_ref: '100' }]));
+  it('refers the behaviour to t_ref for the engine and keeps the cells as uploaded', async () => {
+    // T0 = 150 °C, F0 = 0.55, c = 1e-4 (invented) is 1e-4·T² − 0.03·T + 2.8, 0.8 at 100 °C (algebra, no source), so the
+    // engine's coefficients are these divided by 0.8.
+    const behaviour = { lowest_loss_temperature: '150', lowest_loss_factor: '0.55', loss_curvature: '0.0001', t_ref: '100' };
+    const commit = await upload('commit', csvFile([{ name: 'Limits referred', ...behaviour }]));
     expect(commit.status).toBe(201);
     const material = await named('Limits referred');
-    expect(material.cells).toMatchObject({ ct0: '2.8', ct1: '0.03', ct2: '0.0001', t_ref: '100' });
+    expect(material.cells).toMatchObject(behaviour);
+    expect(material.temperatureBehaviour).toEqual({ lowestLossTemperature: 150, lowestLossFactor: 0.55, curvature: 1e-4 });
     expect(material.tempCoefficients!.ct0).toBeCloseTo(3.5, 12);
     expect(material.tempCoefficients!.ct1).toBeCloseTo(0.0375, 12);
     expect(material.tempCoefficients!.ct2).toBeCloseTo(1.25e-4, 15);

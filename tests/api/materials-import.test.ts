@@ -57,22 +57,20 @@ const HOSTILE: [string, RegExp, RegExp][] = [
   ['latin1-bytes.csv', /^file$/, /UTF-8/],
   ['binary-renamed.csv', /^file$/, /binary/],
   ['unknown-column.csv', /^header\.colour$/, /Unknown column "colour"/],
-  ['ragged-row.csv', /^row 3\.\(row\)$/, /has 10 cells; the header has 22/],
+  ['ragged-row.csv', /^row 3\.\(row\)$/, /has 10 cells; the header has 21/],
   ['decimal-comma.csv', /^row 2\.alpha$/, /decimal separator/],
   ['unclosed-quote.csv', /^file$/, /never closed/],
-  ['f-min-above-f-max.csv', /^row 2\.f_min$/, /must not exceed f_max/],
+  ['f-min-above-f-max.csv', /^row 2\.f_min$/, /must be below f_max \(400000 ≥ 300000\)/],
   ['unknown-unit-set.csv', /^row 2\.unit_set$/, /W\/m3-Hz-T or mW\/cm3-kHz-mT/],
   ['bsat-in-wrong-unit.csv', /^row 2\.bsat_25$/, /between 0.05 and 3 T/],
-  ['partial-rolloff.csv', /^row 2\.rolloff_b$/, /required when rolloff_a, rolloff_c are given/],
+  ['partial-rolloff.csv', /^row 2\.rolloff_steepness$/, /required when rolloff_half_field is given \(both or none\)/],
   ['missing-required-cell.csv', /^row 2\.density$/, /is required/],
   ['duplicate-header.csv', /^header\.name$/, /appears twice/],
   ['infinite-number.csv', /^row 2\.k$/, /finite/],
-  // 2e-4·T² − 0.04·T + 1.5 (invented) is −0.5 at its vertex, 100 °C (calculus, no source needed); row 2 is valid, yet nothing is written.
-  [
-    'negative-temperature-factor.csv',
-    /^row 3\.ct1$/,
-    /temperature factor ct2·T² − ct1·T \+ ct0 -0\.500 at 100 °C; it must stay above 0 from -40 to 180 °C/,
-  ],
+  // The old-format file (ct0, ct1, ct2): 2e-4·T² − 0.04·T + 1.5 (invented) is −0.5 at its vertex, 100 °C (algebra, no
+  // source), so it has no positive named form; row 2 converts, yet nothing is written.
+  ['negative-temperature-factor.csv', /^row 3\.ct0$/, /lowest value at or below zero, so it cannot be positive at every temperature/],
+  ['mixed-old-new-columns.csv', /^header\.ct0$/, /old column of the temperature behaviour and cannot be used with lowest_loss_temperature/],
   ['max-temperature-out-of-range.csv', /^row 2\.max_temperature$/, /between 50 and 400 \(got 450\)/],
 ];
 
@@ -99,7 +97,7 @@ describe('hostile and broken material CSV files', () => {
 
   it('refuses more than 10,000 rows (generated)', async () => {
     const before = await counts();
-    const rows = Array.from({ length: 10_001 }, (_, i) => `R${i},ferrite,W/m3-Hz-T,3,1.4,2.6,1,2,0,1,,,,,,0.5,0.4,2000,,,,4800,x`);
+    const rows = Array.from({ length: 10_001 }, (_, i) => `R${i},ferrite,W/m3-Hz-T,3,1.4,2.6,1,2,0,1,,,,,,0.5,0.4,2000,,,4800,x`);
     const res = await upload(engineer, 'commit', `${HEADER}\n${rows.join('\n')}\n`);
     expect(res.status).toBe(400);
     expect(res.body.error.fields.file).toMatch(/more than 10000 material rows/);
@@ -224,6 +222,8 @@ describe('valid uploads', () => {
       expect(copy!['unitSet']).toBe(original['unitSet']);
       expect(copy!['tempCoefficients']).toEqual(original['tempCoefficients']);
       expect(copy!['rollOff']).toEqual(original['rollOff']);
+      expect(copy!['temperatureBehaviour']).toEqual(original['temperatureBehaviour']);
+      expect(copy!['rollOffCurve']).toEqual(original['rollOffCurve']);
     }
   });
 
@@ -232,16 +232,77 @@ describe('valid uploads', () => {
     const target = list.find((m) => m.name === 'Lab ferrite two')!;
     const edited = await engineer.patch(`/api/materials/${target.id}`, {
       provenance: 'note: =1+1 inside is fine',
-      ct0: '1.5',
-      ct1: '-0.01',
-      ct2: '0.0001',
+      lowest_loss_temperature: '-10',
+      lowest_loss_factor: '1',
+      loss_curvature: '0.0001',
     });
     expect(edited.status).toBe(201);
     const csv = await engineer.get(`/api/materials/export.csv?ids=${edited.body.id}`);
     // The negative number starts with "-", so the export prefixes it with an apostrophe.
-    expect(csv.text).toContain(",'-0.01,");
+    expect(csv.text).toContain(",'-10,");
     const reimport = await upload(engineer, 'preview', csv.text.replace('Lab ferrite two', 'Lab ferrite three'));
     expect(reimport.body.summary).toMatchObject({ new: 1, errors: 0 });
+  });
+});
+
+describe('files in the previous format version (ct0, ct1, ct2; rolloff_a, rolloff_b, rolloff_c)', () => {
+  // Invented rows. 1e-4·T² − 0.018·T + 1.43 has its minimum 0.62 at 90 °C; 1/(1.25 + 2e-7·H^1.6) is the curve
+  // 0.8/(1 + (H/H½)^1.6) with H½ = (1.25/2e-7)^(1/1.6) (algebra, no source).
+  const OLD_HEADER =
+    'name,family,unit_set,k,alpha,beta,f_min,f_max,b_min,b_max,ct0,ct1,ct2,t_ref,bsat_25,bsat_100,mu_i,rolloff_a,rolloff_b,rolloff_c,density,provenance';
+  const OLD_FILE = [
+    OLD_HEADER,
+    'Old ferrite (invented),ferrite,W/m3-Hz-T,3.2,1.4,2.6,50000,300000,0.02,0.25,1.43,0.018,0.0001,90,0.5,0.4,2300,,,,4800,Invented old row',
+    'Old powder (invented),powder,W/m3-Hz-T,60,1.3,2.2,10000,500000,0.005,0.4,,,,,1,0.95,60,1.25,2e-7,1.6,7000,Invented old row',
+  ].join('\n');
+
+  it('converts each row to the named parameters, says so in a notice per row, and stores the new form', async () => {
+    const preview = await upload(engineer, 'preview', OLD_FILE, 'old.csv');
+    expect(preview.status).toBe(200);
+    expect(preview.body.summary).toEqual({ rows: 2, new: 2, exists: 0, errors: 0 });
+    const [ferrite, powder] = preview.body.rows as { notices: { column: string; message: string }[] }[];
+    expect(ferrite!.notices).toEqual([
+      {
+        column: 'ct0',
+        message:
+          'old columns ct0, ct1, ct2 converted to lowest-loss temperature 90 °C, factor 0.62, curvature 1.0e-4 /K²; ' +
+          'this old format is read until the next format version',
+      },
+    ]);
+    expect(powder!.notices[0]!.message).toMatch(
+      /rolloff_a = 1\.25 is not 1, so mu_i is multiplied by 1\/a = 0\.8 to keep the curve exactly/,
+    );
+
+    const commit = await upload(engineer, 'commit', OLD_FILE, 'old.csv');
+    expect(commit.status, JSON.stringify(commit.body)).toBe(201);
+    const library = (await engineer.get('/api/materials/library')).body.materials as Record<string, unknown>[];
+    const stored = library.find((m) => m['name'] === 'Old ferrite (invented)')!;
+    const b = stored['temperatureBehaviour'] as { lowestLossTemperature: number; lowestLossFactor: number; curvature: number };
+    expect(b.lowestLossTemperature).toBeCloseTo(90, 9);
+    expect(b.lowestLossFactor).toBeCloseTo(0.62, 12);
+    expect(b.curvature).toBe(1e-4);
+    expect(Object.keys(stored['cells'] as object)).not.toContain('ct0');
+    // The engine sees the old quadratic referred to t_ref = 90 °C: divided by 0.62 (algebra, no source).
+    const q = stored['tempCoefficients'] as { ct0: number; ct1: number; ct2: number };
+    expect(q.ct0).toBeCloseTo(1.43 / 0.62, 10);
+    expect(q.ct1).toBeCloseTo(0.018 / 0.62, 12);
+    const powderStored = library.find((m) => m['name'] === 'Old powder (invented)')!;
+    expect(powderStored['permeability']).toBeCloseTo(48, 12);
+    const curve = powderStored['rollOffCurve'] as { halfField: number; steepness: number };
+    expect(curve.halfField).toBeCloseTo((1.25 / 2e-7) ** (1 / 1.6), 6);
+    expect(curve.steepness).toBe(1.6);
+    // The engine's constants are a = 1, b = H½^−n: μi′·μ% = 48/(1 + (1.25/2e-7)^−1·H^1.6) = 60/(1.25 + 2e-7·H^1.6).
+    const rollOff = powderStored['rollOff'] as { a: number; b: number; c: number };
+    expect(rollOff.a).toBe(1);
+    expect(rollOff.b).toBeCloseTo(2e-7 / 1.25, 18);
+  });
+
+  it('refuses a row whose old quadratic opens downwards, naming ct2 and what to give instead', async () => {
+    const text = `${OLD_HEADER}\nOld falling (invented),ferrite,W/m3-Hz-T,3.2,1.4,2.6,50000,300000,0.02,0.25,1,0,-0.0001,,0.5,0.4,2300,,,,4800,x\n`;
+    const preview = await upload(engineer, 'preview', text, 'old.csv');
+    const problems = (preview.body.rows[0] as { problems: { column: string; message: string }[] }).problems;
+    expect(problems.map((p) => p.column)).toEqual(['ct2']);
+    expect(problems[0]!.message).toMatch(/opens? downwards.*give lowest_loss_temperature \(°C\), lowest_loss_factor/);
   });
 });
 

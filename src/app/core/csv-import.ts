@@ -71,7 +71,7 @@ export class CsvImport<R> {
     { name: 'row', header: 'Row', text: (row) => row.row },
     { name: 'name', header: 'Name', text: (row) => row.name || null },
     { name: 'status', header: 'Status' },
-    { name: 'problems', header: 'Problems (column: message)' },
+    { name: 'problems', header: 'Problems and notes (column: message)' },
     { name: 'decision', header: 'Decision' },
   ];
   protected readonly canCommit = computed(() => {

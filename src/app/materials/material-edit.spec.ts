@@ -48,7 +48,8 @@ describe('MaterialEdit', () => {
     expect(fieldLabelled(page, BETA).value).toBe('2.5');
     expect(fieldLabelled(page, 'Lowest frequency f min (Hz)').value).toBe('50000');
     expect(fieldLabelled(page, 'Bsat at 25 °C (T)').value).toBe('0.5');
-    expect(fieldLabelled(page, 'ct0 (no unit)').value).toBe('');
+    expect(fieldLabelled(page, 'Temperature of lowest loss (°C)').value).toBe('');
+    expect(fieldLabelled(page, 'Field at half permeability H½ (A/m)').value).toBe('');
     expect(page.textContent).toContain('Saving adds version 4 of this material');
   });
 
@@ -89,27 +90,56 @@ describe('MaterialEdit', () => {
     expect(close).not.toHaveBeenCalled();
   });
 
-  it('edits the temperature limit as its own cell and shows the server’s refusal of a temperature factor on ct1', async () => {
+  it('edits the temperature limit and the named temperature behaviour, and shows the server’s refusal on its field', async () => {
     const LIMIT = 'Highest temperature max_temperature (°C)';
     expect(fieldLabelled(page, LIMIT).value).toBe('');
     typeInto(page, LIMIT, '155');
-    typeInto(page, 'ct0 (no unit)', '1.5');
-    typeInto(page, 'ct1 (1/°C)', '0.04');
-    typeInto(page, 'ct2 (1/°C²)', '0.0002');
+    typeInto(page, 'Temperature of lowest loss (°C)', '90');
+    typeInto(page, 'Loss factor there', '0');
+    typeInto(page, 'Curvature (1/K²)', '0.0001');
     button('Save as version 4').click();
     await fixture.whenStable();
 
     const request = http.expectOne('/api/materials/12');
-    expect(request.request.body).toEqual({ ct0: '1.5', ct1: '0.04', ct2: '0.0002', max_temperature: '155' });
-    const message =
-      'ct1 makes the temperature factor ct2·T² − ct1·T + ct0 -0.500 at 100 °C; it must stay above 0 from -40 to 155 °C (up to max_temperature)';
+    expect(request.request.body).toEqual({
+      lowest_loss_temperature: '90',
+      lowest_loss_factor: '0',
+      loss_curvature: '0.0001',
+      max_temperature: '155',
+    });
+    const message = 'lowest_loss_factor must be greater than 0 (got 0)';
     request.flush(
-      { error: { code: 'invalid_input', message: `The edit is not valid: ${message}`, fields: { ct1: message } } },
+      { error: { code: 'invalid_input', message: `The edit is not valid: ${message}`, fields: { lowest_loss_factor: message } } },
       { status: 400, statusText: 'Bad Request' },
     );
     await fixture.whenStable();
-    expect(fieldOf('ct1 (1/°C)').querySelector('mat-error')?.textContent?.trim()).toBe(message);
+    expect(fieldOf('Loss factor there').querySelector('mat-error')?.textContent?.trim()).toBe(message);
     expect(close).not.toHaveBeenCalled();
+  });
+
+  it('explains the named fields with hints and sends the roll-off under its own names', async () => {
+    expect(fieldOf('Roll-off steepness n').querySelector('mat-hint')?.textContent).toContain('how sharply μ falls around H½');
+    typeInto(page, 'Field at half permeability H½ (A/m)', '5000');
+    typeInto(page, 'Roll-off steepness n', '1.8');
+    button('Save as version 4').click();
+    await fixture.whenStable();
+    const request = http.expectOne('/api/materials/12');
+    expect(request.request.body).toEqual({ rolloff_half_field: '5000', rolloff_steepness: '1.8' });
+    request.flush({ ...MATERIAL, version: 4 });
+    await fixture.whenStable();
+  });
+
+  it('notes Bsat at 100 °C above Bsat at 25 °C as a warning that does not stop the save', async () => {
+    expect(page.querySelector('.gw-warning')).toBeNull();
+    typeInto(page, 'Bsat at 100 °C (T)', '0.6');
+    await fixture.whenStable();
+    expect(page.querySelector('.gw-warning')?.textContent).toContain(
+      'bsat_100: exceeds bsat_25: ferrite saturation normally falls with temperature; check the columns are not swapped',
+    );
+    button('Save as version 4').click();
+    await fixture.whenStable();
+    http.expectOne('/api/materials/12').flush({ ...MATERIAL, version: 4 });
+    await fixture.whenStable();
   });
 
   it('checks only that numbers are numbers before sending anything', async () => {

@@ -1,4 +1,5 @@
 import { ChangeDetectionStrategy, Component, ElementRef, Injector, afterNextRender, computed, inject, signal } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, ReactiveFormsModule, Validators, type AbstractControl, type ValidationErrors } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
@@ -18,6 +19,8 @@ import {
   type MaterialUnitSet,
 } from '@shared/schemas/material-csv';
 import type { MaterialEdit as MaterialEditCells } from '@shared/schemas/material-requests';
+import { materialWarnings } from '@shared/schemas/material-warnings';
+import { map } from 'rxjs';
 
 import { errorMessageOf } from '../core/api-error';
 import { showServerFieldErrors } from '../core/server-field-errors';
@@ -76,6 +79,7 @@ function convertedCells(cells: Cells, to: MaterialUnitSet): Partial<Cells> {
 interface NumberField {
   column: MaterialCsvColumn;
   label: string;
+  hint?: string;
 }
 interface FieldSection {
   id: string;
@@ -108,6 +112,11 @@ export class MaterialEdit {
   protected readonly busy = signal(false);
   protected readonly formError = signal<string | null>(null);
   private readonly unitSet = signal(this.material.cells.unit_set as MaterialUnitSet);
+  private readonly cells = toSignal(this.form.valueChanges.pipe(map(() => this.form.getRawValue())), {
+    initialValue: this.form.getRawValue(),
+  });
+  /** What the import would note for these cells (saving is still allowed). */
+  protected readonly warnings = computed(() => materialWarnings(this.cells()));
 
   protected readonly sections = computed((): FieldSection[] => {
     const set = this.unitSet();
@@ -135,13 +144,13 @@ export class MaterialEdit {
       },
       {
         id: 'temperature',
-        legend: 'Temperature correction ct2·T² − ct1·T + ct0 (optional)',
-        note: 'T in °C. Give all three coefficients or none; leave them empty for no correction. With t_ref, k is the loss at t_ref: the factor is divided by its value there. It must stay above 0 from −40 °C up to the temperature limit.',
+        legend: 'How core loss changes with temperature (optional)',
+        note: 'The loss is k·f^α·B̂^β times a factor F0 + c·(T − T0)²: lowest at T0, rising on either side. Give all three or none; leave them empty for no temperature correction. With t_ref, k is the loss at t_ref and the factor is divided by its value there.',
         fields: [
-          { column: 'ct0', label: 'ct0 (no unit)' },
-          { column: 'ct1', label: 'ct1 (1/°C)' },
-          { column: 'ct2', label: 'ct2 (1/°C²)' },
-          { column: 't_ref', label: 'Reference temperature t_ref (°C)' },
+          { column: 'lowest_loss_temperature', label: 'Temperature of lowest loss (°C)', hint: 'T0, where the loss curve bottoms out' },
+          { column: 'lowest_loss_factor', label: 'Loss factor there', hint: 'F0 > 0; 1 when k holds at T0' },
+          { column: 'loss_curvature', label: 'Curvature (1/K²)', hint: 'c ≥ 0; e.g. 1e-4 doubles the loss 100 K from T0' },
+          { column: 't_ref', label: 'Reference temperature t_ref (°C)', hint: 'where k was measured' },
         ],
       },
       {
@@ -162,12 +171,11 @@ export class MaterialEdit {
       },
       {
         id: 'rolloff',
-        legend: 'DC-bias roll-off μ/μi = 1/(a + b·H^c) (optional, for powder materials)',
-        note: 'H in A/m. Give all three or none; leave them empty for materials whose permeability does not roll off with bias.',
+        legend: 'Permeability under DC bias (optional, for powder materials)',
+        note: 'μ/μi = 1/(1 + (H/H½)ⁿ), H in A/m. Give both or none; leave them empty for materials whose permeability does not roll off with bias.',
         fields: [
-          { column: 'rolloff_a', label: 'Roll-off a (no unit)' },
-          { column: 'rolloff_b', label: 'Roll-off b (per (A/m)^c)' },
-          { column: 'rolloff_c', label: 'Roll-off c (no unit)' },
+          { column: 'rolloff_half_field', label: 'Field at half permeability H½ (A/m)', hint: 'the bias field where μ has fallen to μi/2' },
+          { column: 'rolloff_steepness', label: 'Roll-off steepness n', hint: 'how sharply μ falls around H½; > 0' },
         ],
       },
     ];

@@ -40,6 +40,25 @@ describe('MaterialUpload', () => {
     expect(button('Import these materials').disabled).toBe(true);
   });
 
+  it('shows a row’s notices apart from problems, and the row stays importable', async () => {
+    await chooseFile('name,ct0,ct1,ct2\nOld,1.43,0.018,0.0001\n');
+    const notice =
+      'old columns ct0, ct1, ct2 converted to lowest-loss temperature 90 °C, factor 0.62, curvature 1.0e-4 /K²; ' +
+      'this old format is read until the next format version';
+    http.expectOne('/api/materials/import/preview').flush({
+      fileName: 'old.csv',
+      rows: [{ row: 2, name: 'Old', status: 'new', problems: [], notices: [{ column: 'ct0', message: notice }] }],
+      summary: { rows: 1, new: 1, exists: 0, errors: 0 },
+    });
+    await fixture.whenStable();
+
+    const cell = page.querySelector('td.mat-column-problems')!;
+    expect(cell.querySelector('.gw-notice')?.textContent).toContain(`Note, ct0: ${notice}`);
+    expect(cell.textContent).not.toContain('—');
+    expect(button('Import these materials').disabled).toBe(false);
+    // http.verify() in afterEach: nothing is committed until the button is pressed.
+  });
+
   it('sends the decision for an existing name with the commit', async () => {
     await chooseFile('name\nLab\n');
     http.expectOne('/api/materials/import/preview').flush({

@@ -47,7 +47,8 @@ describe('row validation', () => {
     expect(values).toMatchObject({ fitFrequencyMin: 50e3, fitFrequencyMax: 300e3, unitSet: 'mW/cm3-kHz-mT', kUploaded: 0.0032 });
     expect(values!.fitFluxMax).toBeCloseTo(0.25, 12);
     expect(values!.bsat25).toBeCloseTo(0.5, 12);
-    expect(values!.ct0).toBeNull();
+    expect(values!.lowestLossTemperature).toBeNull();
+    expect(values!.rollOffHalfField).toBeNull();
   });
 
   it('names the column of each problem', () => {
@@ -62,8 +63,8 @@ describe('row validation', () => {
 
   it('refuses formula-like text and reads back apostrophe-escaped negative numbers', () => {
     expect(validateMaterialCells({ ...FERRITE_CELLS, provenance: '+cmd' }).problems[0]?.column).toBe('provenance');
-    const { values } = validateMaterialCells({ ...FERRITE_CELLS, ct0: '1.5', ct1: "'-0.01", ct2: '0.0001' });
-    expect(values?.ct1).toBe(-0.01);
+    const behaviour = { lowest_loss_temperature: "'-10", lowest_loss_factor: '1', loss_curvature: '0.0001' };
+    expect(validateMaterialCells({ ...FERRITE_CELLS, ...behaviour }).values?.lowestLossTemperature).toBe(-10);
   });
 
   it('turns stored values back into the same cells', () => {

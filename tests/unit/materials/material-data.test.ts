@@ -8,17 +8,13 @@ const { tempCoefficients: _factor, ...plain } = ferriteA;
 const MATERIAL: CoreMaterial = { ...plain, k: 2, alpha: 1.5, beta: 2.5 };
 
 describe('lowestLossTemperature', () => {
-  it('is the minimum of the parabola ct2·T² − ct1·T + ct0, at ct1/(2·ct2) (calculus)', () => {
-    // 1e-4·T² − 0.018·T + 1.81 has its minimum at 90 °C.
-    expect(lowestLossTemperature({ ...MATERIAL, tempCoefficients: { ct2: 1e-4, ct1: 0.018, ct0: 1.81 } })).toBeCloseTo(90, 12);
+  it('is the stored temperature of lowest loss when the factor curves up from it', () => {
+    expect(lowestLossTemperature({ lowestLossTemperature: 90, lossCurvature: 1e-4 })).toBe(90);
   });
 
-  it('is null without coefficients, for a flat factor and for a parabola that is not positive everywhere', () => {
-    expect(lowestLossTemperature(MATERIAL)).toBeNull();
-    expect(lowestLossTemperature({ ...MATERIAL, tempCoefficients: { ct2: 0, ct1: 0, ct0: 1 } })).toBeNull();
-    expect(lowestLossTemperature({ ...MATERIAL, tempCoefficients: { ct2: -1e-4, ct1: 0, ct0: 1 } })).toBeNull();
-    // ct0 = 0.5 puts the minimum at 0.5 − 1e-4·90² = −0.31 (arithmetic).
-    expect(lowestLossTemperature({ ...MATERIAL, tempCoefficients: { ct2: 1e-4, ct1: 0.018, ct0: 0.5 } })).toBeNull();
+  it('is null without a temperature behaviour and for a flat factor, which has no lowest point', () => {
+    expect(lowestLossTemperature({ lowestLossTemperature: null, lossCurvature: null })).toBeNull();
+    expect(lowestLossTemperature({ lowestLossTemperature: 25, lossCurvature: 0 })).toBeNull();
   });
 });
 

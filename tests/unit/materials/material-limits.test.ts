@@ -22,9 +22,8 @@ const POWDER_CELLS = {
   bsat_25: '1',
   bsat_100: '0.95',
   mu_i: '60',
-  rolloff_a: '1',
-  rolloff_b: String(Math.pow(8000, -1.3)),
-  rolloff_c: '1.3',
+  rolloff_half_field: '8000',
+  rolloff_steepness: '1.3',
   density: '7000',
   provenance: 'Invented unit-test row',
 };
@@ -69,48 +68,51 @@ describe('max_temperature', () => {
   });
 });
 
-// The factor ct2·T² − ct1·T + ct0 is a parabola; its lowest value on a range is at an end or at the vertex ct1/(2·ct2)
-// (calculus, no source needed). All coefficients below are invented.
-describe('a temperature factor that is not positive somewhere in the range', () => {
-  it('is refused naming the coefficient, the temperature and the value', () => {
-    // 2e-4·T² − 0.04·T + 1.5: vertex at 100 °C, value 1.5 − 2 = −0.5; there −ct1·T = −4 pulls it down most.
-    const problems = problemsOf({ ...POWDER_CELLS, ct0: '1.5', ct1: '0.04', ct2: '0.0002' });
-    expect(Object.keys(problems)).toEqual(['ct1']);
-    expect(problems['ct1']).toBe(
-      'ct1 makes the temperature factor ct2·T² − ct1·T + ct0 -0.500 at 100 °C; it must stay above 0 from -40 to 200 °C (up to the default without max_temperature)',
-    );
+// F0 + c·(T − T0)² with F0 > 0 and c ≥ 0 is positive at every temperature (algebra, no source): the named cells are
+// plain range checks. All values below are invented.
+describe('the named temperature behaviour', () => {
+  it('refuses a factor F0 ≤ 0 and a negative curvature as plain cell range checks', () => {
+    const behaviour = { lowest_loss_temperature: '90', lowest_loss_factor: '0', loss_curvature: '-1e-4' };
+    const problems = problemsOf({ ...POWDER_CELLS, ...behaviour });
+    expect(problems['lowest_loss_factor']).toBe('lowest_loss_factor must be greater than 0 (got 0)');
+    expect(problems['loss_curvature']).toBe('loss_curvature must be between 0 and 1 (got -0.0001)');
   });
 
-  it('is checked up to max_temperature when the row gives one, and up to t_ref when that lies above', () => {
-    // 1.7 − 0.01·T: 0.15 at 155 °C, 0 at 170 °C, −0.3 at 200 °C.
-    const falling = { ...POWDER_CELLS, ct0: '1.7', ct1: '0.01', ct2: '0' };
-    expect(problemsOf({ ...falling, max_temperature: '155' })).toEqual({});
-    expect(problemsOf(falling)['ct1']).toMatch(/-0\.300 at 200 °C/);
-    expect(problemsOf({ ...falling, max_temperature: '155', t_ref: '180' })['ct1']).toMatch(
-      /-0\.100 at 180 °C; it must stay above 0 from -40 to 180 °C/,
-    );
+  it('takes all three or none', () => {
+    const problems = problemsOf({ ...POWDER_CELLS, lowest_loss_temperature: '90' });
+    expect(Object.keys(problems).sort()).toEqual(['loss_curvature', 'lowest_loss_factor']);
+    expect(problems['loss_curvature']).toMatch(/required when lowest_loss_temperature is given \(all three or none\)/);
   });
 
-  it('blames ct0 where the constant term is what goes negative', () => {
-    // −0.2 + 0.001·T: −0.24 at −40 °C, where ct0 = −0.2 is the most negative term (−ct1·T = −0.04).
-    expect(problemsOf({ ...POWDER_CELLS, ct0: '-0.2', ct1: '-0.001', ct2: '0' })['ct0']).toMatch(/-0\.240 at -40 °C/);
-  });
-
-  it('is reported together with every other problem of the row', () => {
+  it('reports every problem of the row at once, f_min above f_max among them', () => {
     const problems = problemsOf({
       ...POWDER_CELLS,
       f_min: '600000',
       alpha: 'x',
       bsat_25: '9',
       max_temperature: '20',
-      rolloff_c: '',
-      ct0: '1.5',
-      ct1: '0.04',
-      ct2: '0.0002',
+      rolloff_steepness: '',
+      lowest_loss_factor: '-1',
+      lowest_loss_temperature: '90',
+      loss_curvature: '1e-4',
     });
-    expect(Object.keys(problems).sort()).toEqual(['alpha', 'bsat_25', 'ct1', 'f_min', 'max_temperature', 'rolloff_c']);
-    expect(problems['f_min']).toMatch(/must not exceed f_max/);
-    expect(problems['rolloff_c']).toMatch(/required when rolloff_a, rolloff_b are given/);
+    expect(Object.keys(problems).sort()).toEqual([
+      'alpha',
+      'bsat_25',
+      'f_min',
+      'lowest_loss_factor',
+      'max_temperature',
+      'rolloff_steepness',
+    ]);
+    expect(problems['f_min']).toBe('f_min must be below f_max (600000 ≥ 500000)');
+    expect(problems['rolloff_steepness']).toMatch(/required when rolloff_half_field is given \(both or none\)/);
+  });
+
+  it('refuses an empty fitted range (f_min = f_max, b_min = b_max) and allows b_min = 0', () => {
+    const problems = problemsOf({ ...POWDER_CELLS, f_min: '500000', b_min: '0.4' });
+    expect(problems['f_min']).toMatch(/must be below f_max/);
+    expect(problems['b_min']).toBe('b_min must be below b_max (0.4 ≥ 0.4)');
+    expect(problemsOf({ ...POWDER_CELLS, b_min: '0' })).toEqual({});
   });
 });
 
@@ -152,8 +154,8 @@ describe('the material limit as loaded for the engine', () => {
 });
 
 describe('t_ref: k is the loss at t_ref', () => {
-  // 1e-4·T² − 0.03·T + 2.8 is 0.8 at 100 °C (1 − 3 + 2.8) and positive from −40 to 200 °C (lowest 0.55 at 150 °C).
-  const coefficients = { ct0: '2.8', ct1: '0.03', ct2: '0.0001' };
+  // T0 = 150 °C, F0 = 0.55, c = 1e-4 is the quadratic 1e-4·T² − 0.03·T + 2.8 (algebra, no source): 0.8 at 100 °C.
+  const behaviour = { lowest_loss_temperature: '150', lowest_loss_factor: '0.55', loss_curvature: '0.0001' };
 
   /** Core loss (W) the engine's temperature solver takes at exactly 100 °C: no rise with an unbounded surface. */
   function lossAt100(material: CoreMaterial): number {
@@ -166,18 +168,22 @@ describe('t_ref: k is the loss at t_ref', () => {
   }
 
   it('gives the same loss at 100 °C as k alone when t_ref is 100 °C', () => {
-    expect(lossAt100(loaded({ ...POWDER_CELLS, ...coefficients, t_ref: '100' }))).toBeCloseTo(2, 12);
+    expect(lossAt100(loaded({ ...POWDER_CELLS, ...behaviour, t_ref: '100' }))).toBeCloseTo(2, 12);
     expect(lossAt100(loaded(POWDER_CELLS))).toBe(2);
   });
 
-  it('keeps the coefficients as they are without t_ref (k·factor(T))', () => {
-    expect(lossAt100(loaded({ ...POWDER_CELLS, ...coefficients }))).toBeCloseTo(1.6, 12);
+  it('hands the engine the expanded quadratic without t_ref (k·factor(T))', () => {
+    const material = loaded({ ...POWDER_CELLS, ...behaviour });
+    expect(material.tempCoefficients!.ct2).toBeCloseTo(1e-4, 15);
+    expect(material.tempCoefficients!.ct1).toBeCloseTo(0.03, 12);
+    expect(material.tempCoefficients!.ct0).toBeCloseTo(2.8, 12);
+    expect(lossAt100(material)).toBeCloseTo(1.6, 12);
   });
 
   it('scales the whole curve: the ratio between two temperatures is unchanged', () => {
-    const referred = loaded({ ...POWDER_CELLS, ...coefficients, t_ref: '100' }).tempCoefficients!;
+    const referred = loaded({ ...POWDER_CELLS, ...behaviour, t_ref: '100' }).tempCoefficients!;
     const factor = (c: { ct0: number; ct1: number; ct2: number }, t: number) => c.ct2 * t * t - c.ct1 * t + c.ct0;
-    // as given: 25 °C → 0.0625 − 0.75 + 2.8 = 2.1125; 100 °C → 0.8
+    // as given: 25 °C → 0.55 + 1e-4·125² = 2.1125; 100 °C → 0.55 + 0.25 = 0.8
     expect(factor(referred, 25) / factor(referred, 100)).toBeCloseTo(2.1125 / 0.8, 12);
   });
 });
