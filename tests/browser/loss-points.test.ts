@@ -16,7 +16,7 @@ describe('loss points of a material', () => {
     const { context, page } = await h.newPage();
     await signIn(page, engineer.username, engineer.password);
     await page.goto('/materials');
-    await page.getByRole('link', { name: `Loss points of ${MATERIAL}` }).click();
+    await page.getByRole('link', { name: `Loss points of ${MATERIAL}`, exact: true }).click();
     await page.getByRole('heading', { name: 'Loss points', level: 1 }).waitFor();
     await page.getByText(`Version 1 of ${MATERIAL}: 0 points.`).waitFor();
 
