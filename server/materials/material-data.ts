@@ -13,12 +13,27 @@ function engineLoss(material: CoreMaterial, point: Measured): number {
   return steinmetzLoss(material, point.frequency, point.peakFlux) * Math.max(factor, TEMPERATURE_FACTOR_FLOOR);
 }
 
-/** The stored coefficients against the version's own points; null without points. */
+/** Relative slack on the fitted ranges' ends, so a point on an end is inside whatever the rounding. */
+const RANGE_SLACK = 1e-9;
+
+/** Whether a point lies within the frequency and flux ranges the coefficients were fitted on. */
+function inFittedRange(material: CoreMaterial, p: Measured): boolean {
+  const within = (value: number, low: number, high: number) => value >= low * (1 - RANGE_SLACK) && value <= high * (1 + RANGE_SLACK);
+  return (
+    within(p.frequency, material.fitFrequencyMin, material.fitFrequencyMax) && within(p.peakFlux, material.fitFluxMin, material.fitFluxMax)
+  );
+}
+
+/**
+ * The stored coefficients against the version's own points within its fitted ranges (a band fitted on part of the
+ * points is judged on that part: a fit never speaks for data outside its ranges); null when no point lies there.
+ */
 export function storedFitQuality(material: CoreMaterial, points: readonly Measured[]): MaterialData['fitQuality'] {
-  if (!points.length) return null;
+  const covered = points.filter((p) => inFittedRange(material, p));
+  if (!covered.length) return null;
   const quality = fitQuality(
-    points.map((p) => engineLoss(material, p)),
-    points.map((p) => p.lossDensity),
+    covered.map((p) => engineLoss(material, p)),
+    covered.map((p) => p.lossDensity),
   );
   return { rmsRelativeError: quality.rmsRelativeError, worstRelativeError: quality.worstRelativeError, pointCount: quality.pointCount };
 }

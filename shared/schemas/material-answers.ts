@@ -60,12 +60,12 @@ export const materialDataSchema = z.object({
     .object({
       rmsRelativeError: z.number(),
       worstRelativeError: z.number().meta({ description: 'Largest |engine loss / measured − 1| over the points' }),
-      pointCount: z.number().int(),
+      pointCount: z.number().int().meta({ description: 'Points within the fitted frequency and flux ranges, the ones judged' }),
     })
     .nullable()
     .meta({
       description:
-        "The stored k, α, β and temperature factor against the version's own points, as the engine computes loss; null without points",
+        "The stored k, α, β and temperature factor against the version's own points within its fitted ranges, as the engine computes loss; null without points there",
     }),
   lowestLossTemperature: z
     .number()

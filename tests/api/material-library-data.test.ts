@@ -83,4 +83,23 @@ describe('GET /api/materials/library: loss-point figures per version', () => {
     expect(res.body.lossPointCount).toBe(27);
     expect(res.body.fitQuality.worstRelativeError).toBeCloseTo(1 - 1 / 1.1, 9);
   });
+
+  it('judges a version only on the points inside its fitted ranges, and says how many those are', async () => {
+    const current = (await library()).find((m) => m.lineage === ferrite.lineage)!;
+    // f_max 100 kHz (in the row's own unit set) leaves the 50 and 100 kHz points: 18 of 27, the bumped one among them.
+    const fMax = current.unitSet === 'W/m3-Hz-T' ? 100e3 : 100;
+    const narrowed = await engineer.patch(`/api/materials/${current.id}`, { f_max: fMax });
+    expect(narrowed.status).toBe(201);
+    expect(narrowed.body.lossPointCount).toBe(27);
+    expect(narrowed.body.fitQuality.pointCount).toBe(18);
+    expect(narrowed.body.fitQuality.worstRelativeError).toBeCloseTo(1 - 1 / 1.1, 9);
+    expect(narrowed.body.fitQuality.rmsRelativeError).toBeCloseTo((1 - 1 / 1.1) / Math.sqrt(18), 9);
+    // Above 200 kHz no point is left to judge by.
+    const above = await engineer.patch(`/api/materials/${narrowed.body.id}`, {
+      f_min: current.unitSet === 'W/m3-Hz-T' ? 250e3 : 250,
+      f_max: current.unitSet === 'W/m3-Hz-T' ? 300e3 : 300,
+    });
+    expect(above.status).toBe(201);
+    expect(above.body.fitQuality).toBeNull();
+  });
 });

@@ -104,7 +104,7 @@ describe('MaterialLibrary', () => {
     expect(cellsOf('Test powder TP-2')).toMatchObject({
       'Lowest loss at (°C)': '—',
       'Loss points': '0',
-      'Fit RMS / worst': '— no loss points',
+      'Fit RMS / worst': '— no loss points in the fitted ranges',
     });
     const link = page.querySelector<HTMLAnchorElement>('a[aria-label="27 loss points of Test ferrite TF-1 (invented)"]')!;
     expect(link.getAttribute('href')).toBe('/materials/12/loss-points');

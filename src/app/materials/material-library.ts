@@ -23,6 +23,7 @@ import { FittedRange } from './fitted-range';
 import { MaterialEdit } from './material-edit';
 import { MaterialUpload } from './material-upload';
 import { MaterialsApi, type CommitResult, type LibraryMaterial } from './materials-api';
+import { SignificantPipe } from '../units/significant';
 
 /** The library's optional columns in table order; name, selection and actions are always shown. */
 export const MATERIAL_COLUMNS: readonly ChoosableColumn[] = [
@@ -49,6 +50,7 @@ export const MATERIAL_COLUMNS_KEY = 'gapwright.material-library.columns';
   selector: 'gw-material-library',
   imports: [
     DatePipe,
+    SignificantPipe,
     DecimalPipe,
     FittedRange,
     LibraryTable,
