@@ -43,7 +43,12 @@ export function spiceValues(result: EvaluationResult): SpiceValues {
   };
 }
 
-const num = (x: number) => x.toPrecision(6).replace(/\.?0+(e|$)/, '$1');
+/**
+ * Six significant digits, trailing zeros of the fraction dropped ("2.5e-5", "400000", "0.012"): through Number, so the
+ * zeros of an integer part stay (a pattern on the text once turned 400000 into "4").
+ */
+export const spiceNumber = (x: number) => String(Number(x.toPrecision(6)));
+const num = spiceNumber;
 
 export interface SpiceHeader {
   designNumber: string;

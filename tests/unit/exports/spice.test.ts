@@ -4,7 +4,7 @@ import { parse } from 'csv-parse/sync';
 import { CatalogueService } from '../../../server/catalogue/catalogue.service.ts';
 import { buildBom, COPPER_DENSITY, copperMass, LEAD_ALLOWANCE_PER_END } from '../../../server/exports/bom.ts';
 import { bomCsv, candidatesCsv } from '../../../server/exports/candidates-csv.ts';
-import { buildSpiceSubcircuit, spiceSubcircuitName, spiceValues } from '../../../server/exports/spice.ts';
+import { buildSpiceSubcircuit, spiceNumber, spiceSubcircuitName, spiceValues } from '../../../server/exports/spice.ts';
 
 // An invented ferrite for the test (illustrative coefficients, not a real material).
 const FERRITE: CoreMaterial = {
@@ -147,5 +147,23 @@ describe('candidates CSV', () => {
     expect(rows[1]['feasible']).toBe('no');
     expect(rows[1]['reasons']).toBe('Winding does not fit');
     expect(rows[1]['material']).toBe('Test ferrite (invented)');
+  });
+});
+
+describe('numbers in the SPICE text', () => {
+  it('keeps the zeros of round integers and drops only those of a fraction (common practice, no source)', () => {
+    expect(spiceNumber(400e3)).toBe('400000');
+    expect(spiceNumber(100e3)).toBe('100000');
+    expect(spiceNumber(150_000)).toBe('150000');
+    expect(spiceNumber(2.5e-5)).toBe('0.000025');
+    expect(spiceNumber(1.234567e-9)).toBe('1.23457e-9');
+    expect(spiceNumber(1000)).toBe('1000');
+    expect(spiceNumber(0.012)).toBe('0.012');
+  });
+
+  it('states the design’s own switching frequency in the derivation comment (a 100 kHz design says 100000 Hz)', () => {
+    const text = buildSpiceSubcircuit({ designNumber: 'GW-0001', title: 'round numbers', revision: 1, engineVersion: '2.0.0' }, result);
+    expect(text).toContain('fs = 100000 Hz');
+    expect(text).not.toMatch(/fs = 1 Hz/);
   });
 });
