@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, linkedSignal, signal, untracked } from '@angular/core';
 import { DatePipe } from '@angular/common';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -7,6 +7,7 @@ import type { DesignDetail, RevisionDiff } from '@shared/schemas/designs';
 
 import { errorMessageOf } from '../core/api-error';
 import { DesignsApi } from './designs-api';
+import { figureLabel, figureValue } from './diff-labels';
 import { STATUS_LABELS, show } from './format';
 
 /** Revision history and a side-by-side diff of spec, construction and results between two revisions. */
@@ -91,9 +92,9 @@ import { STATUS_LABELS, show } from './format';
                 <tbody>
                   @for (row of section.rows; track row.path) {
                     <tr>
-                      <th scope="row">{{ row.path }}</th>
-                      <td>{{ value(row.from) }}</td>
-                      <td>{{ value(row.to) }}</td>
+                      <th scope="row" [attr.title]="row.path">{{ label(row.path) }}</th>
+                      <td>{{ value(row.path, row.from) }}</td>
+                      <td>{{ value(row.path, row.to) }}</td>
                     </tr>
                   }
                 </tbody>
@@ -134,8 +135,10 @@ import { STATUS_LABELS, show } from './format';
 export class RevisionsPanel {
   private readonly api = inject(DesignsApi);
   readonly design = input.required<DesignDetail>();
-  protected readonly from = signal(1);
-  protected readonly to = signal(1);
+  protected readonly latest = computed(() => this.design().revisions.at(-1)?.revision ?? 1);
+  /** The two latest revisions until the user picks others (a new revision resets them). */
+  protected readonly to = linkedSignal(() => this.latest());
+  protected readonly from = linkedSignal(() => Math.max(1, this.latest() - 1));
   protected readonly ends = [
     { label: 'From revision', revision: this.from },
     { label: 'To revision', revision: this.to },
@@ -143,12 +146,13 @@ export class RevisionsPanel {
   protected readonly diff = signal<RevisionDiff | null>(null);
   protected readonly error = signal<string | null>(null);
   protected readonly fmt = show;
-  protected readonly latest = computed(() => this.design().revisions.at(-1)?.revision ?? 1);
+  protected readonly label = figureLabel;
+  protected readonly value = figureValue;
 
   constructor() {
-    queueMicrotask(() => {
-      this.to.set(this.latest());
-      this.from.set(Math.max(1, this.latest() - 1));
+    // The two latest revisions are compared as soon as a design has two.
+    effect(() => {
+      if (this.latest() > 1) untracked(() => this.compare());
     });
   }
 
@@ -172,11 +176,5 @@ export class RevisionsPanel {
       { title: 'Construction', rows: d.construction },
       { title: 'Results', rows: d.result },
     ];
-  }
-
-  protected value(v: unknown): string {
-    if (v === null || v === undefined) return '—';
-    if (typeof v === 'number') return Number.isInteger(v) ? String(v) : v.toPrecision(5);
-    return String(v);
   }
 }
