@@ -16,6 +16,7 @@ import { Session } from '../core/session';
 import { DataTable, DataTableCell, type TableColumn } from '../ui/data-table';
 import { DesignsApi, type DesignListParams } from './designs-api';
 import { STATUS_LABELS } from './format';
+import { DesignImport } from './design-import';
 
 const sortKey = (column: string): DesignSortKey => DESIGN_SORT_KEYS.find((key) => key === column) ?? 'updated';
 
@@ -23,6 +24,7 @@ const sortKey = (column: string): DesignSortKey => DESIGN_SORT_KEYS.find((key) =
 @Component({
   selector: 'gw-design-list',
   imports: [
+    DesignImport,
     DataTable,
     DataTableCell,
     RouterLink,

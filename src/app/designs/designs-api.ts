@@ -1,7 +1,16 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { evaluate, operatingPoint, search } from '@shared/api/calc';
-import { copyDesign, createDesign, diffRevisions, getDesign, listDesigns, newRevision, updateRevision } from '@shared/api/designs';
+import {
+  copyDesign,
+  createDesign,
+  diffRevisions,
+  getDesign,
+  importDesign,
+  listDesigns,
+  newRevision,
+  updateRevision,
+} from '@shared/api/designs';
 import { endpointUrl } from '@shared/api/endpoint';
 import { exportRevision } from '@shared/api/exports';
 import { listMaterials } from '@shared/api/materials';
@@ -10,6 +19,7 @@ import type { EvaluateAnswer, OperatingPointAnswer, SearchAnswer } from '@shared
 import type {
   Construction,
   DesignDetail,
+  DesignFile,
   DesignListResponse,
   DesignSortKey,
   DesignSpec,
@@ -66,6 +76,11 @@ export class DesignsApi {
 
   copy(id: number): Observable<DesignDetail> {
     return this.api.call(copyDesign, { params: { id: String(id) }, body: {} });
+  }
+
+  /** A new design from an exported design file; the caller shows a refusal beside the file. */
+  importFile(file: DesignFile): Observable<DesignDetail> {
+    return this.api.call(importDesign, { body: file }, errorsShownByCaller());
   }
 
   diff(id: number, from: number, to: number): Observable<RevisionDiff> {
