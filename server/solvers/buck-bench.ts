@@ -46,7 +46,12 @@ const STEPS_PER_PERIOD = 400;
 const TIME_CONSTANTS = 10;
 /** Periods written out at the end. */
 const PERIODS_KEPT = 2;
-const EDGE = 1e-9;
+/**
+ * Drive edges (s). The switches change state where the drive crosses 0.5, mid-edge and between the solver's
+ * breakpoints, so the on-time is only as exact as the edge is short: with milliohms in the loop the settled average is
+ * (D·Vin − Vout)/R, and 1 ns edges put it 3 % off at 1.2 V out and 0.8 mΩ; 10 ps edges keep it within 0.2 %.
+ */
+const EDGE = 1e-11;
 
 const num = (x: number) => x.toPrecision(12);
 

@@ -81,16 +81,23 @@ describe('circuit check of a powder design (L follows the roll-off)', () => {
     for (const corner of result.corners) {
       expect(corner.simulated.peak).toBeGreaterThan(constant.peak);
       // Tolerance: the engine draws a triangle with the incremental L at the load current; the real L changes over
-      // the ripple. Λ(I + δ) − Λ(I − δ) = 2δ·L(I) + (δ³/3)·L''(I) + …, so the ripple differs by about
-      // (δ²/6)·L''/L (Taylor expansion, derived algebraically), evaluated here from the roll-off itself; 1 % is
-      // added for the bench (at milliohms of loop resistance its average lands within 0.2 % of the load).
+      // the ripple (derived algebraically from L(i)·di = v·dt on each leg, with L(i) ≈ L·(1 + k·(i − I)) + …):
+      // Λ(I + δ) − Λ(I − δ) = 2δ·L(I) + (δ³/3)·L''(I) + …, so the ripple differs by about (δ²/6)·L''/L; and the time
+      // spent at each current goes with L(i), so the period average lies k·δ²/3 from the midpoint of valley and peak:
+      // the simulated peak sits that much above the engine's (average + δ). Both are evaluated from the roll-off
+      // itself; 0.5 % is added for the bench (its averages land within 0.01 % of the load, README).
       const delta = corner.predicted.ripple / 2;
       const l = (i: number) => biasedInductance(turns, i, al, powderRing.le, powderP.rollOff);
-      const curvature = Math.abs(l(corner.load + delta) - 2 * l(corner.load) + l(corner.load - delta)) / (6 * l(corner.load));
-      const tolerance = 100 * curvature + 1;
+      const lAt = l(corner.load);
+      const curvature = Math.abs(l(corner.load + delta) - 2 * lAt + l(corner.load - delta)) / (6 * lAt);
+      const shift = ((Math.abs(l(corner.load + delta) - l(corner.load - delta)) / (2 * lAt)) * delta) / 3;
       expect(curvature).toBeLessThan(0.005);
-      expect(Math.abs(corner.differencePercent.ripple)).toBeLessThan(tolerance);
-      expect(Math.abs(corner.differencePercent.peak)).toBeLessThan(tolerance);
+      expect(Math.abs(corner.differencePercent.ripple)).toBeLessThan(100 * curvature + 0.5);
+      expect(Math.abs(corner.differencePercent.peak)).toBeLessThan(100 * (curvature + shift / corner.predicted.peak) + 0.5);
+      // The asymmetry is there, the predicted size and way (measured: 21.5 mA against 21.5 mA at Vin max, 11.4 mA
+      // against 12.0 mA at Vin min): the simulated peak is above the engine's.
+      expect(corner.simulated.peak - corner.predicted.peak).toBeGreaterThan(0.8 * shift);
+      expect(corner.simulated.peak - corner.predicted.peak).toBeLessThan(1.2 * shift + 1e-4 * corner.predicted.peak);
       expect(Math.abs(corner.differencePercent.average)).toBeLessThan(0.5);
     }
     // The roll-off is real here: the engine's L at the load is well below the zero-current L.
