@@ -26,6 +26,10 @@ import { CalcService } from './calc/calc.service.ts';
 import { SearchPool } from './calc/search-pool.ts';
 import { catalogueRouter } from './catalogue/catalogue.router.ts';
 import { CatalogueService } from './catalogue/catalogue.service.ts';
+import { CHECK_JOB, CHECK_LIMITS, CHECK_RETRY } from './checks/check-jobs.ts';
+import { ChecksRepository } from './checks/checks.repository.ts';
+import { checksRouter } from './checks/checks.router.ts';
+import { ChecksService } from './checks/checks.service.ts';
 import type { Config } from './config.ts';
 import type { Db } from './db/client.ts';
 import { healthRouter } from './health/health.router.ts';
@@ -123,6 +127,9 @@ export function createApp(deps: AppDeps) {
   const designs = new DesignsService(designsRepository);
   const designEdits = new DesignEditsService(designsRepository, designs, new ConstructionEvaluator(services.calc), services.audit);
   const exports = new ExportsService(designs, new DesignMaterials(services.materials), services.calc);
+  // Checks are only sent from here: check worker processes (server/workers/) work them.
+  services.jobs.declareSendOnly(CHECK_JOB, CHECK_RETRY, CHECK_LIMITS);
+  const checks = new ChecksService(new ChecksRepository(deps.db), designs, services.jobs);
   const { audit, users, catalogue, materials, calc, shop, review, outbox } = services;
   const compare = new CompareService(
     materials,
@@ -178,6 +185,7 @@ export function createApp(deps: AppDeps) {
   const generationOf = (req: Request, name: string) => sessionLayer.extras(req)?.generations[name];
   api.use(designsRouter(designs, designEdits, generationOf));
   api.use(exportsRouter(exports));
+  api.use(checksRouter(checks));
   api.use(lossPointsRouter(services.lossPoints));
   api.use(materialLibraryRouter(services.materialLibrary));
   api.use(materialsRouter(materials, generationOf));

@@ -45,6 +45,8 @@ const envSchema = z.object({
   SEARCH_QUEUE: z.coerce.number().int().min(0).max(10_000).default(64),
   SEARCH_IDLE_SECONDS: z.coerce.number().min(1).default(60),
   SEARCH_NICE: z.coerce.number().int().min(0).max(19).default(10),
+  // Check worker processes `npm start` starts beside the web server (0: none here, workers run elsewhere).
+  CHECK_WORKERS: z.coerce.number().int().min(0).max(16).default(1),
   MAIL_RETRY_DELAYS_MS: z
     .string()
     .default('2000,10000,60000,300000')
@@ -79,6 +81,8 @@ export interface Config {
    * running (one more is refused as busy), how long an idle thread is kept, and how much lower its CPU priority is.
    */
   search: { workers: number; queue: number; idleMs: number; nice: number };
+  /** Check worker processes `npm start` starts beside the web server. */
+  checkWorkers: number;
   smtp: {
     host?: string;
     port: number;
@@ -123,6 +127,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
       idleMs: e.SEARCH_IDLE_SECONDS * 1000,
       nice: e.SEARCH_NICE,
     },
+    checkWorkers: e.CHECK_WORKERS,
     smtp: {
       host: e.SMTP_HOST || undefined,
       port: e.SMTP_PORT,
@@ -133,5 +138,36 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
       fakePort: e.FAKE_SMTP_PORT,
       retryDelaysMs: e.MAIL_RETRY_DELAYS_MS,
     },
+  };
+}
+
+/** What a check worker process needs: the database and the job queue (no session secret, no mail). */
+export interface WorkerConfig {
+  databaseUrl: string;
+  dbConnectTimeoutMs: number;
+  logLevel: string;
+  jobs: { schema: string; pollSeconds: number };
+}
+
+const workerEnvSchema = envSchema.pick({
+  DATABASE_URL: true,
+  DB_CONNECT_TIMEOUT_MS: true,
+  LOG_LEVEL: true,
+  JOBS_SCHEMA: true,
+  JOBS_POLL_SECONDS: true,
+});
+
+export function loadWorkerConfig(env: NodeJS.ProcessEnv = process.env): WorkerConfig {
+  const parsed = workerEnvSchema.safeParse(env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`);
+    throw new Error(`Invalid worker configuration:\n${lines.join('\n')}`);
+  }
+  const e = parsed.data;
+  return {
+    databaseUrl: e.DATABASE_URL,
+    dbConnectTimeoutMs: e.DB_CONNECT_TIMEOUT_MS,
+    logLevel: e.LOG_LEVEL,
+    jobs: { schema: e.JOBS_SCHEMA, pollSeconds: e.JOBS_POLL_SECONDS },
   };
 }

@@ -252,6 +252,43 @@ export const revisionTransitions = pgTable('revision_transitions', {
   at: timestamp('at', { withTimezone: true }).notNull().defaultNow(),
 });
 
+/**
+ * Independent checks of a revision (circuit simulation now, field solution later), worked by check workers through
+ * the job queue. The result is written together with 'done' in one transaction; at most one check of a kind is
+ * queued or running per revision.
+ */
+export const revisionChecks = pgTable(
+  'revision_checks',
+  {
+    id: serial('id').primaryKey(),
+    revisionId: integer('revision_id')
+      .notNull()
+      .references(() => designRevisions.id, { onDelete: 'cascade' }),
+    kind: varchar('kind', { length: 12, enum: ['circuit', 'field'] }).notNull(),
+    status: varchar('status', { length: 12, enum: ['queued', 'running', 'done', 'failed', 'cancelled'] })
+      .notNull()
+      .default('queued'),
+    progress: doublePrecision('progress').notNull().default(0),
+    result: jsonb('result'),
+    failure: text('failure'),
+    /** The queue's id of the job, so a queued check can be taken off the queue when cancelled. */
+    jobId: varchar('job_id', { length: 64 }),
+    requestedBy: integer('requested_by').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    startedAt: timestamp('started_at', { withTimezone: true }),
+    finishedAt: timestamp('finished_at', { withTimezone: true }),
+  },
+  (t) => [
+    index('revision_checks_revision_idx').on(t.revisionId, t.kind, t.id),
+    uniqueIndex('revision_checks_one_open_idx')
+      .on(t.revisionId, t.kind)
+      .where(sql`${t.status} in ('queued', 'running')`),
+    check('revision_checks_kind_check', sql`${t.kind} in ('circuit', 'field')`),
+    check('revision_checks_status_check', sql`${t.status} in ('queued', 'running', 'done', 'failed', 'cancelled')`),
+    check('revision_checks_progress_check', sql`${t.progress} >= 0 and ${t.progress} <= 1`),
+  ],
+);
+
 /** A released revision handed to the winding shop: the sheet is frozen at release and never recomputed. */
 export const buildOrders = pgTable('build_orders', {
   id: serial('id').primaryKey(),

@@ -22,7 +22,14 @@ export interface JobRun<T> {
 
 interface Kind {
   retry: RetryPolicy;
-  handler: (run: JobRun<never>) => Promise<void>;
+  /** Absent for a kind this instance only sends: another process (a worker) works it. */
+  handler?: (run: JobRun<never>) => Promise<void>;
+  limits: KindLimits;
+}
+
+export interface KindLimits {
+  /** Time limit of one attempt: an attempt still active after it (its worker died or hangs) is failed and retried. */
+  expireInSeconds?: number;
 }
 
 export interface JobQueueOptions {
@@ -66,17 +73,30 @@ export class JobQueue {
   }
 
   /** Declares a kind of job; call before `start()`. */
-  define<T extends object>(name: string, retry: RetryPolicy, handler: (run: JobRun<T>) => Promise<void>): void {
+  define<T extends object>(name: string, retry: RetryPolicy, handler: (run: JobRun<T>) => Promise<void>, limits: KindLimits = {}): void {
     if (this.started) throw new Error(`job kind ${name} defined after the queue started`);
-    this.kinds.set(name, { retry, handler: handler as Kind['handler'] });
+    this.kinds.set(name, { retry, handler: handler as Kind['handler'], limits });
+  }
+
+  /** Declares a kind this instance sends but never works (worker processes define it with their handler). */
+  declareSendOnly(name: string, retry: RetryPolicy, limits: KindLimits = {}): void {
+    if (this.started) throw new Error(`job kind ${name} declared after the queue started`);
+    this.kinds.set(name, { retry, limits });
   }
 
   async start(): Promise<void> {
     if (this.started) return;
     this.started = true;
     await this.boss.start();
-    for (const [name, { retry, handler }] of this.kinds) {
-      await this.boss.createQueue(name, { name, retryLimit: retry.retries, retryDelay: retry.delaySeconds, retryBackoff: retry.backoff });
+    for (const [name, { retry, handler, limits }] of this.kinds) {
+      await this.boss.createQueue(name, {
+        name,
+        retryLimit: retry.retries,
+        retryDelay: retry.delaySeconds,
+        retryBackoff: retry.backoff,
+        ...limits,
+      });
+      if (!handler) continue;
       await this.boss.work<object>(
         name,
         { includeMetadata: true, batchSize: 1, pollingIntervalSeconds: this.options.pollSeconds },
@@ -94,11 +114,17 @@ export class JobQueue {
     const { retries, delaySeconds, backoff } = kind.retry;
     return this.boss.send(name, data, {
       ...options,
+      ...kind.limits,
       retryLimit: retries,
       retryDelay: delaySeconds,
       retryBackoff: backoff,
       db: { executeSql: async (text, values) => ({ rows: (await tx.execute(bound(text, values))).rows }) },
     });
+  }
+
+  /** Takes a job off the queue (a queued job is never worked; one already being worked finishes unnoticed). */
+  async remove(name: string, id: string): Promise<void> {
+    await this.boss.deleteJob(name, id);
   }
 
   /** Lets running jobs finish (up to `timeoutMs`), then stops polling. Pending jobs stay stored for the next start. */

@@ -18,7 +18,7 @@ export interface EndpointSpec {
   /** The JSON answer on success; `z.void()` for 204 and non-JSON answers (see `produces`). */
   answer: z.ZodType;
   /** Success status; 200 unless given. */
-  status?: 200 | 201 | 204;
+  status?: 200 | 201 | 202 | 204;
   summary: string;
   /** Longer notes for the OpenAPI description (other statuses, ownership rules). */
   description?: string;

@@ -5,6 +5,7 @@ import * as audit from './audit';
 import * as auth from './auth';
 import * as calc from './calc';
 import * as catalogue from './catalogue';
+import * as checks from './checks';
 import * as compare from './compare';
 import * as designs from './designs';
 import type { Endpoint } from './endpoint';
@@ -30,6 +31,7 @@ export const ENDPOINTS: readonly Endpoint[] = [
   outbox,
   settings,
   designs,
+  checks,
   exportsApi,
   review,
   shop,

@@ -28,6 +28,7 @@ import { DesignPanel } from './design-panel';
 import { DesignsApi, type MaterialView } from './designs-api';
 import { OperatingPointPanel } from './operating-point-panel';
 import { RevisionActions } from '../review/revision-actions';
+import { ChecksPanel } from '../checks/checks-panel';
 import { RevisionsPanel } from './revisions-panel';
 import { SpecFormComponent } from './spec-form';
 import { createSpecForm, formFromSpec, specFromForm } from './spec-model';
@@ -55,6 +56,7 @@ const EXPORT_LABELS: Record<ExportKind, string> = {
     CandidatesPanel,
     DesignPanel,
     RevisionsPanel,
+    ChecksPanel,
   ],
   templateUrl: './design-workspace.html',
   styleUrl: './design-workspace.scss',

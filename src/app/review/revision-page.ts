@@ -6,6 +6,7 @@ import { switchMap, map } from 'rxjs';
 
 import { DesignsApi } from '../designs/designs-api';
 import { ReviewApi } from './review-api';
+import { ChecksPanel } from '../checks/checks-panel';
 import { RevisionActions } from './revision-actions';
 
 interface RevisionContext {
@@ -19,7 +20,7 @@ interface RevisionContext {
  */
 @Component({
   selector: 'gw-revision-page',
-  imports: [MatProgressBarModule, RevisionActions, RouterLink],
+  imports: [ChecksPanel, MatProgressBarModule, RevisionActions, RouterLink],
   template: `
     <div class="gw-page">
       @if (context(); as c) {
@@ -30,6 +31,7 @@ interface RevisionContext {
           before quantity builds.
         </p>
         <gw-revision-actions [revision]="c.revision" [subject]="c.design.number" (changed)="load(revisionId())" />
+        <gw-checks-panel [designId]="c.design.id" [revision]="c.revision.revision" />
       } @else if (failed()) {
         <h1>Revision</h1>
         <p class="gw-form-error" role="alert">This revision could not be loaded.</p>

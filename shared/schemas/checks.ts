@@ -1,0 +1,75 @@
+import * as z from 'zod';
+
+/** Independent checks of a saved revision, run as background jobs: 'field' is reserved for the field solution. */
+export const CHECK_KINDS = ['circuit', 'field'] as const;
+export type CheckKind = (typeof CHECK_KINDS)[number];
+export const CHECK_STATUSES = ['queued', 'running', 'done', 'failed', 'cancelled'] as const;
+export type CheckStatus = (typeof CHECK_STATUSES)[number];
+/** A check in one of these is still owed a result; at most one per revision and kind. */
+export const OPEN_CHECK_STATUSES = ['queued', 'running'] as const satisfies readonly CheckStatus[];
+
+export const runCheckRequestSchema = z
+  .object({ kind: z.enum(['circuit'], { error: 'kind must be "circuit" (the field check is not offered yet)' }) })
+  .strict();
+export type RunCheckRequest = z.infer<typeof runCheckRequestSchema>;
+
+/** Ripple, peak, average and valley of the inductor current (A). */
+const currentFiguresSchema = z.object({ ripple: z.number(), peak: z.number(), average: z.number(), valley: z.number() });
+/** One waveform over one period: [time from the switch-on edge (s), current (A)] pairs. */
+const waveformSchema = z.array(z.tuple([z.number(), z.number()])).max(200);
+
+export const circuitCornerSchema = z.object({
+  id: z.enum(['vin-max', 'vin-min', 'current-limit']),
+  label: z.string(),
+  vin: z.number(),
+  load: z.number(),
+  duty: z.number(),
+  /** Inductance behind the prediction (H): the constant L, or the incremental L at the load current. */
+  predictedInductance: z.number(),
+  simulated: currentFiguresSchema,
+  predicted: currentFiguresSchema,
+  /** (simulated − predicted)/predicted in %. */
+  differencePercent: z.object({ ripple: z.number(), peak: z.number(), average: z.number() }),
+  /** Change of the simulated period average from the period before (A): near zero once settled. */
+  drift: z.number(),
+  waveform: z.object({ simulated: waveformSchema, predicted: waveformSchema }),
+});
+export type CircuitCorner = z.infer<typeof circuitCornerSchema>;
+
+export const circuitCheckResultSchema = z.object({
+  kind: z.literal('circuit'),
+  /** 'constant': the nominal L of an air-gapped design; 'roll-off': L follows the powder's DC-bias curve. */
+  inductorModel: z.enum(['constant', 'roll-off']),
+  /** Zero-current inductance of the design (H). */
+  nominalInductance: z.number(),
+  /** Loop resistance the bench used for the winding (Ω) and where it came from. */
+  windingResistance: z.number(),
+  notes: z.array(z.string()),
+  corners: z.array(circuitCornerSchema),
+});
+export type CircuitCheckResult = z.infer<typeof circuitCheckResultSchema>;
+
+export const revisionCheckSchema = z.object({
+  id: z.number().int(),
+  revisionId: z.number().int(),
+  kind: z.enum(CHECK_KINDS),
+  status: z.enum(CHECK_STATUSES),
+  progress: z.number().min(0).max(1),
+  result: circuitCheckResultSchema.nullable(),
+  failure: z.string().nullable(),
+  requestedBy: z.string().nullable().meta({ description: 'Display name; null when the user was removed' }),
+  createdAt: z.string(),
+  startedAt: z.string().nullable(),
+  finishedAt: z.string().nullable(),
+});
+export type RevisionCheck = z.infer<typeof revisionCheckSchema>;
+
+export const revisionChecksSchema = z.object({
+  /** The latest check of each kind, newest first. */
+  checks: z.array(revisionCheckSchema),
+  /** False once the revision is released: its checks are frozen with it. */
+  canRun: z.boolean(),
+  /** Why checks cannot be run now, in plain words (null when they can). */
+  frozenReason: z.string().nullable(),
+});
+export type RevisionChecks = z.infer<typeof revisionChecksSchema>;

@@ -1,0 +1,170 @@
+import { provideHttpClient } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { provideZonelessChangeDetection, signal } from '@angular/core';
+import { TestBed, type ComponentFixture } from '@angular/core/testing';
+import type { Role } from '@shared/schemas/auth';
+import type { CircuitCorner, RevisionCheck, RevisionChecks } from '@shared/schemas/checks';
+import { provideEchartsCore } from 'ngx-echarts';
+import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+
+import { Session } from '../core/session';
+import { ChecksPanel, POLL_MS } from './checks-panel';
+
+// Invented figures: the panel shows what the server stored, it computes nothing itself.
+const corner: CircuitCorner = {
+  id: 'vin-max',
+  label: 'Vin max 36 V, 10 A',
+  vin: 36,
+  load: 10,
+  duty: 1 / 3,
+  predictedInductance: 26e-6,
+  simulated: { ripple: 3.05, peak: 11.52, average: 10.01, valley: 8.47 },
+  predicted: { ripple: 3.0, peak: 11.5, average: 10, valley: 8.5 },
+  differencePercent: { ripple: 5 / 3, peak: 0.174, average: 0.1 },
+  drift: 0,
+  waveform: {
+    simulated: [
+      [0, 8.47],
+      [3.33e-6, 11.52],
+      [1e-5, 8.47],
+    ],
+    predicted: [
+      [0, 8.5],
+      [3.33e-6, 11.5],
+      [1e-5, 8.5],
+    ],
+  },
+};
+
+function check(status: RevisionCheck['status'], extra: Partial<RevisionCheck> = {}): RevisionCheck {
+  return {
+    id: 5,
+    revisionId: 9,
+    kind: 'circuit',
+    status,
+    progress: status === 'running' ? 0.5 : 0,
+    result: null,
+    failure: null,
+    requestedBy: 'Sample engineer',
+    createdAt: '2026-01-01T00:00:00.000Z',
+    startedAt: null,
+    finishedAt: null,
+    ...extra,
+  };
+}
+
+const LIST = '/api/designs/3/revisions/2/checks';
+
+describe('ChecksPanel', () => {
+  let fixture: ComponentFixture<ChecksPanel>;
+  let http: HttpTestingController;
+  const role = signal<Role | null>('engineer');
+
+  beforeEach(() => {
+    role.set('engineer');
+    TestBed.configureTestingModule({
+      providers: [
+        provideZonelessChangeDetection(),
+        provideHttpClient(),
+        provideHttpClientTesting(),
+        provideEchartsCore({ echarts: () => new Promise<never>(() => undefined) }),
+        { provide: Session, useValue: { role } },
+      ],
+    });
+    http = TestBed.inject(HttpTestingController);
+  });
+  afterEach(() => http.verify());
+  const pause = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
+
+  async function render(answer: RevisionChecks): Promise<HTMLElement> {
+    fixture = TestBed.createComponent(ChecksPanel);
+    fixture.componentRef.setInput('designId', 3);
+    fixture.componentRef.setInput('revision', 2);
+    await fixture.whenStable();
+    http.expectOne(LIST).flush(answer);
+    await fixture.whenStable();
+    return fixture.nativeElement as HTMLElement;
+  }
+  const text = (page: HTMLElement) => page.textContent?.replace(/\s+/g, ' ') ?? '';
+  const button = (page: HTMLElement, label: string) =>
+    [...page.querySelectorAll('button')].find((b) => b.textContent?.trim() === label) as HTMLButtonElement | undefined;
+
+  it('shows a finished check: caution line, one chart and a table per corner with the differences in %', async () => {
+    const page = await render({
+      checks: [
+        check('done', {
+          progress: 1,
+          result: {
+            kind: 'circuit',
+            inductorModel: 'constant',
+            nominalInductance: 26e-6,
+            windingResistance: 0.02,
+            notes: ['A note.'],
+            corners: [corner],
+          },
+        }),
+      ],
+      canRun: true,
+      frozenReason: null,
+    });
+    expect(text(page)).toContain(
+      "Circuit simulation of the power stage with the design's inductor model; an engineering estimate — qualified review required.",
+    );
+    expect(page.querySelectorAll('[data-corner="vin-max"] .gw-checks-chart')).toHaveLength(1);
+    const rows = [...page.querySelectorAll('[data-corner="vin-max"] tbody tr')].map((r) =>
+      [...r.children].map((cell) => cell.textContent?.trim()).join(' '),
+    );
+    expect(rows).toEqual(['Ripple (p-p) 3.050 3.000 +1.67 %', 'Peak 11.520 11.500 +0.17 %', 'Average 10.010 10.000 +0.10 %']);
+    expect(button(page, 'Run the circuit check')).toBeDefined();
+  });
+
+  it('queues a check on request and reads the list again', async () => {
+    const page = await render({ checks: [], canRun: true, frozenReason: null });
+    expect(text(page)).toContain('No check has been run on this revision yet.');
+    button(page, 'Run the circuit check')!.click();
+    const post = http.expectOne({ method: 'POST', url: LIST });
+    expect(post.request.body).toEqual({ kind: 'circuit' });
+    post.flush(check('queued'), { status: 202, statusText: 'Accepted' });
+    await fixture.whenStable();
+    http.expectOne(LIST).flush({ checks: [check('queued')], canRun: true, frozenReason: null });
+    await fixture.whenStable();
+    expect(text(page)).toContain('Circuit check queued');
+    fixture.destroy();
+  });
+
+  it('follows a running check every 2 s with a progress bar, and cancels it', async () => {
+    const page = await render({ checks: [check('running')], canRun: true, frozenReason: null });
+    expect(text(page)).toContain('Circuit check running: 50 %');
+    expect(page.querySelector('mat-progress-bar')).not.toBeNull();
+    expect(button(page, 'Run the circuit check')).toBeUndefined();
+    await pause(POLL_MS + 100);
+    http.expectOne(LIST).flush({ checks: [check('running', { progress: 0.75 })], canRun: true, frozenReason: null });
+    await fixture.whenStable();
+    expect(text(page)).toContain('75 %');
+    button(page, 'Cancel')!.click();
+    http.expectOne({ method: 'POST', url: `${LIST}/5/cancel` }).flush(check('cancelled'));
+    await fixture.whenStable();
+    http.expectOne(LIST).flush({ checks: [check('cancelled')], canRun: true, frozenReason: null });
+    await fixture.whenStable();
+    expect(text(page)).toContain('Circuit check cancelled.');
+    await pause(POLL_MS + 100);
+    http.expectNone(LIST);
+  }, 15_000);
+
+  it('gives a failure’s reason, and offers nothing to run on a released revision', async () => {
+    const page = await render({
+      checks: [check('failed', { failure: 'The circuit simulator failed: ngspice is not installed' })],
+      canRun: false,
+      frozenReason: 'Revision 2 of GW-0003 is released: its checks are frozen with it.',
+    });
+    expect(text(page)).toContain('Circuit check failed: The circuit simulator failed: ngspice is not installed');
+    expect(text(page)).toContain('is released: its checks are frozen');
+    expect(page.querySelectorAll('button')).toHaveLength(0);
+  });
+
+  it('offers no run button to a winder', async () => {
+    role.set('winder');
+    const page = await render({ checks: [], canRun: true, frozenReason: null });
+    expect(button(page, 'Run the circuit check')).toBeUndefined();
+  });
+});

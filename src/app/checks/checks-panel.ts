@@ -1,0 +1,106 @@
+import { DecimalPipe } from '@angular/common';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal } from '@angular/core';
+import { MatButtonModule } from '@angular/material/button';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { may } from '@shared/api/permissions';
+import type { CircuitCorner, RevisionCheck, RevisionChecks } from '@shared/schemas/checks';
+import { NgxEchartsDirective } from 'ngx-echarts';
+import type { Observable } from 'rxjs';
+
+import { errorMessageOf } from '../core/api-error';
+import { Session } from '../core/session';
+import { ChecksApi } from './checks-api';
+import { circuitChartLabel, circuitChartOptions } from './circuit-chart';
+
+/** How often a queued or running check is asked about (ms). */
+export const POLL_MS = 2000;
+
+/** The revision's independent checks (the circuit check for now): run, follow, cancel, and the results. */
+@Component({
+  selector: 'gw-checks-panel',
+  imports: [MatButtonModule, MatProgressBarModule, NgxEchartsDirective, DecimalPipe],
+  templateUrl: './checks-panel.html',
+  styleUrl: './checks-panel.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class ChecksPanel {
+  private readonly api = inject(ChecksApi);
+  private readonly session = inject(Session);
+
+  readonly designId = input.required<number>();
+  readonly revision = input.required<number>();
+
+  protected readonly answer = signal<RevisionChecks | null>(null);
+  protected readonly error = signal<string | null>(null);
+  protected readonly busy = signal(false);
+  private readonly refresh = signal(0);
+
+  protected readonly circuit = computed<RevisionCheck | null>(() => this.answer()?.checks.find((c) => c.kind === 'circuit') ?? null);
+  protected readonly open = computed(() => ['queued', 'running'].includes(this.circuit()?.status ?? ''));
+  protected readonly mayRun = computed(() => may(this.session.role(), 'library') && (this.answer()?.canRun ?? false));
+  protected readonly chart = circuitChartOptions;
+  protected readonly chartLabel = circuitChartLabel;
+
+  constructor() {
+    // Reads the checks for the revision shown, and again every POLL_MS while one is queued or running.
+    effect((onCleanup) => {
+      const [id, rev] = [this.designId(), this.revision()];
+      this.refresh();
+      let timer: ReturnType<typeof setTimeout> | undefined;
+      const sub = this.api.list(id, rev).subscribe({
+        next: (answer) => {
+          this.answer.set(answer);
+          this.error.set(null);
+          if (answer.checks.some((c) => c.status === 'queued' || c.status === 'running')) {
+            timer = setTimeout(() => this.refresh.update((n) => n + 1), POLL_MS);
+          }
+        },
+        error: (err: unknown) => this.error.set(errorMessageOf(err)),
+      });
+      onCleanup(() => {
+        sub.unsubscribe();
+        clearTimeout(timer);
+      });
+    });
+  }
+
+  protected run(): void {
+    this.act(this.api.runCircuit(this.designId(), this.revision()));
+  }
+
+  protected cancel(check: RevisionCheck): void {
+    this.act(this.api.cancel(this.designId(), this.revision(), check.id));
+  }
+
+  private act(call: Observable<RevisionCheck>): void {
+    this.busy.set(true);
+    call.subscribe({
+      next: () => {
+        this.busy.set(false);
+        this.refresh.update((n) => n + 1);
+      },
+      error: (err: unknown) => {
+        this.busy.set(false);
+        this.error.set(errorMessageOf(err));
+      },
+    });
+  }
+
+  protected rows(corner: CircuitCorner) {
+    return [
+      {
+        label: 'Ripple (p-p)',
+        simulated: corner.simulated.ripple,
+        predicted: corner.predicted.ripple,
+        diff: corner.differencePercent.ripple,
+      },
+      { label: 'Peak', simulated: corner.simulated.peak, predicted: corner.predicted.peak, diff: corner.differencePercent.peak },
+      {
+        label: 'Average',
+        simulated: corner.simulated.average,
+        predicted: corner.predicted.average,
+        diff: corner.differencePercent.average,
+      },
+    ];
+  }
+}
