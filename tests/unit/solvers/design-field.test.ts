@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { dowellFactor, roundWireDelta } from '@shared/engine/dowell';
 import { loadCoreCatalogue } from '../../../core-data/catalogue.ts';
 import { skinDepthOf, solveFieldDesign } from '../../../server/solvers/field/design-field.ts';
+import { fluxPicture } from '../../../server/solvers/field/flux-picture.ts';
 import { designModel, FieldGeometryError, type FieldDesignInput } from '../../../server/solvers/field/design-model.ts';
 
 // A design's own field model: bad geometry refused by field before any solver runs; a layer beside the gap against
@@ -64,6 +65,10 @@ describe('design field model: the gap in the AC resistance', () => {
     expect(nearRatio / farRatio).toBeGreaterThan(2);
     expect(nearRatio).toBeGreaterThan(2 * dowell);
     expect(farRatio).toBeLessThan(dowell);
+    // The picture from the same solution: every conductor outlined, flux lines traced through the mesh.
+    const svg = fluxPicture({ ...near.picture, view: { rMax: 0.017, zMin: -0.016, zMax: 0.016 }, title: 'PQ32/30' });
+    expect(svg.match(/<circle/g)).toHaveLength(10);
+    expect(svg.match(/M[\d.]+ [\d.]+L/g)!.length).toBeGreaterThan(1000);
   }, 60_000);
 
   it('is mesh-converged: halving every element size moves L by < 1 % and R_ac by < 3 %; fast enough', async () => {
