@@ -31,8 +31,8 @@ export interface FieldDesignResult {
   harmonics: HarmonicFigures[];
   nodes: number;
   seconds: { mesh: number; static: number; harmonic: number };
-  /** Mesh, r·Aφ at the nodes (static, 1 A) and the outlines, for the field picture. */
-  picture: { mesh: TriangleMesh; fluxFunction: Map<number, number>; core: Outline[]; conductors: Outline[] };
+  /** Mesh, r·Aφ at the nodes (static, 1 A), the outlines and the region worth showing, for the field picture. */
+  picture: { mesh: TriangleMesh; fluxFunction: Map<number, number>; core: Outline[]; conductors: Outline[]; view: AxiModel['view'] };
 }
 
 export interface SolveOptions {
@@ -64,7 +64,14 @@ export async function solveFieldDesign(design: FieldDesignInput, options: SolveO
   const top = Math.max(...options.frequencies);
   const model = designModel(design, skinDepthOf(options.resistivity, top));
   return solveAxiModel(
-    { surfaces: model.surfaces, sizeAt: model.sizeAt, conductors: model.conductors, permeability: design.permeability, hasCore: true },
+    {
+      surfaces: model.surfaces,
+      sizeAt: model.sizeAt,
+      conductors: model.conductors,
+      permeability: design.permeability,
+      hasCore: true,
+      view: model.view,
+    },
     options,
   );
 }
@@ -75,6 +82,7 @@ export interface AxiModel {
   conductors: (ModelConductor & ProblemConductor)[];
   permeability: number;
   hasCore: boolean;
+  view: { rMax: number; zMin: number; zMax: number };
 }
 
 /** Solves any axisymmetric model of core, air and conductors (the design's, or a closed-form case's). */
@@ -158,6 +166,7 @@ export async function solveAxiModel(model: AxiModel, options: SolveOptions): Pro
         fluxFunction,
         core: model.surfaces.filter((s) => s.group === REGION.leg || s.group === REGION.coreRest).map((s) => s.outline),
         conductors: model.conductors.map((k) => k.outline),
+        view: model.view,
       },
     };
   });

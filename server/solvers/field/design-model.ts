@@ -45,17 +45,15 @@ export interface ModelConductor {
   /** Fraction of the winding current this conductor carries. */
   share: number;
   outline: Outline;
-  /** Bare copper area (m²) and mean radius ∫r dA / A (m), for its DC resistance. */
+  /** Bare copper area (m²). */
   area: number;
 }
 
 export interface DesignModel {
   surfaces: Surface[];
   conductors: ModelConductor[];
-  /** Corner points of the core and window (m), for the picture and the mesh sizes. */
-  frame: { legRadius: number; windowOuter: number; outerRadius: number; halfWindow: number; halfGap: number; top: number; box: number };
-  /** Conductor element size used (m). */
-  conductorSize: number;
+  /** The core's cross-section with a margin (m): what the field picture shows. */
+  view: { rMax: number; zMin: number; zMax: number };
   sizeAt(r: number, z: number): number;
 }
 
@@ -109,7 +107,6 @@ export function designModel(d: FieldDesignInput, skinDepth: number): DesignModel
   const top = zw + c.plate;
   const box = 4 * Math.max(Ro, top);
   const conductors = layConductors(d, R + clearance, skinDepth, refinement);
-  const conductorSize = conductors[0]!.outline.size!;
 
   const rect = (r0: number, z0: number, r1: number, z1: number): [number, number][] => [
     [r0, z0],
@@ -228,8 +225,7 @@ export function designModel(d: FieldDesignInput, skinDepth: number): DesignModel
   return {
     surfaces,
     conductors,
-    frame: { legRadius: R, windowOuter: Wo, outerRadius: Ro, halfWindow: zw, halfGap: hg, top, box },
-    conductorSize,
+    view: { rMax: 1.1 * Ro, zMin: -1.1 * top, zMax: 1.1 * top },
     sizeAt(r, z) {
       if (Math.abs(r) >= box * 0.999 || Math.abs(z) >= box * 0.999) return box / (8 * refinement);
       return gapCorners.some(([gr, gz]) => Math.abs(gr - r) < 1e-12 && Math.abs(gz - z) < 1e-12) ? fine : coarse;

@@ -33,6 +33,7 @@ function loneRing(topFrequency: number): AxiModel {
   return {
     hasCore: false,
     permeability: 1,
+    view: { rMax: 2 * R0, zMin: -R0, zMax: R0 },
     surfaces: [
       { group: REGION.air, outline: box, holes: [outline] },
       { group: REGION.firstConductor, outline },
