@@ -27,9 +27,15 @@ export function fluxPicture(p: FluxPictureInput): string {
   const x = (r: number) => (MARGIN + r * scale).toFixed(2);
   const y = (z: number) => (MARGIN + 20 + (p.view.zMax - z) * scale).toFixed(2);
   const inView = (r: number, z: number) => r <= p.view.rMax && z >= p.view.zMin && z <= p.view.zMax;
-  const values = [...p.fluxFunction.values()];
-  const [low, high] = [Math.min(...values), Math.max(...values)];
-  const count = p.lines ?? 24;
+  // Levels span the flux function over what is drawn, so the lines are spent where they can be seen.
+  let [low, high] = [Number.POSITIVE_INFINITY, Number.NEGATIVE_INFINITY];
+  for (const [id, psi] of p.fluxFunction) {
+    const at = p.mesh.nodes.get(id);
+    if (!at || !inView(...at)) continue;
+    low = Math.min(low, psi);
+    high = Math.max(high, psi);
+  }
+  const count = p.lines ?? 32;
   const levels = Array.from({ length: count }, (_, i) => low + ((i + 0.5) * (high - low)) / count);
   const segments: string[] = [];
   for (const t of p.mesh.triangles) {
