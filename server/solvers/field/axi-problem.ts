@@ -4,6 +4,7 @@
 // axisymmetry; the loss per conductor comes from its own Joule integral (in a series string each conductor's voltage
 // includes what the others induce, so only the loss is its own). Outputs go to absolute paths in the run's folder.
 import { REGION } from './design-model.ts';
+import { jacobianAndIntegration, magnetostaticFormulation, VECTOR_POTENTIAL_SPACE } from './getdp-text.ts';
 
 export interface ProblemConductor {
   region: number;
@@ -52,13 +53,9 @@ Constraint {
   { Name Dirichlet; Case { { Region Boundary; Value 0; } { Region Axis; Value 0; } } }
   { Name Current; Case { ${currents} } }
 }
-Jacobian { { Name Vol; Case { { Region All; Jacobian VolAxiSqu; } } } }
-Integration { { Name Gauss4; Case { { Type Gauss; Case { { GeoElement Triangle; NumberOfPoints 4; } } } } } }
+${jacobianAndIntegration('VolAxiSqu')}
 FunctionSpace {
-  { Name Hcurl_a; Type Form1P;
-    BasisFunction { { Name se; NameOfCoef ae; Function BF_PerpendicularEdge; Support Domain; Entity NodesOf[All]; } }
-    Constraint { { NameOfCoef ae; EntityType NodesOf; NameOfConstraint Dirichlet; } }
-  }
+${VECTOR_POTENTIAL_SPACE}
   { Name Hregion_u; Type Form1P;
     BasisFunction { { Name sr; NameOfCoef ur; Function BF_RegionZ; Support Conductors; Entity Conductors; } }
     GlobalQuantity { { Name U; Type AliasOf; NameOfCoef ur; } { Name I; Type AssociatedWith; NameOfCoef ur; } }
@@ -66,13 +63,7 @@ FunctionSpace {
   }
 }
 Formulation {
-  { Name Magnetostatic; Type FemEquation;
-    Quantity { { Name a; Type Local; NameOfSpace Hcurl_a; } }
-    Equation {
-      Galerkin { [ nu[] * Dof{d a}, {d a} ]; In Domain; Jacobian Vol; Integration Gauss4; }
-      Galerkin { [ -js[], {a} ]; In Conductors; Jacobian Vol; Integration Gauss4; }
-    }
-  }
+${magnetostaticFormulation('Conductors')}
   { Name Harmonic; Type FemEquation;
     Quantity {
       { Name a; Type Local; NameOfSpace Hcurl_a; }

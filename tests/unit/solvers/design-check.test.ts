@@ -1,32 +1,17 @@
 import { describe, expect, it } from 'vitest';
-import { evaluateDesign, type CoreMaterial, type EvaluateInput } from '@shared/engine/index';
+import { evaluateDesign, type EvaluateInput } from '@shared/engine/index';
 import { CatalogueService } from '../../../server/catalogue/catalogue.service.ts';
 import { checkDesign } from '../../../server/solvers/field/design-check.ts';
+import { ferriteA } from '../engine/fixtures.ts';
 
-// The engine's figures for three designs it built (invented specs on catalogue cores, an invented ferrite) against
-// the field model of each: inductance (the engine's McLyman fringing factor — C. W. T. McLyman, Transformer and
+// The engine's figures for three designs it built (invented specs on catalogue cores, the engine fixtures' invented
+// ferrite A) against the field model of each: inductance (the engine's McLyman fringing factor — C. W. T. McLyman, Transformer and
 // Inductor Design Handbook, 3rd ed., Marcel Dekker 2004, ch. 8, from memory), the centre leg's mean flux density at
 // the saturation-check current, and the AC resistance at the switching frequency (the engine's R_dc × one-dimensional
 // Dowell, P. L. Dowell, Proc. IEE 113(8), 1966). Bounds: ground-gap L within 6 % and flux within 5 % (the body of
 // revolution's own path length differs from the catalogue's by up to ~10 %, see gapped-core-field.test.ts; common
 // practice, no source).
 
-const FERRITE: CoreMaterial = {
-  id: 'test-ferrite',
-  name: 'Test ferrite (invented)',
-  family: 'ferrite',
-  k: 2.0,
-  alpha: 1.4,
-  beta: 2.6,
-  fitFrequencyMin: 20e3,
-  fitFrequencyMax: 500e3,
-  fitFluxMin: 0.01,
-  fitFluxMax: 0.3,
-  bsat25: 0.48,
-  bsat100: 0.38,
-  permeability: 2300,
-  density: 4800,
-};
 const catalogue = new CatalogueService();
 
 function design(
@@ -37,8 +22,8 @@ function design(
 ) {
   const core = catalogue.core(coreId);
   const w = catalogue.wire(wire);
-  const result = evaluateDesign({ spec, core, material: FERRITE, turns: 'auto', gap: 'auto', placement, wire: w });
-  return { result, core, wire: w, permeability: FERRITE.permeability };
+  const result = evaluateDesign({ spec, core, material: ferriteA, turns: 'auto', gap: 'auto', placement, wire: w });
+  return { result, core, wire: w, permeability: ferriteA.permeability };
 }
 
 const buck = (vin: [number, number], vout: number, iout: number, frequency: number) =>
