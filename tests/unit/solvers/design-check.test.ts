@@ -52,7 +52,7 @@ describe('engine against the field model on designs it built', () => {
   it('ETD34/17/11, spacer, two wires in hand: the ring-shaped outer leg fringes more than a compact leg', async () => {
     const check = await checkDesign(design('ETD34/17/11', buck([24, 36], 12, 8, 100e3), { kind: 'awg', awg: 18, strands: 2 }, 'spacer'));
     // As a body of revolution the outer legs become one ring ~1 mm thick, whose spacer gap fringes far more than
-    // McLyman's factor for a leg of the same area: the field's L is higher (measured +29 %). Not a check of the engine.
+    // McLyman's factor for a leg of the same area: the field's L is higher (measured +27 %). Not a check of the engine.
     expect(check.inductance.difference).toBeGreaterThan(0.1);
     const [inner, outer] = check.acResistance[0]!.fieldLayers;
     // The inner layer lies beside the centre-leg gap.
