@@ -6,6 +6,7 @@
 // rectangular grid, so the mesh is conforming without boolean operations and each region is known by construction.
 import type { CoreShape } from '@shared/engine/types';
 import { withSolverFolder } from '../solver-run.ts';
+import { jacobianAndIntegration, magnetostaticFormulation, VECTOR_POTENTIAL_SPACE } from './getdp-text.ts';
 
 export interface GappedCoreModel {
   core: Pick<CoreShape, 'ae' | 'windowArea' | 'windowHeight' | 'centreToOuterLegAreaRatio'>;
@@ -147,22 +148,12 @@ Function {
   js[Winding] = Vector[0, 0, ${n(model.turns / (2 * windingArea))}];
 }
 Constraint { { Name Dirichlet; Case { { Region Boundary; Value 0; } { Region Axis; Value 0; } } } }
-Jacobian { { Name Vol; Case { { Region All; Jacobian VolAxiSqu; } } } }
-Integration { { Name Gauss4; Case { { Type Gauss; Case { { GeoElement Triangle; NumberOfPoints 4; } } } } } }
+${jacobianAndIntegration('VolAxiSqu')}
 FunctionSpace {
-  { Name Hcurl_a; Type Form1P;
-    BasisFunction { { Name se; NameOfCoef ae; Function BF_PerpendicularEdge; Support Domain; Entity NodesOf[All]; } }
-    Constraint { { NameOfCoef ae; EntityType NodesOf; NameOfConstraint Dirichlet; } }
-  }
+${VECTOR_POTENTIAL_SPACE}
 }
 Formulation {
-  { Name Magnetostatic; Type FemEquation;
-    Quantity { { Name a; Type Local; NameOfSpace Hcurl_a; } }
-    Equation {
-      Galerkin { [ nu[] * Dof{d a}, {d a} ]; In Domain; Jacobian Vol; Integration Gauss4; }
-      Galerkin { [ -js[], {a} ]; In Winding; Jacobian Vol; Integration Gauss4; }
-    }
-  }
+${magnetostaticFormulation('Winding')}
 }
 Resolution { { Name Magnetostatic; System { { Name S; NameOfFormulation Magnetostatic; } } Operation { Generate[S]; Solve[S]; SaveSolution[S]; } } }
 PostProcessing { { Name Fields; NameOfFormulation Magnetostatic;

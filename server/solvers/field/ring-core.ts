@@ -4,6 +4,7 @@
 // inside the core and their outer sides one just outside, carrying N·I up and down; the field between the sheets is
 // azimuthal, as in the real winding. The inductance comes from the stored energy, L = 2·W/I².
 import { withSolverFolder } from '../solver-run.ts';
+import { jacobianAndIntegration, magnetostaticFormulation, VECTOR_POTENTIAL_SPACE } from './getdp-text.ts';
 
 export interface RingCore {
   innerRadius: number;
@@ -101,22 +102,12 @@ Function {
   js[SheetOut] = Vector[0, 0, ${n(-ampereTurns / area(rings[4]!.radius, rings[5]!.radius))}];
 }
 Constraint { { Name Dirichlet; Case { { Region Boundary; Value 0; } } } }
-Jacobian { { Name Vol; Case { { Region All; Jacobian Vol; } } } }
-Integration { { Name Gauss4; Case { { Type Gauss; Case { { GeoElement Triangle; NumberOfPoints 4; } } } } } }
+${jacobianAndIntegration('Vol')}
 FunctionSpace {
-  { Name Hcurl_a; Type Form1P;
-    BasisFunction { { Name se; NameOfCoef ae; Function BF_PerpendicularEdge; Support Domain; Entity NodesOf[All]; } }
-    Constraint { { NameOfCoef ae; EntityType NodesOf; NameOfConstraint Dirichlet; } }
-  }
+${VECTOR_POTENTIAL_SPACE}
 }
 Formulation {
-  { Name Magnetostatic; Type FemEquation;
-    Quantity { { Name a; Type Local; NameOfSpace Hcurl_a; } }
-    Equation {
-      Galerkin { [ nu[] * Dof{d a}, {d a} ]; In Domain; Jacobian Vol; Integration Gauss4; }
-      Galerkin { [ -js[], {a} ]; In Sheets; Jacobian Vol; Integration Gauss4; }
-    }
-  }
+${magnetostaticFormulation('Sheets')}
 }
 Resolution { { Name Magnetostatic; System { { Name S; NameOfFormulation Magnetostatic; } } Operation { Generate[S]; Solve[S]; SaveSolution[S]; } } }
 PostProcessing { { Name Fields; NameOfFormulation Magnetostatic;
