@@ -149,8 +149,12 @@ describe('MaterialCompare', () => {
     await fixture.whenStable();
     // At 100 °C and B̂ = 0.1 T: the first point only (the second is 10 °C away, the third at another flux).
     const points = [point(100e3, 0.1, 100), point(100e3, 0.1, 110), point(200e3, 0.05, 100)];
-    http.expectOne('/api/materials/1/loss-points').flush({ materialId: 1, name: 'Sample ferrite A', version: 1, current: true, canEdit: false, points });
-    http.expectOne('/api/materials/2/loss-points').flush({ materialId: 2, name: 'Sample ferrite B', version: 1, current: true, canEdit: false, points: [] });
+    http
+      .expectOne('/api/materials/1/loss-points')
+      .flush({ materialId: 1, name: 'Sample ferrite A', version: 1, current: true, canEdit: false, points });
+    http
+      .expectOne('/api/materials/2/loss-points')
+      .flush({ materialId: 2, name: 'Sample ferrite B', version: 1, current: true, canEdit: false, points: [] });
     await fixture.whenStable();
     const [byFrequency] = charts();
     expect(byFrequency!.series.filter((s) => s.type === 'scatter').map((s) => s.id)).toEqual(['measured-1']);
