@@ -1,15 +1,18 @@
 import { EngineInputError } from '@shared/engine/index';
 import type { RollOffFit } from '@shared/engine/types';
 import { converterSpecSchema } from '@shared/schemas/calc';
-import { readStoredResult } from '@shared/schemas/designs';
+import { readStoredResult, wireRequestOf } from '@shared/schemas/designs';
 import type { Logger } from 'pino';
 import type { JobRun } from '../jobs/job-queue.ts';
 import type { MaterialsRepository } from '../materials/materials.repository.ts';
 import { toCoreMaterial } from '../materials/material-view.ts';
+import type { CatalogueService } from '../catalogue/catalogue.service.ts';
+import { FieldGeometryError } from '../solvers/field/design-model.ts';
 import { SolverError } from '../solvers/solver-run.ts';
 import type { CheckJobData } from './check-jobs.ts';
 import type { ChecksRepository } from './checks.repository.ts';
 import { runCircuitCheck, type CircuitCheckInput, type CircuitCheckRun } from './circuit-check.ts';
+import { runFieldCheck, type FieldCheckInput, type FieldCheckRun } from './field-check.ts';
 
 /** A check that cannot succeed however often it is tried: reported at once, in plain words. */
 class CheckRefused extends Error {}
@@ -19,9 +22,12 @@ class CheckCancelled extends Error {}
 export interface CheckHandlerDeps {
   repo: ChecksRepository;
   materials: Pick<MaterialsRepository, 'findByIds'>;
+  /** The shipped cores and wires the field model is built from. */
+  catalogue: Pick<CatalogueService, 'core' | 'wire'>;
   logger: Logger;
   /** The circuit check itself (tests may wrap it, e.g. to fail an attempt as a killed worker would). */
   circuit?: (input: CircuitCheckInput, run: CircuitCheckRun) => Promise<unknown>;
+  field?: (input: FieldCheckInput, run: FieldCheckRun) => Promise<unknown>;
 }
 
 /**
@@ -32,16 +38,19 @@ export interface CheckHandlerDeps {
  */
 export function createCheckHandler(deps: CheckHandlerDeps) {
   const circuit = deps.circuit ?? runCircuitCheck;
+  const field = deps.field ?? runFieldCheck;
   return async ({ data, attempt, lastAttempt }: JobRun<CheckJobData>): Promise<void> => {
     const { repo, logger } = deps;
     const check = await repo.markRunning(data.checkId);
     if (!check) return; // cancelled (or gone) before it started
     try {
-      const input = await circuitInput(deps, check.revisionId);
       const onProgress = async (progress: number) => {
         if (!(await repo.setProgress(check.id, progress))) throw new CheckCancelled();
       };
-      const result = await circuit(input, { onProgress });
+      const result =
+        check.kind === 'field'
+          ? await field(await fieldInput(deps, check.revisionId), { onProgress })
+          : await circuit(await circuitInput(deps, check.revisionId), { onProgress });
       if (!(await repo.finish(check.id, result))) logger.info({ checkId: check.id }, 'check cancelled while running: result discarded');
     } catch (err) {
       if (err instanceof CheckCancelled) return;
@@ -58,20 +67,46 @@ const messageOf = (err: unknown) => (err instanceof Error ? err.message : String
 
 function plainReason(err: unknown): string | undefined {
   if (err instanceof CheckRefused) return err.message;
-  if (err instanceof SolverError) return `The circuit simulator failed: ${err.message}`;
+  if (err instanceof SolverError) return `The solver failed: ${err.message}`;
+  if (err instanceof FieldGeometryError) return `The field model cannot be built (${err.field}): ${err.message}`;
   if (err instanceof EngineInputError) return `The design cannot be simulated at this corner: ${err.message}`;
   return undefined;
 }
 
-async function circuitInput(deps: CheckHandlerDeps, revisionId: number): Promise<CircuitCheckInput> {
+/** The revision's stored evaluation, or a plain refusal. */
+async function storedEvaluation(deps: CheckHandlerDeps, revisionId: number) {
   const revision = await deps.repo.revisionOf(revisionId);
   if (!revision) throw new CheckRefused('The revision no longer exists.');
   const { result, resultUnreadable } = readStoredResult(revision.result);
   if (resultUnreadable) throw new CheckRefused(`The revision’s saved figures no longer read (${resultUnreadable}).`);
   if (!result) throw new CheckRefused('The revision has no chosen construction yet; pick a candidate first.');
+  return { revision, evaluation: result.evaluation };
+}
+
+async function fieldInput(deps: CheckHandlerDeps, revisionId: number): Promise<FieldCheckInput> {
+  const { revision, evaluation } = await storedEvaluation(deps, revisionId);
+  let core;
+  try {
+    core = deps.catalogue.core(evaluation.core.id);
+  } catch {
+    throw new CheckRefused(`The core ${evaluation.core.id} is not in the catalogue the check worker reads (shipped cores only).`);
+  }
+  const [material] = revision.materialId === null ? [] : await deps.materials.findByIds([revision.materialId]);
+  if (!material) throw new CheckRefused('The revision’s material version is gone; the field model needs its permeability.');
+  return {
+    evaluation,
+    core,
+    wire: deps.catalogue.wire(wireRequestOf(evaluation.wire)),
+    permeability: toCoreMaterial(material).permeability,
+    title: `${evaluation.core.id}, ${evaluation.turns} turns, ${evaluation.gap.placement} gap`,
+  };
+}
+
+async function circuitInput(deps: CheckHandlerDeps, revisionId: number): Promise<CircuitCheckInput> {
+  const { revision, evaluation } = await storedEvaluation(deps, revisionId);
   const spec = converterSpecSchema.safeParse((revision.spec as { converter?: unknown } | null)?.converter);
   if (!spec.success) throw new CheckRefused('The revision’s converter spec no longer reads; save it again.');
-  return { spec: spec.data, evaluation: result.evaluation, rollOff: await rollOffOf(deps, revision.materialId) };
+  return { spec: spec.data, evaluation, rollOff: await rollOffOf(deps, revision.materialId) };
 }
 
 /** The stored material's roll-off (powder); none for a material that is gone or has none. */

@@ -1,5 +1,5 @@
 import { and, desc, eq, inArray } from 'drizzle-orm';
-import { circuitCheckResultSchema, type CheckKind, type RevisionCheck } from '@shared/schemas/checks';
+import { checkResultSchema, type CheckKind, type RevisionCheck } from '@shared/schemas/checks';
 import type { Db, Tx } from '../db/client.ts';
 import { designRevisions, revisionChecks, users } from '../db/schema.ts';
 
@@ -130,7 +130,7 @@ export function checkView(row: CheckRow, requestedBy: string | null): RevisionCh
     status: row.status,
     progress: row.progress,
     // A result stored by an older version that no longer reads is shown as none rather than guessed at.
-    result: circuitCheckResultSchema.safeParse(row.result).data ?? null,
+    result: checkResultSchema.safeParse(row.result).data ?? null,
     failure: row.failure,
     requestedBy,
     createdAt: row.createdAt.toISOString(),

@@ -1,5 +1,6 @@
 import type pg from 'pg';
 import type { Logger } from 'pino';
+import { CatalogueService } from '../catalogue/catalogue.service.ts';
 import { CHECK_JOB, CHECK_LIMITS, CHECK_RETRY, type CheckJobData } from '../checks/check-jobs.ts';
 import { createCheckHandler, type CheckHandlerDeps } from '../checks/check-job.ts';
 import { ChecksRepository } from '../checks/checks.repository.ts';
@@ -14,6 +15,8 @@ export interface CheckWorkerOptions {
   logger: Logger;
   /** Replaces the circuit check (tests: fail an attempt as a killed worker would). */
   circuit?: CheckHandlerDeps['circuit'];
+  /** Replaces the field check (tests: a stand-in that answers at once). */
+  field?: CheckHandlerDeps['field'];
 }
 
 export interface CheckWorker {
@@ -30,8 +33,10 @@ export async function startCheckWorker(options: CheckWorkerOptions): Promise<Che
   const handler = createCheckHandler({
     repo: new ChecksRepository(db),
     materials: new MaterialsRepository(db),
+    catalogue: new CatalogueService(),
     logger,
     circuit: options.circuit,
+    field: options.field,
   });
   queue.define<CheckJobData>(CHECK_JOB, CHECK_RETRY, handler, CHECK_LIMITS);
   await queue.start();

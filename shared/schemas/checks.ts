@@ -1,6 +1,6 @@
 import * as z from 'zod';
 
-/** Independent checks of a saved revision, run as background jobs: 'field' is reserved for the field solution. */
+/** Independent checks of a saved revision, run as background jobs: the circuit simulation and the field solution. */
 export const CHECK_KINDS = ['circuit', 'field'] as const;
 export type CheckKind = (typeof CHECK_KINDS)[number];
 export const CHECK_STATUSES = ['queued', 'running', 'done', 'failed', 'cancelled'] as const;
@@ -8,9 +8,7 @@ export type CheckStatus = (typeof CHECK_STATUSES)[number];
 /** A check in one of these is still owed a result; at most one per revision and kind. */
 export const OPEN_CHECK_STATUSES = ['queued', 'running'] as const satisfies readonly CheckStatus[];
 
-export const runCheckRequestSchema = z
-  .object({ kind: z.enum(['circuit'], { error: 'kind must be "circuit" (the field check is not offered yet)' }) })
-  .strict();
+export const runCheckRequestSchema = z.object({ kind: z.enum(CHECK_KINDS, { error: 'kind must be "circuit" or "field"' }) }).strict();
 export type RunCheckRequest = z.infer<typeof runCheckRequestSchema>;
 
 /** Ripple, peak, average and valley of the inductor current (A). */
@@ -49,13 +47,40 @@ export const circuitCheckResultSchema = z.object({
 });
 export type CircuitCheckResult = z.infer<typeof circuitCheckResultSchema>;
 
+/** A figure of the engine beside the field solution's: (field − engine)/engine as a fraction. */
+const figurePairSchema = z.object({ engine: z.number(), field: z.number(), difference: z.number() });
+
+export const fieldCheckResultSchema = z.object({
+  kind: z.literal('field'),
+  /** Nominal inductance (H): engine with McLyman's fringing factor, field from the stored energy. */
+  inductance: figurePairSchema,
+  /** Peak flux density (T) at the check current: engine section mean, field centre-leg mean. */
+  peakFlux: figurePairSchema,
+  /** Largest |B| over the core's elements (T), at the gap's corners. */
+  peakFluxLocal: z.number(),
+  /** AC resistance (Ω) per harmonic: engine R_dc·Dowell, field Joule loss over I_rms², and the field's per layer. */
+  acResistance: z.array(figurePairSchema.extend({ harmonic: z.number().int(), frequency: z.number(), fieldLayers: z.array(z.number()) })),
+  /** DC resistance of the modelled conductors (Ω). */
+  dcResistance: z.number(),
+  nodes: z.number().int(),
+  /** Solver time (s). */
+  seconds: z.number(),
+  notes: z.array(z.string()),
+  /** The flux-line picture, SVG text drawn by Gapwright from the mesh and the solution. */
+  picture: z.string().max(4_000_000),
+});
+export type FieldCheckResult = z.infer<typeof fieldCheckResultSchema>;
+
+export const checkResultSchema = z.discriminatedUnion('kind', [circuitCheckResultSchema, fieldCheckResultSchema]);
+export type CheckResult = z.infer<typeof checkResultSchema>;
+
 export const revisionCheckSchema = z.object({
   id: z.number().int(),
   revisionId: z.number().int(),
   kind: z.enum(CHECK_KINDS),
   status: z.enum(CHECK_STATUSES),
   progress: z.number().min(0).max(1),
-  result: circuitCheckResultSchema.nullable(),
+  result: checkResultSchema.nullable(),
   failure: z.string().nullable(),
   requestedBy: z.string().nullable().meta({ description: 'Display name; null when the user was removed' }),
   createdAt: z.string(),

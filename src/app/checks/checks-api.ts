@@ -1,6 +1,6 @@
 import { Injectable, inject } from '@angular/core';
 import { cancelCheck, listChecks, runCheck } from '@shared/api/checks';
-import type { RevisionCheck, RevisionChecks } from '@shared/schemas/checks';
+import type { CheckKind, RevisionCheck, RevisionChecks } from '@shared/schemas/checks';
 import type { Observable } from 'rxjs';
 
 import { Api } from '../core/api';
@@ -15,8 +15,8 @@ export class ChecksApi {
     return this.api.call(listChecks, { params: { id: String(id), rev: String(rev) } }, errorsShownByCaller());
   }
 
-  runCircuit(id: number, rev: number): Observable<RevisionCheck> {
-    return this.api.call(runCheck, { params: { id: String(id), rev: String(rev) }, body: { kind: 'circuit' } }, errorsShownByCaller());
+  run(id: number, rev: number, kind: CheckKind): Observable<RevisionCheck> {
+    return this.api.call(runCheck, { params: { id: String(id), rev: String(rev) }, body: { kind } }, errorsShownByCaller());
   }
 
   cancel(id: number, rev: number, checkId: number): Observable<RevisionCheck> {

@@ -108,7 +108,7 @@ describe('ChecksPanel', () => {
       frozenReason: null,
     });
     expect(text(page)).toContain(
-      "Circuit simulation of the power stage with the design's inductor model; an engineering estimate — qualified review required.",
+      "Circuit simulation of the power stage with the design's inductor model, and a 2D field solution of the core, gap and winding; engineering estimates — qualified review required.",
     );
     expect(page.querySelectorAll('[data-corner="vin-max"] .gw-checks-chart')).toHaveLength(1);
     const rows = [...page.querySelectorAll('[data-corner="vin-max"] tbody tr')].map((r) =>
@@ -141,7 +141,7 @@ describe('ChecksPanel', () => {
     http.expectOne(LIST).flush({ checks: [check('running', { progress: 0.75 })], canRun: true, frozenReason: null });
     await fixture.whenStable();
     expect(text(page)).toContain('75 %');
-    button(page, 'Cancel')!.click();
+    button(page, 'Cancel the circuit check')!.click();
     http.expectOne({ method: 'POST', url: `${LIST}/5/cancel` }).flush(check('cancelled'));
     await fixture.whenStable();
     http.expectOne(LIST).flush({ checks: [check('cancelled')], canRun: true, frozenReason: null });
@@ -160,6 +160,43 @@ describe('ChecksPanel', () => {
     expect(text(page)).toContain('Circuit check failed: The circuit simulator failed: ngspice is not installed');
     expect(text(page)).toContain('is released: its checks are frozen');
     expect(page.querySelectorAll('button')).toHaveLength(0);
+  });
+
+  it('shows a finished field check: engine beside field with the difference, and the picture as an image', async () => {
+    const page = await render({
+      checks: [
+        check('done', {
+          kind: 'field',
+          result: {
+            kind: 'field',
+            inductance: { engine: 40e-6, field: 41e-6, difference: 0.025 },
+            peakFlux: { engine: 0.25, field: 0.26, difference: 0.04 },
+            peakFluxLocal: 0.7,
+            acResistance: [{ harmonic: 1, frequency: 100e3, engine: 0.05, field: 0.15, difference: 2, fieldLayers: [0.1, 0.05] }],
+            dcResistance: 0.02,
+            nodes: 30000,
+            seconds: 12.5,
+            notes: ['A field note.'],
+            picture: '<svg xmlns="http://www.w3.org/2000/svg" width="10" height="10"></svg>',
+          },
+        }),
+      ],
+      canRun: true,
+      frozenReason: null,
+    });
+    expect(text(page)).toContain('Field check done');
+    const rows = [...page.querySelectorAll('gw-field-check-view tbody tr')].map((r) =>
+      [...r.children].map((cell) => cell.textContent?.trim()).join(' | '),
+    );
+    expect(rows).toEqual([
+      'Inductance, nominal | 40 µH | 41 µH | +2.5 %',
+      'Peak flux density (centre-leg mean) | 250 mT | 260 mT | +4.0 %',
+      'AC resistance at 100 kHz | 50 mΩ | 150 mΩ | +200.0 %',
+      'Largest |B| at the gap’s corners | — | 700 mT | —',
+    ]);
+    expect(page.querySelector('gw-field-check-view img')?.getAttribute('src')).toMatch(/^data:image\/svg\+xml;charset=utf-8,%3Csvg/);
+    expect(text(page)).toContain('A field note.');
+    expect(button(page, 'Run the field check')).toBeDefined();
   });
 
   it('offers no run button to a winder', async () => {

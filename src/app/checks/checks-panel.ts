@@ -3,7 +3,7 @@ import { ChangeDetectionStrategy, Component, computed, effect, inject, input, si
 import { MatButtonModule } from '@angular/material/button';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { may } from '@shared/api/permissions';
-import type { CircuitCorner, RevisionCheck, RevisionChecks } from '@shared/schemas/checks';
+import type { CheckKind, CircuitCorner, RevisionCheck, RevisionChecks } from '@shared/schemas/checks';
 import { NgxEchartsDirective } from 'ngx-echarts';
 import type { Observable } from 'rxjs';
 
@@ -11,6 +11,7 @@ import { errorMessageOf } from '../core/api-error';
 import { Session } from '../core/session';
 import { ChecksApi } from './checks-api';
 import { circuitChartLabel, circuitChartOptions } from './circuit-chart';
+import { FieldCheckView } from './field-check-view';
 
 /** How often a queued or running check is asked about (ms). */
 export const POLL_MS = 2000;
@@ -18,7 +19,7 @@ export const POLL_MS = 2000;
 /** The revision's independent checks (the circuit check for now): run, follow, cancel, and the results. */
 @Component({
   selector: 'gw-checks-panel',
-  imports: [MatButtonModule, MatProgressBarModule, NgxEchartsDirective, DecimalPipe],
+  imports: [MatButtonModule, MatProgressBarModule, NgxEchartsDirective, DecimalPipe, FieldCheckView],
   templateUrl: './checks-panel.html',
   styleUrl: './checks-panel.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -35,8 +36,18 @@ export class ChecksPanel {
   protected readonly busy = signal(false);
   private readonly refresh = signal(0);
 
-  protected readonly circuit = computed<RevisionCheck | null>(() => this.answer()?.checks.find((c) => c.kind === 'circuit') ?? null);
-  protected readonly open = computed(() => ['queued', 'running'].includes(this.circuit()?.status ?? ''));
+  protected readonly circuit = computed<RevisionCheck | null>(() => this.latest('circuit'));
+  protected readonly field = computed<RevisionCheck | null>(() => this.latest('field'));
+  protected readonly open = computed(() => this.isOpen(this.circuit()));
+  protected readonly fieldOpen = computed(() => this.isOpen(this.field()));
+  protected readonly circuitResult = computed(() => {
+    const c = this.circuit();
+    return c?.status === 'done' && c.result?.kind === 'circuit' ? c.result : null;
+  });
+  protected readonly fieldResult = computed(() => {
+    const c = this.field();
+    return c?.status === 'done' && c.result?.kind === 'field' ? c.result : null;
+  });
   protected readonly mayRun = computed(() => may(this.session.role(), 'library') && (this.answer()?.canRun ?? false));
   protected readonly chart = circuitChartOptions;
   protected readonly chartLabel = circuitChartLabel;
@@ -64,8 +75,16 @@ export class ChecksPanel {
     });
   }
 
-  protected run(): void {
-    this.act(this.api.runCircuit(this.designId(), this.revision()));
+  private latest(kind: CheckKind): RevisionCheck | null {
+    return this.answer()?.checks.find((c) => c.kind === kind) ?? null;
+  }
+
+  private isOpen(check: RevisionCheck | null): boolean {
+    return check?.status === 'queued' || check?.status === 'running';
+  }
+
+  protected run(kind: CheckKind = 'circuit'): void {
+    this.act(this.api.run(this.designId(), this.revision(), kind));
   }
 
   protected cancel(check: RevisionCheck): void {
