@@ -5,8 +5,8 @@
 // field crosses that plane at right angles, GetDP's natural boundary). Every region is a union of cells of one
 // rectangular grid, so the mesh is conforming without boolean operations and each region is known by construction.
 import type { CoreShape } from '@shared/engine/types';
-import { withSolverFolder } from '../solver-run.ts';
-import { jacobianAndIntegration, magnetostaticFormulation, VECTOR_POTENTIAL_SPACE } from './getdp-text.ts';
+import { solveStoredEnergy } from './energy-solve.ts';
+import { jacobianAndIntegration, magnetostaticFormulation, VECTOR_POTENTIAL_SPACE, MAGNETOSTATIC_ENERGY } from './getdp-text.ts';
 
 export interface GappedCoreModel {
   core: Pick<CoreShape, 'ae' | 'windowArea' | 'windowHeight' | 'centreToOuterLegAreaRatio'>;
@@ -35,7 +35,6 @@ export interface RevolvedCore {
 }
 
 const CLEARANCE = 0.5e-3;
-const TIMEOUT_MS = 120_000;
 const n = (x: number) => x.toPrecision(12);
 
 export function revolvedCore(core: GappedCoreModel['core']): RevolvedCore {
@@ -155,33 +154,13 @@ ${VECTOR_POTENTIAL_SPACE}
 Formulation {
 ${magnetostaticFormulation('Winding')}
 }
-Resolution { { Name Magnetostatic; System { { Name S; NameOfFormulation Magnetostatic; } } Operation { Generate[S]; Solve[S]; SaveSolution[S]; } } }
-PostProcessing { { Name Fields; NameOfFormulation Magnetostatic;
-  Quantity { { Name energy; Value { Integral { [ 0.5 * nu[] * SquNorm[{d a}] ]; In Domain; Jacobian Vol; Integration Gauss4; } } } } } }
-PostOperation { { Name Energy; NameOfPostProcessing Fields; Operation { Print[ energy[Domain], OnGlobal, Format Table, File "{folder}/energy.txt" ]; } } }
+${MAGNETOSTATIC_ENERGY}
 `;
 }
-
-const SOLVER_ERROR = /^\s*(Error|Fatal)\b/;
 
 /** L = 2·W at 1 A, W = 2 (halves) × 2π (radians) × the printed energy. */
 export async function solveGappedCore(model: GappedCoreModel): Promise<GappedCoreField> {
   const { geometry, windingArea } = gappedCoreGeometry(model);
-  const files = { 'core.geo': geometry, 'core.pro': gappedCoreProblem(model, windingArea) };
-  return withSolverFolder(files, async (folder) => {
-    const meshLog = await folder.run({
-      program: 'gmsh',
-      args: ['-2', '{folder}/core.geo', '-o', '{folder}/core.msh'],
-      timeoutMs: TIMEOUT_MS,
-      errorLine: SOLVER_ERROR,
-    });
-    await folder.run({
-      program: 'getdp',
-      args: ['{folder}/core.pro', '-msh', '{folder}/core.msh', '-solve', 'Magnetostatic', '-pos', 'Energy', '-name', '{folder}/run'],
-      timeoutMs: TIMEOUT_MS,
-      errorLine: SOLVER_ERROR,
-    });
-    const perRadian = Number((await folder.read('energy.txt')).trim().split(/\s+/).at(-1));
-    return { inductance: 2 * 2 * 2 * Math.PI * perRadian, nodes: Number(/(\d+) nodes/.exec(meshLog)?.[1] ?? 0) };
-  });
+  const { energy, nodes } = await solveStoredEnergy(geometry, gappedCoreProblem(model, windingArea));
+  return { inductance: 2 * 2 * 2 * Math.PI * energy, nodes };
 }

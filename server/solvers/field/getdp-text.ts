@@ -18,3 +18,9 @@ export const magnetostaticFormulation = (sources: string) => `  { Name Magnetost
       Galerkin { [ -js[], {a} ]; In ${sources}; Jacobian Vol; Integration Gauss4; }
     }
   }`;
+
+/** Solve, then the stored energy ½·ν·|B|² over the domain printed to `{folder}/energy.txt` (post-operation "Energy"). */
+export const MAGNETOSTATIC_ENERGY = `Resolution { { Name Magnetostatic; System { { Name S; NameOfFormulation Magnetostatic; } } Operation { Generate[S]; Solve[S]; SaveSolution[S]; } } }
+PostProcessing { { Name Fields; NameOfFormulation Magnetostatic;
+  Quantity { { Name energy; Value { Integral { [ 0.5 * nu[] * SquNorm[{d a}] ]; In Domain; Jacobian Vol; Integration Gauss4; } } } } } }
+PostOperation { { Name Energy; NameOfPostProcessing Fields; Operation { Print[ energy[Domain], OnGlobal, Format Table, File "{folder}/energy.txt" ]; } } }`;

@@ -3,8 +3,8 @@
 // closed form L = μ0·μr·N²·h·ln(ro/ri)/(2π). Seen from above, the turns' inner sides are a thin current sheet just
 // inside the core and their outer sides one just outside, carrying N·I up and down; the field between the sheets is
 // azimuthal, as in the real winding. The inductance comes from the stored energy, L = 2·W/I².
-import { withSolverFolder } from '../solver-run.ts';
-import { jacobianAndIntegration, magnetostaticFormulation, VECTOR_POTENTIAL_SPACE } from './getdp-text.ts';
+import { solveStoredEnergy } from './energy-solve.ts';
+import { jacobianAndIntegration, magnetostaticFormulation, VECTOR_POTENTIAL_SPACE, MAGNETOSTATIC_ENERGY } from './getdp-text.ts';
 
 export interface RingCore {
   innerRadius: number;
@@ -28,7 +28,6 @@ const CLEARANCE = 1 / 30;
 const SHEET = 1 / 10;
 /** The air boundary (A = 0) at this multiple of the outer sheet's radius. */
 const AIR = 2;
-const TIMEOUT_MS = 60_000;
 
 export const ringCoreClosedForm = (c: RingCore) =>
   (MU0 * c.permeability * c.turns * c.turns * c.height * Math.log(c.outerRadius / c.innerRadius)) / (2 * Math.PI);
@@ -109,36 +108,12 @@ ${VECTOR_POTENTIAL_SPACE}
 Formulation {
 ${magnetostaticFormulation('Sheets')}
 }
-Resolution { { Name Magnetostatic; System { { Name S; NameOfFormulation Magnetostatic; } } Operation { Generate[S]; Solve[S]; SaveSolution[S]; } } }
-PostProcessing { { Name Fields; NameOfFormulation Magnetostatic;
-  Quantity { { Name energy; Value { Integral { [ 0.5 * nu[] * SquNorm[{d a}] ]; In Domain; Jacobian Vol; Integration Gauss4; } } } } } }
-PostOperation { { Name Energy; NameOfPostProcessing Fields; Operation { Print[ energy[Domain], OnGlobal, Format Table, File "{folder}/energy.txt" ]; } } }
+${MAGNETOSTATIC_ENERGY}
 `;
 }
 
-const SOLVER_ERROR = /^\s*(Error|Fatal)\b/;
-
 /** Meshes and solves the ring core; the energy per metre of depth times h gives W at I = 1 A, so L = 2·W. */
 export async function solveRingCore(core: RingCore, refinement = 1): Promise<RingCoreField> {
-  const files = { 'core.geo': ringCoreGeometry(core, refinement), 'core.pro': ringCoreProblem(core, refinement) };
-  return withSolverFolder(files, async (folder) => {
-    const meshLog = await folder.run({
-      program: 'gmsh',
-      args: ['-2', '{folder}/core.geo', '-o', '{folder}/core.msh'],
-      timeoutMs: TIMEOUT_MS,
-      errorLine: SOLVER_ERROR,
-    });
-    await folder.run({
-      program: 'getdp',
-      args: ['{folder}/core.pro', '-msh', '{folder}/core.msh', '-solve', 'Magnetostatic', '-pos', 'Energy', '-name', '{folder}/run'],
-      timeoutMs: TIMEOUT_MS,
-      errorLine: SOLVER_ERROR,
-    });
-    const energyPerMetre = Number((await folder.read('energy.txt')).trim().split(/\s+/).at(-1));
-    return {
-      inductance: 2 * energyPerMetre * core.height,
-      closedForm: ringCoreClosedForm(core),
-      nodes: Number(/(\d+) nodes/.exec(meshLog)?.[1] ?? 0),
-    };
-  });
+  const { energy, nodes } = await solveStoredEnergy(ringCoreGeometry(core, refinement), ringCoreProblem(core, refinement));
+  return { inductance: 2 * energy * core.height, closedForm: ringCoreClosedForm(core), nodes };
 }

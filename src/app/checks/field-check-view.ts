@@ -52,39 +52,7 @@ const percent = (fraction: number) => `${fraction >= 0 ? '+' : ''}${(fraction * 
       </figure>
     </div>
   `,
-  styles: `
-    .gw-field {
-      display: flex;
-      flex-wrap: wrap;
-      gap: 16px;
-      align-items: flex-start;
-    }
-    figure {
-      margin: 0;
-      max-width: 480px;
-    }
-    img {
-      width: 100%;
-      height: auto;
-      background: #fff;
-      border: 1px solid var(--mat-sys-outline-variant);
-    }
-    figcaption {
-      font: var(--mat-sys-body-small);
-    }
-    table {
-      border-collapse: collapse;
-    }
-    td,
-    th {
-      padding: 2px 8px;
-      text-align: right;
-    }
-    th[scope='row'],
-    thead th:first-child {
-      text-align: left;
-    }
-  `,
+  styleUrl: './field-check-view.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class FieldCheckView {
