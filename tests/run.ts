@@ -4,6 +4,7 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { ensureClientBuild } from '../server/ops/client-build.ts';
 import { dropDatabase, ensureCluster, ensureDatabase } from '../server/ops/postgres.ts';
+import { SOLVER_TOOLS } from '../server/ops/solver-tools.ts';
 
 // `npm test`: every suite, each with what it needs (a throwaway database per run, Debian's
 // Chromium, a fresh web build), ending with one "passed, failed" line.
@@ -144,15 +145,13 @@ async function componentTests(): Promise<void> {
 }
 
 /**
- * Debian packages the suites drive: Chromium for browser tests, poppler-utils to read and render PDFs, ngspice as the
- * independent circuit solver the engine's operating point is checked against, gmsh and GetDP for the 2D field model.
+ * Debian packages the suites drive: Chromium for browser tests, poppler-utils to read and render PDFs, and the solvers
+ * the independent checks run (ngspice, gmsh, GetDP; the same list `npm start` installs).
  */
 const DEBIAN_TOOLS: { binary: string; pkg: string }[] = [
   { binary: '/usr/bin/chromium', pkg: 'chromium' },
   { binary: '/usr/bin/pdftotext', pkg: 'poppler-utils' },
-  { binary: '/usr/bin/ngspice', pkg: 'ngspice' },
-  { binary: '/usr/bin/gmsh', pkg: 'gmsh' },
-  { binary: '/usr/bin/getdp', pkg: 'getdp' },
+  ...SOLVER_TOOLS,
 ];
 
 function ensureDebianTools(): void {
