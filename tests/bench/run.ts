@@ -3,6 +3,7 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { ensureClientBuild } from '../../server/ops/client-build.ts';
 import { measureInitialBundle } from './bundle.ts';
+import { runChecksBench } from './checks.ts';
 import { runEngineBench, type BenchRow } from './engine.ts';
 import { runHttpLoadBench } from './http-load.ts';
 import { runLossPointsBench } from './loss-points.ts';
@@ -23,6 +24,7 @@ const SECTIONS: Record<string, () => Promise<BenchRow[]> | BenchRow[]> = {
   'signed-in': runSignedInPathBench,
   import: runImportBench,
   'loss-points': runLossPointsBench,
+  checks: runChecksBench,
   workspace: runWorkspaceBench,
   outage: runOutageBench,
   bundle: () => measureInitialBundle(path.join(repoRoot, 'dist/gapwright/browser')),
