@@ -51,7 +51,8 @@ export function createCheckHandler(deps: CheckHandlerDeps) {
         check.kind === 'field'
           ? await field(await fieldInput(deps, check.revisionId), { onProgress })
           : await circuit(await circuitInput(deps, check.revisionId), { onProgress });
-      if (!(await repo.finish(check.id, result))) logger.info({ checkId: check.id }, 'check cancelled while running: result discarded');
+      const outcome = await repo.finish(check.id, result);
+      if (outcome !== 'stored') logger.info({ checkId: check.id, outcome }, 'check result discarded');
     } catch (err) {
       if (err instanceof CheckCancelled) return;
       const plain = plainReason(err);

@@ -1,4 +1,4 @@
-import { and, desc, eq, inArray } from 'drizzle-orm';
+import { and, desc, eq, inArray, notExists } from 'drizzle-orm';
 import { checkResultSchema, type CheckKind, type RevisionCheck } from '@shared/schemas/checks';
 import type { Db, Tx } from '../db/client.ts';
 import { designRevisions, revisionChecks, users } from '../db/schema.ts';
@@ -96,13 +96,28 @@ export class ChecksRepository {
   }
 
   /** The result and 'done' in one statement (one transaction); false when the check was cancelled meanwhile. */
-  async finish(id: number, result: unknown): Promise<boolean> {
-    const rows = await this.db
+  /**
+   * Stores a finished check's result, unless it was cancelled meanwhile or its revision was released (or superseded)
+   * while it ran: a released revision's checks stay as they were at release, so the late result is discarded and the
+   * check marked cancelled with the reason.
+   */
+  async finish(id: number, result: unknown): Promise<'stored' | 'cancelled' | 'frozen'> {
+    const frozenRevision = this.db
+      .select({ id: designRevisions.id })
+      .from(designRevisions)
+      .where(and(eq(designRevisions.id, revisionChecks.revisionId), inArray(designRevisions.status, FROZEN_STATUSES)));
+    const stored = await this.db
       .update(revisionChecks)
       .set({ status: 'done', progress: 1, result, finishedAt: new Date() })
+      .where(and(eq(revisionChecks.id, id), eq(revisionChecks.status, 'running'), notExists(frozenRevision)))
+      .returning({ id: revisionChecks.id });
+    if (stored.length) return 'stored';
+    const frozen = await this.db
+      .update(revisionChecks)
+      .set({ status: 'cancelled', failure: FROZEN_WHILE_RUNNING, finishedAt: new Date() })
       .where(and(eq(revisionChecks.id, id), eq(revisionChecks.status, 'running')))
       .returning({ id: revisionChecks.id });
-    return rows.length > 0;
+    return frozen.length ? 'frozen' : 'cancelled';
   }
 
   async fail(id: number, failure: string): Promise<void> {
@@ -122,6 +137,11 @@ export class ChecksRepository {
 }
 
 /** A stored check as the API answers it. */
+/** Revision statuses whose checks are frozen. */
+export const FROZEN_STATUSES = ['released', 'superseded'] as const;
+export const FROZEN_WHILE_RUNNING =
+  'The revision was released while the check ran; its checks stay as they were at release, so this result was discarded.';
+
 export function checkView(row: CheckRow, requestedBy: string | null): RevisionCheck {
   return {
     id: row.id,

@@ -5,12 +5,12 @@ import { requireStoredResult } from '../designs/stored-result.ts';
 import { conflict, notFound } from '../http/errors.ts';
 import type { JobQueue } from '../jobs/job-queue.ts';
 import { CHECK_JOB, type CheckJobData } from './check-jobs.ts';
-import { checkView, type ChecksRepository } from './checks.repository.ts';
+import { checkView, FROZEN_STATUSES, type ChecksRepository } from './checks.repository.ts';
 
 type Revision = Awaited<ReturnType<DesignsService['revision']>>;
 
 /** Statuses whose figures are frozen: the checks then stay as they were at release. */
-const FROZEN = new Set(['released', 'superseded']);
+const FROZEN = new Set<string>(FROZEN_STATUSES);
 
 const labelOf = (revision: Revision) => `Revision ${revision.revision} of ${revision.design.number}`;
 

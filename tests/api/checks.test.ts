@@ -160,6 +160,19 @@ describe('circuit check as a background job', () => {
 });
 
 describe('refusals', () => {
+  it('discards a result that arrives after its revision was released, saying why (the checks stay as at release)', async () => {
+    const { revision, url } = await evaluatedRevision();
+    const { reached, release } = hold(revision.id);
+    expect((await erin.post(url, { kind: 'circuit' })).status).toBe(202);
+    await reached;
+    // Released while the check runs (the review steps are tested elsewhere; only the status matters here).
+    await t.db.update(designRevisions).set({ status: 'released' }).where(eq(designRevisions.id, revision.id));
+    release();
+    const after = await waitFor(url, (c) => c.status !== 'running' && c.status !== 'queued');
+    expect(after).toMatchObject({ status: 'cancelled', result: null });
+    expect(after.failure).toMatch(/released while the check ran/);
+  }, 90_000);
+
   it('answers 409 for a revision without saved figures', async () => {
     const { revision, url } = await evaluatedRevision();
     await t.db.update(designRevisions).set({ result: null }).where(eq(designRevisions.id, revision.id));
