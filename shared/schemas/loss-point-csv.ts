@@ -2,6 +2,7 @@
 // names (one unit set: kHz, mT, °C, kW/m³, A/m). Every problem names its column so the preview can show it by row
 // and column; problems across rows (duplicates, too few points, one frequency or flux) come from `loss-point-checks`.
 import * as z from 'zod';
+import { trimmedNumber } from '@shared/units/format';
 import type { LossPoint } from '@shared/fitting/loss-points';
 import type { CellProblem } from './csv-import';
 import { cellProblems, optionalNumberCell, optionalTextCell, requiredNumberCell } from './csv-cells';
@@ -81,14 +82,18 @@ export function lossPointFromRow(row: LossPointCsvRow): LossPoint {
   };
 }
 
-/** A point's cells in the file's units (template, export). */
-export function lossPointCells(point: LossPoint): Record<LossPointCsvColumn, string> {
+/**
+ * A point's cells in the file's units (template, export, the editable table). With `significant`, numbers are written
+ * to that many significant digits, so a value converted from SI shows without float noise (70, not 70.00000000000001).
+ */
+export function lossPointCells(point: LossPoint, significant?: number): Record<LossPointCsvColumn, string> {
+  const text = (value: number) => (significant === undefined ? String(value) : trimmedNumber(value, significant));
   return {
-    frequency_khz: String(point.frequency / LOSS_POINT_SCALES.frequency_khz),
-    peak_flux_mt: String(point.peakFlux / LOSS_POINT_SCALES.peak_flux_mt),
-    temperature_c: String(point.temperature),
-    loss_kw_per_m3: String(point.lossDensity / LOSS_POINT_SCALES.loss_kw_per_m3),
-    dc_bias_a_per_m: point.dcBias === undefined ? '' : String(point.dcBias),
+    frequency_khz: text(point.frequency / LOSS_POINT_SCALES.frequency_khz),
+    peak_flux_mt: text(point.peakFlux / LOSS_POINT_SCALES.peak_flux_mt),
+    temperature_c: text(point.temperature),
+    loss_kw_per_m3: text(point.lossDensity / LOSS_POINT_SCALES.loss_kw_per_m3),
+    dc_bias_a_per_m: point.dcBias === undefined ? '' : text(point.dcBias),
     source: point.source ?? '',
   };
 }

@@ -1,7 +1,7 @@
 import { parse } from 'csv-parse/browser/esm/sync';
 import { stringify } from 'csv-stringify/browser/esm/sync';
 import type { LossPoint } from '@shared/fitting/loss-points';
-import { LOSS_POINT_CSV_COLUMNS, LOSS_POINT_SCALES, type LossPointCsvColumn } from '@shared/schemas/loss-point-csv';
+import { LOSS_POINT_CSV_COLUMNS, lossPointCells, type LossPointCsvColumn } from '@shared/schemas/loss-point-csv';
 
 /** One typed or pasted point as its cells, in the loss-point CSV's own columns and units (kHz, mT, °C, kW/m³, A/m). */
 export type LossPointCells = Record<LossPointCsvColumn, string>;
@@ -9,18 +9,7 @@ export type LossPointCells = Record<LossPointCsvColumn, string>;
 export const emptyLossPointCells = (): LossPointCells => Object.fromEntries(LOSS_POINT_CSV_COLUMNS.map((c) => [c, ''])) as LossPointCells;
 
 /** A stored point (SI) as the cells a user edits, rounded to the digits a file would carry. */
-export function cellsOfPoint(point: LossPoint): LossPointCells {
-  const inUnit = (value: number | undefined, column: keyof typeof LOSS_POINT_SCALES) =>
-    value === undefined ? '' : String(Number((value / LOSS_POINT_SCALES[column]).toPrecision(10)));
-  return {
-    frequency_khz: inUnit(point.frequency, 'frequency_khz'),
-    peak_flux_mt: inUnit(point.peakFlux, 'peak_flux_mt'),
-    temperature_c: inUnit(point.temperature, 'temperature_c'),
-    loss_kw_per_m3: inUnit(point.lossDensity, 'loss_kw_per_m3'),
-    dc_bias_a_per_m: inUnit(point.dcBias, 'dc_bias_a_per_m'),
-    source: point.source ?? '',
-  };
-}
+export const cellsOfPoint = (point: LossPoint): LossPointCells => lossPointCells(point, 10);
 
 /**
  * Rows pasted from a spreadsheet or a text file: tab-, semicolon- or comma-separated, in the CSV's column order. A
