@@ -1,5 +1,6 @@
 // A SPICE subcircuit of the designed inductor at its operating point. Pure: figures in, text out.
 import type { EvaluationResult } from '@shared/engine/index';
+import { trimmedNumber } from '@shared/units/index';
 
 export interface SpiceValues {
   /** Inductance at the load current (H). */
@@ -47,7 +48,7 @@ export function spiceValues(result: EvaluationResult): SpiceValues {
  * Six significant digits, trailing zeros of the fraction dropped ("2.5e-5", "400000", "0.012"): through Number, so the
  * zeros of an integer part stay (a pattern on the text once turned 400000 into "4").
  */
-export const spiceNumber = (x: number) => String(Number(x.toPrecision(6)));
+export const spiceNumber = (x: number) => trimmedNumber(x, 6);
 const num = spiceNumber;
 
 export interface SpiceHeader {

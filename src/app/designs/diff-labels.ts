@@ -1,4 +1,4 @@
-import { formatQuantity, type QuantityKind } from '@shared/units/index';
+import { formatQuantity, trimmedNumber, type QuantityKind } from '@shared/units/index';
 
 /** How a revision diff names a figure and shows its values: words and the quantity whose unit applies. */
 interface FigureName {
@@ -123,7 +123,7 @@ export function figureValue(path: string, value: unknown): string {
   if (typeof value !== 'number') return typeof value === 'string' ? value : JSON.stringify(value);
   const kind = FIGURES[path]?.kind;
   // Shares are stored as fractions and read as percentages.
-  if (kind === 'ratio') return `${Number((value * 100).toPrecision(4))} %`;
+  if (kind === 'ratio') return `${trimmedNumber(value * 100, 4)} %`;
   if (kind) return formatQuantity(value, kind);
-  return Number.isInteger(value) ? String(value) : String(Number(value.toPrecision(5)));
+  return Number.isInteger(value) ? String(value) : trimmedNumber(value, 5);
 }

@@ -1,4 +1,5 @@
 import { Pipe, type PipeTransform } from '@angular/core';
+import { trimmedNumber } from '@shared/units/index';
 
 /**
  * A plain number to `digits` significant digits, trailing zeros dropped (`{{ 1.3999752 | significant: 4 }}` → "1.4";
@@ -9,6 +10,6 @@ import { Pipe, type PipeTransform } from '@angular/core';
 export class SignificantPipe implements PipeTransform {
   transform(value: number | null | undefined, digits = 4): string {
     if (value === null || value === undefined || !Number.isFinite(value)) return '—';
-    return String(Number(value.toPrecision(digits)));
+    return trimmedNumber(value, digits);
   }
 }
