@@ -4,6 +4,7 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { ensureClientBuild } from '../server/ops/client-build.ts';
 import { dropDatabase, ensureCluster, ensureDatabase } from '../server/ops/postgres.ts';
+import { installDebianPackages, missingPackages, type DebianTool } from '../server/ops/debian-packages.ts';
 import { SOLVER_TOOLS } from '../server/ops/solver-tools.ts';
 
 // `npm test`: every suite, each with what it needs (a throwaway database per run, Debian's
@@ -148,20 +149,18 @@ async function componentTests(): Promise<void> {
  * Debian packages the suites drive: Chromium for browser tests, poppler-utils to read and render PDFs, and the solvers
  * the independent checks run (ngspice, gmsh, GetDP; the same list `npm start` installs).
  */
-const DEBIAN_TOOLS: { binary: string; pkg: string }[] = [
+const DEBIAN_TOOLS: DebianTool[] = [
   { binary: '/usr/bin/chromium', pkg: 'chromium' },
   { binary: '/usr/bin/pdftotext', pkg: 'poppler-utils' },
   ...SOLVER_TOOLS,
 ];
 
 function ensureDebianTools(): void {
-  const missing = DEBIAN_TOOLS.filter((t) => !existsSync(t.binary)).map((t) => t.pkg);
+  const missing = missingPackages(DEBIAN_TOOLS);
   if (!missing.length) return;
   if (process.getuid?.() !== 0) throw new Error(`Missing test tools: install them with "sudo apt-get install -y ${missing.join(' ')}".`);
   process.stdout.write(`[tools] installing Debian packages: ${missing.join(', ')} (about a minute)…\n`);
-  const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
-  execFileSync('apt-get', ['update', '-qq'], { stdio: 'inherit', env });
-  execFileSync('apt-get', ['install', '-y', '-qq', ...missing], { stdio: 'inherit', env });
+  installDebianPackages(missing);
 }
 
 /** A fresh database for one suite, dropped afterwards. DATABASE_URL, if set, names the server to use. */

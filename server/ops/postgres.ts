@@ -3,6 +3,7 @@ import { randomBytes } from 'node:crypto';
 import { chmodSync, chownSync, existsSync, mkdirSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { homedir } from 'node:os';
 import path from 'node:path';
+import { installDebianPackages } from './debian-packages.ts';
 
 /**
  * Gapwright's own PostgreSQL cluster: Debian's binaries, our data directory, listening on
@@ -58,9 +59,7 @@ function installPostgres(): string {
     throw new Error('PostgreSQL is not installed. Install it with "sudo apt-get install -y postgresql" and run again.');
   }
   log('PostgreSQL binaries are missing: installing Debian\'s "postgresql" package (about a minute)…');
-  const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
-  execFileSync('apt-get', ['update', '-qq'], { stdio: 'inherit', env });
-  execFileSync('apt-get', ['install', '-y', '-qq', 'postgresql'], { stdio: 'inherit', env });
+  installDebianPackages(['postgresql']);
   const bin = findBinDir();
   if (!bin) throw new Error('PostgreSQL was installed but no pg_ctl was found under /usr/lib/postgresql.');
   return bin;
