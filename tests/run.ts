@@ -81,24 +81,26 @@ async function vitestProject(project: string, env: NodeJS.ProcessEnv = {}): Prom
 }
 
 /**
- * The API files in shards that run side by side, each shard with a database of its own (files in one shard run one
- * after another, as they truncate and reseed their database). Much of an API file's time is waiting (bcrypt, a
- * server process starting, PostgreSQL stopping and starting), so two shards fit two cores.
+ * A project's files in shards that run side by side, each shard with a database of its own (files in one shard run one
+ * after another, as they truncate and reseed their database). Much of an API or browser file's time is waiting (bcrypt,
+ * a server process starting, PostgreSQL stopping and starting, Chromium rendering in its own processes), so two shards
+ * fit two cores.
  */
-async function shardedApiTests(shardCount: number): Promise<void> {
+async function shardedTests(project: 'api' | 'browser', shardCount: number): Promise<void> {
   const shards = Array.from({ length: shardCount }, (_, i) => {
-    const db = throwawayDatabase(`api${i + 1}`);
+    const db = throwawayDatabase(`${project}${i + 1}`);
     cleanups.push(db.drop);
-    return vitestRun('api', { TEST_DATABASE_URL: db.url, TEST_RESULTS_DIR: resultsDir }, { index: i + 1, count: shardCount });
+    return vitestRun(project, { TEST_DATABASE_URL: db.url, TEST_RESULTS_DIR: resultsDir }, { index: i + 1, count: shardCount });
   });
   const counts = await Promise.all(shards);
-  totals['api'] = counts.reduce((a, c) => ({ passed: a.passed + c.passed, failed: a.failed + c.failed, skipped: a.skipped + c.skipped }), {
+  totals[project] = counts.reduce((a, c) => ({ passed: a.passed + c.passed, failed: a.failed + c.failed, skipped: a.skipped + c.skipped }), {
     passed: 0,
     failed: 0,
     skipped: 0,
   });
 }
 const API_SHARDS = Math.max(1, Number(process.env['TEST_API_SHARDS'] ?? 2));
+const BROWSER_SHARDS = Math.max(1, Number(process.env['TEST_BROWSER_SHARDS'] ?? 2));
 
 // Strict TypeScript over every part of the tree, one check per configuration.
 const TYPE_CONFIGS = ['tsconfig.server.json', 'tsconfig.browser-tests.json', 'tsconfig.app.json', 'tsconfig.spec.json'];
@@ -196,14 +198,12 @@ try {
     if (suite === 'component') await componentTests();
     if (suite === 'api') {
       ensureDebianTools();
-      await shardedApiTests(API_SHARDS);
+      await shardedTests('api', API_SHARDS);
     }
     if (suite === 'browser') {
       ensureDebianTools();
       ensureClientBuild(repoRoot, 'dist/gapwright/browser/index.html');
-      const db = throwawayDatabase(suite);
-      cleanups.push(db.drop);
-      await vitestProject(suite, { TEST_DATABASE_URL: db.url, TEST_RESULTS_DIR: resultsDir });
+      await shardedTests('browser', BROWSER_SHARDS);
     }
     seconds[suite] = (Date.now() - suiteStarted) / 1000;
   }
