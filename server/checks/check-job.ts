@@ -23,7 +23,7 @@ export interface CheckHandlerDeps {
   repo: ChecksRepository;
   materials: Pick<MaterialsRepository, 'findByIds'>;
   /** The shipped cores and wires the field model is built from. */
-  catalogue: Pick<CatalogueService, 'core' | 'wire'>;
+  catalogue: Pick<CatalogueService, 'core' | 'wire' | 'centreLeg'>;
   logger: Logger;
   /** The circuit check itself (tests may wrap it, e.g. to fail an attempt as a killed worker would). */
   circuit?: (input: CircuitCheckInput, run: CircuitCheckRun) => Promise<unknown>;
@@ -94,9 +94,11 @@ async function fieldInput(deps: CheckHandlerDeps, revisionId: number): Promise<F
   }
   const [material] = revision.materialId === null ? [] : await deps.materials.findByIds([revision.materialId]);
   if (!material) throw new CheckRefused('The revision’s material version is gone; the field model needs its permeability.');
+  const centreLeg = deps.catalogue.centreLeg(core.id);
   return {
     evaluation,
     core,
+    ...(centreLeg ? { centreLeg } : {}),
     wire: deps.catalogue.wire(wireRequestOf(evaluation.wire)),
     permeability: toCoreMaterial(material).permeability,
     title: `${evaluation.core.id}, ${evaluation.turns} turns, ${evaluation.gap.placement} gap`,
