@@ -27,7 +27,7 @@ export interface FieldDesignResult {
   /** Largest |B| over the core's elements, and the mean |B| over the centre leg, at 1 A (T/A). */
   peakFluxPerAmp: number;
   legFluxPerAmp: number;
-  /** DC resistance of the modelled conductors (rings of the bare section), exact for that geometry (Ω). */
+  /** DC resistance of the modelled conductors (rings of the bare section; planar: straight runs of the depth), exact for that geometry (Ω). */
   dcResistance: number;
   harmonics: HarmonicFigures[];
   nodes: number;
