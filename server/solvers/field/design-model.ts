@@ -310,7 +310,10 @@ function planarModel(d: FieldDesignInput, legWidth: number, skinDepth: number): 
   const polygon = (corners: [number, number][]): Outline => ({ kind: 'polygon', corners });
   const surfaces: Surface[] = [];
   if (hg > 0)
-    surfaces.push({ group: REGION.leg, outline: polygon(rect(-L, hg, L, zw)) }, { group: REGION.leg, outline: polygon(rect(-L, -zw, L, -hg)) });
+    surfaces.push(
+      { group: REGION.leg, outline: polygon(rect(-L, hg, L, zw)) },
+      { group: REGION.leg, outline: polygon(rect(-L, -zw, L, -hg)) },
+    );
   else surfaces.push({ group: REGION.leg, outline: polygon(rect(-L, -zw, L, zw)) });
   // Yokes: their window-side edges split where legs and windows meet them, so the lines are shared.
   const edge = [-O, -W, -L, L, W, O];

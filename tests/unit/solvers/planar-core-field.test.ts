@@ -23,7 +23,14 @@ describe('planar E core: the field against the magnetic circuit', () => {
     // An invented E-shaped section with slender members (centre leg 2 mm, each return path 1 mm, window 8 × 24 mm,
     // depth 10 mm), so the corners, where the mean path is uncertain, are a small part of the path.
     const [w, depth, width, height] = [2e-3, 10e-3, 8e-3, 24e-3];
-    const core = { id: 'test E', ae: w * depth, windowArea: width * height, windowHeight: height, centreToOuterLegAreaRatio: 1, bobbinWidth: 22e-3 };
+    const core = {
+      id: 'test E',
+      ae: w * depth,
+      windowArea: width * height,
+      windowHeight: height,
+      centreToOuterLegAreaRatio: 1,
+      bobbinWidth: 22e-3,
+    };
     const c = planarCore(core, w);
     expect(c.depth).toBeCloseTo(depth, 12);
     // Each half of the section is a frame of uniform member width s = w/2 round one window. Mean path: along each
@@ -98,7 +105,15 @@ describe('planar E core: the field check', () => {
     const evaluation = evaluateDesign({ spec, core, material: ferriteA, turns: 'auto', gap: 'auto', placement: 'ground', wire: w });
     const progress: number[] = [];
     const result = await runFieldCheck(
-      { evaluation, core, wire: w, permeability: ferriteA.permeability, ...(leg ? { centreLeg: leg } : {}), title: 'E25/13/7', harmonics: [1] },
+      {
+        evaluation,
+        core,
+        wire: w,
+        permeability: ferriteA.permeability,
+        ...(leg ? { centreLeg: leg } : {}),
+        title: 'E25/13/7',
+        harmonics: [1],
+      },
       { onProgress: async (p) => void progress.push(p) },
     );
     expect(result.model).toBe('planar');
