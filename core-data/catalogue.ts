@@ -19,6 +19,7 @@ import {
   ringCoreFromRow,
   shapedCoreFromRow,
 } from '@shared/catalogue/core-rows';
+import type { CentreLeg } from '@shared/catalogue/bobbin-estimate';
 import { TableError, readCsvRecords, rowError } from './shipped-table';
 
 export { TableError } from './shipped-table';
@@ -92,4 +93,34 @@ export function loadCoreCatalogue(): CoreShape[] {
     cachedCatalogue = Object.freeze(tables.flatMap((table) => table.cores).map((core) => Object.freeze(core)));
   }
   return [...cachedCatalogue];
+}
+
+let cachedCentreLegs: ReadonlyMap<string, CentreLeg> | undefined;
+
+/**
+ * The centre leg of every shipped shaped core (round or rectangular, m), by designation: what the field check needs
+ * beyond the CoreShape to draw an E or EFD core's planar cross-section. Kept out of CoreShape (whose contract the
+ * engine, the stored results and user cores share); read from the same validated rows on first call.
+ */
+export function loadCentreLegs(): ReadonlyMap<string, CentreLeg> {
+  if (!cachedCentreLegs) {
+    const legs = new Map<string, CentreLeg>();
+    for (const [name, family] of Object.entries(CORE_TABLE_FILES)) {
+      if (family === 'RING' || family === 'POWDER_TOROID') continue;
+      const fileName = `core-data/cores/${name}`;
+      for (const record of readCsvRecords(readFileSync(CORE_TABLE_DIRECTORY + name, 'utf8'), fileName, SHAPED_CORE_COLUMNS)) {
+        const parsed = shapedCoreRowSchema.safeParse(record.cells);
+        if (!parsed.success) throw rowError(fileName, record, parsed.error.issues);
+        const row = parsed.data;
+        legs.set(
+          row.designation,
+          row.centre_leg === 'round'
+            ? { shape: 'round', diameter: row.centre_leg_width_mm * 1e-3 }
+            : { shape: 'rect', width: row.centre_leg_width_mm * 1e-3, depth: (row.centre_leg_depth_mm ?? 0) * 1e-3 },
+        );
+      }
+    }
+    cachedCentreLegs = legs;
+  }
+  return cachedCentreLegs;
 }

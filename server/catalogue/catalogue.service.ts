@@ -1,4 +1,5 @@
-import { loadCoreCatalogue } from '@core-data/catalogue';
+import { loadCentreLegs, loadCoreCatalogue } from '@core-data/catalogue';
+import type { CentreLeg } from '@shared/catalogue/bobbin-estimate';
 import { loadStandardWireOptions, loadWireTables } from '@core-data/wire-catalogue';
 import { standardFoilOptions } from '@shared/catalogue/foil';
 import type { CoreShape, WireOption } from '@shared/engine/types';
@@ -31,6 +32,11 @@ export class CatalogueService {
     const core = this.coreIndex().get(id) ?? this.userCores.find((c) => c.id === id);
     if (!core) throw badRequest(`No core "${id}" in the catalogue.`, { coreId: `Unknown core "${id}"` });
     return core;
+  }
+
+  /** A shipped core's centre leg (the field check's planar E/EFD model); undefined for a user core. */
+  centreLeg(id: string): CentreLeg | undefined {
+    return loadCentreLegs().get(id);
   }
 
   standardWires(): WireOption[] {

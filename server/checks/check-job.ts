@@ -22,8 +22,8 @@ class CheckCancelled extends Error {}
 export interface CheckHandlerDeps {
   repo: ChecksRepository;
   materials: Pick<MaterialsRepository, 'findByIds'>;
-  /** The cores (shipped and user cores) and wires the field model is built from. */
-  cores: { core: (id: string) => Promise<CoreShape>; wire: CatalogueService['wire'] };
+  /** The cores (shipped and user cores), wires and shipped centre legs the field model is built from. */
+  cores: { core: (id: string) => Promise<CoreShape> } & Pick<CatalogueService, 'wire' | 'centreLeg'>;
   logger: Logger;
   /** The circuit check itself (tests may wrap it, e.g. to fail an attempt as a killed worker would). */
   circuit?: (input: CircuitCheckInput, run: CircuitCheckRun) => Promise<unknown>;
@@ -94,9 +94,11 @@ async function fieldInput(deps: CheckHandlerDeps, revisionId: number): Promise<F
   }
   const [material] = revision.materialId === null ? [] : await deps.materials.findByIds([revision.materialId]);
   if (!material) throw new CheckRefused('The revision’s material version is gone; the field model needs its permeability.');
+  const centreLeg = deps.cores.centreLeg(core.id);
   return {
     evaluation,
     core,
+    ...(centreLeg ? { centreLeg } : {}),
     wire: deps.cores.wire(wireRequestOf(evaluation.wire)),
     permeability: toCoreMaterial(material).permeability,
     title: `${evaluation.core.id}, ${evaluation.turns} turns, ${evaluation.gap.placement} gap`,

@@ -38,7 +38,11 @@ export async function startCheckWorker(options: CheckWorkerOptions): Promise<Che
     repo: new ChecksRepository(db),
     materials: new MaterialsRepository(db),
     // Shipped cores and the user cores in the same database, as the web server reads them.
-    cores: { core: (id) => coreById(catalogue, userCores, id), wire: (choice) => catalogue.wire(choice) },
+    cores: {
+      core: (id) => coreById(catalogue, userCores, id),
+      wire: (choice) => catalogue.wire(choice),
+      centreLeg: (id) => catalogue.centreLeg(id),
+    },
     logger,
     circuit: options.circuit,
     field: options.field,

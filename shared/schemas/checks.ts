@@ -67,11 +67,19 @@ export const circuitCheckResultSchema = z.object({
 });
 export type CircuitCheckResult = z.infer<typeof circuitCheckResultSchema>;
 
+export const FIELD_MODELS = ['axisymmetric', 'planar'] as const;
+
 /** A figure of the engine beside the field solution's: (field − engine)/engine as a fraction. */
 const figurePairSchema = z.object({ engine: z.number(), field: z.number(), difference: z.number() });
 
 export const fieldCheckResultSchema = z.object({
   kind: z.literal('field'),
+  /**
+   * The 2-D model: a body of revolution (round-leg cores) or a planar section through the windows (E, EFD) whose
+   * per-metre figures are multiplied by `depth` (m). Results stored before the planar model read as axisymmetric.
+   */
+  model: z.enum(FIELD_MODELS).default('axisymmetric'),
+  depth: z.number().positive().optional(),
   /** Nominal inductance (H): engine with McLyman's fringing factor, field from the stored energy. */
   inductance: figurePairSchema,
   /** Peak flux density (T) at the check current: engine section mean, field centre-leg mean. */

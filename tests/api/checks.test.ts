@@ -3,7 +3,7 @@ import { pino } from 'pino';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { runCircuitCheck, type CircuitCheckInput, type CircuitCheckRun } from '../../server/checks/circuit-check.ts';
 import { designRevisions, revisionChecks } from '../../server/db/schema.ts';
-import { runFieldCheck, type FieldCheckInput, type FieldCheckRun } from '../../server/checks/field-check.ts';
+import { PLANAR_FAMILIES, runFieldCheck, type FieldCheckInput, type FieldCheckRun } from '../../server/checks/field-check.ts';
 import { startCheckWorker, type CheckWorker } from '../../server/workers/check-worker-loop.ts';
 import { signedInAs, type ApiClient } from './support/api-client.ts';
 import { EXAMPLE_SPEC, insertEvaluatedDesign } from './support/design-fixture.ts';
@@ -54,14 +54,14 @@ const revisionIdOf = (input: CircuitCheckInput) => revisionByLoad.get(input.spec
 
 let nextLoad = 10;
 async function evaluatedRevision() {
-  const { design, revision } = await insertEvaluatedDesign(t, 'erin');
+  const { design, revision, result } = await insertEvaluatedDesign(t, 'erin');
   const load = (nextLoad += 0.01);
   await t.db
     .update(designRevisions)
     .set({ spec: { converter: { ...EXAMPLE_SPEC, ioutMax: load } } })
     .where(eq(designRevisions.id, revision.id));
   revisionByLoad.set(load, revision.id);
-  return { design, revision, url: `/api/designs/${design.id}/revisions/1/checks` };
+  return { design, revision, core: result.core, url: `/api/designs/${design.id}/revisions/1/checks` };
 }
 
 async function waitFor(url: string, done: (check: { status: string; progress: number }) => boolean, timeoutMs = 60_000) {
@@ -106,7 +106,7 @@ describe('circuit check as a background job', () => {
   }, 90_000);
 
   it('runs the field check in the worker: engine figures beside the field solution (gmsh + GetDP) and a picture', async () => {
-    const { url } = await evaluatedRevision();
+    const { url, core } = await evaluatedRevision();
     const queued = await erin.post(url, { kind: 'field' });
     expect(queued.status).toBe(202);
     const done = await waitFor(url, (c) => c.status !== 'queued' && c.status !== 'running', 110_000);
@@ -117,6 +117,9 @@ describe('circuit check as a background job', () => {
     expect(done.result.acResistance.map((h: { harmonic: number }) => h.harmonic)).toEqual([1]);
     expect(done.result.acResistance[0].fieldLayers.length).toBeGreaterThan(0);
     expect(done.result.picture).toMatch(/^<svg[^>]*>/);
+    // E and EFD are solved as a planar section with its depth stated; every other shape as a body of revolution.
+    if (PLANAR_FAMILIES.includes(core.family)) expect(done.result).toMatchObject({ model: 'planar', depth: expect.any(Number) });
+    else expect(done.result.model).toBe('axisymmetric');
     // Both kinds are listed, the latest of each.
     const list = await erin.get(url);
     expect(list.body.checks.map((c: { kind: string }) => c.kind)).toContain('field');

@@ -19,6 +19,8 @@ export interface DesignCheckInput {
   harmonics?: number[];
   clearance?: number;
   refinement?: number;
+  /** E and EFD: the planar model with the rectangular centre leg's width (m); absent: the body of revolution. */
+  planar?: { legWidth: number };
 }
 
 export interface FigurePair {
@@ -34,7 +36,11 @@ export interface DesignCheck {
   peakFlux: FigurePair;
   /** Largest |B| over the core's elements at the check current (at the gap's corners; grows with mesh refinement). */
   peakFluxLocal: number;
-  /** At each harmonic: engine R_dc·Dowell's Fr for its layers against the field's total loss over I_rms². */
+  /**
+   * At each harmonic: engine R_dc·Dowell's Fr for its layers against the field's total loss over I_rms². Planar: the
+   * model holds each turn's two straight runs through the core only (2·depth, no end turns), so the engine's side is
+   * Dowell's Fr times the model's own R_dc (the same copper), not the engine's R_dc over the whole mean turn.
+   */
   acResistance: (FigurePair & { harmonic: number; fieldLayers: number[] })[];
   field: FieldDesignResult;
 }
@@ -50,6 +56,7 @@ export function fieldDesignOf(input: DesignCheckInput): FieldDesignInput {
     wire,
     ...(input.clearance === undefined ? {} : { clearance: input.clearance }),
     ...(input.refinement === undefined ? {} : { refinement: input.refinement }),
+    ...(input.planar === undefined ? {} : { planar: input.planar }),
   };
 }
 
@@ -62,7 +69,7 @@ export async function checkDesign(input: DesignCheckInput): Promise<DesignCheck>
   const resistivity = Math.PI * fs * MU0 * result.copper.skinDepth ** 2;
   const field = await solveFieldDesign(fieldDesignOf(input), { resistivity, frequencies: harmonics.map((h) => h * fs) });
   const current = result.flux.checkCurrent;
-  const engineDc = result.copper.resistance20 * (resistivity / COPPER_RESISTIVITY_20C);
+  const engineDc = input.planar ? field.dcResistance : result.copper.resistance20 * (resistivity / COPPER_RESISTIVITY_20C);
   return {
     inductance: pair(result.inductance.nominal, field.inductance),
     peakFlux: pair(result.flux.peak, field.legFluxPerAmp * current),

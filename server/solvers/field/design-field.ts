@@ -1,12 +1,13 @@
-// Meshes and solves a design's axisymmetric field model: once magnetostatic at 1 A (inductance from the stored energy,
-// |B| in the core), then harmonic at each frequency asked for with every conductor massive (AC resistance from the
-// Joule loss, by conductor and by layer). Linear materials, so figures at 1 A scale with the current.
+// Meshes and solves a design's 2-D field model (axisymmetric, or planar for E and EFD): once magnetostatic at 1 A
+// (inductance from the stored energy, |B| in the core), then harmonic at each frequency asked for with every conductor
+// massive (AC resistance from the Joule loss, by conductor and by layer). Linear materials, so figures at 1 A scale
+// with the current. The solver's integrals are per radian (axisymmetric: ×2π) or per metre of depth (planar: ×depth).
 import { rm } from 'node:fs/promises';
 import path from 'node:path';
 import { MU0 } from '@shared/engine/constants';
 import { withSolverFolder, type SolverFolder } from '../solver-run.ts';
 import { axiProblem, type ProblemConductor } from './axi-problem.ts';
-import { designModel, REGION, type FieldDesignInput, type ModelConductor } from './design-model.ts';
+import { designModel, REGION, type DesignModel, type FieldDesignInput, type ModelConductor } from './design-model.ts';
 import { buildGeo, type Outline, type Surface } from './geo-builder.ts';
 import { maxOfSimpleTable, readGlobalTable, readMsh2, readNodeTable, type TriangleMesh } from './mesh-reader.ts';
 
@@ -26,13 +27,25 @@ export interface FieldDesignResult {
   /** Largest |B| over the core's elements, and the mean |B| over the centre leg, at 1 A (T/A). */
   peakFluxPerAmp: number;
   legFluxPerAmp: number;
-  /** DC resistance of the modelled conductors (rings of the bare section), exact for that geometry (Ω). */
+  /** DC resistance of the modelled conductors (rings of the bare section; planar: straight runs of the depth), exact for that geometry (Ω). */
   dcResistance: number;
   harmonics: HarmonicFigures[];
   nodes: number;
   seconds: { mesh: number; static: number; harmonic: number };
-  /** Mesh, r·Aφ at the nodes (static, 1 A), the outlines and the region worth showing, for the field picture. */
-  picture: { mesh: TriangleMesh; fluxFunction: Map<number, number>; core: Outline[]; conductors: Outline[]; view: AxiModel['view'] };
+  /** Which model, and for the planar one the depth its per-metre figures were multiplied by (m). */
+  model: { kind: 'axisymmetric' } | { kind: 'planar'; depth: number };
+  /**
+   * Mesh, the flux function at the nodes (static, 1 A: r·Aφ axisymmetric, Az planar), the outlines and the region
+   * worth showing, for the field picture.
+   */
+  picture: {
+    mesh: TriangleMesh;
+    fluxFunction: Map<number, number>;
+    core: Outline[];
+    conductors: Outline[];
+    view: AxiModel['view'];
+    planar: boolean;
+  };
 }
 
 export interface SolveOptions {
@@ -46,6 +59,13 @@ const TIMEOUT_MS = 120_000;
 const SOLVER_ERROR = /^\s*(Error|Fatal)\b/;
 
 export const skinDepthOf = (resistivity: number, frequency: number) => Math.sqrt(resistivity / (Math.PI * frequency * MU0));
+
+/** Area of an outline (m²): the circle's, or the polygon's by the shoelace formula. */
+export function outlineArea(outline: Outline): number {
+  if (outline.kind === 'circle') return Math.PI * outline.radius ** 2;
+  const c = outline.corners;
+  return Math.abs(c.reduce((sum, [x, y], i) => sum + x * c[(i + 1) % c.length]![1] - c[(i + 1) % c.length]![0] * y, 0)) / 2;
+}
 
 /** DC resistance of a conductor as a ring about the axis: 2πρ/∫(1/r)dA. */
 export function ringResistance(outline: Outline, resistivity: number): number {
@@ -61,7 +81,8 @@ export function ringResistance(outline: Outline, resistivity: number): number {
 }
 
 export async function solveFieldDesign(design: FieldDesignInput, options: SolveOptions): Promise<FieldDesignResult> {
-  const top = Math.max(...options.frequencies);
+  // No harmonic asked for: the conductors are meshed for their shape only (no skin depth to resolve).
+  const top = Math.max(0, ...options.frequencies);
   const model = designModel(design, skinDepthOf(options.resistivity, top));
   return solveAxiModel(
     {
@@ -71,6 +92,7 @@ export async function solveFieldDesign(design: FieldDesignInput, options: SolveO
       permeability: design.permeability,
       hasCore: true,
       view: model.view,
+      ...(model.planar ? { planar: model.planar } : {}),
     },
     options,
   );
@@ -82,20 +104,24 @@ export interface AxiModel {
   conductors: (ModelConductor & ProblemConductor)[];
   permeability: number;
   hasCore: boolean;
-  view: { rMax: number; zMin: number; zMax: number };
+  view: DesignModel['view'];
+  /** A planar model (x–y) and its depth (m); absent: axisymmetric (r–z). */
+  planar?: { depth: number };
 }
 
-/** Solves any axisymmetric model of core, air and conductors (the design's, or a closed-form case's). */
+/** Solves any 2-D model of core, air and conductors (the design's, or a closed-form case's). */
 export async function solveAxiModel(model: AxiModel, options: SolveOptions): Promise<FieldDesignResult> {
   const box = Math.max(
     ...model.surfaces.flatMap((s) => (s.outline.kind === 'polygon' ? s.outline.corners.map((c) => Math.abs(c[1])) : [])),
   );
+  // Per radian → whole turn (2π), or per metre → the model's depth.
+  const extent = model.planar ? model.planar.depth : 2 * Math.PI;
   const geometry = buildGeo({
     surfaces: model.surfaces,
     sizeAt: model.sizeAt,
     curveGroups: [
-      { group: REGION.axis, holds: (r) => Math.abs(r) < 1e-12 },
-      { group: REGION.boundary, holds: (r, z) => r >= box * (1 - 1e-9) || Math.abs(z) >= box * (1 - 1e-9) },
+      ...(model.planar ? [] : [{ group: REGION.axis, holds: (r: number) => Math.abs(r) < 1e-12 }]),
+      { group: REGION.boundary, holds: (r, z) => Math.abs(r) >= box * (1 - 1e-9) || Math.abs(z) >= box * (1 - 1e-9) },
     ],
   });
   const problem = axiProblem({
@@ -103,6 +129,7 @@ export async function solveAxiModel(model: AxiModel, options: SolveOptions): Pro
     conductors: model.conductors,
     conductivity: 1 / options.resistivity,
     hasCore: model.hasCore,
+    planar: model.planar !== undefined,
   });
   return withSolverFolder({ 'model.geo': geometry, 'model.pro': problem }, async (folder) => {
     let clock = performance.now();
@@ -143,21 +170,24 @@ export async function solveAxiModel(model: AxiModel, options: SolveOptions): Pro
         `{folder}/h${harmonics.length}`,
       ]);
       // Peak phasors at 1 A: P = ½·R·I², so each conductor's resistance share is 2·P.
-      const losses = readGlobalTable(await folder.read('joule.txt'), model.conductors.length).map((p) => 2 * 2 * Math.PI * p);
+      const losses = readGlobalTable(await folder.read('joule.txt'), model.conductors.length).map((p) => 2 * extent * p);
       const layers: number[] = [];
       model.conductors.forEach((k, i) => (layers[k.layer] = (layers[k.layer] ?? 0) + losses[i]!));
       const [acEnergy] = readGlobalTable(await folder.read('ac-energy.txt'), 1);
-      harmonics.push({ frequency, resistance: layers.reduce((a, b) => a + b, 0), layers, inductance: 4 * 2 * Math.PI * acEnergy! });
+      harmonics.push({ frequency, resistance: layers.reduce((a, b) => a + b, 0), layers, inductance: 4 * extent * acEnergy! });
     }
     const harmonicSeconds = lap();
     const mesh = readMsh2(await folder.read('model.msh'));
     const az = readNodeTable(await folder.read('az.txt'));
-    const fluxFunction = new Map([...az].map(([id, a]) => [id, mesh.nodes.get(id)![0] * a]));
+    const fluxFunction = model.planar ? az : new Map([...az].map(([id, a]) => [id, mesh.nodes.get(id)![0] * a]));
+    const depth = model.planar?.depth;
+    const conductorResistance = (outline: Outline) =>
+      depth === undefined ? ringResistance(outline, options.resistivity) : (options.resistivity * depth) / outlineArea(outline);
     return {
-      inductance: 2 * 2 * Math.PI * perRadian!,
+      inductance: 2 * extent * perRadian!,
       peakFluxPerAmp: staticFigures.peak,
       legFluxPerAmp: staticFigures.leg,
-      dcResistance: model.conductors.reduce((sum, k) => sum + k.share * k.share * ringResistance(k.outline, options.resistivity), 0),
+      dcResistance: model.conductors.reduce((sum, k) => sum + k.share * k.share * conductorResistance(k.outline), 0),
       harmonics,
       nodes: Number(/(\d+) nodes/.exec(meshLog)?.[1] ?? mesh.nodes.size),
       seconds: { mesh: meshSeconds, static: staticSeconds, harmonic: harmonicSeconds },
@@ -167,7 +197,9 @@ export async function solveAxiModel(model: AxiModel, options: SolveOptions): Pro
         core: model.surfaces.filter((s) => s.group === REGION.leg || s.group === REGION.coreRest).map((s) => s.outline),
         conductors: model.conductors.map((k) => k.outline),
         view: model.view,
+        planar: depth !== undefined,
       },
+      model: depth === undefined ? { kind: 'axisymmetric' } : { kind: 'planar', depth },
     };
   });
 }

@@ -1,8 +1,9 @@
-// A design as an axisymmetric field model: the core as a body of revolution (revolvedCore: the centre leg a cylinder
-// of the core's Ae, the window its height G and width Wa/G, the outer leg of area Ae/(Ac/Ao)), the gap ground into the
-// centre leg or a spacer under every leg (the halves then stand apart by the spacer), and every conductor where the
-// engine's layout puts it: layers outward from the centre leg, turns along the bobbin width centred on the gap's
-// mid-plane, the last layer filled from the bottom. Each wire in hand is its own round conductor of its bare diameter
+// A design as a 2-D field model, axisymmetric for round-leg cores and planar for E and EFD (planarModel below). The
+// axisymmetric model: the core as a body of revolution (revolvedCore: the centre leg a cylinder of the core's Ae, the
+// window its height G and width Wa/G, the outer leg of area Ae/(Ac/Ao)), the gap ground into the centre leg or a
+// spacer under every leg (the halves then stand apart by the spacer), and every conductor where the engine's layout
+// puts it: layers outward from the centre leg, turns along the bobbin width centred on the gap's mid-plane, the last
+// layer filled from the bottom. Each wire in hand is its own round conductor of its bare diameter
 // carrying an equal share of the turn's current (parallel wires side by side in one layer share it nearly equally —
 // an approximation, stated); a foil turn is a rectangle of its thickness across the foil width. The whole height is
 // modelled (no symmetry plane), so uneven layers need no special case. Bad geometry is refused here, by field.
@@ -25,6 +26,8 @@ export interface FieldDesignInput {
   clearance?: number;
   /** Mesh refinement (1 = default; 2 halves every element size). */
   refinement?: number;
+  /** E and EFD: a planar cross-section through the windows, with the rectangular centre leg's width (m). */
+  planar?: { legWidth: number };
 }
 
 export class FieldGeometryError extends Error {
@@ -44,6 +47,8 @@ export interface ModelConductor {
   turn: number;
   /** Fraction of the winding current this conductor carries. */
   share: number;
+  /** Planar model: +1 where a turn goes into the page (left window), −1 where it returns (right window). */
+  direction?: 1 | -1;
   outline: Outline;
   /** Bare copper area (m²). */
   area: number;
@@ -52,9 +57,11 @@ export interface ModelConductor {
 export interface DesignModel {
   surfaces: Surface[];
   conductors: ModelConductor[];
-  /** The core's cross-section with a margin (m): what the field picture shows. */
-  view: { rMax: number; zMin: number; zMax: number };
+  /** The core's cross-section with a margin (m): what the field picture shows (rMin: planar only, negative). */
+  view: { rMin?: number; rMax: number; zMin: number; zMax: number };
   sizeAt(r: number, z: number): number;
+  /** Planar: the depth (m) that turns per-metre figures into totals; absent for the body of revolution. */
+  planar?: { depth: number };
 }
 
 export const DEFAULT_CLEARANCE = 0.5e-3;
@@ -79,10 +86,12 @@ export function checkFieldDesign(d: FieldDesignInput): void {
   if (!(Number.isInteger(turnsPerLayer) && turnsPerLayer >= 1 && Number.isInteger(layers) && layers >= 1))
     refuse('winding', `The layout needs whole turns per layer and layers of at least 1, got ${turnsPerLayer} and ${layers}.`);
   if (turnsPerLayer * layers < d.turns) refuse('winding', `${layers} layers of ${turnsPerLayer} turns do not hold ${d.turns} turns.`);
-  const c = revolvedCore(d.core);
+  if (d.planar && !(d.planar.legWidth > 0 && Number.isFinite(d.planar.legWidth)))
+    refuse('core', `The planar model needs the centre leg's width of ${d.core.id}, got ${d.planar.legWidth}.`);
   const clearance = d.clearance ?? DEFAULT_CLEARANCE;
   const build = layers * d.wire.overallDiameter;
-  const width = c.windowOuter - c.windowInner;
+  // One window's width, the same in both models.
+  const width = d.core.windowArea / d.core.windowHeight;
   if (build + 2 * clearance > width)
     refuse('winding', `${layers} layers build ${mm(build)}, more than the window width ${mm(width)} less ${mm(clearance)} each side.`);
   const span = d.wire.kind === 'foil' ? foilWidth(d.core as CoreShape) : turnsPerLayer * d.wire.conductorsPerTurn * d.wire.overallDiameter;
@@ -97,6 +106,7 @@ const windowHeightOf = (d: FieldDesignInput) => d.core.windowHeight + (d.gap.pla
 /** The model's surfaces and conductors; checks the design first. */
 export function designModel(d: FieldDesignInput, skinDepth: number): DesignModel {
   checkFieldDesign(d);
+  if (d.planar) return planarModel(d, d.planar.legWidth, skinDepth);
   const c = revolvedCore(d.core);
   const refinement = d.refinement ?? 1;
   const clearance = d.clearance ?? DEFAULT_CLEARANCE;
@@ -233,7 +243,158 @@ export function designModel(d: FieldDesignInput, skinDepth: number): DesignModel
   };
 }
 
-/** Conductors as the engine lays them: layer k at radius inner + k·pitch, turns along z centred on the mid-plane. */
+/** The planar cross-section (m): x across the core's width (0 on the centre leg's axis), y along the legs. */
+export interface PlanarCore {
+  halfLeg: number;
+  /** The window's outer edge, where the outer leg starts. */
+  windowOuter: number;
+  /** The outer leg's outer face. */
+  outerEdge: number;
+  halfWindow: number;
+  yoke: number;
+  /** Depth of the section (out of the plane). */
+  depth: number;
+}
+
+/**
+ * The depth is Ae / (centre-leg width), so the centre leg's section is exactly the Ae the engine uses: the gap's
+ * reluctance lg/(μ0·Ae) and the leg's mean B are then the engine's own, and the inductance compares like with like
+ * (the catalogue's centre_leg_depth_mm differs from it by a few %: Ae is an effective area, not the leg's section).
+ * Each outer leg has area Ae/(2·Ac/Ao) over the same depth; each yoke is as thick as an outer leg is wide (it carries
+ * that leg's flux at the same density).
+ */
+export function planarCore(core: FieldDesignInput['core'], legWidth: number): PlanarCore {
+  const depth = core.ae / legWidth;
+  const outerWidth = core.ae / (2 * (core.centreToOuterLegAreaRatio ?? 1) * depth);
+  const windowOuter = legWidth / 2 + core.windowArea / core.windowHeight;
+  return {
+    halfLeg: legWidth / 2,
+    windowOuter,
+    outerEdge: windowOuter + outerWidth,
+    halfWindow: core.windowHeight / 2,
+    yoke: outerWidth,
+    depth,
+  };
+}
+
+/**
+ * E and EFD as a planar (x–y) section through both windows: the centre leg, both windows, both outer legs, the yokes
+ * and the gap; each turn a go conductor in the left window (+I, into the page) and its return mirrored in the right
+ * (−I), both laid by layConductors. End turns outside the core are not in the model.
+ */
+function planarModel(d: FieldDesignInput, legWidth: number, skinDepth: number): DesignModel {
+  const c = planarCore(d.core, legWidth);
+  const refinement = d.refinement ?? 1;
+  const clearance = d.clearance ?? DEFAULT_CLEARANCE;
+  const spacer = d.gap.placement === 'spacer';
+  const [L, W, O] = [c.halfLeg, c.windowOuter, c.outerEdge];
+  const zw = windowHeightOf(d) / 2;
+  const hg = d.gap.length / 2;
+  const top = zw + c.yoke;
+  const box = 4 * Math.max(O, top);
+  const returns = layConductors(d, L + clearance, skinDepth, refinement);
+  const mirror = (o: Outline): Outline =>
+    o.kind === 'circle'
+      ? { ...o, centre: [-o.centre[0], o.centre[1]] }
+      : { ...o, corners: o.corners.map(([x, y]) => [-x, y] as [number, number]).reverse() };
+  const conductors: ModelConductor[] = [
+    ...returns.map((k, i) => ({ ...k, region: REGION.firstConductor + i, outline: mirror(k.outline), direction: 1 as const })),
+    ...returns.map((k, i) => ({ ...k, region: REGION.firstConductor + returns.length + i, direction: -1 as const })),
+  ];
+  const rect = (x0: number, y0: number, x1: number, y1: number): [number, number][] => [
+    [x0, y0],
+    [x1, y0],
+    [x1, y1],
+    [x0, y1],
+  ];
+  const polygon = (corners: [number, number][]): Outline => ({ kind: 'polygon', corners });
+  const surfaces: Surface[] = [];
+  if (hg > 0)
+    surfaces.push(
+      { group: REGION.leg, outline: polygon(rect(-L, hg, L, zw)) },
+      { group: REGION.leg, outline: polygon(rect(-L, -zw, L, -hg)) },
+    );
+  else surfaces.push({ group: REGION.leg, outline: polygon(rect(-L, -zw, L, zw)) });
+  // Yokes: their window-side edges split where legs and windows meet them, so the lines are shared.
+  const edge = [-O, -W, -L, L, W, O];
+  surfaces.push(
+    { group: REGION.coreRest, outline: polygon([...edge.map((x) => [x, zw] as [number, number]), [O, top], [-O, top]]) },
+    { group: REGION.coreRest, outline: polygon([[-O, -top], [O, -top], ...[...edge].reverse().map((x) => [x, -zw] as [number, number])]) },
+  );
+  const outerGap = spacer && hg > 0;
+  for (const [x0, x1] of [
+    [-O, -W],
+    [W, O],
+  ] as const) {
+    if (outerGap)
+      surfaces.push(
+        { group: REGION.coreRest, outline: polygon(rect(x0, hg, x1, zw)) },
+        { group: REGION.coreRest, outline: polygon(rect(x0, -zw, x1, -hg)) },
+      );
+    else surfaces.push({ group: REGION.coreRest, outline: polygon(rect(x0, -zw, x1, zw)) });
+  }
+  // The windows, joined through the centre-leg gap when there is one; conductors as holes.
+  const rightWindow = (gapped: boolean): [number, number][] => [
+    ...(gapped ? ([[L, -hg]] as [number, number][]) : []),
+    [L, -zw],
+    [W, -zw],
+    ...(outerGap
+      ? ([
+          [W, -hg],
+          [O, -hg],
+          [O, hg],
+          [W, hg],
+        ] as [number, number][])
+      : []),
+    [W, zw],
+    [L, zw],
+    ...(gapped ? ([[L, hg]] as [number, number][]) : []),
+  ];
+  const leftWindow = (gapped: boolean) => rightWindow(gapped).map(([x, y]) => [-x, -y] as [number, number]);
+  const holes = conductors.map((k) => k.outline);
+  if (hg > 0) surfaces.push({ group: REGION.air, outline: polygon([...rightWindow(true), ...leftWindow(true)]), holes });
+  else
+    surfaces.push(
+      { group: REGION.air, outline: polygon(rightWindow(false)), holes: holes.filter((_, i) => conductors[i]!.direction === -1) },
+      { group: REGION.air, outline: polygon(leftWindow(false)), holes: holes.filter((_, i) => conductors[i]!.direction === 1) },
+    );
+  for (const k of conductors) surfaces.push({ group: k.region, outline: k.outline });
+  // The air around the core: the core's outline (through the outer-leg gaps when the spacer opens them) as a hole.
+  const side: [number, number][] = [
+    [O, -top],
+    [O, -zw],
+    ...(outerGap
+      ? ([
+          [O, -hg],
+          [O, hg],
+        ] as [number, number][])
+      : []),
+    [O, zw],
+    [O, top],
+  ];
+  const core: [number, number][] = [...side, ...side.map(([x, y]) => [-x, -y] as [number, number])];
+  surfaces.push({ group: REGION.air, outline: polygon(rect(-box, -box, box, box)), holes: [polygon(core)] });
+
+  const coarse = Math.min(W - L, zw) / (16 * refinement);
+  const fine = hg > 0 ? Math.min(hg / 5, coarse) / refinement : coarse;
+  const gapCorners: [number, number][] =
+    hg > 0 ? [L, -L, ...(outerGap ? [W, O, -W, -O] : [])].flatMap((x) => [[x, hg] as [number, number], [x, -hg] as [number, number]]) : [];
+  return {
+    surfaces,
+    conductors,
+    view: { rMin: -1.1 * O, rMax: 1.1 * O, zMin: -1.1 * top, zMax: 1.1 * top },
+    planar: { depth: c.depth },
+    sizeAt(x, y) {
+      if (Math.abs(x) >= box * 0.999 || Math.abs(y) >= box * 0.999) return box / (8 * refinement);
+      return gapCorners.some(([gx, gy]) => Math.abs(gx - x) < 1e-12 && Math.abs(gy - y) < 1e-12) ? fine : coarse;
+    },
+  };
+}
+
+/**
+ * Conductors as the engine lays them: layer k at distance inner + k·pitch from the centre leg's axis, turns along z
+ * centred on the mid-plane (the axisymmetric model's radius; the planar model's right window, mirrored for the left).
+ */
 function layConductors(d: FieldDesignInput, inner: number, skinDepth: number, refinement: number): ModelConductor[] {
   const w = d.wire;
   const out: ModelConductor[] = [];

@@ -1,18 +1,21 @@
 // The field picture as SVG text, drawn from the mesh and the solution: flux lines as contours of the flux function
-// ψ = r·Aφ (in axisymmetry the flux through a circle of radius r at height z is 2π·ψ, so equal steps of ψ put equal
-// flux between neighbouring lines), traced triangle by triangle (ψ is linear on each first-order triangle), over the
+// ψ = r·Aφ in axisymmetry (the flux through a circle of radius r at height z is 2π·ψ) or ψ = Az in a planar model
+// (the flux per metre of depth between two points is the difference of Az), so in both equal steps of ψ put equal
+// flux between neighbouring lines; traced triangle by triangle (ψ is linear on each first-order triangle), over the
 // core's cross-section filled grey and the conductors outlined.
 import type { Outline } from './geo-builder.ts';
 import type { TriangleMesh } from './mesh-reader.ts';
 
 export interface FluxPictureInput {
   mesh: TriangleMesh;
-  /** ψ = r·Aφ at each node. */
+  /** ψ = r·Aφ (axisymmetric) or Az (planar) at each node. */
   fluxFunction: Map<number, number>;
   core: Outline[];
   conductors: Outline[];
-  /** The part of the r-z half-plane drawn (m). */
-  view: { rMax: number; zMin: number; zMax: number };
+  /** The part of the r-z half-plane (axisymmetric) or the x-y plane (planar, rMin < 0) drawn (m). */
+  view: { rMin?: number; rMax: number; zMin: number; zMax: number };
+  /** A planar cross-section: no axis of revolution to draw. */
+  planar?: boolean;
   title: string;
   /** Flux lines drawn (equal flux between neighbours). */
   lines?: number;
@@ -22,11 +25,12 @@ const WIDTH = 480;
 const MARGIN = 24;
 
 export function fluxPicture(p: FluxPictureInput): string {
-  const scale = (WIDTH - 2 * MARGIN) / p.view.rMax;
+  const rMin = p.view.rMin ?? 0;
+  const scale = (WIDTH - 2 * MARGIN) / (p.view.rMax - rMin);
   const height = Math.round((p.view.zMax - p.view.zMin) * scale + 2 * MARGIN + 20);
-  const x = (r: number) => (MARGIN + r * scale).toFixed(2);
+  const x = (r: number) => (MARGIN + (r - rMin) * scale).toFixed(2);
   const y = (z: number) => (MARGIN + 20 + (p.view.zMax - z) * scale).toFixed(2);
-  const inView = (r: number, z: number) => r <= p.view.rMax && z >= p.view.zMin && z <= p.view.zMax;
+  const inView = (r: number, z: number) => r >= rMin && r <= p.view.rMax && z >= p.view.zMin && z <= p.view.zMax;
   // Levels span the flux function over what is drawn, so the lines are spent where they can be seen.
   let [low, high] = [Number.POSITIVE_INFINITY, Number.NEGATIVE_INFINITY];
   for (const [id, psi] of p.fluxFunction) {
@@ -68,8 +72,12 @@ export function fluxPicture(p: FluxPictureInput): string {
     `<g fill="#f3c79b" stroke="#a0522d" stroke-width="0.6">${p.conductors.map(shape).join('')}</g>`,
     `<path d="${segments.join('')}" fill="none" stroke="#1f4e9c" stroke-width="0.7"/>`,
     `</g>`,
-    `<line x1="${x(0)}" y1="${MARGIN + 20}" x2="${x(0)}" y2="${height - MARGIN}" stroke="#000" stroke-dasharray="4 3"/>`,
-    `<text x="${MARGIN}" y="${height - 6}">axis of revolution (dashed); ${count} flux lines, equal flux between neighbours</text>`,
+    ...(p.planar
+      ? [`<text x="${MARGIN}" y="${height - 6}">planar cross-section; ${count} flux lines, equal flux between neighbours</text>`]
+      : [
+          `<line x1="${x(0)}" y1="${MARGIN + 20}" x2="${x(0)}" y2="${height - MARGIN}" stroke="#000" stroke-dasharray="4 3"/>`,
+          `<text x="${MARGIN}" y="${height - 6}">axis of revolution (dashed); ${count} flux lines, equal flux between neighbours</text>`,
+        ]),
     '</svg>',
     '',
   ].join('\n');

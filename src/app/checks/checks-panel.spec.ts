@@ -187,6 +187,8 @@ describe('ChecksPanel', () => {
           kind: 'field',
           result: {
             kind: 'field',
+            model: 'planar',
+            depth: 5.288e-3,
             inductance: { engine: 40e-6, field: 41e-6, difference: 0.025 },
             peakFlux: { engine: 0.25, field: 0.26, difference: 0.04 },
             peakFluxLocal: 0.7,
@@ -214,6 +216,7 @@ describe('ChecksPanel', () => {
     ]);
     expect(page.querySelector('gw-field-check-view img')?.getAttribute('src')).toMatch(/^data:image\/svg\+xml;charset=utf-8,%3Csvg/);
     expect(text(page)).toContain('A field note.');
+    expect(page.querySelector('[data-testid="field-model"]')?.textContent).toContain('Planar model, depth 5.29 mm');
     expect(button(page, 'Run the field check')).toBeDefined();
   });
 

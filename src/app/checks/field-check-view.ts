@@ -15,6 +15,7 @@ const percent = (fraction: number) => `${fraction >= 0 ? '+' : ''}${(fraction * 
 @Component({
   selector: 'gw-field-check-view',
   template: `
+    <p class="gw-field-model" data-testid="field-model">{{ model() }}</p>
     <ul class="gw-checks-notes">
       @for (note of result().notes; track note) {
         <li>{{ note }}</li>
@@ -60,6 +61,14 @@ export class FieldCheckView {
 
   /** The server's SVG as an image source (an <img> runs no script, whatever the text holds). */
   protected readonly picture = computed(() => `data:image/svg+xml;charset=utf-8,${encodeURIComponent(this.result().picture)}`);
+
+  /** Which 2-D model was solved: the planar one with the depth its per-metre figures were multiplied by. */
+  protected readonly model = computed(() => {
+    const r = this.result();
+    return r.model === 'planar' && r.depth !== undefined
+      ? `Planar model, depth ${(r.depth * 1e3).toFixed(r.depth < 10e-3 ? 2 : 1)} mm (a section through both windows; end turns not modelled).`
+      : 'Axisymmetric model (the core as a body of revolution).';
+  });
 
   protected readonly rows = computed<Row[]>(() => {
     const r = this.result();
