@@ -109,6 +109,9 @@ export const materials = pgTable(
     // Powder roll-off μ/μi = 1/(1 + (H/H½)ⁿ) (both or none): H½ A/m, n.
     rollOffHalfField: doublePrecision('roll_off_half_field'),
     rollOffSteepness: doublePrecision('roll_off_steepness'),
+    // Core loss under DC bias: factor 1 + (H/H₂)^m on the zero-bias loss (both or none): H₂ A/m, m.
+    biasLossDoublingField: doublePrecision('bias_loss_doubling_field'),
+    biasLossSteepness: doublePrecision('bias_loss_steepness'),
     density: doublePrecision('density').notNull(),
     provenance: text('provenance').notNull(),
     importId: integer('import_id').references((): AnyPgColumn => materialImports.id, { onDelete: 'set null' }),
@@ -126,6 +129,10 @@ export const materials = pgTable(
     // Positive by construction: the loss factor F0 + c·(T − T0)² and the roll-off 1/(1 + (H/H½)ⁿ).
     check('materials_loss_factor_check', sql`${t.lowestLossFactor} > 0 and ${t.lossCurvature} >= 0`),
     check('materials_roll_off_check', sql`${t.rollOffHalfField} > 0 and ${t.rollOffSteepness} > 0`),
+    check(
+      'materials_bias_loss_check',
+      sql`(${t.biasLossDoublingField} is null) = (${t.biasLossSteepness} is null) and ${t.biasLossDoublingField} > 0 and ${t.biasLossSteepness} > 0`,
+    ),
   ],
 );
 

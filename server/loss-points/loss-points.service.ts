@@ -160,7 +160,10 @@ export function fittedValues(
           referenceTemperature: temperature.lowestLossTemperature,
         }
       : { referenceTemperature: pointsAt ?? row.referenceTemperature }),
-    provenance: `${row.provenance.slice(0, 400)}; k, α, β fitted from ${pointCount} loss points`.slice(0, 500),
+    ...(fit.biasLoss ? { biasLossDoublingField: fit.biasLoss.doublingField, biasLossSteepness: fit.biasLoss.steepness } : {}),
+    provenance: `${row.provenance.slice(0, 380)}; k, α, β fitted from ${pointCount} loss points${
+      fit.biasLoss ? `, DC-bias loss from ${fit.biasLoss.pointCount} under bias` : ''
+    }`.slice(0, 500),
   };
   const { problems } = validateMaterialCells(materialCellsFromValues(values));
   if (problems.length) {

@@ -11,6 +11,7 @@ import {
   type TemperatureBehaviour,
   type TemperatureFit,
 } from '@shared/fitting/temperature-fit';
+import { fitBiasLoss } from '@shared/fitting/bias-loss-fit';
 import { fitQuality } from '@shared/fitting/fit-quality';
 import type { FitAnswer, FitOptions } from '@shared/schemas/loss-points';
 
@@ -146,9 +147,18 @@ function lossCurves(
   return { curves, curvesTruncated: truncated };
 }
 
-/** Fits the points as `options` ask; a refused input throws `FitInputError` naming the field and point. */
+const biased = (p: LossPoint) => p.dcBias !== undefined && p.dcBias > 0;
+
+/**
+ * Fits the points as `options` ask; a refused input throws `FitInputError` naming the field and point. Points taken
+ * under DC bias stay out of the Steinmetz and temperature fits; their losses over that zero-bias model give the DC-bias
+ * loss curve (fitBiasLoss).
+ */
 export function fitMaterial(points: readonly LossPoint[], options: FitOptions): MaterialFit {
-  const selected = selectPoints(points, options);
+  const chosen = selectPoints(points, options);
+  const selected = chosen.filter((i) => !biased(points[i]!));
+  if (chosen.length && !selected.length)
+    throw new FitInputError('too-few-points', 'Every point is under DC bias: the zero-bias fit needs points without bias.', 'points');
   const used = selected.map((i) => points[i]!);
   const original = (i: number) => selected[i]!;
   let behaviour: TemperatureBehaviour | undefined;
@@ -193,7 +203,31 @@ export function fitMaterial(points: readonly LossPoint[], options: FitOptions): 
     );
     temperature = { ...temperature, ...quality, worstPoint: residuals[quality.worstPoint]!.index };
   }
-  return { options, pointCount: used.length, fits, temperature, residuals, ...lossCurves(points, fits, factor) };
+  const biasLoss = biasLossOf(
+    points,
+    chosen.filter((i) => biased(points[i]!)),
+    fits,
+    factor,
+  );
+  return { options, pointCount: used.length, fits, temperature, residuals, biasLoss, ...lossCurves(points, fits, factor) };
+}
+
+/** The DC-bias loss curve from the biased points, each against the band covering its frequency (else the first). */
+function biasLossOf(
+  points: readonly LossPoint[],
+  indices: number[],
+  fits: readonly SteinmetzBandFit[],
+  factor: (temperature: number) => number,
+): MaterialFit['biasLoss'] {
+  if (!indices.length) return null;
+  const bandFor = (frequency: number) =>
+    fits.find((b) => frequency >= b.fittedFrequency[0] && frequency <= b.fittedFrequency[1]) ?? fits[0]!;
+  const ratios = indices.map((i) => {
+    const p = points[i]!;
+    return { field: p.dcBias!, ratio: p.lossDensity / (fittedLoss(bandFor(p.frequency), p.frequency, p.peakFlux) * factor(p.temperature)) };
+  });
+  const fit = fitBiasLoss(ratios);
+  return fit ? { ...fit, worstPoint: indices[fit.worstPoint]! } : null;
 }
 
 function wholeRange(fit: SteinmetzFit, count: number, maxWorstError: number): SteinmetzBandFit {

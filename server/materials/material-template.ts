@@ -6,7 +6,8 @@ import type { MaterialCsvColumn } from '@shared/schemas/material-csv';
  * 300 mW/cm³ at 100 kHz and 50 mT peak (plausible orders of magnitude; common practice, no source). The
  * ferrite loses least at 90 °C (factor 1 there, rising by 1e-4 per K² away from it) and its k holds at its t_ref of
  * 90 °C; it states no max_temperature (the ferrite default applies), the powder an invented binder limit of 150 °C.
- * The powder's permeability has halved at 5,000 A/m, falling with steepness 1.8.
+ * The powder's permeability has halved at 5,000 A/m, falling with steepness 1.8. The ferrite's core loss doubles under
+ * a DC bias field of 60 A/m in the ferrite, rising with steepness 1.5 (invented, of the order such data show).
  */
 export const TEMPLATE_ROWS: Record<MaterialCsvColumn, string>[] = [
   {
@@ -30,6 +31,8 @@ export const TEMPLATE_ROWS: Record<MaterialCsvColumn, string>[] = [
     mu_i: '2300',
     rolloff_half_field: '',
     rolloff_steepness: '',
+    bias_loss_doubling_field: '60',
+    bias_loss_steepness: '1.5',
     density: '4800',
     provenance: 'Invented example, illustrative only',
   },
@@ -54,6 +57,8 @@ export const TEMPLATE_ROWS: Record<MaterialCsvColumn, string>[] = [
     mu_i: '60',
     rolloff_half_field: '5000',
     rolloff_steepness: '1.8',
+    bias_loss_doubling_field: '',
+    bias_loss_steepness: '',
     density: '6500',
     provenance: 'Invented example, illustrative only',
   },

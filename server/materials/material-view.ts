@@ -25,6 +25,9 @@ export function toCoreMaterial(row: MaterialRow): CoreMaterial {
     ...(row.rollOffHalfField != null && row.rollOffSteepness != null
       ? { rollOff: rollOffToEngine({ halfField: row.rollOffHalfField, steepness: row.rollOffSteepness }) }
       : {}),
+    ...(row.biasLossDoublingField != null && row.biasLossSteepness != null
+      ? { biasLoss: { doublingField: row.biasLossDoublingField, steepness: row.biasLossSteepness } }
+      : {}),
     density: row.density,
     ...(row.maxTemperature != null ? { maxTemperature: row.maxTemperature } : {}),
   };

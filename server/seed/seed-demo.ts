@@ -98,6 +98,8 @@ async function seedMaterials(tx: Tx): Promise<void> {
         permeability: m.permeability,
         rollOffHalfField: m.rollOff?.h50 ?? null,
         rollOffSteepness: m.rollOff?.c ?? null,
+        biasLossDoublingField: m.biasLoss?.doublingField ?? null,
+        biasLossSteepness: m.biasLoss?.steepness ?? null,
         density: m.density,
         maxTemperature: m.maxTemperature ?? null,
         provenance: 'Invented for the Gapwright demo; illustrative, not a real material.',

@@ -8,6 +8,7 @@ export * from './conductor-choice';
 export * from './copper-loss';
 export * from './core-loss';
 export * from './corners';
+export * from './dc-bias-loss';
 export * from './dowell';
 export * from './errors';
 export * from './evaluate';

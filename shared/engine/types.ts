@@ -17,6 +17,14 @@ export function gapInputOf(gap: { placement: GapPlacement; total: number; spacer
   return gap.placement === 'spacer' ? gap.spacer : gap.total;
 }
 
+/** Rise of core loss with the DC field H (A/m) in the material: factor 1 + (H/doublingField)^steepness. */
+export interface BiasLossCurve {
+  /** H₂ (A/m): the DC field at which the loss has doubled. */
+  doublingField: number;
+  /** m (> 0): how steeply the loss rises around H₂. */
+  steepness: number;
+}
+
 /** One core shape (a set: pair of halves, or one ring). Effective parameters per IEC 60205. */
 export interface CoreShape {
   id: string; // e.g. "ETD34/17/11"
@@ -85,6 +93,8 @@ export interface CoreMaterial {
   permeability: number;
   /** Powder materials: DC-bias roll-off of permeability. */
   rollOff?: RollOffFit;
+  /** Core loss under DC bias: the zero-bias loss times 1 + (H/H₂)^m, H the DC field in the material (see dc-bias-loss.ts). */
+  biasLoss?: BiasLossCurve;
   /** Density (kg/m³). */
   density: number;
   /** Highest hot-spot temperature the material tolerates (°C): Curie point with margin, or a powder binder limit. */

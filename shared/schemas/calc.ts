@@ -199,6 +199,22 @@ const rollOffCurveSchema = z
   })
   .strict();
 
+/** Core loss under DC bias: factor 1 + (H/H₂)^m on the zero-bias loss. */
+const biasLossSchema = z
+  .object({
+    doublingField: z
+      .number({ error: 'biasLoss.doublingField must be a finite number' })
+      .gt(0, { error: 'biasLoss.doublingField must be greater than 0' })
+      .max(1e6, { error: 'biasLoss.doublingField must be at most 1e6' })
+      .meta({ description: 'H₂, A/m: the DC field in the material at which the core loss has doubled' }),
+    steepness: z
+      .number({ error: 'biasLoss.steepness must be a finite number' })
+      .gt(0, { error: 'biasLoss.steepness must be greater than 0' })
+      .max(6, { error: 'biasLoss.steepness must be at most 6' })
+      .meta({ description: 'm, how steeply the loss rises around H₂' }),
+  })
+  .strict();
+
 /**
  * An inline (user-supplied) material, SI units, same meaning as CoreMaterial; the temperature behaviour and the roll-off
  * may be given in the engine's constants (tempCoefficients, rollOff) or in our own terms (temperatureBehaviour,
@@ -230,6 +246,7 @@ export const inlineMaterialSchema = z
     rollOff: rollOffSchema.optional(),
     temperatureBehaviour: temperatureBehaviourSchema.optional(),
     rollOffCurve: rollOffCurveSchema.optional(),
+    biasLoss: biasLossSchema.optional(),
     density: rangeNumber('density', 500, 20000, 'kg/m³', 'Density').optional(),
     maxTemperature: rangeNumber('maxTemperature', 50, 400, '°C', 'Highest tolerated hot-spot temperature').optional(),
   })

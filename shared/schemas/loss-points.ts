@@ -122,7 +122,18 @@ export const fitAnswerSchema = z.object({
   pointCount: z.number().int(),
   fits: z.array(steinmetzBandSchema),
   temperature: temperatureFitSchema.nullable(),
-  /** The whole model (band fit × temperature factor) against each point used. */
+  /**
+   * Core loss under DC bias, 1 + (H/H₂)^m, from the points taken under bias (their loss over the zero-bias model); null
+   * without such points or when they cannot say (one field, no rise). Its quality is over the biased points.
+   */
+  biasLoss: z
+    .object({
+      doublingField: z.number().meta({ description: 'H₂, A/m' }),
+      steepness: z.number().meta({ description: 'm' }),
+      ...qualityShape,
+    })
+    .nullable(),
+  /** The whole model (band fit × temperature factor) against each point used (points under DC bias are not). */
   residuals: z.array(
     z.object({
       index: z.number().int(),

@@ -31,6 +31,8 @@ export const MATERIAL_CSV_COLUMNS = [
   'mu_i',
   'rolloff_half_field',
   'rolloff_steepness',
+  'bias_loss_doubling_field',
+  'bias_loss_steepness',
   'density',
   'provenance',
 ] as const;
@@ -49,6 +51,8 @@ export const OPTIONAL_MATERIAL_COLUMNS: readonly MaterialReadColumn[] = [
   'max_temperature',
   'rolloff_half_field',
   'rolloff_steepness',
+  'bias_loss_doubling_field',
+  'bias_loss_steepness',
   ...OLD_MATERIAL_COLUMNS,
 ];
 export const REQUIRED_MATERIAL_COLUMNS: readonly MaterialReadColumn[] = MATERIAL_CSV_COLUMNS.filter(
@@ -71,9 +75,9 @@ export function kFromSi(kSi: number, unitSet: MaterialUnitSet, alpha: number, be
 }
 
 /**
- * Ranges of the named temperature and roll-off cells (a converted old row is held to them too). F0 > 0, c ≥ 0, H½ > 0
- * and n > 0 make the factor and the permeability positive by construction; the bounds beyond are plausibility limits
- * (common practice, no source).
+ * Ranges of the named temperature, roll-off and DC-bias loss cells (a converted old row is held to them too). F0 > 0,
+ * c ≥ 0, H½ > 0 and n > 0 make the factor and the permeability positive by construction, H₂ > 0 and m > 0 the DC-bias
+ * loss factor 1 + (H/H₂)^m at least 1; the bounds beyond are plausibility limits (common practice, no source).
  */
 export const NAMED_RANGES = {
   lowest_loss_temperature: { min: -100, max: 400 },
@@ -81,6 +85,8 @@ export const NAMED_RANGES = {
   loss_curvature: { min: 0, max: 1 },
   rolloff_half_field: { exclusiveMin: 0, max: 1e7 },
   rolloff_steepness: { exclusiveMin: 0, max: 5 },
+  bias_loss_doubling_field: { exclusiveMin: 0, max: 1e6 },
+  bias_loss_steepness: { exclusiveMin: 0, max: 6 },
 } as const;
 
 const MU_I_RANGE = { min: 1, max: 200000 } as const;
@@ -108,6 +114,8 @@ export const materialCsvRowSchema = z
     mu_i: required(MU_I_RANGE),
     rolloff_half_field: optional(NAMED_RANGES.rolloff_half_field),
     rolloff_steepness: optional(NAMED_RANGES.rolloff_steepness),
+    bias_loss_doubling_field: optional(NAMED_RANGES.bias_loss_doubling_field),
+    bias_loss_steepness: optional(NAMED_RANGES.bias_loss_steepness),
     density: required({ min: 500, max: 20000 }),
     provenance: textCell(500),
     // The previous format version's columns, converted on import (material-old-columns.ts).
@@ -147,6 +155,7 @@ function rowChecks(parsed: RowInProgress, ctx: z.RefinementCtx): void {
   };
   partial(['lowest_loss_temperature', 'lowest_loss_factor', 'loss_curvature'], 'all three or none');
   partial(['rolloff_half_field', 'rolloff_steepness'], 'both or none');
+  partial(['bias_loss_doubling_field', 'bias_loss_steepness'], 'both or none');
   partial(['ct0', 'ct1', 'ct2'], 'all three or none');
   partial(['rolloff_a', 'rolloff_b', 'rolloff_c'], 'all three or none');
   for (const mixed of mixedForms(Object.keys(parsed).filter((c) => parsed[c as MaterialReadColumn] !== undefined))) {

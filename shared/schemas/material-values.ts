@@ -42,6 +42,9 @@ export interface MaterialValues {
   /** Powder roll-off μ/μi = 1/(1 + (H/H½)ⁿ) (both or none): H½ (A/m), n. */
   rollOffHalfField: number | null;
   rollOffSteepness: number | null;
+  /** Core loss under DC bias: factor 1 + (H/H₂)^m on the zero-bias loss (both or none): H₂ (A/m), m. */
+  biasLossDoublingField: number | null;
+  biasLossSteepness: number | null;
   density: number;
   provenance: string;
 }
@@ -95,6 +98,8 @@ export function materialValuesFromRow(row: MaterialCsvRow): { values: MaterialVa
     permeability,
     rollOffHalfField: curve?.h ?? null,
     rollOffSteepness: curve?.n ?? null,
+    biasLossDoublingField: row.bias_loss_doubling_field ?? null,
+    biasLossSteepness: row.bias_loss_steepness ?? null,
     density: row.density,
     provenance: row.provenance,
   };
@@ -144,6 +149,8 @@ export function materialCellsFromValues(values: MaterialValues): Record<Material
     mu_i: text(values.permeability),
     rolloff_half_field: text(values.rollOffHalfField),
     rolloff_steepness: text(values.rollOffSteepness),
+    bias_loss_doubling_field: text(values.biasLossDoublingField),
+    bias_loss_steepness: text(values.biasLossSteepness),
     density: text(values.density),
     provenance: values.provenance,
   };

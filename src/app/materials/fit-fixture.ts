@@ -39,6 +39,7 @@ export const FIT: FitAnswer = {
     pointCount: 3,
     constrained: false,
   },
+  biasLoss: null,
   residuals: [
     { index: 0, band: 0, measured: 20e3, fitted: 21e3, relativeError: 0.05 },
     { index: 1, band: 0, measured: 90e3, fitted: 82e3, relativeError: -0.08 },

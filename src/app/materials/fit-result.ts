@@ -63,6 +63,15 @@ import type { FitAnswer } from '@shared/schemas/loss-points';
     } @else {
       <p>Temperature behaviour not fitted: the material keeps its stored one.</p>
     }
+    @if (fit().biasLoss; as b) {
+      <h3>Core loss under DC bias</h3>
+      <p class="gw-bias-loss">
+        The loss doubles at a DC field of {{ b.doublingField | number: '1.0-1' }} A/m in the material and rises with steepness
+        {{ b.steepness | number: '1.0-2' }} (factor 1 + (H/H₂)^m); RMS error {{ b.rmsRelativeError | percent: '1.1-1' }}, worst
+        {{ b.worstRelativeError | percent: '1.1-1' }} (point {{ b.worstPoint + 1 }}) over the {{ b.pointCount }} points taken under bias.
+        Accepting stores it with the coefficients.
+      </p>
+    }
   `,
   styles: `
     .gw-bands {

@@ -50,6 +50,22 @@ describe('LossPointsPage', () => {
     expect(navigate).toHaveBeenCalledWith(['/materials']);
   });
 
+  it('shows the DC-bias loss curve fitted from the points under bias, and says nothing of it when there is none', async () => {
+    button('Fit').click();
+    http.expectOne('/api/materials/7/fit').flush({
+      ...FIT,
+      biasLoss: { doublingField: 62.4, steepness: 1.48, rmsRelativeError: 0.02, worstRelativeError: 0.031, worstPoint: 2, pointCount: 1 },
+    });
+    await fixture.whenStable();
+    const text = page.querySelector('gw-fit-result .gw-bias-loss')?.textContent?.replace(/\s+/g, ' ');
+    expect(text).toContain('The loss doubles at a DC field of 62.4 A/m in the material and rises with steepness 1.48');
+    expect(text).toContain('worst 3.1% (point 3) over the 1 points taken under bias');
+    button('Fit').click();
+    http.expectOne('/api/materials/7/fit').flush(FIT);
+    await fixture.whenStable();
+    expect(page.querySelector('gw-fit-result .gw-bias-loss')).toBeNull();
+  });
+
   it('shows the server’s refusal by field beside the fit options', async () => {
     button('Fit').click();
     http.expectOne('/api/materials/7/fit').flush(

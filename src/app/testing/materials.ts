@@ -59,6 +59,8 @@ export function libraryMaterial(overrides: Partial<LibraryMaterial> = {}): Libra
       mu_i: '2000',
       rolloff_half_field: '',
       rolloff_steepness: '',
+      bias_loss_doubling_field: '',
+      bias_loss_steepness: '',
       density: '4800',
       provenance: 'invented for a test',
     },

@@ -63,3 +63,37 @@ describe('fitMaterial', () => {
     expect(at.temperature).toBeNull();
   });
 });
+
+describe('points taken under DC bias', () => {
+  it('stay out of the zero-bias fit and give the DC-bias loss curve (recovers an invented H₂ = 70 A/m, m = 1.6)', () => {
+    const factor = (t: number) => 1 + 1.2e-4 * (t - 85) ** 2;
+    const zeroBias = points(factor);
+    const biasedPoints = [25, 50, 100, 200].flatMap((field) =>
+      [50e3, 100e3].map((f) => ({
+        frequency: f,
+        peakFlux: 0.06,
+        temperature: 85,
+        dcBias: field,
+        lossDensity: 4.5 * f ** 1.35 * 0.06 ** 2.7 * factor(85) * (1 + (field / 70) ** 1.6),
+      })),
+    );
+    const withBias = fitMaterial([...zeroBias, ...biasedPoints], { mode: 'whole', maxWorstError: 0.1, temperature: true });
+    const without = fitMaterial(zeroBias, { mode: 'whole', maxWorstError: 0.1, temperature: true });
+    // The zero-bias model is exactly the one without the biased points.
+    expect(withBias.fits[0]!.k).toBe(without.fits[0]!.k);
+    expect(withBias.pointCount).toBe(zeroBias.length);
+    expect(withBias.residuals.every((r) => r.index < zeroBias.length)).toBe(true);
+    // The ±3 % ripple of the zero-bias points moves the model a little; H₂ and m come back within a few %.
+    const bias = withBias.biasLoss!;
+    expect(bias.pointCount).toBe(8);
+    expect(Math.abs(bias.doublingField / 70 - 1)).toBeLessThan(0.05);
+    expect(Math.abs(bias.steepness / 1.6 - 1)).toBeLessThan(0.05);
+    expect(bias.worstPoint).toBeGreaterThanOrEqual(zeroBias.length);
+    expect(without.biasLoss).toBeNull();
+  });
+
+  it('refuses a fit with only biased points, naming the points', () => {
+    const only = points(() => 1, [25]).map((p) => ({ ...p, dcBias: 50 }));
+    expect(() => fitMaterial(only, { mode: 'whole', maxWorstError: 0.1, temperature: false })).toThrow(/under DC bias/);
+  });
+});

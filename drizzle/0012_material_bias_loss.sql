@@ -1,0 +1,3 @@
+ALTER TABLE "materials" ADD COLUMN "bias_loss_doubling_field" double precision;--> statement-breakpoint
+ALTER TABLE "materials" ADD COLUMN "bias_loss_steepness" double precision;--> statement-breakpoint
+ALTER TABLE "materials" ADD CONSTRAINT "materials_bias_loss_check" CHECK (("materials"."bias_loss_doubling_field" is null) = ("materials"."bias_loss_steepness" is null) and "materials"."bias_loss_doubling_field" > 0 and "materials"."bias_loss_steepness" > 0);
