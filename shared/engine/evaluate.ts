@@ -150,7 +150,7 @@ export function assembleResult(
   const wire = wireCtx.wire;
   return {
     feasible: f.failures === 0,
-    issues: describeIssues({ ctx, core, material, mag, figures: f }),
+    issues: describeIssues({ ctx, core, material, mag, figures: f, wire }),
     operatingPoint: op,
     core: {
       id: core.id,

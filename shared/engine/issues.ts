@@ -4,7 +4,7 @@ import { TEMPERATURE_FACTOR_FLOOR, THERMAL_MODEL_LIMIT } from './thermal';
 import { FAILURE, WARNING, materialTemperatureLimit, type CandidateFigures, type SpecContext } from './kernel';
 import type { MagneticDesign } from './magnetic-design';
 import type { EngineIssue } from './inputs';
-import type { CoreMaterial, CoreShape } from './types';
+import type { CoreMaterial, CoreShape, WireOption } from './types';
 
 const fmt = (value: number, digits = 2) => (Number.isFinite(value) ? value.toFixed(digits) : '∞');
 const mm = (metres: number) => fmt(metres * 1e3, 2);
@@ -19,9 +19,14 @@ export interface IssueSubject {
   material: CoreMaterial;
   mag: MagneticDesign;
   figures: CandidateFigures;
+  /** The conductor, for the warnings that depend on how it is laid. */
+  wire?: WireOption;
 }
 
-export function describeIssues({ ctx, core, material, mag, figures: f }: IssueSubject): EngineIssue[] {
+/** Above this Rac/Rdc of the ripple, unequal sharing between wires in hand shows in the loss (our own threshold). */
+const SHARING_MATTERS_ABOVE = 1.1;
+
+export function describeIssues({ ctx, core, material, mag, figures: f, wire }: IssueSubject): EngineIssue[] {
   const { limits, op } = ctx;
   const issues: EngineIssue[] = [];
   const error = (code: string, message: string) => issues.push({ code, severity: 'error', message });
@@ -146,6 +151,12 @@ export function describeIssues({ ctx, core, material, mag, figures: f }: IssueSu
     warning(
       'loss-fit-flux',
       `AC flux ${fmt((f.fluxSwing / 2) * 1e3, 1)} mT peak is outside the ${fmt(material.fitFluxMin * 1e3, 0)}–${fmt(material.fitFluxMax * 1e3, 0)} mT fitted range of ${material.name}.`,
+    );
+  }
+  if (wire && (wire.kind === 'awg' || wire.kind === 'metric') && wire.strands > 1 && f.acFactor > SHARING_MATTERS_ABOVE) {
+    warning(
+      'wires-in-hand',
+      `${wire.strands} wires in hand laid side by side sit at different places in the winding's field and share the ripple current unequally unless they are twisted together or transposed between layers; the AC loss (Rac/Rdc ${fmt(f.acFactor)}) assumes equal sharing. Twist them before winding, or use litz.`,
     );
   }
   if (warned(WARNING.thermalNotConverged)) {

@@ -1,0 +1,32 @@
+import { describe, expect, it } from 'vitest';
+import { evaluateDesign, type EvaluateInput } from '@shared/engine/evaluate';
+import { etd34Like, ferriteA, roundWire, sectionOneSpec } from './fixtures';
+
+// Wires in hand side by side see different fields and share the ripple unequally unless twisted or transposed (common
+// practice, no source); the engine's Dowell loss assumes equal sharing, so it says so where the AC loss matters.
+const base: EvaluateInput = {
+  spec: sectionOneSpec,
+  limits: { inductanceTolerance: 0 },
+  core: etd34Like,
+  material: ferriteA,
+  turns: 'auto',
+  gap: 'auto',
+  wire: roundWire(0.8e-3, 3),
+};
+const warned = (input: EvaluateInput) => evaluateDesign(input).issues.some((i) => i.code === 'wires-in-hand');
+
+describe('wires in hand', () => {
+  it('warns for several round wires in hand when the ripple sees more than 10 % AC resistance', () => {
+    const result = evaluateDesign(base);
+    expect(result.copper.acFactor).toBeGreaterThan(1.1);
+    expect(warned(base)).toBe(true);
+    expect(result.issues.find((i) => i.code === 'wires-in-hand')!.message).toMatch(/^3 wires in hand .* twisted together or transposed/);
+  });
+
+  it('does not warn for one wire, nor where the AC resistance hardly matters', () => {
+    expect(warned({ ...base, wire: roundWire(0.8e-3, 1) })).toBe(false);
+    const thin = { ...base, wire: roundWire(0.1e-3, 3), spec: { ...sectionOneSpec, frequency: 20e3 } };
+    expect(evaluateDesign(thin).copper.acFactor).toBeLessThanOrEqual(1.1);
+    expect(warned(thin)).toBe(false);
+  });
+});
