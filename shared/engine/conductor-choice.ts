@@ -1,6 +1,6 @@
 // Which conductor to wind a given number of turns with on a given core. For each kind of conductor a winder
 // would consider — one solid wire, several wires in hand, copper foil, litz — the option with the least copper
-// loss (DC plus Dowell's AC loss of the ripple for the layers it needs) that fits the window and the build.
+// loss (DC plus Dowell's AC loss of the ripple for the layers it needs, litz strand by strand) that fits the window and the build.
 // Copper loss depends on the core and the turns only, so one choice serves every material and gap placement.
 import { rippleResistanceWeight } from './copper-loss';
 import { windingResistance } from './copper';
@@ -77,9 +77,11 @@ export class ConductorChooser {
       if (windingResistance(turns, shortestTurn, area, 20) * dcSquare >= bestLoss[type]!) continue;
       layWinding(turns, wire, core, this.geometry);
       if (!fitsBuildHeight(this.geometry.buildHeight, core)) continue;
-      const layers = this.geometry.layers * wireCtx.layersPerWindingLayer;
-      const loss =
-        windingResistance(turns, this.geometry.meanTurnLength, area, 20) * (dcSquare + rippleResistanceWeight(wireCtx.sums, layers));
+      const ripple =
+        wire.kind === 'litz'
+          ? wireCtx.sums.skin + (wireCtx.litzProximity * turns * turns) / (core.bobbinWidth * core.bobbinWidth)
+          : rippleResistanceWeight(wireCtx.sums, this.geometry.layers);
+      const loss = windingResistance(turns, this.geometry.meanTurnLength, area, 20) * (dcSquare + ripple);
       if (loss < bestLoss[type]!) {
         bestLoss[type] = loss;
         best[type] = i;

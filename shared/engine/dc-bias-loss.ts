@@ -18,6 +18,13 @@ export function biasLossFactor(curve: BiasLossCurve | undefined, field: number):
  * field the ferrite itself carries at its DC flux density, B_dc/(μ0·μi) — with the initial permeability, so it reads
  * low where the ferrite's permeability has started to fall near saturation (stated approximation).
  */
-export function coreDcField(gapKind: GapKind, dcFlux: number, permeability: number, turns: number, current: number, pathLength: number): number {
+export function coreDcField(
+  gapKind: GapKind,
+  dcFlux: number,
+  permeability: number,
+  turns: number,
+  current: number,
+  pathLength: number,
+): number {
   return gapKind === 'distributed' ? (turns * current) / pathLength : dcFlux / (MU0 * permeability);
 }

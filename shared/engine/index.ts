@@ -18,6 +18,7 @@ export * from './harmonics';
 export * from './inputs';
 export * from './issues';
 export * from './kernel';
+export * from './litz';
 export * from './load-map';
 export * from './magnetic-design';
 export * from './operating-point';

@@ -2,6 +2,7 @@
 // wire, a material or a core × material pair is prepared once; evaluateCandidate then composes the formula modules'
 // functions without allocating. The magnetic design (turns, gap) it takes comes from magnetic-design.ts.
 import {
+  AC_TEMPERATURE_NODES,
   AcTemperatureGrid,
   acLossSums,
   acLossTable,
@@ -10,7 +11,8 @@ import {
   type AcLossSums,
   type AcLossTable,
 } from './copper-loss';
-import { windingResistance } from './copper';
+import { copperResistivity, windingResistance } from './copper';
+import { litzProximitySum } from './litz';
 import { HOT_SPOT_ALLOWANCE } from './constants';
 import { fluxInFitRange, frequencyInFitRange, igseTriangleLoss, steinmetzLoss } from './core-loss';
 import { foilDelta, roundWireDelta } from './dowell';
@@ -104,8 +106,14 @@ export interface WireContext {
   copperArea: number;
   /** Penetration ratio Δ of the fundamental. */
   firstHarmonicDelta: number;
-  /** Dowell layers per winding layer: 1 for round wire, ≈√strands rows of strands inside a litz bundle. */
+  /** Dowell layers per winding layer (1: litz is modelled strand by strand, litz.ts). */
   layersPerWindingLayer: number;
+  /**
+   * Litz: Σ I_n²/2·(Fr_n − 1) per N²/b² at the reference temperature (litzProximitySum), and the same at each node of the
+   * spec's acGrid (∝ 1/ρ², i.e. the node's Δ scale to the 4th); 0 and undefined for other conductors.
+   */
+  litzProximity: number;
+  litzProximityNodes: Float64Array | undefined;
   sums: AcLossSums;
   /** The same sums at each copper temperature of the spec's acGrid. */
   acTable: AcLossTable;
@@ -125,11 +133,16 @@ export function prepareWire(wire: WireOption, ctx: SpecContext, sumsByDelta?: Ma
     parts = { sums: acLossSums(firstHarmonicDelta, ctx.harmonics), acTable: acLossTable(firstHarmonicDelta, ctx.harmonics, ctx.acGrid) };
     sumsByDelta?.set(firstHarmonicDelta, parts);
   }
+  const litzProximity = isLitz
+    ? litzProximitySum(wire.strands, wire.strandDiameter, copperResistivity(ctx.acTemperature), ctx.spec.frequency, ctx.harmonics)
+    : 0;
   return {
     wire,
     copperArea: conductorCopperArea(wire),
     firstHarmonicDelta,
-    layersPerWindingLayer: isLitz ? Math.max(1, Math.round(Math.sqrt(wire.strands))) : 1,
+    layersPerWindingLayer: 1,
+    litzProximity,
+    litzProximityNodes: isLitz ? Float64Array.from(ctx.acGrid.scales, (scale) => litzProximity * scale ** 4) : undefined,
     sums: parts.sums,
     acTable: parts.acTable,
   };
@@ -279,7 +292,12 @@ export function evaluateWinding(
   const loss = out.loss;
   loss.resistance20 = out.resistance20;
   loss.dcCurrentSquare = op.ioutMax * op.ioutMax;
-  rippleWeightNodes(wireCtx.acTable, dowellLayers, loss.rippleWeights);
+  if (wireCtx.litzProximityNodes) {
+    const perNode = (n * n) / (core.bobbinWidth * core.bobbinWidth);
+    for (let i = 0; i < AC_TEMPERATURE_NODES; i++) {
+      loss.rippleWeights[i] = wireCtx.acTable.skin[i]! + wireCtx.litzProximityNodes[i]! * perNode;
+    }
+  } else rippleWeightNodes(wireCtx.acTable, dowellLayers, loss.rippleWeights);
   loss.acGrid = ctx.acGrid;
   loss.copperAboveSurface = HOT_SPOT_ALLOWANCE;
   loss.coreLossReference = out.coreLossDensityIgse * core.ve;

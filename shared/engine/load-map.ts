@@ -3,7 +3,9 @@ import { buckWaveform, waveformFlux, type ConductionMode } from './buck-waveform
 import { AC_TEMPERATURE_NODES } from './copper-loss';
 import { HOT_SPOT_ALLOWANCE } from './constants';
 import { igsePiecewiseLinearLoss } from './core-loss';
-import { dowellFactor } from './dowell';
+import { copperResistivity } from './copper';
+import { dowellFactor, dowellSkinTerm } from './dowell';
+import { litzProximitySum } from './litz';
 import { evaluateDesign, type EvaluateInput } from './evaluate';
 import { MAX_HARMONIC } from './harmonics';
 import { prepareCore, prepareSpec, prepareWire } from './kernel';
@@ -55,6 +57,8 @@ export function lossMap(input: EvaluateInput, fractions: readonly number[] = LOA
   const wire = prepareWire(input.wire, ctx);
   const thermalResistance = prepareCore(core).thermalResistanceByVolume;
   const layers = (Number.isFinite(base.winding.layers) ? base.winding.layers : 1) * wire.layersPerWindingLayer;
+  const referenceResistivity = copperResistivity(ctx.acTemperature);
+  const litzGeometry = (base.turns * base.turns) / (core.bobbinWidth * core.bobbinWidth);
   const inductanceAt = (iout: number) => biasedInductance(base.turns, iout, base.inductanceFactor.withFringing, core.le, material.rollOff);
   const inputs: Record<InputCorner, number> = {
     min: spec.vinMin,
@@ -69,10 +73,19 @@ export function lossMap(input: EvaluateInput, fractions: readonly number[] = LOA
       const iout = loadFraction * spec.ioutMax;
       const waveform = buckWaveform(spec, inputs[corner], iout, inductanceAt(iout));
       const spectrum = piecewiseLinearSpectrum(waveform.times, waveform.current, MAX_HARMONIC);
+      // Litz strand by strand (litz.ts), as the design point does; other conductors by Dowell per harmonic.
+      const litz =
+        input.wire.kind === 'litz'
+          ? litzProximitySum(input.wire.strands, input.wire.strandDiameter, referenceResistivity, spec.frequency, spectrum) * litzGeometry
+          : 0;
       for (let node = 0; node < AC_TEMPERATURE_NODES; node++) {
-        const delta = wire.firstHarmonicDelta * ctx.acGrid.scales[node]!;
-        let weight = 0;
-        for (let n = 1; n <= MAX_HARMONIC; n++) weight += dowellFactor(delta * Math.sqrt(n), layers) * spectrum.meanSquare[n - 1]!;
+        const scale = ctx.acGrid.scales[node]!;
+        const delta = wire.firstHarmonicDelta * scale;
+        let weight = litz * scale ** 4;
+        for (let n = 1; n <= MAX_HARMONIC; n++) {
+          const term = litz ? dowellSkinTerm(delta * Math.sqrt(n)) : dowellFactor(delta * Math.sqrt(n), layers);
+          weight += term * spectrum.meanSquare[n - 1]!;
+        }
         loss.rippleWeights[node] = weight;
       }
       loss.resistance20 = base.copper.resistance20;
