@@ -120,8 +120,13 @@ export interface EvaluationResult {
     steinmetzDensity: number;
     igseDensity: number;
     temperatureFactor: number;
-    /** iGSE at the operating temperature (W). */
+    /** iGSE at the operating temperature and, where the material has the data, under the DC bias (W). */
     loss: number;
+    /**
+     * The DC field in the material at full load (A/m), the loss factor it brings, and what that means in words; absent
+     * in results stored by engines before 2.1.
+     */
+    dcBias?: DcBiasFigures;
   };
   totalLoss: number;
   thermal: {
@@ -136,6 +141,32 @@ export interface EvaluationResult {
     runaway: boolean;
   };
   corners: CornerRow[];
+}
+
+export interface DcBiasFigures {
+  field: number;
+  factor: number;
+  included: boolean;
+  statement: string;
+}
+
+function dcBiasFigures(material: CoreMaterial, f: CandidateFigures): DcBiasFigures {
+  const field = f.dcField;
+  const flux = `${(f.fluxDc * 1e3).toFixed(0)} mT`;
+  if (!material.biasLoss) {
+    return {
+      field,
+      factor: 1,
+      included: false,
+      statement: `DC bias is not included: ${material.name} has no DC-bias loss data, so the core loss is the zero-bias value; under the ${flux} DC flux (${field.toFixed(0)} A/m in the material) the real loss is higher.`,
+    };
+  }
+  return {
+    field,
+    factor: f.biasLossFactor,
+    included: true,
+    statement: `DC bias included: ${field.toFixed(0)} A/m in the material at full load (${flux} DC) raises the core loss ×${f.biasLossFactor.toFixed(2)} (${material.name}: doubles at ${material.biasLoss.doublingField.toFixed(0)} A/m).`,
+  };
 }
 
 export function assembleResult(
@@ -233,6 +264,7 @@ export function assembleResult(
       igseDensity: f.coreLossDensityIgse * f.temperatureFactor,
       temperatureFactor: f.temperatureFactor,
       loss: f.coreLoss,
+      dcBias: dcBiasFigures(material, f),
     },
     totalLoss: f.totalLoss,
     thermal: {

@@ -12,6 +12,7 @@ import {
   type AcLossTable,
 } from './copper-loss';
 import { copperResistivity, windingResistance } from './copper';
+import { biasLossFactor, coreDcField } from './dc-bias-loss';
 import { litzProximitySum } from './litz';
 import { HOT_SPOT_ALLOWANCE } from './constants';
 import { fluxInFitRange, frequencyInFitRange, igseTriangleLoss, steinmetzLoss } from './core-loss';
@@ -211,6 +212,9 @@ export class CandidateFigures {
   fluxPeakLocal = 0;
   coreLossDensityIgse = 0;
   coreLossDensitySteinmetz = 0;
+  /** DC field in the core material at full load (A/m) and the core-loss factor it brings (1 without DC-bias data). */
+  dcField = 0;
+  biasLossFactor = 1;
   temperatureFactor = 1;
   coreLoss = 0;
   totalLoss = 0;
@@ -253,16 +257,21 @@ export function evaluateCandidate(
   wireCtx: WireContext,
   out: CandidateFigures,
 ): boolean {
-  evaluateWinding(ctx, coreCtx, matCtx, mag.turns, wireCtx, out);
+  evaluateWinding(ctx, coreCtx, matCtx, mag.turns, mag.fluxAtLoad, wireCtx, out);
   return applyMagnetics(ctx, coreCtx.core, matCtx.material, mag, out);
 }
 
-/** Everything that depends on the turns and the wire but not on the gap: build, copper, core loss, temperature. */
+/**
+ * Everything that depends on the turns and the wire but not on the gap: build, copper, core loss, temperature. The DC
+ * flux at full load (T) sets the DC field in the material, which raises the core loss where the material has DC-bias
+ * data (dc-bias-loss.ts); both placements of one turns count meet the same inductance, so they share it.
+ */
 export function evaluateWinding(
   ctx: SpecContext,
   coreCtx: CoreContext,
   matCtx: MaterialContext,
   turns: number,
+  dcFlux: number,
   wireCtx: WireContext,
   out: CandidateFigures,
 ): void {
@@ -300,7 +309,9 @@ export function evaluateWinding(
   } else rippleWeightNodes(wireCtx.acTable, dowellLayers, loss.rippleWeights);
   loss.acGrid = ctx.acGrid;
   loss.copperAboveSurface = HOT_SPOT_ALLOWANCE;
-  loss.coreLossReference = out.coreLossDensityIgse * core.ve;
+  out.dcField = coreDcField(core.gapKind, dcFlux, material.permeability, n, op.ioutMax, core.le);
+  out.biasLossFactor = biasLossFactor(material.biasLoss, out.dcField);
+  loss.coreLossReference = out.coreLossDensityIgse * core.ve * out.biasLossFactor;
   loss.temperatureCoefficients = material.tempCoefficients;
   const thermal = solveTemperature(limits.ambient, loss, core.surfaceArea, coreCtx.thermalResistanceByVolume, out.thermal);
   if (!thermal.converged) warnings |= WARNING.thermalNotConverged;

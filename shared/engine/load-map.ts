@@ -4,6 +4,7 @@ import { AC_TEMPERATURE_NODES } from './copper-loss';
 import { HOT_SPOT_ALLOWANCE } from './constants';
 import { igsePiecewiseLinearLoss } from './core-loss';
 import { copperResistivity } from './copper';
+import { biasLossFactor, coreDcField } from './dc-bias-loss';
 import { dowellFactor, dowellSkinTerm } from './dowell';
 import { litzProximitySum } from './litz';
 import { evaluateDesign, type EvaluateInput } from './evaluate';
@@ -48,7 +49,8 @@ export interface LossMap {
  * The built part (turns, gap, wire as evaluateDesign makes them, at its nominal inductance) run at each load and input
  * voltage: the real current waveform (CCM, boundary or DCM, buckWaveform), the copper loss from its DC value and
  * every harmonic's Dowell factor, the core loss by the iGSE over each linear segment of the flux (a resting segment
- * adds none; relaxation after it is not modelled), iterated with the temperature as evaluateDesign does.
+ * adds none; relaxation after it is not modelled) times the DC-bias factor at that load's DC field, iterated with the
+ * temperature as evaluateDesign does.
  */
 export function lossMap(input: EvaluateInput, fractions: readonly number[] = LOAD_FRACTIONS): LossMap {
   const base = evaluateDesign(input);
@@ -92,7 +94,19 @@ export function lossMap(input: EvaluateInput, fractions: readonly number[] = LOA
       loss.dcCurrentSquare = spectrum.average * spectrum.average;
       loss.acGrid = ctx.acGrid;
       loss.copperAboveSurface = HOT_SPOT_ALLOWANCE;
-      loss.coreLossReference = igsePiecewiseLinearLoss(material, waveform.times, waveformFlux(waveform, base.turns, core.ae)) * core.ve;
+      // The DC flux of an air-gapped core at this load is L·I/(N·Ae) (a powder's field is N·I/le, coreDcField).
+      const dcField = coreDcField(
+        core.gapKind,
+        (inductanceAt(iout) * iout) / (base.turns * core.ae),
+        material.permeability,
+        base.turns,
+        iout,
+        core.le,
+      );
+      loss.coreLossReference =
+        igsePiecewiseLinearLoss(material, waveform.times, waveformFlux(waveform, base.turns, core.ae)) *
+        core.ve *
+        biasLossFactor(material.biasLoss, dcField);
       loss.temperatureCoefficients = material.tempCoefficients;
       solveTemperature(ctx.limits.ambient, loss, core.surfaceArea, thermalResistance, thermal);
       const total = thermal.totalLoss;

@@ -198,7 +198,7 @@ export function searchCandidates(input: SearchInput): SearchResult {
           if (w < 0) continue;
           anyWire = true;
           // Winding, losses and temperature are the same for every placement; only the gap's share is redone.
-          evaluateWinding(ctx, coreCtxs[c]!, materialCtxs[m]!, turns, wireCtxs[w]!, figures);
+          evaluateWinding(ctx, coreCtxs[c]!, materialCtxs[m]!, turns, mags[0]!.fluxAtLoad, wireCtxs[w]!, figures);
           if (figures.totalLoss < stepLowest) stepLowest = figures.totalLoss;
           for (let p = 0; p < placements.length; p++) {
             evaluated++;

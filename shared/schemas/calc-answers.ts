@@ -108,7 +108,18 @@ export const evaluationResultSchema = z.object({
   ),
   winding: numbers('turnsPerLayer', 'layers', 'buildHeight', 'buildAvailable', 'copperFill', 'meanTurnLength', 'wireLength'),
   copper: numbers('resistance20', 'resistanceHot', 'acFactor', 'skinDepth', 'penetrationRatio', 'dcLoss', 'acLoss'),
-  coreLoss: numbers('steinmetzDensity', 'igseDensity', 'temperatureFactor', 'loss'),
+  coreLoss: numbers('steinmetzDensity', 'igseDensity', 'temperatureFactor', 'loss').extend({
+    dcBias: numbers('field', 'factor')
+      .extend({
+        included: z.boolean().meta({ description: 'The material has DC-bias loss data and the loss includes it' }),
+        statement: z.string().meta({ description: 'What the DC bias does to the core loss, in plain words' }),
+      })
+      .optional()
+      .meta({
+        description:
+          'DC field in the material at full load (A/m) and the core-loss factor it brings; absent in results stored before engine 2.1',
+      }),
+  }),
   totalLoss: z.number(),
   thermal: numbers('riseBySurface', 'riseByVolume', 'rise', 'surfaceTemperature', 'hotSpot', 'hotSpotAllowance', 'passes').extend({
     runaway: z
@@ -161,13 +172,10 @@ export const EVALUATE_SWEEPS = ['frequency', 'load', 'all'] as const;
 export type EvaluateSweep = (typeof EVALUATE_SWEEPS)[number];
 
 export const evaluateQuerySchema = z.object({
-  sweep: z
-    .enum(EVALUATE_SWEEPS)
-    .optional()
-    .meta({
-      description:
-        '"frequency" adds a loss-versus-frequency sweep, "load" a loss map from 10 % to 100 % load at three input voltages, "all" both',
-    }),
+  sweep: z.enum(EVALUATE_SWEEPS).optional().meta({
+    description:
+      '"frequency" adds a loss-versus-frequency sweep, "load" a loss map from 10 % to 100 % load at three input voltages, "all" both',
+  }),
 });
 
 const searchCandidateSchema = z.object({

@@ -64,4 +64,23 @@ describe('DesignPanel gap placement', () => {
     expect(label('Ground gap')).toBeDefined();
     expect(page.querySelector('[data-figure="gap"]')!.textContent).toMatch(/ground centre gap .* \(same L: spacer/);
   });
+
+  it('says beside the core loss whether DC bias is included, in the words the engine gives', async () => {
+    TestBed.configureTestingModule({ providers: [provideEchartsCore({ echarts: () => new Promise<never>(() => undefined) })] });
+    const statement = 'DC bias is not included: Demo ferrite Teal (illustrative) has no DC-bias loss data';
+    const withBias: EvaluateAnswer = {
+      ...answer(spacer),
+      result: { ...spacer.result, coreLoss: { ...spacer.result.coreLoss, dcBias: { field: 80, factor: 1, included: false, statement } } },
+    };
+    ({ fixture, http, page } = await renderWithHttpTesting(
+      DesignPanel,
+      { spec: SPEC, construction: CONSTRUCTION, known: withBias },
+      { settle: false },
+    ));
+    for (const request of http.match((r) => r.url.endsWith('/cores'))) request.flush({ cores: [] });
+    await fixture.whenStable();
+    const core = page.querySelector('[data-figure="core-loss"] .gw-dc-bias')!;
+    expect(core.textContent).toContain(statement);
+    expect(core.classList).toContain('gw-note');
+  });
 });
