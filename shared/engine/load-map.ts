@@ -1,7 +1,6 @@
 // Losses of one built part from light to full load at three input voltages: the "loss map" of the design page.
 import { buckWaveform, waveformFlux, type ConductionMode } from './buck-waveform';
 import { AC_TEMPERATURE_NODES } from './copper-loss';
-import { HOT_SPOT_ALLOWANCE } from './constants';
 import { igsePiecewiseLinearLoss } from './core-loss';
 import { dowellFactor } from './dowell';
 import { evaluateDesign, type EvaluateInput } from './evaluate';
@@ -53,7 +52,7 @@ export function lossMap(input: EvaluateInput, fractions: readonly number[] = LOA
   const { spec, core, material } = input;
   const ctx = prepareSpec(spec, input.limits);
   const wire = prepareWire(input.wire, ctx);
-  const thermalResistance = prepareCore(core).thermalResistanceByVolume;
+  const part = prepareCore(core).thermal;
   const layers = (Number.isFinite(base.winding.layers) ? base.winding.layers : 1) * wire.layersPerWindingLayer;
   const inductanceAt = (iout: number) => biasedInductance(base.turns, iout, base.inductanceFactor.withFringing, core.le, material.rollOff);
   const inputs: Record<InputCorner, number> = {
@@ -78,10 +77,9 @@ export function lossMap(input: EvaluateInput, fractions: readonly number[] = LOA
       loss.resistance20 = base.copper.resistance20;
       loss.dcCurrentSquare = spectrum.average * spectrum.average;
       loss.acGrid = ctx.acGrid;
-      loss.copperAboveSurface = HOT_SPOT_ALLOWANCE;
       loss.coreLossReference = igsePiecewiseLinearLoss(material, waveform.times, waveformFlux(waveform, base.turns, core.ae)) * core.ve;
       loss.temperatureCoefficients = material.tempCoefficients;
-      solveTemperature(ctx.limits.ambient, loss, core.surfaceArea, thermalResistance, thermal);
+      solveTemperature(ctx.limits, loss, part, thermal);
       const total = thermal.totalLoss;
       points.push({
         corner,
@@ -92,7 +90,7 @@ export function lossMap(input: EvaluateInput, fractions: readonly number[] = LOA
         peakCurrent: waveform.peak,
         copperDc: thermal.resistance * loss.dcCurrentSquare,
         copperAc: thermal.resistance * thermal.rippleWeight,
-        core: loss.coreLossReference * thermal.temperatureFactor,
+        core: thermal.coreLoss,
         total,
         share: total / (spec.vout * iout),
         rise: thermal.rise.design,
