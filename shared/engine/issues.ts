@@ -1,5 +1,4 @@
 // Plain-word issue texts, built only for candidates that are shown to someone.
-import { HOT_SPOT_ALLOWANCE } from './constants';
 import { TEMPERATURE_FACTOR_FLOOR, THERMAL_MODEL_LIMIT } from './thermal';
 import { FAILURE, WARNING, materialTemperatureLimit, type CandidateFigures, type SpecContext } from './kernel';
 import type { MagneticDesign } from './magnetic-design';

@@ -185,7 +185,7 @@ export function airProperties(film: number, out: AirProperties = new AirProperti
   out.conductivity = conductivity;
   out.viscosity = viscosity;
   out.prandtl = prandtl;
-  out.buoyancy = (GRAVITY / t) / (viscosity * (viscosity / prandtl));
+  out.buoyancy = GRAVITY / t / (viscosity * (viscosity / prandtl));
   return out;
 }
 
@@ -241,7 +241,8 @@ export function radiationFlux(emissivity: number, surface: number, ambient: numb
   return emissivity * STEFAN_BOLTZMANN * (ts * ts * ts * ts - ta * ta * ta * ta);
 }
 
-const mixed = (natural: number, forced: number) => (forced > 0 ? Math.cbrt(natural * natural * natural + forced * forced * forced) : natural);
+const mixed = (natural: number, forced: number) =>
+  forced > 0 ? Math.cbrt(natural * natural * natural + forced * forced * forced) : natural;
 
 /**
  * Convective conductance (W/K) from a node at `temperature` to ambient through its surfaces (natural convection, with

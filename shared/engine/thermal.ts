@@ -127,7 +127,12 @@ export class ThermalSolution {
  * core-volume law are evaluated at the last pass's total loss as a cross-check (TemperatureRise.bySurface/byVolume).
  * The result is written into `out` so the search allocates nothing.
  */
-export function solveTemperature(cooling: Cooling, loss: WoundCoreLoss, part: ThermalPart, out: ThermalSolution = new ThermalSolution()): ThermalSolution {
+export function solveTemperature(
+  cooling: Cooling,
+  loss: WoundCoreLoss,
+  part: ThermalPart,
+  out: ThermalSolution = new ThermalSolution(),
+): ThermalSolution {
   const ambient = cooling.ambient;
   const net = out.network;
   net.coreTemperature = ambient;

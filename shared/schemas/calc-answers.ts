@@ -114,10 +114,18 @@ export const evaluationResultSchema = z.object({
     riseByVolume: z
       .number()
       .nullable()
-      .meta({ description: 'Core-volume law rise (K) as a cross-check; null where the law does not apply (not an E, ETD, EFD or EQ core)' }),
-    coreTemperature: z.number().optional().meta({ description: 'Core node of the two-node thermal network (°C); absent on results saved before it' }),
+      .meta({
+        description: 'Core-volume law rise (K) as a cross-check; null where the law does not apply (not an E, ETD, EFD or EQ core)',
+      }),
+    coreTemperature: z
+      .number()
+      .optional()
+      .meta({ description: 'Core node of the two-node thermal network (°C); absent on results saved before it' }),
     windingTemperature: z.number().optional().meta({ description: 'Winding node (°C); absent on results saved before the network' }),
-    hotSpotAllowance: z.number().optional().meta({ description: 'Results saved before the two-node network: the hot spot above the surface (K)' }),
+    hotSpotAllowance: z
+      .number()
+      .optional()
+      .meta({ description: 'Results saved before the two-node network: the hot spot above the surface (K)' }),
     runaway: z
       .boolean()
       .meta({ description: 'No steady temperature below the model limit; rise and hot spot are where the model stopped' }),
@@ -168,13 +176,10 @@ export const EVALUATE_SWEEPS = ['frequency', 'load', 'all'] as const;
 export type EvaluateSweep = (typeof EVALUATE_SWEEPS)[number];
 
 export const evaluateQuerySchema = z.object({
-  sweep: z
-    .enum(EVALUATE_SWEEPS)
-    .optional()
-    .meta({
-      description:
-        '"frequency" adds a loss-versus-frequency sweep, "load" a loss map from 10 % to 100 % load at three input voltages, "all" both',
-    }),
+  sweep: z.enum(EVALUATE_SWEEPS).optional().meta({
+    description:
+      '"frequency" adds a loss-versus-frequency sweep, "load" a loss map from 10 % to 100 % load at three input voltages, "all" both',
+  }),
 });
 
 const searchCandidateSchema = z.object({

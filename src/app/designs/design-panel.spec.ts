@@ -69,12 +69,17 @@ describe('DesignPanel gap placement', () => {
 describe('DesignPanel thermal figures', () => {
   const render = async (known: EvaluateAnswer) => {
     TestBed.configureTestingModule({ providers: [provideEchartsCore({ echarts: () => new Promise<never>(() => undefined) })] });
-    const { fixture, http, page } = await renderWithHttpTesting(DesignPanel, { spec: SPEC, construction: CONSTRUCTION, known }, { settle: false });
+    const { fixture, http, page } = await renderWithHttpTesting(
+      DesignPanel,
+      { spec: SPEC, construction: CONSTRUCTION, known },
+      { settle: false },
+    );
     for (const request of http.match((r) => r.url.endsWith('/cores'))) request.flush({ cores: [] });
     await fixture.whenStable();
     return page;
   };
-  const text = (page: HTMLElement, figure: string) => page.querySelector(`[data-figure="${figure}"]`)?.textContent?.replace(/\s+/g, ' ').trim();
+  const text = (page: HTMLElement, figure: string) =>
+    page.querySelector(`[data-figure="${figure}"]`)?.textContent?.replace(/\s+/g, ' ').trim();
 
   it('shows both node temperatures and, for a pot core, only the surface law as a cross-check', async () => {
     const page = await render(answer(ground));

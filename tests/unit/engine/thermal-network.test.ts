@@ -112,7 +112,9 @@ function nodeOut(network: ThermalNetwork, n: NodeSurfaces, t: number, cooling: C
 /** Heat leaving the network to ambient at the solution's temperatures (W). */
 function heatOut(network: ThermalNetwork, cooling: Cooling, s: NetworkSolution): number {
   const board = cooling.boardThermalResistance !== undefined ? (s.coreTemperature - cooling.ambient) / cooling.boardThermalResistance : 0;
-  return nodeOut(network, network.core, s.coreTemperature, cooling) + nodeOut(network, network.winding, s.windingTemperature, cooling) + board;
+  return (
+    nodeOut(network, network.core, s.coreTemperature, cooling) + nodeOut(network, network.winding, s.windingTemperature, cooling) + board
+  );
 }
 
 function solve(network: ThermalNetwork, cooling: Cooling, coreLoss: number, copperLoss: number): NetworkSolution {
