@@ -38,6 +38,7 @@ export function shapedCoreFromRow(row: ShapedCoreRow, family: CoreFamily): CoreS
     bobbinHeight: optionalScaled(row.bobbin_height_mm, MM) ?? estimate.bobbinHeight,
     mlt: optionalScaled(row.mlt_mm, MM) ?? estimate.mlt,
     surfaceArea: optionalScaled(row.surface_area_mm2, MM2) ?? estimate.surfaceArea,
+    outline: { width: row.outline_width_mm * MM, height: row.outline_height_mm * MM, depth: row.outline_depth_mm * MM },
     source: row.source,
   };
   if (row.amin_mm2 !== undefined) shape.amin = row.amin_mm2 * MM2;
@@ -71,6 +72,7 @@ export const SHAPED_CORE_FIELD_COLUMNS: Partial<Record<keyof CoreShape, keyof Sh
   bobbinHeight: 'bobbin_height_mm',
   mlt: 'mlt_mm',
   surfaceArea: 'surface_area_mm2',
+  outline: 'outline_width_mm',
   centreToOuterLegAreaRatio: 'ac_ao',
   source: 'source',
 };

@@ -42,6 +42,7 @@ export const coreShapeSchema = z
     mlt: positiveNumber,
     surfaceArea: positiveNumber,
     centreToOuterLegAreaRatio: positiveNumber.optional(),
+    outline: z.object({ width: positiveNumber, height: positiveNumber, depth: positiveNumber }).optional(),
     ring: z.object({ od: positiveNumber, id: positiveNumber, height: positiveNumber }).optional(),
     source: text().trim().min(1, 'must say where the numbers come from'),
   })
@@ -58,6 +59,7 @@ export const coreShapeSchema = z
 
     if (isRingFamily(core.family)) {
       if (core.gapKind !== 'distributed') issue('gapKind', 'ring cores have no discrete air gap: use "distributed"');
+      if (core.outline) issue('outline', 'ring cores give their ring dimensions, not an outline');
       if (!core.ring) {
         issue('ring', 'ring cores need their outer diameter, inner diameter and height');
         return;

@@ -1,5 +1,4 @@
 import { availableAreaProduct, availableGeometryConstant, requiredAreaProduct } from './area-product';
-import { HOT_SPOT_ALLOWANCE } from './constants';
 import { cornerRows, type CornerRow } from './corners';
 import { EngineInputError } from './errors';
 import type { ConverterSpec, DesignLimits, EngineIssue } from './inputs';
@@ -130,12 +129,21 @@ export interface EvaluationResult {
   };
   totalLoss: number;
   thermal: {
+    /** Cross-check: the surface-dissipation law's rise at the same loss (K). */
     riseBySurface: number;
-    riseByVolume: number;
+    /** Cross-check: the core-volume law's rise (K), null where it does not apply (VOLUME_LAW_FAMILIES). */
+    riseByVolume: number | null;
+    /** The hotter node's rise (K). */
     rise: number;
+    /** The hotter node's temperature (°C). */
     surfaceTemperature: number;
+    /** The winding node's temperature (°C): the insulation's check. */
     hotSpot: number;
-    hotSpotAllowance: number;
+    /** Core and winding node temperatures (°C) of the two-node network; absent on results saved before it. */
+    coreTemperature?: number;
+    windingTemperature?: number;
+    /** Saved before the two-node network only: the allowance the hot spot then added to the surface (K). */
+    hotSpotAllowance?: number;
     passes: number;
     /** No steady temperature below the model limit: rise and hot spot are where the model stopped, not a prediction. */
     runaway: boolean;
@@ -269,11 +277,12 @@ export function assembleResult(
     totalLoss: f.totalLoss,
     thermal: {
       riseBySurface: f.riseBySurface,
-      riseByVolume: f.riseByVolume,
+      riseByVolume: Number.isNaN(f.riseByVolume) ? null : f.riseByVolume,
       rise: f.rise,
       surfaceTemperature: limits.ambient + f.rise,
       hotSpot: f.hotSpot,
-      hotSpotAllowance: HOT_SPOT_ALLOWANCE,
+      coreTemperature: f.coreTemperature,
+      windingTemperature: f.windingTemperature,
       passes: f.thermalPasses,
       runaway: f.runaway,
     },

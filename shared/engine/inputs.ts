@@ -35,6 +35,10 @@ export type RankBy = 'smallest' | 'loss' | 'temperature' | 'balanced';
 
 export interface DesignLimits {
   ambient: number;
+  /** Speed of a forced air stream along the part (m/s); 0 = natural convection only. */
+  airSpeed: number;
+  /** Thermal resistance from the core to the board (K/W); absent = the part stands free in air. */
+  boardThermalResistance?: number;
   maxRise: number;
   lossBudget?: number;
   inductanceTolerance: number;
@@ -56,6 +60,7 @@ export interface DesignLimits {
 
 export const DEFAULT_LIMITS: DesignLimits = {
   ambient: 40,
+  airSpeed: 0,
   maxRise: 50,
   inductanceTolerance: 0.1,
   bMax: 0.3,

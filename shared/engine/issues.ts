@@ -1,5 +1,4 @@
 // Plain-word issue texts, built only for candidates that are shown to someone.
-import { HOT_SPOT_ALLOWANCE } from './constants';
 import { TEMPERATURE_FACTOR_FLOOR, THERMAL_MODEL_LIMIT } from './thermal';
 import { FAILURE, WARNING, materialTemperatureLimit, type CandidateFigures, type SpecContext } from './kernel';
 import type { MagneticDesign } from './magnetic-design';
@@ -59,7 +58,7 @@ export function describeIssues({ ctx, core, material, mag, figures: f, wire }: I
     if (f.saturationMargin < limits.saturationMargin) {
       error(
         'saturation',
-        `Peak flux ${fmt(f.fluxPeakLocal)} T${where} at ${fmt(f.hotSpot, 0)} °C exceeds ${fmt(allowed * 100, 0)} % of Bsat (${fmt(allowed * f.saturationFluxHot)} T of ${fmt(f.saturationFluxHot)} T).`,
+        `Peak flux ${fmt(f.fluxPeakLocal)} T${where} at ${fmt(limits.ambient + f.rise, 0)} °C exceeds ${fmt(allowed * 100, 0)} % of Bsat (${fmt(allowed * f.saturationFluxHot)} T of ${fmt(f.saturationFluxHot)} T).`,
       );
     } else {
       error(
@@ -102,13 +101,13 @@ export function describeIssues({ ctx, core, material, mag, figures: f, wire }: I
   if (failed(FAILURE.insulation)) {
     error(
       'insulation',
-      `Hot spot ${f.runaway ? 'above ' : ''}${fmt(f.hotSpot, 0)} °C (surface + ${HOT_SPOT_ALLOWANCE} K) exceeds the insulation class ${fmt(limits.insulationClass, 0)} °C.`,
+      `Winding ${f.runaway ? 'above ' : ''}${fmt(f.hotSpot, 0)} °C exceeds the insulation class ${fmt(limits.insulationClass, 0)} °C.`,
     );
   }
   if (failed(FAILURE.materialTemperature)) {
     error(
       'material-temperature',
-      `Hot spot ${f.runaway ? 'above ' : ''}${fmt(f.hotSpot, 0)} °C exceeds the ${material.name} limit of ${fmt(materialTemperatureLimit(material), 0)} °C.`,
+      `Core ${f.runaway ? 'above ' : ''}${fmt(f.runaway ? f.hotSpot : f.coreTemperature, 0)} °C exceeds the ${material.name} limit of ${fmt(materialTemperatureLimit(material), 0)} °C.`,
     );
   }
   if (failed(FAILURE.temperatureFactor)) {

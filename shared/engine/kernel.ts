@@ -26,9 +26,10 @@ import { copperSkinDepth } from './skin-depth';
 import {
   THERMAL_MODEL_LIMIT,
   ThermalSolution,
-  coreVolumeThermalResistance,
   emptyWoundCoreLoss,
+  prepareThermalPart,
   solveTemperature,
+  type ThermalPart,
   type WoundCoreLoss,
 } from './thermal';
 import type { CoreMaterial, CoreShape, WireOption } from './types';
@@ -186,11 +187,12 @@ export function prepareMaterial(material: CoreMaterial, ctx: SpecContext): Mater
 
 export interface CoreContext {
   core: CoreShape;
-  thermalResistanceByVolume: number;
+  /** The core's thermal network and the empirical laws' figures (thermal.ts). */
+  thermal: ThermalPart;
 }
 
 export function prepareCore(core: CoreShape): CoreContext {
-  return { core, thermalResistanceByVolume: coreVolumeThermalResistance(core.ve) };
+  return { core, thermal: prepareThermalPart(core) };
 }
 
 /** Every number of one evaluated candidate; reused between evaluations. */
@@ -219,13 +221,17 @@ export class CandidateFigures {
   coreLoss = 0;
   totalLoss = 0;
   riseBySurface = 0;
+  /** NaN where the core-volume law does not apply. */
   riseByVolume = 0;
   rise = 0;
+  /** The winding node's temperature (°C). */
   hotSpot = 0;
   /** The losses outran the cooling: rise and hot spot are where the thermal model stopped (see ThermalSolution). */
   runaway = false;
-  /** Core temperature of the loss figures and the material's temperature factor there before any floor. */
+  /** Core node's temperature (the core loss's) and the material's temperature factor there before any floor. */
   coreTemperature = 0;
+  /** Winding node's temperature (°C), the copper loss's. */
+  windingTemperature = 0;
   rawTemperatureFactor = 1;
   /** Nominal: Bsat at the predicted hot spot and the margin of fluxPeakLocal to it. */
   saturationFluxHot = 0;
@@ -308,12 +314,11 @@ export function evaluateWinding(
     }
   } else rippleWeightNodes(wireCtx.acTable, dowellLayers, loss.rippleWeights);
   loss.acGrid = ctx.acGrid;
-  loss.copperAboveSurface = HOT_SPOT_ALLOWANCE;
   out.dcField = coreDcField(core.gapKind, dcFlux, material.permeability, n, op.ioutMax, core.le);
   out.biasLossFactor = biasLossFactor(material.biasLoss, out.dcField);
   loss.coreLossReference = out.coreLossDensityIgse * core.ve * out.biasLossFactor;
   loss.temperatureCoefficients = material.tempCoefficients;
-  const thermal = solveTemperature(limits.ambient, loss, core.surfaceArea, coreCtx.thermalResistanceByVolume, out.thermal);
+  const thermal = solveTemperature(limits, loss, coreCtx.thermal, out.thermal);
   if (!thermal.converged) warnings |= WARNING.thermalNotConverged;
   if (thermal.runaway) failures |= FAILURE.thermalRunaway;
   // A temperature fit that is ≤ 0 where the core works is invalid there; the loss used the floored factor.
@@ -321,6 +326,7 @@ export function evaluateWinding(
   const rise = thermal.rise.design;
   out.runaway = thermal.runaway;
   out.coreTemperature = thermal.coreTemperature;
+  out.windingTemperature = thermal.windingTemperature;
   out.rawTemperatureFactor = thermal.rawTemperatureFactor;
   out.thermalPasses = thermal.passes;
   out.resistanceHot = thermal.resistance;
@@ -328,16 +334,17 @@ export function evaluateWinding(
   out.acFactor = thermal.rippleWeight / wireCtx.acTable.meanSquare;
   out.copperLossDc = dcCopperLoss(thermal.resistance, op.ioutMax);
   out.copperLossAc = thermal.resistance * thermal.rippleWeight;
-  out.coreLoss = loss.coreLossReference * thermal.temperatureFactor;
+  out.coreLoss = thermal.coreLoss;
   out.totalLoss = thermal.totalLoss;
   out.riseBySurface = thermal.rise.bySurface;
   out.riseByVolume = thermal.rise.byVolume;
   out.rise = rise;
-  out.hotSpot = limits.ambient + rise + HOT_SPOT_ALLOWANCE;
+  // Past the model's limit the runaway part is reported at the limit (the rise is capped likewise).
+  out.hotSpot = thermal.runaway ? limits.ambient + rise : thermal.windingTemperature;
 
   if (rise > limits.maxRise) failures |= FAILURE.temperatureRise;
   if (out.hotSpot > limits.insulationClass) failures |= FAILURE.insulation;
-  if (out.hotSpot > materialTemperatureLimit(material)) failures |= FAILURE.materialTemperature;
+  if ((thermal.runaway ? out.hotSpot : out.coreTemperature) > materialTemperatureLimit(material)) failures |= FAILURE.materialTemperature;
   if (limits.lossBudget !== undefined && out.totalLoss > limits.lossBudget) failures |= FAILURE.lossBudget;
   if (!matCtx.frequencyInFit) warnings |= WARNING.frequencyFit;
   if (!fluxInFitRange(material, out.fluxSwing / 2)) warnings |= WARNING.fluxFit;
@@ -362,7 +369,8 @@ export function applyMagnetics(
   out.fluxDc = mag.fluxAtLoad;
   out.fluxPeak = mag.fluxAtPeak;
   out.fluxPeakLocal = core.amin !== undefined && core.amin < core.ae ? (out.fluxPeak * core.ae) / core.amin : out.fluxPeak;
-  out.saturationFluxHot = saturationFlux(material, out.hotSpot);
+  // Bsat at the hotter of the two nodes (a core's own hot spot lies between them).
+  out.saturationFluxHot = saturationFlux(material, limits.ambient + out.rise);
   out.saturationMargin = saturationMargin(out.fluxPeakLocal, out.saturationFluxHot);
   // Worst case: the upper-tolerance inductance (flux ∝ L, or ∝ μi for a powder core) at the hottest allowed temperature.
   out.fluxPeakHigh = out.fluxPeakLocal * (1 + limits.inductanceTolerance);

@@ -1,7 +1,6 @@
 // Losses of one built part from light to full load at three input voltages: the "loss map" of the design page.
 import { buckWaveform, waveformFlux, type ConductionMode } from './buck-waveform';
 import { AC_TEMPERATURE_NODES } from './copper-loss';
-import { HOT_SPOT_ALLOWANCE } from './constants';
 import { igsePiecewiseLinearLoss } from './core-loss';
 import { copperResistivity } from './copper';
 import { biasLossFactor, coreDcField } from './dc-bias-loss';
@@ -57,7 +56,7 @@ export function lossMap(input: EvaluateInput, fractions: readonly number[] = LOA
   const { spec, core, material } = input;
   const ctx = prepareSpec(spec, input.limits);
   const wire = prepareWire(input.wire, ctx);
-  const thermalResistance = prepareCore(core).thermalResistanceByVolume;
+  const part = prepareCore(core).thermal;
   const layers = (Number.isFinite(base.winding.layers) ? base.winding.layers : 1) * wire.layersPerWindingLayer;
   const referenceResistivity = copperResistivity(ctx.acTemperature);
   const litzGeometry = (base.turns * base.turns) / (core.bobbinWidth * core.bobbinWidth);
@@ -93,7 +92,6 @@ export function lossMap(input: EvaluateInput, fractions: readonly number[] = LOA
       loss.resistance20 = base.copper.resistance20;
       loss.dcCurrentSquare = spectrum.average * spectrum.average;
       loss.acGrid = ctx.acGrid;
-      loss.copperAboveSurface = HOT_SPOT_ALLOWANCE;
       // The DC flux of an air-gapped core at this load is L·I/(N·Ae) (a powder's field is N·I/le, coreDcField).
       const dcField = coreDcField(
         core.gapKind,
@@ -108,7 +106,7 @@ export function lossMap(input: EvaluateInput, fractions: readonly number[] = LOA
         core.ve *
         biasLossFactor(material.biasLoss, dcField);
       loss.temperatureCoefficients = material.tempCoefficients;
-      solveTemperature(ctx.limits.ambient, loss, core.surfaceArea, thermalResistance, thermal);
+      solveTemperature(ctx.limits, loss, part, thermal);
       const total = thermal.totalLoss;
       points.push({
         corner,
@@ -119,7 +117,7 @@ export function lossMap(input: EvaluateInput, fractions: readonly number[] = LOA
         peakCurrent: waveform.peak,
         copperDc: thermal.resistance * loss.dcCurrentSquare,
         copperAc: thermal.resistance * thermal.rippleWeight,
-        core: loss.coreLossReference * thermal.temperatureFactor,
+        core: thermal.coreLoss,
         total,
         share: total / (spec.vout * iout),
         rise: thermal.rise.design,

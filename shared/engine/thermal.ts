@@ -1,6 +1,8 @@
 import { copperResistanceRatio } from './copper';
 import { AC_TEMPERATURE_NODES, interpolateAtTemperature, type AcTemperatureGrid } from './copper-loss';
 import { coreLossTemperatureFactor, type TemperatureCoefficients } from './core-loss';
+import { NetworkSolution, solveNetwork, thermalNetwork, type Cooling, type ThermalNetwork } from './thermal-network';
+import type { CoreFamily, CoreShape } from './types';
 
 /** Surface-dissipation law ΔT = 450·(P/At)^0.826, P in W and At in cm² (At given here in m²). */
 export function surfaceDissipationRise(power: number, surfaceArea: number): number {
@@ -13,11 +15,13 @@ export function coreVolumeThermalResistance(effectiveVolume: number): number {
   return 53 * Math.pow(effectiveVolume * 1e6, -0.54);
 }
 
-/** The rise by both laws at one loss (K). */
+/** The rise of the two-node network and, as a cross-check, of the two empirical laws at the same loss (K). */
 export class TemperatureRise {
+  /** Surface law, applied to every core as a rough check. */
   bySurface = 0;
+  /** Core-volume law; NaN where it does not apply (see VOLUME_LAW_FAMILIES). */
   byVolume = 0;
-  /** The larger of the two, used for design decisions. */
+  /** The hotter node's rise, used for design decisions. */
   design = 0;
 }
 
@@ -36,9 +40,9 @@ export const TEMPERATURE_FACTOR_FLOOR = 0.01;
 
 /**
  * The losses of a winding on a core as functions of temperature: copper follows ρ(T)/ρ20 (copperResistanceRatio)
- * at the hot spot, the ripple's AC factor the part's temperature (interpolated between the nodes of an
- * AcTemperatureGrid), the core its material's temperature factor (coreLossTemperatureFactor). Plain numbers and
- * reused arrays, so one object serves a whole search.
+ * and the ripple's AC factor (interpolated between the nodes of an AcTemperatureGrid) at the winding node's
+ * temperature, the core its material's temperature factor (coreLossTemperatureFactor) at the core node's. Plain
+ * numbers and reused arrays, so one object serves a whole search.
  */
 export interface WoundCoreLoss {
   /** Winding resistance at 20 °C (Ω). */
@@ -48,8 +52,6 @@ export interface WoundCoreLoss {
   /** Σ Fr·I_n²/2 at the grid's node temperatures (A²); without a grid, element 0 holds it at every temperature. */
   rippleWeights: Float64Array;
   acGrid: AcTemperatureGrid | undefined;
-  /** How much hotter the copper is than the part's surface estimate (K): Rdc is taken at the hot spot. */
-  copperAboveSurface: number;
   /** Core loss with the temperature factor 1 (W). */
   coreLossReference: number;
   temperatureCoefficients: TemperatureCoefficients | undefined;
@@ -62,9 +64,31 @@ export function emptyWoundCoreLoss(): WoundCoreLoss {
     dcCurrentSquare: 0,
     rippleWeights: new Float64Array(AC_TEMPERATURE_NODES),
     acGrid: undefined,
-    copperAboveSurface: 0,
     coreLossReference: 0,
     temperatureCoefficients: undefined,
+  };
+}
+
+/**
+ * Families the core-volume law (fitted on ferrite E-type sets) is applied to as a cross-check: E, ETD, EFD, EQ. Not
+ * to PQ, RM and pot cores (their winding is mostly enclosed) nor to toroids (no bobbin, the winding covers the core).
+ */
+export const VOLUME_LAW_FAMILIES: readonly CoreFamily[] = ['E', 'ETD', 'EFD', 'EQ'];
+
+/** What the thermal solve needs of a core, prepared once per core. */
+export interface ThermalPart {
+  network: ThermalNetwork;
+  /** Exposed surface of the wound part (m²), for the surface law's cross-check. */
+  surfaceArea: number;
+  /** Core-volume law's K/W where it applies (VOLUME_LAW_FAMILIES), NaN elsewhere. */
+  volumeThermalResistance: number;
+}
+
+export function prepareThermalPart(core: CoreShape): ThermalPart {
+  return {
+    network: thermalNetwork(core),
+    surfaceArea: core.surfaceArea,
+    volumeThermalResistance: VOLUME_LAW_FAMILIES.includes(core.family) ? coreVolumeThermalResistance(core.ve) : Number.NaN,
   };
 }
 
@@ -75,72 +99,96 @@ export class ThermalSolution {
   /**
    * The losses would heat the part past THERMAL_MODEL_LIMIT: the losses are those at that limit and the rises are
    * reported as the rise at which the model stopped (THERMAL_MODEL_LIMIT − ambient), not the absurd figure the
-   * surface law would give for them.
+   * network would give for them.
    */
   runaway = false;
-  /** Winding resistance (at the hot spot), ripple weight Σ Fr·I_n²/2, core-loss factor and total loss of the last pass. */
+  /** Winding resistance (at the winding node), ripple weight Σ Fr·I_n²/2, core-loss factor and total loss of the last pass. */
   resistance = 0;
   rippleWeight = 0;
   temperatureFactor = 1;
   /** The factor as the coefficients give it, before the floor; ≤ 0 means the fit is invalid at that temperature. */
   rawTemperatureFactor = 1;
-  /** Temperature (°C) at which the last pass took the core loss. */
+  /** Core node's temperature (°C), at which the last pass took the core loss (at most THERMAL_MODEL_LIMIT). */
   coreTemperature = 0;
+  /** Winding node's temperature (°C), at which the last pass took the copper loss (at most THERMAL_MODEL_LIMIT). */
+  windingTemperature = 0;
+  copperLoss = 0;
+  coreLoss = 0;
   totalLoss = 0;
+  /** Scratch and last state of the two-node network. */
+  readonly network = new NetworkSolution();
 }
 
 /**
- * Losses depend on temperature (copper ρ(T), the ripple's AC factor, the core-loss factor) and temperature on
- * losses: start at ambient and repeat until the rise moves less than 0.1 K, at most 6 passes. Each pass takes the
- * larger rise of the surface law and of the volume thermal resistance (K/W, coreVolumeThermalResistance, prepared
- * once per core). The losses and rise reported are those of the last pass; the result is written into `out` so the
- * search allocates nothing.
+ * Losses depend on temperature (copper ρ(T) and the ripple's AC factor at the winding node, the core-loss factor at
+ * the core node) and the temperatures on the losses: start at ambient and repeat until the hotter node's rise moves
+ * less than 0.1 K, at most 6 passes. The first pass takes the surface law's rise as a start; each later pass solves
+ * the two-node network (thermal-network.ts) for that pass's core and copper loss from the previous temperatures. The surface law and, where it applies, the
+ * core-volume law are evaluated at the last pass's total loss as a cross-check (TemperatureRise.bySurface/byVolume).
+ * The result is written into `out` so the search allocates nothing.
  */
 export function solveTemperature(
-  ambient: number,
+  cooling: Cooling,
   loss: WoundCoreLoss,
-  surfaceArea: number,
-  volumeThermalResistance: number,
+  part: ThermalPart,
   out: ThermalSolution = new ThermalSolution(),
 ): ThermalSolution {
+  const ambient = cooling.ambient;
+  const net = out.network;
+  net.coreTemperature = ambient;
+  net.windingTemperature = ambient;
   let rise = 0;
   let previous = Number.NaN;
   let passes = 0;
-  let bySurface = 0;
-  let byVolume = 0;
   let resistance = 0;
   let rippleWeight = 0;
   let rawFactor = 1;
   let temperatureFactor = 1;
-  let surface = ambient;
-  let power = 0;
+  let coreTemperature = ambient;
+  let windingTemperature = ambient;
+  let copperLoss = 0;
+  let coreLoss = 0;
   while (passes < THERMAL_MAX_PASSES && !(Math.abs(rise - previous) < THERMAL_TOLERANCE)) {
     previous = rise;
     // Losses are never evaluated above the model limit: past it the part is in runaway.
-    surface = Math.min(ambient + rise, THERMAL_MODEL_LIMIT);
-    const copper = Math.min(ambient + rise + loss.copperAboveSurface, THERMAL_MODEL_LIMIT);
-    resistance = loss.resistance20 * copperResistanceRatio(copper);
-    rippleWeight = loss.acGrid ? interpolateAtTemperature(loss.acGrid, loss.rippleWeights, surface) : loss.rippleWeights[0]!;
-    rawFactor = coreLossTemperatureFactor(loss.temperatureCoefficients, surface);
+    coreTemperature = Math.min(net.coreTemperature, THERMAL_MODEL_LIMIT);
+    windingTemperature = Math.min(net.windingTemperature, THERMAL_MODEL_LIMIT);
+    resistance = loss.resistance20 * copperResistanceRatio(windingTemperature);
+    rippleWeight = loss.acGrid ? interpolateAtTemperature(loss.acGrid, loss.rippleWeights, windingTemperature) : loss.rippleWeights[0]!;
+    rawFactor = coreLossTemperatureFactor(loss.temperatureCoefficients, coreTemperature);
     temperatureFactor = rawFactor > TEMPERATURE_FACTOR_FLOOR ? rawFactor : TEMPERATURE_FACTOR_FLOOR;
-    power = resistance * (loss.dcCurrentSquare + rippleWeight) + loss.coreLossReference * temperatureFactor;
-    bySurface = surfaceDissipationRise(power, surfaceArea);
-    byVolume = power * volumeThermalResistance;
-    rise = bySurface > byVolume ? bySurface : byVolume;
+    copperLoss = resistance * (loss.dcCurrentSquare + rippleWeight);
+    coreLoss = loss.coreLossReference * temperatureFactor;
+    if (passes === 0) {
+      // The first pass takes the surface law's rise for the losses at ambient: a cheap start near the network's
+      // answer, from which the network (solved from the next pass on) converges in two or three iterations.
+      rise = surfaceDissipationRise(copperLoss + coreLoss, part.surfaceArea);
+      net.coreTemperature = ambient + rise;
+      net.windingTemperature = ambient + rise;
+    } else {
+      solveNetwork(part.network, cooling, coreLoss, copperLoss, net);
+      rise = (net.coreTemperature > net.windingTemperature ? net.coreTemperature : net.windingTemperature) - ambient;
+    }
     passes += 1;
   }
+  const power = copperLoss + coreLoss;
+  const bySurface = surfaceDissipationRise(power, part.surfaceArea);
+  const byVolume = power * part.volumeThermalResistance;
   out.passes = passes;
   out.converged = Math.abs(rise - previous) < THERMAL_TOLERANCE;
   out.runaway = ambient + rise > THERMAL_MODEL_LIMIT;
   const cap = out.runaway ? THERMAL_MODEL_LIMIT - ambient : Number.POSITIVE_INFINITY;
   out.rise.bySurface = bySurface < cap ? bySurface : cap;
-  out.rise.byVolume = byVolume < cap ? byVolume : cap;
+  out.rise.byVolume = byVolume > cap ? cap : byVolume; // NaN (law not applied) stays NaN
   out.rise.design = rise < cap ? rise : cap;
   out.resistance = resistance;
   out.rippleWeight = rippleWeight;
   out.temperatureFactor = temperatureFactor;
   out.rawTemperatureFactor = rawFactor;
-  out.coreTemperature = surface;
+  out.coreTemperature = Math.min(net.coreTemperature, THERMAL_MODEL_LIMIT);
+  out.windingTemperature = Math.min(net.windingTemperature, THERMAL_MODEL_LIMIT);
+  out.copperLoss = copperLoss;
+  out.coreLoss = coreLoss;
   out.totalLoss = power;
   return out;
 }

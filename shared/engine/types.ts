@@ -52,6 +52,11 @@ export interface CoreShape {
   surfaceArea: number;
   /** Centre-leg (or ring) area over total outer-leg area, for spacer gaps (Ac/Ao, ≈1 for E/ETD). */
   centreToOuterLegAreaRatio?: number;
+  /**
+   * Shaped sets: outline of the assembled pair (m): width across the legs, height along the centre leg, depth of the
+   * core. From the catalogue; absent on user cores (the thermal network then estimates it, see shapedOutline).
+   */
+  outline?: { width: number; height: number; depth: number };
   /** Ring cores: outer diameter, inner diameter, height (m). */
   ring?: { od: number; id: number; height: number };
   /** Where the numbers come from, e.g. "IEC 61185 nominal (from memory)". */

@@ -121,7 +121,22 @@ export const evaluationResultSchema = z.object({
       }),
   }),
   totalLoss: z.number(),
-  thermal: numbers('riseBySurface', 'riseByVolume', 'rise', 'surfaceTemperature', 'hotSpot', 'hotSpotAllowance', 'passes').extend({
+  thermal: numbers('riseBySurface', 'rise', 'surfaceTemperature', 'hotSpot', 'passes').extend({
+    riseByVolume: z
+      .number()
+      .nullable()
+      .meta({
+        description: 'Core-volume law rise (K) as a cross-check; null where the law does not apply (not an E, ETD, EFD or EQ core)',
+      }),
+    coreTemperature: z
+      .number()
+      .optional()
+      .meta({ description: 'Core node of the two-node thermal network (°C); absent on results saved before it' }),
+    windingTemperature: z.number().optional().meta({ description: 'Winding node (°C); absent on results saved before the network' }),
+    hotSpotAllowance: z
+      .number()
+      .optional()
+      .meta({ description: 'Results saved before the two-node network: the hot spot above the surface (K)' }),
     runaway: z
       .boolean()
       .meta({ description: 'No steady temperature below the model limit; rise and hot spot are where the model stopped' }),

@@ -96,6 +96,14 @@ export type ConverterSpecRequest = z.infer<typeof converterSpecSchema>;
 export const designLimitsSchema = z
   .object({
     ambient: rangeNumber('ambient', -40, 125, '°C', 'Ambient temperature').optional(),
+    airSpeed: rangeNumber('airSpeed', 0, 20, 'm/s', 'Forced air speed along the part; 0 = natural convection').optional(),
+    boardThermalResistance: rangeNumber(
+      'boardThermalResistance',
+      0.1,
+      1000,
+      'K/W',
+      'Thermal resistance from the core to the board',
+    ).optional(),
     maxRise: rangeNumber('maxRise', 1, 150, 'K', 'Largest allowed temperature rise').optional(),
     lossBudget: positiveNumber('lossBudget', 1000, 'W', 'Largest allowed total loss').optional(),
     inductanceTolerance: rangeNumber('inductanceTolerance', 0, 0.5, '', 'Inductance tolerance; L is designed to its minimum').optional(),

@@ -84,6 +84,8 @@ const DIMENSION_NAMES: [string, string][] = [
   ['T', 'a flux density'],
   ['A/m^2', 'a current density'],
   ['m', 'a length'],
+  ['m/s', 'a speed'],
+  ['K/W', 'a thermal resistance'],
   ['s', 'a time'],
   ['F', 'a capacitance'],
   ['J', 'an energy'],

@@ -12,6 +12,8 @@ export const QUANTITY_KINDS = [
   'fluxDensity',
   'currentDensity',
   'length',
+  'speed',
+  'thermalResistance',
   'ratio',
   'count',
 ] as const;
@@ -42,6 +44,8 @@ export const QUANTITIES: Record<QuantityKind, QuantityInfo> = {
   fluxDensity: { expected: 'a flux density (T)', reference: 'T', symbol: 'T', displayScale: 1, prefixed: true },
   currentDensity: { expected: 'a current density (A/mm²)', reference: 'A/m^2', symbol: 'A/mm²', displayScale: 1e-6, prefixed: false },
   length: { expected: 'a length (m)', reference: 'm', symbol: 'm', displayScale: 1, prefixed: true },
+  speed: { expected: 'a speed (m/s)', reference: 'm/s', symbol: 'm/s', displayScale: 1, prefixed: false },
+  thermalResistance: { expected: 'a thermal resistance (K/W)', reference: 'K/W', symbol: 'K/W', displayScale: 1, prefixed: false },
   ratio: { expected: 'a plain number or a percentage', reference: '', symbol: '', displayScale: 1, prefixed: false },
   count: { expected: 'a whole number', reference: '', symbol: '', displayScale: 1, prefixed: false },
 };

@@ -84,3 +84,34 @@ describe('DesignPanel gap placement', () => {
     expect(core.classList).toContain('gw-note');
   });
 });
+
+describe('DesignPanel thermal figures', () => {
+  const render = async (known: EvaluateAnswer) => {
+    TestBed.configureTestingModule({ providers: [provideEchartsCore({ echarts: () => new Promise<never>(() => undefined) })] });
+    const { fixture, http, page } = await renderWithHttpTesting(
+      DesignPanel,
+      { spec: SPEC, construction: CONSTRUCTION, known },
+      { settle: false },
+    );
+    for (const request of http.match((r) => r.url.endsWith('/cores'))) request.flush({ cores: [] });
+    await fixture.whenStable();
+    return page;
+  };
+  const text = (page: HTMLElement, figure: string) =>
+    page.querySelector(`[data-figure="${figure}"]`)?.textContent?.replace(/\s+/g, ' ').trim();
+
+  it('shows both node temperatures and, for a pot core, only the surface law as a cross-check', async () => {
+    const page = await render(answer(ground));
+    expect(text(page, 'node-temperatures')).toBe('79.2 °C / 80.4 °C (rise 40.4 K)');
+    expect(text(page, 'empirical-rises')).toBe('37.5 K');
+    expect(page.textContent).toContain('Cross-check: rise by the surface law');
+  });
+
+  it('adds the core-volume law where it applies and reads a result saved before the network (no node temperatures)', async () => {
+    const thermal = { ...ground.result.thermal, riseByVolume: 42.1, coreTemperature: undefined, windingTemperature: undefined };
+    const page = await render(answer({ ...ground, result: { ...ground.result, thermal } }));
+    expect(text(page, 'node-temperatures')).toBeUndefined();
+    expect(page.textContent).toContain('Rise / hot spot');
+    expect(text(page, 'empirical-rises')).toBe('37.5 K / 42.1 K');
+  });
+});

@@ -65,6 +65,19 @@ describe('SpecFormComponent', () => {
     expect(formFromSpec(spacerOnly!).gapPlacements).toEqual(['spacer']);
   });
 
+  it('binds the air speed (default 0, natural convection) and the core-to-board resistance (default none) to the limits', async () => {
+    expect(field('Air speed').value).toBe('0 m/s');
+    expect(field('Core to board').value).toBe('');
+    fixture.componentInstance.form.patchValue({ vinMin: 36, vinMax: 60, vout: 12, ioutMax: 8, frequency: 100e3 });
+    await type('Air speed', '1.5 m/s');
+    await type('Core to board', '25 K/W');
+    const spec = specFromForm(fixture.componentInstance.form.getRawValue());
+    expect(spec?.limits?.airSpeed).toBe(1.5);
+    expect(spec?.limits?.boardThermalResistance).toBe(25);
+    expect(formFromSpec(spec!).boardThermalResistance).toBe(25);
+    expect(formFromSpec({ ...spec!, limits: {} }).boardThermalResistance).toBeNull();
+  });
+
   it('turns what a person types into the SI spec the API takes', async () => {
     await type('Vin min', '36 V');
     await type('Vin max', '60V');

@@ -27,6 +27,8 @@ export function createSpecForm() {
     diodeDrop: num(0.5),
     currentLimit: num(null),
     ambient: num(DEFAULT_LIMITS.ambient),
+    airSpeed: num(DEFAULT_LIMITS.airSpeed),
+    boardThermalResistance: num(null),
     maxRise: num(DEFAULT_LIMITS.maxRise),
     lossBudget: num(null),
     inductanceTolerance: num(DEFAULT_LIMITS.inductanceTolerance),
@@ -57,6 +59,8 @@ export function specFromForm(v: SpecFormValue): DesignSpec | null {
   const optional = <K extends string>(key: K, value: number | null) => (given(value) ? { [key]: value } : {});
   const limits = {
     ...optional('ambient', v.ambient),
+    ...optional('airSpeed', v.airSpeed),
+    ...optional('boardThermalResistance', v.boardThermalResistance),
     ...optional('maxRise', v.maxRise),
     ...optional('lossBudget', v.lossBudget),
     ...optional('inductanceTolerance', v.inductanceTolerance),
@@ -106,6 +110,8 @@ export function formFromSpec(spec: DesignSpec): Partial<SpecFormValue> {
     diodeDrop: c.diodeDrop ?? 0.5,
     currentLimit: c.currentLimit ?? null,
     ambient: l.ambient ?? DEFAULT_LIMITS.ambient,
+    airSpeed: l.airSpeed ?? DEFAULT_LIMITS.airSpeed,
+    boardThermalResistance: l.boardThermalResistance ?? null,
     maxRise: l.maxRise ?? DEFAULT_LIMITS.maxRise,
     lossBudget: l.lossBudget ?? null,
     inductanceTolerance: l.inductanceTolerance ?? DEFAULT_LIMITS.inductanceTolerance,

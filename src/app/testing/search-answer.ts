@@ -93,12 +93,14 @@ export const ENGINE_RESULT: SearchCandidate['result'] = {
   coreLoss: { steinmetzDensity: 3706, igseDensity: 3983, temperatureFactor: 1, loss: 0.01406 },
   totalLoss: 1.506,
   thermal: {
+    // Thermal figures put in the two-node shape by hand (not recomputed): a pot core gets no core-volume law.
     riseBySurface: 37.53,
-    riseByVolume: 40.39,
+    riseByVolume: null,
     rise: 40.39,
     surfaceTemperature: 80.39,
-    hotSpot: 85.39,
-    hotSpotAllowance: 5,
+    hotSpot: 80.39,
+    coreTemperature: 79.2,
+    windingTemperature: 80.39,
     passes: 4,
     runaway: false,
   },

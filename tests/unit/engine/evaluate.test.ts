@@ -6,6 +6,7 @@ import { COPPER_RESISTIVITY_20C } from '@shared/engine/constants';
 import { copperResistivity } from '@shared/engine/copper';
 import { coreLossTemperatureFactor, igseTriangleLoss } from '@shared/engine/core-loss';
 import { THERMAL_MODEL_LIMIT, coreVolumeThermalResistance, surfaceDissipationRise } from '@shared/engine/thermal';
+import { NetworkSolution, solveNetwork, thermalNetwork } from '@shared/engine/thermal-network';
 import { e25Like, etd34Like, ferriteA, powderP, powderRing, roundWire, sectionOneSpec, tinyLike } from './fixtures';
 
 const base: EvaluateInput = {
@@ -50,23 +51,32 @@ describe('evaluateDesign on a gapped ferrite core', () => {
   it('reports the iGSE below Steinmetz at D = 1/3 for α = 1.4 and adds the losses up', () => {
     expect(result.coreLoss.igseDensity).toBeLessThan(result.coreLoss.steinmetzDensity);
     expect(result.totalLoss).toBeCloseTo(result.copper.dcLoss + result.copper.acLoss + result.coreLoss.loss, 12);
-    expect(result.thermal.rise).toBe(Math.max(result.thermal.riseBySurface, result.thermal.riseByVolume));
-    expect(result.thermal.hotSpot).toBeCloseTo(40 + result.thermal.rise + 5, 12);
+    // the rise is the hotter node's; the hot spot is the winding node
+    expect(result.thermal.rise).toBe(Math.max(result.thermal.coreTemperature!, result.thermal.windingTemperature!) - 40);
+    expect(result.thermal.hotSpot).toBe(result.thermal.windingTemperature);
   });
 
   it('checks saturation in the minimum section Amin (common practice, no source)', () => {
     // Bpk·Ae/Amin = 0.2871·97.1/91.6 = 0.3044 T
     expect(result.flux.peakAtMinimumSection).toBeCloseTo(0.3044, 3);
     expect(result.flux.saturationMargin).toBeCloseTo(1 - result.flux.peakAtMinimumSection / result.flux.saturationAtHotSpot, 12);
-    // Bsat linear through (25 °C, 0.50 T) and (100 °C, 0.39 T) of the invented material
-    expect(result.flux.saturationAtHotSpot).toBeCloseTo(0.5 - (0.11 * (result.thermal.hotSpot - 25)) / 75, 12);
+    // Bsat linear through (25 °C, 0.50 T) and (100 °C, 0.39 T) of the invented material, at the hotter node
+    expect(result.flux.saturationAtHotSpot).toBeCloseTo(0.5 - (0.11 * (result.thermal.surfaceTemperature - 25)) / 75, 12);
   });
 
-  it('uses the same thermal laws and temperature factor as the stand-alone modules', () => {
+  it('uses the same thermal network, laws and temperature factor as the stand-alone modules', () => {
     expect(result.thermal.riseBySurface).toBeCloseTo(surfaceDissipationRise(result.totalLoss, etd34Like.surfaceArea), 9);
     expect(result.thermal.riseByVolume).toBeCloseTo(result.totalLoss * coreVolumeThermalResistance(etd34Like.ve), 9);
-    // the last pass evaluated losses less than 0.1 K away from the reported temperature
-    const factor = coreLossTemperatureFactor(ferriteA.tempCoefficients, result.thermal.surfaceTemperature);
+    // the network solved on its own at the reported core and copper losses gives the reported nodes (within 0.1 K)
+    const nodes = new NetworkSolution();
+    nodes.coreTemperature = 40;
+    nodes.windingTemperature = 40;
+    const copper = result.copper.dcLoss + result.copper.acLoss;
+    solveNetwork(thermalNetwork(etd34Like), { ambient: 40 }, result.coreLoss.loss, copper, nodes, 1e-9, 100);
+    expect(Math.abs(nodes.coreTemperature - result.thermal.coreTemperature!)).toBeLessThan(0.1);
+    expect(Math.abs(nodes.windingTemperature - result.thermal.windingTemperature!)).toBeLessThan(0.1);
+    // the last pass evaluated losses less than 0.1 K away from the reported core temperature
+    const factor = coreLossTemperatureFactor(ferriteA.tempCoefficients, result.thermal.coreTemperature!);
     expect(Math.abs(result.coreLoss.temperatureFactor - factor)).toBeLessThan(0.01);
     const igse = igseTriangleLoss(ferriteA, 100e3, result.flux.swing, 1 / 3);
     expect(result.coreLoss.igseDensity / (igse * result.coreLoss.temperatureFactor)).toBeCloseTo(1, 12);
