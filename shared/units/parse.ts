@@ -29,7 +29,24 @@ function parsePlain(text: string): number | undefined {
   return PLAIN_NUMBER.test(text) ? Number(text) : undefined;
 }
 
-/** Parse `text` as the quantity `kind`; a bare number is taken in the field's own unit (SI, or A/mm² for current density). */
+const PREFIXES: Record<string, number> = { p: 1e-12, n: 1e-9, u: 1e-6, m: 1e-3, k: 1e3, M: 1e6, G: 1e9 };
+/** "400k", "4u7", "2k2", "1M5": a number with an SI prefix and no unit, the prefix standing for the decimal point. */
+const PREFIX_SHORTHAND = /^([+-]?\d+(?:\.\d+)?)\s*([pnumkMG])(\d*)$/;
+
+/** The value of a prefix shorthand in a field whose unit it leaves out, or undefined (also where a prefix letter is the unit). */
+function parseShorthand(text: string, kind: QuantityKind): number | undefined {
+  const info = QUANTITIES[kind];
+  const match = PREFIX_SHORTHAND.exec(text);
+  if (!match || !info.prefixed || match[2] === info.symbol) return undefined;
+  const [, whole, prefix, fraction] = match;
+  if (fraction && whole!.includes('.')) return undefined;
+  return Number(fraction ? `${whole}.${fraction}` : whole) * PREFIXES[prefix!]!;
+}
+
+/**
+ * Parse `text` as the quantity `kind`; a bare number is taken in the field's own unit (SI, or A/mm² for current
+ * density), a number with only a prefix ("400k", "4u7") in the field's unit with that prefix.
+ */
 export function parseQuantity(text: string, kind: QuantityKind): ParseResult {
   const info = QUANTITIES[kind];
   const cleaned = normalise(text);
@@ -37,6 +54,8 @@ export function parseQuantity(text: string, kind: QuantityKind): ParseResult {
 
   const plain = parsePlain(cleaned);
   if (plain !== undefined) return finish(plain / info.displayScale, kind);
+  const shorthand = parseShorthand(cleaned, kind);
+  if (shorthand !== undefined) return finish(shorthand, kind);
 
   if (kind === 'ratio') {
     const percent = /^(.*\S)\s*%$/.exec(cleaned);

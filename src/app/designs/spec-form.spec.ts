@@ -100,6 +100,38 @@ describe('SpecFormComponent', () => {
     expect(specFromForm(fixture.componentInstance.form.getRawValue())).toBeNull();
   });
 
+  it('checks each field against the range the server allows, in the field’s own units', async () => {
+    await type('Vin min', '-60 V');
+    await type('Iout max', '-2 A');
+    await type('Switching frequency', '50 Hz');
+    await type('Inductance tolerance', '300 %');
+    // The ranges come from the request schema (vinMin 0.5…1000 V, ioutMax 0.001…500 A, frequency 1 kHz…10 MHz).
+    expect(errors()).toEqual(expect.arrayContaining(['At least 500 mV', 'At least 1 mA', 'At least 1 kHz']));
+    expect(errors()).toContain('At most 0.5');
+  });
+
+  it('reads a decimal comma and prefix shorthand, and says what it read; warns at Vout and the current limit', async () => {
+    // While typing the field says what it reads; on leaving it the value is shown back as read ("1.5 V").
+    const vinMin = field('Vin min');
+    vinMin.value = '1,5 V';
+    vinMin.dispatchEvent(new Event('input'));
+    await fixture.whenStable();
+    expect(page.querySelector('.gw-read-as')?.textContent).toContain('Read as 1.5 V');
+    vinMin.dispatchEvent(new Event('blur'));
+    await fixture.whenStable();
+    expect(vinMin.value).toBe('1.5 V');
+    await type('Vin min', '36');
+    await type('Switching frequency', '400k');
+    expect(fixture.componentInstance.form.controls.frequency.value).toBe(400e3);
+    await type('Vout', '48 V');
+    expect(page.querySelector('.gw-field-warning')?.textContent).toContain('At or above Vin min (36 V)');
+    await type('Vout', '12 V');
+    await type('Iout max', '10 A');
+    await type('Current limit', '10.5 A');
+    // 10 A with 30 % ripple peaks at 11.5 A
+    expect(page.querySelector('.gw-field-warning')?.textContent).toContain('Below the full-load peak inductor current of 11.5 A');
+  });
+
   it('asks for a fixed inductance instead of a ripple when chosen, and round-trips a stored spec', async () => {
     const form = fixture.componentInstance.form;
     form.patchValue(

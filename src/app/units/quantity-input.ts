@@ -51,6 +51,10 @@ let nextId = 0;
       />
       @if (showError()) {
         <mat-error>{{ message() }}</mat-error>
+      } @else if (warning()) {
+        <mat-hint class="gw-field-warning">{{ warning() }}</mat-hint>
+      } @else if (readAs()) {
+        <mat-hint class="gw-read-as">{{ readAs() }}</mat-hint>
       } @else if (hint()) {
         <mat-hint>{{ hint() }}</mat-hint>
       }
@@ -62,6 +66,9 @@ let nextId = 0;
     }
     .gw-quantity {
       width: 100%;
+    }
+    .gw-field-warning {
+      color: var(--mat-sys-tertiary);
     }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -75,6 +82,8 @@ export class QuantityInput implements ControlValueAccessor, OnInit {
   readonly kind = input.required<QuantityKind>();
   readonly placeholder = input('');
   readonly hint = input('');
+  /** A caution about the value as it stands (e.g. against another field), shown under it while there is no error. */
+  readonly warning = input('');
   readonly required = input(false);
   /** Inclusive limits in SI; messages show them in engineering notation. */
   readonly min = input<number | undefined>(undefined);
@@ -89,6 +98,13 @@ export class QuantityInput implements ControlValueAccessor, OnInit {
   private readonly outsideError = signal<string | null>(null);
 
   private readonly parsed = computed(() => (this.text().trim() ? parseQuantity(this.text(), this.kind()) : null));
+  /** A decimal comma or a prefix shorthand is read, never silently: the field says what it took the text for. */
+  protected readonly readAs = computed(() => {
+    const result = this.parsed();
+    const text = this.text();
+    if (!result?.ok || !(/,/.test(text) || /^\s*[+-]?\d+(\.\d+)?\s*[pnumkMG]\d*\s*$/.test(text))) return '';
+    return `Read as ${formatQuantity(result.value, this.kind())}`;
+  });
   protected readonly message = computed(() => this.ownError() ?? this.outsideError() ?? '');
   protected readonly showError = computed(() => this.touched() && this.message() !== '');
   protected readonly matcher: ErrorStateMatcher = { isErrorState: () => this.showError() };

@@ -152,3 +152,25 @@ describe('round trips', () => {
     );
   });
 });
+
+describe('prefix shorthand', () => {
+  // The letter of an SI prefix standing for the decimal point ("4u7" = 4.7 µ) is the resistor-code style of IEC 60062
+  // (from memory); the field's own unit is implied.
+  it.each([
+    ['400k', 'frequency', 400e3],
+    ['400 k', 'frequency', 400e3],
+    ['4u7', 'inductance', 4.7e-6],
+    ['2k2', 'resistance', 2200],
+    ['1M5', 'frequency', 1.5e6],
+    ['470n', 'inductance', 470e-9],
+    ['15m', 'resistance', 15e-3],
+  ] as const)('reads "%s" in a %s field', (text, kind, expected) => {
+    expect(relative(value(text, kind), expected)).toBeLessThan(1e-12);
+  });
+
+  it('leaves "5m" in a length field to mean metres, and refuses a shorthand in fields without prefixes', () => {
+    expect(value('5m', 'length')).toBe(5);
+    expect(error('400k', 'temperature')).toMatch(/not a number with a unit|Expected/);
+    expect(error('4u7.1', 'inductance')).toMatch(/not a number with a unit|Expected/);
+  });
+});
