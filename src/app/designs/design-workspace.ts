@@ -88,7 +88,8 @@ export class DesignWorkspace {
   protected readonly spec = toSignal(
     this.specForm.valueChanges.pipe(
       startWith(null),
-      map(() => specFromForm(this.specForm.getRawValue())),
+      // A field out of its range (said at the field, in its units) sends nothing: no server message in SI and internal names.
+      map(() => (this.specForm.valid ? specFromForm(this.specForm.getRawValue()) : null)),
       distinctUntilChanged((a, b) => JSON.stringify(a) === JSON.stringify(b)),
     ),
     { initialValue: null as DesignSpec | null },
