@@ -14,8 +14,10 @@ import { windingResistance } from './copper';
 import { HOT_SPOT_ALLOWANCE } from './constants';
 import { fluxInFitRange, frequencyInFitRange, igseTriangleLoss, steinmetzLoss } from './core-loss';
 import { foilDelta, roundWireDelta } from './dowell';
+import { gapFieldLoss, gapFieldSum, gapMmfShare, rippleTransverseLoss, type GapFieldLayout, type GapFieldSources } from './gap-field-loss';
+import { spacerEquivalentGap } from './gap';
 import { harmonicWeights, type HarmonicWeights } from './harmonics';
-import { resolveLimits, type ConverterSpec, type DesignLimits } from './inputs';
+import { DEFAULT_KEEP_OUT, resolveLimits, type ConverterSpec, type DesignLimits } from './inputs';
 import { operatingPoint, type OperatingPoint } from './operating-point';
 import type { MagneticDesign } from './magnetic-design';
 import { saturationFlux, saturationMargin } from './saturation';
@@ -109,9 +111,28 @@ export interface WireContext {
   sums: AcLossSums;
   /** The same sums at each copper temperature of the spec's acGrid. */
   acTable: AcLossTable;
+  /**
+   * Σ (I_n²/2)·P′_n of one conductor position in a transverse field of 1 A/m (the strands of a litz bundle counted)
+   * at each node of acGrid, for the gap-field loss; zeros for foil, which that model does not cover.
+   */
+  gapTable: Float64Array;
 }
 
-export function prepareWire(wire: WireOption, ctx: SpecContext, sumsByDelta?: Map<number, AcLossParts>): WireContext {
+/** A strand's ripple transverse-field loss at each node of the spec's AC grid (gap-field-loss.ts). */
+function transverseLossNodes(diameter: number, ctx: SpecContext): Float64Array {
+  const nodes = new Float64Array(ctx.acGrid.temperatures.length);
+  for (let i = 0; i < nodes.length; i++) {
+    nodes[i] = rippleTransverseLoss(diameter, ctx.spec.frequency, ctx.acGrid.temperatures[i]!, ctx.harmonics);
+  }
+  return nodes;
+}
+
+export function prepareWire(
+  wire: WireOption,
+  ctx: SpecContext,
+  sumsByDelta?: Map<number, AcLossParts>,
+  transverseByDiameter?: Map<number, Float64Array>,
+): WireContext {
   const isLitz = wire.kind === 'litz';
   // Close-wound layers: pitch = insulated diameter; inside litz, strands share the bundle's diameter.
   const porosity = isLitz
@@ -132,7 +153,20 @@ export function prepareWire(wire: WireOption, ctx: SpecContext, sumsByDelta?: Ma
     layersPerWindingLayer: isLitz ? Math.max(1, Math.round(Math.sqrt(wire.strands))) : 1,
     sums: parts.sums,
     acTable: parts.acTable,
+    gapTable: gapTableOf(wire, ctx, transverseByDiameter),
   };
+}
+
+function gapTableOf(wire: WireOption, ctx: SpecContext, byDiameter?: Map<number, Float64Array>): Float64Array {
+  if (wire.kind === 'foil') return new Float64Array(ctx.acGrid.temperatures.length);
+  let strand = byDiameter?.get(wire.strandDiameter);
+  if (!strand) {
+    strand = transverseLossNodes(wire.strandDiameter, ctx);
+    byDiameter?.set(wire.strandDiameter, strand);
+  }
+  // Round wire: each wire in hand is its own position; litz: the bundle's strands share one.
+  const perPosition = wire.kind === 'litz' ? wire.strands : Math.max(1, wire.strands / wire.conductorsPerTurn);
+  return perPosition === 1 ? strand : strand.map((v) => v * perPosition);
 }
 
 type AcLossParts = Pick<WireContext, 'sums' | 'acTable'>;
@@ -143,7 +177,8 @@ type AcLossParts = Pick<WireContext, 'sums' | 'acTable'>;
  */
 export function prepareWires(wires: readonly WireOption[], ctx: SpecContext): WireContext[] {
   const sumsByDelta = new Map<number, AcLossParts>();
-  return wires.map((wire) => prepareWire(wire, ctx, sumsByDelta));
+  const transverseByDiameter = new Map<number, Float64Array>();
+  return wires.map((wire) => prepareWire(wire, ctx, sumsByDelta, transverseByDiameter));
 }
 
 /** Copper area of one turn of this wire on this core (m²). */
@@ -191,6 +226,10 @@ export class CandidateFigures {
   acFactor = 0;
   copperLossDc = 0;
   copperLossAc = 0;
+  /** Winding loss from the gap's fringing field (W), at the part's temperature. */
+  gapLoss = 0;
+  /** Clearance from the centre-leg face to the first layer's copper this evaluation used (m). */
+  keepOut = 0;
   fluxDc = 0;
   fluxSwing = 0;
   fluxPeak = 0;
@@ -239,20 +278,64 @@ export function evaluateCandidate(
   mag: MagneticDesign,
   wireCtx: WireContext,
   out: CandidateFigures,
+  keepOut = ctx.limits.keepOut,
 ): boolean {
-  evaluateWinding(ctx, coreCtx, matCtx, mag.turns, wireCtx, out);
+  evaluateWinding(ctx, coreCtx, matCtx, mag, wireCtx, out, keepOut);
   return applyMagnetics(ctx, coreCtx.core, matCtx.material, mag, out);
 }
 
-/** Everything that depends on the turns and the wire but not on the gap: build, copper, core loss, temperature. */
+/** Scratch of the gap-field sum, reused so an evaluation allocates nothing. */
+const fieldLayout: GapFieldLayout = {
+  turns: 0,
+  turnsPerLayer: 0,
+  layers: 0,
+  conductorsPerTurn: 1,
+  overallDiameter: 0,
+  keepOut: 0,
+  legPerimeter: 0,
+};
+const fieldSources: GapFieldSources = { centreGap: 0, centreShare: 0, outerGap: 0, outerShare: 0, windowWidth: 0 };
+
+/**
+ * The gap-field loss per unit of the wire's gapTable (gap-field-loss.ts): 2·N²·Σ L·share²·|h|². A ground gap faces
+ * the winding's middle; a spacer opens a gap in the centre leg there and one in the outer legs across the window;
+ * distributed-gap cores, rings and foil have none here. The turn length at the leg face follows from the full
+ * bobbin's MLT (mid-build at the default keep-out plus half the bobbin height).
+ */
+export function gapLossScale(core: CoreShape, material: CoreMaterial, mag: MagneticDesign, out: CandidateFigures, wire: WireOption, keepOut: number): number {
+  if (mag.kind !== 'air-gap' || mag.totalGap <= 0 || core.ring || wire.kind === 'foil') return 0;
+  const ratio = core.centreToOuterLegAreaRatio ?? 1;
+  const spacer = mag.placement === 'spacer';
+  const share = gapMmfShare(spacer ? spacerEquivalentGap(mag.spacer, ratio) : mag.totalGap, mag.fringingFactor, core.le, material.permeability);
+  fieldSources.centreGap = spacer ? mag.spacer : mag.totalGap;
+  fieldSources.centreShare = spacer ? share / (1 + ratio) : share;
+  fieldSources.outerGap = spacer ? mag.spacer : 0;
+  fieldSources.outerShare = spacer ? (share * ratio) / (1 + ratio) : 0;
+  fieldSources.windowWidth = core.windowArea / core.windowHeight;
+  fieldLayout.turns = mag.turns;
+  fieldLayout.turnsPerLayer = out.turnsPerLayer;
+  fieldLayout.layers = out.layers;
+  fieldLayout.conductorsPerTurn = wire.conductorsPerTurn;
+  fieldLayout.overallDiameter = wire.overallDiameter;
+  fieldLayout.keepOut = keepOut;
+  fieldLayout.legPerimeter = Math.max(2 * Math.sqrt(Math.PI * core.ae), core.mlt - 2 * Math.PI * (DEFAULT_KEEP_OUT + core.bobbinHeight / 2));
+  return gapFieldLoss(mag.turns, gapFieldSum(fieldLayout, fieldSources), 1, 1);
+}
+
+/**
+ * Build, copper (with the gap's fringing-field loss at this keep-out), core loss and temperature of a winding on a
+ * core with the magnetic design's turns and gap; applyMagnetics adds what the gap decides for saturation.
+ */
 export function evaluateWinding(
   ctx: SpecContext,
   coreCtx: CoreContext,
   matCtx: MaterialContext,
-  turns: number,
+  mag: MagneticDesign,
   wireCtx: WireContext,
   out: CandidateFigures,
+  keepOut = ctx.limits.keepOut,
 ): void {
+  const turns = mag.turns;
   const { op, limits } = ctx;
   const core = coreCtx.core;
   const material = matCtx.material;
@@ -264,7 +347,10 @@ export function evaluateWinding(
   layWinding(n, wire, core, out);
   const copperArea = turnCopperArea(wireCtx, core);
   out.copperFill = windowFill(n, copperArea, core.windowArea);
-  if (!fitsBuildHeight(out.buildHeight, core)) failures |= FAILURE.build;
+  // The bobbin height is the build at the default keep-out (the bobbin wall); more keep-out takes from it.
+  out.keepOut = keepOut;
+  const extraKeepOut = core.ring ? 0 : Math.max(0, keepOut - DEFAULT_KEEP_OUT);
+  if (!fitsBuildHeight(out.buildHeight + extraKeepOut, core)) failures |= FAILURE.build;
   if (out.copperFill > limits.windowUtilisation) failures |= FAILURE.fill;
 
   out.resistance20 = windingResistance(n, out.meanTurnLength, copperArea, 20);
@@ -283,6 +369,8 @@ export function evaluateWinding(
   loss.acGrid = ctx.acGrid;
   loss.copperAboveSurface = HOT_SPOT_ALLOWANCE;
   loss.coreLossReference = out.coreLossDensityIgse * core.ve;
+  loss.gapLossScale = gapLossScale(core, material, mag, out, wire, keepOut);
+  loss.gapLossWeights = wireCtx.gapTable;
   loss.temperatureCoefficients = material.tempCoefficients;
   const thermal = solveTemperature(limits.ambient, loss, core.surfaceArea, coreCtx.thermalResistanceByVolume, out.thermal);
   if (!thermal.converged) warnings |= WARNING.thermalNotConverged;
@@ -299,6 +387,7 @@ export function evaluateWinding(
   out.acFactor = thermal.rippleWeight / wireCtx.acTable.meanSquare;
   out.copperLossDc = dcCopperLoss(thermal.resistance, op.ioutMax);
   out.copperLossAc = thermal.resistance * thermal.rippleWeight;
+  out.gapLoss = thermal.gapLoss;
   out.coreLoss = loss.coreLossReference * thermal.temperatureFactor;
   out.totalLoss = thermal.totalLoss;
   out.riseBySurface = thermal.rise.bySurface;

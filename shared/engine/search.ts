@@ -13,6 +13,7 @@ import {
   prepareWires,
   type CoreContext,
   type MaterialContext,
+  type SpecContext,
   type WireContext,
 } from './kernel';
 import { designMagnetics, windowTurnLimit, type MagneticDesign } from './magnetic-design';
@@ -111,6 +112,42 @@ export function compatible(core: CoreShape, material: CoreMaterial): boolean {
 
 const cm4 = (m4: number) => (m4 * 1e8).toFixed(2);
 
+/** Keep-outs beyond the limit's the search tries when the gap-field loss is worth it (m). */
+export const EXTRA_KEEP_OUTS = [0.5e-3, 1e-3, 2e-3] as const;
+/** More keep-out is tried only when the gap-field loss is at least this fraction of the total loss. */
+const KEEP_OUT_TRY_FRACTION = 0.02;
+
+/**
+ * The winding at the limit's keep-out, or at a larger one (EXTRA_KEEP_OUTS) when that lowers the total loss without a
+ * failure the limit's keep-out did not have: window traded for distance from the gap. Leaves the best in `out`.
+ */
+function evaluateWithKeepOut(
+  ctx: SpecContext,
+  coreCtx: CoreContext,
+  matCtx: MaterialContext,
+  mag: MagneticDesign,
+  wireCtx: WireContext,
+  out: CandidateFigures,
+): void {
+  const base = ctx.limits.keepOut;
+  evaluateWinding(ctx, coreCtx, matCtx, mag, wireCtx, out, base);
+  if (!(out.gapLoss > KEEP_OUT_TRY_FRACTION * out.totalLoss)) return;
+  const baseFailures = out.windingFailures;
+  let bestKeepOut = base;
+  let bestLoss = out.totalLoss;
+  let last = base;
+  for (const extra of EXTRA_KEEP_OUTS) {
+    evaluateWinding(ctx, coreCtx, matCtx, mag, wireCtx, out, base + extra);
+    last = base + extra;
+    if ((out.windingFailures & ~baseFailures) !== 0) break;
+    if (out.totalLoss < bestLoss) {
+      bestLoss = out.totalLoss;
+      bestKeepOut = base + extra;
+    }
+  }
+  if (last !== bestKeepOut) evaluateWinding(ctx, coreCtx, matCtx, mag, wireCtx, out, bestKeepOut);
+}
+
 const nextTurns = (turns: number) => (turns < TURNS_GEOMETRIC_FROM ? turns + 1 : Math.ceil(turns * TURNS_GEOMETRIC_STEP));
 
 export function searchCandidates(input: SearchInput): SearchResult {
@@ -197,12 +234,12 @@ export function searchCandidates(input: SearchInput): SearchResult {
           const w = choice[t]!;
           if (w < 0) continue;
           anyWire = true;
-          // Winding, losses and temperature are the same for every placement; only the gap's share is redone.
-          evaluateWinding(ctx, coreCtxs[c]!, materialCtxs[m]!, turns, wireCtxs[w]!, figures);
-          if (figures.totalLoss < stepLowest) stepLowest = figures.totalLoss;
           for (let p = 0; p < placements.length; p++) {
             evaluated++;
             const placement = placements[p]!;
+            // The gap-field loss depends on the gap, so the winding's losses and temperature are evaluated per placement.
+            evaluateWithKeepOut(ctx, coreCtxs[c]!, materialCtxs[m]!, mags[p]!, wireCtxs[w]!, figures);
+            if (figures.totalLoss < stepLowest) stepLowest = figures.totalLoss;
             if (applyMagnetics(ctx, core, material, mags[p]!, figures)) {
               pair.feasible = true;
               recordFeasible(groups, pairGroups, { c, m, t, turns, w, placement }, figures, core, material, wireCtxs[w]!);
@@ -258,7 +295,7 @@ export function searchCandidates(input: SearchInput): SearchResult {
     const placement = GAP_PLACEMENTS[g.placement]!;
     const mag = designMagnetics(core, material, ctx, g.turns, 'auto', placement);
     const wireCtx = wireCtxs[g.wire]!;
-    evaluateCandidate(ctx, coreCtxs[g.core]!, materialCtxs[g.material]!, mag, wireCtx, figures);
+    evaluateCandidate(ctx, coreCtxs[g.core]!, materialCtxs[g.material]!, mag, wireCtx, figures, g.keepOut);
     return {
       rank: rankOf[i]!,
       pareto: onVolumeFront.has(i),

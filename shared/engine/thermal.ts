@@ -52,6 +52,13 @@ export interface WoundCoreLoss {
   copperAboveSurface: number;
   /** Core loss with the temperature factor 1 (W). */
   coreLossReference: number;
+  /**
+   * Eddy loss the gap's fringing field drives in the winding (gap-field-loss.ts): gapLossScale (1/m·…) times the
+   * wire's ripple transverse-field loss at the grid's nodes, interpolated at the part's temperature like the ripple
+   * weight; scale 0 for none.
+   */
+  gapLossScale: number;
+  gapLossWeights: Float64Array;
   temperatureCoefficients: TemperatureCoefficients | undefined;
 }
 
@@ -64,6 +71,8 @@ export function emptyWoundCoreLoss(): WoundCoreLoss {
     acGrid: undefined,
     copperAboveSurface: 0,
     coreLossReference: 0,
+    gapLossScale: 0,
+    gapLossWeights: new Float64Array(AC_TEMPERATURE_NODES),
     temperatureCoefficients: undefined,
   };
 }
@@ -81,6 +90,8 @@ export class ThermalSolution {
   /** Winding resistance (at the hot spot), ripple weight Σ Fr·I_n²/2, core-loss factor and total loss of the last pass. */
   resistance = 0;
   rippleWeight = 0;
+  /** Winding loss from the gap's fringing field in the last pass (W). */
+  gapLoss = 0;
   temperatureFactor = 1;
   /** The factor as the coefficients give it, before the floor; ≤ 0 means the fit is invalid at that temperature. */
   rawTemperatureFactor = 1;
@@ -110,6 +121,7 @@ export function solveTemperature(
   let byVolume = 0;
   let resistance = 0;
   let rippleWeight = 0;
+  let gapLoss = 0;
   let rawFactor = 1;
   let temperatureFactor = 1;
   let surface = ambient;
@@ -123,7 +135,11 @@ export function solveTemperature(
     rippleWeight = loss.acGrid ? interpolateAtTemperature(loss.acGrid, loss.rippleWeights, surface) : loss.rippleWeights[0]!;
     rawFactor = coreLossTemperatureFactor(loss.temperatureCoefficients, surface);
     temperatureFactor = rawFactor > TEMPERATURE_FACTOR_FLOOR ? rawFactor : TEMPERATURE_FACTOR_FLOOR;
-    power = resistance * (loss.dcCurrentSquare + rippleWeight) + loss.coreLossReference * temperatureFactor;
+    gapLoss =
+      loss.gapLossScale > 0
+        ? loss.gapLossScale * (loss.acGrid ? interpolateAtTemperature(loss.acGrid, loss.gapLossWeights, surface) : loss.gapLossWeights[0]!)
+        : 0;
+    power = resistance * (loss.dcCurrentSquare + rippleWeight) + gapLoss + loss.coreLossReference * temperatureFactor;
     bySurface = surfaceDissipationRise(power, surfaceArea);
     byVolume = power * volumeThermalResistance;
     rise = bySurface > byVolume ? bySurface : byVolume;
@@ -138,6 +154,7 @@ export function solveTemperature(
   out.rise.design = rise < cap ? rise : cap;
   out.resistance = resistance;
   out.rippleWeight = rippleWeight;
+  out.gapLoss = gapLoss;
   out.temperatureFactor = temperatureFactor;
   out.rawTemperatureFactor = rawFactor;
   out.coreTemperature = surface;

@@ -104,8 +104,8 @@ export const evaluationResultSchema = z.object({
     'saturationMargin',
     'requiredMargin',
   ),
-  winding: numbers('turnsPerLayer', 'layers', 'buildHeight', 'buildAvailable', 'copperFill', 'meanTurnLength', 'wireLength'),
-  copper: numbers('resistance20', 'resistanceHot', 'acFactor', 'skinDepth', 'penetrationRatio', 'dcLoss', 'acLoss'),
+  winding: numbers('turnsPerLayer', 'layers', 'buildHeight', 'buildAvailable', 'copperFill', 'meanTurnLength', 'wireLength', 'keepOut'),
+  copper: numbers('resistance20', 'resistanceHot', 'acFactor', 'skinDepth', 'penetrationRatio', 'dcLoss', 'acLoss', 'gapLoss'),
   coreLoss: numbers('steinmetzDensity', 'igseDensity', 'temperatureFactor', 'loss'),
   totalLoss: z.number(),
   thermal: numbers('riseBySurface', 'riseByVolume', 'rise', 'surfaceTemperature', 'hotSpot', 'hotSpotAllowance', 'passes').extend({

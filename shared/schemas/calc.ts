@@ -113,6 +113,7 @@ export const designLimitsSchema = z
       .optional(),
     minPermeabilityAtPeak: rangeNumber('minPermeabilityAtPeak', 0, 1, '', 'Smallest L(Ipk)/L0 of a powder core').optional(),
     minGap: rangeNumber('minGap', 0, 5e-3, 'm', 'Smallest ground gap or spacer a workshop can hold').optional(),
+    keepOut: rangeNumber('keepOut', 0, 10e-3, 'm', "Clearance from the centre leg (and its gap) to the winding's copper").optional(),
     gapPlacements: uniqueListSchema(z.enum(GAP_PLACEMENTS), GAP_PLACEMENTS.length, 'gapPlacements', 1)
       .meta({ description: 'Gap placements the search may propose for air-gap cores: "ground", "spacer" (default both)' })
       .optional(),

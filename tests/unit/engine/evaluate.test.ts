@@ -49,7 +49,7 @@ describe('evaluateDesign on a gapped ferrite core', () => {
 
   it('reports the iGSE below Steinmetz at D = 1/3 for α = 1.4 and adds the losses up', () => {
     expect(result.coreLoss.igseDensity).toBeLessThan(result.coreLoss.steinmetzDensity);
-    expect(result.totalLoss).toBeCloseTo(result.copper.dcLoss + result.copper.acLoss + result.coreLoss.loss, 12);
+    expect(result.totalLoss).toBeCloseTo(result.copper.dcLoss + result.copper.acLoss + result.copper.gapLoss + result.coreLoss.loss, 12);
     expect(result.thermal.rise).toBe(Math.max(result.thermal.riseBySurface, result.thermal.riseByVolume));
     expect(result.thermal.hotSpot).toBeCloseTo(40 + result.thermal.rise + 5, 12);
   });
