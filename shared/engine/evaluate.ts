@@ -286,7 +286,15 @@ export function evaluateDesign(input: EvaluateInput): EvaluationResult {
   const mag = designMagnetics(input.core, input.material, ctx, input.turns, input.gap, input.placement);
   const wireCtx = prepareWire(input.wire, ctx);
   const figures = new CandidateFigures();
-  evaluateCandidate(ctx, prepareCore(input.core), prepareMaterial(input.material, ctx), mag, wireCtx, figures, input.keepOut ?? ctx.limits.keepOut);
+  evaluateCandidate(
+    ctx,
+    prepareCore(input.core),
+    prepareMaterial(input.material, ctx),
+    mag,
+    wireCtx,
+    figures,
+    input.keepOut ?? ctx.limits.keepOut,
+  );
   return assembleResult(ctx, input.core, input.material, mag, wireCtx, figures);
 }
 

@@ -302,11 +302,23 @@ const fieldSources: GapFieldSources = { centreGap: 0, centreShare: 0, outerGap: 
  * distributed-gap cores, rings and foil have none here. The turn length at the leg face follows from the full
  * bobbin's MLT (mid-build at the default keep-out plus half the bobbin height).
  */
-export function gapLossScale(core: CoreShape, material: CoreMaterial, mag: MagneticDesign, out: CandidateFigures, wire: WireOption, keepOut: number): number {
+export function gapLossScale(
+  core: CoreShape,
+  material: CoreMaterial,
+  mag: MagneticDesign,
+  out: CandidateFigures,
+  wire: WireOption,
+  keepOut: number,
+): number {
   if (mag.kind !== 'air-gap' || mag.totalGap <= 0 || core.ring || wire.kind === 'foil') return 0;
   const ratio = core.centreToOuterLegAreaRatio ?? 1;
   const spacer = mag.placement === 'spacer';
-  const share = gapMmfShare(spacer ? spacerEquivalentGap(mag.spacer, ratio) : mag.totalGap, mag.fringingFactor, core.le, material.permeability);
+  const share = gapMmfShare(
+    spacer ? spacerEquivalentGap(mag.spacer, ratio) : mag.totalGap,
+    mag.fringingFactor,
+    core.le,
+    material.permeability,
+  );
   fieldSources.centreGap = spacer ? mag.spacer : mag.totalGap;
   fieldSources.centreShare = spacer ? share / (1 + ratio) : share;
   fieldSources.outerGap = spacer ? mag.spacer : 0;
@@ -318,7 +330,10 @@ export function gapLossScale(core: CoreShape, material: CoreMaterial, mag: Magne
   fieldLayout.conductorsPerTurn = wire.conductorsPerTurn;
   fieldLayout.overallDiameter = wire.overallDiameter;
   fieldLayout.keepOut = keepOut;
-  fieldLayout.legPerimeter = Math.max(2 * Math.sqrt(Math.PI * core.ae), core.mlt - 2 * Math.PI * (DEFAULT_KEEP_OUT + core.bobbinHeight / 2));
+  fieldLayout.legPerimeter = Math.max(
+    2 * Math.sqrt(Math.PI * core.ae),
+    core.mlt - 2 * Math.PI * (DEFAULT_KEEP_OUT + core.bobbinHeight / 2),
+  );
   return gapFieldLoss(mag.turns, gapFieldSum(fieldLayout, fieldSources), 1, 1);
 }
 
