@@ -20,6 +20,6 @@ export function calcRouter(calc: CalcService): Router {
     if (gzip) res.setHeader('Content-Encoding', 'gzip');
     res.end(bytes);
   });
-  mount(router, evaluate, ({ body, query }) => calc.evaluate(body, { withFrequencySweep: query.sweep === 'frequency' }));
+  mount(router, evaluate, ({ body, query }) => calc.evaluate(body, { sweep: query.sweep }));
   return router;
 }

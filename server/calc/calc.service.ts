@@ -4,6 +4,7 @@ import {
   evaluateDesign,
   igsePiecewiseLinearLoss,
   igseTriangleLoss,
+  lossMap,
   lossVersusFrequency,
   operatingPoint,
   rippleHarmonics,
@@ -14,6 +15,7 @@ import type { CoreMaterial } from '@shared/engine/types';
 import { rollOffToEngine } from '@shared/fitting/rolloff-fit';
 import { behaviourToQuadratic } from '@shared/fitting/temperature-fit';
 import type { CoreLossRequest, EvaluateRequest, InlineMaterial, OperatingPointRequest, SearchRequest } from '@shared/schemas/calc';
+import type { EvaluateSweep } from '@shared/schemas/calc-answers';
 import type { CatalogueService } from '../catalogue/catalogue.service.ts';
 import { badRequest } from '../http/errors.ts';
 import { toCoreMaterial } from '../materials/material-view.ts';
@@ -115,7 +117,7 @@ export class CalcService {
     };
   }
 
-  async evaluate(request: EvaluateRequest, options: { withFrequencySweep?: boolean } = {}) {
+  async evaluate(request: EvaluateRequest, options: { sweep?: EvaluateSweep } = {}) {
     const core = this.catalogue.core(request.coreId);
     const [material] = request.material
       ? await this.resolveMaterials([], [request.material])
@@ -132,8 +134,18 @@ export class CalcService {
       wire,
     };
     const result = engineCall(() => evaluateDesign(input), 'spec.');
-    const sweep = options.withFrequencySweep ? lossVersusFrequency(input, frequencySweepAround(request.spec.frequency)) : undefined;
-    return { engineVersion: ENGINE_VERSION, wire, result, ...(sweep ? { lossVersusFrequency: sweep } : {}) };
+    const sweep =
+      options.sweep === 'frequency' || options.sweep === 'all'
+        ? lossVersusFrequency(input, frequencySweepAround(request.spec.frequency))
+        : undefined;
+    const map = options.sweep === 'load' || options.sweep === 'all' ? engineCall(() => lossMap(input), 'spec.') : undefined;
+    return {
+      engineVersion: ENGINE_VERSION,
+      wire,
+      result,
+      ...(sweep ? { lossVersusFrequency: sweep } : {}),
+      ...(map ? { lossMap: map } : {}),
+    };
   }
 
   /** Stored materials by id (string ids as the API carries them) plus inline ones, in the engine's form. */

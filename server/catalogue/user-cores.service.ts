@@ -19,6 +19,19 @@ import type { UserCoreRow, UserCoreValues, UserCoresRepository } from './user-co
 
 export type CoreOrigin = 'shipped' | 'user';
 
+/** A core by id: shipped first, then current user cores that are not retired (also what a check worker reads). */
+export async function coreById(
+  catalogue: CatalogueService,
+  repo: Pick<UserCoresRepository, 'listCurrent'>,
+  id: string,
+): Promise<CoreShape> {
+  const shipped = catalogue.shippedCores().find((c) => c.id === id);
+  if (shipped) return shipped;
+  const user = (await repo.listCurrent(false)).find((r) => r.shape.id === id);
+  if (!user) throw badRequest(`No core "${id}" in the catalogue.`, { coreId: `Unknown core "${id}"` });
+  return user.shape;
+}
+
 function listed(shape: CoreShape, origin: CoreOrigin, role: Role, row?: WithAuthor<UserCoreRow>): ListedCore {
   return {
     ...shape,
@@ -124,12 +137,8 @@ export class UserCoresService {
   }
 
   /** A core by id for calculations: shipped first, then current user cores that are not retired. */
-  async core(id: string): Promise<CoreShape> {
-    const shipped = this.catalogue.shippedCores().find((c) => c.id === id);
-    if (shipped) return shipped;
-    const user = (await this.repo.listCurrent(false)).find((r) => r.shape.id === id);
-    if (!user) throw badRequest(`No core "${id}" in the catalogue.`, { coreId: `Unknown core "${id}"` });
-    return user.shape;
+  core(id: string): Promise<CoreShape> {
+    return coreById(this.catalogue, this.repo, id);
   }
 
   async history(id: number, role: Role) {

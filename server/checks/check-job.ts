@@ -1,5 +1,5 @@
 import { EngineInputError } from '@shared/engine/index';
-import type { RollOffFit } from '@shared/engine/types';
+import type { CoreShape, RollOffFit } from '@shared/engine/types';
 import { converterSpecSchema } from '@shared/schemas/calc';
 import { readStoredResult, wireRequestOf } from '@shared/schemas/designs';
 import type { Logger } from 'pino';
@@ -22,8 +22,8 @@ class CheckCancelled extends Error {}
 export interface CheckHandlerDeps {
   repo: ChecksRepository;
   materials: Pick<MaterialsRepository, 'findByIds'>;
-  /** The shipped cores and wires the field model is built from. */
-  catalogue: Pick<CatalogueService, 'core' | 'wire'>;
+  /** The cores (shipped and user cores) and wires the field model is built from. */
+  cores: { core: (id: string) => Promise<CoreShape>; wire: CatalogueService['wire'] };
   logger: Logger;
   /** The circuit check itself (tests may wrap it, e.g. to fail an attempt as a killed worker would). */
   circuit?: (input: CircuitCheckInput, run: CircuitCheckRun) => Promise<unknown>;
@@ -88,16 +88,16 @@ async function fieldInput(deps: CheckHandlerDeps, revisionId: number): Promise<F
   const { revision, evaluation } = await storedEvaluation(deps, revisionId);
   let core;
   try {
-    core = deps.catalogue.core(evaluation.core.id);
+    core = await deps.cores.core(evaluation.core.id);
   } catch {
-    throw new CheckRefused(`The core ${evaluation.core.id} is not in the catalogue the check worker reads (shipped cores only).`);
+    throw new CheckRefused(`The core ${evaluation.core.id} is neither a shipped core nor a current user core.`);
   }
   const [material] = revision.materialId === null ? [] : await deps.materials.findByIds([revision.materialId]);
   if (!material) throw new CheckRefused('The revision’s material version is gone; the field model needs its permeability.');
   return {
     evaluation,
     core,
-    wire: deps.catalogue.wire(wireRequestOf(evaluation.wire)),
+    wire: deps.cores.wire(wireRequestOf(evaluation.wire)),
     permeability: toCoreMaterial(material).permeability,
     title: `${evaluation.core.id}, ${evaluation.turns} turns, ${evaluation.gap.placement} gap`,
   };

@@ -4,8 +4,10 @@
 import { biasedInductance, dutyCycle, operatingPoint, rollOffIntegral, type EvaluationResult } from '@shared/engine/index';
 import type { ConverterSpec } from '@shared/engine/inputs';
 import type { RollOffFit } from '@shared/engine/types';
-import type { CircuitCheckResult, CircuitCorner } from '@shared/schemas/checks';
-import { simulateBuckSteady, type BuckBench, type FluxTable, type SimulatedCurrent } from '../solvers/buck-bench.ts';
+import type { CircuitCheckResult, CircuitCorner, ExportedModelRun } from '@shared/schemas/checks';
+import { ENGINE_VERSION } from '@shared/engine/index';
+import { buildSpiceSubcircuit } from '../exports/spice.ts';
+import { simulateBuck, simulateBuckSteady, type BuckBench, type FluxTable, type SimulatedCurrent } from '../solvers/buck-bench.ts';
 import { decimateWaveform, predictedTriangle } from './waveforms.ts';
 
 export interface CircuitCheckInput {
@@ -163,6 +165,63 @@ export interface CircuitCheckRun {
   onProgress?: (progress: number) => Promise<void>;
   /** Simulates one corner's bench to its periodic steady state, from a guess of the current at switch-on (A). */
   simulate?: (bench: BuckBench, guess: number) => Promise<SimulatedCurrent>;
+  /** Simulates a bench for its given periods from its given start (the exported model's run). */
+  simulateFrom?: (bench: BuckBench) => Promise<SimulatedCurrent>;
+}
+
+/** Periods the exported model runs from the steady state the Vin-max corner found; the last one is read. */
+const EXPORTED_MODEL_PERIODS = 6;
+
+/**
+ * The exported subcircuit (buildSpiceSubcircuit, as the export writes it) between the bench's switch node and output at
+ * the Vin-max corner, started at the valley of the average current that corner settled to: the subcircuit's
+ * resistances do not change the DC loop resistance (its AC branch and core resistor are shorted by inductors at DC), so
+ * that average is its steady state too, and a few periods settle its small AC branch.
+ */
+export async function runExportedModel(
+  input: CircuitCheckInput,
+  corner: PlannedCorner,
+  settledAverage: number,
+  simulateFrom: (bench: BuckBench) => Promise<SimulatedCurrent>,
+): Promise<ExportedModelRun> {
+  const { evaluation } = input;
+  const inductance = evaluation.inductance.atLoad;
+  // The subcircuit carries its own winding resistance (RDC at the hot spot): the duty is set for it, so a spec that
+  // names another inductor resistance does not move the subcircuit's steady state away from the load current.
+  const spec: ConverterSpec = { ...corner.bench.spec, inductorResistance: evaluation.copper.resistanceHot };
+  const { vin } = corner.bench;
+  const ripple = engineRipple(spec, vin, corner.load, inductance);
+  const startCurrent = settledAverage - ripple / 2;
+  const text = buildSpiceSubcircuit(
+    { designNumber: 'DUT', title: 'design under test', revision: 0, engineVersion: ENGINE_VERSION },
+    evaluation,
+  );
+  const name = /^\.SUBCKT\s+(\S+)/m.exec(text)![1]!;
+  const bench: BuckBench = {
+    ...corner.bench,
+    spec,
+    duty: dutyCycle(spec, vin, corner.load),
+    subcircuit: { name, text },
+    initialCurrent: startCurrent,
+    periods: EXPORTED_MODEL_PERIODS,
+    reltol: 1e-6,
+  };
+  const simulated = await simulateFrom(bench);
+  const predicted = { ripple, peak: corner.load + ripple / 2, average: corner.load, loss: evaluation.totalLoss };
+  const dissipation = simulated.dissipation ?? Number.NaN;
+  return {
+    vin,
+    load: corner.load,
+    inductance,
+    simulated: { ripple: simulated.ripple, peak: simulated.peak, average: simulated.average, dissipation },
+    predicted,
+    differencePercent: {
+      ripple: percent(simulated.ripple, predicted.ripple),
+      peak: percent(simulated.peak, predicted.peak),
+      dissipation: percent(dissipation, predicted.loss),
+    },
+    drift: simulated.drift,
+  };
 }
 
 /** Simulates every corner in turn and compares each with the engine's prediction. */
@@ -170,11 +229,18 @@ export async function runCircuitCheck(input: CircuitCheckInput, run: CircuitChec
   const plan = planCircuitCheck(input);
   const simulate = run.simulate ?? ((bench: BuckBench, guess: number) => simulateBuckSteady(bench, guess, 30_000));
   const corners: CircuitCorner[] = [];
+  let exportedModel: ExportedModelRun | undefined;
+  const steps = plan.corners.length + 1;
   for (const corner of plan.corners) {
     // The engine's valley is only where the search starts: the steady state is the simulator's own.
-    corners.push(compareCorner(corner, await simulate(corner.bench, corner.predicted.valley)));
-    await run.onProgress?.(corners.length / plan.corners.length);
+    const simulated = await simulate(corner.bench, corner.predicted.valley);
+    corners.push(compareCorner(corner, simulated));
+    await run.onProgress?.(corners.length / steps);
+    if (corner.id === 'vin-max') {
+      exportedModel = await runExportedModel(input, corner, simulated.average, run.simulateFrom ?? ((b) => simulateBuck(b, 30_000)));
+    }
   }
+  await run.onProgress?.(1);
   return {
     kind: 'circuit',
     inductorModel: plan.model,
@@ -182,5 +248,6 @@ export async function runCircuitCheck(input: CircuitCheckInput, run: CircuitChec
     windingResistance: plan.windingResistance,
     notes: plan.notes,
     corners,
+    ...(exportedModel ? { exportedModel } : {}),
   };
 }

@@ -20,6 +20,12 @@ export interface BuckBench {
   periods?: number;
   /** ngspice's relative tolerance (its default 1e-3 unless given). */
   reltol?: number;
+  /**
+   * The inductor as a SPICE subcircuit instead (an exported model, nodes 1 and 2, its main inductor on a line starting
+   * `L1 `; its inductors are given `initialCurrent` as their IC). Its own resistances replace the spec's winding resistance, and
+   * the voltage across it is written too, so the power it dissipates can be read.
+   */
+  subcircuit?: { name: string; text: string };
 }
 
 /** Flux linkage Λ (V·s) of a non-linear inductor at rising currents (A); odd-symmetric about zero current. */
@@ -38,6 +44,8 @@ export interface SimulatedCurrent {
   drift: number;
   /** The last period's solver points: time from the period's switch-on edge (s) and current (A). */
   lastPeriod: { time: number[]; current: number[] };
+  /** With a subcircuit inductor: the average of v·i across it over the last period, the power it dissipates (W). */
+  dissipation?: number;
 }
 
 /** Time steps per switching period the simulation may take at most. */
@@ -76,8 +84,10 @@ export function buckBenchNetlist(bench: BuckBench, dataFile: string): string {
   const diode = spec.rectifier === 'diode';
   const onResistance = (r: number | undefined) => num(synchronous ? Math.max(r ?? 0, 1e-6) : 1e-6);
   const width = duty * period - EDGE;
+  const windingResistance = bench.subcircuit ? 0 : (spec.inductorResistance ?? 0);
   return [
     '* Gapwright buck test bench (generated)',
+    ...(bench.subcircuit ? [withInitialCurrent(bench.subcircuit.text, bench.initialCurrent ?? 0)] : []),
     `Vin in 0 DC ${num(vin)}`,
     'S1 in hs drive 0 high',
     `Vswitch hs sw DC ${num(diode ? (spec.switchDrop ?? 0) : 0)}`,
@@ -85,7 +95,7 @@ export function buckBenchNetlist(bench: BuckBench, dataFile: string): string {
     `Vfreewheel ls 0 DC ${num(diode ? -(spec.diodeDrop ?? 0) : 0)}`,
     'Vsense sw lx DC 0',
     ...inductorLines(bench),
-    `RL ly out ${num(Math.max(spec.inductorResistance ?? 0, 1e-9))}`,
+    `RL ly out ${num(Math.max(windingResistance, 1e-9))}`,
     `Vout out 0 DC ${num(spec.vout)}`,
     `Vdrive drive 0 PULSE(0 1 0 ${EDGE} ${EDGE} ${num(width)} ${num(period)})`,
     `Vdriveb driveb 0 PULSE(1 0 0 ${EDGE} ${EDGE} ${num(width)} ${num(period)})`,
@@ -97,7 +107,7 @@ export function buckBenchNetlist(bench: BuckBench, dataFile: string): string {
     'set wr_singlescale',
     'set filetype=ascii',
     'run',
-    `wrdata ${dataFile} i(Vsense)`,
+    `wrdata ${dataFile} i(Vsense)${bench.subcircuit ? ' v(lx)-v(ly)' : ''}`,
     'quit 0',
     '.endc',
     '.end',
@@ -112,7 +122,8 @@ export function buckBenchNetlist(bench: BuckBench, dataFile: string): string {
  * linear interpolation (ngspice's pwl() function). So v = dΛ/dt exactly, the incremental inductance dΛ/di follows the
  * table, and the solver never differentiates a table (integrating keeps it stable).
  */
-function inductorLines({ inductance, fluxTable, initialCurrent = 0 }: BuckBench): string[] {
+function inductorLines({ inductance, fluxTable, initialCurrent = 0, subcircuit }: BuckBench): string[] {
+  if (subcircuit) return [`X1 lx ly ${subcircuit.name}`];
   if (!fluxTable) return [`L1 lx ly ${num(inductance)} IC=${num(initialCurrent)}`];
   const scale = Math.max(...fluxTable.fluxLinkage.map(Math.abs)) / 10;
   const points = fluxTable.current.map((current, k) => `${num(fluxTable.fluxLinkage[k]! / scale)},${num(current)}`);
@@ -122,6 +133,17 @@ function inductorLines({ inductance, fluxTable, initialCurrent = 0 }: BuckBench)
     'Rflux phi 0 1e12',
     `Bl lx ly I = pwl(v(phi), ${points.join(', ')})`,
   ];
+}
+
+/**
+ * The subcircuit with IC=<current> on each of its inductors, so a steady-state run can start where the current already
+ * is: every inductor of a series path (the main one and an AC branch's, which carries the DC in steady state) starts at
+ * the path's current; an AC branch's resistor would otherwise carry the whole current until its inductor caught up.
+ */
+function withInitialCurrent(text: string, current: number): string {
+  const lines = text.split('\n');
+  if (!lines.some((line) => /^L1\s/i.test(line))) throw new RangeError('The subcircuit has no L1 line to start from a given current.');
+  return lines.map((line) => (/^L\w*\s/i.test(line) ? `${line.replace(/\s+IC=\S+/i, '')} IC=${num(current)}` : line)).join('\n');
 }
 
 /** y(x) by linear interpolation in a rising table (as ngspice's pwl), held at the ends. */
@@ -149,11 +171,13 @@ function averageOver(times: number[], values: number[], from: number, to: number
 export function readSimulatedCurrent(data: string, frequency: number): SimulatedCurrent {
   const times: number[] = [];
   const values: number[] = [];
+  const power: number[] = [];
   for (const line of data.split('\n')) {
     const cells = line.trim().split(/\s+/).map(Number);
     if (cells.length >= 2 && cells.every(Number.isFinite)) {
       times.push(cells[0]!);
       values.push(cells[1]!);
+      if (cells.length >= 3) power.push(cells[1]! * cells[2]!);
     }
   }
   if (times.length < 10) throw new SolverError('ngspice wrote too few points of the inductor current', data.slice(0, 500));
@@ -171,7 +195,16 @@ export function readSimulatedCurrent(data: string, frequency: number): Simulated
     lastPeriod.time.push(t - start);
     lastPeriod.current.push(values[i]!);
   });
-  return { average, peak, valley, ripple: peak - valley, drift: average - before, lastPeriod };
+  const dissipation = power.length === times.length ? averageOver(times, power, end - period, end) : undefined;
+  return {
+    average,
+    peak,
+    valley,
+    ripple: peak - valley,
+    drift: average - before,
+    lastPeriod,
+    ...(dissipation === undefined ? {} : { dissipation }),
+  };
 }
 
 /** Runs the bench in ngspice (its .control block, no terminal) and reads the inductor current of the last period. */

@@ -1,6 +1,8 @@
 import type pg from 'pg';
 import type { Logger } from 'pino';
 import { CatalogueService } from '../catalogue/catalogue.service.ts';
+import { coreById } from '../catalogue/user-cores.service.ts';
+import { UserCoresRepository } from '../catalogue/user-cores.repository.ts';
 import { CHECK_JOB, CHECK_LIMITS, CHECK_RETRY, type CheckJobData } from '../checks/check-jobs.ts';
 import { createCheckHandler, type CheckHandlerDeps } from '../checks/check-job.ts';
 import { ChecksRepository } from '../checks/checks.repository.ts';
@@ -30,10 +32,13 @@ export interface CheckWorker {
 export async function startCheckWorker(options: CheckWorkerOptions): Promise<CheckWorker> {
   const { pool, db, jobs, logger } = options;
   const queue = new JobQueue({ pool, schema: jobs.schema, pollSeconds: jobs.pollSeconds, logger });
+  const catalogue = new CatalogueService();
+  const userCores = new UserCoresRepository(db);
   const handler = createCheckHandler({
     repo: new ChecksRepository(db),
     materials: new MaterialsRepository(db),
-    catalogue: new CatalogueService(),
+    // Shipped cores and the user cores in the same database, as the web server reads them.
+    cores: { core: (id) => coreById(catalogue, userCores, id), wire: (choice) => catalogue.wire(choice) },
     logger,
     circuit: options.circuit,
     field: options.field,

@@ -1,6 +1,7 @@
 export const ENGINE_VERSION = '2.0.0';
 
 export * from './area-product';
+export * from './buck-waveform';
 export * from './constants';
 export * from './copper';
 export * from './conductor-choice';
@@ -16,8 +17,10 @@ export * from './harmonics';
 export * from './inputs';
 export * from './issues';
 export * from './kernel';
+export * from './load-map';
 export * from './magnetic-design';
 export * from './operating-point';
+export * from './piecewise-harmonics';
 export * from './powder';
 export * from './ranking';
 export * from './saturation';

@@ -57,7 +57,7 @@ function drops(spec: ConverterSpec, current: number): Drops {
 }
 
 /** Inductor voltage during the on- and off-intervals; volt-second balance gives D = off/(on + off). */
-function intervalVoltages(spec: ConverterSpec, vin: number, current: number): { on: number; off: number } {
+export function intervalVoltages(spec: ConverterSpec, vin: number, current: number): { on: number; off: number } {
   const d = drops(spec, current);
   return {
     on: vin - d.switchDrop - spec.vout - d.inductorDrop,

@@ -6,6 +6,8 @@ import type {
   EngineIssue,
   EvaluationResult,
   LossAtFrequency,
+  LoadPoint,
+  LossMap,
   OperatingPoint,
   SearchResult,
   WireOption,
@@ -122,17 +124,50 @@ export const lossAtFrequencySchema = numbers('frequency', 'copperDc', 'copperAc'
   feasible: z.boolean().meta({ description: 'The part keeps its saturation and temperature limits at this frequency' }),
 }) satisfies z.ZodType<LossAtFrequency>;
 
-/** POST /calc/evaluate: the wire as evaluated, every figure, and the loss sweep when asked for. */
+export const loadPointSchema = numbers(
+  'vin',
+  'loadFraction',
+  'iout',
+  'peakCurrent',
+  'copperDc',
+  'copperAc',
+  'core',
+  'total',
+  'share',
+  'rise',
+).extend({
+  corner: z.enum(['min', 'nominal', 'max']),
+  mode: z.enum(['ccm', 'boundary', 'dcm']).meta({ description: 'Continuous, boundary or discontinuous conduction at this point' }),
+  runaway: z.boolean(),
+}) satisfies z.ZodType<LoadPoint>;
+
+export const lossMapSchema = z.object({
+  inductance: z.number().meta({ description: 'Inductance the map runs with at full load (H)' }),
+  inputs: numbers('min', 'nominal', 'max'),
+  points: z.array(loadPointSchema),
+}) satisfies z.ZodType<LossMap>;
+
+/** POST /calc/evaluate: the wire as evaluated, every figure, and the sweeps when asked for. */
 export const evaluateAnswerSchema = z.object({
   engineVersion: z.string(),
   wire: wireOptionSchema,
   result: evaluationResultSchema,
   lossVersusFrequency: z.array(lossAtFrequencySchema).optional(),
+  lossMap: lossMapSchema.optional(),
 });
 export type EvaluateAnswer = z.infer<typeof evaluateAnswerSchema>;
 
+export const EVALUATE_SWEEPS = ['frequency', 'load', 'all'] as const;
+export type EvaluateSweep = (typeof EVALUATE_SWEEPS)[number];
+
 export const evaluateQuerySchema = z.object({
-  sweep: z.enum(['frequency']).optional().meta({ description: '"frequency" adds a loss-versus-frequency sweep' }),
+  sweep: z
+    .enum(EVALUATE_SWEEPS)
+    .optional()
+    .meta({
+      description:
+        '"frequency" adds a loss-versus-frequency sweep, "load" a loss map from 10 % to 100 % load at three input voltages, "all" both',
+    }),
 });
 
 const searchCandidateSchema = z.object({

@@ -34,6 +34,24 @@ export const circuitCornerSchema = z.object({
 });
 export type CircuitCorner = z.infer<typeof circuitCornerSchema>;
 
+/**
+ * The design's exported SPICE subcircuit (the same text as its export, named DUT) in the bench at Vin max and full load:
+ * its current against the engine's at the subcircuit's inductance, and the power its resistors dissipate against the
+ * engine's total loss — proof that the export is a working model of the part at its operating point.
+ */
+export const exportedModelSchema = z.object({
+  vin: z.number(),
+  load: z.number(),
+  /** The subcircuit's L1 (H): the inductance at the load current. */
+  inductance: z.number(),
+  simulated: z.object({ ripple: z.number(), peak: z.number(), average: z.number(), dissipation: z.number() }),
+  predicted: z.object({ ripple: z.number(), peak: z.number(), average: z.number(), loss: z.number() }),
+  /** (simulated − predicted)/predicted in %. */
+  differencePercent: z.object({ ripple: z.number(), peak: z.number(), dissipation: z.number() }),
+  drift: z.number(),
+});
+export type ExportedModelRun = z.infer<typeof exportedModelSchema>;
+
 export const circuitCheckResultSchema = z.object({
   kind: z.literal('circuit'),
   /** 'constant': the nominal L of an air-gapped design; 'roll-off': L follows the powder's DC-bias curve. */
@@ -44,6 +62,8 @@ export const circuitCheckResultSchema = z.object({
   windingResistance: z.number(),
   notes: z.array(z.string()),
   corners: z.array(circuitCornerSchema),
+  /** Absent in checks stored before the exported model was run. */
+  exportedModel: exportedModelSchema.optional(),
 });
 export type CircuitCheckResult = z.infer<typeof circuitCheckResultSchema>;
 

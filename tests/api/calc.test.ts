@@ -154,6 +154,29 @@ describe('POST /api/calc/search and /api/calc/evaluate', () => {
     expect(res.status).toBe(200);
     expect(relative(res.body.result.totalLoss, best.result.totalLoss)).toBeLessThan(1e-6);
     expect(res.body.lossVersusFrequency.length).toBeGreaterThan(5);
+    expect(res.body.lossMap).toBeUndefined();
+  });
+
+  it('adds the loss map from 10 % to 100 % load at three input voltages when asked, and refuses an unknown sweep', async () => {
+    const materialIds = await demoMaterialIds();
+    const search = await engineer.post('/api/calc/search', { spec: EXAMPLE_SPEC, materialIds, limit: 1 });
+    const best = search.body.candidates[0];
+    const body = {
+      spec: EXAMPLE_SPEC,
+      coreId: best.result.core.id,
+      materialId: best.result.material.id,
+      turns: best.result.turns,
+      gap: best.result.gap.total,
+      wire: { kind: best.wire.kind, strandDiameter: best.wire.strandDiameter, strands: best.wire.strands },
+    };
+    const res = await engineer.post('/api/calc/evaluate?sweep=all', body);
+    expect(res.status).toBe(200);
+    expect(res.body.lossVersusFrequency.length).toBeGreaterThan(5);
+    expect(res.body.lossMap.points).toHaveLength(30);
+    expect(new Set(res.body.lossMap.points.map((p: { corner: string }) => p.corner))).toEqual(new Set(['min', 'nominal', 'max']));
+    const refused = await engineer.post('/api/calc/evaluate?sweep=everything', body);
+    expect(refused.status).toBe(400);
+    expect(JSON.stringify(refused.body)).toMatch(/sweep/);
   });
 
   it('changing the turns by hand changes the losses', async () => {

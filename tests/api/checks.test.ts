@@ -122,6 +122,28 @@ describe('circuit check as a background job', () => {
     expect(list.body.checks.map((c: { kind: string }) => c.kind)).toContain('field');
   }, 120_000);
 
+  it('builds the field model of a design on a user core: the worker reads user cores from the same database', async () => {
+    const { revision, url } = await evaluatedRevision();
+    const stored = (await t.db.select().from(designRevisions).where(eq(designRevisions.id, revision.id)))[0]!;
+    const result = stored.result as { evaluation: { core: { id: string } } };
+    const listed = (await erin.get('/api/catalogue/cores')).body.cores as Record<string, unknown>[];
+    const shipped = listed.find((c) => c['id'] === result.evaluation.core.id)!;
+    const keys = ['family', 'ae', 'le', 've', 'windowArea', 'windowHeight', 'bobbinWidth', 'bobbinHeight', 'mlt', 'surfaceArea'];
+    const body = {
+      kind: 'shape',
+      name: 'LAB CORE CHECK',
+      source: 'invented for this test',
+      ...Object.fromEntries(keys.map((k) => [k, shipped[k]])),
+    };
+    const created = await erin.post('/api/catalogue/cores', body);
+    expect(created.status).toBe(201);
+    result.evaluation.core.id = 'LAB CORE CHECK';
+    await t.db.update(designRevisions).set({ result }).where(eq(designRevisions.id, revision.id));
+    await erin.post(url, { kind: 'field' });
+    const done = await waitFor(url, (c) => c.status !== 'queued' && c.status !== 'running', 110_000);
+    expect(done).toMatchObject({ kind: 'field', status: 'done', failure: null });
+  }, 120_000);
+
   it('is retried after an attempt dies mid-check and stores exactly one result', async () => {
     const { revision, url } = await evaluatedRevision();
     failOnce.add(revision.id);

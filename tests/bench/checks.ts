@@ -5,6 +5,7 @@ import { CatalogueService } from '../../server/catalogue/catalogue.service.ts';
 import { runCircuitCheck } from '../../server/checks/circuit-check.ts';
 import { runFieldCheck } from '../../server/checks/field-check.ts';
 import { ferriteA } from '../unit/engine/fixtures.ts';
+import { runChecksUnderLoadBench } from './checks-under-load.ts';
 import type { BenchRow } from './engine.ts';
 
 const FIELD_TARGET_SECONDS = 30;
@@ -44,7 +45,8 @@ export async function runChecksBench(): Promise<BenchRow[]> {
     },
     {
       name: 'circuit check, same design (ngspice)',
-      value: `${circuitSeconds.toFixed(1)} s for ${circuit.corners.length} corners`,
+      value: `${circuitSeconds.toFixed(1)} s for ${circuit.corners.length} corners and the exported subcircuit (dissipation ${circuit.exportedModel?.differencePercent.dissipation.toFixed(2) ?? '—'} % from the engine's loss)`,
     },
+    ...(await runChecksUnderLoadBench()),
   ];
 }

@@ -101,6 +101,15 @@ describe('ChecksPanel', () => {
             windingResistance: 0.02,
             notes: ['A note.'],
             corners: [corner],
+            exportedModel: {
+              vin: 36,
+              load: 10,
+              inductance: 27e-6,
+              simulated: { ripple: 2.98, peak: 11.48, average: 9.98, dissipation: 1.156 },
+              predicted: { ripple: 2.99, peak: 11.49, average: 10, loss: 1.155 },
+              differencePercent: { ripple: -0.33, peak: -0.09, dissipation: 0.09 },
+              drift: 0,
+            },
           },
         }),
       ],
@@ -115,6 +124,15 @@ describe('ChecksPanel', () => {
       [...r.children].map((cell) => cell.textContent?.trim()).join(' '),
     );
     expect(rows).toEqual(['Ripple (p-p) 3.050 3.000 +1.67 %', 'Peak 11.520 11.500 +0.17 %', 'Average 10.010 10.000 +0.10 %']);
+    const exported = [...page.querySelectorAll('[data-corner="exported-model"] tbody tr')].map((r) =>
+      [...r.children].map((cell) => cell.textContent?.trim()).join(' '),
+    );
+    expect(exported).toEqual([
+      'Ripple (p-p), A 2.980 2.990 -0.33 %',
+      'Peak, A 11.480 11.490 -0.09 %',
+      'Dissipated / total loss, W 1.156 1.155 +0.09 %',
+    ]);
+    expect(text(page)).toContain('The exported SPICE subcircuit in the same bench at Vin 36 V, 10 A (its L1 27.00 µH)');
     expect(button(page, 'Run the circuit check')).toBeDefined();
   });
 

@@ -3,7 +3,7 @@ import { ChangeDetectionStrategy, Component, computed, effect, inject, input, si
 import { MatButtonModule } from '@angular/material/button';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { may } from '@shared/api/permissions';
-import type { CheckKind, CircuitCorner, RevisionCheck, RevisionChecks } from '@shared/schemas/checks';
+import type { CheckKind, CircuitCorner, ExportedModelRun, RevisionCheck, RevisionChecks } from '@shared/schemas/checks';
 import { NgxEchartsDirective } from 'ngx-echarts';
 import type { Observable } from 'rxjs';
 
@@ -119,6 +119,20 @@ export class ChecksPanel {
         simulated: corner.simulated.average,
         predicted: corner.predicted.average,
         diff: corner.differencePercent.average,
+      },
+    ];
+  }
+
+  /** The exported subcircuit's run: its current and the power it dissipates against the engine's. */
+  protected exportedRows(run: ExportedModelRun) {
+    return [
+      { label: 'Ripple (p-p), A', simulated: run.simulated.ripple, predicted: run.predicted.ripple, diff: run.differencePercent.ripple },
+      { label: 'Peak, A', simulated: run.simulated.peak, predicted: run.predicted.peak, diff: run.differencePercent.peak },
+      {
+        label: 'Dissipated / total loss, W',
+        simulated: run.simulated.dissipation,
+        predicted: run.predicted.loss,
+        diff: run.differencePercent.dissipation,
       },
     ];
   }

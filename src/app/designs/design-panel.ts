@@ -21,6 +21,7 @@ import { LoadState } from '../ui/load-state';
 import { DesignsApi, type MaterialView } from './designs-api';
 import { CornerTable } from './corner-table';
 import { frequencyChartLabel, frequencyChartOptions } from './frequency-chart-options';
+import { loadMapChartLabel, loadMapChartOptions } from './load-map-chart-options';
 import { percent, show, showUnit } from './format';
 
 type WireKind = 'awg' | 'metric' | 'litz' | 'foil';
@@ -186,8 +187,8 @@ export class DesignPanel {
     this.placement.set(construction.placement);
     this.silent = false;
     if (known) this.view.set(known);
-    // The loss-versus-frequency sweep is never stored; a fresh evaluation brings it.
-    if (!known?.lossVersusFrequency) this.edits.next();
+    // The sweeps (loss against frequency and load) are never stored; a fresh evaluation brings them.
+    if (!known?.lossVersusFrequency || !known.lossMap) this.edits.next();
   }
 
   private constructionFromForm(): Construction | null {
@@ -233,6 +234,11 @@ export class DesignPanel {
         title: 'Loss against frequency',
         options: this.frequencyChart(),
         label: this.frequencyLabel(),
+      },
+      {
+        title: 'Loss against load (loss map)',
+        options: this.loadMapChart(),
+        label: loadMapChartLabel(this.view()?.lossMap),
       },
     ];
   });
@@ -295,5 +301,6 @@ export class DesignPanel {
   private readonly frequencyChart = computed(() =>
     frequencyChartOptions(this.view()?.lossVersusFrequency ?? [], this.spec()?.converter.frequency),
   );
+  private readonly loadMapChart = computed(() => loadMapChartOptions(this.view()?.lossMap));
   private readonly frequencyLabel = computed(() => frequencyChartLabel(this.view()?.lossVersusFrequency ?? []));
 }

@@ -114,7 +114,7 @@ export class DesignsApi {
   evaluate(spec: DesignSpec, construction: Construction): Observable<EvaluateAnswer> {
     return this.api.call(
       evaluate,
-      { query: { sweep: 'frequency' }, body: { spec: spec.converter, limits: spec.limits, ...construction } },
+      { query: { sweep: 'all' }, body: { spec: spec.converter, limits: spec.limits, ...construction } },
       errorsShownByCaller(),
     );
   }

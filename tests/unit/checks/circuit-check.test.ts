@@ -38,7 +38,7 @@ describe('circuit check of an air-gapped ferrite design (constant nominal L)', (
     const result = await runCircuitCheck({ spec: ferriteSpec, evaluation }, { onProgress: async (p) => void progress.push(p) });
     expect(result.inductorModel).toBe('constant');
     expect(result.corners.map((c) => c.id)).toEqual(['vin-max', 'vin-min', 'current-limit']);
-    expect(progress).toEqual([1 / 3, 2 / 3, 1]);
+    expect(progress).toEqual([1 / 4, 2 / 4, 3 / 4, 1]);
     for (const corner of result.corners) {
       expect(Math.abs(corner.differencePercent.ripple)).toBeLessThan(2);
       expect(Math.abs(corner.differencePercent.peak)).toBeLessThan(2);
@@ -47,6 +47,18 @@ describe('circuit check of an air-gapped ferrite design (constant nominal L)', (
       expect(corner.waveform.simulated.at(-1)![0]).toBeCloseTo(1 / ferriteSpec.frequency, 9);
     }
     expect(result.corners[2]!.load).toBe(13);
+
+    // The exported subcircuit in the same bench (the export's own text): its current within 2 % of the engine's at
+    // the subcircuit's L, settled (drift below 0.1 % of the load), and the power its resistors dissipate against the
+    // engine's total loss. The subcircuit is a single-frequency equivalent (its AC branch is exact at fs only and its
+    // core resistor takes Vrms² of the square wave), so the dissipation is held to 5 % (common practice for a
+    // behavioural model at its operating point, no source); measured here: 1.1555 W against 1.1553 W (0.01 %).
+    const exported = result.exportedModel!;
+    expect(exported.vin).toBe(ferriteSpec.vinMax);
+    expect(Math.abs(exported.differencePercent.ripple)).toBeLessThan(2);
+    expect(Math.abs(exported.differencePercent.peak)).toBeLessThan(2);
+    expect(Math.abs(exported.drift)).toBeLessThan(1e-3 * ferriteSpec.ioutMax);
+    expect(Math.abs(exported.differencePercent.dissipation)).toBeLessThan(5);
   }, 180_000);
 });
 

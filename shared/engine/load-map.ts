@@ -1,0 +1,104 @@
+// Losses of one built part from light to full load at three input voltages: the "loss map" of the design page.
+import { buckWaveform, waveformFlux, type ConductionMode } from './buck-waveform';
+import { AC_TEMPERATURE_NODES } from './copper-loss';
+import { HOT_SPOT_ALLOWANCE } from './constants';
+import { igsePiecewiseLinearLoss } from './core-loss';
+import { dowellFactor } from './dowell';
+import { evaluateDesign, type EvaluateInput } from './evaluate';
+import { MAX_HARMONIC } from './harmonics';
+import { prepareCore, prepareSpec, prepareWire } from './kernel';
+import { piecewiseLinearSpectrum } from './piecewise-harmonics';
+import { biasedInductance } from './powder';
+import { emptyWoundCoreLoss, solveTemperature, ThermalSolution } from './thermal';
+
+/** 10 % to 100 % of full load in steps of 10 %. */
+export const LOAD_FRACTIONS: readonly number[] = [0.1, 0.2, 0.3, 0.4, 0.5, 0.6, 0.7, 0.8, 0.9, 1];
+
+export type InputCorner = 'min' | 'nominal' | 'max';
+
+export interface LoadPoint {
+  corner: InputCorner;
+  vin: number;
+  loadFraction: number;
+  iout: number;
+  mode: ConductionMode;
+  peakCurrent: number;
+  copperDc: number;
+  copperAc: number;
+  core: number;
+  total: number;
+  /** The inductor's loss over the output power Vout·Iout. */
+  share: number;
+  rise: number;
+  /** No steady temperature below the thermal model's limit at this point. */
+  runaway: boolean;
+}
+
+export interface LossMap {
+  /** The inductance the map runs with: the built part's nominal (a powder part's at each load's bias) (H). */
+  inductance: number;
+  /** Input voltages of the three corners; nominal is the midpoint when the spec gives none. */
+  inputs: Record<InputCorner, number>;
+  points: LoadPoint[];
+}
+
+/**
+ * The built part (turns, gap, wire as evaluateDesign makes them, at its nominal inductance) run at each load and input
+ * voltage: the real current waveform (CCM, boundary or DCM, buckWaveform), the copper loss from its DC value and
+ * every harmonic's Dowell factor, the core loss by the iGSE over each linear segment of the flux (a resting segment
+ * adds none; relaxation after it is not modelled), iterated with the temperature as evaluateDesign does.
+ */
+export function lossMap(input: EvaluateInput, fractions: readonly number[] = LOAD_FRACTIONS): LossMap {
+  const base = evaluateDesign(input);
+  const { spec, core, material } = input;
+  const ctx = prepareSpec(spec, input.limits);
+  const wire = prepareWire(input.wire, ctx);
+  const thermalResistance = prepareCore(core).thermalResistanceByVolume;
+  const layers = (Number.isFinite(base.winding.layers) ? base.winding.layers : 1) * wire.layersPerWindingLayer;
+  const inductanceAt = (iout: number) => biasedInductance(base.turns, iout, base.inductanceFactor.withFringing, core.le, material.rollOff);
+  const inputs: Record<InputCorner, number> = {
+    min: spec.vinMin,
+    nominal: spec.vinNom ?? (spec.vinMin + spec.vinMax) / 2,
+    max: spec.vinMax,
+  };
+  const loss = emptyWoundCoreLoss();
+  const thermal = new ThermalSolution();
+  const points: LoadPoint[] = [];
+  for (const corner of ['min', 'nominal', 'max'] as const) {
+    for (const loadFraction of fractions) {
+      const iout = loadFraction * spec.ioutMax;
+      const waveform = buckWaveform(spec, inputs[corner], iout, inductanceAt(iout));
+      const spectrum = piecewiseLinearSpectrum(waveform.times, waveform.current, MAX_HARMONIC);
+      for (let node = 0; node < AC_TEMPERATURE_NODES; node++) {
+        const delta = wire.firstHarmonicDelta * ctx.acGrid.scales[node]!;
+        let weight = 0;
+        for (let n = 1; n <= MAX_HARMONIC; n++) weight += dowellFactor(delta * Math.sqrt(n), layers) * spectrum.meanSquare[n - 1]!;
+        loss.rippleWeights[node] = weight;
+      }
+      loss.resistance20 = base.copper.resistance20;
+      loss.dcCurrentSquare = spectrum.average * spectrum.average;
+      loss.acGrid = ctx.acGrid;
+      loss.copperAboveSurface = HOT_SPOT_ALLOWANCE;
+      loss.coreLossReference = igsePiecewiseLinearLoss(material, waveform.times, waveformFlux(waveform, base.turns, core.ae)) * core.ve;
+      loss.temperatureCoefficients = material.tempCoefficients;
+      solveTemperature(ctx.limits.ambient, loss, core.surfaceArea, thermalResistance, thermal);
+      const total = thermal.totalLoss;
+      points.push({
+        corner,
+        vin: inputs[corner],
+        loadFraction,
+        iout,
+        mode: waveform.mode,
+        peakCurrent: waveform.peak,
+        copperDc: thermal.resistance * loss.dcCurrentSquare,
+        copperAc: thermal.resistance * thermal.rippleWeight,
+        core: loss.coreLossReference * thermal.temperatureFactor,
+        total,
+        share: total / (spec.vout * iout),
+        rise: thermal.rise.design,
+        runaway: thermal.runaway,
+      });
+    }
+  }
+  return { inductance: inductanceAt(spec.ioutMax), inputs, points };
+}
