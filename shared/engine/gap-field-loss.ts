@@ -109,10 +109,10 @@ export function rippleTransverseLoss(diameter: number, frequency: number, temper
   for (let n = 1; n <= count; n++) {
     const w = weights.meanSquare[n - 1]!;
     if (w === 0) continue;
-    const term = w * transverseFieldLoss(diameter, n * frequency, resistivity);
-    sum += term;
+    const perField = transverseFieldLoss(diameter, n * frequency, resistivity);
+    sum += w * perField;
     // The envelope falls as n⁻⁴ and P′ grows at most as n²: stop once the bound of the next term is negligible.
-    if (weights.envelope[n - 1]! * transverseFieldLoss(diameter, n * frequency, resistivity) < 1e-6 * sum) break;
+    if (weights.envelope[n - 1]! * perField < 1e-6 * sum) break;
   }
   return sum;
 }
@@ -147,7 +147,9 @@ export interface GapFieldSources {
 /**
  * Σ over conductors of L·(shareC²·|h_centre|² + shareO²·|h_outer|²) per unit winding MMF (1/m): layers outward from
  * the leg face at keepOut + (k + ½)·d_o, turns along the bobbin centred on the gap's mid-plane, the last layer filled
- * from one end (as the field model lays them). Allocation-free.
+ * from one end (as the field model lays them). Allocation-free. A layer's M = turnsPerLayer·conductorsPerTurn
+ * positions z_j = (j + ½ − M/2)·d_o lie symmetric about the mid-plane, where Hx² is even in z: a position whose
+ * mirror is also filled is summed once, twice over.
  */
 export function gapFieldSum(layout: GapFieldLayout, sources: GapFieldSources): number {
   const { turns, turnsPerLayer, layers, conductorsPerTurn, overallDiameter: d } = layout;
@@ -155,25 +157,39 @@ export function gapFieldSum(layout: GapFieldLayout, sources: GapFieldSources): n
   const centre = sources.centreGap > 0 && sources.centreShare > 0;
   const outer = sources.outerGap > 0 && sources.outerShare > 0;
   if (!centre && !outer) return 0;
-  const c2 = sources.centreShare * sources.centreShare;
-  const o2 = sources.outerShare * sources.outerShare;
-  const pitch = conductorsPerTurn * d;
-  const z0 = (-turnsPerLayer * pitch) / 2;
+  // Hx = ln[(x² + (z + g/2)²)/(x² + (z − g/2)²)]/(2π·g): the squared logarithms are summed, the constants applied once.
+  const hc = sources.centreGap / 2;
+  const ho = sources.outerGap / 2;
+  const cc = centre ? (sources.centreShare / (2 * Math.PI * sources.centreGap)) ** 2 : 0;
+  const oc = outer ? (sources.outerShare / (2 * Math.PI * sources.outerGap)) ** 2 : 0;
+  const full = turnsPerLayer * conductorsPerTurn;
+  const half = Math.ceil(full / 2);
   let sum = 0;
   for (let layer = 0; layer < layers; layer++) {
     const x = layout.keepOut + (layer + 0.5) * d;
+    const x2 = x * x;
     const length = layout.legPerimeter + 2 * Math.PI * x;
-    const inLayer = Math.min(turnsPerLayer, turns - layer * turnsPerLayer);
+    const filled = Math.min(turnsPerLayer, turns - layer * turnsPerLayer) * conductorsPerTurn;
     const xo = sources.windowWidth - x;
-    let layerSum = 0;
-    for (let t = 0; t < inLayer; t++) {
-      for (let k = 0; k < conductorsPerTurn; k++) {
-        const z = z0 + t * pitch + (k + 0.5) * d;
-        if (centre) layerSum += c2 * fringingFieldNormalSquared(x, z, sources.centreGap);
-        if (outer && xo > 0) layerSum += o2 * fringingFieldNormalSquared(xo, z, sources.outerGap);
+    const xo2 = xo * xo;
+    const withOuter = outer && xo > 0;
+    const top = filled < half ? filled : half;
+    let centreSum = 0;
+    let outerSum = 0;
+    for (let j = 0; j < top; j++) {
+      const mirror = full - 1 - j;
+      const weight = mirror !== j && mirror < filled ? 2 : 1;
+      const z = (j + 0.5 - full / 2) * d;
+      if (centre) {
+        const l = Math.log((x2 + (z + hc) * (z + hc)) / (x2 + (z - hc) * (z - hc)));
+        centreSum += weight * l * l;
+      }
+      if (withOuter) {
+        const l = Math.log((xo2 + (z + ho) * (z + ho)) / (xo2 + (z - ho) * (z - ho)));
+        outerSum += weight * l * l;
       }
     }
-    sum += length * layerSum;
+    sum += length * (cc * centreSum + oc * outerSum);
   }
   return sum;
 }

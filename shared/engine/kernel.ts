@@ -113,9 +113,12 @@ export interface WireContext {
   acTable: AcLossTable;
   /**
    * Σ (I_n²/2)·P′_n of one conductor position in a transverse field of 1 A/m (the strands of a litz bundle counted)
-   * at each node of acGrid, for the gap-field loss; zeros for foil, which that model does not cover.
+   * at each node of acGrid, for the gap-field loss; zeros for foil, which that model does not cover. Prepared on first
+   * use (wireGapTable): a search evaluates a gapped winding with few of the wires it prepares.
    */
-  gapTable: Float64Array;
+  gapTable: Float64Array | undefined;
+  /** Strand tables by diameter, shared by the wires prepared together. */
+  transverseByDiameter: Map<number, Float64Array>;
 }
 
 /** A strand's ripple transverse-field loss at each node of the spec's AC grid (gap-field-loss.ts). */
@@ -153,20 +156,29 @@ export function prepareWire(
     layersPerWindingLayer: isLitz ? Math.max(1, Math.round(Math.sqrt(wire.strands))) : 1,
     sums: parts.sums,
     acTable: parts.acTable,
-    gapTable: gapTableOf(wire, ctx, transverseByDiameter),
+    gapTable: undefined,
+    transverseByDiameter: transverseByDiameter ?? new Map(),
   };
 }
 
-function gapTableOf(wire: WireOption, ctx: SpecContext, byDiameter?: Map<number, Float64Array>): Float64Array {
-  if (wire.kind === 'foil') return new Float64Array(ctx.acGrid.temperatures.length);
-  let strand = byDiameter?.get(wire.strandDiameter);
-  if (!strand) {
-    strand = transverseLossNodes(wire.strandDiameter, ctx);
-    byDiameter?.set(wire.strandDiameter, strand);
+/** The wire's gap-field table (WireContext.gapTable), prepared on first call. */
+export function wireGapTable(wireCtx: WireContext, ctx: SpecContext): Float64Array {
+  if (wireCtx.gapTable) return wireCtx.gapTable;
+  const wire = wireCtx.wire;
+  let table: Float64Array;
+  if (wire.kind === 'foil') table = new Float64Array(ctx.acGrid.temperatures.length);
+  else {
+    let strand = wireCtx.transverseByDiameter.get(wire.strandDiameter);
+    if (!strand) {
+      strand = transverseLossNodes(wire.strandDiameter, ctx);
+      wireCtx.transverseByDiameter.set(wire.strandDiameter, strand);
+    }
+    // Round wire: each wire in hand is its own position; litz: the bundle's strands share one.
+    const perPosition = wire.kind === 'litz' ? wire.strands : Math.max(1, wire.strands / wire.conductorsPerTurn);
+    table = perPosition === 1 ? strand : strand.map((v) => v * perPosition);
   }
-  // Round wire: each wire in hand is its own position; litz: the bundle's strands share one.
-  const perPosition = wire.kind === 'litz' ? wire.strands : Math.max(1, wire.strands / wire.conductorsPerTurn);
-  return perPosition === 1 ? strand : strand.map((v) => v * perPosition);
+  wireCtx.gapTable = table;
+  return table;
 }
 
 type AcLossParts = Pick<WireContext, 'sums' | 'acTable'>;
@@ -230,6 +242,8 @@ export class CandidateFigures {
   gapLoss = 0;
   /** Clearance from the centre-leg face to the first layer's copper this evaluation used (m). */
   keepOut = 0;
+  /** Failures of the layout alone (fill), before the keep-out and the temperature add theirs. */
+  layoutFailures = 0;
   fluxDc = 0;
   fluxSwing = 0;
   fluxPeak = 0;
@@ -337,6 +351,16 @@ export function gapLossScale(
   return gapFieldLoss(mag.turns, gapFieldSum(fieldLayout, fieldSources), 1, 1);
 }
 
+/** Keep-out beyond the bobbin wall (DEFAULT_KEEP_OUT), taken from the build height; none on a ring (m). */
+export function extraKeepOutOf(core: CoreShape, keepOut: number): number {
+  return core.ring ? 0 : Math.max(0, keepOut - DEFAULT_KEEP_OUT);
+}
+
+/** Whether the layout in `out` still fits its bobbin with this keep-out. */
+export function buildFitsWithKeepOut(core: CoreShape, out: CandidateFigures, keepOut: number): boolean {
+  return fitsBuildHeight(out.buildHeight + extraKeepOutOf(core, keepOut), core);
+}
+
 /**
  * Build, copper (with the gap's fringing-field loss at this keep-out), core loss and temperature of a winding on a
  * core with the magnetic design's turns and gap; applyMagnetics adds what the gap decides for saturation.
@@ -350,23 +374,33 @@ export function evaluateWinding(
   out: CandidateFigures,
   keepOut = ctx.limits.keepOut,
 ): void {
-  const turns = mag.turns;
+  layOutWinding(ctx, coreCtx, matCtx, mag.turns, wireCtx, out);
+  evaluateWindingLosses(ctx, coreCtx, matCtx, mag, wireCtx, out, keepOut);
+}
+
+/**
+ * What depends on the turns and the wire only: build, fill, resistance, flux swing and core-loss density, the loss
+ * inputs of the temperature iteration. evaluateWindingLosses then adds what the gap and the keep-out change; the
+ * search calls it once per placement and keep-out on one layout.
+ */
+export function layOutWinding(
+  ctx: SpecContext,
+  coreCtx: CoreContext,
+  matCtx: MaterialContext,
+  turns: number,
+  wireCtx: WireContext,
+  out: CandidateFigures,
+): void {
   const { op, limits } = ctx;
   const core = coreCtx.core;
   const material = matCtx.material;
   const wire = wireCtx.wire;
   const n = turns;
-  let failures = 0;
-  let warnings = 0;
 
   layWinding(n, wire, core, out);
   const copperArea = turnCopperArea(wireCtx, core);
   out.copperFill = windowFill(n, copperArea, core.windowArea);
-  // The bobbin height is the build at the default keep-out (the bobbin wall); more keep-out takes from it.
-  out.keepOut = keepOut;
-  const extraKeepOut = core.ring ? 0 : Math.max(0, keepOut - DEFAULT_KEEP_OUT);
-  if (!fitsBuildHeight(out.buildHeight + extraKeepOut, core)) failures |= FAILURE.build;
-  if (out.copperFill > limits.windowUtilisation) failures |= FAILURE.fill;
+  out.layoutFailures = out.copperFill > limits.windowUtilisation ? FAILURE.fill : 0;
 
   out.resistance20 = windingResistance(n, out.meanTurnLength, copperArea, 20);
   const dowellLayers = (Number.isFinite(out.layers) ? out.layers : 1) * wireCtx.layersPerWindingLayer;
@@ -384,9 +418,39 @@ export function evaluateWinding(
   loss.acGrid = ctx.acGrid;
   loss.copperAboveSurface = HOT_SPOT_ALLOWANCE;
   loss.coreLossReference = out.coreLossDensityIgse * core.ve;
-  loss.gapLossScale = gapLossScale(core, material, mag, out, wire, keepOut);
-  loss.gapLossWeights = wireCtx.gapTable;
   loss.temperatureCoefficients = material.tempCoefficients;
+  // No temperature solved for this layout yet.
+  loss.gapLossScale = Number.NaN;
+}
+
+/**
+ * On the layout layOutWinding left in `out` (same core, material, turns and wire): the keep-out's build check, the
+ * gap-field loss of this magnetic design at this keep-out, the temperature iteration and the failures it decides.
+ * When neither the gap-field scale nor the keep-out changed since the last call on the same layout, the figures
+ * already hold the answer and are kept.
+ */
+export function evaluateWindingLosses(
+  ctx: SpecContext,
+  coreCtx: CoreContext,
+  matCtx: MaterialContext,
+  mag: MagneticDesign,
+  wireCtx: WireContext,
+  out: CandidateFigures,
+  keepOut = ctx.limits.keepOut,
+): void {
+  const { op, limits } = ctx;
+  const core = coreCtx.core;
+  const material = matCtx.material;
+  const loss = out.loss;
+  const scale = gapLossScale(core, material, mag, out, wireCtx.wire, keepOut);
+  if (scale === loss.gapLossScale && keepOut === out.keepOut) return;
+  let failures = out.layoutFailures;
+  let warnings = 0;
+  // The bobbin height is the build at the default keep-out (the bobbin wall); more keep-out takes from it.
+  out.keepOut = keepOut;
+  if (!buildFitsWithKeepOut(core, out, keepOut)) failures |= FAILURE.build;
+  loss.gapLossScale = scale;
+  if (scale > 0) loss.gapLossWeights = wireGapTable(wireCtx, ctx);
   const thermal = solveTemperature(limits.ambient, loss, core.surfaceArea, coreCtx.thermalResistanceByVolume, out.thermal);
   if (!thermal.converged) warnings |= WARNING.thermalNotConverged;
   if (thermal.runaway) failures |= FAILURE.thermalRunaway;

@@ -5,8 +5,11 @@ import type { ConverterSpec, DesignLimits, EngineIssue, RankBy } from './inputs'
 import {
   applyMagnetics,
   CandidateFigures,
+  buildFitsWithKeepOut,
   evaluateCandidate,
-  evaluateWinding,
+  evaluateWindingLosses,
+  FAILURE,
+  layOutWinding,
   prepareCore,
   prepareMaterial,
   prepareSpec,
@@ -118,8 +121,14 @@ export const EXTRA_KEEP_OUTS = [0.5e-3, 1e-3, 2e-3] as const;
 const KEEP_OUT_TRY_FRACTION = 0.02;
 
 /**
- * The winding at the limit's keep-out, or at a larger one (EXTRA_KEEP_OUTS) when that lowers the total loss without a
- * failure the limit's keep-out did not have: window traded for distance from the gap. Leaves the best in `out`.
+ * The winding at the limit's keep-out, or at a larger one (EXTRA_KEEP_OUTS) when the gap-field loss is worth it and
+ * that lowers the total loss without a failure the limit's keep-out did not have: window traded for distance from
+ * the gap. Keep-outs are tried from the smallest up to the first that adds a failure (the build check needs no
+ * temperature, so a keep-out the bobbin cannot take ends the tries unevaluated) and the lowest loss is kept. A
+ * ground gap's field only falls with distance, and so does the loss (a stable temperature iteration passes that on):
+ * there the largest keep-out that adds no failure is the lowest and is tried first. A spacer's outer-leg gap lies
+ * across the window, so more keep-out brings the winding nearer to it and every keep-out is tried. Works on the
+ * layout layOutWinding left in `out` and leaves the chosen keep-out's figures there.
  */
 function evaluateWithKeepOut(
   ctx: SpecContext,
@@ -130,22 +139,40 @@ function evaluateWithKeepOut(
   out: CandidateFigures,
 ): void {
   const base = ctx.limits.keepOut;
-  evaluateWinding(ctx, coreCtx, matCtx, mag, wireCtx, out, base);
+  evaluateWindingLosses(ctx, coreCtx, matCtx, mag, wireCtx, out, base);
   if (!(out.gapLoss > KEEP_OUT_TRY_FRACTION * out.totalLoss)) return;
   const baseFailures = out.windingFailures;
+  const buildChecked = (baseFailures & FAILURE.build) === 0;
+  // Tries up to the first keep-out that adds a failure; the build's is known before the temperature is solved.
+  let tries = 0;
+  while (tries < EXTRA_KEEP_OUTS.length && (!buildChecked || buildFitsWithKeepOut(coreCtx.core, out, base + EXTRA_KEEP_OUTS[tries]!))) {
+    tries++;
+  }
+  if (tries === 0) return;
+  const baseLoss = out.totalLoss;
+  if (mag.placement !== 'spacer') {
+    for (let i = tries - 1; i >= 0; i--) {
+      evaluateWindingLosses(ctx, coreCtx, matCtx, mag, wireCtx, out, base + EXTRA_KEEP_OUTS[i]!);
+      if ((out.windingFailures & ~baseFailures) !== 0) continue;
+      if (out.totalLoss < baseLoss) return;
+      break;
+    }
+    evaluateWindingLosses(ctx, coreCtx, matCtx, mag, wireCtx, out, base);
+    return;
+  }
   let bestKeepOut = base;
-  let bestLoss = out.totalLoss;
+  let bestLoss = baseLoss;
   let last = base;
-  for (const extra of EXTRA_KEEP_OUTS) {
-    evaluateWinding(ctx, coreCtx, matCtx, mag, wireCtx, out, base + extra);
-    last = base + extra;
+  for (let i = 0; i < tries; i++) {
+    last = base + EXTRA_KEEP_OUTS[i]!;
+    evaluateWindingLosses(ctx, coreCtx, matCtx, mag, wireCtx, out, last);
     if ((out.windingFailures & ~baseFailures) !== 0) break;
     if (out.totalLoss < bestLoss) {
       bestLoss = out.totalLoss;
-      bestKeepOut = base + extra;
+      bestKeepOut = last;
     }
   }
-  if (last !== bestKeepOut) evaluateWinding(ctx, coreCtx, matCtx, mag, wireCtx, out, bestKeepOut);
+  if (last !== bestKeepOut) evaluateWindingLosses(ctx, coreCtx, matCtx, mag, wireCtx, out, bestKeepOut);
 }
 
 const nextTurns = (turns: number) => (turns < TURNS_GEOMETRIC_FROM ? turns + 1 : Math.ceil(turns * TURNS_GEOMETRIC_STEP));
@@ -234,10 +261,11 @@ export function searchCandidates(input: SearchInput): SearchResult {
           const w = choice[t]!;
           if (w < 0) continue;
           anyWire = true;
+          layOutWinding(ctx, coreCtxs[c]!, materialCtxs[m]!, turns, wireCtxs[w]!, figures);
           for (let p = 0; p < placements.length; p++) {
             evaluated++;
             const placement = placements[p]!;
-            // The gap-field loss depends on the gap, so the winding's losses and temperature are evaluated per placement.
+            // The layout is the placements'; the gap-field loss, hence the losses and temperature, are each one's own.
             evaluateWithKeepOut(ctx, coreCtxs[c]!, materialCtxs[m]!, mags[p]!, wireCtxs[w]!, figures);
             if (figures.totalLoss < stepLowest) stepLowest = figures.totalLoss;
             if (applyMagnetics(ctx, core, material, mags[p]!, figures)) {

@@ -1,5 +1,5 @@
 import { copperResistanceRatio } from './copper';
-import { AC_TEMPERATURE_NODES, interpolateAtTemperature, type AcTemperatureGrid } from './copper-loss';
+import { AC_TEMPERATURE_NODES, gridScaleAt, interpolateAtScale, type AcTemperatureGrid } from './copper-loss';
 import { coreLossTemperatureFactor, type TemperatureCoefficients } from './core-loss';
 
 /** Surface-dissipation law ΔT = 450·(P/At)^0.826, P in W and At in cm² (At given here in m²). */
@@ -132,12 +132,13 @@ export function solveTemperature(
     surface = Math.min(ambient + rise, THERMAL_MODEL_LIMIT);
     const copper = Math.min(ambient + rise + loss.copperAboveSurface, THERMAL_MODEL_LIMIT);
     resistance = loss.resistance20 * copperResistanceRatio(copper);
-    rippleWeight = loss.acGrid ? interpolateAtTemperature(loss.acGrid, loss.rippleWeights, surface) : loss.rippleWeights[0]!;
+    const scale = loss.acGrid ? gridScaleAt(loss.acGrid, surface) : 0;
+    rippleWeight = loss.acGrid ? interpolateAtScale(loss.acGrid, loss.rippleWeights, scale) : loss.rippleWeights[0]!;
     rawFactor = coreLossTemperatureFactor(loss.temperatureCoefficients, surface);
     temperatureFactor = rawFactor > TEMPERATURE_FACTOR_FLOOR ? rawFactor : TEMPERATURE_FACTOR_FLOOR;
     gapLoss =
       loss.gapLossScale > 0
-        ? loss.gapLossScale * (loss.acGrid ? interpolateAtTemperature(loss.acGrid, loss.gapLossWeights, surface) : loss.gapLossWeights[0]!)
+        ? loss.gapLossScale * (loss.acGrid ? interpolateAtScale(loss.acGrid, loss.gapLossWeights, scale) : loss.gapLossWeights[0]!)
         : 0;
     power = resistance * (loss.dcCurrentSquare + rippleWeight) + gapLoss + loss.coreLossReference * temperatureFactor;
     bySurface = surfaceDissipationRise(power, surfaceArea);
