@@ -28,6 +28,7 @@ import {
   coreVolumeThermalResistance,
   emptyWoundCoreLoss,
   solveTemperature,
+  volumeLawAbove,
   type WoundCoreLoss,
 } from './thermal';
 import type { CoreMaterial, CoreShape, WireOption } from './types';
@@ -220,10 +221,13 @@ export function prepareMaterial(material: CoreMaterial, ctx: SpecContext): Mater
 export interface CoreContext {
   core: CoreShape;
   thermalResistanceByVolume: number;
+  /** The loss above which the volume law sets the rise (thermal.ts volumeLawAbove). */
+  volumeLawAbove: number;
 }
 
 export function prepareCore(core: CoreShape): CoreContext {
-  return { core, thermalResistanceByVolume: coreVolumeThermalResistance(core.ve) };
+  const thermalResistanceByVolume = coreVolumeThermalResistance(core.ve);
+  return { core, thermalResistanceByVolume, volumeLawAbove: volumeLawAbove(core.surfaceArea, thermalResistanceByVolume) };
 }
 
 /** Every number of one evaluated candidate; reused between evaluations. */
@@ -427,7 +431,7 @@ export function layOutWinding(
  * On the layout layOutWinding left in `out` (same core, material, turns and wire): the keep-out's build check, the
  * gap-field loss of this magnetic design at this keep-out, the temperature iteration and the failures it decides.
  * When neither the gap-field scale nor the keep-out changed since the last call on the same layout, the figures
- * already hold the answer and are kept.
+ * already hold the answer and are kept. `scale` is gapLossScale of the same design and keep-out when the caller has it.
  */
 export function evaluateWindingLosses(
   ctx: SpecContext,
@@ -437,12 +441,12 @@ export function evaluateWindingLosses(
   wireCtx: WireContext,
   out: CandidateFigures,
   keepOut = ctx.limits.keepOut,
+  scale = gapLossScale(coreCtx.core, matCtx.material, mag, out, wireCtx.wire, keepOut),
 ): void {
   const { op, limits } = ctx;
   const core = coreCtx.core;
   const material = matCtx.material;
   const loss = out.loss;
-  const scale = gapLossScale(core, material, mag, out, wireCtx.wire, keepOut);
   if (scale === loss.gapLossScale && keepOut === out.keepOut) return;
   let failures = out.layoutFailures;
   let warnings = 0;
@@ -451,7 +455,14 @@ export function evaluateWindingLosses(
   if (!buildFitsWithKeepOut(core, out, keepOut)) failures |= FAILURE.build;
   loss.gapLossScale = scale;
   if (scale > 0) loss.gapLossWeights = wireGapTable(wireCtx, ctx);
-  const thermal = solveTemperature(limits.ambient, loss, core.surfaceArea, coreCtx.thermalResistanceByVolume, out.thermal);
+  const thermal = solveTemperature(
+    limits.ambient,
+    loss,
+    core.surfaceArea,
+    coreCtx.thermalResistanceByVolume,
+    out.thermal,
+    coreCtx.volumeLawAbove,
+  );
   if (!thermal.converged) warnings |= WARNING.thermalNotConverged;
   if (thermal.runaway) failures |= FAILURE.thermalRunaway;
   // A temperature fit that is ≤ 0 where the core works is invalid there; the loss used the floored factor.

@@ -9,6 +9,7 @@ import {
   evaluateCandidate,
   evaluateWindingLosses,
   FAILURE,
+  gapLossScale,
   layOutWinding,
   prepareCore,
   prepareMaterial,
@@ -123,12 +124,14 @@ const KEEP_OUT_TRY_FRACTION = 0.02;
 /**
  * The winding at the limit's keep-out, or at a larger one (EXTRA_KEEP_OUTS) when the gap-field loss is worth it and
  * that lowers the total loss without a failure the limit's keep-out did not have: window traded for distance from
- * the gap. Keep-outs are tried from the smallest up to the first that adds a failure (the build check needs no
- * temperature, so a keep-out the bobbin cannot take ends the tries unevaluated) and the lowest loss is kept. A
- * ground gap's field only falls with distance, and so does the loss (a stable temperature iteration passes that on):
- * there the largest keep-out that adds no failure is the lowest and is tried first. A spacer's outer-leg gap lies
- * across the window, so more keep-out brings the winding nearer to it and every keep-out is tried. Works on the
- * layout layOutWinding left in `out` and leaves the chosen keep-out's figures there.
+ * the gap. Keep-outs are tried from the smallest up to the first that adds a failure and the lowest loss is kept. On
+ * one layout the loss rises with the gap-field scale alone (a stable temperature iteration passes a lower loss on as
+ * a lower temperature), so keep-outs are compared by their scale, a field sum without a temperature: the build check
+ * needs none either (a keep-out the bobbin cannot take ends the tries), and only a keep-out whose scale is above the
+ * limit's, whose loss is higher and may fail a temperature limit, is solved to see whether it ends them. A ground
+ * gap's field only falls with distance, so the largest keep-out is the lowest; a spacer's outer-leg gap lies across
+ * the window and more keep-out brings the winding nearer to it. Works on the layout layOutWinding left in `out` and
+ * leaves the chosen keep-out's figures there.
  */
 function evaluateWithKeepOut(
   ctx: SpecContext,
@@ -141,38 +144,34 @@ function evaluateWithKeepOut(
   const base = ctx.limits.keepOut;
   evaluateWindingLosses(ctx, coreCtx, matCtx, mag, wireCtx, out, base);
   if (!(out.gapLoss > KEEP_OUT_TRY_FRACTION * out.totalLoss)) return;
+  const core = coreCtx.core;
   const baseFailures = out.windingFailures;
+  const baseLoss = out.totalLoss;
+  const baseScale = out.loss.gapLossScale;
   const buildChecked = (baseFailures & FAILURE.build) === 0;
-  // Tries up to the first keep-out that adds a failure; the build's is known before the temperature is solved.
   let tries = 0;
-  while (tries < EXTRA_KEEP_OUTS.length && (!buildChecked || buildFitsWithKeepOut(coreCtx.core, out, base + EXTRA_KEEP_OUTS[tries]!))) {
+  while (tries < EXTRA_KEEP_OUTS.length && (!buildChecked || buildFitsWithKeepOut(core, out, base + EXTRA_KEEP_OUTS[tries]!))) {
     tries++;
   }
-  if (tries === 0) return;
-  const baseLoss = out.totalLoss;
-  if (mag.placement !== 'spacer') {
-    for (let i = tries - 1; i >= 0; i--) {
-      evaluateWindingLosses(ctx, coreCtx, matCtx, mag, wireCtx, out, base + EXTRA_KEEP_OUTS[i]!);
-      if ((out.windingFailures & ~baseFailures) !== 0) continue;
-      if (out.totalLoss < baseLoss) return;
-      break;
-    }
-    evaluateWindingLosses(ctx, coreCtx, matCtx, mag, wireCtx, out, base);
-    return;
-  }
-  let bestKeepOut = base;
-  let bestLoss = baseLoss;
-  let last = base;
-  for (let i = 0; i < tries; i++) {
-    last = base + EXTRA_KEEP_OUTS[i]!;
-    evaluateWindingLosses(ctx, coreCtx, matCtx, mag, wireCtx, out, last);
-    if ((out.windingFailures & ~baseFailures) !== 0) break;
-    if (out.totalLoss < bestLoss) {
-      bestLoss = out.totalLoss;
-      bestKeepOut = last;
+  let best = base;
+  let bestScale = baseScale;
+  // A ground gap: the largest keep-out has the lowest scale, the others need no field sum.
+  for (let i = mag.placement === 'spacer' ? 0 : tries - 1; i < tries; i++) {
+    const keepOut = base + EXTRA_KEEP_OUTS[i]!;
+    const scale = gapLossScale(core, matCtx.material, mag, out, wireCtx.wire, keepOut);
+    if (scale > baseScale) {
+      evaluateWindingLosses(ctx, coreCtx, matCtx, mag, wireCtx, out, keepOut, scale);
+      if ((out.windingFailures & ~baseFailures) !== 0) break;
+    } else if (scale < bestScale) {
+      best = keepOut;
+      bestScale = scale;
     }
   }
-  if (last !== bestKeepOut) evaluateWindingLosses(ctx, coreCtx, matCtx, mag, wireCtx, out, bestKeepOut);
+  if (best !== base) {
+    evaluateWindingLosses(ctx, coreCtx, matCtx, mag, wireCtx, out, best, bestScale);
+    if ((out.windingFailures & ~baseFailures) === 0 && out.totalLoss < baseLoss) return;
+  }
+  evaluateWindingLosses(ctx, coreCtx, matCtx, mag, wireCtx, out, base, baseScale);
 }
 
 const nextTurns = (turns: number) => (turns < TURNS_GEOMETRIC_FROM ? turns + 1 : Math.ceil(turns * TURNS_GEOMETRIC_STEP));

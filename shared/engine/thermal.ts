@@ -5,7 +5,19 @@ import { coreLossTemperatureFactor, type TemperatureCoefficients } from './core-
 /** Surface-dissipation law ΔT = 450·(P/At)^0.826, P in W and At in cm² (At given here in m²). */
 export function surfaceDissipationRise(power: number, surfaceArea: number): number {
   if (!(power > 0)) return 0;
-  return 450 * Math.pow(power / (surfaceArea * 1e4), 0.826);
+  return 450 * Math.pow(power / (surfaceArea * 1e4), SURFACE_EXPONENT);
+}
+
+const SURFACE_EXPONENT = 0.826;
+
+/**
+ * The loss above which the volume law's rise P·Rth exceeds the surface law's 450·(P/A)^0.826 (W): the two cross once,
+ * at P = (450/(A^0.826·Rth))^(1/0.174); set a hair above it so a rounding error cannot reverse the comparison. Above
+ * it the temperature iteration needs no power of the surface law.
+ */
+export function volumeLawAbove(surfaceArea: number, volumeThermalResistance: number): number {
+  const crossing = Math.pow(450 / (Math.pow(surfaceArea * 1e4, SURFACE_EXPONENT) * volumeThermalResistance), 1 / (1 - SURFACE_EXPONENT));
+  return crossing > 0 ? crossing * (1 + 1e-6) : Number.POSITIVE_INFINITY;
 }
 
 /** Thermal resistance of a ferrite E-type core from its effective volume: Rth = 53·Ve^−0.54, Ve in cm³ (K/W). */
@@ -113,6 +125,7 @@ export function solveTemperature(
   surfaceArea: number,
   volumeThermalResistance: number,
   out: ThermalSolution = new ThermalSolution(),
+  volumeAbove = volumeLawAbove(surfaceArea, volumeThermalResistance),
 ): ThermalSolution {
   let rise = 0;
   let previous = Number.NaN;
@@ -141,11 +154,18 @@ export function solveTemperature(
         ? loss.gapLossScale * (loss.acGrid ? interpolateAtScale(loss.acGrid, loss.gapLossWeights, scale) : loss.gapLossWeights[0]!)
         : 0;
     power = resistance * (loss.dcCurrentSquare + rippleWeight) + gapLoss + loss.coreLossReference * temperatureFactor;
-    bySurface = surfaceDissipationRise(power, surfaceArea);
     byVolume = power * volumeThermalResistance;
-    rise = bySurface > byVolume ? bySurface : byVolume;
+    if (power > volumeAbove) {
+      bySurface = Number.NaN;
+      rise = byVolume;
+    } else {
+      bySurface = surfaceDissipationRise(power, surfaceArea);
+      rise = bySurface > byVolume ? bySurface : byVolume;
+    }
     passes += 1;
   }
+  // The surface law's rise is reported even where the volume law decided.
+  if (Number.isNaN(bySurface)) bySurface = surfaceDissipationRise(power, surfaceArea);
   out.passes = passes;
   out.converged = Math.abs(rise - previous) < THERMAL_TOLERANCE;
   out.runaway = ambient + rise > THERMAL_MODEL_LIMIT;

@@ -4,6 +4,8 @@ import { evaluateDesign } from '@shared/engine/evaluate';
 import {
   fringingFieldNormalSquared,
   fringingFieldSquared,
+  gapFieldSum,
+  SERIES_ARGUMENT,
   transverseFieldLoss,
   transverseFieldLossLowFrequency,
 } from '@shared/engine/gap-field-loss';
@@ -26,7 +28,10 @@ describe('gap-field loss: closed-form limits', () => {
     const delta = skinDepthForResistivity(RHO, f);
     // The next term of the asymptotic series is of order δ/d (here 1 %).
     expect(transverseFieldLoss(d, f, RHO) / ((Math.PI * d * RHO) / delta)).toBeCloseTo(1, 1);
-    // Continuity where the continued fraction hands over to the asymptotic series (|τa| = 30).
+    // Continuity where the power series hands over to the continued fraction (a/δ = 4) and that to the asymptotic
+    // series (|τa| = 30).
+    const b = SERIES_ARGUMENT * skinDepthForResistivity(RHO, 1e6);
+    expect(transverseFieldLoss(2 * b * (1 - 1e-9), 1e6, RHO) / transverseFieldLoss(2 * b * (1 + 1e-9), 1e6, RHO)).toBeCloseTo(1, 8);
     const a = (30 / Math.SQRT2) * skinDepthForResistivity(RHO, 1e6);
     expect(transverseFieldLoss(2 * a * 0.9999, 1e6, RHO) / transverseFieldLoss(2 * a * 1.0001, 1e6, RHO)).toBeCloseTo(1, 3);
   });
@@ -37,6 +42,45 @@ describe('gap-field loss: closed-form limits', () => {
     expect(Math.sqrt(fringingFieldSquared(r * Math.SQRT1_2, r * Math.SQRT1_2, g)) * Math.PI * r).toBeCloseTo(1, 3);
     expect(fringingFieldNormalSquared(2e-3, 0, g)).toBe(0);
     expect(fringingFieldNormalSquared(2e-3, 1e-3, g)).toBeGreaterThan(fringingFieldNormalSquared(4e-3, 1e-3, g));
+  });
+});
+
+describe('gap-field sum', () => {
+  it('equals the sum over every conductor of L·share²·Hx² (full and partial layers, both gaps)', () => {
+    const layout = {
+      turns: 23,
+      turnsPerLayer: 7,
+      layers: 4,
+      conductorsPerTurn: 2,
+      overallDiameter: 0.6e-3,
+      keepOut: 0.7e-3,
+      legPerimeter: 40e-3,
+    };
+    const sources = { centreGap: 0.4e-3, centreShare: 0.45, outerGap: 0.4e-3, outerShare: 0.5, windowWidth: 9e-3 };
+    let direct = 0;
+    const d = layout.overallDiameter;
+    for (let layer = 0; layer < layout.layers; layer++) {
+      const x = layout.keepOut + (layer + 0.5) * d;
+      const inLayer = Math.min(layout.turnsPerLayer, layout.turns - layer * layout.turnsPerLayer);
+      for (let t = 0; t < inLayer; t++) {
+        for (let k = 0; k < layout.conductorsPerTurn; k++) {
+          const z = (-layout.turnsPerLayer * layout.conductorsPerTurn * d) / 2 + (t * layout.conductorsPerTurn + k + 0.5) * d;
+          direct +=
+            (layout.legPerimeter + 2 * Math.PI * x) *
+            (sources.centreShare ** 2 * fringingFieldNormalSquared(x, z, sources.centreGap) +
+              sources.outerShare ** 2 * fringingFieldNormalSquared(sources.windowWidth - x, z, sources.outerGap));
+        }
+      }
+    }
+    expect(gapFieldSum(layout, sources) / direct).toBeCloseTo(1, 12);
+    // An odd count per layer (a conductor on the mid-plane, where Hx = 0).
+    const odd = { ...layout, conductorsPerTurn: 1, turnsPerLayer: 9, turns: 9, layers: 1 };
+    let oddDirect = 0;
+    for (let t = 0; t < 9; t++) {
+      const x = odd.keepOut + 0.5 * d;
+      oddDirect += (odd.legPerimeter + 2 * Math.PI * x) * 0.45 ** 2 * fringingFieldNormalSquared(x, (t - 4) * d, 0.4e-3);
+    }
+    expect(gapFieldSum(odd, { ...sources, outerShare: 0 }) / oddDirect).toBeCloseTo(1, 12);
   });
 });
 
