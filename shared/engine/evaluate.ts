@@ -304,6 +304,8 @@ export interface LossAtFrequency {
   feasible: boolean;
   copperDc: number;
   copperAc: number;
+  /** Winding loss from the gap's fringing field (W). */
+  copperGap: number;
   core: number;
   total: number;
   rise: number;
@@ -343,6 +345,7 @@ export function lossVersusFrequency(input: EvaluateInput, frequencies: readonly 
         feasible: !result.issues.some((issue) => SWEEP_LIMITS.has(issue.code)),
         copperDc: result.copper.dcLoss,
         copperAc: result.copper.acLoss,
+        copperGap: result.copper.gapLoss,
         core: result.coreLoss.loss,
         total: result.totalLoss,
         rise: result.thermal.rise,

@@ -162,6 +162,11 @@ export function prepareWire(
   };
 }
 
+/** Strands at one conductor position of the gap-field sum: each round wire in hand is its own, litz shares one. */
+export function strandsPerPosition(wire: WireOption): number {
+  return wire.kind === 'litz' ? wire.strands : Math.max(1, wire.strands / wire.conductorsPerTurn);
+}
+
 /** The wire's gap-field table (WireContext.gapTable), prepared on first call. */
 export function wireGapTable(wireCtx: WireContext, ctx: SpecContext): Float64Array {
   if (wireCtx.gapTable) return wireCtx.gapTable;
@@ -174,8 +179,7 @@ export function wireGapTable(wireCtx: WireContext, ctx: SpecContext): Float64Arr
       strand = transverseLossNodes(wire.strandDiameter, ctx);
       wireCtx.transverseByDiameter.set(wire.strandDiameter, strand);
     }
-    // Round wire: each wire in hand is its own position; litz: the bundle's strands share one.
-    const perPosition = wire.kind === 'litz' ? wire.strands : Math.max(1, wire.strands / wire.conductorsPerTurn);
+    const perPosition = strandsPerPosition(wire);
     table = perPosition === 1 ? strand : strand.map((v) => v * perPosition);
   }
   wireCtx.gapTable = table;

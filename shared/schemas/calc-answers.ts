@@ -120,7 +120,7 @@ export const evaluationResultSchema = z.object({
     .meta({ description: 'Nominal, low- and high-tolerance corners of the saturation and inductance checks' }),
 }) satisfies z.ZodType<EvaluationResult>;
 
-export const lossAtFrequencySchema = numbers('frequency', 'copperDc', 'copperAc', 'core', 'total', 'rise').extend({
+export const lossAtFrequencySchema = numbers('frequency', 'copperDc', 'copperAc', 'copperGap', 'core', 'total', 'rise').extend({
   feasible: z.boolean().meta({ description: 'The part keeps its saturation and temperature limits at this frequency' }),
 }) satisfies z.ZodType<LossAtFrequency>;
 
@@ -131,6 +131,7 @@ export const loadPointSchema = numbers(
   'peakCurrent',
   'copperDc',
   'copperAc',
+  'copperGap',
   'core',
   'total',
   'share',
@@ -161,13 +162,10 @@ export const EVALUATE_SWEEPS = ['frequency', 'load', 'all'] as const;
 export type EvaluateSweep = (typeof EVALUATE_SWEEPS)[number];
 
 export const evaluateQuerySchema = z.object({
-  sweep: z
-    .enum(EVALUATE_SWEEPS)
-    .optional()
-    .meta({
-      description:
-        '"frequency" adds a loss-versus-frequency sweep, "load" a loss map from 10 % to 100 % load at three input voltages, "all" both',
-    }),
+  sweep: z.enum(EVALUATE_SWEEPS).optional().meta({
+    description:
+      '"frequency" adds a loss-versus-frequency sweep, "load" a loss map from 10 % to 100 % load at three input voltages, "all" both',
+  }),
 });
 
 const searchCandidateSchema = z.object({
