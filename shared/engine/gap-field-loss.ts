@@ -41,6 +41,26 @@ export function fringingFieldNormalSquared(x: number, z: number, gap: number): n
   return hx * hx;
 }
 
+/**
+ * Hx² per unit MMF with the window's yokes as mirrors: the gap's slot in the leg face repeats at z = m·H (H the window
+ * height, the gap on the mid-plane), the images a high-permeability wall makes (the method of images for the gap's
+ * field in a core window: J. Hu and C. R. Sullivan, IEEE Trans. Power Electronics 16(4), 2001, from memory). Summing
+ * Roshen's field over the row in closed form (Π (a − j·m·H) ∝ sinh(π·a/H), derived here):
+ *   Hx = (F/(2π·g))·ln[(sinh²(πx/H) + sin²(π(z + g/2)/H))/(sinh²(πx/H) + sin²(π(z − g/2)/H))],
+ * which tends to Roshen's as H → ∞ and falls as e^(−2πx/H) far from the leg, not as 1/x². The outer leg and the
+ * winding's own current are not mirrored. Not used by the engine: compared with the field solution in
+ * tests/unit/solvers/gap-field-loss.test.ts.
+ */
+export function fringingFieldNormalSquaredInWindow(x: number, z: number, gap: number, windowHeight: number): number {
+  const k = Math.PI / windowHeight;
+  const h = gap / 2;
+  const s = Math.sinh(k * x);
+  const a = Math.sin(k * (z + h));
+  const b = Math.sin(k * (z - h));
+  const hx = Math.log((s * s + a * a) / (s * s + b * b)) / (2 * Math.PI * gap);
+  return hx * hx;
+}
+
 export function fringingFieldSquared(x: number, z: number, gap: number): number {
   if (gap <= 0) return 1 / (Math.PI * Math.PI * (x * x + z * z));
   const h = gap / 2;

@@ -3,6 +3,7 @@ import { COPPER_RESISTIVITY_20C } from '@shared/engine/constants';
 import { evaluateDesign } from '@shared/engine/evaluate';
 import {
   fringingFieldNormalSquared,
+  fringingFieldNormalSquaredInWindow,
   fringingFieldSquared,
   gapFieldSum,
   SERIES_ARGUMENT,
@@ -42,6 +43,13 @@ describe('gap-field loss: closed-form limits', () => {
     expect(Math.sqrt(fringingFieldSquared(r * Math.SQRT1_2, r * Math.SQRT1_2, g)) * Math.PI * r).toBeCloseTo(1, 3);
     expect(fringingFieldNormalSquared(2e-3, 0, g)).toBe(0);
     expect(fringingFieldNormalSquared(2e-3, 1e-3, g)).toBeGreaterThan(fringingFieldNormalSquared(4e-3, 1e-3, g));
+    // With the yokes as mirrors: Roshen's field in a tall window, e^(−2πx/H) far out in a short one (the row of images
+    // of period H has Fourier terms e^(−2πkx/H); the first one's coefficient ∝ sin(2πz/H)·sin(πg/H)).
+    expect(fringingFieldNormalSquaredInWindow(2e-3, 1e-3, g, 10) / fringingFieldNormalSquared(2e-3, 1e-3, g)).toBeCloseTo(1, 6);
+    const H = 10e-3;
+    const far = (x: number) => Math.sqrt(fringingFieldNormalSquaredInWindow(x, 2e-3, g, H));
+    expect(far(20e-3) / far(15e-3)).toBeCloseTo(Math.exp((-2 * Math.PI * 5e-3) / H), 4);
+    expect(fringingFieldNormalSquaredInWindow(2e-3, 0, g, H)).toBe(0);
   });
 });
 
