@@ -131,6 +131,7 @@ export class CalcService {
       turns: request.turns,
       gap: request.gap,
       placement: request.placement,
+      keepOut: request.keepOut,
       wire,
     };
     const result = engineCall(() => evaluateDesign(input), 'spec.');

@@ -9,7 +9,11 @@ export interface EvaluatedConstruction {
   materialId: number;
 }
 
-/** Runs the engine on a design's construction before it is saved; turns, gap and placement are stored as the engine resolved them. */
+/**
+ * Runs the engine on a design's construction before it is saved; turns, gap and placement are stored as the engine
+ * resolved them. A keep-out is stored when the construction gives one (a search pick beyond the limit's); without
+ * one the design follows its limits' keepOut.
+ */
 export class ConstructionEvaluator {
   constructor(private readonly calc: CalcService) {}
 
@@ -27,6 +31,7 @@ export class ConstructionEvaluator {
         turns: construction.turns,
         gap: construction.gap,
         placement: construction.placement,
+        keepOut: construction.keepOut,
         wire: construction.wire,
       },
       {},

@@ -7,7 +7,10 @@ export interface SpiceValues {
   inductance: number;
   /** Winding resistance at the hot-spot temperature (Ω). */
   dcResistance: number;
-  /** Extra resistance the ripple sees at the switching frequency: (Fr − 1)·Rdc (Ω). */
+  /**
+   * Extra resistance the ripple sees at the switching frequency: (Fr − 1)·Rdc, plus the gap's fringing-field loss over
+   * the ripple's mean square ΔI²/12 (Ω).
+   */
   acExtraResistance: number;
   /** Branch that carries it: R = 2·ΔR in parallel with L = 2·ΔR/(2π·fs), whose real part at fs is ΔR. */
   acBranchResistance: number;
@@ -25,7 +28,9 @@ export function spiceValues(result: EvaluationResult): SpiceValues {
   const op = result.operatingPoint;
   const fs = op.frequency;
   const dcResistance = result.copper.resistanceHot;
-  const acExtraResistance = Math.max(0, (result.copper.acFactor - 1) * dcResistance);
+  const rippleMeanSquare = op.rippleAtVinMax ** 2 / 12;
+  const gapResistance = rippleMeanSquare > 0 ? (result.copper.gapLoss ?? 0) / rippleMeanSquare : 0;
+  const acExtraResistance = Math.max(0, (result.copper.acFactor - 1) * dcResistance + gapResistance);
   const branchR = Math.max(2 * acExtraResistance, NEGLIGIBLE);
   // Square wave across L: (Vin − Vout) for D, −Vout for 1 − D, at Vin max where core loss is worst.
   const onVoltage = op.onVoltageAtVinMax;
@@ -77,8 +82,9 @@ export function buildSpiceSubcircuit(header: SpiceHeader, result: EvaluationResu
     `*          permeability roll-off; nominal at zero current ${num(result.inductance.nominal)} H.`,
     `*  RDC   = ${num(v.dcResistance)} ohm: winding DC resistance at the predicted hot spot`,
     `*          ${num(result.thermal.hotSpot)} degC (at 20 degC: ${num(result.copper.resistance20)} ohm).`,
-    `*  RAC ∥ LAC: extra ripple resistance (Fr - 1)*RDC = ${num(v.acExtraResistance)} ohm with Fr = ${num(result.copper.acFactor)}`,
-    '*          (Dowell over the ripple harmonics); RAC = 2*dR in parallel with LAC = 2*dR/(2*pi*fs) has a',
+    `*  RAC ∥ LAC: extra ripple resistance dR = (Fr - 1)*RDC + Pgap/Irms^2 = ${num(v.acExtraResistance)} ohm with Fr = ${num(result.copper.acFactor)}`,
+    `*          (Dowell over the ripple harmonics) and Pgap = ${num(result.copper.gapLoss ?? 0)} W (the gap's fringing field on`,
+    '*          the winding, over the ripple mean square); RAC = 2*dR in parallel with LAC = 2*dR/(2*pi*fs) has a',
     `*          real part of exactly dR at fs = ${num(op.frequency)} Hz, tends to zero at DC and to 2*dR far above fs.`,
     `*  RCORE = ${num(v.coreLossResistance)} ohm: Vrms^2 / Pcore with Pcore = ${num(result.coreLoss.loss)} W (iGSE at temperature)`,
     `*          and Vrms = ${num(v.inductorVoltageRms)} V across the inductor at Vin max, duty ${num(op.dutyAtVinMax)}.`,

@@ -147,6 +147,7 @@ export function buildWindingSheet(input: SheetInput): WindingSheet {
         ? 'Margins as required by the insulation specification of the design owner'
         : 'None (no safety insulation required)',
       outerWrap: 'Two wraps of polyester tape',
+      keepOut: gapped && !isRing ? r.winding.keepOut : null,
     },
     terminations: foil
       ? [

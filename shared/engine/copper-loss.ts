@@ -128,8 +128,17 @@ export function rippleWeightNodes(table: AcLossTable, layers: number, out: Float
 
 /** The node values interpolated at a copper temperature (clamped to the grid's range). */
 export function interpolateAtTemperature(grid: AcTemperatureGrid, nodeValues: Float64Array, temperature: number): number {
+  return interpolateAtScale(grid, nodeValues, gridScaleAt(grid, temperature));
+}
+
+/** The grid's interpolation variable Δ(T)/Δ(Tref) at a copper temperature (clamped to the grid's range). */
+export function gridScaleAt(grid: AcTemperatureGrid, temperature: number): number {
   const t = temperature < grid.low ? grid.low : temperature > grid.high ? grid.high : temperature;
-  const s = deltaScale(grid.reference, t);
+  return deltaScale(grid.reference, t);
+}
+
+/** The node values interpolated at s = gridScaleAt(grid, T): several tables at one temperature share s. */
+export function interpolateAtScale(grid: AcTemperatureGrid, nodeValues: Float64Array, s: number): number {
   let value = 0;
   for (let i = 0; i < AC_TEMPERATURE_NODES; i++) {
     let l = nodeValues[i]! / grid.denominators[i]!;

@@ -39,6 +39,8 @@ export interface EvaluateInput {
   /** Where the gap is made (default 'ground'). */
   placement?: GapPlacement;
   wire: WireOption;
+  /** Clearance from the centre-leg face to the copper (m); default the limits' keepOut. */
+  keepOut?: number;
 }
 
 export interface EvaluationResult {
@@ -104,6 +106,8 @@ export interface EvaluationResult {
     copperFill: number;
     meanTurnLength: number;
     wireLength: number;
+    /** Clearance from the centre-leg face (and its gap) to the first layer's copper (m); absent before engine 2.1. */
+    keepOut?: number;
   };
   copper: {
     resistance20: number;
@@ -113,7 +117,10 @@ export interface EvaluationResult {
     skinDepth: number;
     penetrationRatio: number;
     dcLoss: number;
+    /** Ripple loss by one-dimensional Dowell (W). */
     acLoss: number;
+    /** Eddy loss the gap's fringing field drives in the winding (W; gap-field-loss.ts), also in totalLoss; absent before engine 2.1. */
+    gapLoss?: number;
   };
   coreLoss: {
     steinmetzDensity: number;
@@ -257,6 +264,7 @@ export function assembleResult(
       copperFill: f.copperFill,
       meanTurnLength: f.meanTurnLength,
       wireLength: mag.turns * f.meanTurnLength,
+      keepOut: f.keepOut,
     },
     copper: {
       resistance20: f.resistance20,
@@ -266,6 +274,7 @@ export function assembleResult(
       penetrationRatio: wireCtx.firstHarmonicDelta,
       dcLoss: f.copperLossDc,
       acLoss: f.copperLossAc,
+      gapLoss: f.gapLoss,
     },
     coreLoss: {
       steinmetzDensity: f.coreLossDensitySteinmetz * f.temperatureFactor,
@@ -297,6 +306,9 @@ function checkExplicitInputs(input: EvaluateInput): void {
   if (input.gap !== 'auto' && !(input.gap >= 0 && Number.isFinite(input.gap))) {
     throw new EngineInputError('gap', `Gap must be zero or positive (m), got ${input.gap}.`);
   }
+  if (input.keepOut !== undefined && !(input.keepOut >= 0 && Number.isFinite(input.keepOut))) {
+    throw new EngineInputError('keepOut', `Keep-out must be zero or positive (m), got ${input.keepOut}.`);
+  }
   if (input.wire.kind === 'foil' && input.core.ring) {
     throw new EngineInputError('wire', `Foil is not wound on ring cores; choose round wire or litz for ${input.core.id}.`);
   }
@@ -315,7 +327,15 @@ export function evaluateDesign(input: EvaluateInput): EvaluationResult {
   const mag = designMagnetics(input.core, input.material, ctx, input.turns, input.gap, input.placement);
   const wireCtx = prepareWire(input.wire, ctx);
   const figures = new CandidateFigures();
-  evaluateCandidate(ctx, prepareCore(input.core), prepareMaterial(input.material, ctx), mag, wireCtx, figures);
+  evaluateCandidate(
+    ctx,
+    prepareCore(input.core),
+    prepareMaterial(input.material, ctx),
+    mag,
+    wireCtx,
+    figures,
+    input.keepOut ?? ctx.limits.keepOut,
+  );
   return assembleResult(ctx, input.core, input.material, mag, wireCtx, figures);
 }
 
@@ -325,6 +345,8 @@ export interface LossAtFrequency {
   feasible: boolean;
   copperDc: number;
   copperAc: number;
+  /** Winding loss from the gap's fringing field (W). */
+  copperGap: number;
   core: number;
   total: number;
   rise: number;
@@ -357,12 +379,14 @@ export function lossVersusFrequency(input: EvaluateInput, frequencies: readonly 
         turns: base.turns,
         placement: base.gap.placement,
         gap: input.core.gapKind === 'distributed' ? 'auto' : gapInputOf(base.gap),
+        keepOut: base.winding.keepOut,
       });
       points.push({
         frequency,
         feasible: !result.issues.some((issue) => SWEEP_LIMITS.has(issue.code)),
         copperDc: result.copper.dcLoss,
         copperAc: result.copper.acLoss,
+        copperGap: result.copper.gapLoss ?? 0,
         core: result.coreLoss.loss,
         total: result.totalLoss,
         rise: result.thermal.rise,

@@ -52,11 +52,20 @@ export interface DesignLimits {
   minPermeabilityAtPeak: number;
   /** Smallest ground gap or spacer a workshop can hold (m); distributed-gap cores are exempt. */
   minGap: number;
+  /**
+   * Clearance from the centre-leg face to the first layer's copper (m). The bobbin height is the build available at
+   * the default (the bobbin wall); a larger keep-out takes its excess from the build and lowers the gap-field loss.
+   * The search may use more than this when it lowers the total loss.
+   */
+  keepOut: number;
   /** Gap placements the search may propose for air-gap cores (default both); a shop that cannot grind excludes 'ground'. */
   gapPlacements?: readonly GapPlacement[];
   allowedFamilies?: readonly string[];
   allowedMaterials?: readonly string[];
 }
+
+/** A bobbin wall is about 0.5 mm thick (common practice, no source); the field model's default clearance too. */
+export const DEFAULT_KEEP_OUT = 0.5e-3;
 
 export const DEFAULT_LIMITS: DesignLimits = {
   ambient: 40,
@@ -72,6 +81,7 @@ export const DEFAULT_LIMITS: DesignLimits = {
   minPermeabilityAtPeak: 0.5,
   // Below about 50 µm a ground gap is lost in grinding tolerance and mating-face roughness (common practice, no source).
   minGap: 50e-6,
+  keepOut: DEFAULT_KEEP_OUT,
 };
 
 export function resolveLimits(limits: Partial<DesignLimits> | undefined): DesignLimits {

@@ -17,8 +17,10 @@ import { litzProximitySum } from './litz';
 import { HOT_SPOT_ALLOWANCE } from './constants';
 import { fluxInFitRange, frequencyInFitRange, igseTriangleLoss, steinmetzLoss } from './core-loss';
 import { foilDelta, roundWireDelta } from './dowell';
+import { gapFieldLoss, gapFieldSum, gapMmfShare, rippleTransverseLoss, type GapFieldLayout, type GapFieldSources } from './gap-field-loss';
+import { spacerEquivalentGap } from './gap';
 import { harmonicWeights, type HarmonicWeights } from './harmonics';
-import { resolveLimits, type ConverterSpec, type DesignLimits } from './inputs';
+import { DEFAULT_KEEP_OUT, resolveLimits, type ConverterSpec, type DesignLimits } from './inputs';
 import { operatingPoint, type OperatingPoint } from './operating-point';
 import type { MagneticDesign } from './magnetic-design';
 import { saturationFlux, saturationMargin } from './saturation';
@@ -119,9 +121,31 @@ export interface WireContext {
   sums: AcLossSums;
   /** The same sums at each copper temperature of the spec's acGrid. */
   acTable: AcLossTable;
+  /**
+   * Σ (I_n²/2)·P′_n of one conductor position in a transverse field of 1 A/m (the strands of a litz bundle counted)
+   * at each node of acGrid, for the gap-field loss; zeros for foil, which that model does not cover. Prepared on first
+   * use (wireGapTable): a search evaluates a gapped winding with few of the wires it prepares.
+   */
+  gapTable: Float64Array | undefined;
+  /** Strand tables by diameter, shared by the wires prepared together. */
+  transverseByDiameter: Map<number, Float64Array>;
 }
 
-export function prepareWire(wire: WireOption, ctx: SpecContext, sumsByDelta?: Map<number, AcLossParts>): WireContext {
+/** A strand's ripple transverse-field loss at each node of the spec's AC grid (gap-field-loss.ts). */
+function transverseLossNodes(diameter: number, ctx: SpecContext): Float64Array {
+  const nodes = new Float64Array(ctx.acGrid.temperatures.length);
+  for (let i = 0; i < nodes.length; i++) {
+    nodes[i] = rippleTransverseLoss(diameter, ctx.spec.frequency, ctx.acGrid.temperatures[i]!, ctx.harmonics);
+  }
+  return nodes;
+}
+
+export function prepareWire(
+  wire: WireOption,
+  ctx: SpecContext,
+  sumsByDelta?: Map<number, AcLossParts>,
+  transverseByDiameter?: Map<number, Float64Array>,
+): WireContext {
   const isLitz = wire.kind === 'litz';
   // Close-wound layers: pitch = insulated diameter; inside litz, strands share the bundle's diameter.
   const porosity = isLitz
@@ -147,7 +171,33 @@ export function prepareWire(wire: WireOption, ctx: SpecContext, sumsByDelta?: Ma
     litzProximityNodes: isLitz ? Float64Array.from(ctx.acGrid.scales, (scale) => litzProximity * scale ** 4) : undefined,
     sums: parts.sums,
     acTable: parts.acTable,
+    gapTable: undefined,
+    transverseByDiameter: transverseByDiameter ?? new Map(),
   };
+}
+
+/** Strands at one conductor position of the gap-field sum: each round wire in hand is its own, litz shares one. */
+export function strandsPerPosition(wire: WireOption): number {
+  return wire.kind === 'litz' ? wire.strands : Math.max(1, wire.strands / wire.conductorsPerTurn);
+}
+
+/** The wire's gap-field table (WireContext.gapTable), prepared on first call. */
+export function wireGapTable(wireCtx: WireContext, ctx: SpecContext): Float64Array {
+  if (wireCtx.gapTable) return wireCtx.gapTable;
+  const wire = wireCtx.wire;
+  let table: Float64Array;
+  if (wire.kind === 'foil') table = new Float64Array(ctx.acGrid.temperatures.length);
+  else {
+    let strand = wireCtx.transverseByDiameter.get(wire.strandDiameter);
+    if (!strand) {
+      strand = transverseLossNodes(wire.strandDiameter, ctx);
+      wireCtx.transverseByDiameter.set(wire.strandDiameter, strand);
+    }
+    const perPosition = strandsPerPosition(wire);
+    table = perPosition === 1 ? strand : strand.map((v) => v * perPosition);
+  }
+  wireCtx.gapTable = table;
+  return table;
 }
 
 type AcLossParts = Pick<WireContext, 'sums' | 'acTable'>;
@@ -158,7 +208,8 @@ type AcLossParts = Pick<WireContext, 'sums' | 'acTable'>;
  */
 export function prepareWires(wires: readonly WireOption[], ctx: SpecContext): WireContext[] {
   const sumsByDelta = new Map<number, AcLossParts>();
-  return wires.map((wire) => prepareWire(wire, ctx, sumsByDelta));
+  const transverseByDiameter = new Map<number, Float64Array>();
+  return wires.map((wire) => prepareWire(wire, ctx, sumsByDelta, transverseByDiameter));
 }
 
 /** Copper area of one turn of this wire on this core (m²). */
@@ -207,6 +258,12 @@ export class CandidateFigures {
   acFactor = 0;
   copperLossDc = 0;
   copperLossAc = 0;
+  /** Winding loss from the gap's fringing field (W), at the part's temperature. */
+  gapLoss = 0;
+  /** Clearance from the centre-leg face to the first layer's copper this evaluation used (m). */
+  keepOut = 0;
+  /** Failures of the layout alone (fill), before the keep-out and the temperature add theirs. */
+  layoutFailures = 0;
   fluxDc = 0;
   fluxSwing = 0;
   fluxPeak = 0;
@@ -262,17 +319,98 @@ export function evaluateCandidate(
   mag: MagneticDesign,
   wireCtx: WireContext,
   out: CandidateFigures,
+  keepOut = ctx.limits.keepOut,
 ): boolean {
-  evaluateWinding(ctx, coreCtx, matCtx, mag.turns, mag.fluxAtLoad, wireCtx, out);
+  evaluateWinding(ctx, coreCtx, matCtx, mag, wireCtx, out, keepOut);
   return applyMagnetics(ctx, coreCtx.core, matCtx.material, mag, out);
 }
 
+/** Scratch of the gap-field sum, reused so an evaluation allocates nothing. */
+const fieldLayout: GapFieldLayout = {
+  turns: 0,
+  turnsPerLayer: 0,
+  layers: 0,
+  conductorsPerTurn: 1,
+  overallDiameter: 0,
+  keepOut: 0,
+  legPerimeter: 0,
+};
+const fieldSources: GapFieldSources = { centreGap: 0, centreShare: 0, outerGap: 0, outerShare: 0, windowWidth: 0 };
+
 /**
- * Everything that depends on the turns and the wire but not on the gap: build, copper, core loss, temperature. The DC
- * flux at full load (T) sets the DC field in the material, which raises the core loss where the material has DC-bias
- * data (dc-bias-loss.ts); both placements of one turns count meet the same inductance, so they share it.
+ * The gap-field loss per unit of the wire's gapTable (gap-field-loss.ts): 2·N²·Σ L·share²·|h|². A ground gap faces
+ * the winding's middle; a spacer opens a gap in the centre leg there and one in the outer legs across the window;
+ * distributed-gap cores, rings and foil have none here. The turn length at the leg face follows from the full
+ * bobbin's MLT (mid-build at the default keep-out plus half the bobbin height).
+ */
+export function gapLossScale(
+  core: CoreShape,
+  material: CoreMaterial,
+  mag: MagneticDesign,
+  out: CandidateFigures,
+  wire: WireOption,
+  keepOut: number,
+): number {
+  if (mag.kind !== 'air-gap' || mag.totalGap <= 0 || core.ring || wire.kind === 'foil') return 0;
+  const ratio = core.centreToOuterLegAreaRatio ?? 1;
+  const spacer = mag.placement === 'spacer';
+  const share = gapMmfShare(
+    spacer ? spacerEquivalentGap(mag.spacer, ratio) : mag.totalGap,
+    mag.fringingFactor,
+    core.le,
+    material.permeability,
+  );
+  fieldSources.centreGap = spacer ? mag.spacer : mag.totalGap;
+  fieldSources.centreShare = spacer ? share / (1 + ratio) : share;
+  fieldSources.outerGap = spacer ? mag.spacer : 0;
+  fieldSources.outerShare = spacer ? (share * ratio) / (1 + ratio) : 0;
+  fieldSources.windowWidth = core.windowArea / core.windowHeight;
+  fieldLayout.turns = mag.turns;
+  fieldLayout.turnsPerLayer = out.turnsPerLayer;
+  fieldLayout.layers = out.layers;
+  fieldLayout.conductorsPerTurn = wire.conductorsPerTurn;
+  fieldLayout.overallDiameter = wire.overallDiameter;
+  fieldLayout.keepOut = keepOut;
+  fieldLayout.legPerimeter = Math.max(
+    2 * Math.sqrt(Math.PI * core.ae),
+    core.mlt - 2 * Math.PI * (DEFAULT_KEEP_OUT + core.bobbinHeight / 2),
+  );
+  return gapFieldLoss(mag.turns, gapFieldSum(fieldLayout, fieldSources), 1, 1);
+}
+
+/** Keep-out beyond the bobbin wall (DEFAULT_KEEP_OUT), taken from the build height; none on a ring (m). */
+export function extraKeepOutOf(core: CoreShape, keepOut: number): number {
+  return core.ring ? 0 : Math.max(0, keepOut - DEFAULT_KEEP_OUT);
+}
+
+/** Whether the layout in `out` still fits its bobbin with this keep-out. */
+export function buildFitsWithKeepOut(core: CoreShape, out: CandidateFigures, keepOut: number): boolean {
+  return fitsBuildHeight(out.buildHeight + extraKeepOutOf(core, keepOut), core);
+}
+
+/**
+ * Build, copper (with the gap's fringing-field loss at this keep-out), core loss and temperature of a winding on a
+ * core with the magnetic design's turns and gap; applyMagnetics adds what the gap decides for saturation.
  */
 export function evaluateWinding(
+  ctx: SpecContext,
+  coreCtx: CoreContext,
+  matCtx: MaterialContext,
+  mag: MagneticDesign,
+  wireCtx: WireContext,
+  out: CandidateFigures,
+  keepOut = ctx.limits.keepOut,
+): void {
+  layOutWinding(ctx, coreCtx, matCtx, mag.turns, mag.fluxAtLoad, wireCtx, out);
+  evaluateWindingLosses(ctx, coreCtx, matCtx, mag, wireCtx, out, keepOut);
+}
+
+/**
+ * What depends on the turns and the wire only: build, fill, resistance, flux swing and core-loss density, the loss
+ * inputs of the temperature iteration. evaluateWindingLosses then adds what the gap and the keep-out change; the
+ * search calls it once per placement and keep-out on one layout.
+ */
+export function layOutWinding(
   ctx: SpecContext,
   coreCtx: CoreContext,
   matCtx: MaterialContext,
@@ -286,14 +424,11 @@ export function evaluateWinding(
   const material = matCtx.material;
   const wire = wireCtx.wire;
   const n = turns;
-  let failures = 0;
-  let warnings = 0;
 
   layWinding(n, wire, core, out);
   const copperArea = turnCopperArea(wireCtx, core);
   out.copperFill = windowFill(n, copperArea, core.windowArea);
-  if (!fitsBuildHeight(out.buildHeight, core)) failures |= FAILURE.build;
-  if (out.copperFill > limits.windowUtilisation) failures |= FAILURE.fill;
+  out.layoutFailures = out.copperFill > limits.windowUtilisation ? FAILURE.fill : 0;
 
   out.resistance20 = windingResistance(n, out.meanTurnLength, copperArea, 20);
   const dowellLayers = (Number.isFinite(out.layers) ? out.layers : 1) * wireCtx.layersPerWindingLayer;
@@ -314,10 +449,44 @@ export function evaluateWinding(
     }
   } else rippleWeightNodes(wireCtx.acTable, dowellLayers, loss.rippleWeights);
   loss.acGrid = ctx.acGrid;
+  // The DC flux at full load sets the DC field in the material, which raises the core loss where the material has
+  // DC-bias data (dc-bias-loss.ts); both placements of one turns count meet the same inductance, so they share it.
   out.dcField = coreDcField(core.gapKind, dcFlux, material.permeability, n, op.ioutMax, core.le);
   out.biasLossFactor = biasLossFactor(material.biasLoss, out.dcField);
   loss.coreLossReference = out.coreLossDensityIgse * core.ve * out.biasLossFactor;
   loss.temperatureCoefficients = material.tempCoefficients;
+  // No temperature solved for this layout yet.
+  loss.gapLossScale = Number.NaN;
+}
+
+/**
+ * On the layout layOutWinding left in `out` (same core, material, turns and wire): the keep-out's build check, the
+ * gap-field loss of this magnetic design at this keep-out, the temperature iteration and the failures it decides.
+ * When neither the gap-field scale nor the keep-out changed since the last call on the same layout, the figures
+ * already hold the answer and are kept. `scale` is gapLossScale of the same design and keep-out when the caller has it.
+ */
+export function evaluateWindingLosses(
+  ctx: SpecContext,
+  coreCtx: CoreContext,
+  matCtx: MaterialContext,
+  mag: MagneticDesign,
+  wireCtx: WireContext,
+  out: CandidateFigures,
+  keepOut = ctx.limits.keepOut,
+  scale = gapLossScale(coreCtx.core, matCtx.material, mag, out, wireCtx.wire, keepOut),
+): void {
+  const { op, limits } = ctx;
+  const core = coreCtx.core;
+  const material = matCtx.material;
+  const loss = out.loss;
+  if (scale === loss.gapLossScale && keepOut === out.keepOut) return;
+  let failures = out.layoutFailures;
+  let warnings = 0;
+  // The bobbin height is the build at the default keep-out (the bobbin wall); more keep-out takes from it.
+  out.keepOut = keepOut;
+  if (!buildFitsWithKeepOut(core, out, keepOut)) failures |= FAILURE.build;
+  loss.gapLossScale = scale;
+  if (scale > 0) loss.gapLossWeights = wireGapTable(wireCtx, ctx);
   const thermal = solveTemperature(limits, loss, coreCtx.thermal, out.thermal);
   if (!thermal.converged) warnings |= WARNING.thermalNotConverged;
   if (thermal.runaway) failures |= FAILURE.thermalRunaway;
@@ -334,6 +503,7 @@ export function evaluateWinding(
   out.acFactor = thermal.rippleWeight / wireCtx.acTable.meanSquare;
   out.copperLossDc = dcCopperLoss(thermal.resistance, op.ioutMax);
   out.copperLossAc = thermal.resistance * thermal.rippleWeight;
+  out.gapLoss = thermal.gapLoss;
   out.coreLoss = thermal.coreLoss;
   out.totalLoss = thermal.totalLoss;
   out.riseBySurface = thermal.rise.bySurface;

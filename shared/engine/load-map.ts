@@ -8,10 +8,13 @@ import { dowellFactor, dowellSkinTerm } from './dowell';
 import { litzProximitySum } from './litz';
 import { evaluateDesign, type EvaluateInput } from './evaluate';
 import { MAX_HARMONIC } from './harmonics';
-import { prepareCore, prepareSpec, prepareWire } from './kernel';
+import { transverseFieldLoss } from './gap-field-loss';
+import { CandidateFigures, gapLossScale, prepareCore, prepareSpec, prepareWire, strandsPerPosition } from './kernel';
+import { designMagnetics } from './magnetic-design';
 import { piecewiseLinearSpectrum } from './piecewise-harmonics';
 import { biasedInductance } from './powder';
 import { emptyWoundCoreLoss, solveTemperature, ThermalSolution } from './thermal';
+import { layWinding } from './winding';
 
 /** 10 % to 100 % of full load in steps of 10 %. */
 export const LOAD_FRACTIONS: readonly number[] = [0.1, 0.2, 0.3, 0.4, 0.5, 0.6, 0.7, 0.8, 0.9, 1];
@@ -27,6 +30,8 @@ export interface LoadPoint {
   peakCurrent: number;
   copperDc: number;
   copperAc: number;
+  /** Winding loss from the gap's fringing field (gap-field-loss.ts) with this point's harmonics. */
+  copperGap: number;
   core: number;
   total: number;
   /** The inductor's loss over the output power Vout·Iout. */
@@ -48,8 +53,9 @@ export interface LossMap {
  * The built part (turns, gap, wire as evaluateDesign makes them, at its nominal inductance) run at each load and input
  * voltage: the real current waveform (CCM, boundary or DCM, buckWaveform), the copper loss from its DC value and
  * every harmonic's Dowell factor, the core loss by the iGSE over each linear segment of the flux (a resting segment
- * adds none; relaxation after it is not modelled) times the DC-bias factor at that load's DC field, iterated with the
- * temperature as evaluateDesign does.
+ * adds none; relaxation after it is not modelled) times the DC-bias factor at that load's DC field, the gap's
+ * fringing-field loss from the same harmonics at the design's keep-out, iterated with the temperature as
+ * evaluateDesign does.
  */
 export function lossMap(input: EvaluateInput, fractions: readonly number[] = LOAD_FRACTIONS): LossMap {
   const base = evaluateDesign(input);
@@ -66,6 +72,23 @@ export function lossMap(input: EvaluateInput, fractions: readonly number[] = LOA
     nominal: spec.vinNom ?? (spec.vinMin + spec.vinMax) / 2,
     max: spec.vinMax,
   };
+  // The gap-field loss: the layout's scale (per unit of Σ (I_n²/2)·P′_n) and each harmonic's P′_n at each AC node.
+  const mag = designMagnetics(core, material, ctx, input.turns, input.gap, input.placement);
+  const layout = new CandidateFigures();
+  layWinding(mag.turns, input.wire, core, layout);
+  const gapScale = gapLossScale(core, material, mag, layout, input.wire, input.keepOut ?? ctx.limits.keepOut);
+  const transverse: Float64Array[] = [];
+  if (gapScale > 0) {
+    const strands = strandsPerPosition(input.wire);
+    for (let node = 0; node < AC_TEMPERATURE_NODES; node++) {
+      const resistivity = copperResistivity(ctx.acGrid.temperatures[node]!);
+      const perHarmonic = new Float64Array(MAX_HARMONIC);
+      for (let n = 1; n <= MAX_HARMONIC; n++) {
+        perHarmonic[n - 1] = strands * transverseFieldLoss(input.wire.strandDiameter, n * spec.frequency, resistivity);
+      }
+      transverse.push(perHarmonic);
+    }
+  }
   const loss = emptyWoundCoreLoss();
   const thermal = new ThermalSolution();
   const points: LoadPoint[] = [];
@@ -88,7 +111,13 @@ export function lossMap(input: EvaluateInput, fractions: readonly number[] = LOA
           weight += term * spectrum.meanSquare[n - 1]!;
         }
         loss.rippleWeights[node] = weight;
+        if (gapScale > 0) {
+          let gap = 0;
+          for (let n = 1; n <= MAX_HARMONIC; n++) gap += transverse[node]![n - 1]! * spectrum.meanSquare[n - 1]!;
+          loss.gapLossWeights[node] = gap;
+        }
       }
+      loss.gapLossScale = gapScale;
       loss.resistance20 = base.copper.resistance20;
       loss.dcCurrentSquare = spectrum.average * spectrum.average;
       loss.acGrid = ctx.acGrid;
@@ -117,6 +146,7 @@ export function lossMap(input: EvaluateInput, fractions: readonly number[] = LOA
         peakCurrent: waveform.peak,
         copperDc: thermal.resistance * loss.dcCurrentSquare,
         copperAc: thermal.resistance * thermal.rippleWeight,
+        copperGap: thermal.gapLoss,
         core: thermal.coreLoss,
         total,
         share: total / (spec.vout * iout),

@@ -35,6 +35,8 @@ export interface Group {
   placement: number;
   turns: number;
   wire: number;
+  /** Keep-out of the best build (m). */
+  keepOut: number;
   loss: number;
   rise: number;
   extrapolated: boolean;
@@ -73,6 +75,7 @@ export function recordFeasible(
       placement: at.placement,
       turns: 0,
       wire: -1,
+      keepOut: 0,
       loss: Number.POSITIVE_INFINITY,
       rise: 0,
       extrapolated: false,
@@ -83,6 +86,7 @@ export function recordFeasible(
   if (figures.totalLoss >= group.loss) return;
   group.turns = at.turns;
   group.wire = at.w;
+  group.keepOut = figures.keepOut;
   group.loss = figures.totalLoss;
   group.rise = figures.rise;
   group.extrapolated = (figures.warnings & (WARNING.frequencyFit | WARNING.fluxFit)) !== 0;

@@ -5,14 +5,19 @@ import type { ConverterSpec, DesignLimits, EngineIssue, RankBy } from './inputs'
 import {
   applyMagnetics,
   CandidateFigures,
+  buildFitsWithKeepOut,
   evaluateCandidate,
-  evaluateWinding,
+  evaluateWindingLosses,
+  FAILURE,
+  gapLossScale,
+  layOutWinding,
   prepareCore,
   prepareMaterial,
   prepareSpec,
   prepareWires,
   type CoreContext,
   type MaterialContext,
+  type SpecContext,
   type WireContext,
 } from './kernel';
 import { designMagnetics, windowTurnLimit, type MagneticDesign } from './magnetic-design';
@@ -111,6 +116,64 @@ export function compatible(core: CoreShape, material: CoreMaterial): boolean {
 
 const cm4 = (m4: number) => (m4 * 1e8).toFixed(2);
 
+/** Keep-outs beyond the limit's the search tries when the gap-field loss is worth it (m). */
+export const EXTRA_KEEP_OUTS = [0.5e-3, 1e-3, 2e-3] as const;
+/** More keep-out is tried only when the gap-field loss is at least this fraction of the total loss. */
+const KEEP_OUT_TRY_FRACTION = 0.02;
+
+/**
+ * The winding at the limit's keep-out, or at a larger one (EXTRA_KEEP_OUTS) when the gap-field loss is worth it and
+ * that lowers the total loss without a failure the limit's keep-out did not have: window traded for distance from
+ * the gap. Keep-outs are tried from the smallest up to the first that adds a failure and the lowest loss is kept. On
+ * one layout the loss rises with the gap-field scale alone (a stable temperature iteration passes a lower loss on as
+ * a lower temperature), so keep-outs are compared by their scale, a field sum without a temperature: the build check
+ * needs none either (a keep-out the bobbin cannot take ends the tries), and only a keep-out whose scale is above the
+ * limit's, whose loss is higher and may fail a temperature limit, is solved to see whether it ends them. A ground
+ * gap's field only falls with distance, so the largest keep-out is the lowest; a spacer's outer-leg gap lies across
+ * the window and more keep-out brings the winding nearer to it. Works on the layout layOutWinding left in `out` and
+ * leaves the chosen keep-out's figures there.
+ */
+function evaluateWithKeepOut(
+  ctx: SpecContext,
+  coreCtx: CoreContext,
+  matCtx: MaterialContext,
+  mag: MagneticDesign,
+  wireCtx: WireContext,
+  out: CandidateFigures,
+): void {
+  const base = ctx.limits.keepOut;
+  evaluateWindingLosses(ctx, coreCtx, matCtx, mag, wireCtx, out, base);
+  if (!(out.gapLoss > KEEP_OUT_TRY_FRACTION * out.totalLoss)) return;
+  const core = coreCtx.core;
+  const baseFailures = out.windingFailures;
+  const baseLoss = out.totalLoss;
+  const baseScale = out.loss.gapLossScale;
+  const buildChecked = (baseFailures & FAILURE.build) === 0;
+  let tries = 0;
+  while (tries < EXTRA_KEEP_OUTS.length && (!buildChecked || buildFitsWithKeepOut(core, out, base + EXTRA_KEEP_OUTS[tries]!))) {
+    tries++;
+  }
+  let best = base;
+  let bestScale = baseScale;
+  // A ground gap: the largest keep-out has the lowest scale, the others need no field sum.
+  for (let i = mag.placement === 'spacer' ? 0 : tries - 1; i < tries; i++) {
+    const keepOut = base + EXTRA_KEEP_OUTS[i]!;
+    const scale = gapLossScale(core, matCtx.material, mag, out, wireCtx.wire, keepOut);
+    if (scale > baseScale) {
+      evaluateWindingLosses(ctx, coreCtx, matCtx, mag, wireCtx, out, keepOut, scale);
+      if ((out.windingFailures & ~baseFailures) !== 0) break;
+    } else if (scale < bestScale) {
+      best = keepOut;
+      bestScale = scale;
+    }
+  }
+  if (best !== base) {
+    evaluateWindingLosses(ctx, coreCtx, matCtx, mag, wireCtx, out, best, bestScale);
+    if ((out.windingFailures & ~baseFailures) === 0 && out.totalLoss < baseLoss) return;
+  }
+  evaluateWindingLosses(ctx, coreCtx, matCtx, mag, wireCtx, out, base, baseScale);
+}
+
 const nextTurns = (turns: number) => (turns < TURNS_GEOMETRIC_FROM ? turns + 1 : Math.ceil(turns * TURNS_GEOMETRIC_STEP));
 
 export function searchCandidates(input: SearchInput): SearchResult {
@@ -197,12 +260,13 @@ export function searchCandidates(input: SearchInput): SearchResult {
           const w = choice[t]!;
           if (w < 0) continue;
           anyWire = true;
-          // Winding, losses and temperature are the same for every placement; only the gap's share is redone.
-          evaluateWinding(ctx, coreCtxs[c]!, materialCtxs[m]!, turns, mags[0]!.fluxAtLoad, wireCtxs[w]!, figures);
-          if (figures.totalLoss < stepLowest) stepLowest = figures.totalLoss;
+          layOutWinding(ctx, coreCtxs[c]!, materialCtxs[m]!, turns, mags[0]!.fluxAtLoad, wireCtxs[w]!, figures);
           for (let p = 0; p < placements.length; p++) {
             evaluated++;
             const placement = placements[p]!;
+            // The layout is the placements'; the gap-field loss, hence the losses and temperature, are each one's own.
+            evaluateWithKeepOut(ctx, coreCtxs[c]!, materialCtxs[m]!, mags[p]!, wireCtxs[w]!, figures);
+            if (figures.totalLoss < stepLowest) stepLowest = figures.totalLoss;
             if (applyMagnetics(ctx, core, material, mags[p]!, figures)) {
               pair.feasible = true;
               recordFeasible(groups, pairGroups, { c, m, t, turns, w, placement }, figures, core, material, wireCtxs[w]!);
@@ -258,7 +322,7 @@ export function searchCandidates(input: SearchInput): SearchResult {
     const placement = GAP_PLACEMENTS[g.placement]!;
     const mag = designMagnetics(core, material, ctx, g.turns, 'auto', placement);
     const wireCtx = wireCtxs[g.wire]!;
-    evaluateCandidate(ctx, coreCtxs[g.core]!, materialCtxs[g.material]!, mag, wireCtx, figures);
+    evaluateCandidate(ctx, coreCtxs[g.core]!, materialCtxs[g.material]!, mag, wireCtx, figures, g.keepOut);
     return {
       rank: rankOf[i]!,
       pareto: onVolumeFront.has(i),

@@ -1,5 +1,5 @@
 import { copperResistanceRatio } from './copper';
-import { AC_TEMPERATURE_NODES, interpolateAtTemperature, type AcTemperatureGrid } from './copper-loss';
+import { AC_TEMPERATURE_NODES, gridScaleAt, interpolateAtScale, type AcTemperatureGrid } from './copper-loss';
 import { coreLossTemperatureFactor, type TemperatureCoefficients } from './core-loss';
 import { NetworkSolution, solveNetwork, thermalNetwork, type Cooling, type ThermalNetwork } from './thermal-network';
 import type { CoreFamily, CoreShape } from './types';
@@ -7,7 +7,19 @@ import type { CoreFamily, CoreShape } from './types';
 /** Surface-dissipation law ΔT = 450·(P/At)^0.826, P in W and At in cm² (At given here in m²). */
 export function surfaceDissipationRise(power: number, surfaceArea: number): number {
   if (!(power > 0)) return 0;
-  return 450 * Math.pow(power / (surfaceArea * 1e4), 0.826);
+  return 450 * Math.pow(power / (surfaceArea * 1e4), SURFACE_EXPONENT);
+}
+
+const SURFACE_EXPONENT = 0.826;
+
+/**
+ * The loss above which the volume law's rise P·Rth exceeds the surface law's 450·(P/A)^0.826 (W): the two cross once,
+ * at P = (450/(A^0.826·Rth))^(1/0.174); set a hair above it so a rounding error cannot reverse the comparison. Above
+ * it the temperature iteration needs no power of the surface law.
+ */
+export function volumeLawAbove(surfaceArea: number, volumeThermalResistance: number): number {
+  const crossing = Math.pow(450 / (Math.pow(surfaceArea * 1e4, SURFACE_EXPONENT) * volumeThermalResistance), 1 / (1 - SURFACE_EXPONENT));
+  return crossing > 0 ? crossing * (1 + 1e-6) : Number.POSITIVE_INFINITY;
 }
 
 /** Thermal resistance of a ferrite E-type core from its effective volume: Rth = 53·Ve^−0.54, Ve in cm³ (K/W). */
@@ -54,6 +66,13 @@ export interface WoundCoreLoss {
   acGrid: AcTemperatureGrid | undefined;
   /** Core loss with the temperature factor 1 (W). */
   coreLossReference: number;
+  /**
+   * Eddy loss the gap's fringing field drives in the winding (gap-field-loss.ts): gapLossScale (1/m·…) times the
+   * wire's ripple transverse-field loss at the grid's nodes, interpolated at the part's temperature like the ripple
+   * weight; scale 0 for none.
+   */
+  gapLossScale: number;
+  gapLossWeights: Float64Array;
   temperatureCoefficients: TemperatureCoefficients | undefined;
 }
 
@@ -65,6 +84,8 @@ export function emptyWoundCoreLoss(): WoundCoreLoss {
     rippleWeights: new Float64Array(AC_TEMPERATURE_NODES),
     acGrid: undefined,
     coreLossReference: 0,
+    gapLossScale: 0,
+    gapLossWeights: new Float64Array(AC_TEMPERATURE_NODES),
     temperatureCoefficients: undefined,
   };
 }
@@ -105,6 +126,8 @@ export class ThermalSolution {
   /** Winding resistance (at the winding node), ripple weight Σ Fr·I_n²/2, core-loss factor and total loss of the last pass. */
   resistance = 0;
   rippleWeight = 0;
+  /** Winding loss from the gap's fringing field in the last pass (W). */
+  gapLoss = 0;
   temperatureFactor = 1;
   /** The factor as the coefficients give it, before the floor; ≤ 0 means the fit is invalid at that temperature. */
   rawTemperatureFactor = 1;
@@ -142,6 +165,7 @@ export function solveTemperature(
   let passes = 0;
   let resistance = 0;
   let rippleWeight = 0;
+  let gapLoss = 0;
   let rawFactor = 1;
   let temperatureFactor = 1;
   let coreTemperature = ambient;
@@ -154,10 +178,16 @@ export function solveTemperature(
     coreTemperature = Math.min(net.coreTemperature, THERMAL_MODEL_LIMIT);
     windingTemperature = Math.min(net.windingTemperature, THERMAL_MODEL_LIMIT);
     resistance = loss.resistance20 * copperResistanceRatio(windingTemperature);
-    rippleWeight = loss.acGrid ? interpolateAtTemperature(loss.acGrid, loss.rippleWeights, windingTemperature) : loss.rippleWeights[0]!;
+    const scale = loss.acGrid ? gridScaleAt(loss.acGrid, windingTemperature) : 0;
+    rippleWeight = loss.acGrid ? interpolateAtScale(loss.acGrid, loss.rippleWeights, scale) : loss.rippleWeights[0]!;
     rawFactor = coreLossTemperatureFactor(loss.temperatureCoefficients, coreTemperature);
     temperatureFactor = rawFactor > TEMPERATURE_FACTOR_FLOOR ? rawFactor : TEMPERATURE_FACTOR_FLOOR;
-    copperLoss = resistance * (loss.dcCurrentSquare + rippleWeight);
+    // The gap's fringing field drives eddy loss in the winding: copper loss, at the winding's temperature.
+    gapLoss =
+      loss.gapLossScale > 0
+        ? loss.gapLossScale * (loss.acGrid ? interpolateAtScale(loss.acGrid, loss.gapLossWeights, scale) : loss.gapLossWeights[0]!)
+        : 0;
+    copperLoss = resistance * (loss.dcCurrentSquare + rippleWeight) + gapLoss;
     coreLoss = loss.coreLossReference * temperatureFactor;
     if (passes === 0) {
       // The first pass takes the surface law's rise for the losses at ambient: a cheap start near the network's
@@ -183,6 +213,7 @@ export function solveTemperature(
   out.rise.design = rise < cap ? rise : cap;
   out.resistance = resistance;
   out.rippleWeight = rippleWeight;
+  out.gapLoss = gapLoss;
   out.temperatureFactor = temperatureFactor;
   out.rawTemperatureFactor = rawFactor;
   out.coreTemperature = Math.min(net.coreTemperature, THERMAL_MODEL_LIMIT);

@@ -106,8 +106,15 @@ export const evaluationResultSchema = z.object({
     'saturationMargin',
     'requiredMargin',
   ),
-  winding: numbers('turnsPerLayer', 'layers', 'buildHeight', 'buildAvailable', 'copperFill', 'meanTurnLength', 'wireLength'),
-  copper: numbers('resistance20', 'resistanceHot', 'acFactor', 'skinDepth', 'penetrationRatio', 'dcLoss', 'acLoss'),
+  winding: numbers('turnsPerLayer', 'layers', 'buildHeight', 'buildAvailable', 'copperFill', 'meanTurnLength', 'wireLength').extend({
+    keepOut: z.number().optional().meta({ description: 'Copper keep-out from the gap (m); absent in results stored before engine 2.1' }),
+  }),
+  copper: numbers('resistance20', 'resistanceHot', 'acFactor', 'skinDepth', 'penetrationRatio', 'dcLoss', 'acLoss').extend({
+    gapLoss: z
+      .number()
+      .optional()
+      .meta({ description: "Winding loss from the gap's fringing field (W); absent in results stored before engine 2.1" }),
+  }),
   coreLoss: numbers('steinmetzDensity', 'igseDensity', 'temperatureFactor', 'loss').extend({
     dcBias: numbers('field', 'factor')
       .extend({
@@ -122,12 +129,9 @@ export const evaluationResultSchema = z.object({
   }),
   totalLoss: z.number(),
   thermal: numbers('riseBySurface', 'rise', 'surfaceTemperature', 'hotSpot', 'passes').extend({
-    riseByVolume: z
-      .number()
-      .nullable()
-      .meta({
-        description: 'Core-volume law rise (K) as a cross-check; null where the law does not apply (not an E, ETD, EFD or EQ core)',
-      }),
+    riseByVolume: z.number().nullable().meta({
+      description: 'Core-volume law rise (K) as a cross-check; null where the law does not apply (not an E, ETD, EFD or EQ core)',
+    }),
     coreTemperature: z
       .number()
       .optional()
@@ -146,7 +150,7 @@ export const evaluationResultSchema = z.object({
     .meta({ description: 'Nominal, low- and high-tolerance corners of the saturation and inductance checks' }),
 }) satisfies z.ZodType<EvaluationResult>;
 
-export const lossAtFrequencySchema = numbers('frequency', 'copperDc', 'copperAc', 'core', 'total', 'rise').extend({
+export const lossAtFrequencySchema = numbers('frequency', 'copperDc', 'copperAc', 'copperGap', 'core', 'total', 'rise').extend({
   feasible: z.boolean().meta({ description: 'The part keeps its saturation and temperature limits at this frequency' }),
 }) satisfies z.ZodType<LossAtFrequency>;
 
@@ -157,6 +161,7 @@ export const loadPointSchema = numbers(
   'peakCurrent',
   'copperDc',
   'copperAc',
+  'copperGap',
   'core',
   'total',
   'share',

@@ -93,6 +93,15 @@ export const converterSpecSchema = z
   .meta({ description: 'Buck converter in continuous conduction; exactly one of rippleRatio, rippleCurrent, inductance' });
 export type ConverterSpecRequest = z.infer<typeof converterSpecSchema>;
 
+/** One design's clearance from the centre leg (and its gap) to the copper; more than the bobbin wall takes from the build. */
+export const keepOutSchema = rangeNumber(
+  'keepOut',
+  0,
+  10e-3,
+  'm',
+  "Clearance from the centre leg (and its gap) to this winding's copper (0…0.01 m); default the limits' keepOut",
+);
+
 export const designLimitsSchema = z
   .object({
     ambient: rangeNumber('ambient', -40, 125, '°C', 'Ambient temperature').optional(),
@@ -121,6 +130,13 @@ export const designLimitsSchema = z
       .optional(),
     minPermeabilityAtPeak: rangeNumber('minPermeabilityAtPeak', 0, 1, '', 'Smallest L(Ipk)/L0 of a powder core').optional(),
     minGap: rangeNumber('minGap', 0, 5e-3, 'm', 'Smallest ground gap or spacer a workshop can hold').optional(),
+    keepOut: rangeNumber(
+      'keepOut',
+      0,
+      10e-3,
+      'm',
+      "Clearance from the centre leg (and its gap) to the winding's copper the search starts from",
+    ).optional(),
     gapPlacements: uniqueListSchema(z.enum(GAP_PLACEMENTS), GAP_PLACEMENTS.length, 'gapPlacements', 1)
       .meta({ description: 'Gap placements the search may propose for air-gap cores: "ground", "spacer" (default both)' })
       .optional(),
@@ -374,6 +390,7 @@ export const evaluateRequestSchema = z
       .enum(GAP_PLACEMENTS)
       .meta({ description: 'Gap ground into the centre leg (default) or a spacer under all legs' })
       .optional(),
+    keepOut: keepOutSchema.optional(),
     wire: wireRequestSchema,
   })
   .strict()

@@ -4,7 +4,7 @@ import * as z from 'zod';
 import { text } from './text';
 import type { EvaluationResult } from '@shared/engine/evaluate';
 import { CORE_FAMILIES, GAP_PLACEMENTS, type WireOption } from '@shared/engine/types';
-import { converterSpecSchema, designLimitsSchema, wireRequestSchema } from './calc';
+import { converterSpecSchema, designLimitsSchema, keepOutSchema, wireRequestSchema } from './calc';
 import { evaluationResultSchema, wireOptionSchema } from './calc-answers';
 import { storedIdSchema, storedIdTextSchema, uniqueListSchema } from './ids';
 
@@ -49,6 +49,7 @@ export const constructionSchema = z
       .enum(GAP_PLACEMENTS)
       .default('ground')
       .meta({ description: 'Gap ground into the centre leg (default) or a spacer under all legs; ignored for distributed-gap cores' }),
+    keepOut: keepOutSchema.optional(),
     wire: wireRequestSchema,
   })
   .strict()

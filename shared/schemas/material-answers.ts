@@ -24,7 +24,10 @@ export const coreMaterialSchema = z.object({
   permeability: z.number(),
   rollOff: z.object({ a: z.number(), b: z.number(), c: z.number() }).optional(),
   biasLoss: z
-    .object({ doublingField: z.number().meta({ description: 'H₂, A/m: the DC field at which core loss has doubled' }), steepness: z.number() })
+    .object({
+      doublingField: z.number().meta({ description: 'H₂, A/m: the DC field at which core loss has doubled' }),
+      steepness: z.number(),
+    })
     .optional()
     .meta({ description: 'Core loss under DC bias: factor 1 + (H/H₂)^m' }),
   density: z.number(),

@@ -68,6 +68,11 @@ export const windingSheetSchema = z
       interlayerTape: z.string(),
       margins: z.string(),
       outerWrap: z.string(),
+      keepOut: z
+        .number()
+        .nullable()
+        .optional()
+        .meta({ description: 'Copper clearance from the centre leg and its gap (m); null without an air gap; absent on older sheets' }),
     }),
     terminations: z.array(z.string()),
     assembly: z.array(z.string()),

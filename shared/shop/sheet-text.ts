@@ -10,6 +10,14 @@ export const milliohm = (r: number) => `${fmt(r * 1e3)} mΩ`;
 export const millimetre = (m: number, digits = 3) => `${fmt(m * 1e3, digits)} mm`;
 export const kilohertz = (hz: number) => `${fmt(hz / 1e3)} kHz`;
 
+/**
+ * The keep-out as the shop reads it: the copper's clearance from the gap, which the bobbin tube's wall gives up to its
+ * thickness; more is built up with tape on the tube before the first layer.
+ */
+export const keepOutText = (keepOut: number) =>
+  `Keep copper ≥ ${millimetre(keepOut)} from the gap (centre leg): the bobbin tube's wall counts; build up the rest ` +
+  'with tape before the first layer';
+
 export interface SheetSection {
   title: string;
   lines: [label: string, value: string][];
@@ -51,6 +59,7 @@ export function sheetSections(s: WindingSheet): SheetSection[] {
         ['Traverse', s.winding.traverse],
         ['Interlayer tape', s.winding.interlayerTape],
         ['Margins', s.winding.margins],
+        ...(typeof s.winding.keepOut === 'number' ? [['Keep-out', keepOutText(s.winding.keepOut)] as [string, string]] : []),
         ['Outer wrap', s.winding.outerWrap],
       ],
     },

@@ -71,6 +71,12 @@ export interface WindingSheet {
     interlayerTape: string;
     margins: string;
     outerWrap: string;
+    /**
+     * Clearance from the centre leg (and its gap) to the first layer's copper the design was evaluated with (m): the
+     * gap's fringing field drives eddy loss in copper close to it. Null where there is no air gap (ring, distributed
+     * gap); absent on sheets released before it was given.
+     */
+    keepOut?: number | null;
   };
   terminations: string[];
   assembly: string[];

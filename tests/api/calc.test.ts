@@ -179,6 +179,48 @@ describe('POST /api/calc/search and /api/calc/evaluate', () => {
     expect(JSON.stringify(refused.body)).toMatch(/sweep/);
   });
 
+  it('evaluates a candidate the search moved further from the gap (keepOut) to the same figures', async () => {
+    const materialIds = await demoMaterialIds();
+    const search = await engineer.post('/api/calc/search', { spec: EXAMPLE_SPEC, materialIds, limit: 200 });
+    expect(search.status).toBe(200);
+    interface Candidate {
+      placement: string;
+      wire: { kind: string; strandDiameter: number; strands: number };
+      result: {
+        core: { id: string };
+        material: { id: string };
+        turns: number;
+        gap: { total: number; spacer: number };
+        totalLoss: number;
+        winding: { keepOut: number };
+        copper: { gapLoss: number };
+      };
+    }
+    const moved = (search.body.candidates as Candidate[]).find((c) => c.result.winding.keepOut > 0.5e-3);
+    expect(moved, 'a candidate with more keep-out than the limit').toBeDefined();
+    const body = {
+      spec: EXAMPLE_SPEC,
+      coreId: moved!.result.core.id,
+      materialId: moved!.result.material.id,
+      turns: moved!.result.turns,
+      placement: moved!.placement,
+      gap: moved!.placement === 'spacer' ? moved!.result.gap.spacer : moved!.result.gap.total,
+      wire: { kind: moved!.wire.kind, strandDiameter: moved!.wire.strandDiameter, strands: moved!.wire.strands },
+    };
+    const res = await engineer.post('/api/calc/evaluate', { ...body, keepOut: moved!.result.winding.keepOut });
+    expect(res.status, JSON.stringify(res.body)).toBe(200);
+    expect(res.body.result.winding.keepOut).toBe(moved!.result.winding.keepOut);
+    expect(relative(res.body.result.totalLoss, moved!.result.totalLoss)).toBeLessThan(1e-9);
+    expect(relative(res.body.result.copper.gapLoss, moved!.result.copper.gapLoss)).toBeLessThan(1e-9);
+    // Without it the design falls back to the limit's keep-out: nearer the gap, more gap-field loss.
+    const atLimit = await engineer.post('/api/calc/evaluate', body);
+    expect(atLimit.body.result.winding.keepOut).toBe(0.5e-3);
+    expect(atLimit.body.result.copper.gapLoss).toBeGreaterThan(moved!.result.copper.gapLoss);
+    const refused = await engineer.post('/api/calc/evaluate', { ...body, keepOut: -1e-3 });
+    expect(refused.status).toBe(400);
+    expect(Object.keys(refused.body.error.fields)).toContain('keepOut');
+  });
+
   it('changing the turns by hand changes the losses', async () => {
     const materialIds = await demoMaterialIds();
     const search = await engineer.post('/api/calc/search', { spec: EXAMPLE_SPEC, materialIds, limit: 1 });

@@ -203,6 +203,23 @@ describe('designs: gap placement', () => {
     expect(oldEdit.body.result.evaluation.gap.total).toBeCloseTo(old.latest.construction.gap, 12);
   });
 
+  it('saves the keep-out with the construction, evaluates with it and keeps it through an edit', async () => {
+    const keepOut = 1.5e-3;
+    const res = await erin.post('/api/designs', { title: 'Kept-out choke', spec: SPEC, construction: { ...construction(), keepOut } });
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    const saved = res.body.latest;
+    expect(saved.construction.keepOut).toBe(keepOut);
+    expect(saved.result.evaluation.winding.keepOut).toBe(keepOut);
+    const plain = await createDesign(erin, 'Choke at the limit keep-out');
+    const atLimit = (await erin.get(`/api/designs/${plain.id}`)).body.latest.result.evaluation;
+    expect(atLimit.winding.keepOut).toBe(0.5e-3);
+    expect(saved.result.evaluation.copper.gapLoss).toBeLessThan(atLimit.copper.gapLoss);
+    const edited = await erin.patch(`/api/designs/${res.body.id}/revisions/1`, { note: 'checked' });
+    expect(edited.status).toBe(200);
+    expect(edited.body.construction.keepOut).toBe(keepOut);
+    expect(edited.body.result.evaluation.totalLoss).toBe(saved.result.evaluation.totalLoss);
+  });
+
   it('refuses an unknown placement naming the field', async () => {
     const res = await erin.post('/api/designs', { title: 'Glued', spec: SPEC, construction: { ...construction(), placement: 'glued' } });
     expect(res.status).toBe(400);

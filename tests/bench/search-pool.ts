@@ -108,6 +108,11 @@ function searchLoad(data: SearchLoadData) {
 }
 
 export async function runSearchBench({ runs = 40, connections = 8, rounds = 6 } = {}): Promise<BenchRow[]> {
+  // The in-process searches come first, before any connection to the server exists: they block this process's event
+  // loop for (runs + 5) searches, and a keep-alive socket left idle across that longer than the server's 5 s
+  // keep-alive is closed by the server before the client's own timer can retire it; the next request on it then
+  // failed with "other side closed".
+  const parts = await searchParts(runs);
   const database = `gapwright_bench_search_${Date.now().toString(36)}`;
   const cluster = ensureCluster();
   ensureDatabase(database);
@@ -137,7 +142,6 @@ export async function runSearchBench({ runs = 40, connections = 8, rounds = 6 } 
       serverSide.push(answer.serverTiming);
       floor.push(floorTime);
     }
-    const parts = await searchParts(runs);
 
     // (b) Health alone, then beside `connections` connections searching back to back, in turns: the machine's other
     // load drifts, and idle and busy rounds side by side see the same drift.
@@ -188,6 +192,11 @@ export async function runSearchBench({ runs = 40, connections = 8, rounds = 6 } 
         value: `${counts.searches} answered (${(counts.searches / ((rounds * (RAMP_MS + BUSY_MS)) / 1000)).toFixed(1)}/s), ${counts.failed} not 2xx`,
       },
     ];
+  } catch (error) {
+    // A server that died mid-bench says why on its stderr: keep it with the error.
+    const tail = server?.stderrTail().trim();
+    if (tail) throw new Error(`${(error as Error).message}\nserver stderr (exit ${server?.child.exitCode}):\n${tail}`, { cause: error });
+    throw error;
   } finally {
     load?.kill();
     server?.child.kill('SIGTERM');

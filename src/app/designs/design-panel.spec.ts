@@ -115,3 +115,34 @@ describe('DesignPanel thermal figures', () => {
     expect(text(page, 'empirical-rises')).toBe('37.5 K / 42.1 K');
   });
 });
+
+describe('DesignPanel keep-out and gap-field loss', () => {
+  it("shows the keep-out and the winding loss from the gap's field, and keeps the keep-out when the turns change", async () => {
+    TestBed.configureTestingModule({ providers: [provideEchartsCore({ echarts: () => new Promise<never>(() => undefined) })] });
+    const result = {
+      ...ground.result,
+      winding: { ...ground.result.winding, keepOut: 1.5e-3 },
+      copper: { ...ground.result.copper, gapLoss: 0.042 },
+    };
+    const construction: Construction = { ...CONSTRUCTION, placement: 'ground', gap: ground.result.gap.total, keepOut: 1.5e-3 };
+    const { fixture, http, page } = await renderWithHttpTesting(
+      DesignPanel,
+      { spec: SPEC, construction, known: { ...answer(ground), result } },
+      { settle: false },
+    );
+    for (const request of http.match((r) => r.url.endsWith('/cores'))) request.flush({ cores: [] });
+    await fixture.whenStable();
+    expect(page.querySelector('[data-figure="keep-out"]')!.textContent).toMatch(/copper ≥ 1\.5 mm from the centre leg/);
+    const gapLoss = page.querySelector('[data-figure="gap-loss"]')!;
+    expect(gapLoss.previousElementSibling!.textContent).toBe("Winding loss from the gap's field");
+    expect(gapLoss.textContent).toMatch(/42(\.0)? mW/);
+    expect(page.querySelector('[aria-label^="Losses:"]')!.getAttribute('aria-label')).toContain("winding loss from the gap's field 42");
+
+    const turns = page.querySelector<HTMLInputElement>('input[formcontrolname="turns"]')!;
+    turns.value = '17';
+    turns.dispatchEvent(new Event('input'));
+    await new Promise((resolve) => setTimeout(resolve, 350));
+    const request = http.expectOne((r) => r.method === 'POST' && r.url === '/api/calc/evaluate');
+    expect(request.request.body).toMatchObject({ turns: 17, keepOut: 1.5e-3 });
+  });
+});

@@ -26,6 +26,9 @@ import { percent, show, showUnit } from './format';
 
 type WireKind = 'awg' | 'metric' | 'litz' | 'foil';
 
+/** The loss the gap's fringing field drives in the winding, in the figures and the loss chart's description. */
+export const GAP_LOSS_WORDS = "Winding loss from the gap's field";
+
 /** The chosen design: every figure, three charts, warnings; core, material, turns, gap placement, gap and wire re-evaluate live. */
 @Component({
   selector: 'gw-design-panel',
@@ -62,6 +65,8 @@ export class DesignPanel {
     turns: new FormControl<number | null>(null, { validators: [Validators.required, Validators.min(1), Validators.max(2000)] }),
     placement: new FormControl<GapPlacement>('ground', { nonNullable: true }),
     gap: new FormControl<number | null>(null),
+    /** Copper's clearance from the centre leg and its gap (m); empty follows the limits' keep-out. */
+    keepOut: new FormControl<number | null>(null, { validators: [Validators.min(0), Validators.max(10e-3)] }),
     wireKind: new FormControl<WireKind>('awg', { nonNullable: true }),
     awg: new FormControl<number | null>(null, { validators: [Validators.min(-3), Validators.max(46)] }),
     strandDiameter: new FormControl<number | null>(null),
@@ -82,6 +87,7 @@ export class DesignPanel {
   protected readonly fmt = show;
   protected readonly unit = showUnit;
   protected readonly pct = percent;
+  protected readonly gapLossWords = GAP_LOSS_WORDS;
   protected readonly result = computed(() => this.view()?.result ?? null);
   /** Cores that take the current material: gapped sets for ferrites and the like, rings and toroids for powders. */
   protected readonly coreOptions = computed(() => {
@@ -178,6 +184,7 @@ export class DesignPanel {
       turns: typeof construction.turns === 'number' ? construction.turns : (known?.result.turns ?? null),
       placement: construction.placement,
       gap: typeof construction.gap === 'number' ? construction.gap : known ? gapInputOf(known.result.gap) : null,
+      keepOut: construction.keepOut ?? null,
       wireKind: wire.kind,
       awg: wire.awg ?? null,
       strandDiameter: wire.strandDiameter ?? null,
@@ -201,16 +208,18 @@ export class DesignPanel {
         : { kind: v.wireKind, strandDiameter: v.strandDiameter ?? 0, strands: v.wireKind === 'foil' ? 1 : v.strands };
     if (wire.strandDiameter === 0) return null;
     const { coreId, materialId, placement } = v;
+    // The keep-out stays with the winding whatever else changes; empty follows the limits.
+    const keepOut = v.keepOut === null ? {} : { keepOut: v.keepOut };
     if (this.coreChanged) {
       this.coreChanged = false;
       this.placementChanged = false;
-      return { coreId, materialId, turns: 'auto', gap: 'auto', placement, wire };
+      return { coreId, materialId, turns: 'auto', gap: 'auto', placement, ...keepOut, wire };
     }
     if (this.placementChanged) {
       this.placementChanged = false;
-      return { coreId, materialId, turns: v.turns, gap: 'auto', placement, wire };
+      return { coreId, materialId, turns: v.turns, gap: 'auto', placement, ...keepOut, wire };
     }
-    return { coreId, materialId, turns: v.turns, gap: v.gap ?? 'auto', placement, wire };
+    return { coreId, materialId, turns: v.turns, gap: v.gap ?? 'auto', placement, ...keepOut, wire };
   }
 
   /** The three charts beside the figures, each with the words a screen reader gives for it. */
@@ -223,7 +232,9 @@ export class DesignPanel {
       {
         title: 'Loss breakdown',
         options: this.lossChart(),
-        label: `Losses: copper DC ${power(r.copper.dcLoss)}, copper AC ${power(r.copper.acLoss)}, core ${power(r.coreLoss.loss)}`,
+        label:
+          `Losses: copper DC ${power(r.copper.dcLoss)}, copper AC ${power(r.copper.acLoss)}, ` +
+          `${GAP_LOSS_WORDS.toLowerCase()} ${power(r.copper.gapLoss ?? 0)}, core ${power(r.coreLoss.loss)}`,
       },
       {
         title: 'Flux against Bsat at temperature',
@@ -250,12 +261,12 @@ export class DesignPanel {
       animation: false,
       grid: { left: 56, right: 16, top: 16, bottom: 32 },
       tooltip: { trigger: 'axis' },
-      xAxis: { type: 'category', data: ['Copper DC', 'Copper AC', 'Core (iGSE)', 'Total'] },
+      xAxis: { type: 'category', data: ['Copper DC', 'Copper AC', 'Gap field', 'Core (iGSE)', 'Total'], axisLabel: { interval: 0 } },
       yAxis: { type: 'value', name: 'W' },
       series: [
         {
           type: 'bar',
-          data: [r.copper.dcLoss, r.copper.acLoss, r.coreLoss.loss, r.totalLoss],
+          data: [r.copper.dcLoss, r.copper.acLoss, r.copper.gapLoss ?? 0, r.coreLoss.loss, r.totalLoss],
           label: { show: true, position: 'top', formatter: (p: { value: number }) => p.value.toFixed(3) },
         },
       ],

@@ -172,6 +172,8 @@ export class DesignWorkspace {
       turns: r.turns,
       gap: gapInputOf(r.gap),
       placement: candidate.placement,
+      // The search may have moved the copper further from the gap than the limits' keep-out.
+      keepOut: r.winding.keepOut,
       wire: wireRequestOf(candidate.wire),
     };
     const view: EvaluateAnswer = { engineVersion: '', wire: candidate.wire, result: r };

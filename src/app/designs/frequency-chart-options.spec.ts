@@ -8,7 +8,8 @@ const point = (frequency: number, feasible: boolean): LossAtFrequency => ({
   feasible,
   copperDc: 1,
   copperAc: 0.1,
-  core: 0.2,
+  copperGap: 0.05,
+  core: 0.15,
   total: 1.3,
   rise: 30,
 });
@@ -30,6 +31,13 @@ describe('loss-versus-frequency chart', () => {
     expect(solid!.data).toEqual([null, [50, 1.3], [100, 1.3]]);
     expect(dashed!.lineStyle?.type).toBe('dashed');
     expect(dashed!.data).toEqual([[25, 1.3], [50, 1.3], null]);
+  });
+
+  it("counts the gap's fringing-field loss as copper", () => {
+    const [copper] = options.series.filter((s) => s.name === 'Copper');
+    const [frequency, copperLoss] = copper!.data[2] as [number, number];
+    expect(frequency).toBe(100);
+    expect(copperLoss).toBeCloseTo(1 + 0.1 + 0.05, 12);
   });
 
   it('rings each infeasible point and names it in the legend and the description', () => {

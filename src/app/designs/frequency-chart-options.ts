@@ -40,7 +40,8 @@ export function frequencyChartOptions(sweep: readonly LossAtFrequency[], switchi
         : undefined,
     },
     totalDashed!,
-    ...curve('Copper', COLOURS.copper, (p) => p.copperDc + p.copperAc),
+    // Copper: DC, the ripple's Dowell loss and the gap's fringing-field loss in the winding.
+    ...curve('Copper', COLOURS.copper, (p) => p.copperDc + p.copperAc + p.copperGap),
     ...curve('Core', COLOURS.core, (p) => p.core),
   ];
   if (infeasible.length) {

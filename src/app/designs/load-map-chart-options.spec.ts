@@ -12,6 +12,7 @@ const point = (corner: LoadPoint['corner'], loadFraction: number, mode: LoadPoin
   peakCurrent: 1,
   copperDc: 0.5,
   copperAc: 0.1,
+  copperGap: 0,
   core: 0.4,
   total: 1,
   share: 1 / (12 * loadFraction * 10),

@@ -80,6 +80,7 @@ export const ENGINE_RESULT: SearchCandidate['result'] = {
     copperFill: 0.3753,
     meanTurnLength: 0.05137,
     wireLength: 0.8218,
+    keepOut: 0.0005,
   },
   copper: {
     resistance20: 0.01131,
@@ -89,6 +90,7 @@ export const ENGINE_RESULT: SearchCandidate['result'] = {
     penetrationRatio: 0.6356,
     dcLoss: 1.399,
     acLoss: 0.09222,
+    gapLoss: 0,
   },
   coreLoss: { steinmetzDensity: 3706, igseDensity: 3983, temperatureFactor: 1, loss: 0.01406 },
   totalLoss: 1.506,

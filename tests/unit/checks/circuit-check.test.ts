@@ -3,6 +3,7 @@ import { biasedInductance, evaluateDesign, type EvaluationResult } from '@shared
 import type { ConverterSpec } from '@shared/engine/inputs';
 import { planCircuitCheck, powderFluxTable, runCircuitCheck } from '../../../server/checks/circuit-check.ts';
 import { decimateWaveform } from '../../../server/checks/waveforms.ts';
+import { spiceValues } from '../../../server/exports/spice.ts';
 import { simulateBuckSteady } from '../../../server/solvers/buck-bench.ts';
 import { etd34Like, ferriteA, powderP, powderRing, roundWire, sectionOneSpec } from '../engine/fixtures.ts';
 
@@ -48,14 +49,19 @@ describe('circuit check of an air-gapped ferrite design (constant nominal L)', (
     }
     expect(result.corners[2]!.load).toBe(13);
 
-    // The exported subcircuit in the same bench (the export's own text): its current within 2 % of the engine's at
-    // the subcircuit's L, settled (drift below 0.1 % of the load), and the power its resistors dissipate against the
+    // The exported subcircuit in the same bench (the export's own text): its current against the engine's at the
+    // subcircuit's L, settled (drift below 0.1 % of the load), and the power its resistors dissipate against the
     // engine's total loss. The subcircuit is a single-frequency equivalent (its AC branch is exact at fs only and its
     // core resistor takes Vrms² of the square wave), so the dissipation is held to 5 % (common practice for a
-    // behavioural model at its operating point, no source); measured here: 1.1555 W against 1.1553 W (0.01 %).
+    // behavioural model at its operating point, no source); measured here: 1.480 W against 1.501 W (−1.4 %). Its AC
+    // branch RAC ∥ LAC (dR at fs) also carries a reactance dR at fs in series with L1 — circuit algebra: a share
+    // dR/(ωL) more impedance to the ripple, 3.4 % here with the gap field's loss in dR — so the ripple is held to
+    // 2 % plus that share (measured −2.5 %).
     const exported = result.exportedModel!;
     expect(exported.vin).toBe(ferriteSpec.vinMax);
-    expect(Math.abs(exported.differencePercent.ripple)).toBeLessThan(2);
+    const v = spiceValues(evaluation);
+    const branchShare = v.acExtraResistance / (2 * Math.PI * ferriteSpec.frequency * v.inductance);
+    expect(Math.abs(exported.differencePercent.ripple)).toBeLessThan(2 + 100 * branchShare);
     expect(Math.abs(exported.differencePercent.peak)).toBeLessThan(2);
     expect(Math.abs(exported.drift)).toBeLessThan(1e-3 * ferriteSpec.ioutMax);
     expect(Math.abs(exported.differencePercent.dissipation)).toBeLessThan(5);

@@ -50,7 +50,7 @@ describe('evaluateDesign on a gapped ferrite core', () => {
 
   it('reports the iGSE below Steinmetz at D = 1/3 for α = 1.4 and adds the losses up', () => {
     expect(result.coreLoss.igseDensity).toBeLessThan(result.coreLoss.steinmetzDensity);
-    expect(result.totalLoss).toBeCloseTo(result.copper.dcLoss + result.copper.acLoss + result.coreLoss.loss, 12);
+    expect(result.totalLoss).toBeCloseTo(result.copper.dcLoss + result.copper.acLoss + result.copper.gapLoss! + result.coreLoss.loss, 12);
     // the rise is the hotter node's; the hot spot is the winding node
     expect(result.thermal.rise).toBe(Math.max(result.thermal.coreTemperature!, result.thermal.windingTemperature!) - 40);
     expect(result.thermal.hotSpot).toBe(result.thermal.windingTemperature);
@@ -71,7 +71,7 @@ describe('evaluateDesign on a gapped ferrite core', () => {
     const nodes = new NetworkSolution();
     nodes.coreTemperature = 40;
     nodes.windingTemperature = 40;
-    const copper = result.copper.dcLoss + result.copper.acLoss;
+    const copper = result.copper.dcLoss + result.copper.acLoss + result.copper.gapLoss!;
     solveNetwork(thermalNetwork(etd34Like), { ambient: 40 }, result.coreLoss.loss, copper, nodes, 1e-9, 100);
     expect(Math.abs(nodes.coreTemperature - result.thermal.coreTemperature!)).toBeLessThan(0.1);
     expect(Math.abs(nodes.windingTemperature - result.thermal.windingTemperature!)).toBeLessThan(0.1);

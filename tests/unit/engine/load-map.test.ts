@@ -108,11 +108,14 @@ describe('lossMap', () => {
     expect(full.core / result.coreLoss.loss).toBeCloseTo(1, 3);
     expect(full.copperDc / result.copper.dcLoss).toBeCloseTo(1, 3);
     expect(full.copperAc / result.copper.acLoss).toBeCloseTo(1, 2);
+    // The gap-field loss: every harmonic of the exact waveform against the triangle's harmonics to the sum's tolerance.
+    expect(result.copper.gapLoss!).toBeGreaterThan(0);
+    expect(full.copperGap / result.copper.gapLoss!).toBeCloseTo(1, 3);
     expect(full.share).toBeCloseTo(full.total / (sectionOneSpec.vout * sectionOneSpec.ioutMax), 12);
   });
 
   it('sums its lines and loses less at lighter load', () => {
-    for (const p of map.points) expect(p.total).toBeCloseTo(p.copperDc + p.copperAc + p.core, 9);
+    for (const p of map.points) expect(p.total).toBeCloseTo(p.copperDc + p.copperAc + p.copperGap + p.core, 9);
     expect(at('max', 0.1).total).toBeLessThan(at('max', 1).total);
   });
 

@@ -49,10 +49,12 @@ describe('SPICE subcircuit', () => {
     expect(element('RDC') / result.copper.resistanceHot).toBeCloseTo(1, 5);
   });
 
-  it('has an AC branch whose real part at fs is (Fr − 1)·Rdc and zero at DC', () => {
+  it("has an AC branch whose real part at fs is (Fr − 1)·Rdc plus the gap field's loss over ΔI²/12, and zero at DC", () => {
     const omega = 2 * Math.PI * result.operatingPoint.frequency;
     const extra = parallelRealPart(element('RAC'), omega * element('LAC'));
-    expect(extra / ((result.copper.acFactor - 1) * result.copper.resistanceHot)).toBeCloseTo(1, 4);
+    const rippleMeanSquare = result.operatingPoint.rippleAtVinMax ** 2 / 12;
+    const expected = (result.copper.acFactor - 1) * result.copper.resistanceHot + result.copper.gapLoss! / rippleMeanSquare;
+    expect(extra / expected).toBeCloseTo(1, 4);
     expect(parallelRealPart(element('RAC'), 0)).toBe(0);
   });
 

@@ -2,6 +2,7 @@
 import { describe, expect, it } from 'vitest';
 import { evaluateDesign, type EvaluateInput } from '@shared/engine/evaluate';
 import { windingSheetSchema } from '@shared/schemas/winding-sheet';
+import { sheetSections } from '@shared/shop/sheet-text';
 import { buildBom } from '../../../server/exports/bom.ts';
 import { buildWindingSheet } from '../../../server/shop/winding-sheet.ts';
 import { etd34Like, ferriteA, roundWire } from '../engine/fixtures';
@@ -87,5 +88,29 @@ describe('winding sheet and BOM for a spacer under all legs', () => {
     const old = { ...sheetOf(base), parts: { ...sheetOf(base).parts, gap: oldGap } };
     const read = windingSheetSchema.parse(old);
     expect(read.parts.gap).toMatchObject({ kind: 'centre-leg ground', spacer: 0, sensitivity10um: 0 });
+  });
+});
+
+describe('winding sheet: the keep-out from the gap', () => {
+  const line = (sheet: ReturnType<typeof sheetOf>) =>
+    sheetSections(sheet)
+      .flatMap((section) => section.lines)
+      .find(([label]) => label === 'Keep-out');
+
+  it('tells the shop to keep the copper the evaluated distance from the gap, the limit or a larger one', () => {
+    const sheet = sheetOf({ ...base, keepOut: 1.5e-3 });
+    expect(sheet.winding.keepOut).toBe(1.5e-3);
+    expect(line(sheet)?.[1]).toMatch(/^Keep copper ≥ 1\.5 mm from the gap \(centre leg\)/);
+    expect(windingSheetSchema.parse(sheet).winding.keepOut).toBe(1.5e-3);
+    expect(line(sheetOf(base))?.[1]).toMatch(/^Keep copper ≥ 0\.5 mm from the gap/);
+  });
+
+  it('has no keep-out line without an air gap, and reads a sheet released before the keep-out was given', () => {
+    const sheet = sheetOf(base);
+    const { keepOut: _dropped, ...olderWinding } = sheet.winding;
+    const older = windingSheetSchema.parse({ ...sheet, winding: olderWinding });
+    expect(older.winding.keepOut).toBeUndefined();
+    expect(line(older)).toBeUndefined();
+    expect(line({ ...sheet, winding: { ...sheet.winding, keepOut: null } })).toBeUndefined();
   });
 });

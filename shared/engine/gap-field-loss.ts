@@ -1,0 +1,274 @@
+// Eddy-current loss that an air gap's fringing field drives in the winding, over and above one-dimensional Dowell.
+//
+// Field: the gap is a slot of length g in the face of a high-permeability leg with the MMF F across it; the face is
+// taken as an infinite plane (its potential ±F/2 off the gap, linear across the gap's mouth), so the field in the
+// window is the 2-D half-plane solution — W. A. Roshen, "Fringing field formulas and winding loss due to an air gap",
+// IEEE Trans. Magnetics 43(8), 2007 (from memory):
+//   Hz = (F/(π·g))·[atan((z + g/2)/x) − atan((z − g/2)/x)],  Hx = (F/(2π·g))·ln[(x² + (z + g/2)²)/(x² + (z − g/2)²)],
+// x the distance from the leg face, z along the leg from the gap's mid-plane; far away |H| → F/(π·r).
+// Conductor: a round conductor of radius a in a uniform transverse field of peak H0 at angular frequency ω loses per
+// unit length P′ = 2π·a·ω·μ0·H0²·Re[j·I1(τa)/(τ·I0(τa))], τ = (1 + j)/δ (the classical eddy-current solution of a
+// cylinder in a transverse field, from memory; derived here by Poynting's theorem at the surface). Its low-frequency
+// limit is P′ = π·σ·ω²·d⁴·B̂²/128, the squared-field-derivative form of C. R. Sullivan, IEEE Trans. Power Electronics
+// 16(1), 2001; its high-frequency limit π·d·H0²/(σ·δ) is the surface-resistance loss of a perfectly shielding cylinder.
+// Each conductor takes the field at its centre (the field varies across a conductor close to the gap: see the
+// field-solver comparison in tests/unit/solvers/gap-field-loss.test.ts).
+//
+// Stated approximations: the winding's own field and the fringing field are added in power, not as vectors (the
+// cross term is left out); the leg face is a plane (the centre leg's curvature, the window's other walls and the
+// shielding of outer conductors by inner ones are ignored); the MMF across a gap is N·I times the gap's share of the
+// path reluctance. Spacer gaps: a spacer between the halves opens a gap of its thickness in the centre leg (beside the
+// winding's middle, like a ground gap, taking Ao/(Ac + Ao) of the gap MMF) and in the outer legs (across the window,
+// beside the winding's outside, taking the rest); both are summed with the same formula at their own distances.
+// Distributed-gap (powder) cores have no gap: zero. Foil: not modelled (zero, stated) — the field normal to a foil
+// wider than the skin depth is shielded by the foil, which the round-conductor formula cannot describe.
+import { MU0 } from './constants';
+import { copperResistivity } from './copper';
+import type { HarmonicWeights } from './harmonics';
+import { skinDepthForResistivity } from './skin-depth';
+
+/**
+ * The gap's field at (x, z) per unit MMF across a gap of length g in a plane high-permeability face: Hx² (normal to
+ * the face and to a layer) and |H|² (1/m²); g = 0 is the line source 1/(π·r).
+ */
+export function fringingFieldNormalSquared(x: number, z: number, gap: number): number {
+  if (gap <= 0) {
+    const r2 = x * x + z * z;
+    return (z * z) / (Math.PI * Math.PI * r2 * r2);
+  }
+  const h = gap / 2;
+  const hx = Math.log((x * x + (z + h) * (z + h)) / (x * x + (z - h) * (z - h))) / (2 * Math.PI * gap);
+  return hx * hx;
+}
+
+/**
+ * Hx² per unit MMF with the window's yokes as mirrors: the gap's slot in the leg face repeats at z = m·H (H the window
+ * height, the gap on the mid-plane), the images a high-permeability wall makes (the method of images for the gap's
+ * field in a core window: J. Hu and C. R. Sullivan, IEEE Trans. Power Electronics 16(4), 2001, from memory). Summing
+ * Roshen's field over the row in closed form (Π (a − j·m·H) ∝ sinh(π·a/H), derived here):
+ *   Hx = (F/(2π·g))·ln[(sinh²(πx/H) + sin²(π(z + g/2)/H))/(sinh²(πx/H) + sin²(π(z − g/2)/H))],
+ * which tends to Roshen's as H → ∞ and falls as e^(−2πx/H) far from the leg, not as 1/x². The outer leg and the
+ * winding's own current are not mirrored. Not used by the engine: compared with the field solution in
+ * tests/unit/solvers/gap-field-loss.test.ts.
+ */
+export function fringingFieldNormalSquaredInWindow(x: number, z: number, gap: number, windowHeight: number): number {
+  const k = Math.PI / windowHeight;
+  const h = gap / 2;
+  const s = Math.sinh(k * x);
+  const a = Math.sin(k * (z + h));
+  const b = Math.sin(k * (z - h));
+  const hx = Math.log((s * s + a * a) / (s * s + b * b)) / (2 * Math.PI * gap);
+  return hx * hx;
+}
+
+export function fringingFieldSquared(x: number, z: number, gap: number): number {
+  if (gap <= 0) return 1 / (Math.PI * Math.PI * (x * x + z * z));
+  const h = gap / 2;
+  const hz = (Math.atan((z + h) / x) - Math.atan((z - h) / x)) / (Math.PI * gap);
+  return hz * hz + fringingFieldNormalSquared(x, z, gap);
+}
+
+/** Above this |τa| the asymptotic ratio is used: its first omitted term is below 1e-5 of the value. */
+const ASYMPTOTIC_ARGUMENT = 30;
+
+/** Up to this u = a/δ the power series is used: at most ~25 terms, cancelling at most a factor ≈ 6 of precision. */
+export const SERIES_ARGUMENT = 4;
+
+/**
+ * Re[j·I1(ζ)/(ζ·I0(ζ))] at ζ = (1 + j)·u (u = a/δ): for u ≤ SERIES_ARGUMENT by the power series of I0 and I1/ζ in
+ * q = ζ²/4 = j·u²/2 (I0 = Σ q^k/k!², I1/ζ = ½·Σ q^k/(k!·(k + 1)!)), above it I1/I0 by the backward continued fraction
+ * I_k/I_{k−1} = 1/(2k/ζ + I_{k+1}/I_k), or its asymptotic series 1 − 1/(2ζ) − 1/(8ζ²) for large |ζ|.
+ */
+export function transverseLossFunction(u: number): number {
+  if (u < 1e-3) return (u * u) / 8;
+  if (u <= SERIES_ARGUMENT) return transverseLossSeries(u);
+  // ζ = u + j·u
+  let rr: number;
+  let ri: number;
+  if (u * Math.SQRT2 > ASYMPTOTIC_ARGUMENT) {
+    // 1/ζ = (1 − j)/(2u), 1/ζ² = −j/(2u²)
+    rr = 1 - 1 / (4 * u);
+    ri = 1 / (4 * u) + 1 / (16 * u * u);
+  } else {
+    const terms = Math.ceil(2 * u * Math.SQRT2) + 30;
+    rr = 0;
+    ri = 0;
+    for (let k = terms; k >= 1; k--) {
+      // 2k/ζ = 2k(1 − j)/(2u) = (k/u)(1 − j); denominator = 2k/ζ + r
+      const dr = k / u + rr;
+      const di = -k / u + ri;
+      const m = dr * dr + di * di;
+      rr = dr / m;
+      ri = -di / m;
+    }
+  }
+  // j·ρ/ζ = [(ρr − ρi) + j(ρr + ρi)]/(2u)
+  return (rr - ri) / (2 * u);
+}
+
+function transverseLossSeries(u: number): number {
+  const s = (u * u) / 2;
+  // term t_k = q^k/k!², q = j·s: t_k = t_{k−1}·j·s/k²
+  let tr = 1;
+  let ti = 0;
+  let i0r = 1;
+  let i0i = 0;
+  let ar = 1;
+  let ai = 0;
+  for (let k = 1; k < 60; k++) {
+    const f = s / (k * k);
+    const nr = -ti * f;
+    ti = tr * f;
+    tr = nr;
+    i0r += tr;
+    i0i += ti;
+    ar += tr / (k + 1);
+    ai += ti / (k + 1);
+    if (Math.abs(tr) + Math.abs(ti) < 1e-17 * (Math.abs(i0r) + Math.abs(i0i))) break;
+  }
+  // j·(A/2)/I0 with A = Σ t_k/(k + 1): Re = −Im(A/I0)/2
+  return -(ai * i0r - ar * i0i) / (2 * (i0r * i0r + i0i * i0i));
+}
+
+/**
+ * Loss per unit length of a round conductor of diameter d in a uniform transverse field of peak 1 A/m (W/m per
+ * (A/m)²): P′ = (4π·a²·ρ/δ²)·Re[j·I1(τa)/(τ·I0(τa))]·… with ω·μ0 = 2ρ/δ².
+ */
+export function transverseFieldLoss(diameter: number, frequency: number, resistivity: number): number {
+  const a = diameter / 2;
+  const delta = skinDepthForResistivity(resistivity, frequency);
+  const u = a / delta;
+  return ((4 * Math.PI * a * a * resistivity) / (delta * delta)) * transverseLossFunction(u);
+}
+
+/** The low-frequency limit π·σ·ω²·d⁴·B̂²/128 at H0 = 1 A/m (Sullivan 2001's squared-field-derivative form). */
+export function transverseFieldLossLowFrequency(diameter: number, frequency: number, resistivity: number): number {
+  const omega = 2 * Math.PI * frequency;
+  return (Math.PI * omega * omega * diameter ** 4 * MU0 * MU0) / (128 * resistivity);
+}
+
+/**
+ * Σ_n (I_n²/2)·P′_n per unit field (W/m per (A/m)² of the whole ripple, A²-weighted) for strands of one diameter at
+ * the fundamental frequency f and copper temperature T; multiplied by 2·(N·share)²·Σ L·|h|² it is the ripple's loss.
+ */
+export function rippleTransverseLoss(diameter: number, frequency: number, temperature: number, weights: HarmonicWeights): number {
+  const resistivity = copperResistivity(temperature);
+  let sum = 0;
+  const count = weights.meanSquare.length;
+  for (let n = 1; n <= count; n++) {
+    const w = weights.meanSquare[n - 1]!;
+    if (w === 0) continue;
+    const perField = transverseFieldLoss(diameter, n * frequency, resistivity);
+    sum += w * perField;
+    // The envelope falls as n⁻⁴ and P′ grows at most as n²: stop once the bound of the next term is negligible.
+    if (weights.envelope[n - 1]! * perField < 1e-6 * sum) break;
+  }
+  return sum;
+}
+
+/** Where the winding's conductors lie, for the field sum. */
+export interface GapFieldLayout {
+  turns: number;
+  turnsPerLayer: number;
+  layers: number;
+  /** Conductors side by side per turn (wires in hand; 1 for litz). */
+  conductorsPerTurn: number;
+  /** Insulated conductor (or bundle) diameter: the pitch along a layer and between layers (m). */
+  overallDiameter: number;
+  /** Clearance from the centre-leg face to the first layer's copper (m). */
+  keepOut: number;
+  /** Turn length at the leg face (m); a layer at distance x from it has 2π·x more. */
+  legPerimeter: number;
+}
+
+/** The gaps whose fringing field reaches the winding, with the share of the winding MMF across each. */
+export interface GapFieldSources {
+  /** Gap length in the centre leg at the winding's mid-plane (m); 0 for none. */
+  centreGap: number;
+  centreShare: number;
+  /** Gap in the outer legs (spacer), facing the winding's outside across the window (m); 0 for none. */
+  outerGap: number;
+  outerShare: number;
+  /** Window width from the centre-leg face to the outer leg (m). */
+  windowWidth: number;
+}
+
+/**
+ * Σ over conductors of L·(shareC²·|h_centre|² + shareO²·|h_outer|²) per unit winding MMF (1/m): layers outward from
+ * the leg face at keepOut + (k + ½)·d_o, turns along the bobbin centred on the gap's mid-plane, the last layer filled
+ * from one end (as the field model lays them). Allocation-free. A layer's M = turnsPerLayer·conductorsPerTurn
+ * positions z_j = (j + ½ − M/2)·d_o lie symmetric about the mid-plane, where Hx² is even in z: a position whose
+ * mirror is also filled is summed once, twice over.
+ */
+export function gapFieldSum(layout: GapFieldLayout, sources: GapFieldSources): number {
+  const { turns, turnsPerLayer, layers, conductorsPerTurn, overallDiameter: d } = layout;
+  if (!(turns >= 1 && turnsPerLayer >= 1 && Number.isFinite(layers))) return 0;
+  const centre = sources.centreGap > 0 && sources.centreShare > 0;
+  const outer = sources.outerGap > 0 && sources.outerShare > 0;
+  if (!centre && !outer) return 0;
+  // Hx = ln[(x² + (z + g/2)²)/(x² + (z − g/2)²)]/(2π·g): the squared logarithms are summed, the constants applied once.
+  const cc = centre ? (sources.centreShare / (2 * Math.PI * sources.centreGap)) ** 2 : 0;
+  const oc = outer ? (sources.outerShare / (2 * Math.PI * sources.outerGap)) ** 2 : 0;
+  const full = turnsPerLayer * conductorsPerTurn;
+  const z0 = (0.5 - full / 2) * d;
+  let sum = 0;
+  for (let layer = 0; layer < layers; layer++) {
+    const x = layout.keepOut + (layer + 0.5) * d;
+    const length = layout.legPerimeter + 2 * Math.PI * x;
+    const filled = Math.min(turnsPerLayer, turns - layer * turnsPerLayer) * conductorsPerTurn;
+    // Positions [0, single) have no filled mirror; [paired, half) pair with theirs; an odd layer's middle is alone.
+    const half = full >> 1;
+    const paired = full - filled;
+    const single = paired < half ? paired : filled < half ? filled : half;
+    const middle = (full & 1) === 1 && half < filled;
+    let layerSum = 0;
+    if (centre) {
+      const h = sources.centreGap / 2;
+      const x2 = x * x;
+      let s = logSquareSum(x2, h, z0, d, 0, single);
+      if (paired < half) s += 2 * logSquareSum(x2, h, z0, d, paired, half);
+      if (middle) s += logSquareSum(x2, h, z0, d, half, half + 1);
+      layerSum += cc * s;
+    }
+    const xo = sources.windowWidth - x;
+    if (outer && xo > 0) {
+      const h = sources.outerGap / 2;
+      const x2 = xo * xo;
+      let s = logSquareSum(x2, h, z0, d, 0, single);
+      if (paired < half) s += 2 * logSquareSum(x2, h, z0, d, paired, half);
+      if (middle) s += logSquareSum(x2, h, z0, d, half, half + 1);
+      layerSum += oc * s;
+    }
+    sum += length * layerSum;
+  }
+  return sum;
+}
+
+/** Σ_{from ≤ j < to} ln²[(x² + (z_j + h)²)/(x² + (z_j − h)²)], z_j = z0 + j·d. */
+function logSquareSum(x2: number, h: number, z0: number, d: number, from: number, to: number): number {
+  let s = 0;
+  for (let j = from; j < to; j++) {
+    const z = z0 + j * d;
+    const l = Math.log((x2 + (z + h) * (z + h)) / (x2 + (z - h) * (z - h)));
+    s += l * l;
+  }
+  return s;
+}
+
+/**
+ * Share of the winding MMF across the gaps: the gap reluctance (lg/F, F the fringing factor) over the whole path's
+ * (plus le/μr of the core).
+ */
+export function gapMmfShare(equivalentGap: number, fringingFactor: number, pathLength: number, permeability: number): number {
+  if (!(equivalentGap > 0)) return 0;
+  const gap = equivalentGap / fringingFactor;
+  return gap / (gap + pathLength / permeability);
+}
+
+/**
+ * The gap-field loss of a whole ripple (W): 2·N²·Σ L·|h|²·Σ_n (I_n²/2)·P′_n·strands, where `rippleLoss` is
+ * rippleTransverseLoss of the strand and `strands` the strands at each conductor position (litz; 1 for round wire).
+ */
+export function gapFieldLoss(turns: number, fieldSum: number, rippleLoss: number, strands: number): number {
+  return 2 * turns * turns * fieldSum * rippleLoss * strands;
+}
