@@ -158,6 +158,12 @@ export function describeIssues({ ctx, core, material, mag, figures: f, wire }: I
       `${wire.strands} wires in hand laid side by side sit at different places in the winding's field and share the ripple current unequally unless they are twisted together or transposed between layers; the AC loss (Rac/Rdc ${fmt(f.acFactor)}) assumes equal sharing. Twist them before winding, or use litz.`,
     );
   }
+  if (wire?.kind === 'foil' && mag.kind === 'air-gap' && mag.totalGap > 0) {
+    warning(
+      'foil-beside-gap',
+      `Copper foil beside a ${mag.placement === 'spacer' ? 'spacer' : 'ground'} gap: the gap's fringing field meets the foil across its width and drives eddy currents at its edge, a loss the engine does not model for foil (its gap-field loss is taken as zero). Keep the foil edge well clear of the gap, or prefer a distributed or several small gaps.`,
+    );
+  }
   if (warned(WARNING.thermalNotConverged)) {
     warning('thermal-iteration', 'The loss–temperature iteration did not settle within 6 passes; the temperature is approximate.');
   }

@@ -30,3 +30,15 @@ describe('wires in hand', () => {
     expect(warned(thin)).toBe(false);
   });
 });
+
+describe('foil beside a gap', () => {
+  it('warns that the gap field on foil is not modelled (common practice, no source: foil near a gap runs hot at its edge)', () => {
+    const foil = evaluateDesign({
+      ...base,
+      wire: { id: 'foil 0.15', kind: 'foil', strandDiameter: 0.15e-3, overallDiameter: 0.2e-3, strands: 1, conductorsPerTurn: 1 },
+    });
+    expect(foil.issues.some((i) => i.code === 'foil-beside-gap')).toBe(true);
+    expect(warned(base)).toBe(true);
+    expect(evaluateDesign(base).issues.some((i) => i.code === 'foil-beside-gap')).toBe(false);
+  });
+});
