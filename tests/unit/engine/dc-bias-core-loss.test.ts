@@ -2,21 +2,13 @@ import { describe, expect, it } from 'vitest';
 import { MU0 } from '@shared/engine/constants';
 import { evaluateDesign, type EvaluateInput } from '@shared/engine/evaluate';
 import { lossMap } from '@shared/engine/load-map';
-import { etd34Like, ferriteA, powderP, powderRing, roundWire, sectionOneSpec } from './fixtures';
+import { etd34Like, ferriteA, powderP, powderRing, roundWire, sectionOneSpec, workedDesign } from './fixtures';
 
 // Core loss under DC bias (Mühlethaler, Biela, Kolar and Ecklebe, IEEE Trans. Power Electronics 27(2), 2012: the
 // Steinmetz parameters depend on the DC field H_dc in the material), here as the factor 1 + (H/H₂)^m on k. The
 // material's H₂ and m below are invented.
 const biasLoss = { doublingField: 60, steepness: 1.5 };
-const base: EvaluateInput = {
-  spec: sectionOneSpec,
-  limits: { inductanceTolerance: 0 },
-  core: etd34Like,
-  material: { ...ferriteA, biasLoss },
-  turns: 'auto',
-  gap: 'auto',
-  wire: roundWire(0.8e-3, 3),
-};
+const base: EvaluateInput = { ...workedDesign, material: { ...ferriteA, biasLoss } };
 
 describe('core loss under DC bias', () => {
   it('raises a gapped ferrite core loss by 1 + (H/H₂)^m at H = B_dc/(μ0·μi), and says so', () => {

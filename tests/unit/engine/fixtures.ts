@@ -2,6 +2,7 @@
 // surface figures are rough estimates. Materials and wires are invented for illustration, not any real product.
 import type { CoreMaterial, CoreShape, WireOption } from '@shared/engine/types';
 import type { ConverterSpec } from '@shared/engine/inputs';
+import type { EvaluateInput } from '@shared/engine/evaluate';
 
 const mm = 1e-3;
 const mm2 = 1e-6;
@@ -183,4 +184,15 @@ export const sectionOneSpec: ConverterSpec = {
   frequency: 100e3,
   rippleRatio: 0.3,
   rectifier: 'ideal',
+};
+
+/** The worked example built on the ETD34-like core in ferrite A with three 0.8 mm wires in hand, turns and gap 'auto'. */
+export const workedDesign: EvaluateInput = {
+  spec: sectionOneSpec,
+  limits: { inductanceTolerance: 0 },
+  core: etd34Like,
+  material: ferriteA,
+  turns: 'auto',
+  gap: 'auto',
+  wire: roundWire(0.8e-3, 3),
 };

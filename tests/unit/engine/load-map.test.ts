@@ -6,7 +6,7 @@ import { rippleHarmonic } from '@shared/engine/harmonics';
 import type { ConverterSpec } from '@shared/engine/inputs';
 import { lossMap } from '@shared/engine/load-map';
 import { piecewiseLinearSpectrum } from '@shared/engine/piecewise-harmonics';
-import { etd34Like, ferriteA, powderP, powderRing, roundWire, sectionOneSpec } from './fixtures';
+import { ferriteA, powderP, powderRing, roundWire, sectionOneSpec, workedDesign } from './fixtures';
 
 describe('piecewiseLinearSpectrum', () => {
   it('gives the triangle wave its Fourier series I_n = ΔI·|sin(nπD)|/(n²π²D(1−D)) (standard Fourier series, from memory)', () => {
@@ -81,15 +81,7 @@ describe('buckWaveform', () => {
   });
 });
 
-const part: EvaluateInput = {
-  spec: sectionOneSpec,
-  limits: { inductanceTolerance: 0 },
-  core: etd34Like,
-  material: ferriteA,
-  turns: 'auto',
-  gap: 'auto',
-  wire: roundWire(0.8e-3, 3),
-};
+const part: EvaluateInput = workedDesign;
 
 describe('lossMap', () => {
   const map = lossMap(part);

@@ -1,18 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import { evaluateDesign, type EvaluateInput } from '@shared/engine/evaluate';
-import { etd34Like, ferriteA, roundWire, sectionOneSpec } from './fixtures';
+import { roundWire, sectionOneSpec, workedDesign } from './fixtures';
 
 // Wires in hand side by side see different fields and share the ripple unequally unless twisted or transposed (common
 // practice, no source); the engine's Dowell loss assumes equal sharing, so it says so where the AC loss matters.
-const base: EvaluateInput = {
-  spec: sectionOneSpec,
-  limits: { inductanceTolerance: 0 },
-  core: etd34Like,
-  material: ferriteA,
-  turns: 'auto',
-  gap: 'auto',
-  wire: roundWire(0.8e-3, 3),
-};
+const base: EvaluateInput = workedDesign;
 const warned = (input: EvaluateInput) => evaluateDesign(input).issues.some((i) => i.code === 'wires-in-hand');
 
 describe('wires in hand', () => {
