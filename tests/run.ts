@@ -93,11 +93,14 @@ async function shardedTests(project: 'api' | 'browser', shardCount: number): Pro
     return vitestRun(project, { TEST_DATABASE_URL: db.url, TEST_RESULTS_DIR: resultsDir }, { index: i + 1, count: shardCount });
   });
   const counts = await Promise.all(shards);
-  totals[project] = counts.reduce((a, c) => ({ passed: a.passed + c.passed, failed: a.failed + c.failed, skipped: a.skipped + c.skipped }), {
-    passed: 0,
-    failed: 0,
-    skipped: 0,
-  });
+  totals[project] = counts.reduce(
+    (a, c) => ({ passed: a.passed + c.passed, failed: a.failed + c.failed, skipped: a.skipped + c.skipped }),
+    {
+      passed: 0,
+      failed: 0,
+      skipped: 0,
+    },
+  );
 }
 const API_SHARDS = Math.max(1, Number(process.env['TEST_API_SHARDS'] ?? 2));
 const BROWSER_SHARDS = Math.max(1, Number(process.env['TEST_BROWSER_SHARDS'] ?? 2));

@@ -89,7 +89,10 @@ const powder = (grade: Grade, [h50, c]: [number, number], maxTemperature: number
 });
 
 export const DEMO_MATERIALS: readonly DemoMaterial[] = [
-  { ...ferrite(['Amber', 1.4, 2.65, 80e3, [50e3, 300e3, 0.02, 0.25], [0.5, 0.4], 2300, 4800], [90, 1.0e-4]), biasLoss: { doublingField: 60, steepness: 1.5 } },
+  {
+    ...ferrite(['Amber', 1.4, 2.65, 80e3, [50e3, 300e3, 0.02, 0.25], [0.5, 0.4], 2300, 4800], [90, 1.0e-4]),
+    biasLoss: { doublingField: 60, steepness: 1.5 },
+  },
   ferrite(['Teal', 1.55, 2.55, 60e3, [100e3, 1e6, 0.01, 0.15], [0.48, 0.38], 1400, 4800], [80, 1.2e-4]),
   ferrite(['Slate', 1.25, 2.75, 120e3, [20e3, 150e3, 0.03, 0.3], [0.53, 0.43], 3000, 4850], [100, 0.8e-4]),
   powder(['Moss', 1.35, 2.0, 300e3, [10e3, 500e3, 0.01, 0.2], [1.0, 0.95], 60, 6000], [8000, 1.8], 155),

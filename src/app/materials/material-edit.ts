@@ -183,7 +183,11 @@ export class MaterialEdit {
         legend: 'Core loss under DC bias (optional)',
         note: 'The loss k·f^α·B̂^β rises with the DC field H in the material by the factor 1 + (H/H₂)^m. Give both or none; without them a design says that DC bias is not included in its core loss. Loss points taken under bias can be fitted to these two numbers.',
         fields: [
-          { column: 'bias_loss_doubling_field', label: 'Field at double loss H₂ (A/m)', hint: 'the DC field in the material where the loss has doubled' },
+          {
+            column: 'bias_loss_doubling_field',
+            label: 'Field at double loss H₂ (A/m)',
+            hint: 'the DC field in the material where the loss has doubled',
+          },
           { column: 'bias_loss_steepness', label: 'Rise steepness m', hint: 'how sharply the loss rises around H₂; > 0' },
         ],
       },
