@@ -23,7 +23,7 @@ afterAll(() => t.close());
 
 const counts = () => tableCounts(t.db, TABLES);
 const materialRow = (name: string, provenance: string) =>
-  `${name},ferrite,W/m3-Hz-T,3,1.4,2.6,1,2,0,1,,,,,,0.5,0.4,2000,,,4800,${provenance}`;
+  `${name},ferrite,W/m3-Hz-T,3,1.4,2.6,1,2,0,1,,,,,,0.5,0.4,2000,,,,,4800,${provenance}`;
 const coreRow = (name: string, height = '7') => `${name},ring,RING,20,10,${height},,,,,,,,,,,invented`;
 interface PreviewRow {
   row: number;
