@@ -69,6 +69,8 @@ export const WARNING = {
   thermalNotConverged: 1 << 3,
   fluxAboveLimit: 1 << 4,
   gapSensitive: 1 << 5,
+  /** Copper foil beside an air gap: the gap field's loss at the foil's edge is not modelled (taken as zero). */
+  lossNotModelled: 1 << 6,
 } as const;
 
 export interface SpecContext {
@@ -519,6 +521,7 @@ export function evaluateWindingLosses(
   if (!matCtx.frequencyInFit) warnings |= WARNING.frequencyFit;
   if (!fluxInFitRange(material, out.fluxSwing / 2)) warnings |= WARNING.fluxFit;
   out.windingFailures = failures;
+  if (wireCtx.wire.kind === 'foil' && mag.kind === 'air-gap' && mag.totalGap > 0) warnings |= WARNING.lossNotModelled;
   out.windingWarnings = warnings;
 }
 

@@ -1,5 +1,6 @@
 // Ordering of feasible candidates by the designer's chosen objective, and the Pareto fronts drawn beside them.
-// Candidates whose core loss rests on extrapolated material data always follow every in-fit candidate.
+// Candidates whose core loss rests on extrapolated material data, or whose loss leaves out a term the engine does not
+// model, always follow every fully modelled in-fit candidate.
 import type { RankBy } from './inputs';
 
 export interface RankedFigures {
@@ -8,6 +9,8 @@ export interface RankedFigures {
   mass: number;
   rise: number;
   extrapolated: boolean;
+  /** The loss leaves out a term the engine does not model (foil beside a gap). */
+  lossNotModelled: boolean;
   /** Conductor kind index, simplest first: the last tie-break. */
   simplicity: number;
 }
@@ -35,7 +38,7 @@ export function rankOrder(figures: readonly RankedFigures[], rankBy: RankBy): nu
     .map((_, i) => i)
     .sort(
       (a, b) =>
-        Number(figures[a]!.extrapolated) - Number(figures[b]!.extrapolated) ||
+        Number(figures[a]!.extrapolated || figures[a]!.lossNotModelled) - Number(figures[b]!.extrapolated || figures[b]!.lossNotModelled) ||
         key[a]! - key[b]! ||
         figures[a]!.loss - figures[b]!.loss ||
         figures[a]!.volume - figures[b]!.volume ||
@@ -49,6 +52,8 @@ export function paretoFront(figures: readonly RankedFigures[], size: 'volume' | 
   const front: number[] = [];
   let bestLoss = Number.POSITIVE_INFINITY;
   for (const i of bySize) {
+    // A loss that leaves out a term the engine does not model cannot show what a size costs in loss.
+    if (figures[i]!.lossNotModelled) continue;
     if (figures[i]!.loss < bestLoss) {
       front.push(i);
       bestLoss = figures[i]!.loss;

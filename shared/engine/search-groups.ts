@@ -40,6 +40,8 @@ export interface Group {
   loss: number;
   rise: number;
   extrapolated: boolean;
+  /** Its loss leaves out a term the engine does not model (foil beside a gap). */
+  lossNotModelled: boolean;
   mass: number;
 }
 
@@ -79,6 +81,7 @@ export function recordFeasible(
       loss: Number.POSITIVE_INFINITY,
       rise: 0,
       extrapolated: false,
+      lossNotModelled: false,
       mass: 0,
     });
   }
@@ -90,6 +93,7 @@ export function recordFeasible(
   group.loss = figures.totalLoss;
   group.rise = figures.rise;
   group.extrapolated = (figures.warnings & (WARNING.frequencyFit | WARNING.fluxFit)) !== 0;
+  group.lossNotModelled = (figures.warnings & WARNING.lossNotModelled) !== 0;
   const copperMass = at.turns * figures.meanTurnLength * turnCopperArea(wireCtx, core) * COPPER_DENSITY;
   group.mass = core.ve * material.density + copperMass;
 }

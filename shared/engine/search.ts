@@ -57,6 +57,8 @@ export interface SearchCandidate {
   paretoByMass: boolean;
   /** Core loss rests on Steinmetz coefficients used outside their fitted frequency or flux range. */
   extrapolated: boolean;
+  /** Its loss leaves out a term the engine does not model (foil beside a gap): ranked after the fully modelled ones. */
+  lossNotModelled: boolean;
   conductor: ConductorType;
   /** Where the gap is made ('ground' for distributed-gap cores); also in result.gap.placement. */
   placement: GapPlacement;
@@ -306,6 +308,7 @@ export function searchCandidates(input: SearchInput): SearchResult {
     mass: g.mass,
     rise: g.rise,
     extrapolated: g.extrapolated,
+    lossNotModelled: g.lossNotModelled,
     // Conductor kind first, then ground before spacer (the same part otherwise: equal loss, volume and mass).
     simplicity: g.conductor * GAP_PLACEMENTS.length + g.placement,
   }));
@@ -328,6 +331,7 @@ export function searchCandidates(input: SearchInput): SearchResult {
       pareto: onVolumeFront.has(i),
       paretoByMass: onMassFront.has(i),
       extrapolated: g.extrapolated,
+      lossNotModelled: g.lossNotModelled,
       conductor: CONDUCTOR_TYPES[g.conductor]!,
       placement,
       volume: core.ve,

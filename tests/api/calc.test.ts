@@ -148,7 +148,11 @@ describe('POST /api/calc/search and /api/calc/evaluate', () => {
       coreId: best.result.core.id,
       materialId: best.result.material.id,
       turns: best.result.turns,
-      gap: best.result.gap.total,
+      // A spacer design is given by its spacer thickness.
+      placement: best.placement,
+      gap: best.placement === 'spacer' ? best.result.gap.spacer : best.result.gap.total,
+      // The search may have moved the copper further from the gap than the default keep-out.
+      keepOut: best.result.winding.keepOut,
       wire: { kind: best.wire.kind, strandDiameter: best.wire.strandDiameter, strands: best.wire.strands },
     });
     expect(res.status).toBe(200);

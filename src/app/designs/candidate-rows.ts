@@ -58,6 +58,8 @@ const MARK_WORDS: Record<string, { short: string; name: string }> = {
   'fringing-range': { short: 'Fringing', name: 'Gap beyond the fringing formula' },
   'flux-limit': { short: 'B limit', name: 'Peak flux above the design limit' },
   'thermal-iteration': { short: 'T ≈', name: 'Temperature approximate' },
+  'foil-beside-gap': { short: 'Foil/gap', name: 'Foil beside a gap: edge loss not modelled; ranked after fully modelled parts' },
+  'wires-in-hand': { short: 'Share', name: 'Wires in hand share the ripple unequally unless twisted' },
 };
 
 /** Shown as the first mark of a candidate whose core loss rests on data outside the material's fitted range. */

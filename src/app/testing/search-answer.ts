@@ -136,6 +136,7 @@ export function searchCandidate(o: CandidateOptions): SearchCandidate {
     pareto: o.pareto ?? false,
     paretoByMass: o.paretoByMass ?? false,
     extrapolated: o.extrapolated ?? false,
+    lossNotModelled: false,
     conductor: 'foil',
     placement,
     volume,

@@ -37,7 +37,7 @@ describe('the default objective: the smallest part that meets every limit', () =
       expect(c.result.feasible).toBe(true);
       expect(c.result.issues.filter((i) => i.severity === 'error')).toEqual([]);
     }
-    const inFit = result.candidates.filter((c) => !c.extrapolated);
+    const inFit = result.candidates.filter((c) => !c.extrapolated && !c.lossNotModelled);
     const pool = inFit.length ? inFit : result.candidates;
     expect(result.candidates[0]!.volume).toBe(Math.min(...pool.map((c) => c.volume)));
   });
@@ -49,11 +49,20 @@ describe('data it can trust', () => {
     '%s ranked by %s: no extrapolated candidate ranks above an in-fit one',
     (label, rankBy) => {
       const ranked = search(EXAMPLE_SPECS[label], { ...everything, rankBy }).candidates;
-      const firstExtrapolated = ranked.findIndex((c) => c.extrapolated);
-      if (firstExtrapolated >= 0) expect(ranked.slice(firstExtrapolated).every((c) => c.extrapolated)).toBe(true);
+      const incomplete = (c: (typeof ranked)[number]) => c.extrapolated || c.lossNotModelled;
+      const firstIncomplete = ranked.findIndex(incomplete);
+      if (firstIncomplete >= 0) expect(ranked.slice(firstIncomplete).every(incomplete)).toBe(true);
       expect(ranked.map((c) => c.rank)).toEqual(ranked.map((_, i) => i + 1));
     },
   );
+
+  it('E: foil beside a gap, whose edge loss the engine does not model, follows every fully modelled part', () => {
+    const ranked = search(EXAMPLE_SPECS.E, everything).candidates;
+    const foilBesideGap = ranked.filter((c) => c.lossNotModelled);
+    expect(foilBesideGap.length).toBeGreaterThan(0);
+    expect(foilBesideGap.every((c) => c.wire.kind === 'foil' && c.result.issues.some((i) => i.code === 'foil-beside-gap'))).toBe(true);
+    expect(ranked[0]!.lossNotModelled).toBe(false);
+  });
 
   it('F: a material fitted at the switching frequency outranks one extrapolated from 300 kHz, though it loses more', () => {
     // Before: #1 used a material fitted at 50–300 kHz, at 2 MHz.
@@ -144,10 +153,15 @@ describe('the search space', () => {
     }
   });
 
-  it('E: one or two turns at 60 A are wound in foil among the lowest-loss proposals', () => {
-    // Before: one turn of six 1.8 mm wires beside a 0.73 mm gap.
-    const top = search(EXAMPLE_SPECS.E, { rankBy: 'loss', limit: 5 }).candidates;
-    expect(top.some((c) => c.conductor === 'foil')).toBe(true);
+  it('E: one or two turns at 60 A are proposed in foil too, after the parts whose every loss is modelled', () => {
+    // Before: one turn of six 1.8 mm wires beside a 0.73 mm gap. Foil beside a gap carries an edge loss the engine
+    // does not model (the field check shows it: +302 % AC resistance on a 17-layer foil design), so it follows.
+    const all = search(EXAMPLE_SPECS.E, { ...everything, rankBy: 'loss' }).candidates;
+    const foil = all.filter((c) => c.conductor === 'foil');
+    expect(foil.length).toBeGreaterThan(0);
+    expect(Math.min(...foil.map((c) => c.rank))).toBeGreaterThan(
+      Math.max(...all.filter((c) => !c.lossNotModelled && !c.extrapolated).map((c) => c.rank)),
+    );
   });
 });
 

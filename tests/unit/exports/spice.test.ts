@@ -110,6 +110,7 @@ describe('candidates CSV', () => {
           pareto: true,
           paretoByMass: true,
           extrapolated: false,
+          lossNotModelled: false,
           conductor: 'in-hand' as const,
           placement: 'ground' as const,
           volume: result.core.ve,
