@@ -203,11 +203,9 @@ const searchCandidateSchema = z.object({
   pareto: z.boolean().meta({ description: 'On the loss-versus-core-volume Pareto front' }),
   paretoByMass: z.boolean().meta({ description: 'On the loss-versus-mass Pareto front' }),
   extrapolated: z.boolean().meta({ description: 'Core loss rests on material data used outside its fitted range' }),
-  lossNotModelled: z
-    .boolean()
-    .meta({
-      description: 'The loss leaves out a term the engine does not model (foil beside a gap); ranked after fully modelled candidates',
-    }),
+  lossNotModelled: z.boolean().meta({
+    description: 'The loss leaves out a term the engine does not model (foil beside a gap); ranked after fully modelled candidates',
+  }),
   conductor: z.enum(CONDUCTOR_TYPES),
   placement: z.enum(GAP_PLACEMENTS).meta({ description: 'Where the gap is made: ground centre gap or spacer under all legs' }),
   volume: z.number().meta({ description: 'Core volume Ve (m³)' }),
