@@ -4,6 +4,7 @@
 // Copper loss depends on the core and the turns only, so one choice serves every material and gap placement.
 import { rippleResistanceWeight } from './copper-loss';
 import { windingResistance } from './copper';
+import { litzWindingFactor } from './litz';
 import type { SpecContext, WireContext } from './kernel';
 import { turnCopperArea } from './kernel';
 import type { CoreShape, WireOption } from './types';
@@ -79,7 +80,7 @@ export class ConductorChooser {
       if (!fitsBuildHeight(this.geometry.buildHeight, core)) continue;
       const ripple =
         wire.kind === 'litz'
-          ? wireCtx.sums.skin + (wireCtx.litzProximity * turns * turns) / (core.bobbinWidth * core.bobbinWidth)
+          ? wireCtx.sums.skin + wireCtx.litzProximity * litzWindingFactor(turns, core.bobbinWidth)
           : rippleResistanceWeight(wireCtx.sums, this.geometry.layers);
       const loss = windingResistance(turns, this.geometry.meanTurnLength, area, 20) * (dcSquare + ripple);
       if (loss < bestLoss[type]!) {

@@ -13,7 +13,7 @@ import {
 } from './copper-loss';
 import { copperResistivity, windingResistance } from './copper';
 import { biasLossFactor, coreDcField } from './dc-bias-loss';
-import { litzProximitySum } from './litz';
+import { litzProximitySum, litzWindingFactor } from './litz';
 import { HOT_SPOT_ALLOWANCE } from './constants';
 import { fluxInFitRange, frequencyInFitRange, igseTriangleLoss, steinmetzLoss } from './core-loss';
 import { foilDelta, roundWireDelta } from './dowell';
@@ -112,8 +112,6 @@ export interface WireContext {
   copperArea: number;
   /** Penetration ratio Δ of the fundamental. */
   firstHarmonicDelta: number;
-  /** Dowell layers per winding layer (1: litz is modelled strand by strand, litz.ts). */
-  layersPerWindingLayer: number;
   /**
    * Litz: Σ I_n²/2·(Fr_n − 1) per N²/b² at the reference temperature (litzProximitySum), and the same at each node of the
    * spec's acGrid (∝ 1/ρ², i.e. the node's Δ scale to the 4th); 0 and undefined for other conductors.
@@ -168,7 +166,6 @@ export function prepareWire(
     wire,
     copperArea: conductorCopperArea(wire),
     firstHarmonicDelta,
-    layersPerWindingLayer: 1,
     litzProximity,
     litzProximityNodes: isLitz ? Float64Array.from(ctx.acGrid.scales, (scale) => litzProximity * scale ** 4) : undefined,
     sums: parts.sums,
@@ -312,7 +309,8 @@ export class CandidateFigures {
 
 /**
  * One candidate: the winding, losses and temperature (evaluateWinding), then what the gap decides (applyMagnetics).
- * A search that tries both gap placements at the same turns and wire runs evaluateWinding once.
+ * A search that tries both gap placements at the same turns and wire lays the winding out once (layOutWinding) and
+ * solves the losses per placement (evaluateWindingLosses).
  */
 export function evaluateCandidate(
   ctx: SpecContext,
@@ -433,7 +431,7 @@ export function layOutWinding(
   out.layoutFailures = out.copperFill > limits.windowUtilisation ? FAILURE.fill : 0;
 
   out.resistance20 = windingResistance(n, out.meanTurnLength, copperArea, 20);
-  const dowellLayers = (Number.isFinite(out.layers) ? out.layers : 1) * wireCtx.layersPerWindingLayer;
+  const dowellLayers = Number.isFinite(out.layers) ? out.layers : 1;
 
   out.fluxSwing = op.voltSeconds / (n * core.ae);
   // Both densities scale as ΔB^β from their value at ΔB = 1 T, prepared once per material.
@@ -445,7 +443,7 @@ export function layOutWinding(
   loss.resistance20 = out.resistance20;
   loss.dcCurrentSquare = op.ioutMax * op.ioutMax;
   if (wireCtx.litzProximityNodes) {
-    const perNode = (n * n) / (core.bobbinWidth * core.bobbinWidth);
+    const perNode = litzWindingFactor(n, core.bobbinWidth);
     for (let i = 0; i < AC_TEMPERATURE_NODES; i++) {
       loss.rippleWeights[i] = wireCtx.acTable.skin[i]! + wireCtx.litzProximityNodes[i]! * perNode;
     }

@@ -26,6 +26,11 @@ export function litzProximitySum(
   return coefficient * sum;
 }
 
+/** N²/b²: what turns litzProximitySum into the proximity weight of N turns across a winding breadth b (1/m²). */
+export function litzWindingFactor(turns: number, breadth: number): number {
+  return (turns * turns) / (breadth * breadth);
+}
+
 /** Rac/Rdc of a sinusoid at `frequency` by the same formula (for one harmonic; the engine sums the ripple's). */
 export function litzAcFactor(
   strands: number,

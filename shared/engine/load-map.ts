@@ -5,7 +5,7 @@ import { igsePiecewiseLinearLoss } from './core-loss';
 import { copperResistivity } from './copper';
 import { biasLossFactor, coreDcField } from './dc-bias-loss';
 import { dowellFactor, dowellSkinTerm } from './dowell';
-import { litzProximitySum } from './litz';
+import { litzProximitySum, litzWindingFactor } from './litz';
 import { evaluateDesign, type EvaluateInput } from './evaluate';
 import { MAX_HARMONIC } from './harmonics';
 import { transverseFieldLoss } from './gap-field-loss';
@@ -63,9 +63,9 @@ export function lossMap(input: EvaluateInput, fractions: readonly number[] = LOA
   const ctx = prepareSpec(spec, input.limits);
   const wire = prepareWire(input.wire, ctx);
   const part = prepareCore(core).thermal;
-  const layers = (Number.isFinite(base.winding.layers) ? base.winding.layers : 1) * wire.layersPerWindingLayer;
+  const layers = Number.isFinite(base.winding.layers) ? base.winding.layers : 1;
   const referenceResistivity = copperResistivity(ctx.acTemperature);
-  const litzGeometry = (base.turns * base.turns) / (core.bobbinWidth * core.bobbinWidth);
+  const litzGeometry = litzWindingFactor(base.turns, core.bobbinWidth);
   const inductanceAt = (iout: number) => biasedInductance(base.turns, iout, base.inductanceFactor.withFringing, core.le, material.rollOff);
   const inputs: Record<InputCorner, number> = {
     min: spec.vinMin,

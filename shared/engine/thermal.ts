@@ -12,16 +12,6 @@ export function surfaceDissipationRise(power: number, surfaceArea: number): numb
 
 const SURFACE_EXPONENT = 0.826;
 
-/**
- * The loss above which the volume law's rise P·Rth exceeds the surface law's 450·(P/A)^0.826 (W): the two cross once,
- * at P = (450/(A^0.826·Rth))^(1/0.174); set a hair above it so a rounding error cannot reverse the comparison. Above
- * it the temperature iteration needs no power of the surface law.
- */
-export function volumeLawAbove(surfaceArea: number, volumeThermalResistance: number): number {
-  const crossing = Math.pow(450 / (Math.pow(surfaceArea * 1e4, SURFACE_EXPONENT) * volumeThermalResistance), 1 / (1 - SURFACE_EXPONENT));
-  return crossing > 0 ? crossing * (1 + 1e-6) : Number.POSITIVE_INFINITY;
-}
-
 /** Thermal resistance of a ferrite E-type core from its effective volume: Rth = 53·Ve^−0.54, Ve in cm³ (K/W). */
 export function coreVolumeThermalResistance(effectiveVolume: number): number {
   return 53 * Math.pow(effectiveVolume * 1e6, -0.54);
