@@ -33,6 +33,14 @@ const PREFIXES: Record<string, number> = { p: 1e-12, n: 1e-9, u: 1e-6, m: 1e-3, 
 /** "400k", "4u7", "2k2", "1M5": a number with an SI prefix and no unit, the prefix standing for the decimal point. */
 const PREFIX_SHORTHAND = /^([+-]?\d+(?:\.\d+)?)\s*([pnumkMG])(\d*)$/;
 
+/**
+ * Whether `text` is read by a rule a person may not expect — a decimal comma ("1,5") or a prefix shorthand ("400k",
+ * "4u7") — so a field can say what it read instead of taking it silently.
+ */
+export function readLoosely(text: string): boolean {
+  return /,/.test(text) || PREFIX_SHORTHAND.test(text.trim());
+}
+
 /** The value of a prefix shorthand in a field whose unit it leaves out, or undefined (also where a prefix letter is the unit). */
 function parseShorthand(text: string, kind: QuantityKind): number | undefined {
   const info = QUANTITIES[kind];

@@ -22,7 +22,7 @@ import {
 import { ErrorStateMatcher } from '@angular/material/core';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
-import { formatQuantity, parseQuantity, type QuantityKind } from '@shared/units/index';
+import { formatQuantity, parseQuantity, readLoosely, type QuantityKind } from '@shared/units/index';
 
 let nextId = 0;
 
@@ -102,7 +102,7 @@ export class QuantityInput implements ControlValueAccessor, OnInit {
   protected readonly readAs = computed(() => {
     const result = this.parsed();
     const text = this.text();
-    if (!result?.ok || !(/,/.test(text) || /^\s*[+-]?\d+(\.\d+)?\s*[pnumkMG]\d*\s*$/.test(text))) return '';
+    if (!result?.ok || !readLoosely(text)) return '';
     return `Read as ${formatQuantity(result.value, this.kind())}`;
   });
   protected readonly message = computed(() => this.ownError() ?? this.outsideError() ?? '');
