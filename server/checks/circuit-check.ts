@@ -6,7 +6,7 @@ import type { ConverterSpec } from '@shared/engine/inputs';
 import type { RollOffFit } from '@shared/engine/types';
 import type { CircuitCheckResult, CircuitCorner, ExportedModelRun } from '@shared/schemas/checks';
 import { ENGINE_VERSION } from '@shared/engine/index';
-import { buildSpiceSubcircuit } from '../exports/spice.ts';
+import { buildSpiceSubcircuit, spiceSubcircuitName } from '../exports/spice.ts';
 import { simulateBuck, simulateBuckSteady, type BuckBench, type FluxTable, type SimulatedCurrent } from '../solvers/buck-bench.ts';
 import { decimateWaveform, predictedTriangle } from './waveforms.ts';
 
@@ -192,11 +192,9 @@ export async function runExportedModel(
   const { vin } = corner.bench;
   const ripple = engineRipple(spec, vin, corner.load, inductance);
   const startCurrent = settledAverage - ripple / 2;
-  const text = buildSpiceSubcircuit(
-    { designNumber: 'DUT', title: 'design under test', revision: 0, engineVersion: ENGINE_VERSION },
-    evaluation,
-  );
-  const name = /^\.SUBCKT\s+(\S+)/m.exec(text)![1]!;
+  const header = { designNumber: 'DUT', title: 'design under test', revision: 0, engineVersion: ENGINE_VERSION };
+  const text = buildSpiceSubcircuit(header, evaluation);
+  const name = spiceSubcircuitName(header.designNumber, header.revision);
   const bench: BuckBench = {
     ...corner.bench,
     spec,

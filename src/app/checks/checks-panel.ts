@@ -1,4 +1,4 @@
-import { DecimalPipe } from '@angular/common';
+import { DecimalPipe, NgTemplateOutlet } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
@@ -19,7 +19,7 @@ export const POLL_MS = 2000;
 /** The revision's independent checks (the circuit check for now): run, follow, cancel, and the results. */
 @Component({
   selector: 'gw-checks-panel',
-  imports: [MatButtonModule, MatProgressBarModule, NgxEchartsDirective, DecimalPipe, FieldCheckView],
+  imports: [MatButtonModule, MatProgressBarModule, NgxEchartsDirective, DecimalPipe, NgTemplateOutlet, FieldCheckView],
   templateUrl: './checks-panel.html',
   styleUrl: './checks-panel.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
