@@ -1,34 +1,21 @@
-import { spawn } from 'node:child_process';
+import { spawn, type ChildProcess } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
 import { dropDatabase, ensureCluster, ensureDatabase } from '../../server/ops/postgres.ts';
 import { DEMO_USERS } from '../../server/seed/demo-scenario.ts';
 import { startServerProcess, type ServerProcess } from '../support/server-process.ts';
 import { SessionClient } from '../support/session-client.ts';
 import type { BenchRow } from './engine.ts';
+import { healthTimes } from './health-probe.ts';
 import { percentile } from './stats.ts';
 
 // Whether the web server notices checks running: GET /api/health idle, then while a worker process (the one
 // `npm start` starts, `server/workers/check-worker.ts`) works field checks queued through the API, as a user would.
 const repoRoot = fileURLToPath(new URL('../..', import.meta.url));
 const IDLE_MS = 3000;
-const PROBE_EVERY_MS = 10;
 /** The health p95 while checks run may be at most this many times the idle one (the issue: it "does not move"). */
 const HEALTH_RATIO_TARGET = 1.5;
 
 const ms = (v: number) => `${v.toFixed(1)} ms`;
-
-async function probeHealth(baseUrl: string, until: () => boolean, minimumMs: number): Promise<number[]> {
-  const times: number[] = [];
-  const end = performance.now() + minimumMs;
-  while (performance.now() < end || !until()) {
-    const next = performance.now() + PROBE_EVERY_MS;
-    const started = performance.now();
-    await fetch(`${baseUrl}/api/health`).then((r) => r.arrayBuffer());
-    times.push(performance.now() - started);
-    await new Promise((r) => setTimeout(r, Math.max(0, next - performance.now())));
-  }
-  return times;
-}
 
 interface CheckState {
   status: string;
@@ -51,20 +38,19 @@ export async function runChecksUnderLoadBench(): Promise<BenchRow[]> {
   const cluster = ensureCluster();
   ensureDatabase(database);
   let server: ServerProcess | undefined;
-  const worker = { kill: () => undefined as unknown };
+  let worker: ChildProcess | undefined;
   try {
     server = await startServerProcess(cluster.urlFor(database), { NODE_ENV: 'production' });
-    const child = spawn(process.execPath, ['--import', 'tsx', 'server/workers/check-worker.ts'], {
+    worker = spawn(process.execPath, ['--import', 'tsx', 'server/workers/check-worker.ts'], {
       cwd: repoRoot,
       env: { ...process.env, DATABASE_URL: cluster.urlFor(database), LOG_LEVEL: 'silent' },
       stdio: 'ignore',
     });
-    worker.kill = () => child.kill('SIGKILL');
     const engineer = DEMO_USERS.find((u) => u.role === 'engineer')!;
     const client = await SessionClient.signIn(server.baseUrl, engineer.username, engineer.password);
     const url = await runnableChecksUrl(client);
 
-    const idle = await probeHealth(server.baseUrl, () => true, IDLE_MS);
+    const idle = await healthTimes(server.baseUrl, IDLE_MS);
     const started = performance.now();
     await client.expectOk('POST', url, { kind: 'field' });
     let state: CheckState = { status: 'queued', progress: 0 };
@@ -77,7 +63,7 @@ export async function runChecksUnderLoadBench(): Promise<BenchRow[]> {
       });
     }, 500);
     const finished = () => state.status !== 'queued' && state.status !== 'running';
-    const busy = await probeHealth(server.baseUrl, finished, 0);
+    const busy = await healthTimes(server.baseUrl, 0, finished);
     clearInterval(poll);
     const seconds = (performance.now() - started) / 1000;
     if (state.status !== 'done') throw new Error(`the field check ended ${state.status}`);
@@ -96,7 +82,7 @@ export async function runChecksUnderLoadBench(): Promise<BenchRow[]> {
       { name: 'field check through the queue (POST → done)', value: `${seconds.toFixed(1)} s` },
     ];
   } finally {
-    worker.kill();
+    worker?.kill('SIGKILL');
     if (server) {
       server.child.kill('SIGTERM');
       await server.exited;

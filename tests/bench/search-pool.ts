@@ -8,6 +8,7 @@ import { startServerProcess, type ServerProcess } from '../support/server-proces
 import { SessionClient, type Answer } from '../support/session-client.ts';
 import { BENCH_SPEC, inventedMaterials, loadCatalogue, type BenchRow } from './engine.ts';
 import type { SearchLoadCounts, SearchLoadData, SearchLoadMessage } from './search-load.ts';
+import { healthTimes } from './health-probe.ts';
 import { percentile } from './stats.ts';
 
 // The search as the workspace asks for it (full catalogue, 20 invented materials, best 50), through the HTTP API of
@@ -22,7 +23,6 @@ const IDLE_MS = 2000;
 const BUSY_MS = 3000;
 const RAMP_MS = 500;
 const CLIENT_NICE = 10;
-const PROBE_EVERY_MS = 10;
 
 const ms = (v: number) => `${v.toFixed(1)} ms`;
 const sorted = (list: readonly number[]) => [...list].sort((a, b) => a - b);
@@ -58,21 +58,6 @@ async function searchParts(runs: number) {
     parts.json.push(json);
   }
   return { ...parts, bytes, cores: cores.length };
-}
-
-/**
- * GET /api/health one at a time for `ms`, one every PROBE_EVERY_MS at most: a probe sent back to back would take
- * CPU from the searches, the more so the faster the server answers it.
- */
-async function healthTimes(baseUrl: string, ms: number): Promise<number[]> {
-  const times: number[] = [];
-  const end = performance.now() + ms;
-  while (performance.now() < end) {
-    const next = performance.now() + PROBE_EVERY_MS;
-    times.push(await timed(() => fetch(`${baseUrl}/api/health`).then((r) => r.arrayBuffer())));
-    await new Promise((r) => setTimeout(r, Math.max(0, next - performance.now())));
-  }
-  return times;
 }
 
 /** The searching connections, run by search-load.ts in a process of its own. */
