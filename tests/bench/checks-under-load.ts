@@ -19,18 +19,35 @@ const ms = (v: number) => `${v.toFixed(1)} ms`;
 
 interface CheckState {
   status: string;
-  progress: number;
+  failure?: string | null;
 }
 
-/** A demo design's revision whose checks may still be run (a draft or one in review), as its checks URL. */
-async function runnableChecksUrl(client: SessionClient): Promise<string> {
+/** The demo designs' revisions whose checks may still be run (drafts or in review), as their checks URLs. */
+async function runnableChecksUrls(client: SessionClient): Promise<string[]> {
   const list = (await client.expectOk('GET', '/api/designs?pageSize=50')) as { items: { id: number; revision: number }[] };
+  const urls: string[] = [];
   for (const design of list.items) {
     const url = `/api/designs/${design.id}/revisions/${design.revision}/checks`;
     const answer = (await client.expectOk('GET', url)) as { canRun: boolean };
-    if (answer.canRun) return url;
+    if (answer.canRun) urls.push(url);
   }
-  throw new Error('no demo design has a revision whose checks can run');
+  return urls;
+}
+
+/** Queues a field check on `url` and probes health until it ends: its state, the probe times and the seconds taken. */
+async function fieldCheckUnderProbe(client: SessionClient, baseUrl: string, url: string) {
+  const started = performance.now();
+  await client.expectOk('POST', url, { kind: 'field' });
+  let state: CheckState = { status: 'queued' };
+  const poll = setInterval(() => {
+    void client.expectOk('GET', url).then((answer) => {
+      const field = (answer as { checks: (CheckState & { kind: string })[] }).checks.find((c) => c.kind === 'field');
+      if (field) state = field;
+    });
+  }, 500);
+  const busy = await healthTimes(baseUrl, 0, () => state.status !== 'queued' && state.status !== 'running');
+  clearInterval(poll);
+  return { state, busy, seconds: (performance.now() - started) / 1000 };
 }
 
 export async function runChecksUnderLoadBench(): Promise<BenchRow[]> {
@@ -48,25 +65,20 @@ export async function runChecksUnderLoadBench(): Promise<BenchRow[]> {
     });
     const engineer = DEMO_USERS.find((u) => u.role === 'engineer')!;
     const client = await SessionClient.signIn(server.baseUrl, engineer.username, engineer.password);
-    const url = await runnableChecksUrl(client);
-
     const idle = await healthTimes(server.baseUrl, IDLE_MS);
-    const started = performance.now();
-    await client.expectOk('POST', url, { kind: 'field' });
-    let state: CheckState = { status: 'queued', progress: 0 };
-    let runningSince = 0;
-    const poll = setInterval(() => {
-      void client.expectOk('GET', url).then((answer) => {
-        const field = (answer as { checks: (CheckState & { kind: string })[] }).checks.find((c) => c.kind === 'field');
-        if (field) state = field;
-        if (state.status === 'running' && !runningSince) runningSince = performance.now();
-      });
-    }, 500);
-    const finished = () => state.status !== 'queued' && state.status !== 'running';
-    const busy = await healthTimes(server.baseUrl, 0, finished);
-    clearInterval(poll);
-    const seconds = (performance.now() - started) / 1000;
-    if (state.status !== 'done') throw new Error(`the field check ended ${state.status}`);
+    // A demo design the field model cannot build (litz, say) fails its check in plain words: the next one is taken.
+    const refused: string[] = [];
+    let run: Awaited<ReturnType<typeof fieldCheckUnderProbe>> | undefined;
+    for (const url of await runnableChecksUrls(client)) {
+      const attempt = await fieldCheckUnderProbe(client, server.baseUrl, url);
+      if (attempt.state.status === 'done') {
+        run = attempt;
+        break;
+      }
+      refused.push(`${url}: ${attempt.state.status} (${attempt.state.failure ?? 'no reason'})`);
+    }
+    if (!run) throw new Error(`no demo design's field check ran: ${refused.join('; ') || 'none could be run'}`);
+    const { busy, seconds } = run;
     const p95 = (times: number[]) =>
       percentile(
         [...times].sort((a, b) => a - b),
