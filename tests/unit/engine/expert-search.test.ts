@@ -180,3 +180,20 @@ describe('paging and fronts', () => {
     }
   });
 });
+
+describe('the loss floor that leaves builds unsolved', () => {
+  // A build is left unsolved only when a bound on its loss (copper at ambient, no gap-field loss, the core at its
+  // material's lowest temperature factor) shows it can change no result. The search must then answer exactly as if it
+  // had solved every build: same ranks, figures, fronts and explanations (the counts of solved builds aside).
+  const comparable = (result: SearchResult) => ({ ...result, counts: { ...result.counts, evaluated: 0, screened: 0 } });
+  for (const name of Object.keys(EXAMPLE_SPECS) as (keyof typeof EXAMPLE_SPECS)[]) {
+    it(`${name}: the same answer as solving every build, with fewer solved`, () => {
+      const screened = search(EXAMPLE_SPECS[name], { ...everything, rankBy: 'loss' });
+      const solved = search(EXAMPLE_SPECS[name], { ...everything, rankBy: 'loss', solveEveryBuild: true });
+      expect(solved.counts.screened).toBe(0);
+      expect(screened.counts.screened).toBeGreaterThan(0);
+      expect(screened.counts.evaluated + screened.counts.screened).toBe(solved.counts.evaluated);
+      expect(comparable(screened)).toEqual(comparable(solved));
+    });
+  }
+});

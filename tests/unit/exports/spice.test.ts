@@ -129,7 +129,17 @@ describe('candidates CSV', () => {
           reasons: [{ code: 'fill', severity: 'error' as const, message: 'Winding does not fit' }],
         },
       ],
-      counts: { cores: 2, materials: 1, wireOptions: 1, evaluated: 2, feasible: 1, extrapolated: 0, prefiltered: 0, incompatible: 0 },
+      counts: {
+        cores: 2,
+        materials: 1,
+        wireOptions: 1,
+        evaluated: 2,
+        screened: 0,
+        feasible: 1,
+        extrapolated: 0,
+        prefiltered: 0,
+        incompatible: 0,
+      },
       requiredAreaProduct: 1e-8,
     };
     const csv = candidatesCsv(
