@@ -36,6 +36,7 @@ const FOOTER_GAP = 10;
 const CAUTION_SIZE = 6.5;
 /** A section title starts a page unless its first lines fit under it (pt of text after the title). */
 const KEEP_WITH_TITLE = 2;
+const PAGE_WIDTH = 595.28 - 2 * MARGIN; // A4
 const DRAWING_BOX = { width: 499, height: 300, fontSize: 8 };
 
 /** Black and greys for the drawing's parts (fill, stroke); the SVG takes the theme's colours instead. */
@@ -86,11 +87,40 @@ function paintDrawing(doc: PDFKit.PDFDocument, placed: PlacedDrawing, left: numb
   doc.fillColor('#000000');
 }
 
+/** What one composition put on its last page: rows written there, and the sections whose title starts there. */
+interface Composed {
+  doc: PDFKit.PDFDocument;
+  lastPageRows: number;
+  lastPageSections: string[];
+  footerHeight: number;
+}
+
 /**
  * The winding sheet as a PDF with Noto Sans embedded (shipped with the app, nothing fetched). Every page carries the
- * design, revision and build order above and "page n of m" with the caution below; a section title never ends a page.
+ * design, revision and build order above and "page n of m" with the caution below; a section title never ends a page,
+ * and a last page that would hold only a stray row or two takes the section before it along.
  */
 export function renderSheetPdf(sheet: WindingSheet): Promise<Buffer> {
+  let composed = compose(sheet, null);
+  if (composed.lastPageRows <= 2 && composed.lastPageSections.length > 0) {
+    const titles = sheetSections(sheet).map((section) => section.title);
+    const previous = titles[titles.indexOf(composed.lastPageSections[0]) - 1];
+    if (previous) {
+      composed.doc.end();
+      composed = compose(sheet, previous);
+    }
+  }
+  const { doc } = composed;
+  const chunks: Buffer[] = [];
+  doc.on('data', (c: Buffer) => chunks.push(c));
+  const done = new Promise<Buffer>((resolve) => doc.on('end', () => resolve(Buffer.concat(chunks))));
+  headersAndFooters(doc, sheet, composed.footerHeight);
+  doc.end();
+  return done;
+}
+
+/** The sheet's content on buffered pages, a new page before the section titled `breakBefore`. */
+function compose(sheet: WindingSheet, breakBefore: string | null): Composed {
   const doc = new PDFDocument({
     size: 'A4',
     margin: MARGIN,
@@ -101,17 +131,20 @@ export function renderSheetPdf(sheet: WindingSheet): Promise<Buffer> {
   doc.registerFont('regular', FONTS.regular);
   doc.registerFont('bold', FONTS.bold);
   doc.registerFont('greek', FONTS.greek);
-  const chunks: Buffer[] = [];
-  doc.on('data', (c: Buffer) => chunks.push(c));
-  const done = new Promise<Buffer>((resolve) => doc.on('end', () => resolve(Buffer.concat(chunks))));
 
   // The footer's height decides the bottom margin: the caution in full, under the page number.
-  const pageWidth = 595.28 - 2 * MARGIN;
+  const pageWidth = PAGE_WIDTH;
   doc.font('regular').fontSize(CAUTION_SIZE);
   const footerHeight = FOOTER_GAP + 10 + doc.heightOfString(sheet.caution, { width: pageWidth });
   const margins = { top: MARGIN + HEADER_BAND, bottom: MARGIN + footerHeight, left: MARGIN, right: MARGIN };
-  doc.addPage({ size: 'A4', margins });
-
+  let lastPageRows = 0;
+  let lastPageSections: string[] = [];
+  const newPage = () => {
+    doc.addPage({ size: 'A4', margins });
+    lastPageRows = 0;
+    lastPageSections = [];
+  };
+  newPage();
   const write = (text: string, font: 'regular' | 'bold', size: number, options: PDFKit.Mixins.TextOptions = {}) => {
     const parts = runs(text);
     parts.forEach((part, i) => {
@@ -124,7 +157,7 @@ export function renderSheetPdf(sheet: WindingSheet): Promise<Buffer> {
   const bottom = () => doc.page.height - doc.page.margins.bottom;
   /** A new page unless `height` more fits on this one. */
   const keep = (height: number) => {
-    if (doc.y + height > bottom()) doc.addPage({ size: 'A4', margins });
+    if (doc.y + height > bottom()) newPage();
   };
 
   write(`Winding sheet — ${sheet.header.designNumber} rev ${sheet.header.revision}`, 'bold', 18);
@@ -156,8 +189,10 @@ export function renderSheetPdf(sheet: WindingSheet): Promise<Buffer> {
       doc.font('regular').fontSize(9).heightOfString(value, { width: valueWidth }),
     );
   const title = (text: string, following: number) => {
-    doc.moveDown(0.6);
+    if (text === breakBefore) newPage();
+    else doc.moveDown(0.6);
     keep(doc.font('bold').fontSize(12).heightOfString(text) + following);
+    lastPageSections.push(text);
     write(text, 'bold', 12);
   };
 
@@ -166,6 +201,7 @@ export function renderSheetPdf(sheet: WindingSheet): Promise<Buffer> {
     title(section.title, first);
     for (const [label, value] of section.lines) {
       keep(lineHeight(label, value));
+      lastPageRows += 1;
       const y = doc.y;
       doc
         .font('bold')
@@ -190,6 +226,7 @@ export function renderSheetPdf(sheet: WindingSheet): Promise<Buffer> {
     title('Winding drawing', (placed.shapes.length ? placed.height : 0) + notesHeight);
     doc.moveDown(0.3);
     if (placed.shapes.length) {
+      lastPageRows += drawing.notes.length + 2;
       const top = doc.y;
       paintDrawing(doc, placed, left, top);
       doc.y = top + placed.height;
@@ -198,8 +235,16 @@ export function renderSheetPdf(sheet: WindingSheet): Promise<Buffer> {
     write(notes, 'regular', 8, { width: pageWidth });
   }
 
-  // Header and footer on every page, in the bands the margins keep free (the margin set to 0 while writing there, so
-  // pdfkit does not start a new page for text below the content area).
+  return { doc, lastPageRows, lastPageSections, footerHeight };
+}
+
+/**
+ * Header and footer on every page, in the bands the margins keep free (the margin set to 0 while writing there, so
+ * pdfkit does not start a new page for text below the content area).
+ */
+function headersAndFooters(doc: PDFKit.PDFDocument, sheet: WindingSheet, footerHeight: number): void {
+  const left = MARGIN;
+  const pageWidth = PAGE_WIDTH;
   const range = doc.bufferedPageRange();
   for (let i = range.start; i < range.start + range.count; i++) {
     doc.switchToPage(i);
@@ -233,6 +278,4 @@ export function renderSheetPdf(sheet: WindingSheet): Promise<Buffer> {
       .text(sheet.caution, left, footerY + 10, { width: pageWidth });
     page.margins.bottom = saved;
   }
-  doc.end();
-  return done;
 }

@@ -35,7 +35,13 @@ describe('WindingDrawingView', () => {
     expect(svg.querySelectorAll('circle.r-copper')).toHaveLength(20);
     const texts = [...svg.querySelectorAll('text')].map((t) => t.textContent!.trim());
     expect(texts).toEqual(
-      expect.arrayContaining(['keep-out 0.8 mm', 'build 1.1 mm', 'winding width 21 mm', 'gap 0.4 mm (centre leg)', 'bobbin build height 6 mm']),
+      expect.arrayContaining([
+        'keep-out 0.8 mm',
+        'build 1.1 mm',
+        'winding width 21 mm',
+        'gap 0.4 mm (centre leg)',
+        'bobbin build height 6 mm',
+      ]),
     );
     // one gap (the centre leg's), hatching over the keep-out, the theme's colours through classes
     expect(svg.querySelectorAll('rect.r-gap')).toHaveLength(1);

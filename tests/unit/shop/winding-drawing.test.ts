@@ -8,8 +8,10 @@ import { etd34Like, ferriteA, powderP, powderRing, roundWire, sectionOneSpec, wo
 import { EXAMPLE_SPECS } from '../../support/example-specs';
 
 // The drawing lies on its side: x along the centre leg (0 on the mating plane), y out from the leg face.
-const copper = (shapes: DrawingShape[]) => shapes.filter((s) => s.kind === 'circle' && s.role === 'copper') as Extract<DrawingShape, { kind: 'circle' }>[];
-const rects = (shapes: DrawingShape[], role: string) => shapes.filter((s) => s.kind === 'rect' && s.role === role) as Extract<DrawingShape, { kind: 'rect' }>[];
+const copper = (shapes: DrawingShape[]) =>
+  shapes.filter((s) => s.kind === 'circle' && s.role === 'copper') as Extract<DrawingShape, { kind: 'circle' }>[];
+const rects = (shapes: DrawingShape[], role: string) =>
+  shapes.filter((s) => s.kind === 'rect' && s.role === role) as Extract<DrawingShape, { kind: 'rect' }>[];
 const dimension = (shapes: DrawingShape[], label: RegExp) =>
   shapes.find((s) => s.kind === 'dimension' && label.test(s.label)) as Extract<DrawingShape, { kind: 'dimension' }> | undefined;
 
