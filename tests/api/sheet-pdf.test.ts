@@ -57,14 +57,7 @@ describe('the winding sheet PDF of a released demo design', () => {
     header = order.sheet.header;
     turns = order.sheet.winding.turns;
     expect(order.sheet.drawing.turns).toBe(turns);
-    const pdf = await wendell.agent
-      .get(`/api/shop/orders/${released.body.orderId}/sheet.pdf`)
-      .buffer(true)
-      .parse((res, cb) => {
-        const chunks: Buffer[] = [];
-        res.on('data', (c: Buffer) => chunks.push(c));
-        res.on('end', () => cb(null, Buffer.concat(chunks)));
-      });
+    const pdf = await wendell.getBytes(`/api/shop/orders/${released.body.orderId}/sheet.pdf`);
     expect(pdf.status).toBe(200);
     pages = pagesOf(pdf.body as Buffer, 'winding-sheet-demo');
   });
