@@ -118,12 +118,9 @@ export const windingSheetSchema = z
       saturationAtHotSpot: z.number().meta({ description: 'T' }),
     }),
     caution: z.string(),
-    drawing: windingDrawingInputSchema
-      .nullable()
-      .optional()
-      .meta({
-        description: 'What the winding drawing is drawn from; null without the core shape; absent on sheets released before drawings',
-      }),
+    drawing: windingDrawingInputSchema.nullable().optional().meta({
+      description: 'What the winding drawing is drawn from; null without the core shape; absent on sheets released before drawings',
+    }),
   })
   .meta({
     description: 'Built once at release from the revision’s frozen result; SI units, temperatures in °C',
