@@ -1,6 +1,7 @@
 import { GAP_SENSITIVITY_STEP, type EvaluationResult } from '@shared/engine/index';
 import type { CoreShape, WireOption } from '@shared/engine/types';
 import { SHEET_CAUTION, type WindingSheet } from '@shared/shop/sheet';
+import { windingDrawingInput } from '@shared/shop/winding-drawing';
 
 // Choices of the trade used on every sheet (common practice, no source).
 const TEST_FREQUENCY = 10e3; // small-signal L test, well below where ferrite permeability changes
@@ -204,5 +205,6 @@ export function buildWindingSheet(input: SheetInput): WindingSheet {
       saturationAtHotSpot: r.flux.saturationAtHotSpot,
     },
     caution: SHEET_CAUTION,
+    drawing: core ? windingDrawingInput(r, core, wire) : null,
   };
 }

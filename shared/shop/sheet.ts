@@ -2,6 +2,7 @@
 // Built once at release from the revision's frozen result; lengths in m, inductance in H,
 // resistance in Ω, frequencies in Hz, temperatures in °C (SI inside, formatted at the edges). Its schema, for the
 // stored JSON and the order's answer: shared/schemas/winding-sheet.ts.
+import type { WindingDrawingInput } from './winding-drawing';
 
 export interface SheetTestLimits {
   inductance: {
@@ -92,6 +93,8 @@ export interface WindingSheet {
     saturationAtHotSpot: number;
   };
   caution: string;
+  /** What the winding drawing is drawn from (winding-drawing.ts); null without the core's shape, absent on older sheets. */
+  drawing?: WindingDrawingInput | null;
 }
 
 export const SHEET_CAUTION =
