@@ -11,12 +11,12 @@ const fontFile = (subset: string, weight: number) =>
   require.resolve(`@fontsource/noto-sans/files/noto-sans-${subset}-${weight}-normal.woff`);
 
 // Noto Sans is split into script subsets; Greek letters (Ω, µ is Latin-1) come from the greek subset.
-const FONTS = {
+export const SHEET_FONTS = {
   regular: fontFile('latin', 400),
   bold: fontFile('latin', 700),
   greek: fontFile('greek', 400),
 };
-const isGreek = (ch: string) => /[\u0370-\u03ff]/.test(ch);
+export const isGreek = (ch: string) => /[\u0370-\u03ff]/.test(ch);
 
 function runs(text: string): { greek: boolean; text: string }[] {
   const out: { greek: boolean; text: string }[] = [];
@@ -128,9 +128,9 @@ function compose(sheet: WindingSheet, breakBefore: string | null): Composed {
     autoFirstPage: false,
     info: { Title: `${sheet.header.designNumber} rev ${sheet.header.revision} winding sheet`, Creator: 'Gapwright' },
   });
-  doc.registerFont('regular', FONTS.regular);
-  doc.registerFont('bold', FONTS.bold);
-  doc.registerFont('greek', FONTS.greek);
+  doc.registerFont('regular', SHEET_FONTS.regular);
+  doc.registerFont('bold', SHEET_FONTS.bold);
+  doc.registerFont('greek', SHEET_FONTS.greek);
 
   // The footer's height decides the bottom margin: the caution in full, under the page number.
   const pageWidth = PAGE_WIDTH;

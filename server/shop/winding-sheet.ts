@@ -38,7 +38,7 @@ function wireDescription(wire: WireOption, copperArea: number): string {
 const um = (m: number) => `${Math.round(m * 1e6)} µm`;
 /** How much 10 µm either way moves L, in words (the engine gives ΔL/L for 10 µm more). */
 const sensitivityText = (r: EvaluationResult) =>
-  `±${um(GAP_SENSITIVITY_STEP)} changes L by ∓${Math.abs(r.gap.sensitivity10um * 100).toFixed(1)} %`;
+  `${um(GAP_SENSITIVITY_STEP)} more gap lowers L by ${Math.abs(r.gap.sensitivity10um * 100).toFixed(1)} % (10 µm less raises it about as much)`;
 
 /**
  * Exactly what to build: a ground centre gap (with the spacer that would give the same inductance, never half the
