@@ -549,6 +549,30 @@ export function evaluateWindingLosses(
   out.windingWarnings = warnings;
 }
 
+/** The figures evaluateWindingLosses writes, copied from one CandidateFigures to another (the layout's stay). */
+export function copyWindingLosses(from: CandidateFigures, to: CandidateFigures): void {
+  to.keepOut = from.keepOut;
+  to.loss.gapLossScale = from.loss.gapLossScale;
+  to.loss.gapLossWeights = from.loss.gapLossWeights;
+  to.windingFailures = from.windingFailures;
+  to.windingWarnings = from.windingWarnings;
+  to.runaway = from.runaway;
+  to.coreTemperature = from.coreTemperature;
+  to.windingTemperature = from.windingTemperature;
+  to.rawTemperatureFactor = from.rawTemperatureFactor;
+  to.thermalPasses = from.thermalPasses;
+  to.resistanceHot = from.resistanceHot;
+  to.temperatureFactor = from.temperatureFactor;
+  to.acFactor = from.acFactor;
+  to.copperLossDc = from.copperLossDc;
+  to.copperLossAc = from.copperLossAc;
+  to.gapLoss = from.gapLoss;
+  to.coreLoss = from.coreLoss;
+  to.totalLoss = from.totalLoss;
+  to.rise = from.rise;
+  to.hotSpot = from.hotSpot;
+}
+
 /**
  * The gap's share, on figures evaluateWinding left for the same turns and wire: DC flux, saturation at both
  * corners and the magnetic design's own failures. Calling it again with another placement's design replaces them.

@@ -6,6 +6,7 @@ import {
   applyMagnetics,
   CandidateFigures,
   buildFitsWithKeepOut,
+  copyWindingLosses,
   evaluateCandidate,
   evaluateWindingLosses,
   FAILURE,
@@ -162,6 +163,7 @@ function evaluateWithKeepOut(
   const base = ctx.limits.keepOut;
   evaluateWindingLosses(ctx, coreCtx, matCtx, mag, wireCtx, out, base);
   if (!(out.gapLoss > KEEP_OUT_TRY_FRACTION * out.totalLoss)) return;
+  copyWindingLosses(out, atBaseKeepOut);
   const core = coreCtx.core;
   const baseFailures = out.windingFailures;
   const baseLoss = out.totalLoss;
@@ -189,8 +191,11 @@ function evaluateWithKeepOut(
     evaluateWindingLosses(ctx, coreCtx, matCtx, mag, wireCtx, out, best, bestScale);
     if ((out.windingFailures & ~baseFailures) === 0 && out.totalLoss < baseLoss) return;
   }
-  evaluateWindingLosses(ctx, coreCtx, matCtx, mag, wireCtx, out, base, baseScale);
+  if (out.keepOut !== base) copyWindingLosses(atBaseKeepOut, out);
 }
+
+/** The limit's keep-out figures while evaluateWithKeepOut tries others on the same layout. */
+const atBaseKeepOut = new CandidateFigures();
 
 /**
  * A candidate whose loss cannot be below `floor` changes no group when its kind and placement already have a build
