@@ -64,6 +64,15 @@ describe('data it can trust', () => {
     expect(ranked[0]!.lossNotModelled).toBe(false);
   });
 
+  it('F: where every part rests on extrapolated loss data, foil beside a gap still follows every fully modelled one', () => {
+    // Before: #1–#3 were 1 mm foil on P9/5 beside a 0.08 mm gap, ahead of extrapolated round-wire parts, though a
+    // missing loss term (the gap field at the foil's edge) is a worse doubt than a fit used outside its range.
+    const ranked = search(EXAMPLE_SPECS.F, everything).candidates;
+    const firstNotModelled = ranked.findIndex((c) => c.lossNotModelled);
+    expect(firstNotModelled).toBeGreaterThan(0);
+    expect(ranked.slice(firstNotModelled).every((c) => c.lossNotModelled)).toBe(true);
+  });
+
   it('F: a material fitted at the switching frequency outranks one extrapolated from 300 kHz, though it loses more', () => {
     // Before: #1 used a material fitted at 50–300 kHz, at 2 MHz.
     const fittedAtMegahertz: CoreMaterial = {
