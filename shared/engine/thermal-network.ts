@@ -316,6 +316,8 @@ export class NetworkSolution {
   iterations = 0;
   converged = false;
   readonly air = new AirProperties();
+  /** Scratch of networkStep. */
+  readonly node: NodeConductance = { conductance: 0, growth: 0 };
 }
 
 export const NETWORK_TOLERANCE = 0.02;
@@ -387,8 +389,9 @@ export function solveNetwork(
  *   (gc + gb + gcw)·θc − gcw·θw = Pc(Tc),  −gcw·θc + (gw + gcw)·θw = Pw(Tw),
  * linearised at the temperatures in `out` (the conductances' growth with the rise through riseSensitivity, the
  * losses' through their slopes dPc/dTc and dPw/dTw in W/K). Where the losses grow faster than the cooling (no
- * stable point near), the slopes are dropped and the step is the network's at the present losses. Updates `out`;
- * returns how far the farther node moved (K).
+ * stable point near), the slopes are dropped and the step is the network's at the present losses. The conductances
+ * come from `table` where given (made for the same cooling) and it covers the rise. Updates `out`; returns how far the
+ * farther node moved (K).
  */
 export function networkStep(
   network: ThermalNetwork,
@@ -398,6 +401,7 @@ export function networkStep(
   coreSlope: number,
   copperSlope: number,
   out: NetworkSolution,
+  table?: ConductanceTable,
 ): number {
   const ambient = cooling.ambient;
   const board = cooling.boardThermalResistance;
@@ -406,19 +410,20 @@ export function networkStep(
   const gcw = network.coreToWinding;
   const tc = out.coreTemperature;
   const tw = out.windingTemperature;
-  const cc = convectiveConductance(network.core, tc, cooling, network.flowLength, mounted, out.air);
-  const rc = radiativeConductance(exposedArea(network.core, mounted), network.core.emissivity, tc, ambient);
-  const cw = convectiveConductance(network.winding, tw, cooling, network.flowLength, mounted, out.air);
-  const rw = radiativeConductance(exposedArea(network.winding, mounted), network.winding.emissivity, tw, ambient);
-  const gc = cc + rc;
-  const gw = cw + rw;
   const thetaC = tc > ambient ? tc - ambient : 0;
   const thetaW = tw > ambient ? tw - ambient : 0;
+  const node = out.node;
+  if (!table?.at(thetaC, 0, node)) nodeConductance(network, 0, tc, cooling, mounted, out.air, node);
+  const gc = node.conductance;
+  const growthC = node.growth;
+  if (!table?.at(thetaW, 1, node)) nodeConductance(network, 1, tw, cooling, mounted, out.air, node);
+  const gw = node.conductance;
+  const growthW = node.growth;
   // Residuals of the balances and their Jacobian; d(G·θ)/dθ = G·(1 + d ln G / d ln θ).
   const fc = (gc + gBoard + gcw) * thetaC - gcw * thetaW - coreLoss;
   const fw = (gw + gcw) * thetaW - gcw * thetaC - copperLoss;
-  const cooledC = gc * (1 + riseSensitivity(cc, rc, tc, ambient)) + gBoard + gcw;
-  const cooledW = gw * (1 + riseSensitivity(cw, rw, tw, ambient)) + gcw;
+  const cooledC = gc * (1 + growthC) + gBoard + gcw;
+  const cooledW = gw * (1 + growthW) + gcw;
   let a = cooledC - coreSlope;
   let d = cooledW - copperSlope;
   let det = a * d - gcw * gcw;
@@ -440,4 +445,86 @@ export function networkStep(
   out.iterations += 1;
   out.converged = moved <= NETWORK_TOLERANCE;
   return moved;
+}
+
+/** A node's conductance to ambient (W/K, convection and radiation) and its growth d ln G / d ln θ. */
+export interface NodeConductance {
+  conductance: number;
+  growth: number;
+}
+
+/** Node 0 (core) or 1 (winding) at `temperature` (°C): conductance and growth into `out`. */
+export function nodeConductance(
+  network: ThermalNetwork,
+  which: 0 | 1,
+  temperature: number,
+  cooling: Cooling,
+  mounted: boolean,
+  air: AirProperties,
+  out: NodeConductance,
+): NodeConductance {
+  const surfaces = which === 0 ? network.core : network.winding;
+  const ambient = cooling.ambient;
+  const convective = convectiveConductance(surfaces, temperature, cooling, network.flowLength, mounted, air);
+  const radiative = radiativeConductance(exposedArea(surfaces, mounted), surfaces.emissivity, temperature, ambient);
+  out.conductance = convective + radiative;
+  out.growth = riseSensitivity(convective, radiative, temperature, ambient);
+  return out;
+}
+
+/** Points of a ConductanceTable, evenly spaced in √θ from 0 to √(TABLE_RISE) K. */
+export const TABLE_POINTS = 96;
+/** Highest rise a ConductanceTable covers (K); above it networkStep evaluates the correlations. */
+export const TABLE_RISE = 260;
+
+/**
+ * Each node's conductance and growth against its rise for one core and one cooling, on points evenly spaced in √θ
+ * (convection grows as θ^¼, so √θ spacing keeps the points dense where the curve bends), read by linear
+ * interpolation: the same correlations evaluated TABLE_POINTS times per node instead of at every step of every solve
+ * (within 2e-4 of them, a few hundredths of a kelvin at the rises that matter; see the tests).
+ */
+export class ConductanceTable {
+  readonly ambient: number;
+  readonly airSpeed: number;
+  readonly board: number;
+  private readonly step = Math.sqrt(TABLE_RISE) / (TABLE_POINTS - 1);
+  private readonly values = new Float64Array(4 * TABLE_POINTS);
+
+  constructor(network: ThermalNetwork, cooling: Cooling) {
+    this.ambient = cooling.ambient;
+    this.airSpeed = cooling.airSpeed ?? 0;
+    this.board = cooling.boardThermalResistance ?? 0;
+    const board = cooling.boardThermalResistance;
+    const mounted = board !== undefined && board > 0 && Number.isFinite(board);
+    const air = new AirProperties();
+    const node: NodeConductance = { conductance: 0, growth: 0 };
+    for (let k = 0; k < TABLE_POINTS; k++) {
+      const u = k * this.step;
+      for (const which of [0, 1] as const) {
+        nodeConductance(network, which, cooling.ambient + u * u, cooling, mounted, air, node);
+        this.values[4 * k + 2 * which] = node.conductance;
+        this.values[4 * k + 2 * which + 1] = node.growth;
+      }
+    }
+  }
+
+  /** Whether this table was made for `cooling`. */
+  serves(cooling: Cooling): boolean {
+    return (
+      this.ambient === cooling.ambient && this.airSpeed === (cooling.airSpeed ?? 0) && this.board === (cooling.boardThermalResistance ?? 0)
+    );
+  }
+
+  /** Node 0 (core) or 1 (winding) at rise `theta` (K) into `out`; false above the table (the caller evaluates). */
+  at(theta: number, which: 0 | 1, out: NodeConductance): boolean {
+    const position = Math.sqrt(theta) / this.step;
+    const k = Math.floor(position);
+    if (!(k < TABLE_POINTS - 1)) return false;
+    const f = position - k;
+    const i = 4 * k + 2 * which;
+    const v = this.values;
+    out.conductance = v[i]! + f * (v[i + 4]! - v[i]!);
+    out.growth = v[i + 1]! + f * (v[i + 5]! - v[i + 1]!);
+    return true;
+  }
 }

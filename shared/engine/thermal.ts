@@ -2,7 +2,7 @@ import { COPPER_TEMPERATURE_COEFFICIENT } from './constants';
 import { copperResistanceRatio } from './copper';
 import { AC_TEMPERATURE_NODES, dotBasis, gridScaleAt, lagrangeBasis, type AcTemperatureGrid } from './copper-loss';
 import { coreLossTemperatureFactor, type TemperatureCoefficients } from './core-loss';
-import { NetworkSolution, networkStep, thermalNetwork, type Cooling, type ThermalNetwork } from './thermal-network';
+import { ConductanceTable, NetworkSolution, networkStep, thermalNetwork, type Cooling, type ThermalNetwork } from './thermal-network';
 import type { CoreFamily, CoreShape } from './types';
 
 /** Surface-dissipation law ΔT = 450·(P/At)^0.826, P in W and At in cm² (At given here in m²). */
@@ -94,6 +94,14 @@ export interface ThermalPart {
   surfaceArea: number;
   /** Core-volume law's K/W where it applies (VOLUME_LAW_FAMILIES), NaN elsewhere. */
   volumeThermalResistance: number;
+  /** The network's conductances tabulated for the last cooling solved (conductanceTableOf). */
+  table?: ConductanceTable;
+}
+
+/** The part's conductance table for `cooling`, made on first use and kept while the cooling stays the same. */
+export function conductanceTableOf(part: ThermalPart, cooling: Cooling): ConductanceTable {
+  if (!part.table?.serves(cooling)) part.table = new ConductanceTable(part.network, cooling);
+  return part.table;
 }
 
 export function prepareThermalPart(core: CoreShape): ThermalPart {
@@ -179,6 +187,7 @@ export function solveTemperature(
   const ambient = cooling.ambient;
   const net = out.network;
   const coefficients = loss.temperatureCoefficients;
+  const table = conductanceTableOf(part, cooling);
   let passes = 0;
   let moved = Number.POSITIVE_INFINITY;
   let resistance = 0;
@@ -222,7 +231,7 @@ export function solveTemperature(
       const copperSlope = windingCapped ? 0 : loss.resistance20 * COPPER_TEMPERATURE_COEFFICIENT * currentSquare;
       const coreSlope =
         coreCapped || floored || !coefficients ? 0 : loss.coreLossReference * (2 * coefficients.ct2 * coreTemperature - coefficients.ct1);
-      moved = networkStep(part.network, cooling, coreLoss, copperLoss, coreSlope, copperSlope, net);
+      moved = networkStep(part.network, cooling, coreLoss, copperLoss, coreSlope, copperSlope, net, table);
     }
     passes += 1;
   }

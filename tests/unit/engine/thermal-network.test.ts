@@ -18,6 +18,9 @@ import {
   type Cooling,
   type NodeSurfaces,
   type ThermalNetwork,
+  AirProperties,
+  ConductanceTable,
+  nodeConductance,
 } from '@shared/engine/thermal-network';
 import { coreVolumeThermalResistance, surfaceDissipationRise } from '@shared/engine/thermal';
 import type { CoreShape } from '@shared/engine/types';
@@ -190,4 +193,37 @@ describe('two-node network', () => {
     // the core sits under the winding: its heat crosses into the winding, so it is the hotter node
     expect(s.coreTemperature).toBeGreaterThan(s.windingTemperature);
   });
+});
+
+describe('the conductance table the loss–temperature solve reads', () => {
+  // The same correlations, evaluated at 96 points in √θ and interpolated: checked here against evaluating them
+  // directly (this file's other tests check the correlations themselves against their published forms).
+  const catalogue = loadCoreCatalogue();
+  const parts = ['ETD34/17/11', 'RM10', 'T26.9/14.7/11.2'].map((id) => catalogue.find((c) => c.id === id)!);
+  const coolings = [{ ambient: 40 }, { ambient: 40, airSpeed: 2 }, { ambient: 25, boardThermalResistance: 10 }, { ambient: 100 }];
+  it.each(parts.flatMap((core) => coolings.map((cooling) => [core.id, JSON.stringify(cooling), core, cooling] as const)))(
+    '%s, %s: within 3e-4 of the correlations from 1 K to 250 K rise',
+    (_, __, core, cooling) => {
+      const network = thermalNetwork(core);
+      const table = new ConductanceTable(network, cooling);
+      const mounted = (cooling.boardThermalResistance ?? 0) > 0;
+      const read = { conductance: 0, growth: 0 };
+      const direct = { conductance: 0, growth: 0 };
+      let worst = 0;
+      for (let rise = 1; rise <= 250; rise *= 1.03) {
+        for (const which of [0, 1] as const) {
+          expect(table.at(rise, which, read)).toBe(true);
+          nodeConductance(network, which, cooling.ambient + rise, cooling, mounted, new AirProperties(), direct);
+          // A toroid's core node has no surface of its own (conductance 0): nothing to compare there.
+          if (direct.conductance === 0) expect(read.conductance).toBe(0);
+          else worst = Math.max(worst, Math.abs(read.conductance / direct.conductance - 1), Math.abs(read.growth - direct.growth));
+        }
+      }
+      expect(worst).toBeLessThan(3e-4);
+      expect(worst).toBeGreaterThan(0);
+      expect(table.serves(cooling)).toBe(true);
+      expect(table.serves({ ...cooling, ambient: cooling.ambient + 1 })).toBe(false);
+      expect(table.at(300, 0, read)).toBe(false);
+    },
+  );
 });
