@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
@@ -9,6 +9,7 @@ import type { RecordedUnit } from '@shared/schemas/shop';
 
 import { Api } from '../core/api';
 import { errorsShownByCaller } from '../core/error-display';
+import { FormSubmission } from '../core/form-submission';
 import { showServerFieldErrors } from '../core/server-field-errors';
 
 export interface VoidUnitDialogData {
@@ -38,13 +39,13 @@ export interface VoidUnitDialogData {
             <mat-error>Give a reason of 3 to 500 characters</mat-error>
           }
         </mat-form-field>
-        @if (formError()) {
-          <p class="gw-form-error" role="alert">{{ formError() }}</p>
+        @if (submission.failure(); as failure) {
+          <p class="gw-form-error" role="alert">{{ failure }}</p>
         }
       </mat-dialog-content>
       <mat-dialog-actions align="end">
         <button mat-button type="button" mat-dialog-close>Cancel</button>
-        <button mat-flat-button type="submit" [disabled]="busy()">Void record</button>
+        <button mat-flat-button type="submit" [disabled]="submission.submitting()">Void record</button>
       </mat-dialog-actions>
     </form>
   `,
@@ -60,8 +61,7 @@ export class VoidUnitDialog {
   private readonly dialogRef = inject<MatDialogRef<VoidUnitDialog, RecordedUnit>>(MatDialogRef);
   private readonly api = inject(Api);
 
-  protected readonly busy = signal(false);
-  protected readonly formError = signal<string | null>(null);
+  protected readonly submission = new FormSubmission();
   protected readonly form = new FormGroup({
     reason: new FormControl('', {
       nonNullable: true,
@@ -70,17 +70,11 @@ export class VoidUnitDialog {
   });
 
   protected confirm(): void {
-    this.form.markAllAsTouched();
-    if (this.form.invalid) return;
-    this.busy.set(true);
-    this.formError.set(null);
-    const body = { reason: this.form.controls.reason.value.trim() };
-    this.api.call(voidUnit, { params: { id: String(this.data.unitId) }, body }, errorsShownByCaller()).subscribe({
-      next: (outcome) => this.dialogRef.close(outcome),
-      error: (error: unknown) => {
-        this.busy.set(false);
-        this.formError.set(showServerFieldErrors(this.form, error));
-      },
-    });
+    const body = () => ({ reason: this.form.controls.reason.value.trim() });
+    this.submission.send(
+      this.form,
+      () => this.api.call(voidUnit, { params: { id: String(this.data.unitId) }, body: body() }, errorsShownByCaller()),
+      { done: (outcome) => this.dialogRef.close(outcome), describe: (error) => showServerFieldErrors(this.form, error) },
+    );
   }
 }

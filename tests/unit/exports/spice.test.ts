@@ -3,7 +3,7 @@ import { evaluateDesign, type CoreMaterial } from '@shared/engine/index';
 import { parse } from 'csv-parse/sync';
 import { CatalogueService } from '../../../server/catalogue/catalogue.service.ts';
 import { buildBom, COPPER_DENSITY, copperMass, LEAD_LENGTH } from '../../../server/exports/bom.ts';
-import { buildWindingSheet } from '../../../server/shop/winding-sheet.ts';
+import { testSheet } from '../../support/winding-sheet.ts';
 import { bomCsv, candidatesCsv } from '../../../server/exports/candidates-csv.ts';
 import { buildSpiceSubcircuit, spiceNumber, spiceSubcircuitName, spiceValues } from '../../../server/exports/spice.ts';
 
@@ -89,17 +89,7 @@ describe('bill of materials', () => {
   });
 
   it('agrees with the winding sheet on length per wire, total length and copper mass', () => {
-    const sheet = buildWindingSheet({
-      design: { number: 'GW-0007', title: 'Test choke' },
-      revision: { revision: 2, engineVersion: 'test', inductanceTolerance: 0.1 },
-      order: { number: 'BO-1', quantity: 1, releasedAt: new Date('2026-01-01T00:00:00Z') },
-      author: 'a',
-      approver: 'b',
-      result,
-      core: undefined,
-      wire: awg16x2,
-      insulation: { required: false },
-    });
+    const sheet = testSheet(result, awg16x2, undefined);
     const wire = rows.find((r) => r.item === 'Wire')!;
     expect(wire.quantity).toBeCloseTo(sheet.parts.wire.totalLength!, 3);
     expect(sheet.parts.wire.length * 2).toBeCloseTo(sheet.parts.wire.totalLength!, 12);
