@@ -1,6 +1,8 @@
-// Candidates of a search as CSV. Cells that a spreadsheet would run as formulas are escaped.
+// Candidates of a search and the bill of materials as CSV, each ending in the sheet's caution row. Cells that a spreadsheet
+// would run as formulas are escaped.
 import { stringify } from 'csv-stringify/sync';
 import type { SearchResult } from '@shared/engine/index';
+import { SHEET_CAUTION } from '@shared/shop/sheet';
 
 export const CANDIDATE_COLUMNS = [
   'design',
@@ -102,6 +104,7 @@ export function candidatesCsv(
       x.reasons.map((i) => i.message).join(' | '),
     ]);
   }
+  rows.push(cautionRow(CANDIDATE_COLUMNS.length));
   return stringify(rows, {
     header: true,
     columns: [...CANDIDATE_COLUMNS],
@@ -110,9 +113,18 @@ export function candidatesCsv(
   });
 }
 
+/**
+ * The sheet's caution as the file's last row ('Caution' in the first column, the text in the second, the rest empty):
+ * a spreadsheet shows it, and the file stays one table a parser reads (skip the row whose first cell is 'Caution').
+ */
+export function cautionRow(columns: number): string[] {
+  return ['Caution', SHEET_CAUTION, ...Array<string>(columns - 2).fill('')];
+}
+
 export function bomCsv(rows: readonly { item: string; description: string; quantity: number; unit: string; note: string }[]): string {
-  return stringify(
-    rows.map((r) => [r.item, r.description, r.quantity, r.unit, r.note]),
-    { header: true, columns: ['item', 'description', 'quantity', 'unit', 'note'], escape_formulas: true },
-  );
+  return stringify([...rows.map((r) => [r.item, r.description, r.quantity, r.unit, r.note]), cautionRow(5)], {
+    header: true,
+    columns: ['item', 'description', 'quantity', 'unit', 'note'],
+    escape_formulas: true,
+  });
 }

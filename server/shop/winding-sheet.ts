@@ -4,6 +4,7 @@ import { COPPER_DENSITY, LEAD_LENGTH, lengthWithLeads } from '@shared/shop/build
 import { SHEET_CAUTION, type WindingSheet } from '@shared/shop/sheet';
 import { planTerminations } from '@shared/shop/terminations';
 import { biasTest, inductanceTest, resistanceLimit } from '@shared/shop/test-limits';
+import { windingDrawingInput } from '@shared/shop/winding-drawing';
 
 // The choices of the trade (lead length, pins, test frequency and level, allowances) are in shared/shop/build-practice.ts.
 
@@ -35,7 +36,7 @@ function wireDescription(wire: WireOption, copperArea: number): string {
 const um = (m: number) => `${Math.round(m * 1e6)} µm`;
 /** How much 10 µm either way moves L, in words (the engine gives ΔL/L for 10 µm more). */
 const sensitivityText = (r: EvaluationResult) =>
-  `±${um(GAP_SENSITIVITY_STEP)} changes L by ∓${Math.abs(r.gap.sensitivity10um * 100).toFixed(1)} %`;
+  `${um(GAP_SENSITIVITY_STEP)} more gap lowers L by ${Math.abs(r.gap.sensitivity10um * 100).toFixed(1)} % (10 µm less raises it about as much)`;
 
 /**
  * Exactly what to build: a ground centre gap (with the spacer that would give the same inductance, never half the
@@ -233,5 +234,6 @@ export function buildWindingSheet(input: SheetInput): WindingSheet {
       saturationAtHotSpot: r.flux.saturationAtHotSpot,
     },
     caution: SHEET_CAUTION,
+    drawing: core ? windingDrawingInput(r, core, wire) : null,
   };
 }

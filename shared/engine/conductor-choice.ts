@@ -31,8 +31,14 @@ export const FOIL_MAX_TURNS = 30;
 
 export class ConductorChooser {
   private readonly typeOf: Int8Array;
-  /** Wire indices, thickest copper first, so the DC bound below prunes the thin ones early. */
-  private readonly byArea: Int32Array;
+  /** Foil options, thickest first. */
+  private readonly foils: Int32Array;
+  /** Every other option, most copper first (so the fill check and the DC bound below cut the list short). */
+  private readonly rounds: Int32Array;
+  private readonly roundAreas: Float64Array;
+  /** The conductor types each list holds, one bit each. */
+  private readonly foilTypes: number;
+  private readonly roundTypes: number;
   private readonly geometry: WindingGeometry = { turnsPerLayer: 0, layers: 0, buildHeight: 0, meanTurnLength: 0 };
   private readonly cache = new Map<number, Int32Array>();
 
@@ -41,8 +47,14 @@ export class ConductorChooser {
     private readonly wires: readonly WireContext[],
   ) {
     this.typeOf = Int8Array.from(wires, (w) => conductorTypeIndex(w.wire));
-    const areaOf = (w: WireContext) => (w.wire.kind === 'foil' ? w.wire.strandDiameter : w.copperArea);
-    this.byArea = Int32Array.from(wires.map((_, i) => i).sort((a, b) => areaOf(wires[b]!) - areaOf(wires[a]!)));
+    const indices = wires.map((_, i) => i);
+    const isFoil = (i: number) => wires[i]!.wire.kind === 'foil';
+    this.foils = Int32Array.from(indices.filter(isFoil).sort((a, b) => wires[b]!.wire.strandDiameter - wires[a]!.wire.strandDiameter));
+    this.rounds = Int32Array.from(indices.filter((i) => !isFoil(i)).sort((a, b) => wires[b]!.copperArea - wires[a]!.copperArea));
+    this.roundAreas = Float64Array.from(this.rounds, (i) => wires[i]!.copperArea);
+    const typesOf = (list: Int32Array) => list.reduce((bits, i) => bits | (1 << this.typeOf[i]!), 0);
+    this.foilTypes = typesOf(this.foils);
+    this.roundTypes = typesOf(this.rounds);
   }
 
   /**
@@ -60,22 +72,57 @@ export class ConductorChooser {
   }
 
   private choose(core: CoreShape, turns: number): Int32Array {
-    const { op, limits } = this.ctx;
+    const { op } = this.ctx;
     const best = new Int32Array(CONDUCTOR_TYPES.length).fill(-1);
     const bestLoss = new Float64Array(CONDUCTOR_TYPES.length).fill(Number.POSITIVE_INFINITY);
+    const copperLimit = this.ctx.limits.windowUtilisation * core.windowArea;
+    const foilWorthwhile = op.rmsCurrent / this.ctx.limits.currentDensity > FOIL_MIN_COPPER_AREA && turns <= FOIL_MAX_TURNS;
+    if (foilWorthwhile) this.consider(this.foils, this.foilTypes, 0, core, turns, best, bestLoss);
+    // The options are sorted by copper area: those too thick for the window's copper come first and are skipped.
+    let first = 0;
+    let last = this.roundAreas.length;
+    while (first < last) {
+      const mid = (first + last) >> 1;
+      if (turns * this.roundAreas[mid]! > copperLimit) first = mid + 1;
+      else last = mid;
+    }
+    this.consider(this.rounds, this.roundTypes, first, core, turns, best, bestLoss);
+    return best;
+  }
+
+  /**
+   * The options of `order` from `from` on (copper area falling within each type), each kept where it loses least of
+   * its type. The DC loss alone, at the shortest possible turn, bounds a wire's loss from below and only grows along
+   * the list: once it reaches a type's best, no later option of that type can beat it, and the type is done.
+   */
+  private consider(
+    order: Int32Array,
+    types: number,
+    from: number,
+    core: CoreShape,
+    turns: number,
+    best: Int32Array,
+    bestLoss: Float64Array,
+  ): void {
+    const { op, limits } = this.ctx;
     const copperLimit = limits.windowUtilisation * core.windowArea;
     const dcSquare = op.ioutMax * op.ioutMax;
-    const foilWorthwhile = op.rmsCurrent / limits.currentDensity > FOIL_MIN_COPPER_AREA && turns <= FOIL_MAX_TURNS;
-    // The DC loss alone, at the shortest possible turn, bounds a wire's loss from below.
     const shortestTurn = core.ring ? ringMeanTurnLength(core.ring, 0) : core.mlt;
-    for (const i of this.byArea) {
+    let done = 0;
+    for (let k = from; k < order.length; k++) {
+      const i = order[k]!;
+      const type = this.typeOf[i]!;
+      if (done & (1 << type)) continue;
       const wireCtx = this.wires[i]!;
       const wire = wireCtx.wire;
-      if (wire.kind === 'foil' ? !foilWorthwhile : wire.kind !== 'litz' && wire.strands > limits.maxStrands) continue;
+      if (wire.kind !== 'foil' && wire.kind !== 'litz' && wire.strands > limits.maxStrands) continue;
       const area = turnCopperArea(wireCtx, core);
       if (!(area > 0) || turns * area > copperLimit) continue;
-      const type = this.typeOf[i]!;
-      if (windingResistance(turns, shortestTurn, area, 20) * dcSquare >= bestLoss[type]!) continue;
+      if (windingResistance(turns, shortestTurn, area, 20) * dcSquare >= bestLoss[type]!) {
+        done |= 1 << type;
+        if ((done & types) === types) return;
+        continue;
+      }
       layWinding(turns, wire, core, this.geometry);
       if (!fitsBuildHeight(this.geometry.buildHeight, core)) continue;
       const ripple =
@@ -88,6 +135,5 @@ export class ConductorChooser {
         best[type] = i;
       }
     }
-    return best;
   }
 }

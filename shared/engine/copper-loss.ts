@@ -137,6 +137,23 @@ export function gridScaleAt(grid: AcTemperatureGrid, temperature: number): numbe
   return deltaScale(grid.reference, t);
 }
 
+/** The Lagrange basis L_i(s) of the grid's nodes, into `out`: the value at s of any node table is Σ L_i·v_i (dotBasis). */
+export function lagrangeBasis(grid: AcTemperatureGrid, s: number, out: Float64Array): Float64Array {
+  for (let i = 0; i < AC_TEMPERATURE_NODES; i++) {
+    let l = 1 / grid.denominators[i]!;
+    for (let j = 0; j < AC_TEMPERATURE_NODES; j++) if (j !== i) l *= s - grid.scales[j]!;
+    out[i] = l;
+  }
+  return out;
+}
+
+/** Σ basis_i·values_i. */
+export function dotBasis(basis: Float64Array, values: Float64Array): number {
+  let value = 0;
+  for (let i = 0; i < AC_TEMPERATURE_NODES; i++) value += basis[i]! * values[i]!;
+  return value;
+}
+
 /** The node values interpolated at s = gridScaleAt(grid, T): several tables at one temperature share s. */
 export function interpolateAtScale(grid: AcTemperatureGrid, nodeValues: Float64Array, s: number): number {
   let value = 0;

@@ -16,6 +16,7 @@ import {
 } from './kernel';
 import { designMagnetics, type MagneticDesign, type TurnsInput } from './magnetic-design';
 import type { OperatingPoint } from './operating-point';
+import { crossCheckPart, crossCheckRises } from './thermal';
 import {
   gapInputOf,
   type CoreFamily,
@@ -194,6 +195,7 @@ export function assembleResult(
 ): EvaluationResult {
   const { op, limits } = ctx;
   const wire = wireCtx.wire;
+  const crossCheck = crossCheckRises(f.totalLoss, crossCheckPart(core), limits.ambient, f.runaway);
   return {
     feasible: f.failures === 0,
     issues: describeIssues({ ctx, core, material, mag, figures: f, wire }),
@@ -285,8 +287,8 @@ export function assembleResult(
     },
     totalLoss: f.totalLoss,
     thermal: {
-      riseBySurface: f.riseBySurface,
-      riseByVolume: Number.isNaN(f.riseByVolume) ? null : f.riseByVolume,
+      riseBySurface: crossCheck.bySurface,
+      riseByVolume: Number.isNaN(crossCheck.byVolume) ? null : crossCheck.byVolume,
       rise: f.rise,
       surfaceTemperature: limits.ambient + f.rise,
       hotSpot: f.hotSpot,

@@ -244,16 +244,30 @@ export function gapFieldSum(layout: GapFieldLayout, sources: GapFieldSources): n
   return sum;
 }
 
-/** Σ_{from ≤ j < to} ln²[(x² + (z_j + h)²)/(x² + (z_j − h)²)], z_j = z0 + j·d. */
+/**
+ * Σ_{from ≤ j < to} ln²[(x² + (z_j + h)²)/(x² + (z_j − h)²)], z_j = z0 + j·d. With A = x² + z² + h² and B = 2·z·h the
+ * logarithm is ln[(A + B)/(A − B)] = 2·atanh(B/A); where |B/A| ≤ ATANH_SERIES_LIMIT (conductors away from the gap's
+ * mouth, most of them) its odd power series to t⁹ is used instead of the logarithm (relative error below 1e-7).
+ */
 function logSquareSum(x2: number, h: number, z0: number, d: number, from: number, to: number): number {
   let s = 0;
+  const h2 = h * h;
   for (let j = from; j < to; j++) {
     const z = z0 + j * d;
-    const l = Math.log((x2 + (z + h) * (z + h)) / (x2 + (z - h) * (z - h)));
+    const a = x2 + z * z + h2;
+    const t = (2 * z * h) / a;
+    let l: number;
+    if (t <= ATANH_SERIES_LIMIT && t >= -ATANH_SERIES_LIMIT) {
+      const t2 = t * t;
+      l = 2 * t * (1 + t2 * (1 / 3 + t2 * (1 / 5 + t2 * (1 / 7 + t2 / 9))));
+    } else l = Math.log((a + 2 * z * h) / (a - 2 * z * h));
     s += l * l;
   }
   return s;
 }
+
+/** Up to this |t| the atanh series to t⁹ is within 1e-7 of the logarithm (the next term is t¹⁰/11 of it). */
+const ATANH_SERIES_LIMIT = 0.25;
 
 /**
  * Share of the winding MMF across the gaps: the gap reluctance (lg/F, F the fringing factor) over the whole path's

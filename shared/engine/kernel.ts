@@ -11,11 +11,11 @@ import {
   type AcLossSums,
   type AcLossTable,
 } from './copper-loss';
-import { copperResistivity, windingResistance } from './copper';
+import { copperResistanceRatio, copperResistivity, windingResistance } from './copper';
 import { biasLossFactor, coreDcField } from './dc-bias-loss';
 import { litzProximitySum, litzWindingFactor } from './litz';
 import { HOT_SPOT_ALLOWANCE } from './constants';
-import { fluxInFitRange, frequencyInFitRange, igseTriangleLoss, steinmetzLoss } from './core-loss';
+import { coreLossTemperatureFactor, fluxInFitRange, frequencyInFitRange, igseTriangleLoss, steinmetzLoss } from './core-loss';
 import { foilDelta, roundWireDelta } from './dowell';
 import { gapFieldLoss, gapFieldSum, gapMmfShare, rippleTransverseLoss, type GapFieldLayout, type GapFieldSources } from './gap-field-loss';
 import { spacerEquivalentGap } from './gap';
@@ -26,6 +26,7 @@ import type { MagneticDesign } from './magnetic-design';
 import { saturationFlux, saturationMargin } from './saturation';
 import { copperSkinDepth } from './skin-depth';
 import {
+  TEMPERATURE_FACTOR_FLOOR,
   THERMAL_MODEL_LIMIT,
   ThermalSolution,
   emptyWoundCoreLoss,
@@ -223,12 +224,27 @@ export interface MaterialContext {
   /** Steinmetz density at ΔB = 1 T (B̂ = ½ T), likewise. */
   steinmetzAtUnitSwing: number;
   frequencyInFit: boolean;
+  /** The lowest core-loss temperature factor (floored) between ambient and the thermal model's limit, for lossFloor. */
+  lowestTemperatureFactor: number;
+}
+
+/** min over [low, high] of the (floored) temperature factor ct2·T² − ct1·T + ct0: at an end or at the vertex. */
+function lowestTemperatureFactor(material: CoreMaterial, low: number, high: number): number {
+  const c = material.tempCoefficients;
+  if (!c) return 1;
+  let lowest = Math.min(coreLossTemperatureFactor(c, low), coreLossTemperatureFactor(c, high));
+  if (c.ct2 > 0) {
+    const vertex = c.ct1 / (2 * c.ct2);
+    if (vertex > low && vertex < high) lowest = Math.min(lowest, coreLossTemperatureFactor(c, vertex));
+  }
+  return Math.max(lowest, TEMPERATURE_FACTOR_FLOOR);
 }
 
 export function prepareMaterial(material: CoreMaterial, ctx: SpecContext): MaterialContext {
   const f = ctx.spec.frequency;
   return {
     material,
+    lowestTemperatureFactor: lowestTemperatureFactor(material, ctx.limits.ambient, Math.max(THERMAL_MODEL_LIMIT, ctx.limits.ambient)),
     igseAtUnitSwing: igseTriangleLoss(material, f, 1, ctx.op.dutyAtVinMax),
     steinmetzAtUnitSwing: steinmetzLoss(material, f, 0.5),
     frequencyInFit: frequencyInFitRange(material, f),
@@ -276,9 +292,6 @@ export class CandidateFigures {
   temperatureFactor = 1;
   coreLoss = 0;
   totalLoss = 0;
-  riseBySurface = 0;
-  /** NaN where the core-volume law does not apply. */
-  riseByVolume = 0;
   rise = 0;
   /** The winding node's temperature (°C). */
   hotSpot = 0;
@@ -460,6 +473,21 @@ export function layOutWinding(
 }
 
 /**
+ * A loss no placement or keep-out of the layout layOutWinding left in `out` can go below (W), with no temperature
+ * solved: copper at ambient (ρ only rises from there) with half the smallest ripple weight of the AC grid's nodes (the
+ * interpolated weight is a smooth curve through them), no gap-field loss, and the core at the lowest temperature
+ * factor the material reaches between ambient and the thermal model's limit (MaterialContext.lowestTemperatureFactor).
+ * The search leaves a build unsolved when even this floor cannot change its result.
+ */
+export function lossFloor(ctx: SpecContext, matCtx: MaterialContext, out: CandidateFigures): number {
+  const loss = out.loss;
+  let ripple = loss.rippleWeights[0]!;
+  for (let i = 1; i < AC_TEMPERATURE_NODES; i++) if (loss.rippleWeights[i]! < ripple) ripple = loss.rippleWeights[i]!;
+  const copper = loss.resistance20 * copperResistanceRatio(ctx.limits.ambient) * (loss.dcCurrentSquare + (ripple > 0 ? ripple / 2 : 0));
+  return (copper + loss.coreLossReference * matCtx.lowestTemperatureFactor) * (1 - 1e-12);
+}
+
+/**
  * On the layout layOutWinding left in `out` (same core, material, turns and wire): the keep-out's build check, the
  * gap-field loss of this magnetic design at this keep-out, the temperature iteration and the failures it decides.
  * When neither the gap-field scale nor the keep-out changed since the last call on the same layout, the figures
@@ -487,7 +515,7 @@ export function evaluateWindingLosses(
   if (!buildFitsWithKeepOut(core, out, keepOut)) failures |= FAILURE.build;
   loss.gapLossScale = scale;
   if (scale > 0) loss.gapLossWeights = wireGapTable(wireCtx, ctx);
-  const thermal = solveTemperature(limits, loss, coreCtx.thermal, out.thermal);
+  const thermal = solveTemperature(limits, loss, coreCtx.thermal, out.thermal, false);
   if (!thermal.converged) warnings |= WARNING.thermalNotConverged;
   if (thermal.runaway) failures |= FAILURE.thermalRunaway;
   // A temperature fit that is ≤ 0 where the core works is invalid there; the loss used the floored factor.
@@ -506,8 +534,6 @@ export function evaluateWindingLosses(
   out.gapLoss = thermal.gapLoss;
   out.coreLoss = thermal.coreLoss;
   out.totalLoss = thermal.totalLoss;
-  out.riseBySurface = thermal.rise.bySurface;
-  out.riseByVolume = thermal.rise.byVolume;
   out.rise = rise;
   // Past the model's limit the runaway part is reported at the limit (the rise is capped likewise).
   out.hotSpot = thermal.runaway ? limits.ambient + rise : thermal.windingTemperature;
@@ -521,6 +547,30 @@ export function evaluateWindingLosses(
   out.windingFailures = failures;
   if (wireCtx.wire.kind === 'foil' && mag.kind === 'air-gap' && mag.totalGap > 0) warnings |= WARNING.lossNotModelled;
   out.windingWarnings = warnings;
+}
+
+/** The figures evaluateWindingLosses writes, copied from one CandidateFigures to another (the layout's stay). */
+export function copyWindingLosses(from: CandidateFigures, to: CandidateFigures): void {
+  to.keepOut = from.keepOut;
+  to.loss.gapLossScale = from.loss.gapLossScale;
+  to.loss.gapLossWeights = from.loss.gapLossWeights;
+  to.windingFailures = from.windingFailures;
+  to.windingWarnings = from.windingWarnings;
+  to.runaway = from.runaway;
+  to.coreTemperature = from.coreTemperature;
+  to.windingTemperature = from.windingTemperature;
+  to.rawTemperatureFactor = from.rawTemperatureFactor;
+  to.thermalPasses = from.thermalPasses;
+  to.resistanceHot = from.resistanceHot;
+  to.temperatureFactor = from.temperatureFactor;
+  to.acFactor = from.acFactor;
+  to.copperLossDc = from.copperLossDc;
+  to.copperLossAc = from.copperLossAc;
+  to.gapLoss = from.gapLoss;
+  to.coreLoss = from.coreLoss;
+  to.totalLoss = from.totalLoss;
+  to.rise = from.rise;
+  to.hotSpot = from.hotSpot;
 }
 
 /**

@@ -1,6 +1,7 @@
 // Ordering of feasible candidates by the designer's chosen objective, and the Pareto fronts drawn beside them.
-// Candidates whose core loss rests on extrapolated material data, or whose loss leaves out a term the engine does not
-// model, always follow every fully modelled in-fit candidate.
+// Candidates whose core loss rests on extrapolated material data follow every fully modelled in-fit candidate, and
+// those whose loss leaves out a term the engine does not model follow both: an extrapolated fit still estimates every
+// loss, a missing term (the gap field at a foil's edge, which a field check found to triple Rac) does not.
 import type { RankBy } from './inputs';
 
 export interface RankedFigures {
@@ -31,14 +32,20 @@ function primary(f: RankedFigures, rankBy: RankBy): number {
   }
 }
 
-/** Indices of `figures` in rank order: in-fit before extrapolated, then the objective, then loss, volume, simplicity. */
+/** 0 fully modelled and in fit, 1 extrapolated, 2 a loss term left out. */
+const doubt = (f: RankedFigures) => (f.lossNotModelled ? 2 : f.extrapolated ? 1 : 0);
+
+/**
+ * Indices of `figures` in rank order: fully modelled in-fit, then extrapolated, then those with a loss term left out;
+ * within each, the objective, then loss, volume, simplicity.
+ */
 export function rankOrder(figures: readonly RankedFigures[], rankBy: RankBy): number[] {
   const key = figures.map((f) => primary(f, rankBy));
   return figures
     .map((_, i) => i)
     .sort(
       (a, b) =>
-        Number(figures[a]!.extrapolated || figures[a]!.lossNotModelled) - Number(figures[b]!.extrapolated || figures[b]!.lossNotModelled) ||
+        doubt(figures[a]!) - doubt(figures[b]!) ||
         key[a]! - key[b]! ||
         figures[a]!.loss - figures[b]!.loss ||
         figures[a]!.volume - figures[b]!.volume ||

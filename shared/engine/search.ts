@@ -6,11 +6,13 @@ import {
   applyMagnetics,
   CandidateFigures,
   buildFitsWithKeepOut,
+  copyWindingLosses,
   evaluateCandidate,
   evaluateWindingLosses,
   FAILURE,
   gapLossScale,
   layOutWinding,
+  lossFloor,
   prepareCore,
   prepareMaterial,
   prepareSpec,
@@ -22,7 +24,15 @@ import {
 } from './kernel';
 import { designMagnetics, windowTurnLimit, type MagneticDesign } from './magnetic-design';
 import { paretoFront, rankOrder, type RankedFigures } from './ranking';
-import { dropNeedlessConductors, explainInfeasible, popcount, recordFeasible, type Group, type PairState } from './search-groups';
+import {
+  dropNeedlessConductors,
+  explainInfeasible,
+  popcount,
+  recordFeasible,
+  SIMPLER_CONDUCTOR_PREFERENCE,
+  type Group,
+  type PairState,
+} from './search-groups';
 import { GAP_PLACEMENTS, type CoreMaterial, type CoreShape, type GapPlacement, type WireOption } from './types';
 
 /** Cores whose area product is below this fraction of the requirement are reported, not evaluated. */
@@ -47,6 +57,8 @@ export interface SearchInput {
   limit?: number;
   /** Infeasible core × material pairs to explain, closest to feasible first (default 30); every prefiltered core follows. */
   infeasibleLimit?: number;
+  /** Solve every build, the ones the loss floor shows can change nothing too (the tests' reference; slower). */
+  solveEveryBuild?: boolean;
 }
 
 export interface SearchCandidate {
@@ -96,6 +108,11 @@ export interface SearchResult {
     wireOptions: number;
     /** Candidate evaluations made (core × material × turns × conductor × gap placement). */
     evaluated: number;
+    /**
+     * Candidates left unsolved because their loss floor showed they could change nothing: neither the best build of
+     * their kind nor the turns sweep's lowest loss, nor keep their kind (a later kind must beat solid wire clearly).
+     */
+    screened: number;
     /** Feasible candidates: the best build of each core × material × conductor kind × placement that meets every limit. */
     feasible: number;
     /** Of those, how many rest on extrapolated loss data (ranked after every in-fit candidate). */
@@ -146,6 +163,7 @@ function evaluateWithKeepOut(
   const base = ctx.limits.keepOut;
   evaluateWindingLosses(ctx, coreCtx, matCtx, mag, wireCtx, out, base);
   if (!(out.gapLoss > KEEP_OUT_TRY_FRACTION * out.totalLoss)) return;
+  copyWindingLosses(out, atBaseKeepOut);
   const core = coreCtx.core;
   const baseFailures = out.windingFailures;
   const baseLoss = out.totalLoss;
@@ -173,8 +191,26 @@ function evaluateWithKeepOut(
     evaluateWindingLosses(ctx, coreCtx, matCtx, mag, wireCtx, out, best, bestScale);
     if ((out.windingFailures & ~baseFailures) === 0 && out.totalLoss < baseLoss) return;
   }
-  evaluateWindingLosses(ctx, coreCtx, matCtx, mag, wireCtx, out, base, baseScale);
+  if (out.keepOut !== base) copyWindingLosses(atBaseKeepOut, out);
 }
+
+/** The limit's keep-out figures while evaluateWithKeepOut tries others on the same layout. */
+const atBaseKeepOut = new CandidateFigures();
+
+/**
+ * A candidate whose loss cannot be below `floor` changes no group when its kind and placement already have a build
+ * that loses no more, or when it is not solid wire and loses clearly more than the best solid build of its placement
+ * (dropNeedlessConductors drops every later kind that does not beat solid wire by SIMPLER_CONDUCTOR_PREFERENCE).
+ */
+function cannotChangeGroups(groups: readonly Group[], pairGroups: Int32Array, placement: number, type: number, floor: number): boolean {
+  const row = placement * CONDUCTOR_TYPES.length;
+  const own = pairGroups[row + type]!;
+  if (own >= 0 && floor >= groups[own]!.loss) return true;
+  const solid = pairGroups[row + SOLID]!;
+  return type !== SOLID && solid >= 0 && floor > groups[solid]!.loss * (1 - SIMPLER_CONDUCTOR_PREFERENCE);
+}
+
+const SOLID = CONDUCTOR_TYPES.indexOf('solid');
 
 const nextTurns = (turns: number) => (turns < TURNS_GEOMETRIC_FROM ? turns + 1 : Math.ceil(turns * TURNS_GEOMETRIC_STEP));
 
@@ -207,6 +243,7 @@ export function searchCandidates(input: SearchInput): SearchResult {
   const pairs: PairState[] = [];
   const prefilteredCores: InfeasibleCandidate[] = [];
   let evaluated = 0;
+  let screened = 0;
   let prefiltered = 0;
   let incompatible = 0;
 
@@ -263,9 +300,15 @@ export function searchCandidates(input: SearchInput): SearchResult {
           if (w < 0) continue;
           anyWire = true;
           layOutWinding(ctx, coreCtxs[c]!, materialCtxs[m]!, turns, mags[0]!.fluxAtLoad, wireCtxs[w]!, figures);
+          // Below this no placement or keep-out of the layout can lose (lossFloor); 0 while every build must be solved.
+          const floor = pair.feasible && !input.solveEveryBuild ? lossFloor(ctx, materialCtxs[m]!, figures) : 0;
           for (let p = 0; p < placements.length; p++) {
-            evaluated++;
             const placement = placements[p]!;
+            if (floor >= lowest && cannotChangeGroups(groups, pairGroups, placement, t, floor)) {
+              screened++;
+              continue;
+            }
+            evaluated++;
             // The layout is the placements'; the gap-field loss, hence the losses and temperature, are each one's own.
             evaluateWithKeepOut(ctx, coreCtxs[c]!, materialCtxs[m]!, mags[p]!, wireCtxs[w]!, figures);
             if (figures.totalLoss < stepLowest) stepLowest = figures.totalLoss;
@@ -361,6 +404,7 @@ export function searchCandidates(input: SearchInput): SearchResult {
       materials: materials.length,
       wireOptions: wireCtxs.length,
       evaluated,
+      screened,
       feasible: kept.length,
       extrapolated: kept.filter((g) => g.extrapolated).length,
       prefiltered,

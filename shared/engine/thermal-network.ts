@@ -381,3 +381,63 @@ export function solveNetwork(
   out.converged = moved <= tolerance;
   return out;
 }
+
+/**
+ * One Newton step of the network with temperature-dependent losses: the node balances
+ *   (gc + gb + gcw)·θc − gcw·θw = Pc(Tc),  −gcw·θc + (gw + gcw)·θw = Pw(Tw),
+ * linearised at the temperatures in `out` (the conductances' growth with the rise through riseSensitivity, the
+ * losses' through their slopes dPc/dTc and dPw/dTw in W/K). Where the losses grow faster than the cooling (no
+ * stable point near), the slopes are dropped and the step is the network's at the present losses. Updates `out`;
+ * returns how far the farther node moved (K).
+ */
+export function networkStep(
+  network: ThermalNetwork,
+  cooling: Cooling,
+  coreLoss: number,
+  copperLoss: number,
+  coreSlope: number,
+  copperSlope: number,
+  out: NetworkSolution,
+): number {
+  const ambient = cooling.ambient;
+  const board = cooling.boardThermalResistance;
+  const mounted = board !== undefined && board > 0 && Number.isFinite(board);
+  const gBoard = mounted ? 1 / board : 0;
+  const gcw = network.coreToWinding;
+  const tc = out.coreTemperature;
+  const tw = out.windingTemperature;
+  const cc = convectiveConductance(network.core, tc, cooling, network.flowLength, mounted, out.air);
+  const rc = radiativeConductance(exposedArea(network.core, mounted), network.core.emissivity, tc, ambient);
+  const cw = convectiveConductance(network.winding, tw, cooling, network.flowLength, mounted, out.air);
+  const rw = radiativeConductance(exposedArea(network.winding, mounted), network.winding.emissivity, tw, ambient);
+  const gc = cc + rc;
+  const gw = cw + rw;
+  const thetaC = tc > ambient ? tc - ambient : 0;
+  const thetaW = tw > ambient ? tw - ambient : 0;
+  // Residuals of the balances and their Jacobian; d(G·θ)/dθ = G·(1 + d ln G / d ln θ).
+  const fc = (gc + gBoard + gcw) * thetaC - gcw * thetaW - coreLoss;
+  const fw = (gw + gcw) * thetaW - gcw * thetaC - copperLoss;
+  const cooledC = gc * (1 + riseSensitivity(cc, rc, tc, ambient)) + gBoard + gcw;
+  const cooledW = gw * (1 + riseSensitivity(cw, rw, tw, ambient)) + gcw;
+  let a = cooledC - coreSlope;
+  let d = cooledW - copperSlope;
+  let det = a * d - gcw * gcw;
+  if (!(a > 0 && d > 0 && det > 0)) {
+    a = cooledC;
+    d = cooledW;
+    det = a * d - gcw * gcw;
+  }
+  const stepC = -(d * fc + gcw * fw) / det;
+  const stepW = -(a * fw + gcw * fc) / det;
+  const nc = thetaC + stepC > 0 ? tc + stepC : ambient;
+  const nw = thetaW + stepW > 0 ? tw + stepW : ambient;
+  const moved = Math.max(Math.abs(nc - tc), Math.abs(nw - tw));
+  out.coreTemperature = nc;
+  out.windingTemperature = nw;
+  out.coreToAmbient = gc;
+  out.windingToAmbient = gw;
+  out.coreToBoard = gBoard;
+  out.iterations += 1;
+  out.converged = moved <= NETWORK_TOLERANCE;
+  return moved;
+}

@@ -1,7 +1,8 @@
+import { COPPER_TEMPERATURE_COEFFICIENT } from './constants';
 import { copperResistanceRatio } from './copper';
-import { AC_TEMPERATURE_NODES, gridScaleAt, interpolateAtScale, type AcTemperatureGrid } from './copper-loss';
+import { AC_TEMPERATURE_NODES, dotBasis, gridScaleAt, lagrangeBasis, type AcTemperatureGrid } from './copper-loss';
 import { coreLossTemperatureFactor, type TemperatureCoefficients } from './core-loss';
-import { NetworkSolution, solveNetwork, thermalNetwork, type Cooling, type ThermalNetwork } from './thermal-network';
+import { NetworkSolution, networkStep, thermalNetwork, type Cooling, type ThermalNetwork } from './thermal-network';
 import type { CoreFamily, CoreShape } from './types';
 
 /** Surface-dissipation law ΔT = 450·(P/At)^0.826, P in W and At in cm² (At given here in m²). */
@@ -28,7 +29,7 @@ export class TemperatureRise {
 }
 
 export const THERMAL_TOLERANCE = 0.1;
-export const THERMAL_MAX_PASSES = 6;
+export const THERMAL_MAX_PASSES = 12;
 /**
  * Highest temperature (°C) at which losses are evaluated. Above it magnet-wire enamel (class 220 at most) and
  * ferrite (Curie points of roughly 200–300 °C) have failed and the loss fits mean nothing, so a part whose losses
@@ -96,11 +97,35 @@ export interface ThermalPart {
 }
 
 export function prepareThermalPart(core: CoreShape): ThermalPart {
+  return { network: thermalNetwork(core), ...crossCheckPart(core) };
+}
+
+/** What the two empirical laws need of a core. */
+export function crossCheckPart(core: CoreShape): Pick<ThermalPart, 'surfaceArea' | 'volumeThermalResistance'> {
   return {
-    network: thermalNetwork(core),
     surfaceArea: core.surfaceArea,
     volumeThermalResistance: VOLUME_LAW_FAMILIES.includes(core.family) ? coreVolumeThermalResistance(core.ve) : Number.NaN,
   };
+}
+
+/**
+ * The two empirical laws' rises at a total loss (W), the cross-check shown beside the network's: the surface law on
+ * every core, the core-volume law where it applies (NaN elsewhere); a part in runaway has both capped where the model
+ * stops. Kept out of the loss–temperature iteration: only a shown result needs them.
+ */
+export function crossCheckRises(
+  power: number,
+  part: Pick<ThermalPart, 'surfaceArea' | 'volumeThermalResistance'>,
+  ambient: number,
+  runaway: boolean,
+  out: TemperatureRise = new TemperatureRise(),
+): TemperatureRise {
+  const cap = runaway ? THERMAL_MODEL_LIMIT - ambient : Number.POSITIVE_INFINITY;
+  const bySurface = surfaceDissipationRise(power, part.surfaceArea);
+  const byVolume = power * part.volumeThermalResistance;
+  out.bySurface = bySurface < cap ? bySurface : cap;
+  out.byVolume = byVolume > cap ? cap : byVolume; // NaN (law not applied) stays NaN
+  return out;
 }
 
 export class ThermalSolution {
@@ -134,25 +159,28 @@ export class ThermalSolution {
 
 /**
  * Losses depend on temperature (copper ρ(T) and the ripple's AC factor at the winding node, the core-loss factor at
- * the core node) and the temperatures on the losses: start at ambient and repeat until the hotter node's rise moves
- * less than 0.1 K, at most 6 passes. The first pass takes the surface law's rise as a start; each later pass solves
- * the two-node network (thermal-network.ts) for that pass's core and copper loss from the previous temperatures. The surface law and, where it applies, the
- * core-volume law are evaluated at the last pass's total loss as a cross-check (TemperatureRise.bySurface/byVolume).
- * The result is written into `out` so the search allocates nothing.
+ * the core node) and the temperatures on the losses. The first pass takes the losses at ambient and the surface law's
+ * rise as a start; each later pass solves the two-node network (thermal-network.ts) and the losses together by one
+ * Newton step on the node balances (networkStep), until neither node moves by THERMAL_TOLERANCE, at most
+ * THERMAL_MAX_PASSES passes. Unless `crossCheck` is false (the search's loop, which shows none), the two empirical
+ * laws are evaluated at the last pass's total loss (crossCheckRises). The result is written into `out` so the search
+ * allocates nothing.
  */
+/** Lagrange basis of the AC grid at the winding's temperature, shared by the ripple and gap-field tables. */
+const basis = new Float64Array(AC_TEMPERATURE_NODES);
+
 export function solveTemperature(
   cooling: Cooling,
   loss: WoundCoreLoss,
   part: ThermalPart,
   out: ThermalSolution = new ThermalSolution(),
+  crossCheck = true,
 ): ThermalSolution {
   const ambient = cooling.ambient;
   const net = out.network;
-  net.coreTemperature = ambient;
-  net.windingTemperature = ambient;
-  let rise = 0;
-  let previous = Number.NaN;
+  const coefficients = loss.temperatureCoefficients;
   let passes = 0;
+  let moved = Number.POSITIVE_INFINITY;
   let resistance = 0;
   let rippleWeight = 0;
   let gapLoss = 0;
@@ -162,45 +190,53 @@ export function solveTemperature(
   let windingTemperature = ambient;
   let copperLoss = 0;
   let coreLoss = 0;
-  while (passes < THERMAL_MAX_PASSES && !(Math.abs(rise - previous) < THERMAL_TOLERANCE)) {
-    previous = rise;
+  net.coreTemperature = ambient;
+  net.windingTemperature = ambient;
+  net.iterations = 0;
+  while (passes < THERMAL_MAX_PASSES && !(moved < THERMAL_TOLERANCE)) {
     // Losses are never evaluated above the model limit: past it the part is in runaway.
-    coreTemperature = Math.min(net.coreTemperature, THERMAL_MODEL_LIMIT);
-    windingTemperature = Math.min(net.windingTemperature, THERMAL_MODEL_LIMIT);
+    const coreCapped = net.coreTemperature >= THERMAL_MODEL_LIMIT;
+    const windingCapped = net.windingTemperature >= THERMAL_MODEL_LIMIT;
+    coreTemperature = coreCapped ? THERMAL_MODEL_LIMIT : net.coreTemperature;
+    windingTemperature = windingCapped ? THERMAL_MODEL_LIMIT : net.windingTemperature;
     resistance = loss.resistance20 * copperResistanceRatio(windingTemperature);
-    const scale = loss.acGrid ? gridScaleAt(loss.acGrid, windingTemperature) : 0;
-    rippleWeight = loss.acGrid ? interpolateAtScale(loss.acGrid, loss.rippleWeights, scale) : loss.rippleWeights[0]!;
-    rawFactor = coreLossTemperatureFactor(loss.temperatureCoefficients, coreTemperature);
-    temperatureFactor = rawFactor > TEMPERATURE_FACTOR_FLOOR ? rawFactor : TEMPERATURE_FACTOR_FLOOR;
+    const grid = loss.acGrid;
+    if (grid) lagrangeBasis(grid, gridScaleAt(grid, windingTemperature), basis);
+    rippleWeight = grid ? dotBasis(basis, loss.rippleWeights) : loss.rippleWeights[0]!;
+    rawFactor = coreLossTemperatureFactor(coefficients, coreTemperature);
+    const floored = !(rawFactor > TEMPERATURE_FACTOR_FLOOR);
+    temperatureFactor = floored ? TEMPERATURE_FACTOR_FLOOR : rawFactor;
     // The gap's fringing field drives eddy loss in the winding: copper loss, at the winding's temperature.
-    gapLoss =
-      loss.gapLossScale > 0
-        ? loss.gapLossScale * (loss.acGrid ? interpolateAtScale(loss.acGrid, loss.gapLossWeights, scale) : loss.gapLossWeights[0]!)
-        : 0;
-    copperLoss = resistance * (loss.dcCurrentSquare + rippleWeight) + gapLoss;
+    gapLoss = loss.gapLossScale > 0 ? loss.gapLossScale * (grid ? dotBasis(basis, loss.gapLossWeights) : loss.gapLossWeights[0]!) : 0;
+    const currentSquare = loss.dcCurrentSquare + rippleWeight;
+    copperLoss = resistance * currentSquare + gapLoss;
     coreLoss = loss.coreLossReference * temperatureFactor;
     if (passes === 0) {
-      // The first pass takes the surface law's rise for the losses at ambient: a cheap start near the network's
-      // answer, from which the network (solved from the next pass on) converges in two or three iterations.
-      rise = surfaceDissipationRise(copperLoss + coreLoss, part.surfaceArea);
+      // A cheap start near the network's answer: the surface law's rise for the losses at ambient.
+      const rise = surfaceDissipationRise(copperLoss + coreLoss, part.surfaceArea);
       net.coreTemperature = ambient + rise;
       net.windingTemperature = ambient + rise;
     } else {
-      solveNetwork(part.network, cooling, coreLoss, copperLoss, net);
-      rise = (net.coreTemperature > net.windingTemperature ? net.coreTemperature : net.windingTemperature) - ambient;
+      // How fast each node's loss grows with its temperature (the ripple's and the gap field's slower change with ρ
+      // is left out of the step, not out of the losses): copper's α20, the core factor's slope.
+      const copperSlope = windingCapped ? 0 : loss.resistance20 * COPPER_TEMPERATURE_COEFFICIENT * currentSquare;
+      const coreSlope =
+        coreCapped || floored || !coefficients ? 0 : loss.coreLossReference * (2 * coefficients.ct2 * coreTemperature - coefficients.ct1);
+      moved = networkStep(part.network, cooling, coreLoss, copperLoss, coreSlope, copperSlope, net);
     }
     passes += 1;
   }
+  const rise = (net.coreTemperature > net.windingTemperature ? net.coreTemperature : net.windingTemperature) - ambient;
   const power = copperLoss + coreLoss;
-  const bySurface = surfaceDissipationRise(power, part.surfaceArea);
-  const byVolume = power * part.volumeThermalResistance;
   out.passes = passes;
-  out.converged = Math.abs(rise - previous) < THERMAL_TOLERANCE;
+  out.converged = moved < THERMAL_TOLERANCE;
   out.runaway = ambient + rise > THERMAL_MODEL_LIMIT;
-  const cap = out.runaway ? THERMAL_MODEL_LIMIT - ambient : Number.POSITIVE_INFINITY;
-  out.rise.bySurface = bySurface < cap ? bySurface : cap;
-  out.rise.byVolume = byVolume > cap ? cap : byVolume; // NaN (law not applied) stays NaN
-  out.rise.design = rise < cap ? rise : cap;
+  if (crossCheck) crossCheckRises(power, part, ambient, out.runaway, out.rise);
+  else {
+    out.rise.bySurface = Number.NaN;
+    out.rise.byVolume = Number.NaN;
+  }
+  out.rise.design = out.runaway ? THERMAL_MODEL_LIMIT - ambient : rise;
   out.resistance = resistance;
   out.rippleWeight = rippleWeight;
   out.gapLoss = gapLoss;

@@ -231,7 +231,7 @@ export const searchResultSchema = z.object({
       reasons: z.array(engineIssueSchema),
     }),
   ),
-  counts: numbers('cores', 'materials', 'wireOptions', 'evaluated', 'feasible', 'extrapolated', 'prefiltered', 'incompatible'),
+  counts: numbers('cores', 'materials', 'wireOptions', 'evaluated', 'screened', 'feasible', 'extrapolated', 'prefiltered', 'incompatible'),
   requiredAreaProduct: z.number(),
 }) satisfies z.ZodType<SearchResult>;
 

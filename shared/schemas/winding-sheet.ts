@@ -1,7 +1,9 @@
 // The frozen winding sheet as stored with a build order and sent to the client, tied to its type in
 // shared/shop/sheet.ts (`satisfies`), so the builder, the stored JSON, the answer and the client agree.
 import * as z from 'zod';
+import { CORE_FAMILIES, GAP_PLACEMENTS, WIRE_KINDS } from '@shared/engine/types';
 import type { SheetTestLimits, WindingSheet } from '@shared/shop/sheet';
+import type { WindingDrawingInput } from '@shared/shop/winding-drawing';
 
 export const sheetTestLimitsSchema = z.object({
   inductance: z.object({
@@ -39,6 +41,34 @@ export const sheetTestLimitsSchema = z.object({
     .meta({ description: 'Inductance under DC bias where saturation matters; null where not asked for' }),
   hipot: z.object({ required: z.boolean(), instruction: z.string() }),
 }) satisfies z.ZodType<SheetTestLimits>;
+
+const metres = z.number().meta({ description: 'm' });
+
+/** What the sheet's winding drawing is drawn from (shared/shop/winding-drawing.ts). */
+export const windingDrawingInputSchema = z.object({
+  family: z.enum(CORE_FAMILIES),
+  turns: z.number().int(),
+  layers: z.number(),
+  turnsPerLayer: z.number().int(),
+  wire: z.object({
+    kind: z.enum(WIRE_KINDS),
+    strandDiameter: metres,
+    overallDiameter: metres,
+    conductorsPerTurn: z.number().int(),
+  }),
+  keepOut: metres.nullable(),
+  gap: z.object({ placement: z.enum(GAP_PLACEMENTS), total: metres, spacer: metres }).nullable(),
+  core: z.object({
+    windowWidth: metres,
+    windowHeight: metres,
+    bobbinWidth: metres,
+    bobbinHeight: metres,
+    centreLeg: metres,
+    outerLeg: metres,
+    yoke: metres,
+    ring: z.object({ od: metres, id: metres, height: metres }).nullable(),
+  }),
+}) satisfies z.ZodType<WindingDrawingInput>;
 
 export const windingSheetSchema = z
   .object({
@@ -126,6 +156,9 @@ export const windingSheetSchema = z
       saturationAtHotSpot: z.number().meta({ description: 'T' }),
     }),
     caution: z.string(),
+    drawing: windingDrawingInputSchema.nullable().optional().meta({
+      description: 'What the winding drawing is drawn from; null without the core shape; absent on sheets released before drawings',
+    }),
   })
   .meta({
     description: 'Built once at release from the revision’s frozen result; SI units, temperatures in °C',

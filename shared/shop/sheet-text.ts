@@ -15,7 +15,7 @@ export const kilohertz = (hz: number) => `${fmt(hz / 1e3)} kHz`;
  * thickness; more is built up with tape on the tube before the first layer.
  */
 export const keepOutText = (keepOut: number) =>
-  `Keep copper ≥ ${millimetre(keepOut)} from the gap (centre leg): the bobbin tube's wall counts; build up the rest ` +
+  `Keep copper at least ${millimetre(keepOut)} from the gap (centre leg): the bobbin tube's wall counts; build up the rest ` +
   'with tape before the first layer';
 
 export const ohm = (r: number) => (r < 1 ? milliohm(r) : `${fmt(r)} Ω`);

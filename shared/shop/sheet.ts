@@ -5,6 +5,7 @@
 // sheets frozen before them read as they were.
 import type { BiasTest, ResistanceLimit } from './test-limits';
 import type { TerminationPlan } from './terminations';
+import type { WindingDrawingInput } from './winding-drawing';
 
 export interface SheetTestLimits {
   inductance: {
@@ -112,6 +113,8 @@ export interface WindingSheet {
     saturationAtHotSpot: number;
   };
   caution: string;
+  /** What the winding drawing is drawn from (winding-drawing.ts); null without the core's shape, absent on older sheets. */
+  drawing?: WindingDrawingInput | null;
 }
 
 export const SHEET_CAUTION =

@@ -70,7 +70,10 @@ describe('exports', () => {
     expect(rows[0]['design']).toBe(design.number);
     expect(rows[0]['title']).toBe(`'=HYPERLINK("http://example.invalid")`);
     expect(res.text).toContain(`'=HYPERLINK(""http://example.invalid"")`);
-    expect(rows.every((r) => r['core'].startsWith('ETD'))).toBe(true);
+    // the last row is the sheet's caution, the others are candidates
+    expect(rows.at(-1)!['design']).toBe('Caution');
+    expect(rows.at(-1)!['title']).toMatch(/^Engineering estimate: .* must be verified on a prototype/);
+    expect(rows.slice(0, -1).every((r) => r['core'].startsWith('ETD'))).toBe(true);
     expect(rows.some((r) => r['feasible'] === 'yes')).toBe(true);
   });
 
@@ -83,6 +86,12 @@ describe('exports', () => {
     const inHand = evaluation['wire'].kind === 'litz' || evaluation['wire'].kind === 'foil' ? 1 : evaluation['wire'].strands;
     expect(Number(wire['quantity'])).toBeCloseTo(inHand * (evaluation['winding'].wireLength + 0.1), 3);
     expect(wire['note']).toMatch(new RegExp(`total of ${inHand} conductor\\(s\\) in hand; .* 50 mm lead at each end`));
+  });
+
+  it('ends the bill of materials with the sheet’s caution row', async () => {
+    const rows = parse((await erin.get(url('bom.csv'))).text, { columns: true }) as Record<string, string>[];
+    expect(rows.at(-1)!['item']).toBe('Caution');
+    expect(rows.at(-1)!['description']).toMatch(/^Engineering estimate: .* qualified engineer/);
   });
 
   it('refuses unknown export kinds (404) and exports of a revision without construction (409)', async () => {

@@ -163,14 +163,7 @@ describe('release hand-off to the winding shop', () => {
     const message = outbox.body.messages.find((m: { subject: string }) => m.subject.includes(orderNumber));
     expect(message.attachments).toHaveLength(1);
     expect(message.attachments[0].contentType).toBe('application/pdf');
-    const pdf = await ada.agent
-      .get(`/api/admin/outbox/${message.id}/attachments/1`)
-      .buffer(true)
-      .parse((res, cb) => {
-        const chunks: Buffer[] = [];
-        res.on('data', (c: Buffer) => chunks.push(c));
-        res.on('end', () => cb(null, Buffer.concat(chunks)));
-      });
+    const pdf = await ada.getBytes(`/api/admin/outbox/${message.id}/attachments/1`);
     expect(pdf.status).toBe(200);
     const body = pdf.body as Buffer;
     expect(body.subarray(0, 5).toString()).toBe('%PDF-');

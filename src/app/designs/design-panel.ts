@@ -23,6 +23,8 @@ import { CornerTable } from './corner-table';
 import { frequencyChartLabel, frequencyChartOptions } from './frequency-chart-options';
 import { loadMapChartLabel, loadMapChartOptions } from './load-map-chart-options';
 import { percent, show, showUnit } from './format';
+import { WindingDrawingView } from '../shop/winding-drawing-view';
+import { windingDrawingInput } from '@shared/shop/winding-drawing';
 
 type WireKind = 'awg' | 'metric' | 'litz' | 'foil';
 
@@ -43,6 +45,7 @@ export const GAP_LOSS_WORDS = "Winding loss from the gap's field";
     QuantityPipe,
     CautionLine,
     CornerTable,
+    WindingDrawingView,
   ],
   templateUrl: './design-panel.html',
   styleUrl: './design-panel.scss',
@@ -89,6 +92,12 @@ export class DesignPanel {
   protected readonly pct = percent;
   protected readonly gapLossWords = GAP_LOSS_WORDS;
   protected readonly result = computed(() => this.view()?.result ?? null);
+  /** What the winding drawing is drawn from: the result, its wire and its core's shape (once the cores are listed). */
+  protected readonly drawingSource = computed(() => {
+    const view = this.view();
+    const core = view && this.cores.value().find((c) => c.id === view.result.core.id);
+    return view && core ? windingDrawingInput(view.result, core, view.wire) : null;
+  });
   /** Cores that take the current material: gapped sets for ferrites and the like, rings and toroids for powders. */
   protected readonly coreOptions = computed(() => {
     const powder = this.result()?.material.family === 'powder';

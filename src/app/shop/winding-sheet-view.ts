@@ -1,6 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { sheetSections } from '@shared/shop/sheet-text';
 import type { WindingSheet } from '@shared/shop/sheet';
+import { WindingDrawingView } from './winding-drawing-view';
 
 /**
  * The winding sheet as a page, from the same labelled lines as the PDF, so both say the same thing.
@@ -8,6 +9,7 @@ import type { WindingSheet } from '@shared/shop/sheet';
  */
 @Component({
   selector: 'gw-winding-sheet-view',
+  imports: [WindingDrawingView],
   template: `
     <article class="gw-sheet" aria-labelledby="gw-sheet-title">
       <header class="gw-sheet-header">
@@ -55,6 +57,12 @@ import type { WindingSheet } from '@shared/shop/sheet';
             </tbody>
           </table>
         </section>
+        @if (section.title === 'Winding' && sheet().drawing; as drawing) {
+          <section class="gw-sheet-section">
+            <h3>Winding drawing</h3>
+            <gw-winding-drawing [source]="drawing" />
+          </section>
+        }
       }
       <footer class="gw-sheet-footer">Engine {{ sheet().header.engineVersion }} · frozen at release, never recomputed.</footer>
     </article>

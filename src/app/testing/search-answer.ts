@@ -162,7 +162,17 @@ export function searchAnswer(overrides: Partial<SearchAnswer> & { candidates: Se
     paretoFront: [],
     paretoFrontByMass: [],
     infeasible: [],
-    counts: { cores: 79, materials: 5, wireOptions: 511, evaluated: 5210, feasible: 388, extrapolated: 0, prefiltered: 0, incompatible: 0 },
+    counts: {
+      cores: 79,
+      materials: 5,
+      wireOptions: 511,
+      evaluated: 5210,
+      screened: 1200,
+      feasible: 388,
+      extrapolated: 0,
+      prefiltered: 0,
+      incompatible: 0,
+    },
     requiredAreaProduct: 8.98e-9,
     ...overrides,
   };

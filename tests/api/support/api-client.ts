@@ -45,6 +45,18 @@ export class ApiClient {
   put = (url: string, body?: unknown) => this.send('put', url, body);
   delete = (url: string) => this.send('delete', url);
 
+  /** A GET whose body is read as bytes (a PDF, say): the answer's `body` is a Buffer. */
+  async getBytes(url: string): Promise<request.Response> {
+    return this.agent
+      .get(url)
+      .buffer(true)
+      .parse((res, cb) => {
+        const chunks: Buffer[] = [];
+        res.on('data', (c: Buffer) => chunks.push(c));
+        res.on('end', () => cb(null, Buffer.concat(chunks)));
+      });
+  }
+
   async signIn(username: string, password: string): Promise<request.Response> {
     if (!this.csrfToken) await this.session();
     return this.post('/api/auth/sign-in', { username, password });

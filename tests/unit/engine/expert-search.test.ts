@@ -64,6 +64,15 @@ describe('data it can trust', () => {
     expect(ranked[0]!.lossNotModelled).toBe(false);
   });
 
+  it('F: where every part rests on extrapolated loss data, foil beside a gap still follows every fully modelled one', () => {
+    // Before: #1–#3 were 1 mm foil on P9/5 beside a 0.08 mm gap, ahead of extrapolated round-wire parts, though a
+    // missing loss term (the gap field at the foil's edge) is a worse doubt than a fit used outside its range.
+    const ranked = search(EXAMPLE_SPECS.F, everything).candidates;
+    const firstNotModelled = ranked.findIndex((c) => c.lossNotModelled);
+    expect(firstNotModelled).toBeGreaterThan(0);
+    expect(ranked.slice(firstNotModelled).every((c) => c.lossNotModelled)).toBe(true);
+  });
+
   it('F: a material fitted at the switching frequency outranks one extrapolated from 300 kHz, though it loses more', () => {
     // Before: #1 used a material fitted at 50–300 kHz, at 2 MHz.
     const fittedAtMegahertz: CoreMaterial = {
@@ -179,4 +188,21 @@ describe('paging and fronts', () => {
       }
     }
   });
+});
+
+describe('the loss floor that leaves builds unsolved', () => {
+  // A build is left unsolved only when a bound on its loss (copper at ambient, no gap-field loss, the core at its
+  // material's lowest temperature factor) shows it can change no result. The search must then answer exactly as if it
+  // had solved every build: same ranks, figures, fronts and explanations (the counts of solved builds aside).
+  const comparable = (result: SearchResult) => ({ ...result, counts: { ...result.counts, evaluated: 0, screened: 0 } });
+  for (const name of Object.keys(EXAMPLE_SPECS) as (keyof typeof EXAMPLE_SPECS)[]) {
+    it(`${name}: the same answer as solving every build, with fewer solved`, () => {
+      const screened = search(EXAMPLE_SPECS[name], { ...everything, rankBy: 'loss' });
+      const solved = search(EXAMPLE_SPECS[name], { ...everything, rankBy: 'loss', solveEveryBuild: true });
+      expect(solved.counts.screened).toBe(0);
+      expect(screened.counts.screened).toBeGreaterThan(0);
+      expect(screened.counts.evaluated + screened.counts.screened).toBe(solved.counts.evaluated);
+      expect(comparable(screened)).toEqual(comparable(solved));
+    });
+  }
 });

@@ -80,7 +80,8 @@ describe('gap-field sum', () => {
         }
       }
     }
-    expect(gapFieldSum(layout, sources) / direct).toBeCloseTo(1, 12);
+    // Far from the gap's mouth the sum takes the logarithm from its atanh series (relative error below 2e-7).
+    expect(gapFieldSum(layout, sources) / direct).toBeCloseTo(1, 7);
     // An odd count per layer (a conductor on the mid-plane, where Hx = 0).
     const odd = { ...layout, conductorsPerTurn: 1, turnsPerLayer: 9, turns: 9, layers: 1 };
     let oddDirect = 0;
@@ -88,7 +89,7 @@ describe('gap-field sum', () => {
       const x = odd.keepOut + 0.5 * d;
       oddDirect += (odd.legPerimeter + 2 * Math.PI * x) * 0.45 ** 2 * fringingFieldNormalSquared(x, (t - 4) * d, 0.4e-3);
     }
-    expect(gapFieldSum(odd, { ...sources, outerShare: 0 }) / oddDirect).toBeCloseTo(1, 12);
+    expect(gapFieldSum(odd, { ...sources, outerShare: 0 }) / oddDirect).toBeCloseTo(1, 7);
   });
 });
 

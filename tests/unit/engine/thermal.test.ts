@@ -69,6 +69,15 @@ describe('loss ↔ temperature iteration', () => {
     expect(Math.abs(again.windingTemperature - solution.windingTemperature)).toBeLessThan(0.1);
   });
 
+  it('settles in a few passes: the surface-law start, then Newton steps on both node balances with the losses', () => {
+    // The start and two steps are the usual count (the last step moves < 0.1 K); the old fixed-point scheme took about 3
+    // passes of 2–3 network iterations each.
+    const solution = solveTemperature(still, loss({ resistance20: 0.012, dcCurrentSquare: 100, coreLossReference: 0.3 }), etd);
+    expect(solution.converged).toBe(true);
+    expect(solution.passes).toBeLessThanOrEqual(4);
+    expect(solution.network.iterations).toBe(solution.passes - 1);
+  });
+
   it('takes the copper resistance at the winding node (copper α20, from memory)', () => {
     const solution = solveTemperature(still, loss({ resistance20: 0.012, dcCurrentSquare: 100, coreLossReference: 0.3 }), etd);
     const copperTemperature = 20 + (solution.resistance / 0.012 - 1) / 0.00393;

@@ -4,6 +4,7 @@ import { parse } from 'csv-parse/sync';
 import { CatalogueService } from '../../../server/catalogue/catalogue.service.ts';
 import { buildBom, COPPER_DENSITY, copperMass, LEAD_LENGTH } from '../../../server/exports/bom.ts';
 import { testSheet } from '../../support/winding-sheet.ts';
+import { SHEET_CAUTION } from '@shared/shop/sheet';
 import { bomCsv, candidatesCsv } from '../../../server/exports/candidates-csv.ts';
 import { buildSpiceSubcircuit, spiceNumber, spiceSubcircuitName, spiceValues } from '../../../server/exports/spice.ts';
 
@@ -110,6 +111,16 @@ describe('bill of materials', () => {
     expect(row[1]).toBe("'+1");
     expect(row[4]).toBe("'@x");
   });
+
+  it('ends with the sheet’s caution as a row a spreadsheet shows and a parser reads like the others', () => {
+    const rows = parse(bomCsv([{ item: 'Core', description: 'ETD34', quantity: 1, unit: 'set', note: '' }]), { columns: true }) as Record<
+      string,
+      string
+    >[];
+    expect(rows.map((r) => r['item'])).toEqual(['Core', 'Caution']);
+    expect(rows[1]['description']).toBe(SHEET_CAUTION);
+    expect(rows[1]['description']).toMatch(/must be verified on a prototype/);
+  });
 });
 
 describe('candidates CSV', () => {
@@ -141,7 +152,17 @@ describe('candidates CSV', () => {
           reasons: [{ code: 'fill', severity: 'error' as const, message: 'Winding does not fit' }],
         },
       ],
-      counts: { cores: 2, materials: 1, wireOptions: 1, evaluated: 2, feasible: 1, extrapolated: 0, prefiltered: 0, incompatible: 0 },
+      counts: {
+        cores: 2,
+        materials: 1,
+        wireOptions: 1,
+        evaluated: 2,
+        screened: 0,
+        feasible: 1,
+        extrapolated: 0,
+        prefiltered: 0,
+        incompatible: 0,
+      },
       requiredAreaProduct: 1e-8,
     };
     const csv = candidatesCsv(
@@ -150,7 +171,10 @@ describe('candidates CSV', () => {
       new Map([['test-ferrite', 'Test ferrite (invented)']]),
     );
     const rows = parse(csv, { columns: true }) as Record<string, string>[];
-    expect(rows).toHaveLength(2);
+    expect(rows).toHaveLength(3);
+    // the sheet's caution closes the file as one row of the same table
+    expect(rows[2]['design']).toBe('Caution');
+    expect(rows[2]['title']).toBe(SHEET_CAUTION);
     expect(rows[0]['design']).toBe('GW-0001');
     expect(rows[0]['title']).toBe(`'=HYPERLINK("http://x")`);
     expect(rows[0]['feasible']).toBe('yes');

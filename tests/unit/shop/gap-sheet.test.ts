@@ -41,7 +41,7 @@ describe('winding sheet and BOM for a ground centre gap', () => {
     expect(gap.kind).toBe('centre-leg ground');
     expect(gap.groundDepth).toBe(result.gap.total);
     expect(gap.note).toMatch(new RegExp(`^Grind the centre leg to a gap of ${mm3(result.gap.total)} `));
-    expect(gap.note).toContain(`±10 µm changes L by ∓${percent(result.gap.sensitivity10um)}`);
+    expect(gap.note).toContain(`10 µm more gap lowers L by ${percent(result.gap.sensitivity10um)}`);
     expect(sheet.assembly[0]).toMatch(/ground gap with a feeler gauge/);
   });
 
@@ -100,9 +100,9 @@ describe('winding sheet: the keep-out from the gap', () => {
   it('tells the shop to keep the copper the evaluated distance from the gap, the limit or a larger one', () => {
     const sheet = sheetOf({ ...base, keepOut: 1.5e-3 });
     expect(sheet.winding.keepOut).toBe(1.5e-3);
-    expect(line(sheet)?.[1]).toMatch(/^Keep copper ≥ 1\.5 mm from the gap \(centre leg\)/);
+    expect(line(sheet)?.[1]).toMatch(/^Keep copper at least 1\.5 mm from the gap \(centre leg\)/);
     expect(windingSheetSchema.parse(sheet).winding.keepOut).toBe(1.5e-3);
-    expect(line(sheetOf(base))?.[1]).toMatch(/^Keep copper ≥ 0\.5 mm from the gap/);
+    expect(line(sheetOf(base))?.[1]).toMatch(/^Keep copper at least 0\.5 mm from the gap/);
   });
 
   it('has no keep-out line without an air gap, and reads a sheet released before the keep-out was given', () => {
