@@ -328,14 +328,25 @@ export const buildUnits = pgTable(
     resistance: doublePrecision('resistance').notNull(),
     resistanceTemperature: doublePrecision('resistance_temperature').notNull(),
     resistanceAt20: doublePrecision('resistance_at_20').notNull(),
+    /** Inductance under DC bias (H) at the current given (A), where measured. */
+    biasCurrent: doublePrecision('bias_current'),
+    biasInductance: doublePrecision('bias_inductance'),
     hipot: varchar('hipot', { length: 12, enum: ['pass', 'fail', 'not_tested'] }).notNull(),
     passed: boolean('passed').notNull(),
     findings: jsonb('findings').notNull(),
     notes: text('notes'),
     recordedBy: integer('recorded_by').references(() => users.id, { onDelete: 'set null' }),
     recordedAt: timestamp('recorded_at', { withTimezone: true }).notNull().defaultNow(),
+    /** A wrong record is voided with a reason, never deleted; its unit number can then be recorded again. */
+    voidedAt: timestamp('voided_at', { withTimezone: true }),
+    voidedBy: integer('voided_by').references(() => users.id, { onDelete: 'set null' }),
+    voidReason: text('void_reason'),
   },
-  (t) => [uniqueIndex('build_units_order_unit_idx').on(t.orderId, t.unitNumber)],
+  (t) => [
+    uniqueIndex('build_units_order_unit_idx')
+      .on(t.orderId, t.unitNumber)
+      .where(sql`${t.voidedAt} is null`),
+  ],
 );
 
 /** E-mails the app sends (the release hand-off), with their delivery state and retries. */

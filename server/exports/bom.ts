@@ -1,10 +1,8 @@
 // Bill of materials of one evaluated design. Pure: figures in, rows out.
 import type { EvaluationResult } from '@shared/engine/index';
+import { COPPER_DENSITY, LEAD_LENGTH, lengthWithLeads } from '@shared/shop/build-practice';
 
-/** Each end of the winding is left this long for termination (common practice, no source). */
-export const LEAD_ALLOWANCE_PER_END = 0.075;
-/** Annealed copper density, kg/m³ (common practice, no source). */
-export const COPPER_DENSITY = 8890;
+export { COPPER_DENSITY, LEAD_LENGTH };
 /** Tape overlap on a wrap (common practice, no source). */
 const TAPE_OVERLAP = 1.2;
 
@@ -23,10 +21,17 @@ export interface BomInput {
 
 const mm = (m: number, digits = 2) => (m * 1e3).toFixed(digits);
 
+/** One conductor in hand: the winding's length + 2 leads (m), as on the winding sheet. */
 export function wireLengthWithLeads(result: EvaluationResult): number {
-  return result.winding.wireLength + 2 * LEAD_ALLOWANCE_PER_END;
+  return lengthWithLeads(result.winding.wireLength);
 }
 
+/** Round wires in hand are that many conductors; litz and foil are one each. */
+export function conductorsInHand(result: EvaluationResult): number {
+  return result.wire.kind === 'litz' || result.wire.kind === 'foil' ? 1 : result.wire.strands;
+}
+
+/** Copper of all conductors in hand over their length with leads (kg). */
 export function copperMass(result: EvaluationResult): number {
   return result.wire.copperArea * wireLengthWithLeads(result) * COPPER_DENSITY;
 }
@@ -84,6 +89,7 @@ export function buildBom({ result, materialName }: BomInput): BomRow[] {
     });
   }
   const length = wireLengthWithLeads(result);
+  const inHand = conductorsInHand(result);
   const wireKind = result.wire.kind === 'litz' ? 'litz' : 'enamelled round copper wire (IEC 60317)';
   const foil = result.wire.kind === 'foil';
   rows.push({
@@ -91,13 +97,15 @@ export function buildBom({ result, materialName }: BomInput): BomRow[] {
     description: foil
       ? `${result.wire.id}: ${mm(result.wire.strandDiameter, 3)} mm × ${mm(result.wire.copperArea / result.wire.strandDiameter, 1)} mm copper foil, one turn per layer, interlayer film between turns`
       : `${result.wire.id}: ${wireKind}, ${result.wire.strands} × ${mm(result.wire.strandDiameter, 3)} mm bare`,
-    quantity: Number(length.toFixed(3)),
+    quantity: Number((inHand * length).toFixed(3)),
     unit: 'm',
-    note: `${result.turns} turns × ${mm(result.winding.meanTurnLength, 1)} mm mean turn = ${result.winding.wireLength.toFixed(3)} m plus ${mm(LEAD_ALLOWANCE_PER_END, 0)} mm lead at each end${result.wire.kind === 'litz' || foil ? '' : ', per conductor in hand'}`,
+    note:
+      `total of ${inHand} conductor(s) in hand; each ${length.toFixed(3)} m = ${result.turns} turns × ${mm(result.winding.meanTurnLength, 1)} mm mean turn ` +
+      `(${result.winding.wireLength.toFixed(3)} m) plus ${mm(LEAD_LENGTH, 0)} mm lead at each end, as on the winding sheet`,
   });
   rows.push({
     item: 'Copper mass',
-    description: `copper in the winding and leads (density ${COPPER_DENSITY} kg/m³)`,
+    description: `copper of all ${inHand} conductor(s) in hand, winding and leads (density ${COPPER_DENSITY} kg/m³)`,
     quantity: Number((copperMass(result) * 1e3).toFixed(2)),
     unit: 'g',
     note: 'copper only, without enamel',

@@ -1,4 +1,4 @@
-import { and, asc, count, desc, eq, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, isNull, sql } from 'drizzle-orm';
 import * as z from 'zod';
 import { unitFindingSchema } from '@shared/schemas/shop';
 import { windingSheetSchema } from '@shared/schemas/winding-sheet';
@@ -12,6 +12,11 @@ type UnitRow = typeof buildUnits.$inferSelect;
 /** A build order with its frozen sheet read back through the sheet's schema. */
 export type StoredOrder = Omit<OrderRow, 'sheet'> & { sheet: WindingSheet };
 export type StoredUnit = Omit<UnitRow, 'findings'> & { findings: UnitFinding[] };
+/** An order's next unit number and the voided numbers that may be recorded again. */
+export interface UnitNumbers {
+  next: number;
+  reusable: number[];
+}
 
 const findingsSchema = z.array(unitFindingSchema);
 
@@ -48,7 +53,7 @@ export class ShopRepository {
     return row?.name ?? 'unknown';
   }
 
-  orders(status?: 'open' | 'complete') {
+  orders(status?: 'open' | 'complete', designId?: number) {
     return this.db
       .select({
         id: buildOrders.id,
@@ -62,13 +67,13 @@ export class ShopRepository {
         designId: designs.id,
         designNumber: designs.number,
         title: designs.title,
-        built: sql<number>`(select count(*)::int from ${buildUnits} u where u.order_id = ${buildOrders.id})`,
-        passed: sql<number>`(select count(*)::int from ${buildUnits} u where u.order_id = ${buildOrders.id} and u.passed)`,
+        built: sql<number>`(select count(*)::int from ${buildUnits} u where u.order_id = ${buildOrders.id} and u.voided_at is null)`,
+        passed: sql<number>`(select count(*)::int from ${buildUnits} u where u.order_id = ${buildOrders.id} and u.passed and u.voided_at is null)`,
       })
       .from(buildOrders)
       .innerJoin(designRevisions, eq(designRevisions.id, buildOrders.revisionId))
       .innerJoin(designs, eq(designs.id, designRevisions.designId))
-      .where(status ? eq(buildOrders.status, status) : undefined)
+      .where(and(status ? eq(buildOrders.status, status) : undefined, designId !== undefined ? eq(designs.id, designId) : undefined))
       .orderBy(desc(buildOrders.createdAt));
   }
 
@@ -78,8 +83,26 @@ export class ShopRepository {
   }
 
   async units(orderId: number): Promise<StoredUnit[]> {
-    const rows = await this.db.select().from(buildUnits).where(eq(buildUnits.orderId, orderId)).orderBy(asc(buildUnits.unitNumber));
+    const rows = await this.db
+      .select()
+      .from(buildUnits)
+      .where(eq(buildUnits.orderId, orderId))
+      .orderBy(asc(buildUnits.unitNumber), asc(buildUnits.id));
     return rows.map(storedUnit);
+  }
+
+  async unit(id: number): Promise<StoredUnit | undefined> {
+    const [row] = await this.db.select().from(buildUnits).where(eq(buildUnits.id, id));
+    return row && storedUnit(row);
+  }
+
+  /** Passing units of an order that stand (voided records left out). */
+  private async passedUnits(tx: Tx, orderId: number): Promise<number> {
+    const [{ n }] = await tx
+      .select({ n: sql<number>`count(*)::int` })
+      .from(buildUnits)
+      .where(and(eq(buildUnits.orderId, orderId), eq(buildUnits.passed, true), isNull(buildUnits.voidedAt)));
+    return n;
   }
 
   /**
@@ -89,22 +112,20 @@ export class ShopRepository {
   recordUnit(
     orderId: number,
     unit: Omit<typeof buildUnits.$inferInsert, 'orderId' | 'unitNumber'> & { findings: UnitFinding[] },
-    onLocked: (order: OrderRow) => void,
+    unitNumber: number | undefined,
+    onLocked: (order: OrderRow, numbers: UnitNumbers) => void,
     onSaved: (tx: Tx, order: OrderRow, unit: UnitRow) => Promise<void>,
   ) {
     return this.db.transaction(async (tx) => {
       const [order] = await tx.select().from(buildOrders).where(eq(buildOrders.id, orderId)).for('update');
       if (!order) return undefined;
-      onLocked(order);
-      const [{ n }] = await tx.select({ n: count() }).from(buildUnits).where(eq(buildUnits.orderId, orderId));
+      const numbers = await this.unitNumbers(tx, orderId);
+      onLocked(order, numbers);
       const [row] = await tx
         .insert(buildUnits)
-        .values({ ...unit, orderId, unitNumber: n + 1 })
+        .values({ ...unit, orderId, unitNumber: unitNumber ?? numbers.next })
         .returning();
-      const [{ passed }] = await tx
-        .select({ passed: count() })
-        .from(buildUnits)
-        .where(and(eq(buildUnits.orderId, orderId), eq(buildUnits.passed, true)));
+      const passed = await this.passedUnits(tx, orderId);
       let status = order.status;
       if (passed >= order.quantity) {
         await tx.update(buildOrders).set({ status: 'complete', completedAt: new Date() }).where(eq(buildOrders.id, orderId));
@@ -115,7 +136,54 @@ export class ShopRepository {
     });
   }
 
-  /** Every built unit with what was predicted for it (the order's sheet), for measured-versus-predicted summaries. */
+  /** The next unit number of an order, and the voided numbers not yet recorded again (under the order's lock). */
+  private async unitNumbers(tx: Tx, orderId: number): Promise<UnitNumbers> {
+    const rows = await tx
+      .select({ unitNumber: buildUnits.unitNumber, voided: sql<boolean>`${buildUnits.voidedAt} is not null` })
+      .from(buildUnits)
+      .where(eq(buildUnits.orderId, orderId));
+    const standing = new Set(rows.filter((r) => !r.voided).map((r) => r.unitNumber));
+    const reusable = [...new Set(rows.filter((r) => r.voided && !standing.has(r.unitNumber)).map((r) => r.unitNumber))].sort(
+      (a, b) => a - b,
+    );
+    return { next: rows.reduce((max, r) => Math.max(max, r.unitNumber), 0) + 1, reusable };
+  }
+
+  /**
+   * Voids one unit record under a lock on its order, and opens a complete order again when its standing passed units
+   * fall below the quantity; `check` runs on the locked rows (who may, already voided) and `onVoided` in the same
+   * transaction (the audit entry).
+   */
+  voidUnit(
+    unitId: number,
+    by: number,
+    reason: string,
+    check: (order: OrderRow, unit: UnitRow) => void,
+    onVoided: (tx: Tx, order: OrderRow, unit: UnitRow) => Promise<void>,
+  ) {
+    return this.db.transaction(async (tx) => {
+      const [found] = await tx.select({ orderId: buildUnits.orderId }).from(buildUnits).where(eq(buildUnits.id, unitId));
+      if (!found) return undefined;
+      const [order] = await tx.select().from(buildOrders).where(eq(buildOrders.id, found.orderId)).for('update');
+      const [unit] = await tx.select().from(buildUnits).where(eq(buildUnits.id, unitId)).for('update');
+      check(order!, unit!);
+      const [row] = await tx
+        .update(buildUnits)
+        .set({ voidedAt: new Date(), voidedBy: by, voidReason: reason })
+        .where(eq(buildUnits.id, unitId))
+        .returning();
+      const passed = await this.passedUnits(tx, order!.id);
+      let status = order!.status;
+      if (status === 'complete' && passed < order!.quantity) {
+        await tx.update(buildOrders).set({ status: 'open', completedAt: null }).where(eq(buildOrders.id, order!.id));
+        status = 'open';
+      }
+      await onVoided(tx, order!, row!);
+      return { unit: storedUnit(row!), orderStatus: status, passed };
+    });
+  }
+
+  /** Every standing built unit (voided records left out) with what was predicted for it (the order's sheet), for measured-versus-predicted summaries. */
   async measuredAgainstPredicted() {
     const rows = await this.db
       .select({
@@ -133,6 +201,7 @@ export class ShopRepository {
       .innerJoin(buildOrders, eq(buildOrders.id, buildUnits.orderId))
       .innerJoin(designRevisions, eq(designRevisions.id, buildOrders.revisionId))
       .innerJoin(designs, eq(designs.id, designRevisions.designId))
+      .where(isNull(buildUnits.voidedAt))
       .orderBy(asc(buildOrders.id), asc(buildUnits.unitNumber));
     // Each order's sheet is read once, however many units it has.
     const sheets = new Map<number, WindingSheet>();

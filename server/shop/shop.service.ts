@@ -1,12 +1,20 @@
 import { may } from '@shared/api/permissions';
 import { storedEvaluation, storedWire } from '@shared/schemas/designs';
-import type { BuildOrder, OrderSummary, PredictionReport, RecordedUnit, UnitMeasurementRequest } from '@shared/schemas/shop';
+import type {
+  BuildOrder,
+  BuiltUnit,
+  OrderSummary,
+  PredictionReport,
+  RecordedUnit,
+  UnitMeasurementRequest,
+  VoidUnitRequest,
+} from '@shared/schemas/shop';
 import { judgeUnit } from '@shared/shop/measurement';
 import type { WindingSheet } from '@shared/shop/sheet';
 import type { AuditService } from '../audit/audit.service.ts';
 import type { CatalogueService } from '../catalogue/catalogue.service.ts';
 import type { Actor } from '../http/access.ts';
-import { AppError, notFound } from '../http/errors.ts';
+import { AppError, conflict, forbidden, notFound } from '../http/errors.ts';
 import type { MailDeliveryService, OutgoingMail } from '../mail/mail-delivery.service.ts';
 import type { Tx } from '../db/client.ts';
 import { summariseRatios } from './prediction-error.ts';
@@ -45,7 +53,16 @@ export interface ReleasedRevision {
   releasedBy: number;
 }
 
-const unitAnswer = (u: StoredUnit) => ({ ...u, recordedAt: u.recordedAt.toISOString() });
+/** May this user void this record now: its recorder (who may record units) or a reviewer or admin, if it stands. */
+const mayVoid = (actor: Actor, u: StoredUnit) =>
+  u.voidedAt === null && (may(actor.role, 'voidAnyUnit') || (may(actor.role, 'voidUnit') && u.recordedBy === actor.id));
+
+const unitAnswer = (actor: Actor, u: StoredUnit): BuiltUnit => ({
+  ...u,
+  recordedAt: u.recordedAt.toISOString(),
+  voidedAt: u.voidedAt?.toISOString() ?? null,
+  canVoid: mayVoid(actor, u),
+});
 
 /** The winding shop: build orders with their frozen sheets, the hand-off mail, and built units. */
 export class ShopService {
@@ -125,8 +142,8 @@ export class ShopService {
     };
   }
 
-  async listOrders(status?: 'open' | 'complete'): Promise<{ orders: OrderSummary[] }> {
-    const orders = (await this.repo.orders(status)).map((o) => ({
+  async listOrders(status?: 'open' | 'complete', designId?: number): Promise<{ orders: OrderSummary[] }> {
+    const orders = (await this.repo.orders(status, designId)).map((o) => ({
       ...o,
       createdAt: o.createdAt.toISOString(),
       completedAt: o.completedAt?.toISOString() ?? null,
@@ -147,7 +164,7 @@ export class ShopService {
       ...order,
       createdAt: order.createdAt.toISOString(),
       completedAt: order.completedAt?.toISOString() ?? null,
-      units: units.map(unitAnswer),
+      units: units.map((u) => unitAnswer(actor, u)),
       canRecord: may(actor.role, 'build') && order.status === 'open',
     };
   }
@@ -170,15 +187,24 @@ export class ShopService {
         resistance: m.resistance,
         resistanceTemperature: m.resistanceTemperature,
         resistanceAt20: judged.resistanceAt20,
+        biasCurrent: m.biasCurrent ?? null,
+        biasInductance: m.biasInductance ?? null,
         hipot: m.hipot,
         passed: judged.passed,
         findings: judged.findings,
         notes: m.notes ?? null,
         recordedBy: actor.id,
       },
-      (locked) => {
+      m.unitNumber,
+      (locked, numbers) => {
         if (locked.status === 'complete')
           throw new AppError(409, 'order_complete', `Build order ${locked.number} is complete; no more units can be recorded.`);
+        if (m.unitNumber !== undefined && m.unitNumber !== numbers.next && !numbers.reusable.includes(m.unitNumber)) {
+          const again = numbers.reusable.length ? `; voided numbers to record again: ${numbers.reusable.join(', ')}` : '';
+          throw conflict(`Unit ${m.unitNumber} has a record that stands; void it first. The next unit is ${numbers.next}${again}.`, {
+            unitNumber: `unitNumber must be ${numbers.next} or a voided unit number`,
+          });
+        }
       },
       (tx, locked, unit) =>
         this.audit.record(
@@ -186,17 +212,45 @@ export class ShopService {
             actorId: actor.id,
             action: 'shop.unit_recorded',
             target: `${locked.number} unit ${unit.unitNumber}`,
-            details: { passed: judged.passed },
+            details: { passed: judged.passed, ...(m.unitNumber !== undefined ? { recordedAgain: true } : {}) },
           },
           tx,
         ),
     );
     if (!saved) throw notFound('No such build order.');
     return {
-      unit: unitAnswer(saved.unit),
+      unit: unitAnswer(actor, saved.unit),
       orderStatus: saved.orderStatus,
       passedUnits: saved.passed,
     };
+  }
+
+  /** Voids a wrong record with a reason: kept, audited, left out of counts and reports; its number can be recorded again. */
+  async voidUnit(actor: Actor, unitId: number, { reason }: VoidUnitRequest): Promise<RecordedUnit> {
+    const saved = await this.repo.voidUnit(
+      unitId,
+      actor.id,
+      reason,
+      (order, row) => {
+        const unit = { ...row, findings: [] };
+        if (row.voidedAt !== null)
+          throw new AppError(409, 'already_voided', `Unit ${row.unitNumber} of ${order.number} is already voided.`);
+        if (!mayVoid(actor, unit))
+          throw forbidden(`Only the unit's recorder, a reviewer or an admin may void unit ${row.unitNumber} of ${order.number}.`);
+      },
+      (tx, order, row) =>
+        this.audit.record(
+          {
+            actorId: actor.id,
+            action: 'shop.unit_voided',
+            target: `${order.number} unit ${row.unitNumber}`,
+            details: { unitId: row.id, reason, passed: row.passed },
+          },
+          tx,
+        ),
+    );
+    if (!saved) throw notFound('No such unit.');
+    return { unit: unitAnswer(actor, saved.unit), orderStatus: saved.orderStatus, passedUnits: saved.passed };
   }
 
   /** Measured against predicted for every build, and the prediction error by material and by core. */

@@ -1,14 +1,12 @@
 import { GAP_SENSITIVITY_STEP, type EvaluationResult } from '@shared/engine/index';
 import type { CoreShape, WireOption } from '@shared/engine/types';
+import { COPPER_DENSITY, LEAD_LENGTH, lengthWithLeads } from '@shared/shop/build-practice';
 import { SHEET_CAUTION, type WindingSheet } from '@shared/shop/sheet';
+import { planTerminations } from '@shared/shop/terminations';
+import { biasTest, inductanceTest, resistanceLimit } from '@shared/shop/test-limits';
 import { windingDrawingInput } from '@shared/shop/winding-drawing';
 
-// Choices of the trade used on every sheet (common practice, no source).
-const TEST_FREQUENCY = 10e3; // small-signal L test, well below where ferrite permeability changes
-const TEST_LEVEL = 0.25; // V rms, no DC bias
-const RESISTANCE_ALLOWANCE = 0.1; // wire diameter tolerance and terminations above the predicted R20
-const LEAD_ALLOWANCE = 2 * 0.05; // two 50 mm leads
-const COPPER_DENSITY = 8890; // kg/m³, annealed copper
+// The choices of the trade (lead length, pins, test frequency and level, allowances) are in shared/shop/build-practice.ts.
 
 export interface SheetInput {
   design: { number: string; title: string };
@@ -85,7 +83,32 @@ export function buildWindingSheet(input: SheetInput): WindingSheet {
   const tol = input.revision.inductanceTolerance;
   const nominal = r.inductance.nominal;
   const copperArea = r.wire.copperArea;
-  const wireLength = r.winding.wireLength + LEAD_ALLOWANCE;
+  const wireLength = lengthWithLeads(r.winding.wireLength);
+  // Litz and foil are one conductor each; round wires in hand are `strands` conductors.
+  const inHand = wire.kind === 'litz' || wire.kind === 'foil' ? 1 : wire.strands;
+  const plan = planTerminations({
+    family: r.core.family,
+    coreId: r.core.id,
+    wireKind: wire.kind,
+    strands: inHand,
+    strandArea: copperArea / inHand,
+    rmsCurrent: r.operatingPoint.rmsCurrent,
+  });
+  const resistance = resistanceLimit(r.copper.resistance20, copperArea);
+  const lTest = inductanceTest({
+    inductance: nominal,
+    switchingFrequency: r.operatingPoint.frequency,
+    turns: r.turns,
+    ae: r.core.ae,
+    ripplePeakFlux: r.flux.acPeak,
+  });
+  const bias = biasTest({
+    nominal,
+    atCheckCurrent: r.inductance.atPeak,
+    checkCurrent: r.flux.checkCurrent,
+    saturationMargin: r.flux.saturationMargin,
+    tolerance: tol,
+  });
   const full = r.winding.turnsPerLayer;
   const lastLayerTurns = r.turns - full * (r.winding.layers - 1);
   const isRing = r.core.family === 'RING' || r.core.family === 'POWDER_TOROID';
@@ -119,6 +142,9 @@ export function buildWindingSheet(input: SheetInput): WindingSheet {
         grade: wire.grade ?? null,
         length: wireLength,
         mass: copperArea * wireLength * COPPER_DENSITY,
+        conductorsInHand: inHand,
+        totalLength: inHand * wireLength,
+        leadLength: LEAD_LENGTH,
       },
       tapes: isRing
         ? ['Polyester tape 0.05 mm over the finished winding (one wrap)']
@@ -129,8 +155,8 @@ export function buildWindingSheet(input: SheetInput): WindingSheet {
           ],
     },
     winding: {
-      startPin: isRing ? 'Flying lead S (start)' : 'Pin 1 (start at the bobbin tube)',
-      finishPin: isRing ? 'Flying lead F (finish)' : 'Last pin on the same side (finish on the outside)',
+      startPin: plan.startText,
+      finishPin: plan.finishText,
       turns: r.turns,
       layers: r.winding.layers,
       turnsPerLayer: full,
@@ -150,17 +176,15 @@ export function buildWindingSheet(input: SheetInput): WindingSheet {
       outerWrap: 'Two wraps of polyester tape',
       keepOut: gapped && !isRing ? r.winding.keepOut : null,
     },
-    terminations: foil
-      ? [
-          'Solder or braze a flat copper lead (tab) across the full width of each foil end; leads 50 mm long',
-          'Deburr the foil edges and insulate each tab joint with tape so it cannot touch the next turn',
-          'Bring both leads out on the pin side; no sharp bends',
-        ]
-      : [
-          'Leads 50 mm long before termination; strip the enamel only where soldered (solder-strippable enamel or mechanical stripping)',
-          'Wrap each lead 2–3 turns on its pin and solder; all wires in hand of one end on the same pin',
-          'No sharp bends at the bobbin exit; no enamel damage',
-        ],
+    terminations: plan.lines,
+    termination: {
+      kind: plan.kind,
+      pinCount: plan.pinCount,
+      startPins: plan.startPins,
+      finishPins: plan.finishPins,
+      perPin: plan.perPin,
+      strapArea: plan.strapArea,
+    },
     assembly: !gapped
       ? ['Handle the ring without chipping the coating; no force on the finished winding']
       : spacer
@@ -182,10 +206,15 @@ export function buildWindingSheet(input: SheetInput): WindingSheet {
         nominal,
         min: nominal * (1 - tol),
         max: nominal * (1 + tol),
-        testFrequency: TEST_FREQUENCY,
-        testLevel: TEST_LEVEL,
+        testFrequency: lTest.frequency,
+        testLevel: lTest.level,
+        reactance: lTest.reactance,
+        resolution: lTest.resolution,
+        testFlux: lTest.flux,
       },
-      resistanceMax20: r.copper.resistance20 * (1 + RESISTANCE_ALLOWANCE),
+      resistanceMax20: resistance.max,
+      resistance,
+      biasInductance: bias,
       hipot: input.insulation.required
         ? {
             required: true,

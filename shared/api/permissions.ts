@@ -24,6 +24,10 @@ export const PERMISSIONS = {
   shop: ['winder', 'reviewer', 'engineer', 'admin'],
   /** Record built units. */
   build: ['winder'],
+  /** Void a unit record with a reason: winders their own records (checked in the service), reviewers and admins any. */
+  voidUnit: ['winder', 'reviewer', 'admin'],
+  /** Void any unit record, whoever recorded it. */
+  voidAnyUnit: ['reviewer', 'admin'],
   /** Measured against predicted figures. */
   predictionReport: ['engineer', 'reviewer', 'admin'],
   /** Accounts, audit log, outbox, settings. */

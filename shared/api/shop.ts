@@ -6,6 +6,7 @@ import {
   predictionReportSchema,
   recordedUnitSchema,
   unitMeasurementSchema,
+  voidUnitSchema,
 } from '@shared/schemas/shop';
 import { defineEndpoint } from './endpoint';
 import { idParamsSchema } from './params';
@@ -18,7 +19,7 @@ export const listOrders = defineEndpoint({
   access: 'shop',
   query: ordersQuerySchema,
   answer: ordersAnswerSchema,
-  summary: 'Build orders, newest first (?status=open|complete|all; open unless given)',
+  summary: 'Build orders, newest first (?status=open|complete|all; open unless given; ?designId= one design’s orders)',
 });
 
 export const getOrder = defineEndpoint({
@@ -49,7 +50,22 @@ export const recordUnit = defineEndpoint({
   answer: recordedUnitSchema,
   status: 201,
   summary: 'Record one built unit: measured L, DCR at a temperature, hipot; pass/fail per check',
-  description: 'A complete order answers 409. The order completes when as many units passed as it asks for.',
+  description:
+    'A complete order answers 409. The order completes when as many units passed as it asks for (voided records left out). ' +
+    'unitNumber records a voided unit number again; left out, the next number.',
+});
+
+export const voidUnit = defineEndpoint({
+  method: 'POST',
+  path: '/shop/units/:id/void',
+  access: 'voidUnit',
+  params: idParamsSchema,
+  body: voidUnitSchema,
+  answer: recordedUnitSchema,
+  summary: 'Void a wrong unit record with a reason (kept and audited, never deleted); its unit number can then be recorded again',
+  description:
+    'By the unit’s recorder, a reviewer or an admin (403 otherwise). A voided record answers 409. A complete order whose ' +
+    'passed units fall below its quantity opens again.',
 });
 
 export const predictionReport = defineEndpoint({
@@ -57,5 +73,5 @@ export const predictionReport = defineEndpoint({
   path: '/shop/prediction-report',
   access: 'predictionReport',
   answer: predictionReportSchema,
-  summary: 'Measured against predicted L and DCR of every built unit, and the error by material and by core',
+  summary: 'Measured against predicted L and DCR of every built unit (voided records left out), and the error by material and by core',
 });

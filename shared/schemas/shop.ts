@@ -7,7 +7,17 @@ import { windingSheetSchema } from './winding-sheet';
 export const ORDER_STATUSES = ['open', 'complete'] as const;
 export const HIPOT_RESULTS = ['pass', 'fail', 'not_tested'] as const;
 
-export const ordersQuerySchema = z.object({ status: z.enum([...ORDER_STATUSES, 'all']).default('open') }).strict();
+export const ordersQuerySchema = z
+  .object({
+    status: z.enum([...ORDER_STATUSES, 'all']).default('open'),
+    designId: z
+      .string()
+      .regex(/^[1-9][0-9]{0,9}$/, { error: 'designId must be a positive integer' })
+      .transform(Number)
+      .optional()
+      .meta({ description: 'Only the orders of this design' }),
+  })
+  .strict();
 
 const finite = (field: string, min: number, max: number, unit: string) =>
   z
@@ -22,14 +32,29 @@ export const unitMeasurementSchema = z
     testFrequency: finite('testFrequency', 10, 10e6, 'Hz'),
     resistance: finite('resistance', 1e-6, 1e4, 'Ω'),
     resistanceTemperature: finite('resistanceTemperature', -40, 150, '°C'),
+    biasCurrent: finite('biasCurrent', 0.001, 1000, 'A').optional().meta({ description: 'DC bias current of the L-under-bias test (A)' }),
+    biasInductance: finite('biasInductance', 1e-9, 10, 'H').optional().meta({ description: 'L measured at biasCurrent (H)' }),
     hipot: z.enum(HIPOT_RESULTS, { error: 'hipot must be pass, fail or not_tested' }),
     notes: text().trim().max(2000, { error: 'At most 2000 characters' }).optional(),
+    unitNumber: z
+      .number({ error: 'unitNumber must be a whole number' })
+      .int({ error: 'unitNumber must be a whole number' })
+      .min(1, { error: 'unitNumber must be at least 1' })
+      .max(1_000_000, { error: 'unitNumber must be at most 1000000' })
+      .optional()
+      .meta({ description: 'Record again a unit number whose record was voided; the next number when left out' }),
   })
-  .strict() satisfies z.ZodType<UnitMeasurement>;
+  .strict()
+  .superRefine((m, ctx) => {
+    if ((m.biasCurrent === undefined) !== (m.biasInductance === undefined)) {
+      const path = m.biasCurrent === undefined ? 'biasCurrent' : 'biasInductance';
+      ctx.addIssue({ code: 'custom', path: [path], message: `${path} is needed with the other L-under-bias figure` });
+    }
+  }) satisfies z.ZodType<UnitMeasurement>;
 export type UnitMeasurementRequest = z.infer<typeof unitMeasurementSchema>;
 
 export const unitFindingSchema = z.object({
-  check: z.enum(['inductance', 'test-frequency', 'resistance', 'hipot']),
+  check: z.enum(['inductance', 'test-frequency', 'resistance', 'bias-inductance', 'hipot']),
   passed: z.boolean(),
   message: z.string(),
 }) satisfies z.ZodType<UnitFinding>;
@@ -48,8 +73,8 @@ export const orderSummarySchema = z.object({
   designId: z.number().int(),
   designNumber: z.string(),
   title: z.string(),
-  built: z.number().int(),
-  passed: z.number().int(),
+  built: z.number().int().meta({ description: 'Units recorded, voided records left out' }),
+  passed: z.number().int().meta({ description: 'Units passed, voided records left out' }),
 });
 export type OrderSummary = z.infer<typeof orderSummarySchema>;
 export const ordersAnswerSchema = z.object({ orders: z.array(orderSummarySchema) });
@@ -63,12 +88,18 @@ export const builtUnitSchema = z.object({
   resistance: z.number().meta({ description: 'Measured DC resistance (Ω) at resistanceTemperature (°C)' }),
   resistanceTemperature: z.number(),
   resistanceAt20: z.number().meta({ description: 'The reading referred to 20 °C (Ω)' }),
+  biasCurrent: z.number().nullable().meta({ description: 'DC bias current of the L-under-bias test (A)' }),
+  biasInductance: z.number().nullable().meta({ description: 'L measured at biasCurrent (H)' }),
   hipot: z.enum(HIPOT_RESULTS),
   passed: z.boolean(),
   findings: z.array(unitFindingSchema),
   notes: z.string().nullable(),
   recordedBy: z.number().int().nullable(),
   recordedAt: z.string(),
+  voidedAt: z.string().nullable().meta({ description: 'When the record was voided; null for a record that stands' }),
+  voidedBy: z.number().int().nullable(),
+  voidReason: z.string().nullable(),
+  canVoid: z.boolean().meta({ description: 'The signed-in user may void this record now (its recorder, a reviewer or an admin)' }),
 });
 export type BuiltUnit = z.infer<typeof builtUnitSchema>;
 
@@ -93,6 +124,16 @@ export const recordedUnitSchema = z.object({
   passedUnits: z.number().int(),
 });
 export type RecordedUnit = z.infer<typeof recordedUnitSchema>;
+
+export const voidUnitSchema = z
+  .object({
+    reason: text({ error: 'reason is required' })
+      .trim()
+      .min(3, { error: 'reason must be 3 to 500 characters' })
+      .max(500, { error: 'reason must be 3 to 500 characters' }),
+  })
+  .strict();
+export type VoidUnitRequest = z.infer<typeof voidUnitSchema>;
 
 export const predictionSampleSchema = z.object({
   orderNumber: z.string(),

@@ -12,8 +12,33 @@ export const sheetTestLimitsSchema = z.object({
     max: z.number().meta({ description: 'H' }),
     testFrequency: z.number().meta({ description: 'Small-signal test frequency (Hz), no DC bias' }),
     testLevel: z.number().meta({ description: 'Test level (V rms)' }),
+    reactance: z.number().optional().meta({ description: '2πfL at the test frequency (Ω)' }),
+    resolution: z.number().optional().meta({ description: 'What the meter must resolve (Ω)' }),
+    testFlux: z.number().optional().meta({ description: 'Peak flux the test level drives (T)' }),
   }),
-  resistanceMax20: z.number().meta({ description: 'Largest DC resistance at 20 °C (Ω)' }),
+  resistanceMax20: z
+    .number()
+    .meta({ description: 'Largest DC resistance at 20 °C at the pins: winding, leads and joints with the allowance (Ω)' }),
+  resistance: z
+    .object({
+      winding: z.number().meta({ description: 'Winding DC resistance at 20 °C (Ω)' }),
+      leads: z.number().meta({ description: 'Both leads at 20 °C (Ω)' }),
+      terminations: z.number().meta({ description: 'Both termination joints (Ω)' }),
+      tolerance: z.number(),
+      max: z.number().meta({ description: 'Ω at 20 °C' }),
+      fourWire: z.boolean().meta({ description: 'Measure four-wire (Kelvin) at the pins' }),
+    })
+    .optional(),
+  biasInductance: z
+    .object({
+      current: z.number().meta({ description: 'DC bias current (A)' }),
+      predicted: z.number().meta({ description: 'Predicted L at that current (H)' }),
+      min: z.number().meta({ description: 'Smallest L at that current (H)' }),
+      fractionOfNominal: z.number(),
+    })
+    .nullable()
+    .optional()
+    .meta({ description: 'Inductance under DC bias where saturation matters; null where not asked for' }),
   hipot: z.object({ required: z.boolean(), instruction: z.string() }),
 }) satisfies z.ZodType<SheetTestLimits>;
 
@@ -81,8 +106,11 @@ export const windingSheetSchema = z
         strands: z.number().int(),
         overallDiameter: z.number().meta({ description: 'm' }),
         grade: z.number().int().nullable(),
-        length: z.number().meta({ description: 'Including leads (m)' }),
-        mass: z.number().meta({ description: 'Copper (kg)' }),
+        length: z.number().meta({ description: 'One conductor in hand including both leads (m)' }),
+        mass: z.number().meta({ description: 'Copper of all conductors in hand (kg)' }),
+        conductorsInHand: z.number().int().optional(),
+        totalLength: z.number().optional().meta({ description: 'All conductors in hand together (m)' }),
+        leadLength: z.number().optional().meta({ description: 'Each lead (m)' }),
       }),
       tapes: z.array(z.string()),
     }),
@@ -105,6 +133,16 @@ export const windingSheetSchema = z
         .meta({ description: 'Copper clearance from the centre leg and its gap (m); null without an air gap; absent on older sheets' }),
     }),
     terminations: z.array(z.string()),
+    termination: z
+      .object({
+        kind: z.enum(['pins', 'strap', 'flying-leads', 'foil-tabs']),
+        pinCount: z.number().int().meta({ description: 'Bobbin pins (an estimate by core family and size)' }),
+        startPins: z.array(z.number().int()),
+        finishPins: z.array(z.number().int()),
+        perPin: z.number().int(),
+        strapArea: z.number().meta({ description: 'Strap or lead cross-section (m²); 0 on pins' }),
+      })
+      .optional(),
     assembly: z.array(z.string()),
     impregnation: z.string(),
     tests: sheetTestLimitsSchema,

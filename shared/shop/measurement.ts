@@ -15,13 +15,24 @@ export interface UnitMeasurement {
   testFrequency: number;
   resistance: number;
   resistanceTemperature: number;
+  /** L under DC bias (H) at the current given (A), where measured. */
+  biasCurrent?: number;
+  biasInductance?: number;
   hipot: 'pass' | 'fail' | 'not_tested';
 }
 
 export interface UnitFinding {
-  check: 'inductance' | 'test-frequency' | 'resistance' | 'hipot';
+  check: 'inductance' | 'test-frequency' | 'resistance' | 'bias-inductance' | 'hipot';
   passed: boolean;
   message: string;
+}
+
+/** A reading within this share of the sheet's test frequency (or bias current) is taken as the sheet's. */
+export const CONDITION_TOLERANCE = 0.05;
+
+/** A reading at another test frequency is not comparable with the sheet's limits. */
+export function testFrequencyMatches(measured: number, specified: number): boolean {
+  return Math.abs(measured - specified) <= CONDITION_TOLERANCE * specified;
 }
 
 /** Each check of one built unit against the sheet's limits, in words the shop can act on. */
@@ -37,8 +48,7 @@ export function judgeUnit(
     passed: lOk,
     message: `L = ${fmt(m.inductance * 1e6)} µH; limits ${fmt(inductance.min * 1e6)}–${fmt(inductance.max * 1e6)} µH`,
   });
-  // A reading at another test frequency is not comparable with the sheet's limits.
-  const fOk = Math.abs(m.testFrequency - inductance.testFrequency) <= 0.05 * inductance.testFrequency;
+  const fOk = testFrequencyMatches(m.testFrequency, inductance.testFrequency);
   findings.push({
     check: 'test-frequency',
     passed: fOk,
@@ -53,6 +63,20 @@ export function judgeUnit(
     passed: rOk,
     message: `DCR ${fmt(m.resistance * 1e3)} mΩ at ${fmt(m.resistanceTemperature, 3)} °C = ${fmt(r20 * 1e3)} mΩ at 20 °C; maximum ${fmt(limits.resistanceMax20 * 1e3)} mΩ`,
   });
+  const bias = limits.biasInductance;
+  if (bias) {
+    const measured = m.biasCurrent !== undefined && m.biasInductance !== undefined;
+    const currentOk = measured && m.biasCurrent! >= (1 - CONDITION_TOLERANCE) * bias.current;
+    const ok = currentOk && m.biasInductance! >= bias.min;
+    findings.push({
+      check: 'bias-inductance',
+      passed: ok,
+      message: !measured
+        ? `L under DC bias required (at ${fmt(bias.current, 3)} A) but not recorded`
+        : `L = ${fmt(m.biasInductance! * 1e6)} µH at ${fmt(m.biasCurrent!, 3)} A DC; at least ${fmt(bias.min * 1e6)} µH at ${fmt(bias.current, 3)} A` +
+          (currentOk ? '' : ' (measured at too low a current)'),
+    });
+  }
   if (limits.hipot.required) {
     findings.push({
       check: 'hipot',

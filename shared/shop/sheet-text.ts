@@ -1,4 +1,4 @@
-import type { WindingSheet } from './sheet';
+import type { SheetTestLimits, WindingSheet } from './sheet';
 
 // The sheet as labelled lines, shared by the PDF and any plain-text view, so both say the same thing.
 
@@ -17,6 +17,37 @@ export const kilohertz = (hz: number) => `${fmt(hz / 1e3)} kHz`;
 export const keepOutText = (keepOut: number) =>
   `Keep copper at least ${millimetre(keepOut)} from the gap (centre leg): the bobbin tube's wall counts; build up the rest ` +
   'with tape before the first layer';
+
+export const ohm = (r: number) => (r < 1 ? milliohm(r) : `${fmt(r)} Ω`);
+
+function wireLengthText(w: WindingSheet['parts']['wire']): string {
+  const mass = `${fmt(w.mass * 1e3, 3)} g copper in all`;
+  const leads = w.leadLength ? ` (winding + 2 leads of ${fmt(w.leadLength * 1e3, 3)} mm)` : ' including leads';
+  if (!w.conductorsInHand || w.conductorsInHand === 1 || !w.totalLength) return `${fmt(w.length, 3)} m${leads}; ${mass}`;
+  return `${fmt(w.length, 3)} m per wire in hand${leads}; ${w.conductorsInHand} wires = ${fmt(w.totalLength, 3)} m in all; ${mass}`;
+}
+
+function inductanceText(t: SheetTestLimits): string {
+  const l = t.inductance;
+  const base = `${microhenry(l.min)} to ${microhenry(l.max)} (nominal ${microhenry(l.nominal)}) at ${kilohertz(l.testFrequency)}, ${fmt(l.testLevel)} V rms, no DC bias`;
+  if (l.reactance === undefined || l.resolution === undefined) return base;
+  return `${base}; the reactance there is ${ohm(l.reactance)}: the meter must resolve ${ohm(l.resolution)} (1 % of it)`;
+}
+
+function biasText(b: NonNullable<SheetTestLimits['biasInductance']>): string {
+  return (
+    `at least ${microhenry(b.min)} (${fmt(b.fractionOfNominal * 100, 3)} % of nominal) with ${fmt(b.current, 3)} A DC through the winding ` +
+    `(predicted ${microhenry(b.predicted)}); apply the current briefly so the part does not heat`
+  );
+}
+
+function resistanceText(t: SheetTestLimits): string {
+  const base = `at most ${milliohm(t.resistanceMax20)} at 20 °C (correct readings at other temperatures with 0.393 %/K for copper)`;
+  const r = t.resistance;
+  if (!r) return base;
+  const parts = `winding ${milliohm(r.winding)} + leads ${milliohm(r.leads)} + joints ${milliohm(r.terminations)}, +${fmt(r.tolerance * 100)} %`;
+  return `${base}, at the pins: ${parts}${r.fourWire ? '; measure four-wire (Kelvin) at the pins' : ''}`;
+}
 
 export interface SheetSection {
   title: string;
@@ -42,7 +73,7 @@ export function sheetSections(s: WindingSheet): SheetSection[] {
         ['Gap', s.parts.gap.note],
         ['Bobbin', s.parts.bobbin],
         ['Wire', s.parts.wire.description],
-        ['Wire length', `${fmt(s.parts.wire.length, 3)} m including leads (${fmt(s.parts.wire.mass * 1e3, 3)} g copper)`],
+        ['Wire length', wireLengthText(s.parts.wire)],
         ...s.parts.tapes.map((tape, i): [string, string] => [i === 0 ? 'Tapes' : '', tape]),
       ],
     },
@@ -68,14 +99,9 @@ export function sheetSections(s: WindingSheet): SheetSection[] {
     {
       title: 'Tests and limits',
       lines: [
-        [
-          'Inductance',
-          `${microhenry(t.inductance.min)} to ${microhenry(t.inductance.max)} (nominal ${microhenry(t.inductance.nominal)}) at ${kilohertz(t.inductance.testFrequency)}, ${fmt(t.inductance.testLevel)} V rms, no DC bias`,
-        ],
-        [
-          'DC resistance',
-          `at most ${milliohm(t.resistanceMax20)} at 20 °C (correct readings at other temperatures with 0.393 %/K for copper)`,
-        ],
+        ['Inductance', inductanceText(t)],
+        ...(t.biasInductance ? [['L under DC bias', biasText(t.biasInductance)] as [string, string]] : []),
+        ['DC resistance', resistanceText(t)],
         ['Hipot', t.hipot.instruction],
       ],
     },

@@ -1,7 +1,10 @@
 // The winding sheet: everything the shop needs to build and test one released revision.
 // Built once at release from the revision's frozen result; lengths in m, inductance in H,
 // resistance in Ω, frequencies in Hz, temperatures in °C (SI inside, formatted at the edges). Its schema, for the
-// stored JSON and the order's answer: shared/schemas/winding-sheet.ts.
+// stored JSON and the order's answer: shared/schemas/winding-sheet.ts. Fields added after the first release are optional:
+// sheets frozen before them read as they were.
+import type { BiasTest, ResistanceLimit } from './test-limits';
+import type { TerminationPlan } from './terminations';
 import type { WindingDrawingInput } from './winding-drawing';
 
 export interface SheetTestLimits {
@@ -12,9 +15,17 @@ export interface SheetTestLimits {
     /** Small-signal test: frequency (Hz) and level (V rms), no DC bias. */
     testFrequency: number;
     testLevel: number;
+    /** 2πfL at the test frequency (Ω) and what the meter must resolve (Ω); the test level's peak flux (T). */
+    reactance?: number;
+    resolution?: number;
+    testFlux?: number;
   };
-  /** Largest DC resistance at 20 °C (Ω). */
+  /** Largest DC resistance at 20 °C (Ω), at the pins: winding, leads and joints with the allowance. */
   resistanceMax20: number;
+  /** How resistanceMax20 is made up, and whether to measure four-wire. */
+  resistance?: ResistanceLimit;
+  /** Inductance under DC bias, where saturation matters; null where not asked for. */
+  biasInductance?: BiasTest | null;
   hipot: { required: boolean; instruction: string };
 }
 
@@ -55,8 +66,15 @@ export interface WindingSheet {
       strands: number;
       overallDiameter: number;
       grade: number | null;
+      /** One conductor in hand: winding + 2 leads (m). */
       length: number;
+      /** Copper of all conductors in hand (kg). */
       mass: number;
+      /** Conductors in hand (1 for litz and foil) and their length together (m). */
+      conductorsInHand?: number;
+      totalLength?: number;
+      /** Each lead (m). */
+      leadLength?: number;
     };
     tapes: string[];
   };
@@ -80,6 +98,8 @@ export interface WindingSheet {
     keepOut?: number | null;
   };
   terminations: string[];
+  /** Where the ends go: pins (listed), a strap or flying leads; absent on sheets released before it. */
+  termination?: Pick<TerminationPlan, 'kind' | 'pinCount' | 'startPins' | 'finishPins' | 'perPin' | 'strapArea'>;
   assembly: string[];
   impregnation: string;
   tests: SheetTestLimits;

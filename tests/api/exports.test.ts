@@ -81,8 +81,11 @@ describe('exports', () => {
     const res = await erin.get(url('bom.csv'));
     const rows = parse(res.text, { columns: true }) as Record<string, string>[];
     const wire = rows.find((r) => r['item'] === 'Wire')!;
-    expect(Number(wire['quantity'])).toBeCloseTo(design.latest.result.evaluation['winding'].wireLength + 0.15, 3);
-    expect(wire['note']).toMatch(/75 mm lead at each end/);
+    // Every conductor in hand, each the winding's length + two 50 mm leads, as on the winding sheet.
+    const evaluation = design.latest.result.evaluation;
+    const inHand = evaluation['wire'].kind === 'litz' || evaluation['wire'].kind === 'foil' ? 1 : evaluation['wire'].strands;
+    expect(Number(wire['quantity'])).toBeCloseTo(inHand * (evaluation['winding'].wireLength + 0.1), 3);
+    expect(wire['note']).toMatch(new RegExp(`total of ${inHand} conductor\\(s\\) in hand; .* 50 mm lead at each end`));
   });
 
   it('ends the bill of materials with the sheet’s caution row', async () => {

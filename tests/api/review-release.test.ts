@@ -227,6 +227,8 @@ describe('release hand-off to the winding shop', () => {
       resistance: r20 * (1 + 0.00393 * 20),
       resistanceTemperature: 40,
       hipot: 'not_tested',
+      // Where the sheet asks for L under DC bias, the unit shows the predicted L at that current.
+      ...(limits.biasInductance ? { biasCurrent: limits.biasInductance.current, biasInductance: limits.biasInductance.predicted } : {}),
     };
 
     expect((await erin.post(`/api/shop/orders/${orderId}/units`, good)).status).toBe(403); // only winders record
@@ -283,6 +285,93 @@ describe('release hand-off to the winding shop', () => {
     expect(report.body.byMaterial.length).toBeGreaterThan(0);
     expect(report.body.byMaterial[0].inductanceRatio.spread).toBeGreaterThanOrEqual(0);
     expect((await wendell.get('/api/shop/prediction-report')).status).toBe(403);
+  });
+
+  it('voids a wrong record with a reason (recorder or reviewer only, audited, kept), and records the unit number again', async () => {
+    const order = (await wendell.get(`/api/shop/orders/${orderId}`)).body;
+    const [first, , hot] = order.units as { id: number; unitNumber: number; passed: boolean; canVoid: boolean }[];
+    expect(first.passed).toBe(true);
+    expect(first.canVoid).toBe(true); // its recorder
+    expect((await erin.get(`/api/shop/orders/${orderId}`)).body.units[0].canVoid).toBe(false); // engineers do not void
+    expect((await ruth.get(`/api/shop/orders/${orderId}`)).body.units[0].canVoid).toBe(true); // reviewers void any
+
+    // Another winder may not void wendell's record; the refusal is audited.
+    const created = await ada.post('/api/admin/users', {
+      username: 'winder2',
+      displayName: 'Second Winder',
+      role: 'winder',
+      password: 'second-winder-2026',
+    });
+    expect(created.status).toBe(201);
+    const other = new ApiClient(t.app);
+    await other.signIn('winder2', 'second-winder-2026');
+    const refused = await other.post(`/api/shop/units/${first.id}/void`, { reason: 'not mine to void' });
+    expect(refused.status).toBe(403);
+    const denials = await t.pool.query("select 1 from audit_log where action = 'access.denied' and target = $1", [
+      `POST /api/shop/units/${first.id}/void`,
+    ]);
+    expect(denials.rowCount).toBe(1);
+    expect((await erin.post(`/api/shop/units/${first.id}/void`, { reason: 'engineer' })).status).toBe(403);
+
+    // The reason is required, 3 to 500 characters; an unknown unit is a 404.
+    const missing = await wendell.post(`/api/shop/units/${first.id}/void`, {});
+    expect(missing.status).toBe(400);
+    expect(Object.keys(missing.body.error.fields)).toEqual(['reason']);
+    expect((await wendell.post(`/api/shop/units/${first.id}/void`, { reason: 'ab' })).body.error.fields.reason).toMatch(/3 to 500/);
+    expect((await wendell.post(`/api/shop/units/${first.id}/void`, { reason: 'x'.repeat(501) })).status).toBe(400);
+    expect((await wendell.post('/api/shop/units/999999/void', { reason: 'no such unit' })).status).toBe(404);
+
+    // The recorder voids a passing unit of the complete order: it opens again (one standing pass of two).
+    const voided = await wendell.post(`/api/shop/units/${first.id}/void`, { reason: 'L read at 100 kHz by mistake' });
+    expect(voided.status).toBe(200);
+    expect(voided.body.unit.voidReason).toBe('L read at 100 kHz by mistake');
+    expect(voided.body.unit.voidedAt).not.toBeNull();
+    expect(voided.body.unit.canVoid).toBe(false);
+    expect(voided.body.orderStatus).toBe('open');
+    expect(voided.body.passedUnits).toBe(1);
+    expect((await wendell.post(`/api/shop/units/${first.id}/void`, { reason: 'again' })).status).toBe(409);
+    const audit = await t.pool.query<{ actor_id: number; target: string; details: { reason: string } }>(
+      "select actor_id, target, details from audit_log where action = 'shop.unit_voided'",
+    );
+    expect(audit.rows).toHaveLength(1);
+    expect(audit.rows[0].target).toBe(`${orderNumber} unit ${first.unitNumber}`);
+    expect(audit.rows[0].details.reason).toBe('L read at 100 kHz by mistake');
+
+    // Kept, never deleted; left out of the order's counts.
+    const reopened = (await wendell.get(`/api/shop/orders/${orderId}`)).body;
+    expect(reopened.units).toHaveLength(4);
+    expect(reopened.canRecord).toBe(true);
+    const summary = (await wendell.get('/api/shop/orders')).body.orders.find((o: { id: number }) => o.id === orderId);
+    expect(summary).toMatchObject({ built: 3, passed: 1 });
+
+    // A reviewer voids the winder's failing record too.
+    expect((await ruth.post(`/api/shop/units/${hot.id}/void`, { reason: 'meter leads not nulled' })).status).toBe(200);
+
+    // A unit number with a standing record cannot be recorded again; the voided one can.
+    const good = {
+      inductance: order.sheet.tests.inductance.nominal * 1.05,
+      testFrequency: order.sheet.tests.inductance.testFrequency,
+      resistance: order.sheet.predicted.resistance20,
+      resistanceTemperature: 20,
+      hipot: 'not_tested',
+      ...(order.sheet.tests.biasInductance
+        ? { biasCurrent: order.sheet.tests.biasInductance.current, biasInductance: order.sheet.tests.biasInductance.predicted }
+        : {}),
+    };
+    const taken = await wendell.post(`/api/shop/orders/${orderId}/units`, { ...good, unitNumber: 2 });
+    expect(taken.status).toBe(409);
+    expect(Object.keys(taken.body.error.fields)).toEqual(['unitNumber']);
+    const again = await wendell.post(`/api/shop/orders/${orderId}/units`, { ...good, unitNumber: first.unitNumber });
+    expect(again.status).toBe(201);
+    expect(again.body.unit.unitNumber).toBe(first.unitNumber);
+    expect(again.body.unit.passed).toBe(true);
+    expect(again.body.orderStatus).toBe('complete');
+
+    // Measured against predicted leaves both voided records out: 4 recorded − 2 voided + 1 again.
+    const report = await erin.get('/api/shop/prediction-report');
+    const units = report.body.units.filter((u: { orderNumber: string }) => u.orderNumber === orderNumber);
+    expect(units).toHaveLength(3);
+    expect(units.filter((u: { inductanceRatio: number }) => Math.abs(u.inductanceRatio - 1.05) < 1e-9)).toHaveLength(1);
   });
 
   it('keeps the shop address as an admin setting', async () => {

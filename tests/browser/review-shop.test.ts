@@ -152,6 +152,8 @@ describe('review, release and the winding shop', () => {
       await typeInto('Measured inductance', `${inductanceMicrohenry.toPrecision(4)} uH`);
       await typeInto('DC resistance', `${resistanceMilliohm.toPrecision(4)} mOhm`);
       await typeInto('Temperature at the DCR reading', '20 °C');
+      // Where the sheet asks for L under DC bias, the unit shows the predicted L at that current (filled in by the form).
+      if (limits.biasInductance) await typeInto('L under DC bias', `${(limits.biasInductance.predicted * 1e6).toPrecision(4)} uH`);
       await winder.page.getByRole('combobox', { name: 'Hipot' }).click();
       await winder.page.getByRole('option', { name: 'Pass' }).click();
       await winder.page.getByRole('button', { name: 'Record unit' }).click();
@@ -164,6 +166,16 @@ describe('review, release and the winding shop', () => {
     await failing.waitFor();
     expect(await winder.page.locator('tr.mat-mdc-row').count()).toBe(2);
     expect(await winder.page.getByText('1 passed of 2 built').count()).toBe(1);
+
+    // The winder voids the failing record with a reason and records unit 2 again (failing again, for the report).
+    await winder.page.getByRole('button', { name: 'Void the record of unit 2' }).click();
+    await confirmDialog(winder.page, (d) => d.getByLabel('Reason').fill('Read with the meter leads not nulled'));
+    await winder.page.locator('tr.gw-voided', { hasText: 'Read with the meter leads not nulled' }).waitFor();
+    await winder.page.getByText('1 passed of 1 built').waitFor();
+    await winder.page.getByRole('button', { name: 'Unit 2' }).click();
+    await recordUnit(limits.inductance.nominal * 0.5 * 1e6, limits.resistanceMax20 * 0.9 * 1e3);
+    await winder.page.getByText('1 passed of 2 built').waitFor();
+    expect(await winder.page.locator('tr.mat-mdc-row').count()).toBe(3);
     await expectNoSeriousAxeFindings(winder.page);
     await winder.page.screenshot({ path: screenshotPath('shop-units'), fullPage: true });
 
@@ -172,8 +184,9 @@ describe('review, release and the winding shop', () => {
     await engineer.page.locator('tr.mat-mdc-row', { hasText: designNumber }).nth(1).waitFor();
     await engineer.page.locator('canvas').first().waitFor();
     await engineer.page.getByRole('heading', { name: 'By material' }).waitFor();
-    // Unit 1 was entered at the predicted nominal inductance, unit 2 at half of it.
+    // Unit 1 was entered at the predicted nominal inductance, unit 2 at half of it; the voided record is left out.
     const lRatios = await engineer.page.locator('tr.mat-mdc-row', { hasText: designNumber }).allInnerTexts();
+    expect(lRatios).toHaveLength(2);
     expect(lRatios.some((row) => row.includes('1.000'))).toBe(true);
     expect(lRatios.some((row) => row.includes('0.500'))).toBe(true);
     await expectNoSeriousAxeFindings(engineer.page);

@@ -29,6 +29,7 @@ import { DesignsApi, type MaterialView } from './designs-api';
 import { OperatingPointPanel } from './operating-point-panel';
 import { RevisionActions } from '../review/revision-actions';
 import { ChecksPanel } from '../checks/checks-panel';
+import { DesignOrders } from './design-orders';
 import { RevisionsPanel } from './revisions-panel';
 import { SpecFormComponent } from './spec-form';
 import { createSpecForm, formFromSpec, specFromForm } from './spec-model';
@@ -57,6 +58,7 @@ const EXPORT_LABELS: Record<ExportKind, string> = {
     DesignPanel,
     RevisionsPanel,
     ChecksPanel,
+    DesignOrders,
   ],
   templateUrl: './design-workspace.html',
   styleUrl: './design-workspace.scss',
@@ -96,6 +98,8 @@ export class DesignWorkspace {
   );
 
   private readonly isDesigner = computed(() => may(this.session.role(), 'design'));
+  /** Build orders and their units are shown to those who may read them. */
+  protected readonly canReadOrders = computed(() => may(this.session.role(), 'shop'));
   protected readonly latest = computed(() => this.detail()?.latest ?? null);
   protected readonly editable = computed(() => {
     const d = this.detail();

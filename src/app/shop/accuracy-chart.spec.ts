@@ -29,4 +29,16 @@ describe('accuracy chart', () => {
     expect(host.querySelectorAll('img, b').length).toBe(0);
     expect(host.textContent).toBe('<b>O-1</b> · <img src=x onerror="window.__injected=1"> rev 2L ratio 1.020DCR ratio 1.100');
   });
+
+  it('draws failed units apart from passing ones: triangles in a warning colour, passing units as circles', () => {
+    const options = accuracyChartOptions([sample, { ...sample, passed: false, inductanceRatio: 0.7 }]) as {
+      series: { name: string; symbol: string; itemStyle: { color: string }; data: { value: [number, number] }[] }[];
+    };
+    const [passed, failed] = options.series;
+    expect(passed).toMatchObject({ name: 'Passed', symbol: 'circle' });
+    expect(passed.data.map((d) => d.value[0])).toEqual([1.02]);
+    expect(failed).toMatchObject({ name: 'Failed (not a good unit)', symbol: 'triangle' });
+    expect(failed.data.map((d) => d.value[0])).toEqual([0.7]);
+    expect(failed.itemStyle.color).not.toBe(passed.itemStyle.color);
+  });
 });

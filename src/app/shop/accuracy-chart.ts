@@ -3,7 +3,16 @@ import type { EChartsCoreOption } from 'echarts/core';
 
 import { tooltipLines } from '../charts/chart-text';
 
-/** Scatter of measured/predicted inductance (x) against measured/predicted DCR (y); 1 is a perfect prediction. */
+/**
+ * How each kind of unit is drawn: passing units as blue circles; failed units apart, as red-orange triangles, a shape
+ * and a colour that do not read as "good" (and tell apart without colour).
+ */
+export const UNIT_MARKS = {
+  passed: { name: 'Passed', symbol: 'circle', color: '#1565c0' },
+  failed: { name: 'Failed (not a good unit)', symbol: 'triangle', color: '#d84315' },
+} as const;
+
+/** Scatter of measured/predicted inductance (x) against measured/predicted DCR (y); 1 is a perfect prediction. Voided records never reach it (the server leaves them out). */
 export function accuracyChartOptions(units: readonly PredictionSample[]): EChartsCoreOption {
   const point = (u: PredictionSample) => ({
     value: [u.inductanceRatio, u.resistanceRatio],
@@ -23,13 +32,22 @@ export function accuracyChartOptions(units: readonly PredictionSample[]): EChart
     yAxis: { type: 'value', name: 'DCR at 20 °C, measured ÷ predicted', nameLocation: 'middle', nameGap: 44, scale: true },
     series: [
       {
-        name: 'Passed',
+        name: UNIT_MARKS.passed.name,
         type: 'scatter',
+        symbol: UNIT_MARKS.passed.symbol,
         symbolSize: 10,
+        itemStyle: { color: UNIT_MARKS.passed.color },
         data: units.filter((u) => u.passed).map(point),
         markLine: { silent: true, symbol: 'none', lineStyle: { type: 'dashed' }, data: [{ xAxis: 1 }, { yAxis: 1 }] },
       },
-      { name: 'Failed', type: 'scatter', symbol: 'diamond', symbolSize: 12, data: units.filter((u) => !u.passed).map(point) },
+      {
+        name: UNIT_MARKS.failed.name,
+        type: 'scatter',
+        symbol: UNIT_MARKS.failed.symbol,
+        symbolSize: 13,
+        itemStyle: { color: UNIT_MARKS.failed.color },
+        data: units.filter((u) => !u.passed).map(point),
+      },
     ],
   };
 }

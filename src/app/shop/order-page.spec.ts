@@ -89,6 +89,12 @@ const order = (change: Partial<BuildOrder>): BuildOrder => ({
       notes: null,
       recordedBy: 4,
       recordedAt: '2026-01-06T10:00:00.000Z',
+      biasCurrent: null,
+      biasInductance: null,
+      voidedAt: null,
+      voidedBy: null,
+      voidReason: null,
+      canVoid: false,
     },
   ],
   canRecord: false,
@@ -125,5 +131,19 @@ describe('OrderPage', () => {
     expect(row).toContain('98.5 µH at 10 kHz');
     expect(row).toContain('41 mΩ at 23 °C (40.5 mΩ)');
     expect(page.querySelector('[role="status"]')?.textContent).toMatch(/complete: 1 units passed/);
+  });
+
+  it('strikes a voided record through with its reason, counts it for nothing, and offers its number to record again', async () => {
+    const first = order({}).units[0];
+    const voided = { ...first, voidedAt: '2026-01-06T11:00:00.000Z', voidedBy: 4, voidReason: 'read at 100 kHz' };
+    await open(order({ canRecord: true, units: [voided, { ...first, id: 2, unitNumber: 2, canVoid: true }] }));
+    const rows = [...page.querySelectorAll('tr.mat-mdc-row')];
+    expect(rows[0].classList).toContain('gw-voided');
+    expect(rows[0].textContent).toMatch(/voided.*Voided .*: read at 100 kHz/s);
+    expect(rows[0].querySelector('button')).toBeNull();
+    expect(rows[1].querySelector('button')?.getAttribute('aria-label')).toBe('Void the record of unit 2');
+    expect(page.textContent).toMatch(/1 passed of 1 built/);
+    const again = [...page.querySelectorAll('.gw-record-again button')].map((b) => b.textContent?.trim());
+    expect(again).toEqual(['Unit 1']);
   });
 });

@@ -4,8 +4,15 @@ import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 
 import { RecordUnitForm } from './record-unit-form';
 import type { RecordedUnit } from '@shared/schemas/shop';
+import type { SheetTestLimits } from '@shared/shop/sheet';
 import { typeInto } from '../testing/form-fields';
 import { renderWithHttpTesting } from '../testing/render';
+
+const LIMITS: SheetTestLimits = {
+  inductance: { nominal: 100e-6, min: 90e-6, max: 110e-6, testFrequency: 10e3, testLevel: 0.1 },
+  resistanceMax20: 0.05,
+  hipot: { required: false, instruction: 'Not required' },
+};
 
 describe('RecordUnitForm', () => {
   let fixture: ComponentFixture<RecordUnitForm>;
@@ -13,7 +20,7 @@ describe('RecordUnitForm', () => {
   let page: HTMLElement;
 
   beforeEach(async () => {
-    ({ fixture, http, page } = await renderWithHttpTesting(RecordUnitForm, { orderId: 5, testFrequency: 10e3 }));
+    ({ fixture, http, page } = await renderWithHttpTesting(RecordUnitForm, { orderId: 5, limits: LIMITS }));
   });
 
   afterEach(() => http.verify());
@@ -79,6 +86,12 @@ describe('RecordUnitForm', () => {
         notes: null,
         recordedBy: 4,
         recordedAt: '2026-01-05T10:00:00.000Z',
+        biasCurrent: null,
+        biasInductance: null,
+        voidedAt: null,
+        voidedBy: null,
+        voidReason: null,
+        canVoid: true,
       },
       orderStatus: 'open',
       passedUnits: 1,
@@ -111,5 +124,46 @@ describe('RecordUnitForm', () => {
     await fixture.whenStable();
 
     expect(errorTexts()).toEqual(['testFrequency must be between 10 and 10000000 Hz']);
+  });
+
+  it('warns before saving a reading at another test frequency, and saves it only when asked again', async () => {
+    type('Measured inductance', '98.5 uH');
+    type('Test frequency', '100 kHz');
+    type('DC resistance', '41 mOhm');
+    await chooseHipot('pass');
+    const warning = () => page.querySelector('.gw-unit-warning')?.textContent ?? '';
+    expect(warning()).toMatch(/Measured at 100 kHz; the sheet specifies 10 kHz/);
+
+    await submit();
+    http.expectNone('/api/shop/orders/5/units');
+    expect(warning()).toMatch(/record it anyway: it will be saved as failed/);
+    expect(page.querySelector('button[type="submit"]')!.textContent?.trim()).toBe('Record anyway');
+
+    await submit();
+    expect(http.expectOne('/api/shop/orders/5/units').request.body).toMatchObject({ testFrequency: 100e3 });
+  });
+
+  it('asks for L under DC bias where the sheet has that test, with its current filled in, and sends both figures', async () => {
+    fixture.componentRef.setInput('limits', {
+      ...LIMITS,
+      biasInductance: { current: 11, predicted: 100e-6, min: 90e-6, fractionOfNominal: 0.9 },
+    });
+    fixture.componentRef.setInput('unitNumber', 3);
+    await fixture.whenStable();
+    expect(page.textContent).toMatch(/At least 90 µH at 11 A/);
+    expect(page.textContent).toMatch(/Recording unit 3 again/);
+    type('Measured inductance', '98.5 uH');
+    type('DC resistance', '41 mOhm');
+    await chooseHipot('pass');
+    expect(page.querySelector('.gw-unit-warning')?.textContent).toMatch(/L under DC bias at 11 A; without it this unit will fail/);
+    type('L under DC bias', '95 uH');
+    await fixture.whenStable();
+    expect(page.querySelector('.gw-unit-warning')).toBeNull();
+
+    await submit();
+    const body = http.expectOne('/api/shop/orders/5/units').request.body as Record<string, number>;
+    expect(body['biasCurrent']).toBe(11);
+    expect(body['biasInductance']).toBeCloseTo(95e-6, 12);
+    expect(body['unitNumber']).toBe(3);
   });
 });

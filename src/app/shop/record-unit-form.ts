@@ -1,4 +1,5 @@
-import { ChangeDetectionStrategy, Component, effect, inject, input, output, signal, viewChild } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, output, signal, viewChild } from '@angular/core';
+import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, FormGroupDirective, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -6,6 +7,9 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { recordUnit } from '@shared/api/shop';
 import type { RecordedUnit, UnitMeasurementRequest } from '@shared/schemas/shop';
+import { CONDITION_TOLERANCE, testFrequencyMatches } from '@shared/shop/measurement';
+import type { SheetTestLimits } from '@shared/shop/sheet';
+import { formatQuantity } from '@shared/units/format';
 
 import { Api } from '../core/api';
 import { errorsShownByCaller } from '../core/error-display';
@@ -50,6 +54,16 @@ type Hipot = UnitMeasurementRequest['hipot'];
           placeholder="e.g. 23 °C"
           hint="Corrected to 20 °C for the check"
         />
+        @if (bias(); as b) {
+          <gw-quantity-input
+            label="L under DC bias"
+            kind="inductance"
+            formControlName="biasInductance"
+            placeholder="e.g. 20 uH"
+            [hint]="'At least ' + format(b.min, 'inductance') + ' at ' + format(b.current, 'current')"
+          />
+          <gw-quantity-input label="DC bias current" kind="current" formControlName="biasCurrent" placeholder="e.g. 11 A" />
+        }
         <mat-form-field>
           <mat-label>Hipot</mat-label>
           <mat-select formControlName="hipot" required>
@@ -73,10 +87,26 @@ type Hipot = UnitMeasurementRequest['hipot'];
           <mat-error>At most 2000 characters</mat-error>
         }
       </mat-form-field>
+      @if (unitNumber() !== null) {
+        <p role="status">Recording unit {{ unitNumber() }} again (its earlier record is voided).</p>
+      }
+      @if (warnings().length) {
+        <div class="gw-unit-warning" role="alert">
+          <p>Check before saving: this unit will not be judged against the sheet as measured.</p>
+          <ul>
+            @for (warning of warnings(); track warning) {
+              <li>{{ warning }}</li>
+            }
+          </ul>
+          @if (confirming()) {
+            <p>Correct the reading, or record it anyway: it will be saved as failed.</p>
+          }
+        </div>
+      }
       @if (formError()) {
         <p class="gw-form-error" role="alert">{{ formError() }}</p>
       }
-      <button mat-flat-button type="submit" [disabled]="busy()">Record unit</button>
+      <button mat-flat-button type="submit" [disabled]="busy()">{{ confirming() ? 'Record anyway' : 'Record unit' }}</button>
     </form>
   `,
   styles: `
@@ -88,6 +118,11 @@ type Hipot = UnitMeasurementRequest['hipot'];
     .gw-unit-notes {
       width: 100%;
     }
+    .gw-unit-warning {
+      border-left: 4px solid var(--mat-sys-error);
+      padding: 4px 12px;
+      margin-bottom: 12px;
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -96,12 +131,18 @@ export class RecordUnitForm {
   private readonly formDirective = viewChild.required(FormGroupDirective);
 
   readonly orderId = input.required<number>();
-  /** The sheet's test frequency (Hz), filled in so the winder only changes it when the meter differs. */
-  readonly testFrequency = input<number | null>(null);
+  /** The sheet's limits: its test frequency is filled in, and a reading under other conditions is warned of before saving. */
+  readonly limits = input<SheetTestLimits | null>(null);
+  /** A voided unit number to record again; null for the next unit. */
+  readonly unitNumber = input<number | null>(null);
   readonly recorded = output<RecordedUnit>();
 
   protected readonly busy = signal(false);
   protected readonly formError = signal<string | null>(null);
+  /** A save was asked for with warnings showing: the next one saves. */
+  protected readonly confirming = signal(false);
+  protected readonly bias = computed(() => this.limits()?.biasInductance ?? null);
+  protected readonly format = formatQuantity;
 
   protected readonly form = new FormGroup({
     inductance: new FormControl<number | null>(null),
@@ -110,19 +151,57 @@ export class RecordUnitForm {
     resistanceTemperature: new FormControl<number | null>(20),
     hipot: new FormControl<Hipot | null>(null, { validators: [Validators.required] }),
     notes: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(2000)] }),
+    biasInductance: new FormControl<number | null>(null),
+    biasCurrent: new FormControl<number | null>(null),
+  });
+  private readonly values = toSignal(this.form.valueChanges, { initialValue: this.form.value });
+
+  /** What differs from the sheet's test conditions, in words; the server judges the unit the same way. */
+  protected readonly warnings = computed(() => {
+    const limits = this.limits();
+    const v = this.values();
+    if (!limits) return [];
+    const out: string[] = [];
+    const specified = limits.inductance.testFrequency;
+    if (typeof v.testFrequency === 'number' && !testFrequencyMatches(v.testFrequency, specified))
+      out.push(
+        `Measured at ${formatQuantity(v.testFrequency, 'frequency')}; the sheet specifies ${formatQuantity(specified, 'frequency')}: ` +
+          'the inductance limits hold only there, so this unit will fail.',
+      );
+    const bias = limits.biasInductance;
+    if (bias) {
+      if (v.biasInductance == null || v.biasCurrent == null)
+        out.push(`The sheet asks for L under DC bias at ${formatQuantity(bias.current, 'current')}; without it this unit will fail.`);
+      else if (v.biasCurrent < (1 - CONDITION_TOLERANCE) * bias.current)
+        out.push(
+          `L under bias read at ${formatQuantity(v.biasCurrent, 'current')}; the sheet asks for ${formatQuantity(bias.current, 'current')}.`,
+        );
+    }
+    return out;
   });
 
   constructor() {
     effect(() => {
-      const frequency = this.testFrequency();
-      if (frequency !== null && this.form.controls.testFrequency.pristine) this.form.controls.testFrequency.setValue(frequency);
+      const limits = this.limits();
+      if (!limits) return;
+      const { testFrequency, biasCurrent } = this.form.controls;
+      if (testFrequency.pristine) testFrequency.setValue(limits.inductance.testFrequency);
+      if (limits.biasInductance && biasCurrent.pristine) biasCurrent.setValue(limits.biasInductance.current);
     });
+    // A changed reading is warned of afresh.
+    this.form.valueChanges.pipe(takeUntilDestroyed()).subscribe(() => this.confirming.set(false));
   }
 
   protected save(): void {
     this.form.markAllAsTouched();
     if (this.form.invalid) return;
+    if (this.warnings().length && !this.confirming()) {
+      this.confirming.set(true);
+      return;
+    }
+    this.confirming.set(false);
     const v = this.form.getRawValue();
+    const again = this.unitNumber();
     const notes = v.notes.trim();
     const measurement: UnitMeasurementRequest = {
       inductance: v.inductance!,
@@ -131,6 +210,8 @@ export class RecordUnitForm {
       resistanceTemperature: v.resistanceTemperature!,
       hipot: v.hipot!,
       ...(notes ? { notes } : {}),
+      ...(v.biasInductance != null && v.biasCurrent != null ? { biasInductance: v.biasInductance, biasCurrent: v.biasCurrent } : {}),
+      ...(again !== null ? { unitNumber: again } : {}),
     };
     this.busy.set(true);
     this.formError.set(null);
@@ -143,9 +224,11 @@ export class RecordUnitForm {
         this.formDirective().resetForm({
           resistanceTemperature: v.resistanceTemperature,
           testFrequency: frequency,
+          biasCurrent: v.biasCurrent,
           hipot: null,
           notes: '',
         });
+        this.confirming.set(false);
         this.recorded.emit(recorded);
       },
       error: (error: unknown) => {

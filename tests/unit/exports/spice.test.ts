@@ -2,7 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { evaluateDesign, type CoreMaterial } from '@shared/engine/index';
 import { parse } from 'csv-parse/sync';
 import { CatalogueService } from '../../../server/catalogue/catalogue.service.ts';
-import { buildBom, COPPER_DENSITY, copperMass, LEAD_ALLOWANCE_PER_END } from '../../../server/exports/bom.ts';
+import { buildBom, COPPER_DENSITY, copperMass, LEAD_LENGTH } from '../../../server/exports/bom.ts';
+import { testSheet } from '../../support/winding-sheet.ts';
 import { SHEET_CAUTION } from '@shared/shop/sheet';
 import { bomCsv, candidatesCsv } from '../../../server/exports/candidates-csv.ts';
 import { buildSpiceSubcircuit, spiceNumber, spiceSubcircuitName, spiceValues } from '../../../server/exports/spice.ts';
@@ -26,13 +27,14 @@ const FERRITE: CoreMaterial = {
 };
 
 const catalogue = new CatalogueService();
+const awg16x2 = catalogue.wire({ kind: 'awg', awg: 16, strands: 2 });
 const result = evaluateDesign({
   spec: { vinMin: 24, vinMax: 36, vout: 12, ioutMax: 10, frequency: 100e3, rippleRatio: 0.3, rectifier: 'ideal' },
   core: catalogue.core('ETD39/20/13'),
   material: FERRITE,
   turns: 'auto',
   gap: 'auto',
-  wire: catalogue.wire({ kind: 'awg', awg: 16, strands: 2 }),
+  wire: awg16x2,
 });
 
 /** Ohm's law for a branch R ∥ jX: Z = R·jX/(R + jX); its real part is R·X²/(R² + X²) (circuit theory, from memory). */
@@ -81,12 +83,22 @@ describe('bill of materials', () => {
   it('lists core set, bobbin, wire with lead allowance, copper mass and tape', () => {
     expect(rows.map((r) => r.item)).toEqual(['Core set', 'Bobbin', 'Clips', 'Wire', 'Copper mass', 'Tape']);
     const wire = rows.find((r) => r.item === 'Wire')!;
-    expect(wire.quantity).toBeCloseTo(result.winding.wireLength + 2 * LEAD_ALLOWANCE_PER_END, 3);
-    expect(wire.note).toMatch(/75 mm lead at each end/);
+    // Two wires in hand, each the winding's length + two 50 mm leads: the quantity is both together.
+    expect(LEAD_LENGTH).toBe(0.05);
+    expect(wire.quantity).toBeCloseTo(2 * (result.winding.wireLength + 0.1), 3);
+    expect(wire.note).toMatch(/total of 2 conductor\(s\) in hand; each \d\.\d{3} m .* 50 mm lead at each end/);
   });
 
-  it('weighs the copper as area × length × density', () => {
-    const mass = result.wire.copperArea * (result.winding.wireLength + 0.15) * COPPER_DENSITY;
+  it('agrees with the winding sheet on length per wire, total length and copper mass', () => {
+    const sheet = testSheet(result, awg16x2, undefined);
+    const wire = rows.find((r) => r.item === 'Wire')!;
+    expect(wire.quantity).toBeCloseTo(sheet.parts.wire.totalLength!, 3);
+    expect(sheet.parts.wire.length * 2).toBeCloseTo(sheet.parts.wire.totalLength!, 12);
+    expect(rows.find((r) => r.item === 'Copper mass')!.quantity).toBeCloseTo(sheet.parts.wire.mass * 1e3, 2);
+  });
+
+  it('weighs the copper of all wires in hand as area × length × density', () => {
+    const mass = result.wire.copperArea * (result.winding.wireLength + 0.1) * COPPER_DENSITY;
     expect(copperMass(result)).toBeCloseTo(mass, 12);
     // Two AWG 16 wires: d = 0.127 mm × 92^((36 − 16)/39) = 1.291 mm (ASTM B258-02 via "American wire gauge" article, formula; value computed [C]).
     expect(result.wire.copperArea * 1e6).toBeCloseTo(2 * (Math.PI / 4) * 1.291 ** 2, 2);

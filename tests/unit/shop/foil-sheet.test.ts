@@ -1,24 +1,14 @@
 import { describe, expect, it } from 'vitest';
 import { evaluateDesign } from '@shared/engine/evaluate';
 import { foilOption } from '@shared/catalogue/foil';
-import { buildWindingSheet } from '../../../server/shop/winding-sheet.ts';
+import { testSheet } from '../../support/winding-sheet.ts';
 import { etd34Like, ferriteA } from '../engine/fixtures';
 import { EXAMPLE_SPECS } from '../../support/example-specs';
 
 describe('a winding sheet for a foil winding', () => {
   const wire = foilOption(0.3e-3);
   const result = evaluateDesign({ spec: EXAMPLE_SPECS.D, core: etd34Like, material: ferriteA, turns: 3, gap: 'auto', wire });
-  const sheet = buildWindingSheet({
-    design: { number: 'GW-0001', title: 'foil test' },
-    revision: { revision: 1, engineVersion: 'test', inductanceTolerance: 0.1 },
-    order: { number: 'BO-1', quantity: 1, releasedAt: new Date('2026-01-01T00:00:00Z') },
-    author: 'erin',
-    approver: 'ruth',
-    result,
-    core: etd34Like,
-    wire,
-    insulation: { required: false },
-  });
+  const sheet = testSheet(result, wire, etd34Like, 'foil test');
 
   it('names the foil thickness and its width (winding width less 0.5 mm each edge, common practice, no source)', () => {
     // ETD34-like fixture: winding width 21 mm → foil 20.0 mm wide.
