@@ -43,7 +43,7 @@ export function copperMass(result: EvaluationResult): number {
 function coreGapNote(result: EvaluationResult): string {
   if (result.core.gapKind === 'distributed') return 'distributed gap in the material; no ground gap';
   if (result.gap.total <= 0) return 'ungapped';
-  const change = `±10 µm changes L by ∓${Math.abs(result.gap.sensitivity10um * 100).toFixed(1)} %`;
+  const change = `10 µm more gap lowers L by ${Math.abs(result.gap.sensitivity10um * 100).toFixed(1)} %`;
   if (result.gap.placement === 'spacer') {
     return `spacer ${mm(result.gap.spacer, 3)} mm thick under all legs (non-magnetic, e.g. polyester film), two gaps in series; no ground gap; ${change}`;
   }

@@ -18,7 +18,6 @@ import {
   type Cooling,
   type NodeSurfaces,
   type ThermalNetwork,
-  AirProperties,
   ConductanceTable,
   nodeConductance,
 } from '@shared/engine/thermal-network';
