@@ -25,17 +25,27 @@ interface Counts {
 const totals: Record<string, Counts> = {};
 const seconds: Record<string, number> = {};
 
+/**
+ * Whether a command's output goes to the terminal as it comes. Suites that run side by side (see STAGES) keep theirs
+ * and print it whole when they end, so their lines do not interleave.
+ */
+let live = true;
+
 function run(cmd: string, args: string[], env: NodeJS.ProcessEnv = {}): Promise<{ code: number; output: string }> {
+  const forwardLive = live;
   return new Promise((resolve) => {
     const child = spawn(cmd, args, { cwd: repoRoot, env: { ...process.env, ...env }, stdio: ['ignore', 'pipe', 'pipe'] });
     let output = '';
     const forward = (chunk: Buffer, to: NodeJS.WriteStream) => {
       output += chunk.toString();
-      to.write(chunk);
+      if (forwardLive) to.write(chunk);
     };
     child.stdout.on('data', (c: Buffer) => forward(c, process.stdout));
     child.stderr.on('data', (c: Buffer) => forward(c, process.stderr));
-    child.on('close', (code) => resolve({ code: code ?? 1, output }));
+    child.on('close', (code) => {
+      if (!forwardLive) process.stdout.write(output);
+      resolve({ code: code ?? 1, output });
+    });
   });
 }
 
@@ -185,30 +195,44 @@ function throwawayDatabase(suite: string): { url: string; drop: () => void } {
   return { url: cluster.urlFor(name), drop: () => dropDatabase(name) };
 }
 
+/**
+ * Suites that run side by side: each stage's suites start together and the next stage waits for them. The type check
+ * and lint are CPU work for the two cores; the unit suite (CPU: the field solver's meshes) runs beside the API shards,
+ * and the component suite beside the browser shards, which spend most of their time waiting on servers, PostgreSQL
+ * and Chromium.
+ */
+const STAGES: Suite[][] = [
+  ['types', 'lint'],
+  ['unit', 'api'],
+  ['component', 'browser'],
+];
+
+async function runSuite(suite: Suite): Promise<void> {
+  const suiteStarted = Date.now();
+  if (suite === 'types') await typeChecks();
+  if (suite === 'lint') await lintChecks();
+  if (suite === 'unit') await vitestProject('unit');
+  if (suite === 'component') await componentTests();
+  if (suite === 'api') await shardedTests('api', API_SHARDS);
+  if (suite === 'browser') {
+    ensureClientBuild(repoRoot, 'dist/gapwright/browser/index.html');
+    await shardedTests('browser', BROWSER_SHARDS);
+  }
+  seconds[suite] = (Date.now() - suiteStarted) / 1000;
+  process.stdout.write(`=== ${suite} tests done (${seconds[suite].toFixed(0)} s) ===\n`);
+}
+
 mkdirSync(resultsDir, { recursive: true });
 const started = Date.now();
 const cleanups: (() => void)[] = [];
 try {
-  for (const suite of suites) {
-    process.stdout.write(`\n=== ${suite} tests ===\n`);
-    const suiteStarted = Date.now();
-    if (suite === 'types') await typeChecks();
-    if (suite === 'lint') await lintChecks();
-    if (suite === 'unit') {
-      ensureDebianTools();
-      await vitestProject('unit');
-    }
-    if (suite === 'component') await componentTests();
-    if (suite === 'api') {
-      ensureDebianTools();
-      await shardedTests('api', API_SHARDS);
-    }
-    if (suite === 'browser') {
-      ensureDebianTools();
-      ensureClientBuild(repoRoot, 'dist/gapwright/browser/index.html');
-      await shardedTests('browser', BROWSER_SHARDS);
-    }
-    seconds[suite] = (Date.now() - suiteStarted) / 1000;
+  if (suites.some((suite) => suite === 'unit' || suite === 'api' || suite === 'browser')) ensureDebianTools();
+  for (const stage of STAGES) {
+    const now = stage.filter((suite) => suites.includes(suite));
+    if (!now.length) continue;
+    process.stdout.write(`\n=== ${now.join(' and ')} tests${now.length > 1 ? ' (side by side; each prints when it ends)' : ''} ===\n`);
+    live = now.length === 1;
+    await Promise.all(now.map(runSuite));
   }
 } finally {
   for (const drop of cleanups) {

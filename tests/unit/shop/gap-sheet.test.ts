@@ -53,7 +53,9 @@ describe('winding sheet and BOM for a ground centre gap', () => {
     expect(spacerLOf(etd34Like, ferriteA, result.turns, gap.spacerAlternative) / result.inductance.nominal).toBeCloseTo(1, 3);
     expect(spacerLOf(etd34Like, ferriteA, result.turns, result.gap.total / 2) / result.inductance.nominal).toBeLessThan(0.9);
     const core = buildBom({ result, materialName: 'Ferrite A' })[0]!;
-    expect(core.note).toMatch(new RegExp(`^grind the centre leg to a gap of ${(result.gap.total * 1e3).toFixed(3)} mm \\(10 µm more gap lowers L`));
+    expect(core.note).toMatch(
+      new RegExp(`^grind the centre leg to a gap of ${(result.gap.total * 1e3).toFixed(3)} mm \\(10 µm more gap lowers L`),
+    );
     expect(core.note).toContain(`a spacer ${(result.gap.spacer * 1e3).toFixed(3)} mm thick under all legs`);
     expect(core.note).not.toMatch(/outer leg/);
   });
