@@ -11,6 +11,7 @@ import type {
 } from '@shared/schemas/shop';
 import { judgeUnit } from '@shared/shop/measurement';
 import type { WindingSheet } from '@shared/shop/sheet';
+import { predictedAtPins } from '@shared/shop/test-limits';
 import type { AuditService } from '../audit/audit.service.ts';
 import type { CatalogueService } from '../catalogue/catalogue.service.ts';
 import type { Actor } from '../http/access.ts';
@@ -258,6 +259,9 @@ export class ShopService {
     const rows = await this.repo.measuredAgainstPredicted();
     const samples = rows.map(({ sheet, ...r }) => {
       const result = storedEvaluation(r.result);
+      // A unit is measured at its pins: against the winding, its leads and joints where the sheet gives them (sheets
+      // released before the lead resistance was stated predict the winding alone).
+      const predictedResistance20 = sheet.tests.resistance ? predictedAtPins(sheet.tests.resistance) : sheet.predicted.resistance20;
       return {
         orderNumber: r.orderNumber,
         designNumber: r.designNumber,
@@ -266,11 +270,11 @@ export class ShopService {
         core: result?.core.id ?? 'unknown',
         predictedInductance: sheet.predicted.inductanceNominal,
         measuredInductance: r.inductance,
-        predictedResistance20: sheet.predicted.resistance20,
+        predictedResistance20,
         measuredResistance20: r.resistanceAt20,
         passed: r.passed,
         inductanceRatio: r.inductance / sheet.predicted.inductanceNominal,
-        resistanceRatio: r.resistanceAt20 / sheet.predicted.resistance20,
+        resistanceRatio: r.resistanceAt20 / predictedResistance20,
       };
     });
     return {

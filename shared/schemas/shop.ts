@@ -143,7 +143,9 @@ export const predictionSampleSchema = z.object({
   core: z.string(),
   predictedInductance: z.number().meta({ description: 'H' }),
   measuredInductance: z.number().meta({ description: 'H' }),
-  predictedResistance20: z.number().meta({ description: 'Ω at 20 °C' }),
+  predictedResistance20: z.number().meta({
+    description: 'Ω at 20 °C at the pins: winding, leads and joints (the winding alone on sheets released before leads were counted)',
+  }),
   measuredResistance20: z.number().meta({ description: 'Ω at 20 °C' }),
   passed: z.boolean(),
   inductanceRatio: z.number().meta({ description: 'Measured ÷ predicted' }),

@@ -28,12 +28,17 @@ export interface ResistanceLimit {
   fourWire: boolean;
 }
 
+/** The predicted DC resistance at the pins at 20 °C: winding, leads and joints (Ω). */
+export const predictedAtPins = (limit: ResistanceLimit): number => limit.winding + limit.leads + limit.terminations;
+
 /** The DC resistance a good unit shows at its pins: winding, leads and joints, with the manufacturing allowance. */
 export function resistanceLimit(winding20: number, copperArea: number): ResistanceLimit {
   const leads = leadsResistance20(copperArea);
   const terminations = 2 * JOINT_RESISTANCE;
-  const max = (winding20 + leads + terminations) * (1 + RESISTANCE_TOLERANCE);
-  return { winding: winding20, leads, terminations, tolerance: RESISTANCE_TOLERANCE, max, fourWire: max < FOUR_WIRE_BELOW };
+  const limit = { winding: winding20, leads, terminations, tolerance: RESISTANCE_TOLERANCE, max: 0, fourWire: false };
+  limit.max = predictedAtPins(limit) * (1 + RESISTANCE_TOLERANCE);
+  limit.fourWire = limit.max < FOUR_WIRE_BELOW;
+  return limit;
 }
 
 export interface InductanceTest {

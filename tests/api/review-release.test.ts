@@ -4,6 +4,7 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { predictedAtPins } from '@shared/shop/test-limits';
 import { buildOrders, capturedMail, designRevisions, mailDeliveries } from '../../server/db/schema.ts';
 import { addRevision, insertEvaluatedDesign } from './support/design-fixture.ts';
 import { ApiClient, signedInAs } from './support/api-client.ts';
@@ -218,7 +219,8 @@ describe('release hand-off to the winding shop', () => {
   it('judges each unit against the sheet: DCR referred to 20 °C, inductance limits, completion at the quantity', async () => {
     const order = (await wendell.get(`/api/shop/orders/${orderId}`)).body;
     const limits = order.sheet.tests;
-    const r20 = order.sheet.predicted.resistance20;
+    // Measured at the pins: the winding with its leads and joints as the sheet predicts them.
+    const r20 = predictedAtPins(limits.resistance);
     // A reading at 40 °C of a winding whose R20 is the prediction: R40 = R20·(1 + 0.00393·20)
     // (IEC 60028: ρ20 = 1.7241e-8 Ω·m; α20 = 0.00393 /K, IEC 60028 — from memory).
     const good = {
@@ -282,6 +284,8 @@ describe('release hand-off to the winding shop', () => {
     const units = report.body.units.filter((u: { orderNumber: string }) => u.orderNumber === orderNumber);
     expect(units).toHaveLength(4);
     expect(units[0].inductanceRatio).toBeCloseTo(1, 9);
+    // compared at the pins, where the unit was measured: winding, leads and joints
+    expect(units[0].resistanceRatio).toBeCloseTo(1, 9);
     expect(report.body.byMaterial.length).toBeGreaterThan(0);
     expect(report.body.byMaterial[0].inductanceRatio.spread).toBeGreaterThanOrEqual(0);
     expect((await wendell.get('/api/shop/prediction-report')).status).toBe(403);
