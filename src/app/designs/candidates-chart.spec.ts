@@ -3,6 +3,9 @@ import { describe, expect, it } from 'vitest';
 import { searchCandidate, type CandidateOptions } from '../testing/search-answer';
 import { candidateRow } from './candidate-rows';
 import { EXTRAPOLATED_LEGEND, candidatesChartOptions, roundNumber, type CandidatesChartInput } from './candidates-chart';
+import { FALLBACK_COLOURS, chartTheme } from '../charts/chart-theme';
+
+const LIGHT = chartTheme(FALLBACK_COLOURS.light, 'light');
 
 const MARKUP_CORE = '<img src=x onerror="window.__injected=1">';
 const MARKUP_MATERIAL = '<meta http-equiv="refresh" content="0;url=/x">';
@@ -15,7 +18,7 @@ interface Options {
 }
 
 /** The options as the spec reads them (echarts types them loosely). */
-const optionsOf = (input: CandidatesChartInput) => candidatesChartOptions(input) as unknown as Options;
+const optionsOf = (input: CandidatesChartInput) => candidatesChartOptions(input, LIGHT) as unknown as Options;
 const row = (rank: number, o: Omit<CandidateOptions, 'rank'> = {}) => candidateRow(searchCandidate({ rank, ...o }), names);
 
 describe('candidates chart', () => {
@@ -64,6 +67,6 @@ describe('candidates chart', () => {
   });
 
   it('draws nothing without a candidate', () => {
-    expect(candidatesChartOptions({ front: [], page: [], by: 'volume', selected: null })).toEqual({});
+    expect(candidatesChartOptions({ front: [], page: [], by: 'volume', selected: null }, LIGHT)).toEqual({});
   });
 });

@@ -148,6 +148,20 @@ describe('CandidatesPanel', () => {
     expect(options().series[0].data.map((p) => p.symbol)).toEqual([undefined, 'emptyDiamond']);
   });
 
+  it('says in place of the chart that no candidate meets every limit when nothing is feasible', async () => {
+    await render();
+    await searchAndAnswer(searchAnswer({ candidates: [], page: { offset: 0, limit: 20, total: 0 } }));
+
+    expect(fixture.debugElement.query(By.directive(NgxEchartsDirective))).toBeNull();
+    expect(host.querySelector('[data-testid="candidates-chart-empty"]')!.textContent).toContain(
+      'No candidate meets every limit, so there is nothing to plot',
+    );
+
+    await searchAndAnswer(searchAnswer({ candidates: page(0, 3) }));
+    expect(fixture.debugElement.query(By.directive(NgxEchartsDirective))).not.toBeNull();
+    expect(host.querySelector('[data-testid="candidates-chart-empty"]')).toBeNull();
+  });
+
   it('shows the same part ground and on a spacer as two rows, and uses the one chosen', async () => {
     await render();
     const ground = searchCandidate({ rank: 1, coreId: 'P26/16' });
