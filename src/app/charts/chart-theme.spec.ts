@@ -173,6 +173,29 @@ describe('themed()', () => {
     expect(options['series'][0].markLine).toBeUndefined();
   });
 
+  it('draws hollow symbols filled with the surface and ringed in their colour, and lines with solid markers', () => {
+    const options = themed(
+      {
+        series: [
+          { type: 'line', name: 'Front', data: [{ value: [1, 2] }, { value: [2, 1], symbol: 'emptyDiamond' }] },
+          { type: 'scatter', name: 'DCM', symbol: 'emptyCircle', itemStyle: { color: '#123456' }, data: [[1, 2]] },
+          { type: 'line', name: 'Front', data: [] },
+        ],
+      },
+      theme,
+    ) as Record<string, any>; // eslint-disable-line @typescript-eslint/no-explicit-any
+
+    const [front, dcm, sameName] = options['series'];
+    expect(front.symbol).toBe('circle');
+    expect(front.data[1]).toEqual({
+      value: [2, 1],
+      symbol: 'diamond',
+      itemStyle: { color: theme.surface, borderColor: theme.series[0], borderWidth: 2 },
+    });
+    expect(dcm).toMatchObject({ symbol: 'circle', itemStyle: { color: theme.surface, borderColor: '#123456', borderWidth: 2 } });
+    expect(sameName.symbol).toBe('circle');
+  });
+
   it("keeps what a chart sets itself and leaves an empty chart's options empty", () => {
     const options = themed({ color: ['#010203'], xAxis: { axisLabel: { color: '#445566' } } }, theme) as Record<string, any>; // eslint-disable-line @typescript-eslint/no-explicit-any
 

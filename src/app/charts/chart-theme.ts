@@ -180,12 +180,46 @@ const eachOver = (defaults: Options, given: unknown) =>
   Array.isArray(given) ? given.map((g) => over(defaults, g)) : over(defaults, given);
 
 /**
+ * The colour echarts gives each series: its own item or line colour, else the palette's next colour by series name
+ * (series of one name share a colour).
+ */
+function seriesColours(series: unknown, palette: readonly string[]): string[] {
+  if (!Array.isArray(series)) return [];
+  const byName = new Map<unknown, string>();
+  return series.map((s: unknown) => {
+    const own = isPlain(s)
+      ? ((s['itemStyle'] as Options | undefined)?.['color'] ?? (s['lineStyle'] as Options | undefined)?.['color'])
+      : null;
+    if (typeof own === 'string') return own;
+    const name = isPlain(s) ? s['name'] : undefined;
+    if (!byName.has(name)) byName.set(name, palette[byName.size % palette.length]!);
+    return byName.get(name)!;
+  });
+}
+
+/**
+ * An item (series or data point) with a hollow symbol ('emptyCircle', 'emptyDiamond'…) drawn as the filled shape in
+ * the page's surface colour, ringed in its colour: echarts fills hollow symbols white whatever the scheme.
+ */
+function hollowed<T>(item: T, colour: string, surface: string): T {
+  if (!isPlain(item) || typeof item['symbol'] !== 'string' || !item['symbol'].startsWith('empty')) return item;
+  const shape = item['symbol'].slice('empty'.length);
+  const style = isPlain(item['itemStyle']) ? item['itemStyle'] : {};
+  return {
+    ...(item as Options),
+    symbol: shape.charAt(0).toLowerCase() + shape.slice(1),
+    itemStyle: { borderWidth: 2, ...style, color: surface, borderColor: style['color'] ?? colour },
+  } as T;
+}
+
+/**
  * A chart's options with the theme underneath: text, axes, grid lines, legend, tooltip and the series palette from
- * `theme`, whatever the chart sets itself kept. Axis names and tick labels are kept inside the canvas (echarts'
+ * `theme`, whatever the chart sets itself kept; hollow symbols filled with the surface colour. Axis names and tick labels are kept inside the canvas (echarts'
  * outer bounds), so short unit names such as "W" above an axis are never cut off. Empty options stay empty.
  */
 export function themed(options: EChartsCoreOption, theme: ChartTheme): EChartsCoreOption {
   if (!Object.keys(options).length) return options;
+  const o = options as Options;
   const text = { color: theme.text };
   const axis = {
     nameTextStyle: text,
@@ -194,12 +228,24 @@ export function themed(options: EChartsCoreOption, theme: ChartTheme): EChartsCo
     axisLabel: { color: theme.secondaryText },
     splitLine: { lineStyle: { color: theme.gridLine } },
   };
-  const labelled = (series: unknown) =>
-    over({ label: text, ...(isPlain(series) && series['markLine'] ? { markLine: { label: text } } : {}) }, series);
-  const o = options as Options;
+  const palette = (o['color'] as readonly string[] | undefined) ?? theme.series;
+  const colourOf = seriesColours(o['series'], palette);
+  const seriesThemed = (series: unknown, i: number) => {
+    if (!isPlain(series)) return series;
+    const colour = colourOf[i]!;
+    const defaults = {
+      label: text,
+      ...(series['markLine'] ? { markLine: { label: text } } : {}),
+      // A line's own markers: echarts' default is a hollow circle filled white, glaring in the dark scheme.
+      ...(series['type'] === 'line' ? { symbol: 'circle' } : {}),
+    };
+    const merged = hollowed(over(defaults, series), colour, theme.surface);
+    const data = merged['data'];
+    return Array.isArray(data) ? { ...merged, data: data.map((d: unknown) => hollowed(d, colour, theme.surface)) } : merged;
+  };
   return {
     ...o,
-    color: o['color'] ?? theme.series,
+    color: [...palette],
     textStyle: over({ ...text, fontFamily: "'Noto Sans', sans-serif" }, o['textStyle']),
     ...(o['title'] ? { title: eachOver({ textStyle: text, subtextStyle: { color: theme.secondaryText } }, o['title']) } : {}),
     ...(o['legend']
@@ -218,6 +264,6 @@ export function themed(options: EChartsCoreOption, theme: ChartTheme): EChartsCo
     ...(o['grid'] ? { grid: eachOver({ outerBounds: { left: 4, right: 4, top: 4, bottom: 4 } }, o['grid']) } : {}),
     ...(o['xAxis'] ? { xAxis: eachOver(axis, o['xAxis']) } : {}),
     ...(o['yAxis'] ? { yAxis: eachOver(axis, o['yAxis']) } : {}),
-    ...(Array.isArray(o['series']) ? { series: o['series'].map(labelled) } : {}),
+    ...(Array.isArray(o['series']) ? { series: o['series'].map(seriesThemed) } : {}),
   };
 }

@@ -136,7 +136,7 @@ describe('CandidatesPanel', () => {
 
     const options = () =>
       fixture.debugElement.query(By.directive(NgxEchartsDirective)).injector.get(NgxEchartsDirective).options() as {
-        series: { name: string; data: { name: string; symbol?: string }[] }[];
+        series: { name: string; data: { name: string; symbol?: string; itemStyle?: { borderWidth?: number } }[] }[];
       };
     const frontNames = () => options().series[0].data.map((p) => p.name.split(' · ')[0]);
     expect(frontNames()).toEqual(['Front V1', 'Front V7', 'Front V30']);
@@ -145,7 +145,8 @@ describe('CandidatesPanel', () => {
     button('Mass (2 points)').click();
     await fixture.whenStable();
     expect(frontNames()).toEqual(['Front M2', 'Front M40']);
-    expect(options().series[0].data.map((p) => p.symbol)).toEqual([undefined, 'emptyDiamond']);
+    expect(options().series[0].data.map((p) => p.symbol)).toEqual([undefined, 'diamond']);
+    expect(options().series[0].data.map((p) => p.itemStyle?.borderWidth)).toEqual([undefined, 2]);
   });
 
   it('says in place of the chart that no candidate meets every limit when nothing is feasible', async () => {

@@ -23,6 +23,7 @@ interface Series {
   data: unknown[];
   lineStyle?: { type?: string };
   symbol?: string;
+  itemStyle?: object;
 }
 
 describe('loss-versus-frequency chart', () => {
@@ -45,7 +46,8 @@ describe('loss-versus-frequency chart', () => {
 
   it('rings each infeasible point and names it in the legend and the description', () => {
     const marks = options.series.find((s) => s.name === INFEASIBLE_LEGEND);
-    expect(marks?.symbol).toBe('emptyCircle');
+    expect(marks?.symbol).toBe('circle');
+    expect(marks?.itemStyle).toEqual({ color: LIGHT.surface, borderColor: LIGHT.error, borderWidth: 2 });
     expect(marks?.data).toEqual([[25, 1.3]]);
     expect(frequencyChartLabel(sweep)).toMatch(/; not feasible at 25 kHz$/);
   });
