@@ -17,7 +17,8 @@ export function frequencyChartOptions(
   switchingFrequency?: number,
 ): EChartsCoreOption {
   if (!sweep.length) return {};
-  const [totalColour, copperColour, coreColour] = theme.series;
+  // Total in the text colour, the strongest; copper in the copper primary; core in tertiary.
+  const [totalColour, copperColour, coreColour] = [theme.text, theme.series[0], theme.series[1]];
   const x = axisIn('kHz');
   const curve = (name: string, colour: string, pick: (p: LossAtFrequency) => number) => {
     const { plain, flagged } = splitByFlag(sweep.map((p) => ({ x: x.toAxis(p.frequency), y: pick(p), flagged: !p.feasible })));
