@@ -34,7 +34,7 @@ const TOKENS: Record<keyof SystemColours, string> = {
 
 /**
  * The system colours of `src/styles/_palette.scss` (Material's light tones 98/10/30/50/80/92/40 and dark tones
- * 6/90/80/60/30/17/80), used only where the theme's CSS is not loaded (component specs).
+ * 6/90/90/60/30/17/80), used only where the theme's CSS is not loaded (component specs).
  */
 export const FALLBACK_COLOURS: Record<Theme, SystemColours> = {
   light: {
@@ -51,7 +51,7 @@ export const FALLBACK_COLOURS: Record<Theme, SystemColours> = {
   dark: {
     surface: '#19120e',
     onSurface: '#f0dfd8',
-    onSurfaceVariant: '#dac2b5',
+    onSurfaceVariant: '#f7ddd1',
     outline: '#a28c81',
     outlineVariant: '#54433a',
     surfaceContainerHigh: '#312823',

@@ -129,7 +129,8 @@ export class OperatingPointPanel {
     return themed(
       {
         animation: false,
-        grid: { left: 48, right: 16, top: 24, bottom: 36 },
+        // Right: room for the Iout line's label beyond the plot.
+        grid: { left: 48, right: 40, top: 24, bottom: 36 },
         tooltip: { trigger: 'axis' },
         xAxis: { type: 'value', name: time.unit, nameLocation: 'middle', nameGap: 24, max: time.toAxis(2 * period) },
         yAxis: { type: 'value', name: 'A', scale: true },
