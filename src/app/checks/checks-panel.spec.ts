@@ -68,7 +68,8 @@ describe('ChecksPanel', () => {
         provideHttpClient(),
         provideHttpClientTesting(),
         provideEchartsCore({ echarts: () => new Promise<never>(() => undefined) }),
-        { provide: Session, useValue: { role } },
+        // The chart theme follows the theme switcher, which reads the signed-in user's preference.
+        { provide: Session, useValue: { role, user: signal(null) } },
       ],
     });
     http = TestBed.inject(HttpTestingController);

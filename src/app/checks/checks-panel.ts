@@ -4,9 +4,11 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { may } from '@shared/api/permissions';
 import type { CheckKind, CircuitCorner, ExportedModelRun, RevisionCheck, RevisionChecks } from '@shared/schemas/checks';
+import type { EChartsCoreOption } from 'echarts/core';
 import { NgxEchartsDirective } from 'ngx-echarts';
 import type { Observable } from 'rxjs';
 
+import { ChartThemes } from '../charts/chart-theme';
 import { errorMessageOf } from '../core/api-error';
 import { Session } from '../core/session';
 import { ChecksApi } from './checks-api';
@@ -49,7 +51,10 @@ export class ChecksPanel {
     return c?.status === 'done' && c.result?.kind === 'field' ? c.result : null;
   });
   protected readonly mayRun = computed(() => may(this.session.role(), 'library') && (this.answer()?.canRun ?? false));
-  protected readonly chart = circuitChartOptions;
+  private readonly chartTheme = inject(ChartThemes).current;
+  protected chart(corner: CircuitCorner): EChartsCoreOption {
+    return circuitChartOptions(corner, this.chartTheme());
+  }
   protected readonly chartLabel = circuitChartLabel;
 
   constructor() {

@@ -2,6 +2,9 @@ import type { MaterialCurves } from '@shared/schemas/compare';
 import { describe, expect, it } from 'vitest';
 
 import { lossChartOptions, splitByFit, type LossChartInput } from './loss-chart-options';
+import { FALLBACK_COLOURS, chartTheme } from '../charts/chart-theme';
+
+const LIGHT = chartTheme(FALLBACK_COLOURS.light, 'light');
 
 const point = (x: number, extrapolated: boolean) => ({ x, steinmetz: x * 2, igse: x * 3, extrapolated });
 
@@ -59,7 +62,7 @@ interface Axis {
   nameGap: number;
 }
 function options(input: Partial<LossChartInput> = {}) {
-  const o = lossChartOptions({ materials: MATERIALS, axis: 'frequency', method: 'igse', dark: false, ...input }) as {
+  const o = lossChartOptions({ materials: MATERIALS, axis: 'frequency', method: 'igse', theme: LIGHT, ...input }) as {
     series: Series[];
     xAxis: Axis;
     yAxis: Axis;

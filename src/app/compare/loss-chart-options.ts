@@ -3,27 +3,13 @@ import type { LossPoint } from '@shared/fitting/loss-points';
 import type { CurvePoint, MaterialCurves } from '@shared/schemas/compare';
 import { axisIn, trimmedNumber, type AxisScale } from '@shared/units/index';
 
+import { themed, type ChartTheme } from '../charts/chart-theme';
 import { splitByFlag } from '../charts/split-series';
 import type { DesignMark } from './design-mark';
 import { pointsInSlice, type ChartSlice } from './loss-point-slice';
 
 export type LossMethod = 'igse' | 'steinmetz';
 export type SweepAxis = 'frequency' | 'flux';
-
-const PALETTE = [
-  '#b5562b',
-  '#00796b',
-  '#5e35b1',
-  '#c62828',
-  '#2e7d32',
-  '#1565c0',
-  '#6d4c41',
-  '#ad1457',
-  '#f9a825',
-  '#37474f',
-  '#00838f',
-  '#8e24aa',
-];
 
 /** The axes in the units the page's fields take: kHz and mT (ΔB), loss density in kW/m³. */
 export const LOSS_AXIS = axisIn('kW/m³');
@@ -48,7 +34,7 @@ export interface LossChartInput {
   materials: readonly MaterialCurves[];
   axis: SweepAxis;
   method: LossMethod;
-  dark: boolean;
+  theme: ChartTheme;
   /** Measured points of the drawn versions by material id, and where the chart cuts them; none drawn without both. */
   measured?: ReadonlyMap<string, readonly LossPoint[]>;
   slice?: ChartSlice | null;
@@ -75,12 +61,11 @@ export function designLabel(design: DesignMark, method: LossMethod): string {
  * ranges of several materials stay readable where they overlap), extrapolation dashed, measured points at the chart's
  * slice as marks in the material's colour, and a chosen design's operating point.
  */
-export function lossChartOptions({ materials, axis, method, dark, measured, slice, design }: LossChartInput): EChartsCoreOption {
-  const text = dark ? '#e6e1e5' : '#1d1b20';
-  const grid = dark ? '#49454f' : '#cac4d0';
+export function lossChartOptions({ materials, axis, method, theme, measured, slice, design }: LossChartInput): EChartsCoreOption {
+  const text = theme.text;
   const sweep = SWEEP_AXES[axis];
   const series: Record<string, unknown>[] = materials.flatMap((m, i) => {
-    const colour = PALETTE[i % PALETTE.length];
+    const colour = theme.series[i % theme.series.length];
     const { fitted, extrapolated } = splitByFit(axis === 'frequency' ? m.versusFrequency : m.versusFlux, method);
     const [from, to] = axis === 'frequency' ? [m.fit.frequencyMin, m.fit.frequencyMax] : [2 * m.fit.fluxMin || 1e-4, 2 * m.fit.fluxMax];
     const points = measured && slice ? pointsInSlice(measured.get(m.id) ?? [], axis, slice) : [];
@@ -119,7 +104,7 @@ export function lossChartOptions({ materials, axis, method, dark, measured, slic
               data: points.map((p) => onAxes(axis, p)),
               symbol: 'circle',
               symbolSize: 7,
-              itemStyle: { color: colour, borderColor: dark ? '#1d1b20' : '#ffffff', borderWidth: 1 },
+              itemStyle: { color: colour, borderColor: theme.surface, borderWidth: 1 },
               z: 3,
             },
           ]
@@ -137,42 +122,39 @@ export function lossChartOptions({ materials, axis, method, dark, measured, slic
       data: [onAxes(axis, [x, design[method]])],
       symbol: 'diamond',
       symbolSize: 16,
-      itemStyle: { color: text, borderColor: dark ? '#1d1b20' : '#ffffff', borderWidth: 1.5 },
+      itemStyle: { color: text, borderColor: theme.surface, borderWidth: 1.5 },
       label: { show: true, position: 'top', color: text, formatter: () => label },
       z: 4,
     });
   }
   const legendEntries = materials.length + (design ? 1 : 0);
-  return {
-    animation: false,
-    color: PALETTE,
-    textStyle: { color: text },
-    legend: { top: 0, textStyle: { color: text }, type: 'plain' },
-    tooltip: {
-      trigger: 'axis',
-      valueFormatter: (v: unknown) => (typeof v === 'number' ? `${trimmedNumber(v, 3)} ${LOSS_AXIS.unit}` : String(v)),
+  return themed(
+    {
+      animation: false,
+      legend: { top: 0, type: 'plain' },
+      tooltip: {
+        trigger: 'axis',
+        valueFormatter: (v: unknown) => (typeof v === 'number' ? `${trimmedNumber(v, 3)} ${LOSS_AXIS.unit}` : String(v)),
+      },
+      // Two legend entries fit on a line of a half-width chart; leave room for every line. Left and bottom leave room
+      // for the tick labels and the axis names beyond them (nameGap).
+      grid: { left: 92, right: 28, top: 32 + 24 * Math.ceil(legendEntries / 2), bottom: 64 },
+      xAxis: {
+        type: 'log',
+        name: sweep.name,
+        nameLocation: 'middle',
+        nameGap: 36,
+        splitLine: { show: true },
+      },
+      yAxis: {
+        type: 'log',
+        name: `Core-loss density (${LOSS_AXIS.unit})`,
+        nameLocation: 'middle',
+        nameGap: 64,
+        splitLine: { show: true },
+      },
+      series,
     },
-    // Two legend entries fit on a line of a half-width chart; leave room for every line. Left and bottom leave room
-    // for the tick labels and the axis names beyond them (nameGap).
-    grid: { left: 92, right: 28, top: 32 + 24 * Math.ceil(legendEntries / 2), bottom: 64 },
-    xAxis: {
-      type: 'log',
-      name: sweep.name,
-      nameLocation: 'middle',
-      nameGap: 36,
-      axisLine: { lineStyle: { color: text } },
-      axisLabel: { color: text },
-      splitLine: { show: true, lineStyle: { color: grid } },
-    },
-    yAxis: {
-      type: 'log',
-      name: `Core-loss density (${LOSS_AXIS.unit})`,
-      nameLocation: 'middle',
-      nameGap: 64,
-      axisLine: { lineStyle: { color: text } },
-      axisLabel: { color: text },
-      splitLine: { show: true, lineStyle: { color: grid } },
-    },
-    series,
-  };
+    theme,
+  );
 }

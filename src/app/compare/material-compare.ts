@@ -14,7 +14,7 @@ import { NgxEchartsDirective } from 'ngx-echarts';
 import { catchError, forkJoin, map, of } from 'rxjs';
 
 import { errorMessageOf } from '../core/api-error';
-import { ThemeSwitcher } from '../core/theme-switcher';
+import { ChartThemes } from '../charts/chart-theme';
 import { DesignsApi } from '../designs/designs-api';
 import { LossPointsApi } from '../materials/loss-points-api';
 import { QuantityPipe } from '../units/quantity';
@@ -57,7 +57,7 @@ export class MaterialCompare {
   private readonly api = inject(CompareApi);
   private readonly pointsApi = inject(LossPointsApi);
   private readonly designsApi = inject(DesignsApi);
-  private readonly theme = inject(ThemeSwitcher);
+  private readonly chartTheme = inject(ChartThemes).current;
   private readonly curvesHeading = viewChild.required<ElementRef<HTMLElement>>('curvesHeading');
 
   /** Query parameters `design` and `revision` open the page on that saved revision's comparison. */
@@ -122,7 +122,6 @@ export class MaterialCompare {
   protected readonly markedDesign = signal<DesignMark | null>(null);
   protected readonly markNote = signal<string | null>(null);
 
-  private readonly dark = computed(() => this.theme.theme() === 'dark');
   protected readonly slice = computed<ChartSlice | null>(() => {
     const c = this.curves();
     return c && c.temperature !== null ? { temperature: c.temperature, deltaB: c.deltaB, frequency: c.frequency } : null;
@@ -150,7 +149,7 @@ export class MaterialCompare {
       materials: c.materials,
       axis,
       method: this.method(),
-      dark: this.dark(),
+      theme: this.chartTheme(),
       measured: this.measured(),
       slice: this.slice(),
       design: this.markedDesign(),

@@ -3,19 +3,32 @@ import { describe, expect, it } from 'vitest';
 import { searchCandidate, type CandidateOptions } from '../testing/search-answer';
 import { candidateRow } from './candidate-rows';
 import { EXTRAPOLATED_LEGEND, candidatesChartOptions, roundNumber, type CandidatesChartInput } from './candidates-chart';
+import { FALLBACK_COLOURS, chartTheme } from '../charts/chart-theme';
+
+const LIGHT = chartTheme(FALLBACK_COLOURS.light, 'light');
+interface Hollow {
+  color?: string;
+  borderColor?: string;
+  borderWidth?: number;
+}
 
 const MARKUP_CORE = '<img src=x onerror="window.__injected=1">';
 const MARKUP_MATERIAL = '<meta http-equiv="refresh" content="0;url=/x">';
 const names = new Map([['7', MARKUP_MATERIAL]]);
 
 interface Options {
-  series: { name: string; symbol?: string; data: { name: string; value: number[]; symbol?: string; key: string }[] }[];
+  series: {
+    name: string;
+    symbol?: string;
+    itemStyle?: Hollow;
+    data: { name: string; value: number[]; symbol?: string; itemStyle?: Hollow; key: string }[];
+  }[];
   tooltip: { formatter: (p: unknown) => string };
   xAxis: { name: string };
 }
 
 /** The options as the spec reads them (echarts types them loosely). */
-const optionsOf = (input: CandidatesChartInput) => candidatesChartOptions(input) as unknown as Options;
+const optionsOf = (input: CandidatesChartInput) => candidatesChartOptions(input, LIGHT) as unknown as Options;
 const row = (rank: number, o: Omit<CandidateOptions, 'rank'> = {}) => candidateRow(searchCandidate({ rank, ...o }), names);
 
 describe('candidates chart', () => {
@@ -38,10 +51,13 @@ describe('candidates chart', () => {
     const options = optionsOf({ front, page, by: 'volume', selected: page[1] });
     const [line, fit, extrapolated, selected] = options.series;
     expect(line.data.map((p) => p.value[0])).toEqual([1, 4, 9]);
-    expect(line.data.map((p) => p.symbol)).toEqual([undefined, 'emptyDiamond', undefined]);
+    // Hollow: the shape filled with the page's surface colour, ringed in the series colour.
+    expect(line.data.map((p) => p.symbol)).toEqual([undefined, 'diamond', undefined]);
+    expect(line.data.map((p) => p.itemStyle?.color)).toEqual([undefined, LIGHT.surface, undefined]);
     expect(fit.data.map((p) => p.value[0])).toEqual([1, 2]);
     expect(extrapolated.name).toBe(EXTRAPOLATED_LEGEND);
-    expect(extrapolated.symbol).toBe('emptyCircle');
+    expect(extrapolated.symbol).toBe('circle');
+    expect(extrapolated.itemStyle).toEqual({ color: LIGHT.surface, borderColor: LIGHT.series[2], borderWidth: 2 });
     expect(extrapolated.data.map((p) => p.value[0])).toEqual([5]);
     expect(selected.data.map((p) => p.key)).toEqual([page[1].key]);
     expect(options.xAxis.name).toBe('Core volume (cm³)');
@@ -64,6 +80,6 @@ describe('candidates chart', () => {
   });
 
   it('draws nothing without a candidate', () => {
-    expect(candidatesChartOptions({ front: [], page: [], by: 'volume', selected: null })).toEqual({});
+    expect(candidatesChartOptions({ front: [], page: [], by: 'volume', selected: null }, LIGHT)).toEqual({});
   });
 });

@@ -1,6 +1,7 @@
 import type { EChartsCoreOption } from 'echarts/core';
 
 import { tooltipLines } from '../charts/chart-text';
+import { themed, type ChartTheme } from '../charts/chart-theme';
 import type { CandidateRow } from './candidate-rows';
 import { axisIn, type AxisScale } from '@shared/units/index';
 
@@ -44,7 +45,7 @@ export function pointOf(row: CandidateRow, by: FrontBy): [number, number] {
  * Loss against core volume or mass: the whole Pareto front joined by a line, the page's candidates as points, those on
  * extrapolated loss data hollow, the selected one ringed.
  */
-export function candidatesChartOptions({ front, page, by, selected }: CandidatesChartInput): EChartsCoreOption {
+export function candidatesChartOptions({ front, page, by, selected }: CandidatesChartInput, theme: ChartTheme): EChartsCoreOption {
   if (!front.length && !page.length) return {};
   const axis = SIZE_AXES[by];
   const point = (r: CandidateRow, hollow: string): Point => ({
@@ -56,51 +57,54 @@ export function candidatesChartOptions({ front, page, by, selected }: Candidates
     ...(r.extrapolated ? { symbol: hollow } : {}),
   });
   const ordered = [...front].sort((a, b) => pointOf(a, by)[0] - pointOf(b, by)[0]);
-  return {
-    animation: false,
-    grid: { left: 56, right: 24, top: 40, bottom: 44 },
-    legend: { top: 0 },
-    tooltip: { trigger: 'item', formatter: (p: TooltipPoint) => candidateTooltip(p, axis.unit) },
-    // Log: the front spans two decades of size, and the small end, where the choice is made, would be crushed.
-    xAxis: {
-      type: 'log',
-      name: `${axis.name} (${axis.unit})`,
-      nameLocation: 'middle',
-      nameGap: 28,
-      min: (range: { min: number }) => roundNumber(range.min, 'down'),
-      max: (range: { max: number }) => roundNumber(range.max, 'up'),
-      axisLabel: { formatter: (value: number) => String(Number(value.toPrecision(3))) },
+  return themed(
+    {
+      animation: false,
+      grid: { left: 56, right: 24, top: 40, bottom: 44 },
+      legend: { top: 0 },
+      tooltip: { trigger: 'item', formatter: (p: TooltipPoint) => candidateTooltip(p, axis.unit) },
+      // Log: the front spans two decades of size, and the small end, where the choice is made, would be crushed.
+      xAxis: {
+        type: 'log',
+        name: `${axis.name} (${axis.unit})`,
+        nameLocation: 'middle',
+        nameGap: 28,
+        min: (range: { min: number }) => roundNumber(range.min, 'down'),
+        max: (range: { max: number }) => roundNumber(range.max, 'up'),
+        axisLabel: { formatter: (value: number) => String(Number(value.toPrecision(3))) },
+      },
+      yAxis: { type: 'value', name: 'Total loss (W)', scale: true },
+      series: [
+        {
+          type: 'line',
+          name: `Pareto front (${by === 'volume' ? 'loss vs core volume' : 'loss vs mass'})`,
+          data: ordered.map((r) => point(r, 'emptyDiamond')),
+          symbol: 'diamond',
+          symbolSize: 11,
+          z: 3,
+        },
+        { type: 'scatter', name: 'This page', data: page.filter((r) => !r.extrapolated).map((r) => point(r, 'circle')), symbolSize: 8 },
+        {
+          type: 'scatter',
+          name: EXTRAPOLATED_LEGEND,
+          data: page.filter((r) => r.extrapolated).map((r) => point(r, 'emptyCircle')),
+          symbol: 'emptyCircle',
+          symbolSize: 8,
+        },
+        {
+          type: 'scatter',
+          name: 'Selected',
+          data: selected ? [point(selected, 'circle')] : [],
+          symbolSize: 20,
+          symbol: 'circle',
+          itemStyle: { color: 'transparent', borderWidth: 3, borderColor: theme.error },
+          silent: true,
+          z: 5,
+        },
+      ],
     },
-    yAxis: { type: 'value', name: 'Total loss (W)', scale: true },
-    series: [
-      {
-        type: 'line',
-        name: `Pareto front (${by === 'volume' ? 'loss vs core volume' : 'loss vs mass'})`,
-        data: ordered.map((r) => point(r, 'emptyDiamond')),
-        symbol: 'diamond',
-        symbolSize: 11,
-        z: 3,
-      },
-      { type: 'scatter', name: 'This page', data: page.filter((r) => !r.extrapolated).map((r) => point(r, 'circle')), symbolSize: 8 },
-      {
-        type: 'scatter',
-        name: EXTRAPOLATED_LEGEND,
-        data: page.filter((r) => r.extrapolated).map((r) => point(r, 'emptyCircle')),
-        symbol: 'emptyCircle',
-        symbolSize: 8,
-      },
-      {
-        type: 'scatter',
-        name: 'Selected',
-        data: selected ? [point(selected, 'circle')] : [],
-        symbolSize: 20,
-        symbol: 'circle',
-        itemStyle: { color: 'transparent', borderWidth: 3, borderColor: '#d32f2f' },
-        silent: true,
-        z: 5,
-      },
-    ],
-  };
+    theme,
+  );
 }
 
 /** The nearest of 1, 2, 5 × 10ⁿ below or above `value`: round ends for a log axis whose ticks fall on decades. */

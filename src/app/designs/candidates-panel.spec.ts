@@ -136,7 +136,7 @@ describe('CandidatesPanel', () => {
 
     const options = () =>
       fixture.debugElement.query(By.directive(NgxEchartsDirective)).injector.get(NgxEchartsDirective).options() as {
-        series: { name: string; data: { name: string; symbol?: string }[] }[];
+        series: { name: string; data: { name: string; symbol?: string; itemStyle?: { borderWidth?: number } }[] }[];
       };
     const frontNames = () => options().series[0].data.map((p) => p.name.split(' · ')[0]);
     expect(frontNames()).toEqual(['Front V1', 'Front V7', 'Front V30']);
@@ -145,7 +145,22 @@ describe('CandidatesPanel', () => {
     button('Mass (2 points)').click();
     await fixture.whenStable();
     expect(frontNames()).toEqual(['Front M2', 'Front M40']);
-    expect(options().series[0].data.map((p) => p.symbol)).toEqual([undefined, 'emptyDiamond']);
+    expect(options().series[0].data.map((p) => p.symbol)).toEqual([undefined, 'diamond']);
+    expect(options().series[0].data.map((p) => p.itemStyle?.borderWidth)).toEqual([undefined, 2]);
+  });
+
+  it('says in place of the chart that no candidate meets every limit when nothing is feasible', async () => {
+    await render();
+    await searchAndAnswer(searchAnswer({ candidates: [], page: { offset: 0, limit: 20, total: 0 } }));
+
+    expect(fixture.debugElement.query(By.directive(NgxEchartsDirective))).toBeNull();
+    expect(host.querySelector('[data-testid="candidates-chart-empty"]')!.textContent).toContain(
+      'No candidate meets every limit, so there is nothing to plot',
+    );
+
+    await searchAndAnswer(searchAnswer({ candidates: page(0, 3) }));
+    expect(fixture.debugElement.query(By.directive(NgxEchartsDirective))).not.toBeNull();
+    expect(host.querySelector('[data-testid="candidates-chart-empty"]')).toBeNull();
   });
 
   it('shows the same part ground and on a spacer as two rows, and uses the one chosen', async () => {

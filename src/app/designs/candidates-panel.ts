@@ -10,6 +10,7 @@ import type { ECElementEvent, EChartsCoreOption, EChartsType } from 'echarts/cor
 import { NgxEchartsDirective } from 'ngx-echarts';
 import { Subject } from 'rxjs';
 
+import { ChartThemes } from '../charts/chart-theme';
 import { candidateRow, infeasibleRows, type CandidateRow } from './candidate-rows';
 import { IDLE_SEARCH, searchStates, type SearchQuery } from './candidate-search';
 import { CandidatesTable } from './candidates-table';
@@ -46,6 +47,7 @@ export const PAGE_SIZES = [20, 50, 100] as const;
 })
 export class CandidatesPanel {
   private readonly api = inject(DesignsApi);
+  private readonly chartTheme = inject(ChartThemes).current;
   readonly spec = input<DesignSpec | null>(null);
   readonly materials = input<MaterialView[]>([]);
   readonly picked = output<SearchCandidate>();
@@ -121,8 +123,10 @@ export class CandidatesPanel {
   });
 
   protected readonly chart = computed<EChartsCoreOption>(() =>
-    candidatesChartOptions({ front: this.front(), page: this.rows(), by: this.frontBy(), selected: this.selected() }),
+    candidatesChartOptions({ front: this.front(), page: this.rows(), by: this.frontBy(), selected: this.selected() }, this.chartTheme()),
   );
+  /** Whether the chart has anything to draw; with no candidate at all a message stands in its place. */
+  protected readonly plotted = computed(() => this.front().length > 0 || this.rows().length > 0);
   protected readonly pointPositions = signal<PointPosition[]>([]);
 
   /** A new search from the first page, with the spec as it is now. */

@@ -13,6 +13,7 @@ import { NgxEchartsDirective } from 'ngx-echarts';
 import { Subject, catchError, debounceTime, map, of, switchMap, tap } from 'rxjs';
 
 import { CautionLine } from '../caution-line/caution-line';
+import { ChartThemes, themed } from '../charts/chart-theme';
 import { errorMessageOf } from '../core/api-error';
 import { QuantityPipe } from '../units/quantity';
 import { QuantityInput } from '../units/quantity-input';
@@ -53,6 +54,7 @@ export const GAP_LOSS_WORDS = "Winding loss from the gap's field";
 })
 export class DesignPanel {
   private readonly api = inject(DesignsApi);
+  private readonly chartTheme = inject(ChartThemes).current;
   protected readonly cores = inject(CoresApi).listResource();
   readonly spec = input<DesignSpec | null>(null);
   readonly construction = input<Construction | null>(null);
@@ -266,61 +268,69 @@ export class DesignPanel {
   private readonly lossChart = computed<EChartsCoreOption>(() => {
     const r = this.result();
     if (!r) return {};
-    return {
-      animation: false,
-      grid: { left: 56, right: 16, top: 16, bottom: 32 },
-      tooltip: { trigger: 'axis' },
-      xAxis: { type: 'category', data: ['Copper DC', 'Copper AC', 'Gap field', 'Core (iGSE)', 'Total'], axisLabel: { interval: 0 } },
-      yAxis: { type: 'value', name: 'W' },
-      series: [
-        {
-          type: 'bar',
-          data: [r.copper.dcLoss, r.copper.acLoss, r.copper.gapLoss ?? 0, r.coreLoss.loss, r.totalLoss],
-          label: { show: true, position: 'top', formatter: (p: { value: number }) => p.value.toFixed(3) },
-        },
-      ],
-    };
+    return themed(
+      {
+        animation: false,
+        grid: { left: 56, right: 16, top: 16, bottom: 32 },
+        tooltip: { trigger: 'axis' },
+        xAxis: { type: 'category', data: ['Copper DC', 'Copper AC', 'Gap field', 'Core (iGSE)', 'Total'], axisLabel: { interval: 0 } },
+        yAxis: { type: 'value', name: 'W' },
+        series: [
+          {
+            type: 'bar',
+            data: [r.copper.dcLoss, r.copper.acLoss, r.copper.gapLoss ?? 0, r.coreLoss.loss, r.totalLoss],
+            label: { show: true, position: 'top', formatter: (p: { value: number }) => p.value.toFixed(3) },
+          },
+        ],
+      },
+      this.chartTheme(),
+    );
   });
 
   private readonly fluxChart = computed<EChartsCoreOption>(() => {
     const r = this.result();
     if (!r) return {};
     const f = r.flux;
-    return {
-      animation: false,
-      grid: { left: 56, right: 90, top: 16, bottom: 32 },
-      tooltip: { trigger: 'axis' },
-      xAxis: { type: 'category', data: ['DC', 'Valley', 'Peak (load)', 'Peak (limit)'], axisLabel: { interval: 0 } },
-      yAxis: { type: 'value', name: 'T', max: Math.ceil(Math.max(f.saturationAtHotSpot, f.peakAtMinimumSection) * 11) / 10 },
-      series: [
-        {
-          type: 'bar',
-          name: 'Flux density',
-          data: [f.dc, Math.max(0, f.dc - f.swing / 2), f.dc + f.swing / 2, f.peakAtMinimumSection],
-          markLine: {
-            symbol: 'none',
-            data: [
-              {
-                yAxis: f.saturationAtHotSpot,
-                name: 'Bsat hot',
-                label: { formatter: `Bsat at ${Math.round(Math.min(r.thermal.hotSpot, THERMAL_MODEL_LIMIT))} °C` },
-              },
-              {
-                yAxis: f.saturationAtHotSpot * (1 - f.requiredMargin),
-                name: 'limit',
-                label: { formatter: 'with margin' },
-                lineStyle: { type: 'dotted' },
-              },
-            ],
+    const theme = this.chartTheme();
+    return themed(
+      {
+        animation: false,
+        grid: { left: 56, right: 90, top: 16, bottom: 32 },
+        tooltip: { trigger: 'axis' },
+        xAxis: { type: 'category', data: ['DC', 'Valley', 'Peak (load)', 'Peak (limit)'], axisLabel: { interval: 0 } },
+        yAxis: { type: 'value', name: 'T', max: Math.ceil(Math.max(f.saturationAtHotSpot, f.peakAtMinimumSection) * 11) / 10 },
+        series: [
+          {
+            type: 'bar',
+            name: 'Flux density',
+            data: [f.dc, Math.max(0, f.dc - f.swing / 2), f.dc + f.swing / 2, f.peakAtMinimumSection],
+            markLine: {
+              symbol: 'none',
+              data: [
+                {
+                  yAxis: f.saturationAtHotSpot,
+                  name: 'Bsat hot',
+                  label: { formatter: `Bsat at ${Math.round(Math.min(r.thermal.hotSpot, THERMAL_MODEL_LIMIT))} °C` },
+                  lineStyle: { color: theme.error },
+                },
+                {
+                  yAxis: f.saturationAtHotSpot * (1 - f.requiredMargin),
+                  name: 'limit',
+                  label: { formatter: 'with margin' },
+                  lineStyle: { type: 'dotted', color: theme.error },
+                },
+              ],
+            },
           },
-        },
-      ],
-    };
+        ],
+      },
+      theme,
+    );
   });
 
   private readonly frequencyChart = computed(() =>
-    frequencyChartOptions(this.view()?.lossVersusFrequency ?? [], this.spec()?.converter.frequency),
+    frequencyChartOptions(this.view()?.lossVersusFrequency ?? [], this.chartTheme(), this.spec()?.converter.frequency),
   );
-  private readonly loadMapChart = computed(() => loadMapChartOptions(this.view()?.lossMap));
+  private readonly loadMapChart = computed(() => loadMapChartOptions(this.view()?.lossMap, this.chartTheme()));
   private readonly frequencyLabel = computed(() => frequencyChartLabel(this.view()?.lossVersusFrequency ?? []));
 }

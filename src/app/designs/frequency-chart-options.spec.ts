@@ -2,6 +2,9 @@ import { describe, expect, it } from 'vitest';
 import type { LossAtFrequency } from '@shared/engine/evaluate';
 
 import { INFEASIBLE_LEGEND, frequencyChartLabel, frequencyChartOptions } from './frequency-chart-options';
+import { FALLBACK_COLOURS, chartTheme } from '../charts/chart-theme';
+
+const LIGHT = chartTheme(FALLBACK_COLOURS.light, 'light');
 
 const point = (frequency: number, feasible: boolean): LossAtFrequency => ({
   frequency,
@@ -20,11 +23,12 @@ interface Series {
   data: unknown[];
   lineStyle?: { type?: string };
   symbol?: string;
+  itemStyle?: object;
 }
 
 describe('loss-versus-frequency chart', () => {
   const sweep = [point(25e3, false), point(50e3, true), point(100e3, true)];
-  const options = frequencyChartOptions(sweep, 100e3) as { series: Series[] };
+  const options = frequencyChartOptions(sweep, LIGHT, 100e3) as { series: Series[] };
 
   it('draws the total solid where the part is feasible and dashed from the neighbouring point into the infeasible one', () => {
     const [solid, dashed] = options.series.filter((s) => s.name === 'Total');
@@ -42,15 +46,16 @@ describe('loss-versus-frequency chart', () => {
 
   it('rings each infeasible point and names it in the legend and the description', () => {
     const marks = options.series.find((s) => s.name === INFEASIBLE_LEGEND);
-    expect(marks?.symbol).toBe('emptyCircle');
+    expect(marks?.symbol).toBe('circle');
+    expect(marks?.itemStyle).toEqual({ color: LIGHT.surface, borderColor: LIGHT.error, borderWidth: 2 });
     expect(marks?.data).toEqual([[25, 1.3]]);
     expect(frequencyChartLabel(sweep)).toMatch(/; not feasible at 25 kHz$/);
   });
 
   it('adds no legend entry when the part is feasible everywhere', () => {
-    const fine = frequencyChartOptions([point(50e3, true), point(100e3, true)]) as { series: Series[] };
+    const fine = frequencyChartOptions([point(50e3, true), point(100e3, true)], LIGHT) as { series: Series[] };
     expect(fine.series.some((s) => s.name === INFEASIBLE_LEGEND)).toBe(false);
     expect(frequencyChartLabel([point(50e3, true)])).not.toMatch(/not feasible/);
-    expect(frequencyChartOptions([])).toEqual({});
+    expect(frequencyChartOptions([], LIGHT)).toEqual({});
   });
 });

@@ -2,17 +2,23 @@ import type { LossAtFrequency } from '@shared/engine/evaluate';
 import { axisIn } from '@shared/units/index';
 import type { EChartsCoreOption } from 'echarts/core';
 
+import { themed, type ChartTheme } from '../charts/chart-theme';
 import { splitByFlag } from '../charts/split-series';
 
-const COLOURS = { total: '#5470c6', copper: '#91cc75', core: '#fac858', infeasible: '#ba1a1a' };
 export const INFEASIBLE_LEGEND = 'Not feasible here (saturates or overheats)';
 
 /**
  * Loss of one built part against switching frequency, in kHz on a log axis. Where the part is not feasible (it
  * saturates or runs too hot) the curves turn dashed and the total carries a hollow red ring, named in the legend.
  */
-export function frequencyChartOptions(sweep: readonly LossAtFrequency[], switchingFrequency?: number): EChartsCoreOption {
+export function frequencyChartOptions(
+  sweep: readonly LossAtFrequency[],
+  theme: ChartTheme,
+  switchingFrequency?: number,
+): EChartsCoreOption {
   if (!sweep.length) return {};
+  // Total in the text colour, the strongest; copper in the copper primary; core in tertiary.
+  const [totalColour, copperColour, coreColour] = [theme.text, theme.series[0], theme.series[1]];
   const x = axisIn('kHz');
   const curve = (name: string, colour: string, pick: (p: LossAtFrequency) => number) => {
     const { plain, flagged } = splitByFlag(sweep.map((p) => ({ x: x.toAxis(p.frequency), y: pick(p), flagged: !p.feasible })));
@@ -30,7 +36,7 @@ export function frequencyChartOptions(sweep: readonly LossAtFrequency[], switchi
       },
     ];
   };
-  const [total, totalDashed] = curve('Total', COLOURS.total, (p) => p.total);
+  const [total, totalDashed] = curve('Total', totalColour!, (p) => p.total);
   const infeasible = sweep.filter((p) => !p.feasible);
   const series: object[] = [
     {
@@ -41,8 +47,8 @@ export function frequencyChartOptions(sweep: readonly LossAtFrequency[], switchi
     },
     totalDashed!,
     // Copper: DC, the ripple's Dowell loss and the gap's fringing-field loss in the winding.
-    ...curve('Copper', COLOURS.copper, (p) => p.copperDc + p.copperAc + p.copperGap),
-    ...curve('Core', COLOURS.core, (p) => p.core),
+    ...curve('Copper', copperColour!, (p) => p.copperDc + p.copperAc + p.copperGap),
+    ...curve('Core', coreColour!, (p) => p.core),
   ];
   if (infeasible.length) {
     series.push({
@@ -50,27 +56,30 @@ export function frequencyChartOptions(sweep: readonly LossAtFrequency[], switchi
       name: INFEASIBLE_LEGEND,
       symbol: 'emptyCircle',
       symbolSize: 12,
-      itemStyle: { color: COLOURS.infeasible, borderWidth: 2 },
+      itemStyle: { color: theme.error, borderWidth: 2 },
       data: infeasible.map((p) => [x.toAxis(p.frequency), p.total]),
     });
   }
-  return {
-    animation: false,
-    grid: { left: 56, right: 16, top: infeasible.length ? 56 : 32, bottom: 40 },
-    legend: { top: 0 },
-    tooltip: { trigger: 'axis' },
-    xAxis: {
-      type: 'log',
-      name: x.unit,
-      nameLocation: 'middle',
-      nameGap: 24,
-      min: x.toAxis(sweep[0]!.frequency),
-      max: x.toAxis(sweep.at(-1)!.frequency),
-      axisLabel: { formatter: (v: number) => String(Math.round(v)) },
+  return themed(
+    {
+      animation: false,
+      grid: { left: 56, right: 16, top: infeasible.length ? 56 : 32, bottom: 40 },
+      legend: { top: 0 },
+      tooltip: { trigger: 'axis' },
+      xAxis: {
+        type: 'log',
+        name: x.unit,
+        nameLocation: 'middle',
+        nameGap: 24,
+        min: x.toAxis(sweep[0]!.frequency),
+        max: x.toAxis(sweep.at(-1)!.frequency),
+        axisLabel: { formatter: (v: number) => String(Math.round(v)) },
+      },
+      yAxis: { type: 'value', name: 'W' },
+      series,
     },
-    yAxis: { type: 'value', name: 'W' },
-    series,
-  };
+    theme,
+  );
 }
 
 /** The chart's accessible description, naming the frequencies where the part is not feasible. */

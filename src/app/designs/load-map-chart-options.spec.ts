@@ -2,6 +2,9 @@ import { describe, expect, it } from 'vitest';
 import type { LoadPoint, LossMap } from '@shared/engine/load-map';
 
 import { DCM_LEGEND, loadMapChartLabel, loadMapChartOptions } from './load-map-chart-options';
+import { FALLBACK_COLOURS, chartTheme } from '../charts/chart-theme';
+
+const LIGHT = chartTheme(FALLBACK_COLOURS.light, 'light');
 
 const point = (corner: LoadPoint['corner'], loadFraction: number, mode: LoadPoint['mode']): LoadPoint => ({
   corner,
@@ -34,7 +37,7 @@ interface Series {
 }
 
 describe('loss map chart', () => {
-  const options = loadMapChartOptions(map) as { series: Series[] };
+  const options = loadMapChartOptions(map, LIGHT) as { series: Series[] };
 
   it('draws each input voltage as a solid loss line and a dashed share line on the right axis, in % load', () => {
     const loss = options.series.find((s) => s.name === 'Vin max loss')!;
@@ -54,7 +57,7 @@ describe('loss map chart', () => {
   });
 
   it('says the map is missing rather than drawing nothing silently', () => {
-    expect(loadMapChartOptions(undefined)).toEqual({});
+    expect(loadMapChartOptions(undefined, LIGHT)).toEqual({});
     expect(loadMapChartLabel(undefined)).toBe('Loss map not computed');
   });
 });

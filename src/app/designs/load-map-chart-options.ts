@@ -1,10 +1,12 @@
 import type { LossMap } from '@shared/engine/load-map';
 import type { EChartsCoreOption } from 'echarts/core';
 
+import { themed, type ChartTheme } from '../charts/chart-theme';
+
 const CORNERS = [
-  { corner: 'min', label: 'Vin min', colour: '#5470c6' },
-  { corner: 'nominal', label: 'Vin nominal', colour: '#3ba272' },
-  { corner: 'max', label: 'Vin max', colour: '#ee6666' },
+  { corner: 'min', label: 'Vin min' },
+  { corner: 'nominal', label: 'Vin nominal' },
+  { corner: 'max', label: 'Vin max' },
 ] as const;
 export const DCM_LEGEND = 'Discontinuous conduction';
 
@@ -14,12 +16,12 @@ const percent = (fraction: number) => Math.round(fraction * 100);
  * The loss map: the inductor's total loss (solid, left axis, W) and its share of the output power (dashed, right axis,
  * %) from 10 % to 100 % load, one colour per input voltage. Points in discontinuous conduction carry a hollow ring.
  */
-export function loadMapChartOptions(map: LossMap | undefined): EChartsCoreOption {
+export function loadMapChartOptions(map: LossMap | undefined, theme: ChartTheme): EChartsCoreOption {
   if (!map?.points.length) return {};
   const series: object[] = [];
-  for (const { corner, label, colour } of CORNERS) {
+  for (const [i, { corner, label }] of CORNERS.entries()) {
     const points = map.points.filter((p) => p.corner === corner);
-    const style = { color: colour };
+    const style = { color: theme.series[i] };
     series.push(
       {
         type: 'line',
@@ -46,22 +48,25 @@ export function loadMapChartOptions(map: LossMap | undefined): EChartsCoreOption
       name: DCM_LEGEND,
       symbol: 'emptyCircle',
       symbolSize: 11,
-      itemStyle: { color: '#6e7079', borderWidth: 2 },
+      itemStyle: { color: theme.secondaryText, borderWidth: 2 },
       data: dcm.map((p) => [percent(p.loadFraction), p.total]),
     });
   }
-  return {
-    animation: false,
-    grid: { left: 56, right: 56, top: 64, bottom: 40 },
-    legend: { top: 0 },
-    tooltip: { trigger: 'axis' },
-    xAxis: { type: 'value', name: '% load', nameLocation: 'middle', nameGap: 24, min: 10, max: 100 },
-    yAxis: [
-      { type: 'value', name: 'W' },
-      { type: 'value', name: '% of Pout', splitLine: { show: false } },
-    ],
-    series,
-  };
+  return themed(
+    {
+      animation: false,
+      grid: { left: 56, right: 56, top: 64, bottom: 40 },
+      legend: { top: 0 },
+      tooltip: { trigger: 'axis' },
+      xAxis: { type: 'value', name: '% load', nameLocation: 'middle', nameGap: 24, min: 10, max: 100 },
+      yAxis: [
+        { type: 'value', name: 'W' },
+        { type: 'value', name: '% of Pout', splitLine: { show: false } },
+      ],
+      series,
+    },
+    theme,
+  );
 }
 
 /** The chart's accessible description: the range of the share and where the converter leaves CCM. */

@@ -8,6 +8,7 @@ import type { EChartsCoreOption } from 'echarts/core';
 import { NgxEchartsDirective } from 'ngx-echarts';
 import { catchError, debounceTime, distinctUntilChanged, map, of, startWith, switchMap } from 'rxjs';
 
+import { ChartThemes, themed } from '../charts/chart-theme';
 import { errorMessageOf } from '../core/api-error';
 import { DesignsApi } from './designs-api';
 import { percent, show } from './format';
@@ -75,6 +76,7 @@ type OpState =
 })
 export class OperatingPointPanel {
   private readonly api = inject(DesignsApi);
+  private readonly chartTheme = inject(ChartThemes).current;
   readonly spec = input<DesignSpec | null>(null);
 
   protected readonly state = toSignal(
@@ -124,21 +126,25 @@ export class OperatingPointPanel {
       points.push([time.toAxis(k * period), op.valleyCurrent], [time.toAxis((k + d) * period), op.peakCurrent]);
     }
     points.push([time.toAxis(2 * period), op.valleyCurrent]);
-    return {
-      animation: false,
-      grid: { left: 48, right: 16, top: 24, bottom: 36 },
-      tooltip: { trigger: 'axis' },
-      xAxis: { type: 'value', name: time.unit, nameLocation: 'middle', nameGap: 24, max: time.toAxis(2 * period) },
-      yAxis: { type: 'value', name: 'A', scale: true },
-      series: [
-        {
-          type: 'line',
-          name: 'Inductor current',
-          data: points,
-          showSymbol: false,
-          markLine: { symbol: 'none', data: [{ yAxis: spec.converter.ioutMax, name: 'Iout' }], label: { formatter: 'Iout' } },
-        },
-      ],
-    };
+    return themed(
+      {
+        animation: false,
+        // Right: room for the Iout line's label beyond the plot.
+        grid: { left: 48, right: 40, top: 24, bottom: 36 },
+        tooltip: { trigger: 'axis' },
+        xAxis: { type: 'value', name: time.unit, nameLocation: 'middle', nameGap: 24, max: time.toAxis(2 * period) },
+        yAxis: { type: 'value', name: 'A', scale: true },
+        series: [
+          {
+            type: 'line',
+            name: 'Inductor current',
+            data: points,
+            showSymbol: false,
+            markLine: { symbol: 'none', data: [{ yAxis: spec.converter.ioutMax, name: 'Iout' }], label: { formatter: 'Iout' } },
+          },
+        ],
+      },
+      this.chartTheme(),
+    );
   });
 }

@@ -2,6 +2,9 @@ import { describe, expect, it } from 'vitest';
 
 import { fitChartOptions, frequencyLabel, residualChartOptions } from './fit-chart-options';
 import { FIT, POINTS } from './fit-fixture';
+import { FALLBACK_COLOURS, chartTheme } from '../charts/chart-theme';
+
+const LIGHT = chartTheme(FALLBACK_COLOURS.light, 'light');
 
 interface Series {
   name: string;
@@ -14,7 +17,7 @@ const seriesOf = (options: unknown) => (options as { series: Series[] }).series;
 
 describe('fitChartOptions', () => {
   it('draws the measured points as markers and the fitted curve as a line for each frequency, in mT and kW/m³', () => {
-    const series = seriesOf(fitChartOptions(POINTS, FIT, false));
+    const series = seriesOf(fitChartOptions(POINTS, FIT, LIGHT));
     const scatter = series.filter((s) => s.type === 'scatter');
     const lines = series.filter((s) => s.type === 'line');
 
@@ -34,20 +37,23 @@ describe('fitChartOptions', () => {
   });
 
   it('draws both axes logarithmic', () => {
-    const options = fitChartOptions(POINTS, FIT, true) as { xAxis: { type: string }; yAxis: { type: string } };
+    const options = fitChartOptions(POINTS, FIT, chartTheme(FALLBACK_COLOURS.dark, 'dark')) as {
+      xAxis: { type: string };
+      yAxis: { type: string };
+    };
     expect([options.xAxis.type, options.yAxis.type]).toEqual(['log', 'log']);
   });
 
   it('dashes a curve at a second temperature of the same frequency', () => {
     const hot = { ...FIT, curves: [...FIT.curves, { ...FIT.curves[0], temperature: 100 }] };
-    const lines = seriesOf(fitChartOptions(POINTS, hot, false)).filter((s) => s.type === 'line');
+    const lines = seriesOf(fitChartOptions(POINTS, hot, LIGHT)).filter((s) => s.type === 'line');
     expect(lines.map((s) => s.lineStyle?.type)).toEqual(['solid', 'solid', 'dashed']);
   });
 });
 
 describe('residualChartOptions', () => {
   it('plots each point’s relative error in percent against its peak flux, per frequency', () => {
-    const series = seriesOf(residualChartOptions(POINTS, FIT, false));
+    const series = seriesOf(residualChartOptions(POINTS, FIT, LIGHT));
     expect(series.map((s) => s.name)).toEqual(['100 kHz', '200 kHz']);
     expect(series[0].data).toEqual([
       [50, 5],

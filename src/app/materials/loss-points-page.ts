@@ -11,7 +11,7 @@ import { NgxEchartsDirective } from 'ngx-echarts';
 import type { Observable } from 'rxjs';
 
 import { Notifier } from '../core/notifier';
-import { ThemeSwitcher } from '../core/theme-switcher';
+import { ChartThemes } from '../charts/chart-theme';
 import { fitChartOptions, residualChartOptions } from './fit-chart-options';
 import { FitResult } from './fit-result';
 import { LossPointUpload } from './loss-point-upload';
@@ -45,7 +45,7 @@ export class LossPointsPage {
   private readonly api = inject(LossPointsApi);
   private readonly notifier = inject(Notifier);
   private readonly router = inject(Router);
-  private readonly theme = inject(ThemeSwitcher);
+  private readonly chartTheme = inject(ChartThemes).current;
 
   /** The material version's id, from the route. */
   readonly id = input.required<string>();
@@ -65,14 +65,13 @@ export class LossPointsPage {
   protected readonly busy = signal(false);
   /** The server's refusal, by field (its one error shape), shown beside the fit options. */
   protected readonly failure = signal<RequestFailure | null>(null);
-  private readonly dark = computed(() => this.theme.theme() === 'dark');
   protected readonly fitChart = computed(() => {
     const fit = this.fit();
-    return fit ? fitChartOptions(this.points(), fit, this.dark()) : null;
+    return fit ? fitChartOptions(this.points(), fit, this.chartTheme()) : null;
   });
   protected readonly residualChart = computed(() => {
     const fit = this.fit();
-    return fit ? residualChartOptions(this.points(), fit, this.dark()) : null;
+    return fit ? residualChartOptions(this.points(), fit, this.chartTheme()) : null;
   });
 
   protected onCommitted(result: LossPointCommit): void {

@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, effect, viewChild } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, viewChild } from '@angular/core';
 import { MatPaginator, MatPaginatorModule } from '@angular/material/paginator';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSort, MatSortModule } from '@angular/material/sort';
@@ -9,6 +9,7 @@ import { NgxEchartsDirective } from 'ngx-echarts';
 
 import { endpointResource } from '../core/api';
 import { QuantityPipe } from '../units/quantity';
+import { ChartThemes, themed } from '../charts/chart-theme';
 import { accuracyChartOptions } from './accuracy-chart';
 
 /** Every built unit's measurements against the frozen prediction, and the prediction error by material and by core. */
@@ -44,7 +45,8 @@ export class PredictionAccuracy {
   private readonly resource = endpointResource(predictionReport, () => ({}));
   protected readonly report = computed(() => (this.resource.hasValue() ? this.resource.value() : null));
   protected readonly loading = this.resource.isLoading;
-  protected readonly chartOptions = computed(() => accuracyChartOptions(this.report()?.units ?? []));
+  private readonly chartTheme = inject(ChartThemes).current;
+  protected readonly chartOptions = computed(() => themed(accuracyChartOptions(this.report()?.units ?? []), this.chartTheme()));
   protected readonly unitColumns = [
     'orderNumber',
     'designNumber',
