@@ -2,6 +2,7 @@
 // made up for the demo; the designs are the engine's best candidates over the demo (illustrative) materials.
 import { and, eq } from 'drizzle-orm';
 import { ENGINE_VERSION, searchCandidates, type ConverterSpec } from '@shared/engine/index';
+import { gapInputOf } from '@shared/engine/types';
 import { wireRequestOf, type DesignSpec, type StoredResult } from '@shared/schemas/designs';
 import { CatalogueService } from '../catalogue/catalogue.service.ts';
 import type { Db } from '../db/client.ts';
@@ -117,7 +118,11 @@ export async function seedDemoDesigns(tx: Tx): Promise<number> {
             coreId: best.result.core.id,
             materialId: best.result.material.id,
             turns: best.result.turns,
-            gap: best.result.gap.total,
+            // As a saved construction holds it (construction-evaluator.ts): the ground gap or the spacer thickness,
+            // with its placement and the keep-out the search chose, so reopening the design evaluates the same part.
+            gap: gapInputOf(best.result.gap),
+            placement: best.result.gap.placement,
+            ...(best.result.winding.keepOut !== undefined ? { keepOut: best.result.winding.keepOut } : {}),
             wire: wireRequestOf(best.wire),
           }
         : null,

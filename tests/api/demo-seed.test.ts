@@ -1,7 +1,8 @@
 import { inArray, sql } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { appSettings } from '../../server/db/schema.ts';
+import { appSettings, designRevisions } from '../../server/db/schema.ts';
 import { seedDemoOnce } from '../../server/seed/seed-demo.ts';
+import { signedInAs } from './support/api-client.ts';
 import { createTestApp, tableCount, type TestApp } from './support/test-app.ts';
 
 let t: TestApp;
@@ -15,6 +16,26 @@ describe('the demo scenario', () => {
     expect(await tableCount(t.db, 'users')).toBe(5);
     expect(await tableCount(t.db, 'materials')).toBe(5);
     expect(await tableCount(t.db, 'designs')).toBe(3);
+  });
+
+  it('stores each demo design as a construction that evaluates to its stored part again (placement, spacer, keep-out)', async () => {
+    // Before: a spacer design was stored with its magnetic-path total as a ground gap, so reopening it evaluated
+    // another part (less inductance, every point of its frequency sweep not feasible).
+    const erin = await signedInAs(t.app, 'engineer');
+    const revisions = await t.db.select().from(designRevisions);
+    const built = revisions.filter((r) => r.construction && r.result);
+    expect(built.length).toBeGreaterThan(0);
+    for (const revision of built) {
+      const spec = revision.spec as { converter: unknown; limits?: unknown };
+      const construction = revision.construction as Record<string, unknown>;
+      const stored = (revision.result as { evaluation: { totalLoss: number; gap: { placement: string }; inductance: { nominal: number } } })
+        .evaluation;
+      const again = await erin.post('/api/calc/evaluate', { spec: spec.converter, limits: spec.limits, ...construction });
+      expect(again.status).toBe(200);
+      expect(again.body.result.gap.placement).toBe(stored.gap.placement);
+      expect(again.body.result.inductance.nominal / stored.inductance.nominal).toBeCloseTo(1, 9);
+      expect(again.body.result.totalLoss / stored.totalLoss).toBeCloseTo(1, 9);
+    }
   });
 
   it('fills in the parts an installation seeded by an older version lacks, and never seeds twice', async () => {
