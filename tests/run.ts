@@ -93,8 +93,8 @@ async function vitestProject(project: string, env: NodeJS.ProcessEnv = {}): Prom
 /**
  * A project's files in shards that run side by side, each shard with a database of its own (files in one shard run one
  * after another, as they truncate and reseed their database). Much of an API or browser file's time is waiting (bcrypt,
- * a server process starting, PostgreSQL stopping and starting, Chromium rendering in its own processes), so two shards
- * fit two cores.
+ * a server process starting, PostgreSQL stopping and starting, Chromium rendering in its own processes), so two or
+ * three shards fit two cores.
  */
 async function shardedTests(project: 'api' | 'browser', shardCount: number): Promise<void> {
   const shards = Array.from({ length: shardCount }, (_, i) => {
@@ -112,7 +112,7 @@ async function shardedTests(project: 'api' | 'browser', shardCount: number): Pro
     },
   );
 }
-const API_SHARDS = Math.max(1, Number(process.env['TEST_API_SHARDS'] ?? 2));
+const API_SHARDS = Math.max(1, Number(process.env['TEST_API_SHARDS'] ?? 3));
 const BROWSER_SHARDS = Math.max(1, Number(process.env['TEST_BROWSER_SHARDS'] ?? 2));
 
 // Strict TypeScript over every part of the tree, one check per configuration.

@@ -61,6 +61,9 @@ export async function startServerProcess(databaseUrl: string, env: Record<string
     if (child.exitCode !== null) break;
     await new Promise((r) => setTimeout(r, 200));
   }
+  const code = child.exitCode;
   child.kill('SIGKILL');
-  throw new Error('the server process did not come up');
+  throw new Error(
+    `the server process did not come up (${code === null ? 'no answer within 40 s' : `exited with ${code}`}); its stderr ended: ${stderrTail() || '(nothing)'}`,
+  );
 }
