@@ -25,27 +25,17 @@ interface Counts {
 const totals: Record<string, Counts> = {};
 const seconds: Record<string, number> = {};
 
-/**
- * Whether a command's output goes to the terminal as it comes. Suites that run side by side (see STAGES) keep theirs
- * and print it whole when they end, so their lines do not interleave.
- */
-let live = true;
-
 function run(cmd: string, args: string[], env: NodeJS.ProcessEnv = {}): Promise<{ code: number; output: string }> {
-  const forwardLive = live;
   return new Promise((resolve) => {
     const child = spawn(cmd, args, { cwd: repoRoot, env: { ...process.env, ...env }, stdio: ['ignore', 'pipe', 'pipe'] });
     let output = '';
     const forward = (chunk: Buffer, to: NodeJS.WriteStream) => {
       output += chunk.toString();
-      if (forwardLive) to.write(chunk);
+      to.write(chunk);
     };
     child.stdout.on('data', (c: Buffer) => forward(c, process.stdout));
     child.stderr.on('data', (c: Buffer) => forward(c, process.stderr));
-    child.on('close', (code) => {
-      if (!forwardLive) process.stdout.write(output);
-      resolve({ code: code ?? 1, output });
-    });
+    child.on('close', (code) => resolve({ code: code ?? 1, output }));
   });
 }
 
@@ -94,7 +84,9 @@ async function vitestProject(project: string, env: NodeJS.ProcessEnv = {}): Prom
  * A project's files in shards that run side by side, each shard with a database of its own (files in one shard run one
  * after another, as they truncate and reseed their database). Much of an API or browser file's time is waiting (bcrypt,
  * a server process starting, PostgreSQL stopping and starting, Chromium rendering in its own processes), so two or
- * three shards fit two cores.
+ * three shards fit two cores. Suites themselves run one after another: side by side on two cores they gained nothing
+ * (type check beside lint 88 s against 64 s) or starved each other (the unit suite's meshes beside the API's field
+ * checks; the component suite beside the browser build).
  */
 async function shardedTests(project: 'api' | 'browser', shardCount: number): Promise<void> {
   const shards = Array.from({ length: shardCount }, (_, i) => {
@@ -195,41 +187,30 @@ function throwawayDatabase(suite: string): { url: string; drop: () => void } {
   return { url: cluster.urlFor(name), drop: () => dropDatabase(name) };
 }
 
-/**
- * Suites that run side by side: each stage's suites start together and the next stage waits for them. Only the
- * component suite runs beside another, the browser shards, which spend most of their time waiting on servers and
- * Chromium. CPU suites side by side gain nothing on two cores (type check beside lint: 88 s against 64 s one after
- * the other), and the unit suite's field-solver meshes beside the API shards starved the API's field checks past
- * their deadline.
- */
-const STAGES: Suite[][] = [['types'], ['lint'], ['unit'], ['api'], ['component', 'browser']];
-
-async function runSuite(suite: Suite): Promise<void> {
-  const suiteStarted = Date.now();
-  if (suite === 'types') await typeChecks();
-  if (suite === 'lint') await lintChecks();
-  if (suite === 'unit') await vitestProject('unit');
-  if (suite === 'component') await componentTests();
-  if (suite === 'api') await shardedTests('api', API_SHARDS);
-  if (suite === 'browser') {
-    ensureClientBuild(repoRoot, 'dist/gapwright/browser/index.html');
-    await shardedTests('browser', BROWSER_SHARDS);
-  }
-  seconds[suite] = (Date.now() - suiteStarted) / 1000;
-  process.stdout.write(`=== ${suite} tests done (${seconds[suite].toFixed(0)} s) ===\n`);
-}
-
 mkdirSync(resultsDir, { recursive: true });
 const started = Date.now();
 const cleanups: (() => void)[] = [];
 try {
-  if (suites.some((suite) => suite === 'unit' || suite === 'api' || suite === 'browser')) ensureDebianTools();
-  for (const stage of STAGES) {
-    const now = stage.filter((suite) => suites.includes(suite));
-    if (!now.length) continue;
-    process.stdout.write(`\n=== ${now.join(' and ')} tests${now.length > 1 ? ' (side by side; each prints when it ends)' : ''} ===\n`);
-    live = now.length === 1;
-    await Promise.all(now.map(runSuite));
+  for (const suite of suites) {
+    process.stdout.write(`\n=== ${suite} tests ===\n`);
+    const suiteStarted = Date.now();
+    if (suite === 'types') await typeChecks();
+    if (suite === 'lint') await lintChecks();
+    if (suite === 'unit') {
+      ensureDebianTools();
+      await vitestProject('unit');
+    }
+    if (suite === 'component') await componentTests();
+    if (suite === 'api') {
+      ensureDebianTools();
+      await shardedTests('api', API_SHARDS);
+    }
+    if (suite === 'browser') {
+      ensureDebianTools();
+      ensureClientBuild(repoRoot, 'dist/gapwright/browser/index.html');
+      await shardedTests('browser', BROWSER_SHARDS);
+    }
+    seconds[suite] = (Date.now() - suiteStarted) / 1000;
   }
 } finally {
   for (const drop of cleanups) {

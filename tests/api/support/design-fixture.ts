@@ -20,10 +20,22 @@ let counter = 0;
  * A design with one draft revision holding a real engine result (the best search candidate over
  * the demo materials), written straight to the tables so review tests do not depend on the workspace API.
  */
-export async function insertEvaluatedDesign(t: TestApp, ownerUsername: string, extraSpec: Record<string, unknown> = {}) {
+export async function insertEvaluatedDesign(
+  t: TestApp,
+  ownerUsername: string,
+  extraSpec: Record<string, unknown> = {},
+  choice: { rankBy?: 'loss' | 'smallest'; gapPlacements?: ('ground' | 'spacer')[] } = {},
+) {
   const [owner] = await t.db.select().from(users).where(eq(users.username, ownerUsername));
   const materialIds = (await t.services.materials.listCurrent()).map((m) => String(m.id));
-  const search = await t.services.calc.search({ spec: EXAMPLE_SPEC, materialIds, rankBy: 'loss', offset: 0, limit: 1 });
+  const search = await t.services.calc.search({
+    spec: EXAMPLE_SPEC,
+    ...(choice.gapPlacements ? { limits: { gapPlacements: choice.gapPlacements } } : {}),
+    materialIds,
+    rankBy: choice.rankBy ?? 'loss',
+    offset: 0,
+    limit: 1,
+  });
   const best = search.candidates[0];
   if (!best) throw new Error('the example spec found no feasible candidate');
   counter += 1;
