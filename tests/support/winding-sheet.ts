@@ -4,7 +4,13 @@ import type { CoreShape, WireOption } from '@shared/engine/types';
 import type { WindingSheet } from '@shared/shop/sheet';
 import { buildWindingSheet } from '../../server/shop/winding-sheet.ts';
 
-export function testSheet(result: EvaluationResult, wire: WireOption, core: CoreShape | undefined, title = 'test part'): WindingSheet {
+export function testSheet(
+  result: EvaluationResult,
+  wire: WireOption,
+  core: CoreShape | undefined,
+  title = 'test part',
+  insulation: { required: boolean } = { required: false },
+): WindingSheet {
   return buildWindingSheet({
     design: { number: 'GW-0001', title },
     revision: { revision: 1, engineVersion: 'test', inductanceTolerance: 0.1 },
@@ -14,6 +20,6 @@ export function testSheet(result: EvaluationResult, wire: WireOption, core: Core
     result,
     core,
     wire,
-    insulation: { required: false },
+    insulation,
   });
 }

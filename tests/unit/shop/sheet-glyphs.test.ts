@@ -5,9 +5,9 @@ import { describe, expect, it } from 'vitest';
 import { evaluateDesign, type EvaluateInput } from '@shared/engine/evaluate';
 import { sheetSections } from '@shared/shop/sheet-text';
 import { isGreek, SHEET_FONTS } from '../../../server/shop/sheet-pdf.ts';
-import { buildWindingSheet } from '../../../server/shop/winding-sheet.ts';
 import { etd34Like, ferriteA, powderP, powderRing, roundWire } from '../engine/fixtures';
 import { EXAMPLE_SPECS } from '../../support/example-specs';
+import { testSheet } from '../../support/winding-sheet';
 
 interface Font {
   hasGlyphForCodePoint(codePoint: number): boolean;
@@ -18,17 +18,7 @@ const bold = fontkit.openSync(SHEET_FONTS.bold);
 const greek = fontkit.openSync(SHEET_FONTS.greek);
 
 const sheetOf = (input: EvaluateInput, placement?: 'spacer') =>
-  buildWindingSheet({
-    design: { number: 'GW-0001', title: 'glyph test' },
-    revision: { revision: 1, engineVersion: 'test', inductanceTolerance: 0.1 },
-    order: { number: 'BO-1', quantity: 1, releasedAt: new Date('2026-01-01T00:00:00Z') },
-    author: 'erin',
-    approver: 'ruth',
-    result: evaluateDesign(placement ? { ...input, placement } : input),
-    core: input.core,
-    wire: input.wire,
-    insulation: { required: true },
-  });
+  testSheet(evaluateDesign(placement ? { ...input, placement } : input), input.wire, input.core, 'glyph test', { required: true });
 
 function missing(text: string, font: Font): string[] {
   return [...new Set([...text])].filter((ch) => !(isGreek(ch) ? greek : font).hasGlyphForCodePoint(ch.codePointAt(0)!));
