@@ -34,6 +34,11 @@ const isUnavailable = (e: DriverError) =>
   (e.code !== undefined && (SOCKET_CODES.has(e.code) || /^08/.test(e.code) || /^57P0[1-3]$/.test(e.code))) ||
   (!('query' in e) && LOST_CONNECTION.test(e.message));
 
+/** Whether the error (or one it wraps) says the database cannot be reached just now: worth trying again. */
+export function databaseUnavailable(err: unknown): boolean {
+  return inChain(err, isUnavailable) !== undefined;
+}
+
 /**
  * What each unique index guards, in the words of the screen that writes it. A clash reaching this far means
  * two requests wrote the same thing at the same moment (the services check before writing, but only the

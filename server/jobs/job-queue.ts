@@ -4,6 +4,7 @@ import plans from 'pg-boss/src/plans.js';
 import type pg from 'pg';
 import type { Logger } from 'pino';
 import type { Tx } from '../db/client.ts';
+import { databaseUnavailable } from '../http/database-errors.ts';
 
 /** How a kind of job is retried: one attempt, then `retries` more, `delaySeconds` apart (doubling if `backoff`). */
 export interface RetryPolicy {
@@ -87,15 +88,17 @@ export class JobQueue {
   async start(): Promise<void> {
     if (this.started) return;
     this.started = true;
-    await this.boss.start();
+    await whileConnecting(() => this.boss.start());
     for (const [name, { retry, handler, limits }] of this.kinds) {
-      await this.boss.createQueue(name, {
-        name,
-        retryLimit: retry.retries,
-        retryDelay: retry.delaySeconds,
-        retryBackoff: retry.backoff,
-        ...limits,
-      });
+      await whileConnecting(() =>
+        this.boss.createQueue(name, {
+          name,
+          retryLimit: retry.retries,
+          retryDelay: retry.delaySeconds,
+          retryBackoff: retry.backoff,
+          ...limits,
+        }),
+      );
       if (!handler) continue;
       await this.boss.work<object>(
         name,
@@ -150,3 +153,19 @@ export function retryPolicyOf(delaysMs: number[]): RetryPolicy {
     backoff: delaysMs.length > 1 && delaysMs[1] > delaysMs[0],
   };
 }
+
+/** Tries a start-up statement again while the database cannot be reached (at most STARTUP_TRIES, a second apart). */
+async function whileConnecting<T>(step: () => Promise<T>): Promise<T> {
+  for (let attempt = 1; ; attempt++) {
+    try {
+      return await step();
+    } catch (err) {
+      // A database that is slow to hand out a connection (a busy machine, PostgreSQL just restarted) is no reason
+      // for the server to end at start-up; anything else is.
+      if (attempt >= STARTUP_TRIES || !databaseUnavailable(err)) throw err;
+      await new Promise((resolve) => setTimeout(resolve, 1000));
+    }
+  }
+}
+
+const STARTUP_TRIES = 10;
