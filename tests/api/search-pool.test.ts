@@ -109,7 +109,9 @@ describe('a full pool', () => {
     const answered = await onFull.post('/api/calc/search', body);
     expect(answered.status).toBe(200);
     expect(answered.body.candidates.length).toBe(5);
-  });
+    // The held search runs in a thread at a lower priority: with the other API shards busy on two cores it can take
+    // far longer than the 3–4 s it takes alone, and its length is not what this test is about.
+  }, 60_000);
 
   it('ends its threads when the app closes', async () => {
     expect(full.services.searchPool.threads).toBe(1);
