@@ -1,6 +1,7 @@
 // Bill of materials of one evaluated design. Pure: figures in, rows out.
 import type { EvaluationResult } from '@shared/engine/index';
 import { COPPER_DENSITY, LEAD_LENGTH, lengthWithLeads } from '@shared/shop/build-practice';
+import { gapSensitivityText } from '@shared/shop/sheet-text';
 
 export { COPPER_DENSITY, LEAD_LENGTH };
 /** Tape overlap on a wrap (common practice, no source). */
@@ -43,7 +44,7 @@ export function copperMass(result: EvaluationResult): number {
 function coreGapNote(result: EvaluationResult): string {
   if (result.core.gapKind === 'distributed') return 'distributed gap in the material; no ground gap';
   if (result.gap.total <= 0) return 'ungapped';
-  const change = `10 µm more gap lowers L by ${Math.abs(result.gap.sensitivity10um * 100).toFixed(1)} %`;
+  const change = gapSensitivityText(result.gap.sensitivity10um);
   if (result.gap.placement === 'spacer') {
     return `spacer ${mm(result.gap.spacer, 3)} mm thick under all legs (non-magnetic, e.g. polyester film), two gaps in series; no ground gap; ${change}`;
   }

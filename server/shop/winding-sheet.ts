@@ -1,7 +1,8 @@
-import { GAP_SENSITIVITY_STEP, type EvaluationResult } from '@shared/engine/index';
+import type { EvaluationResult } from '@shared/engine/index';
 import type { CoreShape, WireOption } from '@shared/engine/types';
 import { COPPER_DENSITY, LEAD_LENGTH, lengthWithLeads } from '@shared/shop/build-practice';
 import { SHEET_CAUTION, type WindingSheet } from '@shared/shop/sheet';
+import { gapSensitivityText } from '@shared/shop/sheet-text';
 import { planTerminations } from '@shared/shop/terminations';
 import { biasTest, inductanceTest, resistanceLimit } from '@shared/shop/test-limits';
 import { windingDrawingInput } from '@shared/shop/winding-drawing';
@@ -33,10 +34,8 @@ function wireDescription(wire: WireOption, copperArea: number): string {
   return `Enamelled round copper ${size}${grade}, ${wire.strands} in hand (max overall ${mm(wire.overallDiameter, 3)} each)`;
 }
 
-const um = (m: number) => `${Math.round(m * 1e6)} µm`;
-/** How much 10 µm either way moves L, in words (the engine gives ΔL/L for 10 µm more). */
-const sensitivityText = (r: EvaluationResult) =>
-  `${um(GAP_SENSITIVITY_STEP)} more gap lowers L by ${Math.abs(r.gap.sensitivity10um * 100).toFixed(1)} % (10 µm less raises it about as much)`;
+/** How much 10 µm either way moves L, in words. */
+const sensitivityText = (r: EvaluationResult) => `${gapSensitivityText(r.gap.sensitivity10um)} (10 µm less raises it about as much)`;
 
 /**
  * Exactly what to build: a ground centre gap (with the spacer that would give the same inductance, never half the

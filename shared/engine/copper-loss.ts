@@ -156,11 +156,5 @@ export function dotBasis(basis: Float64Array, values: Float64Array): number {
 
 /** The node values interpolated at s = gridScaleAt(grid, T): several tables at one temperature share s. */
 export function interpolateAtScale(grid: AcTemperatureGrid, nodeValues: Float64Array, s: number): number {
-  let value = 0;
-  for (let i = 0; i < AC_TEMPERATURE_NODES; i++) {
-    let l = nodeValues[i]! / grid.denominators[i]!;
-    for (let j = 0; j < AC_TEMPERATURE_NODES; j++) if (j !== i) l *= s - grid.scales[j]!;
-    value += l;
-  }
-  return value;
+  return dotBasis(lagrangeBasis(grid, s, new Float64Array(AC_TEMPERATURE_NODES)), nodeValues);
 }

@@ -98,7 +98,7 @@ export function recordFeasible(
   group.mass = core.ve * material.density + copperMass;
 }
 
-const SOLID = CONDUCTOR_TYPES.indexOf('solid');
+export const SOLID = CONDUCTOR_TYPES.indexOf('solid');
 const IN_HAND = CONDUCTOR_TYPES.indexOf('in-hand');
 const FOIL = CONDUCTOR_TYPES.indexOf('foil');
 const LITZ = CONDUCTOR_TYPES.indexOf('litz');

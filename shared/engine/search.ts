@@ -30,6 +30,7 @@ import {
   popcount,
   recordFeasible,
   SIMPLER_CONDUCTOR_PREFERENCE,
+  SOLID,
   type Group,
   type PairState,
 } from './search-groups';
@@ -209,8 +210,6 @@ function cannotChangeGroups(groups: readonly Group[], pairGroups: Int32Array, pl
   const solid = pairGroups[row + SOLID]!;
   return type !== SOLID && solid >= 0 && floor > groups[solid]!.loss * (1 - SIMPLER_CONDUCTOR_PREFERENCE);
 }
-
-const SOLID = CONDUCTOR_TYPES.indexOf('solid');
 
 const nextTurns = (turns: number) => (turns < TURNS_GEOMETRIC_FROM ? turns + 1 : Math.ceil(turns * TURNS_GEOMETRIC_STEP));
 

@@ -285,6 +285,13 @@ export function radiativeConductance(area: number, emissivity: number, temperatu
   return emissivity * STEFAN_BOLTZMANN * (ts * ts + ta * ta) * (ts + ta) * area;
 }
 
+/** Whether the part sits on a board (a finite board resistance is given), and its conductance to it (W/K). */
+export function boardPath(cooling: Cooling): { mounted: boolean; conductance: number } {
+  const board = cooling.boardThermalResistance;
+  const mounted = board !== undefined && board > 0 && Number.isFinite(board);
+  return { mounted, conductance: mounted ? 1 / board : 0 };
+}
+
 /** Exposed area of a node (m²): the base is left out when it sits on the board. */
 export function exposedArea(node: NodeSurfaces, mounted: boolean): number {
   return node.vertical + node.up + (mounted ? 0 : node.down);
@@ -338,9 +345,7 @@ export function solveNetwork(
   maxIterations = NETWORK_MAX_ITERATIONS,
 ): NetworkSolution {
   const ambient = cooling.ambient;
-  const board = cooling.boardThermalResistance;
-  const mounted = board !== undefined && board > 0 && Number.isFinite(board);
-  const gBoard = mounted ? 1 / board : 0;
+  const { mounted, conductance: gBoard } = boardPath(cooling);
   const gcw = network.coreToWinding;
   let tc = out.coreTemperature;
   let tw = out.windingTemperature;
@@ -348,15 +353,14 @@ export function solveNetwork(
   let moved = Number.POSITIVE_INFINITY;
   let gc = 0;
   let gw = 0;
-  const coreArea = exposedArea(network.core, mounted);
-  const windingArea = exposedArea(network.winding, mounted);
+  const node = out.node;
   while (iterations < maxIterations && !(moved <= tolerance)) {
-    const cc = convectiveConductance(network.core, tc, cooling, network.flowLength, mounted, out.air);
-    const rc = radiativeConductance(coreArea, network.core.emissivity, tc, ambient);
-    const cw = convectiveConductance(network.winding, tw, cooling, network.flowLength, mounted, out.air);
-    const rw = radiativeConductance(windingArea, network.winding.emissivity, tw, ambient);
-    gc = cc + rc;
-    gw = cw + rw;
+    nodeConductance(network, 0, tc, cooling, mounted, out.air, node);
+    gc = node.conductance;
+    const sc = node.growth;
+    nodeConductance(network, 1, tw, cooling, mounted, out.air, node);
+    gw = node.conductance;
+    const sw = node.growth;
     // (gc + gb + gcw)·θc − gcw·θw = Pc;  −gcw·θc + (gw + gcw)·θw = Pw
     const a = gc + gBoard + gcw;
     const d = gw + gcw;
@@ -365,8 +369,6 @@ export function solveNetwork(
     let nw = ambient + (a * copperLoss + gcw * coreLoss) / det;
     // The plain fixed point overshoots by about the sensitivity s of G to θ each time; (θ' + s·θ)/(1 + s) takes
     // a Newton-like step instead (converges in 2–3 iterations from the surface law's guess).
-    const sc = riseSensitivity(cc, rc, tc, ambient);
-    const sw = riseSensitivity(cw, rw, tw, ambient);
     nc = (nc + sc * tc) / (1 + sc);
     nw = (nw + sw * tw) / (1 + sw);
     moved = Math.max(Math.abs(nc - tc), Math.abs(nw - tw));
@@ -404,9 +406,7 @@ export function networkStep(
   table?: ConductanceTable,
 ): number {
   const ambient = cooling.ambient;
-  const board = cooling.boardThermalResistance;
-  const mounted = board !== undefined && board > 0 && Number.isFinite(board);
-  const gBoard = mounted ? 1 / board : 0;
+  const { mounted, conductance: gBoard } = boardPath(cooling);
   const gcw = network.coreToWinding;
   const tc = out.coreTemperature;
   const tw = out.windingTemperature;
@@ -494,8 +494,7 @@ export class ConductanceTable {
     this.ambient = cooling.ambient;
     this.airSpeed = cooling.airSpeed ?? 0;
     this.board = cooling.boardThermalResistance ?? 0;
-    const board = cooling.boardThermalResistance;
-    const mounted = board !== undefined && board > 0 && Number.isFinite(board);
+    const { mounted } = boardPath(cooling);
     const air = new AirProperties();
     const node: NodeConductance = { conductance: 0, growth: 0 };
     for (let k = 0; k < TABLE_POINTS; k++) {

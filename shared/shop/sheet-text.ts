@@ -1,3 +1,4 @@
+import { GAP_SENSITIVITY_STEP } from '@shared/engine/magnetic-design';
 import type { SheetTestLimits, WindingSheet } from './sheet';
 
 // The sheet as labelled lines, shared by the PDF and any plain-text view, so both say the same thing.
@@ -9,6 +10,10 @@ export const microhenry = (h: number) => `${fmt(h * 1e6)} µH`;
 export const milliohm = (r: number) => `${fmt(r * 1e3)} mΩ`;
 export const millimetre = (m: number, digits = 3) => `${fmt(m * 1e3, digits)} mm`;
 export const kilohertz = (hz: number) => `${fmt(hz / 1e3)} kHz`;
+
+/** How much more gap moves L, in words (the engine gives ΔL/L for GAP_SENSITIVITY_STEP more), for the sheet and BOM. */
+export const gapSensitivityText = (sensitivity10um: number) =>
+  `${Math.round(GAP_SENSITIVITY_STEP * 1e6)} µm more gap lowers L by ${Math.abs(sensitivity10um * 100).toFixed(1)} %`;
 
 /**
  * The keep-out as the shop reads it: the copper's clearance from the gap, which the bobbin tube's wall gives up to its
