@@ -19,16 +19,8 @@ export interface SearchPoolOptions {
   nice: number;
 }
 
-const WORKER_ENTRY = new URL('./engine-worker.ts', import.meta.url).href;
-
-/**
- * Worker threads load the entry file as TypeScript. Under `node --import tsx` (the server, the bench) they inherit
- * the loader with the parent's execArgv; under vitest (API tests) the parent has no loader of its own, so it is added.
- */
-function workerExecArgv(): string[] {
-  const hasTsx = process.execArgv.some((arg) => arg === 'tsx' || /^tsx\/|[=/]tsx(\/|$)/.test(arg));
-  return hasTsx ? process.execArgv : [...process.execArgv, '--import', 'tsx'];
-}
+/** Registers tsx's module hooks itself, then loads engine-worker.ts as ES modules (why: in the file). */
+const WORKER_ENTRY = new URL('./engine-worker-entry.mjs', import.meta.url).href;
 
 export const searchBusy = () => new AppError(503, 'busy', 'The server is busy with other searches. Try again in a moment.');
 
@@ -108,7 +100,6 @@ export class SearchPool {
       idleTimeout: this.options.idleMs,
       // Never the limit in practice: admission is decided by the count above.
       maxQueue: this.options.workers + this.options.queue,
-      execArgv: workerExecArgv(),
       niceIncrement: this.options.nice,
     }));
   }
