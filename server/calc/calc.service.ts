@@ -137,9 +137,10 @@ export class CalcService {
     const result = engineCall(() => evaluateDesign(input), 'spec.');
     const sweep =
       options.sweep === 'frequency' || options.sweep === 'all'
-        ? lossVersusFrequency(input, frequencySweepAround(request.spec.frequency))
+        ? lossVersusFrequency(input, frequencySweepAround(request.spec.frequency), result)
         : undefined;
-    const map = options.sweep === 'load' || options.sweep === 'all' ? engineCall(() => lossMap(input), 'spec.') : undefined;
+    const map =
+      options.sweep === 'load' || options.sweep === 'all' ? engineCall(() => lossMap(input, undefined, result), 'spec.') : undefined;
     return {
       engineVersion: ENGINE_VERSION,
       wire,

@@ -367,10 +367,14 @@ const SWEEP_LIMITS: ReadonlySet<string> = new Set([
 
 /**
  * The same built part (turns, gap, wire and the inductance it achieved) run at other switching frequencies, for a
- * loss-versus-frequency chart. Frequencies where the converter would leave CCM are skipped.
+ * loss-versus-frequency chart. Frequencies where the converter would leave CCM are skipped. `base` is
+ * evaluateDesign(input), passed in where the caller already has it.
  */
-export function lossVersusFrequency(input: EvaluateInput, frequencies: readonly number[]): LossAtFrequency[] {
-  const base = evaluateDesign(input);
+export function lossVersusFrequency(
+  input: EvaluateInput,
+  frequencies: readonly number[],
+  base: EvaluationResult = evaluateDesign(input),
+): LossAtFrequency[] {
   const { rippleRatio: _r, rippleCurrent: _c, inductance: _l, ...rest } = input.spec;
   const points: LossAtFrequency[] = [];
   for (const frequency of frequencies) {

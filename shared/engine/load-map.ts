@@ -6,7 +6,7 @@ import { copperResistivity } from './copper';
 import { biasLossFactor, coreDcField } from './dc-bias-loss';
 import { dowellFactor, dowellSkinTerm } from './dowell';
 import { litzProximitySum, litzWindingFactor } from './litz';
-import { evaluateDesign, type EvaluateInput } from './evaluate';
+import { evaluateDesign, type EvaluateInput, type EvaluationResult } from './evaluate';
 import { MAX_HARMONIC } from './harmonics';
 import { transverseFieldLoss } from './gap-field-loss';
 import { CandidateFigures, gapLossScale, prepareCore, prepareSpec, prepareWire, strandsPerPosition } from './kernel';
@@ -55,10 +55,13 @@ export interface LossMap {
  * every harmonic's Dowell factor, the core loss by the iGSE over each linear segment of the flux (a resting segment
  * adds none; relaxation after it is not modelled) times the DC-bias factor at that load's DC field, the gap's
  * fringing-field loss from the same harmonics at the design's keep-out, iterated with the temperature as
- * evaluateDesign does.
+ * evaluateDesign does. `base` is evaluateDesign(input), passed in where the caller already has it.
  */
-export function lossMap(input: EvaluateInput, fractions: readonly number[] = LOAD_FRACTIONS): LossMap {
-  const base = evaluateDesign(input);
+export function lossMap(
+  input: EvaluateInput,
+  fractions: readonly number[] = LOAD_FRACTIONS,
+  base: EvaluationResult = evaluateDesign(input),
+): LossMap {
   const { spec, core, material } = input;
   const ctx = prepareSpec(spec, input.limits);
   const wire = prepareWire(input.wire, ctx);
