@@ -22,6 +22,12 @@
 // beside the winding's outside, taking the rest); both are summed with the same formula at their own distances.
 // Distributed-gap (powder) cores have no gap: zero. Foil: not modelled (zero, stated) — the field normal to a foil
 // wider than the skin depth is shielded by the foil, which the round-conductor formula cannot describe.
+//
+// Two sums, measured against the field solution (tests/unit/solvers/gap-field-loss.test.ts): gapFieldSum (above, the
+// search's: O(conductors), Roshen's Hx² only, no cross term; +8…+273 % on one layer, −53…+21 % on two or three) and
+// gapFieldSumInWindow (the method of images in the window with the cross term and the core's own MMF, O(conductors²);
+// P26/16 within −12…+7 %, ETD34 within −14…−1 % at 0.5 mm keep-out but −17…−71 % at 1–3 mm). The kernel offers both
+// (gapLossScale, gapLossScaleInWindow); evaluateDesign still uses the search's, so that its figures equal the search's.
 import { MU0 } from './constants';
 import { copperResistivity } from './copper';
 import type { HarmonicWeights } from './harmonics';
