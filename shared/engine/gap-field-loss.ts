@@ -22,6 +22,12 @@
 // beside the winding's outside, taking the rest); both are summed with the same formula at their own distances.
 // Distributed-gap (powder) cores have no gap: zero. Foil: not modelled (zero, stated) — the field normal to a foil
 // wider than the skin depth is shielded by the foil, which the round-conductor formula cannot describe.
+//
+// Two sums, measured against the field solution (tests/unit/solvers/gap-field-loss.test.ts): gapFieldSum (above, the
+// search's: O(conductors), Roshen's Hx² only, no cross term; +8…+273 % on one layer, −53…+21 % on two or three) and
+// gapFieldSumInWindow (the method of images in the window with the cross term and the core's own MMF, O(conductors²);
+// P26/16 within −12…+7 %, ETD34 within −14…−1 % at 0.5 mm keep-out but −17…−71 % at 1–3 mm). The kernel offers both
+// (gapLossScale, gapLossScaleInWindow); evaluateDesign still uses the search's, so that its figures equal the search's.
 import { MU0 } from './constants';
 import { copperResistivity } from './copper';
 import type { HarmonicWeights } from './harmonics';
@@ -268,6 +274,126 @@ function logSquareSum(x2: number, h: number, z0: number, d: number, from: number
 
 /** Up to this |t| the atanh series to t⁹ is within 1e-7 of the logarithm (the next term is t¹⁰/11 of it). */
 const ATANH_SERIES_LIMIT = 0.25;
+
+/** The window the image method needs besides the layout and the gaps (m). */
+export interface GapFieldWindow {
+  /** Window height between the yokes, with a spacer's thickness added when the halves stand apart. */
+  height: number;
+}
+
+/** Line currents a gap's strip current and the core's wall MMF are split into (both were checked against 64/400). */
+const STRIP_POINTS = 12;
+const WALL_POINTS = 64;
+
+/**
+ * Σ over conductors of L·(|h_gapped|² − |h_ungapped|²) per unit winding MMF (1/m), the whole field with the cross
+ * term, by the method of images in the rectangular window: J. Hu and C. R. Sullivan, "Analytical method for
+ * generalization of numerically optimized inductor winding shapes", IEEE PESC 1999, and "AC resistance of planar
+ * power inductors and the quasidistributed gap technique", IEEE Trans. Power Electronics 16(4), 2001 (from memory):
+ * the core's walls are taken as μ → ∞ planes x = 0 (leg face), x = W (outer leg), z = ±H/2 (yokes), so every line
+ * current has same-sign images at (±x + 2mW, z + 2nH) and (±x + 2mW, H − z + 2nH). Each row of period 2W is summed
+ * in closed form, (Hx − j·Hz) = −j·(I/4W)·cot(π(ζ − ζs)/2W), ζ = x + j·z; rows n = −1…1 are kept (the next are
+ * below e^(−2πH/W) ≈ 1e-6 of them once the currents per cell sum to zero).
+ * Sources: every conductor of the layout (1/(N·conductorsPerTurn) each), a gap as a strip current −share across its
+ * length on its wall (a slot of MMF F in a μ → ∞ face is an unbroken face carrying −F over the slot; Roshen's
+ * half-plane field is this strip with its one image), and the MMF the core itself drops, −(1 − shares), spread evenly
+ * round the window's walls (a μ finite core's tangential H at its surface; the ungapped core drops all of it). The
+ * ungapped reference is the same winding with the whole MMF on the walls, as the field solution's ungapped core.
+ * Round legs: the axisymmetric field is the planar one through the substitution ψ = u/√r (the term u/(4r²) that it
+ * leaves is dropped, the field varying faster than over 2r): each source's field is scaled by √(r_source/r), r from
+ * the leg's axis, the leg's radius being legPerimeter/2π (a rectangular leg takes the same, an approximation).
+ * Each conductor takes the field at its centre, unshielded by its neighbours' eddy currents. O(conductors²):
+ * the design page's figure, not the search's (gapFieldSum).
+ */
+export function gapFieldSumInWindow(layout: GapFieldLayout, sources: GapFieldSources, window: GapFieldWindow): number {
+  const { turns, turnsPerLayer, layers, conductorsPerTurn, overallDiameter: d } = layout;
+  if (!(turns >= 1 && turnsPerLayer >= 1 && Number.isFinite(layers))) return 0;
+  const centre = sources.centreGap > 0 && sources.centreShare > 0;
+  const outer = sources.outerGap > 0 && sources.outerShare > 0;
+  const width = sources.windowWidth;
+  const height = window.height;
+  if ((!centre && !outer) || !(width > 0 && height > 0)) return 0;
+  const full = turnsPerLayer * conductorsPerTurn;
+  const z0 = (0.5 - full / 2) * d;
+  const xs: number[] = [];
+  const zs: number[] = [];
+  for (let layer = 0; layer < layers; layer++) {
+    const filled = Math.min(turnsPerLayer, turns - layer * turnsPerLayer) * conductorsPerTurn;
+    for (let j = 0; j < filled; j++) {
+      xs.push(layout.keepOut + (layer + 0.5) * d);
+      zs.push(z0 + j * d);
+    }
+  }
+  const count = xs.length;
+  const current = 1 / (turns * conductorsPerTurn);
+  const radius = layout.legPerimeter / (2 * Math.PI);
+  const hx = new Float64Array(3 * count);
+  const hz = new Float64Array(3 * count);
+  // Fields at every conductor from the conductors (slot 0), the gaps' strips (1) and the walls per unit −MMF (2).
+  const add = (slot: number, x: number, z: number, amount: number) => {
+    const strength = amount * Math.sqrt(radius + x);
+    for (let i = 0; i < count; i++) {
+      const [fx, fz] = latticeField(xs[i]!, zs[i]!, x, z, width, height);
+      const scale = strength / Math.sqrt(radius + xs[i]!);
+      hx[slot * count + i] = hx[slot * count + i]! + fx * scale;
+      hz[slot * count + i] = hz[slot * count + i]! + fz * scale;
+    }
+  };
+  for (let k = 0; k < count; k++) add(0, xs[k]!, zs[k]!, current);
+  for (const [x, gap, share] of [
+    [0, sources.centreGap, centre ? sources.centreShare : 0],
+    [width, sources.outerGap, outer ? sources.outerShare : 0],
+  ] as const) {
+    if (!(share > 0)) continue;
+    for (let k = 0; k < STRIP_POINTS; k++) add(1, x, (-0.5 + (k + 0.5) / STRIP_POINTS) * gap, -share / STRIP_POINTS);
+  }
+  const perimeter = 2 * (width + height);
+  for (let k = 0; k < WALL_POINTS; k++) {
+    const z = (-0.5 + (k + 0.5) / WALL_POINTS) * height;
+    const x = ((k + 0.5) / WALL_POINTS) * width;
+    add(2, 0, z, -height / perimeter / WALL_POINTS);
+    add(2, width, z, -height / perimeter / WALL_POINTS);
+    add(2, x, -height / 2, -width / perimeter / WALL_POINTS);
+    add(2, x, height / 2, -width / perimeter / WALL_POINTS);
+  }
+  const rest = 1 - (centre ? sources.centreShare : 0) - (outer ? sources.outerShare : 0);
+  let sum = 0;
+  for (let i = 0; i < count; i++) {
+    const ux = hx[i]! + hx[2 * count + i]!;
+    const uz = hz[i]! + hz[2 * count + i]!;
+    const gx = hx[i]! + hx[count + i]! + rest * hx[2 * count + i]!;
+    const gz = hz[i]! + hz[count + i]! + rest * hz[2 * count + i]!;
+    sum += (layout.legPerimeter + 2 * Math.PI * xs[i]!) * (gx * gx + gz * gz - ux * ux - uz * uz);
+  }
+  return sum;
+}
+
+/**
+ * (Hx, Hz) at (x, z) per unit line current at (xs, zs) with all its images in the μ → ∞ window [0, W] × [−H/2, H/2]
+ * (rows n = −1…1 of period 2W, see gapFieldSumInWindow); the source's own term is left out at its own centre.
+ */
+export function latticeField(x: number, z: number, xs: number, zs: number, width: number, height: number): [number, number] {
+  const k = Math.PI / (2 * width);
+  let fx = 0;
+  let fz = 0;
+  for (let n = -1; n <= 1; n++) {
+    for (const rowZ of [zs + 2 * n * height, height - zs + 2 * n * height]) {
+      for (const rowX of [xs, -xs]) {
+        // cot(p + jq) = (sin 2p − j·sinh 2q)/(cosh 2q − cos 2p)
+        const p = k * (x - rowX);
+        const q = k * (z - rowZ);
+        if (Math.abs(p) < 1e-12 && Math.abs(q) < 1e-12) continue;
+        const den = Math.cosh(2 * q) - Math.cos(2 * p);
+        const cr = Math.sin(2 * p) / den;
+        const ci = -Math.sinh(2 * q) / den;
+        // Hx − j·Hz = −j·cot/(4W)
+        fx += ci / (4 * width);
+        fz += cr / (4 * width);
+      }
+    }
+  }
+  return [fx, fz];
+}
 
 /**
  * Share of the winding MMF across the gaps: the gap reluctance (lg/F, F the fringing factor) over the whole path's

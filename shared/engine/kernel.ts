@@ -17,7 +17,15 @@ import { litzProximitySum, litzWindingFactor } from './litz';
 import { HOT_SPOT_ALLOWANCE } from './constants';
 import { coreLossTemperatureFactor, fluxInFitRange, frequencyInFitRange, igseTriangleLoss, steinmetzLoss } from './core-loss';
 import { foilDelta, roundWireDelta } from './dowell';
-import { gapFieldLoss, gapFieldSum, gapMmfShare, rippleTransverseLoss, type GapFieldLayout, type GapFieldSources } from './gap-field-loss';
+import {
+  gapFieldLoss,
+  gapFieldSum,
+  gapFieldSumInWindow,
+  gapMmfShare,
+  rippleTransverseLoss,
+  type GapFieldLayout,
+  type GapFieldSources,
+} from './gap-field-loss';
 import { spacerEquivalentGap } from './gap';
 import { harmonicWeights, type HarmonicWeights } from './harmonics';
 import { DEFAULT_KEEP_OUT, resolveLimits, type ConverterSpec, type DesignLimits } from './inputs';
@@ -356,15 +364,15 @@ const fieldSources: GapFieldSources = { centreGap: 0, centreShare: 0, outerGap: 
  * distributed-gap cores, rings and foil have none here. The turn length at the leg face follows from the full
  * bobbin's MLT (mid-build at the default keep-out plus half the bobbin height).
  */
-export function gapLossScale(
+function prepareGapField(
   core: CoreShape,
   material: CoreMaterial,
   mag: MagneticDesign,
   out: CandidateFigures,
   wire: WireOption,
   keepOut: number,
-): number {
-  if (mag.kind !== 'air-gap' || mag.totalGap <= 0 || core.ring || wire.kind === 'foil') return 0;
+): boolean {
+  if (mag.kind !== 'air-gap' || mag.totalGap <= 0 || core.ring || wire.kind === 'foil') return false;
   const ratio = core.centreToOuterLegAreaRatio ?? 1;
   const spacer = mag.placement === 'spacer';
   const share = gapMmfShare(
@@ -388,7 +396,38 @@ export function gapLossScale(
     2 * Math.sqrt(Math.PI * core.ae),
     core.mlt - 2 * Math.PI * (DEFAULT_KEEP_OUT + core.bobbinHeight / 2),
   );
+  return true;
+}
+
+/** The search's gap-field scale: Roshen's half-plane Hx² at each conductor, no cross term (gapFieldSum, O(conductors)). */
+export function gapLossScale(
+  core: CoreShape,
+  material: CoreMaterial,
+  mag: MagneticDesign,
+  out: CandidateFigures,
+  wire: WireOption,
+  keepOut: number,
+): number {
+  if (!prepareGapField(core, material, mag, out, wire, keepOut)) return 0;
   return gapFieldLoss(mag.turns, gapFieldSum(fieldLayout, fieldSources), 1, 1);
+}
+
+/**
+ * The design page's gap-field scale: the same sources by the method of images in the window with the cross term
+ * (gapFieldSumInWindow, O(conductors²), too slow for the search). The term can be negative (a gap can lower the
+ * window's field where the winding's own field and the gap's oppose): it is then taken as zero, Dowell's loss kept.
+ */
+export function gapLossScaleInWindow(
+  core: CoreShape,
+  material: CoreMaterial,
+  mag: MagneticDesign,
+  out: CandidateFigures,
+  wire: WireOption,
+  keepOut: number,
+): number {
+  if (mag.kind !== 'air-gap' || !prepareGapField(core, material, mag, out, wire, keepOut)) return 0;
+  const height = core.windowHeight + (mag.placement === 'spacer' ? mag.spacer : 0);
+  return Math.max(0, gapFieldLoss(mag.turns, gapFieldSumInWindow(fieldLayout, fieldSources, { height }), 1, 1));
 }
 
 /** Keep-out beyond the bobbin wall (DEFAULT_KEEP_OUT), taken from the build height; none on a ring (m). */
