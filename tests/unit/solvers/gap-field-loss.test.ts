@@ -109,16 +109,40 @@ add('ETD34/17/11', [0.5e-3, 2e-3], [1e-3], [0.15, 0.2], 20, 20, 1);
 add('P26/16', [2e-3], [0.5e-3], [0.15], 8, 8, 1, 'spacer');
 add('ETD34/17/11', [2e-3], [0.5e-3], [0.4], 8, 8, 1, 'spacer');
 
+/**
+ * The half-plane estimate (the search's and the design figures') within its measured envelope (this file's table,
+ * a few % of margin): −19…+44 % on ground gaps at 0.5 mm keep-out, −53…+273 % at 1–3 mm where the term is small.
+ * The spacer's near-zero term has no band (the half-plane gives it > +1000 %).
+ */
+function halfPlaneBand(c: Case): [number, number] | undefined {
+  if (c.placement === 'spacer') return undefined;
+  return c.keepOut <= 0.5e-3 ? [-0.25, 0.5] : [-0.6, 2.9];
+}
+
+/** Runs `task` over `items` with at most `width` at a time (the field solves use a core each), answers in order. */
+async function inTurns<T, R>(items: readonly T[], width: number, task: (item: T) => Promise<R>): Promise<R[]> {
+  const answers: R[] = new Array(items.length);
+  let next = 0;
+  const lane = async () => {
+    while (next < items.length) {
+      const i = next++;
+      answers[i] = await task(items[i]!);
+    }
+  };
+  await Promise.all(Array.from({ length: width }, lane));
+  return answers;
+}
+
 const label = (c: Case) =>
   `${c.id} ${c.placement} ${c.gap * 1e3} mm, keep-out ${c.keepOut * 1e3} mm, ${c.layers}×${c.perLayer}${c.turns < c.layers * c.perLayer ? ` (${c.turns})` : ''}`;
 
 describe('gap-field loss: the engine against the field solution', () => {
-  it('every case: the image method within its measured band, the half-plane estimate shown beside it', async () => {
+  it('every case: the image method and the half-plane estimate each within its measured band', async () => {
     const options = { resistivity: RHO, frequencies: [FREQUENCY] };
     const plain = new Map<string, Promise<number>>();
     const rows: string[] = ['case | field ΔR mΩ | image mΩ (%) | half-plane mΩ (%) | field Rac mΩ'];
     const failures: string[] = [];
-    for (const c of cases) {
+    const solved = await inTurns(cases, 2, async (c) => {
       const refKey = `${c.id}|${c.keepOut}|${c.turns}|${c.perLayer}|${c.layers}`;
       if (!plain.has(refKey))
         plain.set(
@@ -126,14 +150,20 @@ describe('gap-field loss: the engine against the field solution', () => {
           solveFieldDesign(design(c, 0), options).then((r) => r.harmonics[0]!.resistance),
         );
       const gapped = (await solveFieldDesign(design(c, c.gap), options)).harmonics[0]!.resistance;
-      const field = gapped - (await plain.get(refKey)!);
+      return { gapped, field: gapped - (await plain.get(refKey)!) };
+    });
+    cases.forEach((c, i) => {
+      const { gapped, field } = solved[i]!;
       const { search, image } = engineGapResistance(c);
       const pc = (x: number) => `${((x / field - 1) * 100).toFixed(0)} %`;
       rows.push(
         `${label(c)} | ${(field * 1e3).toFixed(2)} | ${(image * 1e3).toFixed(2)} (${pc(image)}) | ${(search * 1e3).toFixed(2)} (${pc(search)}) | ${(gapped * 1e3).toFixed(1)}`,
       );
       if (!(Math.abs(image / field - 1) <= c.imageBand)) failures.push(`${label(c)}: image ${pc(image)}, band ±${c.imageBand * 100} %`);
-    }
+      const band = halfPlaneBand(c);
+      if (band && !(search / field - 1 >= band[0] && search / field - 1 <= band[1]))
+        failures.push(`${label(c)}: half-plane ${pc(search)}, band ${band[0] * 100}…+${band[1] * 100} %`);
+    });
     console.log(rows.join('\n'));
     expect(failures).toEqual([]);
   }, 900_000);
