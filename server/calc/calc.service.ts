@@ -2,6 +2,7 @@ import {
   ENGINE_VERSION,
   EngineInputError,
   evaluateDesign,
+  gapLossByWindowImages,
   igsePiecewiseLinearLoss,
   igseTriangleLoss,
   lossMap,
@@ -23,6 +24,8 @@ import type { MaterialsRepository } from '../materials/materials.repository.ts';
 import type { SearchPool } from './search-pool.ts';
 
 const HARMONICS_REPORTED = 15;
+/** The gap-field loss's share of the total from which evaluate adds the image method's cross-check. */
+const GAP_CROSS_CHECK_SHARE = 0.02;
 const SINE_SAMPLES = 720;
 // Used only for mass figures when an inline material gives no density (common practice, no source).
 const TYPICAL_DENSITY: Record<InlineMaterial['family'], number> = {
@@ -141,12 +144,16 @@ export class CalcService {
         : undefined;
     const map =
       options.sweep === 'load' || options.sweep === 'all' ? engineCall(() => lossMap(input, undefined, result), 'spec.') : undefined;
+    // A few milliseconds per design: only where the term is worth a second opinion.
+    const imageCheck =
+      (result.copper.gapLoss ?? 0) >= GAP_CROSS_CHECK_SHARE * result.totalLoss ? gapLossByWindowImages(input, result) : undefined;
     return {
       engineVersion: ENGINE_VERSION,
       wire,
       result,
       ...(sweep ? { lossVersusFrequency: sweep } : {}),
       ...(map ? { lossMap: map } : {}),
+      ...(imageCheck !== undefined ? { gapLossByWindowImages: imageCheck } : {}),
     };
   }
 

@@ -34,3 +34,4 @@ export * from './thermal';
 export * from './types';
 export * from './winding';
 export * from './wire-choice';
+export * from './gap-field-cross-check';

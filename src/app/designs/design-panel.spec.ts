@@ -113,6 +113,8 @@ describe('DesignPanel thermal figures', () => {
     expect(text(page, 'node-temperatures')).toBeUndefined();
     expect(page.textContent).toContain('Rise / hot spot');
     expect(text(page, 'empirical-rises')).toBe('37.5 K / 42.1 K');
+    // No cross-check in the answer, no line for it.
+    expect(page.querySelector('[data-figure="gap-loss-images"]')).toBeNull();
   });
 });
 
@@ -127,7 +129,7 @@ describe('DesignPanel keep-out and gap-field loss', () => {
     const construction: Construction = { ...CONSTRUCTION, placement: 'ground', gap: ground.result.gap.total, keepOut: 1.5e-3 };
     const { fixture, http, page } = await renderWithHttpTesting(
       DesignPanel,
-      { spec: SPEC, construction, known: { ...answer(ground), result } },
+      { spec: SPEC, construction, known: { ...answer(ground), result, gapLossByWindowImages: 0.031 } },
       { settle: false },
     );
     for (const request of http.match((r) => r.url.endsWith('/cores'))) request.flush({ cores: [] });
@@ -137,6 +139,9 @@ describe('DesignPanel keep-out and gap-field loss', () => {
     expect(gapLoss.previousElementSibling!.textContent).toBe("Winding loss from the gap's field");
     expect(gapLoss.textContent).toMatch(/42(\.0)? mW/);
     expect(page.querySelector('[aria-label^="Losses:"]')!.getAttribute('aria-label')).toContain("winding loss from the gap's field 42");
+    const imageCheck = page.querySelector('[data-figure="gap-loss-images"]')!;
+    expect(imageCheck.previousElementSibling!.textContent).toBe("Cross-check: the same by the window's images");
+    expect(imageCheck.textContent).toMatch(/^\s*31(\.0)? mW/);
 
     const turns = page.querySelector<HTMLInputElement>('input[formcontrolname="turns"]')!;
     turns.value = '17';
