@@ -9,7 +9,7 @@ import { litzProximitySum, litzWindingFactor } from './litz';
 import { evaluateDesign, type EvaluateInput } from './evaluate';
 import { MAX_HARMONIC } from './harmonics';
 import { transverseFieldLoss } from './gap-field-loss';
-import { CandidateFigures, gapLossScale, prepareCore, prepareSpec, prepareWire, strandsPerPosition } from './kernel';
+import { CandidateFigures, foilGapResistanceOf, gapLossScale, prepareCore, prepareSpec, prepareWire, strandsPerPosition } from './kernel';
 import { designMagnetics } from './magnetic-design';
 import { piecewiseLinearSpectrum } from './piecewise-harmonics';
 import { biasedInductance } from './powder';
@@ -60,7 +60,7 @@ export interface LossMap {
 export function lossMap(input: EvaluateInput, fractions: readonly number[] = LOAD_FRACTIONS): LossMap {
   const base = evaluateDesign(input);
   const { spec, core, material } = input;
-  const ctx = prepareSpec(spec, input.limits);
+  const ctx = prepareSpec(spec, input.limits, true);
   const wire = prepareWire(input.wire, ctx);
   const part = prepareCore(core).thermal;
   const layers = Number.isFinite(base.winding.layers) ? base.winding.layers : 1;
@@ -76,7 +76,8 @@ export function lossMap(input: EvaluateInput, fractions: readonly number[] = LOA
   const mag = designMagnetics(core, material, ctx, input.turns, input.gap, input.placement);
   const layout = new CandidateFigures();
   layWinding(mag.turns, input.wire, core, layout);
-  const gapScale = gapLossScale(core, material, mag, layout, input.wire, input.keepOut ?? ctx.limits.keepOut);
+  const keepOut = input.keepOut ?? ctx.limits.keepOut;
+  const gapScale = gapLossScale(core, material, mag, layout, input.wire, keepOut, true);
   const transverse: Float64Array[] = [];
   if (gapScale > 0) {
     const strands = strandsPerPosition(input.wire);
@@ -84,7 +85,11 @@ export function lossMap(input: EvaluateInput, fractions: readonly number[] = LOA
       const resistivity = copperResistivity(ctx.acGrid.temperatures[node]!);
       const perHarmonic = new Float64Array(MAX_HARMONIC);
       for (let n = 1; n <= MAX_HARMONIC; n++) {
-        perHarmonic[n - 1] = strands * transverseFieldLoss(input.wire.strandDiameter, n * spec.frequency, resistivity);
+        // Foil: its gap-field resistance per unit of its scale (foil-gap-loss.ts), the weight of I_n²/2.
+        perHarmonic[n - 1] =
+          input.wire.kind === 'foil'
+            ? foilGapResistanceOf(core, material, mag, input.wire, keepOut, n * spec.frequency, resistivity) / gapScale
+            : strands * transverseFieldLoss(input.wire.strandDiameter, n * spec.frequency, resistivity);
       }
       transverse.push(perHarmonic);
     }
