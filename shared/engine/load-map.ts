@@ -57,6 +57,9 @@ export interface LossMap {
  * fringing-field loss from the same harmonics at the design's keep-out, iterated with the temperature as
  * evaluateDesign does.
  */
+/** Harmonics of a foil winding's gap-field loss the load map sums (see lossMap). */
+const FOIL_GAP_HARMONICS = 40;
+
 export function lossMap(input: EvaluateInput, fractions: readonly number[] = LOAD_FRACTIONS): LossMap {
   const base = evaluateDesign(input);
   const { spec, core, material } = input;
@@ -85,11 +88,14 @@ export function lossMap(input: EvaluateInput, fractions: readonly number[] = LOA
       const resistivity = copperResistivity(ctx.acGrid.temperatures[node]!);
       const perHarmonic = new Float64Array(MAX_HARMONIC);
       for (let n = 1; n <= MAX_HARMONIC; n++) {
-        // Foil: its gap-field resistance per unit of its scale (foil-gap-loss.ts), the weight of I_n²/2.
-        perHarmonic[n - 1] =
-          input.wire.kind === 'foil'
-            ? foilGapResistanceOf(core, material, mag, input.wire, keepOut, n * spec.frequency, resistivity) / gapScale
-            : strands * transverseFieldLoss(input.wire.strandDiameter, n * spec.frequency, resistivity);
+        // Foil: its gap-field resistance per unit of its scale (foil-gap-loss.ts), the weight of I_n²/2, to the
+        // FOIL_GAP_HARMONICS-th harmonic (a field solve each; the ripple's n⁻⁴ leaves the rest below 1e-4 of the sum).
+        if (input.wire.kind === 'foil') {
+          perHarmonic[n - 1] =
+            n <= FOIL_GAP_HARMONICS
+              ? foilGapResistanceOf(core, material, mag, input.wire, keepOut, n * spec.frequency, resistivity) / gapScale
+              : 0;
+        } else perHarmonic[n - 1] = strands * transverseFieldLoss(input.wire.strandDiameter, n * spec.frequency, resistivity);
       }
       transverse.push(perHarmonic);
     }
