@@ -164,7 +164,7 @@ export function describeIssues({ ctx, core, material, mag, figures: f, wire }: I
       "the gap's fringing field meets the foil across its width and drives eddy currents in it (the loss concentrates in the turns nearest the gap)";
     // Agreement measured against the 2-D field solution in tests/unit/solvers/foil-gap-loss.test.ts.
     const agreement =
-      'modelled by a Fourier series of the window field with the foil turns as conducting slabs (within −4 … +79 % of a 2-D field solution for 0.1–0.2 mm foil, −25 … −37 % for 0.5 mm foil)';
+      'modelled by a Fourier series of the window field with the foil turns as conducting slabs (against a 2-D field solution: −4 … +79 % for 0.1–0.2 mm foil beside a ground gap, −25 … −37 % for 0.5 mm foil, −35 % beside a spacer)';
     warning(
       'foil-beside-gap',
       ctx.foilGapModelled
