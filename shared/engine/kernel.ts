@@ -361,8 +361,8 @@ const fieldSources: GapFieldSources = { centreGap: 0, centreShare: 0, outerGap: 
 /**
  * The gap-field loss per unit of the wire's gapTable (gap-field-loss.ts): 2·N²·Σ L·share²·|h|². A ground gap faces
  * the winding's middle; a spacer opens a gap in the centre leg there and one in the outer legs across the window;
- * distributed-gap cores and rings have none; foil takes foilGapScale when foilModelled (else none). The turn length at the leg face follows from the full
- * bobbin's MLT (mid-build at the default keep-out plus half the bobbin height).
+ * distributed-gap cores and rings have none; foil takes foilGapScale when foilModelled (else none). The turn length
+ * at the leg face follows from the full bobbin's MLT (mid-build at the default keep-out plus half the bobbin height).
  */
 export function gapLossScale(
   core: CoreShape,
