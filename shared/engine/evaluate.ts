@@ -325,7 +325,8 @@ function checkExplicitInputs(input: EvaluateInput): void {
 /** One fully explicit design → every figure, feasibility and plain-word issues. */
 export function evaluateDesign(input: EvaluateInput): EvaluationResult {
   checkExplicitInputs(input);
-  const ctx = prepareSpec(input.spec, input.limits);
+  // One design: a foil winding's gap-field loss is computed (kernel.ts, SpecContext.foilGapModelled).
+  const ctx = prepareSpec(input.spec, input.limits, true);
   const mag = designMagnetics(input.core, input.material, ctx, input.turns, input.gap, input.placement);
   const wireCtx = prepareWire(input.wire, ctx);
   const figures = new CandidateFigures();

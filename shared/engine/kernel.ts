@@ -26,6 +26,7 @@ import {
   type GapFieldLayout,
   type GapFieldSources,
 } from './gap-field-loss';
+import { foilGapLowFrequencyScale, foilGapResistance, type FoilGapLayout, type FoilGapSources } from './foil-gap-loss';
 import { spacerEquivalentGap } from './gap';
 import { harmonicWeights, type HarmonicWeights } from './harmonics';
 import { DEFAULT_KEEP_OUT, resolveLimits, type ConverterSpec, type DesignLimits } from './inputs';
@@ -78,7 +79,7 @@ export const WARNING = {
   thermalNotConverged: 1 << 3,
   fluxAboveLimit: 1 << 4,
   gapSensitive: 1 << 5,
-  /** Copper foil beside an air gap: the gap field's loss at the foil's edge is not modelled (taken as zero). */
+  /** Copper foil beside an air gap in the search, which leaves the gap field's loss in the foil out (SpecContext.foilGapModelled). */
   lossNotModelled: 1 << 6,
 } as const;
 
@@ -97,9 +98,15 @@ export interface SpecContext {
   acGrid: AcTemperatureGrid;
   /** Hottest hot spot the limits allow (ambient + max rise + hot-spot allowance): the worst-case saturation corner. */
   hottestAllowed: number;
+  /**
+   * Whether a foil winding's gap-field loss is computed (foil-gap-loss.ts): yes for one design (evaluateDesign, the
+   * load map), not in the search, where that model costs ~0.2 ms a harmonic and temperature node against the ~10⁴ foil
+   * evaluations of a search; there a foil beside a gap keeps WARNING.lossNotModelled and is ranked after the others.
+   */
+  foilGapModelled: boolean;
 }
 
-export function prepareSpec(spec: ConverterSpec, limits?: Partial<DesignLimits>): SpecContext {
+export function prepareSpec(spec: ConverterSpec, limits?: Partial<DesignLimits>, foilGapModelled = false): SpecContext {
   const resolved = resolveLimits(limits);
   const op = operatingPoint(spec, resolved.inductanceTolerance);
   const acTemperature = resolved.ambient + resolved.maxRise;
@@ -112,6 +119,7 @@ export function prepareSpec(spec: ConverterSpec, limits?: Partial<DesignLimits>)
     skinDepth: copperSkinDepth(spec.frequency, acTemperature),
     acGrid: new AcTemperatureGrid(acTemperature, resolved.ambient, Math.max(THERMAL_MODEL_LIMIT, resolved.ambient + 1)),
     hottestAllowed: acTemperature + HOT_SPOT_ALLOWANCE,
+    foilGapModelled,
   };
 }
 
@@ -399,7 +407,11 @@ function prepareGapField(
   return true;
 }
 
-/** The search's gap-field scale: Roshen's half-plane Hx² at each conductor, no cross term (gapFieldSum, O(conductors)). */
+/**
+ * The gap-field scale of the search and the design's figures: for round wire and litz Roshen's half-plane Hx² at each
+ * conductor, no cross term (gapFieldSum, O(conductors)); foil takes foilGapScale when foilModelled (the design page,
+ * the load map), else none (the search: too slow there, flagged instead).
+ */
 export function gapLossScale(
   core: CoreShape,
   material: CoreMaterial,
@@ -407,7 +419,9 @@ export function gapLossScale(
   out: CandidateFigures,
   wire: WireOption,
   keepOut: number,
+  foilModelled = false,
 ): number {
+  if (wire.kind === 'foil') return foilModelled ? foilGapScale(core, material, mag, wire, keepOut) : 0;
   if (!prepareGapField(core, material, mag, out, wire, keepOut)) return 0;
   return gapFieldLoss(mag.turns, gapFieldSum(fieldLayout, fieldSources), 1, 1);
 }
@@ -428,6 +442,100 @@ export function gapLossScaleInWindow(
   if (mag.kind !== 'air-gap' || !prepareGapField(core, material, mag, out, wire, keepOut)) return 0;
   const height = core.windowHeight + (mag.placement === 'spacer' ? mag.spacer : 0);
   return Math.max(0, gapFieldLoss(mag.turns, gapFieldSumInWindow(fieldLayout, fieldSources, { height }), 1, 1));
+}
+
+/** Scratch of the foil gap-field model (foil-gap-loss.ts). */
+const foilLayout: FoilGapLayout = {
+  layers: 0,
+  thickness: 0,
+  pitch: 0,
+  keepOut: 0,
+  windowWidth: 0,
+  windowHeight: 0,
+  legPerimeter: 0,
+};
+const foilSources: FoilGapSources = { centreGap: 0, centreShare: 0, outerGap: 0, outerShare: 0 };
+
+/** Sets foilLayout and foilSources for a foil winding of this design (one turn per layer); false when no gap faces it. */
+function setFoilGap(core: CoreShape, material: CoreMaterial, mag: MagneticDesign, wire: WireOption, keepOut: number): boolean {
+  if (mag.kind !== 'air-gap' || mag.totalGap <= 0 || core.ring) return false;
+  const ratio = core.centreToOuterLegAreaRatio ?? 1;
+  const spacer = mag.placement === 'spacer';
+  const share = gapMmfShare(
+    spacer ? spacerEquivalentGap(mag.spacer, ratio) : mag.totalGap,
+    mag.fringingFactor,
+    core.le,
+    material.permeability,
+  );
+  foilSources.centreGap = spacer ? mag.spacer : mag.totalGap;
+  foilSources.centreShare = spacer ? share / (1 + ratio) : share;
+  foilSources.outerGap = spacer ? mag.spacer : 0;
+  foilSources.outerShare = spacer ? (share * ratio) / (1 + ratio) : 0;
+  foilLayout.layers = mag.turns;
+  foilLayout.thickness = wire.strandDiameter;
+  foilLayout.pitch = wire.overallDiameter;
+  foilLayout.keepOut = keepOut;
+  foilLayout.windowWidth = core.windowArea / core.windowHeight;
+  // A spacer holds the halves apart by its thickness: the window is that much higher.
+  foilLayout.windowHeight = core.windowHeight + (spacer ? mag.spacer : 0);
+  foilLayout.legPerimeter = Math.max(2 * Math.sqrt(Math.PI * core.ae), core.mlt - 2 * Math.PI * (DEFAULT_KEEP_OUT + core.bobbinHeight / 2));
+  return true;
+}
+
+/**
+ * A foil winding's gap-field scale: the thin-foil low-frequency form over ω²σ (foilGapLowFrequencyScale), which orders
+ * keep-outs and placements like the loss; foilGapWeights carries the loss itself per unit of it.
+ */
+function foilGapScale(core: CoreShape, material: CoreMaterial, mag: MagneticDesign, wire: WireOption, keepOut: number): number {
+  return setFoilGap(core, material, mag, wire, keepOut) ? foilGapLowFrequencyScale(foilLayout, foilSources, mag.turns) : 0;
+}
+
+/** The foil's gap-field resistance (Ω, foilGapResistance) of this design at one frequency and resistivity; 0 without a gap. */
+export function foilGapResistanceOf(
+  core: CoreShape,
+  material: CoreMaterial,
+  mag: MagneticDesign,
+  wire: WireOption,
+  keepOut: number,
+  frequency: number,
+  resistivity: number,
+): number {
+  return setFoilGap(core, material, mag, wire, keepOut) ? foilGapResistance(foilLayout, foilSources, mag.turns, frequency, resistivity) : 0;
+}
+
+/** Below this share of the sum so far, a ripple harmonic's bound ends the foil's harmonic sum. */
+const FOIL_HARMONIC_TOLERANCE = 1e-4;
+
+/**
+ * The foil's gap-field loss at each node of the AC grid per unit of its scale: Σ_n (I_n²/2)·R_gap(n·f, ρ(T))/scale.
+ * R_gap depends on the winding and the gap, so the table is the candidate's own (a new array, not the wire's).
+ */
+function foilGapWeights(
+  ctx: SpecContext,
+  core: CoreShape,
+  material: CoreMaterial,
+  mag: MagneticDesign,
+  wire: WireOption,
+  keepOut: number,
+  scale: number,
+): Float64Array {
+  const table = new Float64Array(AC_TEMPERATURE_NODES);
+  if (!setFoilGap(core, material, mag, wire, keepOut)) return table;
+  const weights = ctx.harmonics;
+  for (let i = 0; i < AC_TEMPERATURE_NODES; i++) {
+    const resistivity = copperResistivity(ctx.acGrid.temperatures[i]!);
+    let sum = 0;
+    for (let n = 1; n <= weights.meanSquare.length; n++) {
+      const w = weights.meanSquare[n - 1]!;
+      if (w === 0) continue;
+      const r = foilGapResistance(foilLayout, foilSources, mag.turns, n * ctx.spec.frequency, resistivity);
+      sum += w * r;
+      // The envelope falls as n⁻⁴ and R_gap grows at most as n² (its low-frequency form).
+      if (weights.envelope[n - 1]! * r < FOIL_HARMONIC_TOLERANCE * sum) break;
+    }
+    table[i] = sum / scale;
+  }
+  return table;
 }
 
 /** Keep-out beyond the bobbin wall (DEFAULT_KEEP_OUT), taken from the build height; none on a ring (m). */
@@ -540,7 +648,7 @@ export function evaluateWindingLosses(
   wireCtx: WireContext,
   out: CandidateFigures,
   keepOut = ctx.limits.keepOut,
-  scale = gapLossScale(coreCtx.core, matCtx.material, mag, out, wireCtx.wire, keepOut),
+  scale = gapLossScale(coreCtx.core, matCtx.material, mag, out, wireCtx.wire, keepOut, ctx.foilGapModelled),
 ): void {
   const { op, limits } = ctx;
   const core = coreCtx.core;
@@ -553,7 +661,10 @@ export function evaluateWindingLosses(
   out.keepOut = keepOut;
   if (!buildFitsWithKeepOut(core, out, keepOut)) failures |= FAILURE.build;
   loss.gapLossScale = scale;
-  if (scale > 0) loss.gapLossWeights = wireGapTable(wireCtx, ctx);
+  if (scale > 0) {
+    loss.gapLossWeights =
+      wireCtx.wire.kind === 'foil' ? foilGapWeights(ctx, core, material, mag, wireCtx.wire, keepOut, scale) : wireGapTable(wireCtx, ctx);
+  }
   const thermal = solveTemperature(limits, loss, coreCtx.thermal, out.thermal, false);
   if (!thermal.converged) warnings |= WARNING.thermalNotConverged;
   if (thermal.runaway) failures |= FAILURE.thermalRunaway;
@@ -584,7 +695,8 @@ export function evaluateWindingLosses(
   if (!matCtx.frequencyInFit) warnings |= WARNING.frequencyFit;
   if (!fluxInFitRange(material, out.fluxSwing / 2)) warnings |= WARNING.fluxFit;
   out.windingFailures = failures;
-  if (wireCtx.wire.kind === 'foil' && mag.kind === 'air-gap' && mag.totalGap > 0) warnings |= WARNING.lossNotModelled;
+  const foilBesideGap = wireCtx.wire.kind === 'foil' && mag.kind === 'air-gap' && mag.totalGap > 0 && !coreCtx.core.ring;
+  if (foilBesideGap && !ctx.foilGapModelled) warnings |= WARNING.lossNotModelled;
   out.windingWarnings = warnings;
 }
 

@@ -9,7 +9,7 @@ import { litzProximitySum, litzWindingFactor } from './litz';
 import { evaluateDesign, type EvaluateInput, type EvaluationResult } from './evaluate';
 import { MAX_HARMONIC } from './harmonics';
 import { transverseFieldLoss } from './gap-field-loss';
-import { CandidateFigures, gapLossScale, prepareCore, prepareSpec, prepareWire, strandsPerPosition } from './kernel';
+import { CandidateFigures, foilGapResistanceOf, gapLossScale, prepareCore, prepareSpec, prepareWire, strandsPerPosition } from './kernel';
 import { designMagnetics } from './magnetic-design';
 import { piecewiseLinearSpectrum } from './piecewise-harmonics';
 import { biasedInductance } from './powder';
@@ -57,13 +57,16 @@ export interface LossMap {
  * fringing-field loss from the same harmonics at the design's keep-out, iterated with the temperature as
  * evaluateDesign does. `base` is evaluateDesign(input), passed in where the caller already has it.
  */
+/** Harmonics of a foil winding's gap-field loss the load map sums (see lossMap). */
+const FOIL_GAP_HARMONICS = 40;
+
 export function lossMap(
   input: EvaluateInput,
   fractions: readonly number[] = LOAD_FRACTIONS,
   base: EvaluationResult = evaluateDesign(input),
 ): LossMap {
   const { spec, core, material } = input;
-  const ctx = prepareSpec(spec, input.limits);
+  const ctx = prepareSpec(spec, input.limits, true);
   const wire = prepareWire(input.wire, ctx);
   const part = prepareCore(core).thermal;
   const layers = Number.isFinite(base.winding.layers) ? base.winding.layers : 1;
@@ -79,7 +82,8 @@ export function lossMap(
   const mag = designMagnetics(core, material, ctx, input.turns, input.gap, input.placement);
   const layout = new CandidateFigures();
   layWinding(mag.turns, input.wire, core, layout);
-  const gapScale = gapLossScale(core, material, mag, layout, input.wire, input.keepOut ?? ctx.limits.keepOut);
+  const keepOut = input.keepOut ?? ctx.limits.keepOut;
+  const gapScale = gapLossScale(core, material, mag, layout, input.wire, keepOut, true);
   const transverse: Float64Array[] = [];
   if (gapScale > 0) {
     const strands = strandsPerPosition(input.wire);
@@ -87,7 +91,14 @@ export function lossMap(
       const resistivity = copperResistivity(ctx.acGrid.temperatures[node]!);
       const perHarmonic = new Float64Array(MAX_HARMONIC);
       for (let n = 1; n <= MAX_HARMONIC; n++) {
-        perHarmonic[n - 1] = strands * transverseFieldLoss(input.wire.strandDiameter, n * spec.frequency, resistivity);
+        // Foil: its gap-field resistance per unit of its scale (foil-gap-loss.ts), the weight of I_n²/2, to the
+        // FOIL_GAP_HARMONICS-th harmonic (a field solve each; the ripple's n⁻⁴ leaves the rest below 1e-4 of the sum).
+        if (input.wire.kind === 'foil') {
+          perHarmonic[n - 1] =
+            n <= FOIL_GAP_HARMONICS
+              ? foilGapResistanceOf(core, material, mag, input.wire, keepOut, n * spec.frequency, resistivity) / gapScale
+              : 0;
+        } else perHarmonic[n - 1] = strands * transverseFieldLoss(input.wire.strandDiameter, n * spec.frequency, resistivity);
       }
       transverse.push(perHarmonic);
     }

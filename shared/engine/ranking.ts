@@ -1,7 +1,8 @@
 // Ordering of feasible candidates by the designer's chosen objective, and the Pareto fronts drawn beside them.
 // Candidates whose core loss rests on extrapolated material data follow every fully modelled in-fit candidate, and
-// those whose loss leaves out a term the engine does not model follow both: an extrapolated fit still estimates every
-// loss, a missing term (the gap field at a foil's edge, which a field check found to triple Rac) does not.
+// those whose loss leaves out a term follow both: an extrapolated fit still estimates every loss, a missing term does
+// not (the gap field in a foil winding, which the search leaves out — foil-gap-loss.ts is too slow for it — and a field
+// check found to be 3–9× the ungapped winding's Rac at 0.5 mm keep-out).
 import type { RankBy } from './inputs';
 
 export interface RankedFigures {

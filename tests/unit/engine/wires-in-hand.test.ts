@@ -24,12 +24,14 @@ describe('wires in hand', () => {
 });
 
 describe('foil beside a gap', () => {
-  it('warns that the gap field on foil is not modelled (common practice, no source: foil near a gap runs hot at its edge)', () => {
+  it('warns of the gap field on foil and counts its loss on the design (common practice, no source: foil near a gap runs hot)', () => {
     const foil = evaluateDesign({
       ...base,
       wire: { id: 'foil 0.15', kind: 'foil', strandDiameter: 0.15e-3, overallDiameter: 0.2e-3, strands: 1, conductorsPerTurn: 1 },
     });
     expect(foil.issues.some((i) => i.code === 'foil-beside-gap')).toBe(true);
+    // The design's own evaluation includes the foil's gap-field loss (foil-gap-loss.ts): it is no longer zero.
+    expect(foil.copper.gapLoss).toBeGreaterThan(0);
     expect(warned(base)).toBe(true);
     expect(evaluateDesign(base).issues.some((i) => i.code === 'foil-beside-gap')).toBe(false);
   });
