@@ -20,8 +20,8 @@
 // path reluctance. Spacer gaps: a spacer between the halves opens a gap of its thickness in the centre leg (beside the
 // winding's middle, like a ground gap, taking Ao/(Ac + Ao) of the gap MMF) and in the outer legs (across the window,
 // beside the winding's outside, taking the rest); both are summed with the same formula at their own distances.
-// Distributed-gap (powder) cores have no gap: zero. Foil: not modelled (zero, stated) — the field normal to a foil
-// wider than the skin depth is shielded by the foil, which the round-conductor formula cannot describe.
+// Distributed-gap (powder) cores have no gap: zero. Foil: not here — the field normal to a foil wider than the skin
+// depth is shielded by the foil, which the round-conductor formula cannot describe; foil-gap-loss.ts models it.
 //
 // Two sums, measured against the field solution (tests/unit/solvers/gap-field-loss.test.ts): gapFieldSum (above, the
 // search's: O(conductors), Roshen's Hx² only, no cross term; +8…+273 % on one layer, −53…+21 % on two or three) and

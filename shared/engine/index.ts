@@ -1,4 +1,4 @@
-export const ENGINE_VERSION = '2.1.1';
+export const ENGINE_VERSION = '2.2.0';
 
 export * from './area-product';
 export * from './buck-waveform';
