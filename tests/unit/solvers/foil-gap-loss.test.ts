@@ -93,12 +93,14 @@ interface Case {
   band: [number, number];
 }
 
+// The suite runs a subset of the cases measured (the table above: every gap at every keep-out); each row's band is the
+// one measured for its foil.
 const cases: Case[] = [
-  { id: 'P26/16', turns: 6, thickness: 0.1e-3, gaps: [0.3e-3, 1e-3], keepOuts: [0.5e-3, 1e-3], band: [1.2, 1.9] },
-  { id: 'P26/16', turns: 6, thickness: 0.2e-3, gaps: [0.3e-3, 1e-3], keepOuts: [0.5e-3, 1e-3], band: [1.0, 1.25] },
-  { id: 'ETD34/17/11', turns: 10, thickness: 0.1e-3, gaps: [0.3e-3, 1e-3], keepOuts: [0.5e-3, 1e-3, 1.5e-3], band: [1.0, 1.35] },
-  { id: 'ETD34/17/11', turns: 10, thickness: 0.2e-3, gaps: [0.3e-3, 1e-3], keepOuts: [0.5e-3, 1e-3, 1.5e-3], band: [0.9, 1.05] },
-  { id: 'ETD34/17/11', turns: 6, thickness: 0.5e-3, gaps: [1e-3], keepOuts: [0.5e-3, 1e-3], band: [0.55, 0.85] },
+  { id: 'P26/16', turns: 6, thickness: 0.1e-3, gaps: [1e-3], keepOuts: [0.5e-3, 1e-3], band: [1.2, 1.9] },
+  { id: 'P26/16', turns: 6, thickness: 0.2e-3, gaps: [0.3e-3], keepOuts: [0.5e-3], band: [1.0, 1.25] },
+  { id: 'ETD34/17/11', turns: 10, thickness: 0.1e-3, gaps: [0.3e-3], keepOuts: [0.5e-3], band: [1.0, 1.35] },
+  { id: 'ETD34/17/11', turns: 10, thickness: 0.2e-3, gaps: [1e-3], keepOuts: [0.5e-3, 1.5e-3], band: [0.9, 1.05] },
+  { id: 'ETD34/17/11', turns: 6, thickness: 0.5e-3, gaps: [1e-3], keepOuts: [0.5e-3], band: [0.55, 0.85] },
   { id: 'ETD34/17/11', turns: 10, thickness: 0.1e-3, gaps: [0.5e-3], keepOuts: [0.5e-3], placement: 'spacer', band: [0.5, 1.0] },
 ];
 
@@ -108,20 +110,25 @@ describe('foil gap-field loss: the model against the field solution', () => {
       const core = cores.find((c) => c.id === id)!;
       const rows: string[] = [];
       for (const keepOut of keepOuts) {
-        const plain = await solveFieldDesign(design(core, turns, thickness, 0, keepOut), options);
-        const dowell = plain.dcResistance * dowellFactor(foilDelta(thickness, skinDepthOf(RHO, FREQUENCY)), turns);
-        for (const gap of gaps) {
-          const field = await solveFieldDesign(design(core, turns, thickness, gap, keepOut, placement), options);
-          const fieldTerm = field.harmonics[0]!.resistance - plain.harmonics[0]!.resistance;
+        // The ungapped and gapped solves side by side: each takes a core.
+        const [plain, ...gapped] = await Promise.all(
+          [0, ...gaps].map((gap) =>
+            solveFieldDesign(design(core, turns, thickness, gap, keepOut, gap > 0 ? placement : 'ground'), options),
+          ),
+        );
+        const dowell = plain!.dcResistance * dowellFactor(foilDelta(thickness, skinDepthOf(RHO, FREQUENCY)), turns);
+        for (const [i, gap] of gaps.entries()) {
+          const field = gapped[i]!;
+          const fieldTerm = field.harmonics[0]!.resistance - plain!.harmonics[0]!.resistance;
           const model = modelGapResistance(core, turns, thickness, gap, keepOut, placement);
           rows.push(
-            `${id} ${turns}× ${thickness * 1e3} mm foil, ${placement} gap ${gap * 1e3} mm, keep-out ${keepOut * 1e3} mm: field ΔR ${(fieldTerm * 1e3).toFixed(2)} mΩ, model ${(model * 1e3).toFixed(2)} mΩ (${((model / fieldTerm - 1) * 100).toFixed(0)} %), ungapped field Rac ${(plain.harmonics[0]!.resistance * 1e3).toFixed(2)} mΩ, Dowell ${(dowell * 1e3).toFixed(2)} mΩ`,
+            `${id} ${turns}× ${thickness * 1e3} mm foil, ${placement} gap ${gap * 1e3} mm, keep-out ${keepOut * 1e3} mm: field ΔR ${(fieldTerm * 1e3).toFixed(2)} mΩ, model ${(model * 1e3).toFixed(2)} mΩ (${((model / fieldTerm - 1) * 100).toFixed(0)} %), ungapped field Rac ${(plain!.harmonics[0]!.resistance * 1e3).toFixed(2)} mΩ, Dowell ${(dowell * 1e3).toFixed(2)} mΩ`,
           );
           // Measured band (see the table above).
           expect(model / fieldTerm).toBeGreaterThan(band[0]);
           expect(model / fieldTerm).toBeLessThan(band[1]);
           // Close to the gap the term is several times the ungapped winding's whole AC resistance.
-          if (keepOut <= 0.5e-3) expect(fieldTerm).toBeGreaterThan(2 * plain.harmonics[0]!.resistance);
+          if (keepOut <= 0.5e-3) expect(fieldTerm).toBeGreaterThan(2 * plain!.harmonics[0]!.resistance);
         }
       }
       console.log(rows.join('\n'));

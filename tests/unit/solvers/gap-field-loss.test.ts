@@ -100,11 +100,14 @@ const add = (
     gaps.forEach((gap) => cases.push({ id, placement, gap, keepOut, turns, perLayer, layers, imageBand: bands[i]! })),
   );
 // P26/16's window is 4.85 mm wide: one 0.55 mm layer leaves room for keep-outs up to 2.1 mm, two for 1.6 mm.
-add('P26/16', [0.5e-3, 1e-3, 2e-3], [0.3e-3, 1e-3], [0.15, 0.15, 0.15]);
+// The suite runs 22 of the 30 cases measured (this file's header and README give all 30; the 1 mm keep-outs on one
+// layer, the ETD34's 3 mm on two layers and 2 mm on three are left out to keep the suite's time).
+add('P26/16', [0.5e-3, 2e-3], [0.3e-3, 1e-3], [0.15, 0.15]);
 add('P26/16', [0.5e-3, 1.5e-3], [0.3e-3, 1e-3], [0.15, 0.15], 16, 8, 2);
-add('ETD34/17/11', [0.5e-3, 1e-3, 2e-3, 3e-3], [0.3e-3, 1e-3], [0.15, 0.35, 1.6, 1.4]);
-add('ETD34/17/11', [0.5e-3, 2e-3, 3e-3], [0.3e-3, 1e-3], [0.2, 0.6, 0.5], 16, 8, 2);
-add('ETD34/17/11', [0.5e-3, 2e-3], [1e-3], [0.15, 0.4], 24, 8, 3);
+add('ETD34/17/11', [0.5e-3, 2e-3], [0.3e-3, 1e-3], [0.15, 1.6]);
+add('ETD34/17/11', [3e-3], [1e-3], [1.4]);
+add('ETD34/17/11', [0.5e-3, 2e-3], [0.3e-3, 1e-3], [0.2, 0.6], 16, 8, 2);
+add('ETD34/17/11', [0.5e-3], [1e-3], [0.15], 24, 8, 3);
 add('ETD34/17/11', [0.5e-3, 2e-3], [1e-3], [0.15, 0.2], 20, 20, 1);
 add('P26/16', [2e-3], [0.5e-3], [0.15], 8, 8, 1, 'spacer');
 add('ETD34/17/11', [2e-3], [0.5e-3], [0.4], 8, 8, 1, 'spacer');
