@@ -354,6 +354,31 @@ export function evaluateCandidate(
   return applyMagnetics(ctx, coreCtx.core, matCtx.material, mag, out);
 }
 
+/**
+ * The gaps facing the winding and the share of the winding MMF across each, into `target` (round wire's and foil's
+ * sources alike): a ground gap in the centre leg takes the gap's share of the path reluctance (gapMmfShare); a spacer
+ * opens a gap of its thickness in the centre leg and in the outer legs, which split that share as their reluctances do.
+ */
+function setGapSources(
+  target: { centreGap: number; centreShare: number; outerGap: number; outerShare: number },
+  core: CoreShape,
+  material: CoreMaterial,
+  mag: MagneticDesign,
+): void {
+  const ratio = core.centreToOuterLegAreaRatio ?? 1;
+  const spacer = mag.placement === 'spacer';
+  const share = gapMmfShare(
+    spacer ? spacerEquivalentGap(mag.spacer, ratio) : mag.totalGap,
+    mag.fringingFactor,
+    core.le,
+    material.permeability,
+  );
+  target.centreGap = spacer ? mag.spacer : mag.totalGap;
+  target.centreShare = spacer ? share / (1 + ratio) : share;
+  target.outerGap = spacer ? mag.spacer : 0;
+  target.outerShare = spacer ? (share * ratio) / (1 + ratio) : 0;
+}
+
 /** Scratch of the gap-field sum, reused so an evaluation allocates nothing. */
 const fieldLayout: GapFieldLayout = {
   turns: 0,
@@ -381,18 +406,7 @@ function prepareGapField(
   keepOut: number,
 ): boolean {
   if (mag.kind !== 'air-gap' || mag.totalGap <= 0 || core.ring || wire.kind === 'foil') return false;
-  const ratio = core.centreToOuterLegAreaRatio ?? 1;
-  const spacer = mag.placement === 'spacer';
-  const share = gapMmfShare(
-    spacer ? spacerEquivalentGap(mag.spacer, ratio) : mag.totalGap,
-    mag.fringingFactor,
-    core.le,
-    material.permeability,
-  );
-  fieldSources.centreGap = spacer ? mag.spacer : mag.totalGap;
-  fieldSources.centreShare = spacer ? share / (1 + ratio) : share;
-  fieldSources.outerGap = spacer ? mag.spacer : 0;
-  fieldSources.outerShare = spacer ? (share * ratio) / (1 + ratio) : 0;
+  setGapSources(fieldSources, core, material, mag);
   fieldSources.windowWidth = core.windowArea / core.windowHeight;
   fieldLayout.turns = mag.turns;
   fieldLayout.turnsPerLayer = out.turnsPerLayer;
@@ -459,18 +473,8 @@ const foilSources: FoilGapSources = { centreGap: 0, centreShare: 0, outerGap: 0,
 /** Sets foilLayout and foilSources for a foil winding of this design (one turn per layer); false when no gap faces it. */
 function setFoilGap(core: CoreShape, material: CoreMaterial, mag: MagneticDesign, wire: WireOption, keepOut: number): boolean {
   if (mag.kind !== 'air-gap' || mag.totalGap <= 0 || core.ring) return false;
-  const ratio = core.centreToOuterLegAreaRatio ?? 1;
+  setGapSources(foilSources, core, material, mag);
   const spacer = mag.placement === 'spacer';
-  const share = gapMmfShare(
-    spacer ? spacerEquivalentGap(mag.spacer, ratio) : mag.totalGap,
-    mag.fringingFactor,
-    core.le,
-    material.permeability,
-  );
-  foilSources.centreGap = spacer ? mag.spacer : mag.totalGap;
-  foilSources.centreShare = spacer ? share / (1 + ratio) : share;
-  foilSources.outerGap = spacer ? mag.spacer : 0;
-  foilSources.outerShare = spacer ? (share * ratio) / (1 + ratio) : 0;
   foilLayout.layers = mag.turns;
   foilLayout.thickness = wire.strandDiameter;
   foilLayout.pitch = wire.overallDiameter;
