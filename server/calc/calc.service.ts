@@ -144,9 +144,12 @@ export class CalcService {
         : undefined;
     const map =
       options.sweep === 'load' || options.sweep === 'all' ? engineCall(() => lossMap(input, undefined, result), 'spec.') : undefined;
-    // A few milliseconds per design: only where the term is worth a second opinion.
+    // Up to a few tens of milliseconds on this thread: only for the design page (which asks for a sweep) and only where
+    // the term is worth a second opinion.
     const imageCheck =
-      (result.copper.gapLoss ?? 0) >= GAP_CROSS_CHECK_SHARE * result.totalLoss ? gapLossByWindowImages(input, result) : undefined;
+      options.sweep !== undefined && (result.copper.gapLoss ?? 0) >= GAP_CROSS_CHECK_SHARE * result.totalLoss
+        ? gapLossByWindowImages(input, result)
+        : undefined;
     return {
       engineVersion: ENGINE_VERSION,
       wire,

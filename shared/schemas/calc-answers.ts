@@ -187,7 +187,7 @@ export const evaluateAnswerSchema = z.object({
   lossMap: lossMapSchema.optional(),
   gapLossByWindowImages: z.number().optional().meta({
     description:
-      "Cross-check of the winding loss from the gap's field by the method of images in the core window (W), where that loss is at least 2 % of the total; the design's figures use the half-plane estimate, as the search does",
+      "Cross-check of the winding loss from the gap's field by the method of images in the core window (W), with a sweep and where that loss is at least 2 % of the total; the design's figures use the half-plane estimate, as the search does",
   }),
 });
 export type EvaluateAnswer = z.infer<typeof evaluateAnswerSchema>;

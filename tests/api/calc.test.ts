@@ -223,7 +223,10 @@ describe('POST /api/calc/search and /api/calc/evaluate', () => {
     // The search moves copper away only where the gap-field loss is at least 2 % of the total; from that share
     // evaluate adds the image method's cross-check of it.
     expect(atLimit.body.result.copper.gapLoss / atLimit.body.result.totalLoss).toBeGreaterThanOrEqual(0.02);
-    expect(atLimit.body.gapLossByWindowImages).toBeGreaterThan(0);
+    // … when asked with a sweep, as the design page asks: a plain evaluate stays as cheap as before.
+    expect(atLimit.body.gapLossByWindowImages).toBeUndefined();
+    const withSweep = await engineer.post('/api/calc/evaluate?sweep=frequency', body);
+    expect(withSweep.body.gapLossByWindowImages).toBeGreaterThan(0);
     const refused = await engineer.post('/api/calc/evaluate', { ...body, keepOut: -1e-3 });
     expect(refused.status).toBe(400);
     expect(Object.keys(refused.body.error.fields)).toContain('keepOut');
