@@ -91,8 +91,12 @@ export async function runWorkspaceBench(): Promise<BenchRow[]> {
       await turnsField.fill(String(turns));
       const response = await request;
       evaluateTimes.push(await shown);
-      // The timing's responseEnd is -1 until the body has arrived.
-      await response.finished();
+      // The timing's responseEnd is -1 until the body has arrived. Bounded: once, in a full bench run, this wait never
+      // ended; a bench that stops with a reason beats one that hangs.
+      await Promise.race([
+        response.finished(),
+        new Promise((_, reject) => setTimeout(() => reject(new Error('the evaluate response did not finish within 30 s')), 30_000).unref()),
+      ]);
       const timing = response.request().timing();
       requestTimes.push(timing.responseEnd - timing.requestStart);
     }
