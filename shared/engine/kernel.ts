@@ -379,6 +379,19 @@ function setGapSources(
   target.outerShare = spacer ? (share * ratio) / (1 + ratio) : 0;
 }
 
+/** Window width from the centre-leg face to the outer leg (m). */
+const windowWidthOf = (core: CoreShape) => core.windowArea / core.windowHeight;
+
+/**
+ * Turn length at the centre-leg face (m), from the full bobbin's MLT (mid-build at the default keep-out plus half the
+ * bobbin height), at least a round leg's perimeter.
+ */
+const legFacePerimeter = (core: CoreShape) =>
+  Math.max(2 * Math.sqrt(Math.PI * core.ae), core.mlt - 2 * Math.PI * (DEFAULT_KEEP_OUT + core.bobbinHeight / 2));
+
+/** Window height between the yokes (m): a spacer holds the halves apart by its thickness, so it is that much higher. */
+const gapWindowHeight = (core: CoreShape, mag: MagneticDesign) => core.windowHeight + (mag.placement === 'spacer' ? mag.spacer : 0);
+
 /** Scratch of the gap-field sum, reused so an evaluation allocates nothing. */
 const fieldLayout: GapFieldLayout = {
   turns: 0,
@@ -407,17 +420,14 @@ function prepareGapField(
 ): boolean {
   if (mag.kind !== 'air-gap' || mag.totalGap <= 0 || core.ring || wire.kind === 'foil') return false;
   setGapSources(fieldSources, core, material, mag);
-  fieldSources.windowWidth = core.windowArea / core.windowHeight;
+  fieldSources.windowWidth = windowWidthOf(core);
   fieldLayout.turns = mag.turns;
   fieldLayout.turnsPerLayer = out.turnsPerLayer;
   fieldLayout.layers = out.layers;
   fieldLayout.conductorsPerTurn = wire.conductorsPerTurn;
   fieldLayout.overallDiameter = wire.overallDiameter;
   fieldLayout.keepOut = keepOut;
-  fieldLayout.legPerimeter = Math.max(
-    2 * Math.sqrt(Math.PI * core.ae),
-    core.mlt - 2 * Math.PI * (DEFAULT_KEEP_OUT + core.bobbinHeight / 2),
-  );
+  fieldLayout.legPerimeter = legFacePerimeter(core);
   return true;
 }
 
@@ -453,9 +463,8 @@ export function gapLossScaleInWindow(
   wire: WireOption,
   keepOut: number,
 ): number {
-  if (mag.kind !== 'air-gap' || !prepareGapField(core, material, mag, out, wire, keepOut)) return 0;
-  const height = core.windowHeight + (mag.placement === 'spacer' ? mag.spacer : 0);
-  return Math.max(0, gapFieldLoss(mag.turns, gapFieldSumInWindow(fieldLayout, fieldSources, { height }), 1, 1));
+  if (!prepareGapField(core, material, mag, out, wire, keepOut)) return 0;
+  return Math.max(0, gapFieldLoss(mag.turns, gapFieldSumInWindow(fieldLayout, fieldSources, { height: gapWindowHeight(core, mag) }), 1, 1));
 }
 
 /** Scratch of the foil gap-field model (foil-gap-loss.ts). */
@@ -474,15 +483,13 @@ const foilSources: FoilGapSources = { centreGap: 0, centreShare: 0, outerGap: 0,
 function setFoilGap(core: CoreShape, material: CoreMaterial, mag: MagneticDesign, wire: WireOption, keepOut: number): boolean {
   if (mag.kind !== 'air-gap' || mag.totalGap <= 0 || core.ring) return false;
   setGapSources(foilSources, core, material, mag);
-  const spacer = mag.placement === 'spacer';
   foilLayout.layers = mag.turns;
   foilLayout.thickness = wire.strandDiameter;
   foilLayout.pitch = wire.overallDiameter;
   foilLayout.keepOut = keepOut;
-  foilLayout.windowWidth = core.windowArea / core.windowHeight;
-  // A spacer holds the halves apart by its thickness: the window is that much higher.
-  foilLayout.windowHeight = core.windowHeight + (spacer ? mag.spacer : 0);
-  foilLayout.legPerimeter = Math.max(2 * Math.sqrt(Math.PI * core.ae), core.mlt - 2 * Math.PI * (DEFAULT_KEEP_OUT + core.bobbinHeight / 2));
+  foilLayout.windowWidth = windowWidthOf(core);
+  foilLayout.windowHeight = gapWindowHeight(core, mag);
+  foilLayout.legPerimeter = legFacePerimeter(core);
   return true;
 }
 
