@@ -49,6 +49,9 @@ export interface LossMap {
   points: LoadPoint[];
 }
 
+/** Harmonics of a foil winding's gap-field loss the load map sums (see lossMap). */
+const FOIL_GAP_HARMONICS = 40;
+
 /**
  * The built part (turns, gap, wire as evaluateDesign makes them, at its nominal inductance) run at each load and input
  * voltage: the real current waveform (CCM, boundary or DCM, buckWaveform), the copper loss from its DC value and
@@ -57,9 +60,6 @@ export interface LossMap {
  * fringing-field loss from the same harmonics at the design's keep-out, iterated with the temperature as
  * evaluateDesign does. `base` is evaluateDesign(input), passed in where the caller already has it.
  */
-/** Harmonics of a foil winding's gap-field loss the load map sums (see lossMap). */
-const FOIL_GAP_HARMONICS = 40;
-
 export function lossMap(
   input: EvaluateInput,
   fractions: readonly number[] = LOAD_FRACTIONS,
